@@ -1,0 +1,37 @@
+using System.CommandLine;
+
+namespace ThermVerify.Cli;
+
+/// <summary>
+/// Wires the commands, turns parse errors into exit code 2 and exceptions into a message and a code.
+/// No stack trace ever reaches the user.
+/// </summary>
+public static class CliApp
+{
+    public static int Run(string[] args, TextWriter output, TextWriter error)
+    {
+        var root = new RootCommand(
+            "thermverify: prove that the temperature your firmware reports from a thermistor or RTD on an ADC " +
+            "is the temperature that is really there.")
+        {
+            // commands are added as they land
+        };
+        var parsed = root.Parse(args);
+        if (parsed.Errors.Count > 0)
+        {
+            foreach (var parseError in parsed.Errors) error.WriteLine($"thermverify: {parseError.Message}");
+            error.WriteLine("Run 'thermverify --help' for the commands and their options.");
+            return ExitCodes.BadInput;
+        }
+
+        var configuration = new InvocationConfiguration { Output = output, Error = error, EnableDefaultExceptionHandler = false };
+        try
+        {
+            return parsed.Invoke(configuration);
+        }
+        catch (Exception exception)
+        {
+            return ErrorReport.Write(exception, error);
+        }
+    }
+}
