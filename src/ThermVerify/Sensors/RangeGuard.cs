@@ -1,0 +1,46 @@
+using System.Globalization;
+
+namespace ThermVerify.Sensors;
+
+/// <summary>
+/// The one place that words out-of-range errors, so every model names the value, itself and its limits
+/// the same way. Resistance limits are derived from the temperature range, because a user holding an ADC
+/// reading thinks in ohms, not in the model's temperature span.
+/// </summary>
+internal static class RangeGuard
+{
+    public static void CheckTemperature(double celsius, TemperatureRange range, string model)
+    {
+        if (range.Contains(celsius)) return;
+        throw new SensorRangeException(FormattableString.Invariant(
+            $"Temperature {celsius:G6} °C is outside the valid range of {model} ({range}); ") +
+            "no extrapolation is done: use a model whose valid range covers this temperature.");
+    }
+
+    public static void CheckResistance(double ohms, double minOhms, double maxOhms, TemperatureRange range, string model)
+    {
+        if (ohms >= minOhms && ohms <= maxOhms) return;
+        throw new SensorRangeException(FormattableString.Invariant(
+            $"Resistance {ohms:G6} Ω is outside the valid range of {model}: {minOhms:G6} Ω to {maxOhms:G6} Ω, which corresponds to {range}; ") +
+            "no extrapolation is done: check the reading or widen the model's valid range.");
+    }
+
+    /// <summary>Rejects a range that is empty, not finite or below absolute zero.</summary>
+    public static TemperatureRange Validate(TemperatureRange range, string parameterName)
+    {
+        if (!double.IsFinite(range.MinCelsius) || !double.IsFinite(range.MaxCelsius)
+            || range.MinCelsius >= range.MaxCelsius
+            || range.MinCelsius <= -Quantities.PhysicalConstants.ZeroCelsiusInKelvin)
+            throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
+                $"Valid range {range} is not usable: it needs finite limits, minimum below maximum, and a minimum above −273.15 °C."),
+                parameterName);
+        return range;
+    }
+
+    public static double RequirePositiveFinite(double value, string what, string parameterName)
+    {
+        if (double.IsFinite(value) && value > 0) return value;
+        throw new ArgumentOutOfRangeException(parameterName, value,
+            $"{what} must be a positive finite number; got {value.ToString("G6", CultureInfo.InvariantCulture)}.");
+    }
+}
