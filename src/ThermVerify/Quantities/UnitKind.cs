@@ -34,4 +34,8 @@ public enum UnitKind
     VoltPerRootHertz,
     AmperePerRootHertz,
     Lsb,
+    /// <summary>A temperature coefficient of a voltage, e.g. an op-amp's offset drift (µV/K).</summary>
+    VoltPerKelvin,
+    /// <summary>An angle in degrees (not radians), e.g. a phase margin.</summary>
+    Degree,
 }

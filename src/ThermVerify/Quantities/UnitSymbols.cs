@@ -30,6 +30,8 @@ internal static class UnitSymbols
         ["ppm"] = UnitKind.Ppm,
         ["dB"] = UnitKind.Decibel,
         ["LSB"] = UnitKind.Lsb,
+        ["\u00B0"] = UnitKind.Degree, // °
+        ["deg"] = UnitKind.Degree,
     };
 
     /// <summary>Numerators of compound units; W stands for the watt of W/K.</summary>
@@ -107,6 +109,11 @@ internal static class UnitSymbols
             kind = top == UnitKind.Volt ? UnitKind.VoltPerRootHertz : UnitKind.AmperePerRootHertz;
             return true;
         }
+        if (top == UnitKind.Volt && KelvinDenominator.Contains(denominator))
+        {
+            kind = UnitKind.VoltPerKelvin;
+            return true;
+        }
         if (top == UnitKind.WattPerKelvin && KelvinDenominator.Contains(denominator))
         {
             kind = UnitKind.WattPerKelvin;
@@ -133,7 +140,7 @@ internal static class UnitSymbols
     /// <summary>Whether a unit kind is printed with an SI prefix.</summary>
     public static bool TakesPrefix(UnitKind kind) => kind is UnitKind.Ohm or UnitKind.Volt or UnitKind.Ampere
         or UnitKind.Farad or UnitKind.Second or UnitKind.Hertz or UnitKind.Kelvin or UnitKind.WattPerKelvin
-        or UnitKind.VoltPerSecond or UnitKind.VoltPerRootHertz or UnitKind.AmperePerRootHertz;
+        or UnitKind.VoltPerSecond or UnitKind.VoltPerRootHertz or UnitKind.AmperePerRootHertz or UnitKind.VoltPerKelvin;
 
     /// <summary>The symbol printed after the (prefixed) number.</summary>
     public static string PrintedSymbol(UnitKind kind) => kind switch
@@ -156,6 +163,8 @@ internal static class UnitSymbols
         UnitKind.VoltPerRootHertz => "V/\u221AHz",
         UnitKind.AmperePerRootHertz => "A/\u221AHz",
         UnitKind.Lsb => "LSB",
+        UnitKind.VoltPerKelvin => "V/K",
+        UnitKind.Degree => "\u00B0",
         _ => throw new ArgumentOutOfRangeException(nameof(kind)),
     };
 
@@ -180,6 +189,8 @@ internal static class UnitSymbols
         UnitKind.VoltPerRootHertz => "a noise density (e.g. \"20 nV/rtHz\")",
         UnitKind.AmperePerRootHertz => "a current noise density (e.g. \"0.5 pA/rtHz\")",
         UnitKind.Lsb => "an error in LSB (e.g. \"1 LSB\", \"0.5 LSB\")",
+        UnitKind.VoltPerKelvin => "a voltage drift (e.g. \"5 uV/K\")",
+        UnitKind.Degree => "an angle in degrees (e.g. \"45 deg\")",
         _ => throw new ArgumentOutOfRangeException(nameof(kind)),
     };
 

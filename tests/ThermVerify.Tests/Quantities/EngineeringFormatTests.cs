@@ -50,3 +50,33 @@ public class EngineeringFormatTests
         Assert.Equal(new QuantityRange(-40, 125, UnitKind.Celsius), QuantityParser.ParseRange(text, UnitKind.Celsius));
     }
 }
+
+public class ExactFormatTests
+{
+    [Theory]
+    [InlineData(4700, UnitKind.Ohm, "4.7 k\u03A9")]
+    [InlineData(4712.3456, UnitKind.Ohm, "4.7123456 k\u03A9")]
+    [InlineData(100e-9, UnitKind.Farad, "100 nF")]
+    [InlineData(0.01, UnitKind.Percent, "1 %")]
+    [InlineData(-40, UnitKind.Celsius, "-40 \u00B0C")]
+    [InlineData(0.5e6, UnitKind.VoltPerSecond, "500 mV/\u00B5s")]
+    [InlineData(1.129148e-3, UnitKind.Dimensionless, "0.001129148")]
+    [InlineData(8.75e-8, UnitKind.Dimensionless, "8.75e-8")]
+    [InlineData(0, UnitKind.Ohm, "0 \u03A9")]
+    public void PrintsShortestExactText(double value, UnitKind unit, string expected) =>
+        Assert.Equal(expected, EngineeringFormat.FormatExact(value, unit));
+
+    /// <summary>The normaliser relies on this: what it prints reads back as the very same double.</summary>
+    [Property(MaxTest = 1000)]
+    public Property FormatExactThenParseIsIdentity(NormalFloat mantissa, int exponent, byte kindIndex)
+    {
+        var kinds = EngineeringFormatTests.AllKinds;
+        var kind = kinds[kindIndex % kinds.Length];
+        var value = mantissa.Get * Math.Pow(10, exponent % 25);
+        if (UnitSymbols.IsNonNegative(kind))
+            value = Math.Abs(value);
+        var text = EngineeringFormat.FormatExact(value, kind);
+        var back = QuantityParser.Parse(text, kind);
+        return (back.Unit == kind && back.Value.Equals(value)).Label($"{value:R} {kind} -> \"{text}\" -> {back.Value:R}");
+    }
+}

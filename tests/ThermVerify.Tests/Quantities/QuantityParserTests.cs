@@ -80,6 +80,10 @@ public class QuantityParserTests
     [InlineData("0.5 pA/rtHz", UnitKind.AmperePerRootHertz, 0.5e-12)]
     [InlineData("1 LSB", UnitKind.Lsb, 1)]
     [InlineData("-0.5 LSB", UnitKind.Lsb, -0.5)]
+    [InlineData("5 uV/K", UnitKind.VoltPerKelvin, 5e-6)]
+    [InlineData("5 \u00B5V/\u00B0C", UnitKind.VoltPerKelvin, 5e-6)]
+    [InlineData("45 deg", UnitKind.Degree, 45)]
+    [InlineData("60\u00B0", UnitKind.Degree, 60)]
     [InlineData("12", UnitKind.Dimensionless, 12)]
     [InlineData("3.5e-3", UnitKind.Dimensionless, 3.5e-3)]
     public void UnitsAndPrefixes(string text, UnitKind unit, double expectedSi)
