@@ -14,8 +14,14 @@ public static class CliApp
             "thermverify: prove that the temperature your firmware reports from a thermistor or RTD on an ADC " +
             "is the temperature that is really there.")
         {
-            // commands are added as they land
+            SensorCommand.Create(),
+            FitCommand.Create(),
         };
+        if (args.Length == 0)
+        {
+            root.Parse(["--help"]).Invoke(new InvocationConfiguration { Output = error, Error = error });
+            return ExitCodes.BadInput;
+        }
         var parsed = root.Parse(args);
         if (parsed.Errors.Count > 0)
         {

@@ -1,3 +1,5 @@
+using ThermVerify.Quantities;
+using ThermVerify.Reporting;
 using ThermVerify.Sensors;
 
 namespace ThermVerify.Cli;
@@ -23,7 +25,8 @@ public static class ErrorReport
     public static int ExitCodeFor(Exception exception) => exception switch
     {
         OperationCanceledException => ExitCodes.BadInput,
-        SensorRangeException or SensorTableException => ExitCodes.BadInput,
+        UsageException or QuantityFormatException or SensorFitException => ExitCodes.BadInput,
+        SensorRangeException or SensorTableException or OutputExistsException => ExitCodes.BadInput,
         FileNotFoundException or DirectoryNotFoundException or UnauthorizedAccessException => ExitCodes.BadInput,
         _ => ExitCodes.InternalError,
     };

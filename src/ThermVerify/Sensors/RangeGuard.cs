@@ -9,9 +9,13 @@ namespace ThermVerify.Sensors;
 /// </summary>
 internal static class RangeGuard
 {
+    // Values a rounding error past a limit (a round trip through the model at its own edge) are still inside.
+    private const double EdgeSlackKelvin = 1e-9;
+    private const double EdgeSlackRelative = 1e-12;
+
     public static void CheckTemperature(double celsius, TemperatureRange range, string model)
     {
-        if (range.Contains(celsius)) return;
+        if (celsius >= range.MinCelsius - EdgeSlackKelvin && celsius <= range.MaxCelsius + EdgeSlackKelvin) return;
         throw new SensorRangeException(FormattableString.Invariant(
             $"Temperature {celsius:G6} °C is outside the valid range of {model} ({range}); ") +
             "no extrapolation is done: use a model whose valid range covers this temperature.");
@@ -19,7 +23,7 @@ internal static class RangeGuard
 
     public static void CheckResistance(double ohms, double minOhms, double maxOhms, TemperatureRange range, string model)
     {
-        if (ohms >= minOhms && ohms <= maxOhms) return;
+        if (ohms >= minOhms * (1 - EdgeSlackRelative) && ohms <= maxOhms * (1 + EdgeSlackRelative)) return;
         throw new SensorRangeException(FormattableString.Invariant(
             $"Resistance {ohms:G6} Ω is outside the valid range of {model}: {minOhms:G6} Ω to {maxOhms:G6} Ω, which corresponds to {range}; ") +
             "no extrapolation is done: check the reading or widen the model's valid range.");
