@@ -11,7 +11,7 @@ internal sealed class SensorOptions
     public Option<string?> Beta { get; } = new("--beta") { Description = "NTC Beta model: β in K, e.g. 3950 (needs --r25)" };
     public Option<string?> R25 { get; } = new("--r25") { Description = "NTC resistance at 25 °C, e.g. 10k or \"10 kohm\"" };
     public Option<string?> SteinhartHart { get; } = new("--steinhart-hart") { Description = "NTC Steinhart–Hart coefficients \"A,B,C\" or \"A,B,C,D\" (D: squared term)" };
-    public Option<string?> Rtd { get; } = new("--rtd") { Description = "platinum RTD per IEC 60751: R0, e.g. 100R, 1k or \"1000 ohm\"" };
+    public Option<string?> Rtd { get; } = new("--rtd") { Description = "platinum RTD per IEC 60751: R0, e.g. 1k or \"1000 ohm\"" };
     public Option<FileInfo?> RtTable { get; } = new("--rt-table") { Description = "NTC R–T table: CSV of °C and Ω" };
 
     public IEnumerable<Option> All => [Beta, R25, SteinhartHart, Rtd, RtTable];

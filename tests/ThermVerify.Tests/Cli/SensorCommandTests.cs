@@ -8,7 +8,7 @@ public class SensorCommandTests
     [Fact]
     public void Rtd_table_prints_the_iec_60751_value_at_100_degrees()
     {
-        var run = CliRunner.Run("sensor", "--rtd", "100R", "--range", "0 degC .. 100 degC", "--step", "50 K");
+        var run = CliRunner.Run("sensor", "--rtd", "100 ohm", "--range", "0 degC .. 100 degC", "--step", "50 K");
         Assert.Equal(ExitCodes.Success, run.ExitCode);
         Assert.Contains("138.51 Ω", run.Output); // IEC 60751 table: Pt100 at 100 °C = 138.51 Ω
     }
@@ -25,7 +25,7 @@ public class SensorCommandTests
     [InlineData("sensor", "--rtd", "1kz")]                       // unknown unit
     [InlineData("sensor", "--beta", "3950")]                     // Beta without R25
     [InlineData("sensor")]                                       // no model
-    [InlineData("sensor", "--rtd", "100R", "--beta", "3950")]     // two models
+    [InlineData("sensor", "--rtd", "100 ohm", "--beta", "3950")]     // two models
     [InlineData("fit", "25 degC = 10k")]                         // one point cannot be fitted
     [InlineData("fit", "25 degC 10k", "50 degC = 3k")]           // malformed point
     [InlineData("no-such-command")]
