@@ -24,6 +24,17 @@ public class ExampleDesignTests
     }
 
     [Fact]
+    public void ExampleInTheReferenceDocLoads()
+    {
+        var doc = File.ReadAllText(Path.Combine(Directory.GetParent(NetlistsFolder())!.FullName, "docs", "design-file.md"));
+        var start = doc.IndexOf("```toml\n", StringComparison.Ordinal) + "```toml\n".Length;
+        var end = doc.IndexOf("```", start, StringComparison.Ordinal);
+        var design = DesignLoader.Parse(doc[start..end], "design-file.md", NetlistsFolder());
+        Assert.Equal("bench probe", design.Name);
+        Assert.Single(design.Check.Regions);
+    }
+
+    [Fact]
     public void ThereAreAtLeastFiveExamples() => Assert.True(Examples().Count >= 5);
 
     [Theory]
