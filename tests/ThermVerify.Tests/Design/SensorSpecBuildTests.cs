@@ -5,9 +5,8 @@ namespace ThermVerify.Tests.Design;
 
 public class SensorSpecBuildTests
 {
-    private const string Pending = "Sensor models are stubs on this branch; enable once the Sensors implementation is merged.";
 
-    [Fact(Skip = Pending)]
+    [Fact]
     public void BetaSpecBuildsABetaThermistorWithItsParameters()
     {
         var spec = new BetaSensorSpec { R0Ohms = 10e3, BetaKelvin = 3435, ReferenceCelsius = 25 };
@@ -18,7 +17,7 @@ public class SensorSpecBuildTests
         Tolerance.AssertClose(10e3, model.ResistanceOhms(25), 1e-12);
     }
 
-    [Fact(Skip = Pending)]
+    [Fact]
     public void RtdSpecBuildsAnIecRtd()
     {
         var model = new RtdSensorSpec { R0Ohms = 100 }.Build();
@@ -26,7 +25,7 @@ public class SensorSpecBuildTests
         Tolerance.AssertClose(138.51, model.ResistanceOhms(100), 0, 0.005);
     }
 
-    [Fact(Skip = Pending)]
+    [Fact]
     public void SteinhartHartSpecPassesItsCoefficients()
     {
         var model = Assert.IsType<SteinhartHartThermistor>(new SteinhartHartSensorSpec { A = 1e-3, B = 2e-4, C = 1e-7 }.Build());
