@@ -16,6 +16,7 @@ public static class CliApp
         {
             SensorCommand.Create(),
             FitCommand.Create(),
+            ValidateCommand.Create(),
         };
         if (args.Length == 0)
         {

@@ -1,3 +1,4 @@
+using ThermVerify.Design;
 using ThermVerify.Quantities;
 using ThermVerify.Reporting;
 using ThermVerify.Sensors;
@@ -25,7 +26,7 @@ public static class ErrorReport
     public static int ExitCodeFor(Exception exception) => exception switch
     {
         OperationCanceledException => ExitCodes.BadInput,
-        UsageException or QuantityFormatException or SensorFitException => ExitCodes.BadInput,
+        DesignException or UsageException or QuantityFormatException or SensorFitException => ExitCodes.BadInput,
         SensorRangeException or SensorTableException or OutputExistsException => ExitCodes.BadInput,
         FileNotFoundException or DirectoryNotFoundException or UnauthorizedAccessException => ExitCodes.BadInput,
         _ => ExitCodes.InternalError,
