@@ -1,0 +1,28 @@
+using ThermVerify.Simulation.Mna;
+using ThermVerify.Simulation.Stamps;
+
+namespace ThermVerify.Circuits;
+
+/// <summary>Inductor; current flows from A to B through it. A short at DC.</summary>
+public sealed record Inductor(string Name, string NodeA, string NodeB, double InductanceHenries,
+    double? InitialCurrent = null) : Element(Name)
+{
+    public override IReadOnlyList<string> Nodes => [NodeA, NodeB];
+
+    internal override IEnumerable<(string A, string B)> DcPaths => [(NodeA, NodeB)];
+
+    internal override IEnumerable<(string A, string B)> VoltageDefinedPaths => [(NodeA, NodeB)];
+
+    internal override IReadOnlyList<Unknown> ExtraUnknowns => [Unknown.Current($"I({Name})")];
+
+    internal override void Validate()
+    {
+        base.Validate();
+        ElementChecks.DistinctNodes(this, NodeA, NodeB);
+        ElementChecks.Positive(this, InductanceHenries, "inductance");
+        if (InitialCurrent is { } i)
+            ElementChecks.Finite(this, i, "initial current");
+    }
+
+    internal override Stamp Bind(BindContext context) => new InductorStamp(this, context);
+}

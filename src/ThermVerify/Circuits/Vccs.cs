@@ -1,0 +1,23 @@
+using ThermVerify.Simulation.Mna;
+using ThermVerify.Simulation.Stamps;
+
+namespace ThermVerify.Circuits;
+
+/// <summary>
+/// Voltage-controlled current source: a current Gm·(V(CP) − V(CN)) flows from Positive through the
+/// source to Negative (SPICE convention).
+/// </summary>
+public sealed record Vccs(string Name, string Positive, string Negative, string ControlPositive,
+    string ControlNegative, double TransconductanceSiemens) : Element(Name)
+{
+    public override IReadOnlyList<string> Nodes => [Positive, Negative, ControlPositive, ControlNegative];
+
+    internal override void Validate()
+    {
+        base.Validate();
+        ElementChecks.DistinctNodes(this, Positive, Negative);
+        ElementChecks.Finite(this, TransconductanceSiemens, "transconductance");
+    }
+
+    internal override Stamp Bind(BindContext context) => new VccsStamp(this, context);
+}

@@ -1,0 +1,26 @@
+using ThermVerify.Simulation.Mna;
+using ThermVerify.Simulation.Stamps;
+
+namespace ThermVerify.Circuits;
+
+/// <summary>Voltage-controlled voltage source: V(P) − V(N) = Gain·(V(CP) − V(CN)).</summary>
+public sealed record Vcvs(string Name, string Positive, string Negative, string ControlPositive,
+    string ControlNegative, double Gain) : Element(Name)
+{
+    public override IReadOnlyList<string> Nodes => [Positive, Negative, ControlPositive, ControlNegative];
+
+    internal override IEnumerable<(string A, string B)> DcPaths => [(Positive, Negative)];
+
+    internal override IEnumerable<(string A, string B)> VoltageDefinedPaths => [(Positive, Negative)];
+
+    internal override IReadOnlyList<Unknown> ExtraUnknowns => [Unknown.Current($"I({Name})")];
+
+    internal override void Validate()
+    {
+        base.Validate();
+        ElementChecks.DistinctNodes(this, Positive, Negative);
+        ElementChecks.Finite(this, Gain, "gain");
+    }
+
+    internal override Stamp Bind(BindContext context) => new VcvsStamp(this, context);
+}

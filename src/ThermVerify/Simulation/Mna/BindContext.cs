@@ -1,0 +1,33 @@
+namespace ThermVerify.Simulation.Mna;
+
+/// <summary>What an element sees while it binds its stamp: node indices, its extra unknowns, slots, state.</summary>
+internal sealed class BindContext(MnaLayout layout)
+{
+    private readonly List<bool> stateIsCurrent = [];
+
+    public MnaLayout Layout => layout;
+
+    internal int ExtraStart { get; set; }
+
+    public int Node(string name) => layout.IndexOfNode(name);
+
+    /// <summary>Index of this element's k-th extra unknown.</summary>
+    public int Extra(int k) => ExtraStart + k;
+
+    public int Slot(int row, int column) => layout.Slot(row, column);
+
+    /// <summary>
+    /// Reserves an integrated state: [value, derivative]. Returns the index of the value; the derivative
+    /// follows it. <paramref name="isCurrent"/> picks the absolute tolerance used for its truncation error.
+    /// </summary>
+    public int State(bool isCurrent)
+    {
+        var index = stateIsCurrent.Count * 2;
+        stateIsCurrent.Add(isCurrent);
+        return index;
+    }
+
+    public int StateCount => stateIsCurrent.Count;
+
+    public bool[] StateIsCurrent => [.. stateIsCurrent];
+}

@@ -1,0 +1,89 @@
+namespace ThermVerify.Simulation.Mna;
+
+/// <summary>
+/// LU factorisation with partial pivoting of a dense row-major n×n matrix into preallocated storage
+/// (Doolittle form, unit lower triangle; Golub & Van Loan, Matrix Computations, alg. 3.4.1, from memory).
+/// The circuits here have tens of unknowns, where dense beats sparse bookkeeping.
+/// </summary>
+internal sealed class DenseLu(int n)
+{
+    /// <summary>A pivot below this fraction of its column's largest original entry counts as zero.</summary>
+    private const double PivotRelativeThreshold = 1e-15;
+
+    private readonly double[] lu = new double[n * n];
+    private readonly int[] rowOfPivot = new int[n];
+    private readonly double[] columnScale = new double[n];
+    private readonly double[] work = new double[n];
+
+    /// <summary>Factorises the first n² entries of <paramref name="matrix"/>; returns −1 or the failing column.</summary>
+    public int Factor(double[] matrix)
+    {
+        Array.Copy(matrix, lu, n * n);
+        Array.Clear(columnScale);
+        for (var i = 0; i < n; i++)
+        {
+            rowOfPivot[i] = i;
+            var row = i * n;
+            for (var j = 0; j < n; j++)
+                columnScale[j] = Math.Max(columnScale[j], Math.Abs(lu[row + j]));
+        }
+        for (var k = 0; k < n; k++)
+        {
+            var p = k;
+            var best = Math.Abs(lu[k * n + k]);
+            for (var i = k + 1; i < n; i++)
+            {
+                var v = Math.Abs(lu[i * n + k]);
+                if (v > best)
+                {
+                    best = v;
+                    p = i;
+                }
+            }
+            if (!(best > PivotRelativeThreshold * columnScale[k]) || !double.IsFinite(best))
+                return k;
+            if (p != k)
+            {
+                lu.AsSpan(p * n, n).CopyTo(work);
+                lu.AsSpan(k * n, n).CopyTo(lu.AsSpan(p * n, n));
+                work.AsSpan(0, n).CopyTo(lu.AsSpan(k * n, n));
+                (rowOfPivot[p], rowOfPivot[k]) = (rowOfPivot[k], rowOfPivot[p]);
+            }
+            var kRow = k * n;
+            var inverse = 1.0 / lu[kRow + k];
+            for (var i = k + 1; i < n; i++)
+            {
+                var iRow = i * n;
+                var factor = lu[iRow + k];
+                if (factor == 0)
+                    continue;
+                factor *= inverse;
+                lu[iRow + k] = factor;
+                for (var j = k + 1; j < n; j++)
+                    lu[iRow + j] -= factor * lu[kRow + j];
+            }
+        }
+        return -1;
+    }
+
+    /// <summary>Solves A·x = b for the last factorised A; b and x may be longer than n (ground cell untouched).</summary>
+    public void Solve(double[] b, double[] x)
+    {
+        for (var i = 0; i < n; i++)
+        {
+            var sum = b[rowOfPivot[i]];
+            var row = i * n;
+            for (var j = 0; j < i; j++)
+                sum -= lu[row + j] * work[j];
+            work[i] = sum;
+        }
+        for (var i = n - 1; i >= 0; i--)
+        {
+            var sum = work[i];
+            var row = i * n;
+            for (var j = i + 1; j < n; j++)
+                sum -= lu[row + j] * x[j];
+            x[i] = sum / lu[row + i];
+        }
+    }
+}

@@ -1,0 +1,21 @@
+namespace ThermVerify.Simulation.Mna;
+
+internal static class Warnings
+{
+    public static List<SimulationWarning> Collect(BoundSystem system)
+    {
+        var list = new List<SimulationWarning>();
+        foreach (var s in system.Stamps)
+            if (s.HasChecks)
+                s.Check(system.Context, list);
+        return list;
+    }
+
+    /// <summary>Adds the warnings of elements not yet reported: the first occurrence is the one kept.</summary>
+    public static void Merge(List<SimulationWarning> into, IEnumerable<SimulationWarning> fresh)
+    {
+        foreach (var w in fresh)
+            if (!into.Any(x => x.Element == w.Element))
+                into.Add(w);
+    }
+}

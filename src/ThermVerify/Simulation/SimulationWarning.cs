@@ -1,0 +1,7 @@
+namespace ThermVerify.Simulation;
+
+/// <summary>
+/// A condition the analysis noticed but that does not stop it, e.g. an op-amp input outside its
+/// common-mode range. <see cref="TimeSeconds"/> or <see cref="SweepValue"/> say where it was first seen.
+/// </summary>
+public sealed record SimulationWarning(string Element, string Message, double? TimeSeconds = null, double? SweepValue = null);

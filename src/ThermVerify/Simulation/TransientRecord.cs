@@ -1,0 +1,44 @@
+namespace ThermVerify.Simulation;
+
+/// <summary>
+/// Growing storage of accepted time points: the full solution vector, its time derivative by the
+/// integration formula, and whether the step that ended at the point was backward Euler. Grows by
+/// doubling, so recording costs no allocation per step on average.
+/// </summary>
+internal sealed class TransientRecord(int width)
+{
+    public int Width { get; } = width;
+
+    public int Count { get; private set; }
+
+    public double[] Times { get; private set; } = new double[256];
+
+    public double[] Values { get; private set; } = new double[256 * width];
+
+    public double[] Slopes { get; private set; } = new double[256 * width];
+
+    public bool[] BackwardEuler { get; private set; } = new bool[256];
+
+    public void Add(double time, double[] solution, double[] slope, bool backwardEuler)
+    {
+        if (Count == Times.Length)
+        {
+            Times = Grow(Times);
+            Values = Grow(Values);
+            Slopes = Grow(Slopes);
+            BackwardEuler = Grow(BackwardEuler);
+        }
+        Times[Count] = time;
+        Array.Copy(solution, 0, Values, Count * Width, Width);
+        Array.Copy(slope, 0, Slopes, Count * Width, Width);
+        BackwardEuler[Count] = backwardEuler;
+        Count++;
+    }
+
+    private static T[] Grow<T>(T[] a)
+    {
+        var b = new T[a.Length * 2];
+        Array.Copy(a, b, a.Length);
+        return b;
+    }
+}
