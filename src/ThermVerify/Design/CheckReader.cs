@@ -8,7 +8,7 @@ internal static class CheckReader
 {
     public static CheckSpec Read(TomlSection s, SensorSpec sensor)
     {
-        s.AllowOnly(["range", "step", "budget", "settle_limit", "region"]);
+        s.AllowOnly(["range", "step", "budget", "settle_limit", "board_temperature", "region"]);
         var range = Range(s, "range") ?? throw s.Missing("range", "Write range = \"-40 degC .. 125 degC\".");
         var valid = sensor switch
         {
@@ -28,6 +28,7 @@ internal static class CheckReader
             StepKelvin = step,
             BudgetKelvin = s.RequiredValue("budget", Bound.Positive, "Write budget = \"0.5 K\" (allowed total error).", UnitKind.Kelvin),
             SettleLimitLsb = s.ValueOr("settle_limit", DesignDefaults.SettleLimitLsb, Bound.Positive, UnitKind.Lsb),
+            BoardCelsius = s.Quantity("board_temperature", Bound.Any, UnitKind.Celsius)?.Value,
             Regions = regions,
         };
     }

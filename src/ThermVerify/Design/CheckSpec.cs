@@ -13,6 +13,11 @@ public sealed record CheckSpec
     public required double BudgetKelvin { get; init; }
     /// <summary>The sampled voltage must settle to within this many LSB of its final value.</summary>
     public double SettleLimitLsb { get; init; } = DesignDefaults.SettleLimitLsb;
+    /// <summary>
+    /// Temperature of the electronics (fixed resistor tempco, ADC pin leakage). Null: the whole unit sits at
+    /// the swept temperature, as in a SPICE temperature sweep; a value: only the sensor follows the sweep.
+    /// </summary>
+    public double? BoardCelsius { get; init; }
     /// <summary>Tighter or looser budgets over parts of the range; where regions overlap the smallest budget applies.</summary>
     public IReadOnlyList<CheckRegion> Regions { get; init; } = [];
 
@@ -23,6 +28,7 @@ public sealed record CheckSpec
     public bool Equals(CheckSpec? other) =>
         other is not null && Range == other.Range && StepKelvin.Equals(other.StepKelvin)
         && BudgetKelvin.Equals(other.BudgetKelvin) && SettleLimitLsb.Equals(other.SettleLimitLsb)
+        && Nullable.Equals(BoardCelsius, other.BoardCelsius)
         && Regions.SequenceEqual(other.Regions);
 
     public override int GetHashCode() => HashCode.Combine(Range, StepKelvin, BudgetKelvin, SettleLimitLsb, Regions.Count);

@@ -162,6 +162,8 @@ public static class DesignWriter
         w.Value("step", c.StepKelvin, UnitKind.Kelvin);
         w.Value("budget", c.BudgetKelvin, UnitKind.Kelvin);
         w.Value("settle_limit", c.SettleLimitLsb, UnitKind.Lsb);
+        if (c.BoardCelsius is { } board)
+            w.Value("board_temperature", board, UnitKind.Celsius);
         foreach (var region in c.Regions)
         {
             w.Section("[check.region]");
