@@ -17,6 +17,7 @@ public static class CliApp
             SensorCommand.Create(),
             FitCommand.Create(),
             ValidateCommand.Create(),
+            CheckCommand.Create(),
         };
         if (args.Length == 0)
         {

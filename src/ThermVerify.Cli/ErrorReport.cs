@@ -2,6 +2,8 @@ using ThermVerify.Design;
 using ThermVerify.Quantities;
 using ThermVerify.Reporting;
 using ThermVerify.Sensors;
+using ThermVerify.Simulation;
+using ThermVerify.Circuits;
 
 namespace ThermVerify.Cli;
 
@@ -29,6 +31,8 @@ public static class ErrorReport
         DesignException or UsageException or QuantityFormatException or SensorFitException => ExitCodes.BadInput,
         SensorRangeException or SensorTableException or OutputExistsException => ExitCodes.BadInput,
         FileNotFoundException or DirectoryNotFoundException or UnauthorizedAccessException => ExitCodes.BadInput,
+        SimulationException => ExitCodes.SimulationFailed,
+        CircuitException => ExitCodes.SimulationFailed,
         _ => ExitCodes.InternalError,
     };
 }

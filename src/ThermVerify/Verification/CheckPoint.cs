@@ -1,9 +1,9 @@
 namespace ThermVerify.Verification;
 
 /// <summary>
-/// The temperature error at one point split by cause, in K (reported minus true). Quantisation is exact (the ideal
-/// voltage through the ADC and the firmware's inverse); the voltage errors are mapped to K with the local slope;
-/// <see cref="RestKelvin"/> is what the linear split leaves over (the interaction of quantisation with the others).
+/// The temperature error at one point split by cause, in K (reported minus true): each voltage error is mapped
+/// through the exact inverse in turn (buffer, DC loading, settling), then the ADC's rounding of the sample;
+/// <see cref="RestKelvin"/> is what cannot be mapped (a voltage no sensor inside its range produces).
 /// </summary>
 public sealed record ErrorContributions(
     double QuantisationKelvin,

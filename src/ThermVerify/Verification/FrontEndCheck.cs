@@ -42,6 +42,24 @@ public static class FrontEndCheck
         return new CheckResult(design, model.Sensor.Description, model.Adc, points, sampling, findings);
     }
 
+    /// <summary>
+    /// Splits the reported error by walking from the ideal voltage to the sample one cause at a time (buffer, DC
+    /// loading, settling) and mapping each step through the exact inverse, then quantisation of the sample; the
+    /// parts add up to the total, and "rest" holds what cannot be mapped (a voltage outside the sensor's range).
+    /// </summary>
+    private static ErrorContributions Split(ClosedFormModel model, ClosedFormPoint cf, double bufferVolts, double settlingVolts, double sampleVolts, double error)
+    {
+        var afterBuffer = cf.IdealVolts + bufferVolts;
+        var afterLoading = sampleVolts - settlingVolts;
+        double Step(double from, double to) => model.CelsiusAtVolts(to) - model.CelsiusAtVolts(from);
+        var buffer = Step(cf.IdealVolts, afterBuffer);
+        var loading = Step(afterBuffer, afterLoading);
+        var settling = Step(afterLoading, sampleVolts);
+        var quantisation = model.ReportedCelsius(model.Adc.Code(sampleVolts)) - model.CelsiusAtVolts(sampleVolts);
+        var parts = new[] { quantisation, loading, settling, buffer }.Select(k => double.IsFinite(k) ? k : 0).ToArray();
+        return new ErrorContributions(parts[0], parts[1], parts[2], parts[3], error - parts.Sum());
+    }
+
     private sealed record CaseResult(DcSweepCase Dc, SamplingOutcome[] Sampling, double[] FirstOffsetVolts, double[] SteadyOffsetVolts);
 
     private static CheckPoint PointFor(FrontEndDesign design, ClosedFormModel model, ClosedFormPoint cf, int i, CaseResult c, int[] indices)
@@ -64,12 +82,9 @@ public static class FrontEndCheck
             BufferVolts: dc.BufferVolts[i] - gain * dc.DividerVolts[i],
             FirstSettlingVolts: c.FirstOffsetVolts[i],
             SteadySettlingVolts: c.SteadyOffsetVolts[i]);
-        var quantisation = model.ReportedErrorKelvin(cf.IdealVolts, cf.Celsius);
+        var contributions = Split(model, cf, volts.BufferVolts, worstSample - dc.PinVolts[i] + (firstIsWorse ? volts.AverageSamplingVolts : 0),
+            worstSample, error);
         var toKelvin = 1 / cf.VoltsPerKelvin;
-        var loading = (volts.StaticLoadingVolts + (firstIsWorse ? 0 : volts.AverageSamplingVolts)) * toKelvin;
-        var settling = (firstIsWorse ? volts.FirstSettlingVolts : volts.SteadySettlingVolts) * toKelvin;
-        var buffer = volts.BufferVolts * toKelvin;
-        var contributions = new ErrorContributions(quantisation, loading, settling, buffer, error - quantisation - loading - settling - buffer);
 
         return new CheckPoint(cf.Celsius, cf.SensorOhms, cf.IdealVolts, dc.DividerVolts[i], dc.PinVolts[i], first, steady,
             dc.PrechargeVolts, indices.Contains(i), code, reported, error, design.Check.BudgetAt(cf.Celsius),

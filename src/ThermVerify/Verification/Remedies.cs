@@ -46,10 +46,10 @@ public static class Remedies
         var step = worst.PrechargeVolts is { } pre ? pre - worst.StaticPinVolts : 0;
         var estimate = SamplingFormulas.MinimumReservoirFarads(step, allowedVolts, cSample) - design.Adc.PinCapacitanceFarads;
         var method = $"bisection on the simulated first conversion at {worst.Celsius:0.##} °C, {PrechargeCases.Describe(worst.PrechargeVolts)}; " +
-                     $"charge-sharing estimate C_sh·(|ΔV|/ε − 1) − C_pin = {Format(estimate)} F";
+                     $"charge-sharing estimate C_sh·(|ΔV|/ε − 1) − C_pin = {Farads(estimate)}";
         if (found is not { } c) return null;
         var standard = ESeries.E12.Contains(c) ? c : ESeries.E12.NextHigher(c);
-        return new Remedy("filter.reservoir_capacitor", $"fit a reservoir capacitor of at least (E12: {Format(standard)} F)", c, "F", method);
+        return new Remedy("filter.reservoir_capacitor", $"fit a reservoir capacitor (next E12 value {Farads(standard)}) of at least", c, "F", method);
     }
 
     public static Remedy HighestSampleRate(FrontEndDesign design, CheckPoint worst, double allowedVolts)
@@ -78,4 +78,6 @@ public static class Remedies
         design with { Filter = design.Filter with { ReservoirCapacitorFarads = farads } };
 
     private static string Format(double value) => value.ToString("G3", System.Globalization.CultureInfo.InvariantCulture);
+
+    private static string Farads(double value) => Quantities.EngineeringFormat.Format(value, Quantities.UnitKind.Farad, 3);
 }
