@@ -47,12 +47,15 @@ public sealed class DcSweepResult
     {
         var stamp = system.StampOf(elementName);
         var isTemperature = Parameter.StartsWith("temperature", StringComparison.Ordinal);
+        var isSwept = !isTemperature && Parameter.StartsWith(elementName + " ", StringComparison.Ordinal);
         var current = new double[Count];
         var x = new double[width];
         for (var p = 0; p < Count; p++)
         {
             if (isTemperature)
                 stamp.SetTemperature(SweepValues[p]);
+            else if (isSwept)
+                stamp.SetSweepValue(SweepValues[p]);
             Array.Copy(data, p * width, x, 0, width);
             current[p] = stamp.CurrentAmperes(x);
             if (double.IsNaN(current[p]))

@@ -4,20 +4,25 @@ using ThermVerify.Simulation.Mna;
 namespace ThermVerify.Simulation;
 
 /// <summary>
-/// A transient run that can be advanced in pieces. Integration is trapezoidal, with one backward-Euler
-/// step after the start and after every breakpoint (source corner, switch edge) so that the trapezoidal
-/// rule's undamped ringing is not excited (Nagel 1975, from memory). Each step's local truncation error
-/// is estimated for every integrated state from divided differences of its recent values
-/// (BE: h²·x[t_n..t_n−2]; trapezoidal: h³/2·x[t_n..t_n−3]); behind a breakpoint the missing history is
-/// continued with the slope before the breakpoint, which over-estimates the error of the first steps
-/// after it, the safe side. A step whose error exceeds its tolerance is redone shorter; the next step
-/// is h·min(2, 0.9·(tol/err)^(1/(k+1))). Breakpoints and requested output times are landed on exactly.
+/// A transient run that can be advanced in pieces. Integration is trapezoidal, with backward-Euler
+/// steps after the start and after every breakpoint (source corner, switch edge) so that the
+/// trapezoidal rule's undamped ringing is not excited (Nagel 1975, from memory). Each step's local
+/// truncation error is estimated for every integrated state (capacitor voltage, inductor current) from
+/// divided differences of its values since the last breakpoint: BE h²·x[t_n,t_n−1,t_n−2], trapezoidal
+/// h³/2·x[t_n,…,t_n−3]. So that those differences never straddle a breakpoint, the first step after one
+/// is a tiny backward-Euler probe (10⁻⁹ of the time to the next stop, its own error far below any
+/// tolerance), the second a checked backward-Euler step, and trapezoidal steps follow. A step whose
+/// error exceeds its tolerance is redone shorter; the next step is h·min(2, 0.9·(tol/err)^(1/(k+1))).
+/// Breakpoints and requested output times are landed on exactly.
 /// </summary>
 public sealed class TransientSimulation
 {
     public const string AnalysisName = "Transient";
 
     private const int HistoryLength = 4;
+
+    /// <summary>Length of the probe step after a breakpoint, as a fraction of the time to the next stop.</summary>
+    private const double ProbeFraction = 1e-9;
 
     private readonly BoundSystem system;
     private readonly LoadContext c;
@@ -33,15 +38,12 @@ public sealed class TransientSimulation
     private double[] newSlope;
     private readonly double[] historyTimes = new double[HistoryLength];
     private readonly double[][] historyValues;
-    private readonly double[] breakValues;
-    private readonly double[] breakSlopes;
     private readonly double[] ddTimes = new double[HistoryLength];
     private readonly double[] ddValues = new double[HistoryLength];
     private readonly List<double> breakpoints = [];
     private readonly List<double> outputs = [];
     private readonly List<SimulationWarning> warnings = [];
     private int sinceBreak;
-    private bool nextBackwardEuler;
     private double proposedStep;
     private double collectedUntil;
     private int acceptedSteps;
@@ -61,8 +63,6 @@ public sealed class TransientSimulation
         slope = new double[accepted.Length];
         newSlope = new double[accepted.Length];
         historyValues = [.. Enumerable.Range(0, HistoryLength).Select(_ => new double[stateCount])];
-        breakValues = new double[stateCount];
-        breakSlopes = new double[stateCount];
         record = new TransientRecord(accepted.Length);
         if (initialState is null)
             Start();
@@ -100,6 +100,8 @@ public sealed class TransientSimulation
             double h;
             if (options.FixedStepSeconds is { } fixedStep)
                 h = fixedStep >= span - Epsilon(stop) ? span : fixedStep;
+            else if (sinceBreak == 1)
+                h = Math.Max(ProbeFraction * Math.Min(span, maxStep), 1e3 * Epsilon(TimeSeconds));
             else
             {
                 h = Math.Min(proposedStep > 0 ? proposedStep : span * 1e-3, maxStep);
@@ -121,10 +123,7 @@ public sealed class TransientSimulation
         States = (double[])c.PreviousState.Clone(),
         HistoryTimes = (double[])historyTimes.Clone(),
         HistoryValues = [.. historyValues.Select(v => (double[])v.Clone())],
-        BreakValues = (double[])breakValues.Clone(),
-        BreakSlopes = (double[])breakSlopes.Clone(),
         SinceBreak = sinceBreak,
-        NextBackwardEuler = nextBackwardEuler,
         ProposedStepSeconds = proposedStep,
     };
 
@@ -149,12 +148,8 @@ public sealed class TransientSimulation
         TimeSeconds = 0;
         historyTimes[0] = 0;
         for (var i = 0; i < stateCount; i++)
-        {
-            historyValues[0][i] = breakValues[i] = c.PreviousState[2 * i];
-            breakSlopes[i] = 0;
-        }
+            historyValues[0][i] = c.PreviousState[2 * i];
         sinceBreak = 1;
-        nextBackwardEuler = true;
         proposedStep = options.InitialStepSeconds;
         record.Add(0, accepted, slope, true);
         if (checks)
@@ -172,10 +167,7 @@ public sealed class TransientSimulation
         Array.Copy(s.HistoryTimes, historyTimes, HistoryLength);
         for (var j = 0; j < HistoryLength; j++)
             Array.Copy(s.HistoryValues[j], historyValues[j], stateCount);
-        Array.Copy(s.BreakValues, breakValues, stateCount);
-        Array.Copy(s.BreakSlopes, breakSlopes, stateCount);
         sinceBreak = s.SinceBreak;
-        nextBackwardEuler = s.NextBackwardEuler;
         proposedStep = s.ProposedStepSeconds;
         TimeSeconds = s.TimeSeconds;
         record.Add(TimeSeconds, accepted, slope, true);
@@ -186,7 +178,8 @@ public sealed class TransientSimulation
 
     private void Step(double h, double stop)
     {
-        var backwardEuler = nextBackwardEuler || options.Method == IntegrationMethod.BackwardEuler;
+        var probe = sinceBreak == 1 && options.FixedStepSeconds is null;
+        var backwardEuler = sinceBreak <= 2 || options.Method == IntegrationMethod.BackwardEuler;
         var order = backwardEuler ? 1 : 2;
         while (true)
         {
@@ -214,7 +207,7 @@ public sealed class TransientSimulation
             }
             foreach (var s in system.Reactive)
                 s.Accept(c);
-            var ratio = options.FixedStepSeconds is null ? TruncationRatio(tNew, h, order) : 0;
+            var ratio = options.FixedStepSeconds is null && !probe ? TruncationRatio(tNew, h, order) : 0;
             if (ratio > 1)
             {
                 rejectedSteps++;
@@ -222,7 +215,8 @@ public sealed class TransientSimulation
                 continue;
             }
             Commit(tNew, h, backwardEuler);
-            proposedStep = options.FixedStepSeconds ?? h * (ratio > 0 ? Math.Min(2, 0.9 * Math.Pow(ratio, -1.0 / (order + 1))) : 2);
+            if (!probe)
+                proposedStep = options.FixedStepSeconds ?? h * (ratio > 0 ? Math.Min(2, 0.9 * Math.Pow(ratio, -1.0 / (order + 1))) : 2);
             return;
         }
     }
@@ -272,21 +266,7 @@ public sealed class TransientSimulation
         }
         while (outputs.Count > 0 && outputs[0] <= tNew + Epsilon(tNew))
             outputs.RemoveAt(0);
-        if (hitBreak)
-        {
-            nextBackwardEuler = true;
-            sinceBreak = 1;
-            for (var i = 0; i < stateCount; i++)
-            {
-                breakValues[i] = c.PreviousState[2 * i];
-                breakSlopes[i] = c.PreviousState[2 * i + 1];
-            }
-        }
-        else
-        {
-            nextBackwardEuler = false;
-            sinceBreak = Math.Min(sinceBreak + 1, HistoryLength);
-        }
+        sinceBreak = hitBreak ? 1 : Math.Min(sinceBreak + 1, HistoryLength);
         if (checks)
             Warnings.Merge(warnings, Warnings.Collect(system).Select(w => w with { TimeSeconds = tNew }));
     }
@@ -296,23 +276,16 @@ public sealed class TransientSimulation
     {
         var worst = 0.0;
         var points = order + 2;
+        if (sinceBreak < points - 1)
+            return 0;
         for (var i = 0; i < stateCount; i++)
         {
             ddTimes[0] = tNew;
             ddValues[0] = c.State[2 * i];
             for (var j = 1; j < points; j++)
             {
-                if (j - 1 < sinceBreak)
-                {
-                    ddTimes[j] = historyTimes[j - 1];
-                    ddValues[j] = historyValues[j - 1][i];
-                }
-                else
-                {
-                    var m = j - sinceBreak;
-                    ddTimes[j] = historyTimes[sinceBreak - 1] - m * h;
-                    ddValues[j] = breakValues[i] - m * h * breakSlopes[i];
-                }
+                ddTimes[j] = historyTimes[j - 1];
+                ddValues[j] = historyValues[j - 1][i];
             }
             for (var level = 1; level < points; level++)
                 for (var j = 0; j < points - level; j++)

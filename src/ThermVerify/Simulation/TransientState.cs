@@ -17,9 +17,6 @@ public sealed record TransientState
     internal double[] States { get; init; } = null!;
     internal double[] HistoryTimes { get; init; } = null!;
     internal double[][] HistoryValues { get; init; } = null!;
-    internal double[] BreakValues { get; init; } = null!;
-    internal double[] BreakSlopes { get; init; } = null!;
     internal int SinceBreak { get; init; }
-    internal bool NextBackwardEuler { get; init; }
     internal double ProposedStepSeconds { get; init; }
 }

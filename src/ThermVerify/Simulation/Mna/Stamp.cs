@@ -1,3 +1,4 @@
+using System.Numerics;
 using ThermVerify.Circuits;
 
 namespace ThermVerify.Simulation.Mna;
@@ -50,6 +51,15 @@ internal abstract class Stamp(Element element)
     /// <summary>Replaces the element's main value for a DC sweep (source value, resistance).</summary>
     public virtual void SetSweepValue(double value) =>
         throw new CircuitException($"{Element.Describe} has no single value a DC sweep can vary; sweep a source or a resistor.");
+
+    /// <summary>Adds the reactive part B of the small-signal matrix G + jωB (capacitances, −inductances).</summary>
+    public virtual void LoadReactive(double[] matrix) { }
+
+    /// <summary>Adds the element's AC excitation phasor to the right-hand side.</summary>
+    public virtual void LoadAcExcitation(Complex[] rhs) { }
+
+    /// <summary>Declares the element's noise sources (as current sources between two unknowns) at the operating point.</summary>
+    public virtual void CollectNoise(NoiseContext noise) { }
 
     /// <summary>Names the extra unknowns' equations in messages.</summary>
     public override string ToString() => Element.Describe;

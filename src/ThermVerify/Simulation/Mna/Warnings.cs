@@ -11,11 +11,11 @@ internal static class Warnings
         return list;
     }
 
-    /// <summary>Adds the warnings of elements not yet reported: the first occurrence is the one kept.</summary>
+    /// <summary>Adds warnings whose element and subject were not yet reported: the first occurrence is kept.</summary>
     public static void Merge(List<SimulationWarning> into, IEnumerable<SimulationWarning> fresh)
     {
         foreach (var w in fresh)
-            if (!into.Any(x => x.Element == w.Element))
+            if (!into.Any(x => x.Element == w.Element && x.Subject == w.Subject))
                 into.Add(w);
     }
 }

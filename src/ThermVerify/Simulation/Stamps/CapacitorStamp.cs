@@ -49,5 +49,7 @@ internal sealed class CapacitorStamp : Stamp
         c.Rhs[b] += history;
     }
 
+    public override void LoadReactive(double[] matrix) => slots.Add(matrix, capacitor.CapacitanceFarads);
+
     public override void Accept(LoadContext c) => c.Integrate(state, c.Solution[a] - c.Solution[b]);
 }

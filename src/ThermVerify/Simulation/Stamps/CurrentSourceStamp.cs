@@ -28,6 +28,13 @@ internal sealed class CurrentSourceStamp : Stamp
     public override void CollectBreakpoints(double fromSeconds, double toSeconds, List<double> into) =>
         source.Waveform.CollectBreakpoints(fromSeconds, toSeconds, into);
 
+    public override void LoadAcExcitation(System.Numerics.Complex[] rhs)
+    {
+        var i = System.Numerics.Complex.FromPolarCoordinates(source.AcMagnitude, source.AcPhaseDegrees * Math.PI / 180);
+        rhs[a] -= i;
+        rhs[b] += i;
+    }
+
     public override string SweepQuantity => "current (A)";
 
     public override void SetSweepValue(double value) => sweptAmperes = value;

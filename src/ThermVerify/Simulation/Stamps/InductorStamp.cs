@@ -50,6 +50,8 @@ internal sealed class InductorStamp : Stamp
         c.Rhs[k] += l * c.History(state);
     }
 
+    public override void LoadReactive(double[] matrix) => matrix[kk] -= inductor.InductanceHenries;
+
     public override void Accept(LoadContext c) => c.Integrate(state, c.Solution[k]);
 
     public override double CurrentAmperes(double[] solution) => solution[k];

@@ -12,11 +12,14 @@ internal sealed class TimedSwitchStamp : Stamp
     private readonly TimedSwitch sw;
     private readonly ConductanceSlots slots;
     private readonly double gOn, gOff;
+    private readonly int a, b;
 
     public TimedSwitchStamp(TimedSwitch sw, BindContext c) : base(sw)
     {
         this.sw = sw;
-        slots = new ConductanceSlots(c, c.Node(sw.NodeA), c.Node(sw.NodeB));
+        a = c.Node(sw.NodeA);
+        b = c.Node(sw.NodeB);
+        slots = new ConductanceSlots(c, a, b);
         gOn = 1 / sw.OnResistanceOhms;
         gOff = 1 / sw.OffResistanceOhms;
     }
@@ -25,6 +28,10 @@ internal sealed class TimedSwitchStamp : Stamp
 
     public override void Load(LoadContext c) =>
         slots.Add(c.Matrix, sw.Schedule.IsClosed(c.StepMidTimeSeconds) ? gOn : gOff);
+
+    /// <summary>Thermal noise of the resistance the switch has at the operating point (t = 0).</summary>
+    public override void CollectNoise(NoiseContext noise) =>
+        noise.Add(Element.Name, "thermal", a, b, noise.ThermalCurrentPsd(sw.Schedule.IsClosed(0) ? gOn : gOff), 0);
 
     public override void CollectBreakpoints(double fromSeconds, double toSeconds, List<double> into) =>
         sw.Schedule.CollectEdges(fromSeconds, toSeconds, into);

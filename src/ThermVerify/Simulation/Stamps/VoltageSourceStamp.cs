@@ -37,6 +37,9 @@ internal sealed class VoltageSourceStamp : Stamp
 
     public override double CurrentAmperes(double[] solution) => solution[k];
 
+    public override void LoadAcExcitation(System.Numerics.Complex[] rhs) =>
+        rhs[k] += System.Numerics.Complex.FromPolarCoordinates(source.AcMagnitude, source.AcPhaseDegrees * Math.PI / 180);
+
     public override string SweepQuantity => "voltage (V)";
 
     public override void SetSweepValue(double value) => sweptVolts = value;

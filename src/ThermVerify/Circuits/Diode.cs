@@ -1,0 +1,31 @@
+using ThermVerify.Simulation.Mna;
+using ThermVerify.Simulation.Stamps;
+
+namespace ThermVerify.Circuits;
+
+/// <summary>
+/// Junction diode, Shockley equation I = Is·(exp(V/(n·Vt)) − 1) with Vt = kT/q at the circuit
+/// temperature, and an optional series resistance. Is does not scale with temperature here (give the
+/// value for the temperature studied); no junction capacitance, no breakdown. Meant for input clamps.
+/// </summary>
+public sealed record Diode(string Name, string Anode, string Cathode, double SaturationCurrentAmperes = 1e-14,
+    double EmissionCoefficient = 1, double SeriesResistanceOhms = 0) : Element(Name)
+{
+    public override IReadOnlyList<string> Nodes => [Anode, Cathode];
+
+    internal override IEnumerable<(string A, string B)> DcPaths => [(Anode, Cathode)];
+
+    internal override IReadOnlyList<Unknown> ExtraUnknowns =>
+        SeriesResistanceOhms > 0 ? [Unknown.Voltage($"{Name}#junction")] : [];
+
+    internal override void Validate()
+    {
+        base.Validate();
+        ElementChecks.DistinctNodes(this, Anode, Cathode);
+        ElementChecks.Positive(this, SaturationCurrentAmperes, "saturation current");
+        ElementChecks.Positive(this, EmissionCoefficient, "emission coefficient");
+        ElementChecks.NonNegative(this, SeriesResistanceOhms, "series resistance");
+    }
+
+    internal override Stamp Bind(BindContext context) => new DiodeStamp(this, context);
+}
