@@ -88,7 +88,7 @@ public static class FrontEndCircuit
 
         var drive = Divider;
         if (design.Buffer is { } buffer)
-            drive = BufferStage.Add(elements, buffer, Divider);
+            drive = BufferStage.Add(elements, buffer, Divider, board);
 
         if (design.Filter.SeriesResistorOhms > 0)
             elements.Add(new Resistor("Rfilter", drive, Pin, design.Filter.SeriesResistorOhms));
