@@ -27,9 +27,10 @@ public sealed record DcSweepCase(
         var plain = DcSweep.Temperature(FrontEndCircuit.Dc(design, null), temperaturesCelsius);
         var divider = plain.Voltage(Divider);
         var buffer = design.Buffer is null ? divider : plain.Voltage(BufferOutput);
-        var staticPin = plain.Voltage(Pin);
+        var pinNode = FrontEndCircuit.PinNode(design);
+        var staticPin = plain.Voltage(pinNode);
         var pin = UsesAverageSamplingCurrent(design, prechargeVolts)
-            ? DcSweep.Temperature(FrontEndCircuit.Dc(design, prechargeVolts), temperaturesCelsius).Voltage(Pin)
+            ? DcSweep.Temperature(FrontEndCircuit.Dc(design, prechargeVolts), temperaturesCelsius).Voltage(pinNode)
             : staticPin;
         return new DcSweepCase(prechargeVolts, divider, buffer, staticPin, pin);
     }

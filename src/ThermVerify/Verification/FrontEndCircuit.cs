@@ -34,7 +34,7 @@ public static class FrontEndCircuit
         if (prechargeVolts is { } pre)
         {
             elements.Add(new VoltageSource("Vprecharge", Precharge, Circuit.Ground, new DcWaveform(pre)));
-            elements.Add(new Resistor("Rsampling", Pin, Precharge, 1 / (design.Adc.SampleRateHertz * design.Adc.SamplingCapacitanceFarads)));
+            elements.Add(new Resistor("Rsampling", PinNode(design), Precharge, 1 / (design.Adc.SampleRateHertz * design.Adc.SamplingCapacitanceFarads)));
         }
         return new Circuit(elements);
     }
@@ -51,7 +51,7 @@ public static class FrontEndCircuit
         var period = 1 / adc.SampleRateHertz;
         var elements = Front(design);
         elements.Add(new Capacitor("Csample", Hold, Circuit.Ground, adc.SamplingCapacitanceFarads));
-        elements.Add(new TimedSwitch(SamplingSwitch, Pin, Hold, Math.Max(adc.SwitchResistanceOhms, MinimumSwitchOhms), SwitchOffOhms,
+        elements.Add(new TimedSwitch(SamplingSwitch, PinNode(design), Hold, Math.Max(adc.SwitchResistanceOhms, MinimumSwitchOhms), SwitchOffOhms,
             new PeriodicSchedule(period - adc.AcquisitionTimeSeconds, period, adc.AcquisitionTimeSeconds, conversions)));
         if (prechargeVolts is { } pre)
         {
@@ -86,22 +86,25 @@ public static class FrontEndCircuit
             FixedResistor(FixedElement, fixedNodes.Item1, fixedNodes.Item2, divider.FixedResistorOhms, divider.FixedTempcoPerKelvin, board),
         };
 
-        var drive = Divider;
         if (design.Buffer is { } buffer)
-            drive = BufferStage.Add(elements, buffer, Divider, board);
-
+            BufferStage.Add(elements, buffer, Divider, board);
+        var pin = PinNode(design);
         if (design.Filter.SeriesResistorOhms > 0)
-            elements.Add(new Resistor("Rfilter", drive, Pin, design.Filter.SeriesResistorOhms));
-        else
-            elements.Add(new Resistor("Rfilter", drive, Pin, MinimumSwitchOhms)); // the pin is always its own node
+            elements.Add(new Resistor("Rfilter", DriveNode(design), Pin, design.Filter.SeriesResistorOhms));
         if (design.Filter.ReservoirCapacitorFarads > 0)
-            elements.Add(new Capacitor("Creservoir", Pin, Circuit.Ground, design.Filter.ReservoirCapacitorFarads));
+            elements.Add(new Capacitor("Creservoir", pin, Circuit.Ground, design.Filter.ReservoirCapacitorFarads));
         if (design.Adc.PinCapacitanceFarads > 0)
-            elements.Add(new Capacitor("Cpin", Pin, Circuit.Ground, design.Adc.PinCapacitanceFarads));
+            elements.Add(new Capacitor("Cpin", pin, Circuit.Ground, design.Adc.PinCapacitanceFarads));
         if (design.Adc.PinLeakageAmperes != 0)
-            elements.Add(Leakage(design.Adc, board));
+            elements.Add(Leakage(pin, design.Adc, board));
         return elements;
     }
+
+    /// <summary>The node that drives the filter: the buffer's output, or the divider itself.</summary>
+    public static string DriveNode(FrontEndDesign design) => design.Buffer is null ? Divider : BufferOutput;
+
+    /// <summary>The ADC pin: its own node behind a series resistor, else the drive node itself.</summary>
+    public static string PinNode(FrontEndDesign design) => design.Filter.SeriesResistorOhms > 0 ? Pin : DriveNode(design);
 
     /// <summary>The fixed resistor: its tempco follows the sweep, or is taken once at the board temperature.</summary>
     private static Resistor FixedResistor(string name, string a, string b, double ohms, double tempco, double? boardCelsius) =>
@@ -110,11 +113,11 @@ public static class FrontEndCircuit
             : new Resistor(name, a, b, ohms, tempco);
 
     /// <summary>Pin leakage, positive into the pin: it follows the sweep (doubling every N K) or sits at the board temperature.</summary>
-    private static Element Leakage(AdcSpec adc, double? boardCelsius)
+    private static Element Leakage(string pin, AdcSpec adc, double? boardCelsius)
     {
         var at25 = adc.PinLeakageAmperes * Math.Pow(2, (25 - adc.PinLeakageCelsius) / adc.LeakageDoublingKelvin);
         return boardCelsius is { } board
-            ? new CurrentSource("Ileak", Pin, Circuit.Ground, new DcWaveform(SamplingFormulas.LeakageAmps(at25, adc.LeakageDoublingKelvin, board)))
-            : new LeakageCurrentSource("Ileak", Pin, Circuit.Ground, at25, adc.LeakageDoublingKelvin);
+            ? new CurrentSource("Ileak", pin, Circuit.Ground, new DcWaveform(SamplingFormulas.LeakageAmps(at25, adc.LeakageDoublingKelvin, board)))
+            : new LeakageCurrentSource("Ileak", pin, Circuit.Ground, at25, adc.LeakageDoublingKelvin);
     }
 }
