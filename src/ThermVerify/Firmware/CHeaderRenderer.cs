@@ -20,10 +20,10 @@ public static class CHeaderRenderer
         var sb = new StringBuilder();
         void Line(FormattableString s) => sb.Append(s.ToString(CultureInfo.InvariantCulture)).Append('\n');
 
-        Line($"/* {content.DesignName}: ADC code to temperature.");
+        Line($"/* {Ascii(content.DesignName)}: ADC code to temperature.");
         Line($" * Written by thermverify; regenerate it from the design rather than editing it.");
         Line($" *");
-        Line($" * Sensor:  {m.Sensor.Description}");
+        Line($" * Sensor:  {Ascii(m.Sensor.Description)}");
         Line($" * Divider: sensor on the {(m.Side == SensorSide.Low ? "low side (to ground)" : "high side (to the excitation)")}, fixed resistor {m.FixedOhms:G6} ohm, excitation {m.ExcitationVolts:G6} V");
         Line($" * ADC:     {m.Adc.Bits} bits, reference {m.Adc.ReferenceVolts:G6} V, LSB {m.Adc.LsbVolts:G6} V; code = round(V / LSB), read back as V = code * LSB");
         Line($" * Range:   {m.Range.MinCelsius:0.###} to {m.Range.MaxCelsius:0.###} degC, codes {t.Span.FirstCode} to {t.Span.LastCode}; temperature {(t.Span.TemperatureRisesWithCode ? "rises" : "falls")} with code");
@@ -51,9 +51,9 @@ public static class CHeaderRenderer
             Line($"/* For firmware that computes instead: 1/T = A + B ln R + C (ln R)^3 (T in kelvin, R in ohm),");
             Line($" * or 1/T = 1/T0 + ln(R/R0)/BETA. Worst error over the range: Steinhart-Hart three-point {c.ThreePointMaxErrorKelvin:0.0000} K,");
             Line($" * least squares {c.LeastSquaresMaxErrorKelvin:0.0000} K, beta {c.BetaMaxErrorKelvin:0.0000} K. */");
-            Line($"#define {P}_SH_A {c.LeastSquares.A:E10}");
-            Line($"#define {P}_SH_B {c.LeastSquares.B:E10}");
-            Line($"#define {P}_SH_C {c.LeastSquares.C:E10}");
+            Line($"#define {P}_SH_A {c.LeastSquares.A:G17}");
+            Line($"#define {P}_SH_B {c.LeastSquares.B:G17}");
+            Line($"#define {P}_SH_C {c.LeastSquares.C:G17}");
             Line($"#define {P}_BETA_KELVIN {c.Beta.Beta:0.000}");
             Line($"#define {P}_BETA_R0_OHM {c.Beta.R0Ohms:G10}");
             Line($"#define {P}_BETA_T0_KELVIN {c.Beta.T0Celsius + Quantities.PhysicalConstants.ZeroCelsiusInKelvin:0.00}");
@@ -70,6 +70,15 @@ public static class CHeaderRenderer
         Line($"}}");
         Line($"");
         Line($"#endif /* {P}_H */");
+        return sb.ToString();
+    }
+
+    /// <summary>Plain ASCII for the comment block, so the header reads the same in any editor and toolchain.</summary>
+    private static string Ascii(string text)
+    {
+        var sb = new StringBuilder();
+        foreach (var ch in text.Replace("/*", "/ *").Replace("*/", "* /").Replace("°C", "degC").Replace("Ω", "ohm").Replace("β", "beta").Replace("µ", "u"))
+            sb.Append(ch is >= ' ' and <= '~' ? ch : ch is '–' or '−' or '—' ? '-' : '?');
         return sb.ToString();
     }
 

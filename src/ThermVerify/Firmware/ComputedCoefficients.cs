@@ -28,13 +28,16 @@ public sealed record ComputedCoefficients(
         if (!(sensor.ResistanceOhms(hi) < sensor.ResistanceOhms(lo)))
             throw new FirmwareInputException($"Steinhart–Hart and β describe NTC thermistors; {sensor.Description} rises with temperature. Use the lookup table for it.");
         TablePoint At(double t) => new(t, sensor.ResistanceOhms(t));
+        // A fitted curve passes a hair off its end points, so a fit whose valid range ended exactly there would
+        // refuse its own points; a few kelvin of room avoids that without letting firmware extrapolate far.
+        var fitRange = new TemperatureRange(Math.Max(lo - 5, -273), hi + 5);
 
-        var three = SensorFitting.SteinhartHartFromThreePoints(At(lo), At((lo + hi) / 2), At(hi), model.Range).Model;
+        var three = SensorFitting.SteinhartHartFromThreePoints(At(lo), At((lo + hi) / 2), At(hi), fitRange).Model;
         var grid = Enumerable.Range(0, LeastSquaresPoints).Select(i => lo + (hi - lo) * i / (LeastSquaresPoints - 1)).Select(At).ToArray();
-        var squares = SensorFitting.SteinhartHartLeastSquares(grid, validRange: model.Range).Model;
+        var squares = SensorFitting.SteinhartHartLeastSquares(grid, validRange: fitRange).Model;
         var t0 = Math.Clamp(25, lo, hi);
         var t1 = hi - t0 >= t0 - lo ? hi : lo;
-        var beta = SensorFitting.BetaFromTwoPoints(At(t0), At(t1), model.Range).Model;
+        var beta = SensorFitting.BetaFromTwoPoints(At(t0), At(t1), fitRange).Model;
 
         return new ComputedCoefficients(
             three, MaxError(model, r => SteinhartHartCelsius(three, r)),
