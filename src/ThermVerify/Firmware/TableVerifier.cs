@@ -33,7 +33,7 @@ public static class TableVerifier
 
         var causes = new List<TableCause>();
         causes.AddRange(OutOfOrder(rows));
-        causes.AddRange(NotMonotonic(model, rows));
+        causes.AddRange(NotMonotonic(rows));
         if (disagreements.Count > 0)
         {
             causes.AddRange(RowDefects(rows, truth, disagreements, budgetKelvin));
@@ -53,26 +53,31 @@ public static class TableVerifier
             if (rows[i].Code < rows[i - 1].Code) lines.Add(rows[i].Line);
         if (lines.Count > 0)
             yield return new TableCause(TableCauseKind.RowsOutOfOrder,
-                $"Codes do not rise on line(s) {string.Join(", ", lines)}; a firmware search over the codes needs them in rising order.", null, 0, lines);
+                $"Codes do not rise at {LineList(lines)}; a firmware search over the codes needs them in rising order.", null, 0, lines);
     }
 
     /// <summary>
-    /// Rows whose temperature steps against the model's direction (by code order), even within the budget: firmware
-    /// that searches the table by temperature, or interpolates across such a step, misbehaves there.
+    /// Rows whose temperature steps against the table's own direction (by code order), even within the budget:
+    /// firmware that interpolates across such a step or searches the table by temperature misbehaves there.
+    /// A table that runs the other way throughout is not flagged here; its rows disagree with the model instead.
     /// </summary>
-    private static IEnumerable<TableCause> NotMonotonic(FirmwareModel model, IReadOnlyList<TableRow> rows)
+    private static IEnumerable<TableCause> NotMonotonic(IReadOnlyList<TableRow> rows)
     {
         var sorted = rows.OrderBy(r => r.Code).ToArray();
-        var rising = CodeTemperatures.Span(model).TemperatureRisesWithCode;
-        var lines = new List<int>();
-        for (var i = 1; i < sorted.Length; i++)
-            if (rising ? sorted[i].Celsius < sorted[i - 1].Celsius : sorted[i].Celsius > sorted[i - 1].Celsius)
-                lines.Add(sorted[i].Line);
+        var steps = Enumerable.Range(1, sorted.Length - 1).Select(i => Math.Sign(sorted[i].Celsius - sorted[i - 1].Celsius)).ToArray();
+        var rising = steps.Count(s => s > 0) >= steps.Count(s => s < 0);
+        var lines = Enumerable.Range(1, sorted.Length - 1).Where(i => steps[i - 1] == (rising ? -1 : 1)).Select(i => sorted[i].Line).ToList();
         if (lines.Count > 0)
             yield return new TableCause(TableCauseKind.NotMonotonic,
-                $"The temperature steps the wrong way at line(s) {string.Join(", ", lines)} (temperature should {(rising ? "rise" : "fall")} with code); look for swapped or misplaced rows there.",
+                $"The temperature steps against the rest of the table at {LineList(lines)} (it otherwise {(rising ? "rises" : "falls")} with code); look for swapped or misplaced rows there.",
                 null, 0, lines);
     }
+
+    /// <summary>"line 7" or "lines 3, 4, 5 … (40 lines)": long lists are cut so a message stays readable.</summary>
+    private static string LineList(IReadOnlyList<int> lines) =>
+        lines.Count == 1 ? $"line {lines[0]}"
+        : lines.Count <= 8 ? $"lines {string.Join(", ", lines)}"
+        : $"lines {string.Join(", ", lines.Take(8))} … ({lines.Count} lines)";
 
     private static IEnumerable<TableCause> RowDefects(IReadOnlyList<TableRow> rows, double[] truth, List<RowDisagreement> bad, double budget)
     {
@@ -114,7 +119,7 @@ public static class TableVerifier
             var residual = MaxResidual(WithFixed(fitted), rows);
             if (residual <= budget)
                 yield return new TableCause(TableCauseKind.WrongFixedResistor, Invariant(
-                    $"The table matches a fixed resistor of {fitted:G4} Ω, not the model's {model.FixedOhms:G4} Ω (worst row then {residual:0.###} K off)."),
+                    $"The table matches a fixed resistor of {fitted:G5} Ω, not the model's {model.FixedOhms:G5} Ω (worst row then {residual:0.###} K off)."),
                     fitted, residual, []);
         }
         {
