@@ -15,13 +15,25 @@ public enum TableCauseKind { WrongBeta, WrongFixedResistor, SensorOnOtherSide, S
 /// </summary>
 public sealed record TableCause(TableCauseKind Kind, string Explanation, double? FittedValue, double ResidualMaxKelvin, IReadOnlyList<int> Lines);
 
-/// <summary>The outcome of checking a table against the model; <see cref="Passes"/> when every row is within the budget, in code order and monotone.</summary>
+/// <summary>
+/// The worst error between the rows of a sparse table, read by straight-line interpolation in °C (firmware rounding
+/// to its unit adds at most ½ unit more). Null when the rows cover every code of their span.
+/// </summary>
+public sealed record InterpolationError(double MaxAbsErrorKelvin, int AtCode);
+
+/// <summary>
+/// The outcome of checking a table against the model; <see cref="Passes"/> when every row, and every code between
+/// rows, is within the budget and the rows are in code order and monotone.
+/// </summary>
 public sealed record TableVerification(
     int RowCount,
     double BudgetKelvin,
     double MaxAbsErrorKelvin,
     IReadOnlyList<RowDisagreement> Disagreements,
-    IReadOnlyList<TableCause> LikelyCauses)
+    IReadOnlyList<TableCause> LikelyCauses,
+    InterpolationError? BetweenRows = null)
 {
-    public bool Passes => Disagreements.Count == 0 && LikelyCauses.All(c => c.Kind is not (TableCauseKind.RowsOutOfOrder or TableCauseKind.NotMonotonic));
+    public bool Passes => Disagreements.Count == 0
+        && LikelyCauses.All(c => c.Kind is not (TableCauseKind.RowsOutOfOrder or TableCauseKind.NotMonotonic))
+        && !(BetweenRows?.MaxAbsErrorKelvin > BudgetKelvin);
 }

@@ -40,7 +40,26 @@ public static class TableVerifier
             if (causes.All(c => c.Kind is TableCauseKind.RowsOutOfOrder or TableCauseKind.NotMonotonic))
                 causes.AddRange(ModelCauses(model, rows, budgetKelvin));
         }
-        return new TableVerification(rows.Count, budgetKelvin, maxAbs, disagreements, causes);
+        return new TableVerification(rows.Count, budgetKelvin, maxAbs, disagreements, causes, BetweenRows(model, rows));
+    }
+
+    /// <summary>Straight-line reading between neighbouring rows (by code) at every code the rows skip.</summary>
+    private static InterpolationError? BetweenRows(FirmwareModel model, IReadOnlyList<TableRow> rows)
+    {
+        var sorted = rows.OrderBy(r => r.Code).ToArray();
+        InterpolationError? worst = null;
+        for (var i = 1; i < sorted.Length; i++)
+        {
+            var (a, b) = (sorted[i - 1], sorted[i]);
+            for (var code = a.Code + 1; code < b.Code; code++)
+            {
+                var read = a.Celsius + (b.Celsius - a.Celsius) * (code - a.Code) / (b.Code - a.Code);
+                var error = Math.Abs(read - CodeTemperatures.TrueCelsius(model, code));
+                if (double.IsNaN(error)) error = double.PositiveInfinity;
+                if (worst is null || error > worst.MaxAbsErrorKelvin) worst = new InterpolationError(error, code);
+            }
+        }
+        return worst;
     }
 
     private static double[] Truth(FirmwareModel model, IReadOnlyList<TableRow> rows) =>

@@ -26,6 +26,20 @@ public class TableVerifierTests
     }
 
     [Fact]
+    public void A_breakpoint_table_is_checked_between_its_rows()
+    {
+        // Made for a 0.05 K bound, so straight lines between the rows stay within 0.05 K plus rounding; a 0.02 K
+        // budget passes every row (each is only rounded) but must fail between them.
+        var rows = Csv(Model, breakpointsOnly: true, bound: 0.05);
+        var loose = TableVerifier.Verify(Model, rows, budgetKelvin: 0.06);
+        Assert.True(loose.Passes);
+        Assert.True(loose.BetweenRows!.MaxAbsErrorKelvin > 0.02 && loose.BetweenRows.MaxAbsErrorKelvin <= 0.055);
+        var tight = TableVerifier.Verify(Model, rows, budgetKelvin: 0.02);
+        Assert.Empty(tight.Disagreements);
+        Assert.False(tight.Passes);
+    }
+
+    [Fact]
     public void A_table_in_fixed_point_units_reads_and_passes()
     {
         var table = TableBuilder.EveryCode(Model, FixedPointScale.DeciKelvin);
