@@ -7,7 +7,10 @@ namespace ThermVerify.Tests.Firmware;
 
 public class CHeaderCompileTests
 {
-    private static readonly string[] Cases = ["dense-centi", "sparse-centi", "sparse-deci", "sparse-rtd", "dense-high-side"];
+    // Both directions: an NTC on the low side and an RTD on the high side read falling temperatures with rising codes
+    // (negative numerators); an NTC on the high side and an RTD on the low side read rising ones.
+    private static readonly string[] Cases =
+        ["dense-centi", "sparse-centi", "sparse-deci", "sparse-rtd", "dense-high-side", "sparse-high-side", "sparse-rtd-low-side"];
 
     private static (FirmwareModel Model, FirmwareTable Table) Make(string name) => name switch
     {
@@ -15,7 +18,9 @@ public class CHeaderCompileTests
         "sparse-centi" => Pair(FirmwareTestModels.NtcLowSide(), m => TableBuilder.WithinBound(m, FixedPointScale.CentiKelvin, 0.05)),
         "sparse-deci" => Pair(FirmwareTestModels.NtcLowSide(bits: 16), m => TableBuilder.WithBreakpoints(m, FixedPointScale.DeciKelvin, 24)),
         "sparse-rtd" => Pair(FirmwareTestModels.Pt1000HighSide(), m => TableBuilder.WithinBound(m, FixedPointScale.CentiKelvin, 0.1)),
-        _ => Pair(FirmwareTestModels.NtcLowSide(SensorSide.High), m => TableBuilder.EveryCode(m, FixedPointScale.DeciKelvin)),
+        "dense-high-side" => Pair(FirmwareTestModels.NtcLowSide(SensorSide.High), m => TableBuilder.EveryCode(m, FixedPointScale.DeciKelvin)),
+        "sparse-high-side" => Pair(FirmwareTestModels.NtcLowSide(SensorSide.High), m => TableBuilder.WithinBound(m, FixedPointScale.CentiKelvin, 0.03)),
+        _ => Pair(FirmwareTestModels.Pt1000HighSide().WithOtherSide(), m => TableBuilder.WithinBound(m, FixedPointScale.CentiKelvin, 0.1)),
     };
 
     private static (FirmwareModel, FirmwareTable) Pair(FirmwareModel m, Func<FirmwareModel, FirmwareTable> make) => (m, make(m));
