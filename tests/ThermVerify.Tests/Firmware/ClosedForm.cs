@@ -16,6 +16,12 @@ internal static class ClosedForm
     public static double BetaOhms(double celsius, double r0 = 10_000, double beta = 3435, double t0Celsius = 25) =>
         r0 * Math.Exp(beta * (1 / (celsius + 273.15) - 1 / (t0Celsius + 273.15)));
 
+    public static double HighSideOhms(double volts, double excitation, double fixedOhms) => fixedOhms * (excitation - volts) / volts;
+
+    /// <summary>The same front end with the sensor on the high side.</summary>
+    public static double NtcHighSideCelsius(double code, int bits = 12) =>
+        BetaCelsius(HighSideOhms(code * 3.3 / (1 << bits), 3.3, 10_000));
+
     /// <summary>True temperature at a (fractional) code of the 12-bit, 3.3 V low-side NTC front end: V = code·Vref/4096.</summary>
     public static double NtcLowSideCelsius(double code, int bits = 12) =>
         BetaCelsius(LowSideOhms(code * 3.3 / (1 << bits), 3.3, 10_000));

@@ -1,21 +1,25 @@
 using ThermVerify.Firmware;
+using ThermVerify.Verification;
 
 namespace ThermVerify.Tests.Firmware;
 
 public class TableBuilderTests
 {
     [Theory]
-    [InlineData(0.01)]
-    [InlineData(0.05)]
-    [InlineData(0.25)]
-    public void Breakpoint_tables_keep_the_bound_at_every_code(double boundKelvin)
+    [InlineData(0.01, SensorSide.Low)]
+    [InlineData(0.05, SensorSide.Low)]
+    [InlineData(0.25, SensorSide.Low)]
+    [InlineData(0.02, SensorSide.High)]
+    [InlineData(0.1, SensorSide.High)]
+    public void Breakpoint_tables_keep_the_bound_at_every_code(double boundKelvin, SensorSide side)
     {
-        var model = FirmwareTestModels.NtcLowSide();
+        var model = FirmwareTestModels.NtcLowSide(side);
         var table = TableBuilder.WithinBound(model, FixedPointScale.CentiKelvin, boundKelvin);
         // Every code of the span, not only the breakpoints; truth from Ohm's law and the Beta formula (ClosedForm).
         for (var code = table.Span.FirstCode; code <= table.Span.LastCode; code++)
         {
-            var error = table.EvaluateCelsius(code) - ClosedForm.NtcLowSideCelsius(code);
+            var truth = side == SensorSide.Low ? ClosedForm.NtcLowSideCelsius(code) : ClosedForm.NtcHighSideCelsius(code);
+            var error = table.EvaluateCelsius(code) - truth;
             Assert.True(Math.Abs(error) <= boundKelvin + 1e-9, $"bound {boundKelvin} K: code {code} is {error:G4} K off");
         }
         Assert.True(table.Codes.Count < table.Span.Count / 4, $"{table.Codes.Count} breakpoints for {table.Span.Count} codes is no saving");
