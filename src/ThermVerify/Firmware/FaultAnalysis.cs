@@ -1,3 +1,4 @@
+using ThermVerify.Design;
 using System.Globalization;
 using ThermVerify.Verification;
 

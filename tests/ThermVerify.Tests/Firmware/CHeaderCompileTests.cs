@@ -1,3 +1,4 @@
+using ThermVerify.Design;
 using System.Diagnostics;
 using System.Globalization;
 using ThermVerify.Firmware;

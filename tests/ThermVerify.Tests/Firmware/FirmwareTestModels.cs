@@ -1,3 +1,4 @@
+using ThermVerify.Design;
 using ThermVerify.Firmware;
 using ThermVerify.Sensors;
 using ThermVerify.Verification;
