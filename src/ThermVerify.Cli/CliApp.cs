@@ -18,6 +18,8 @@ public static class CliApp
             FitCommand.Create(),
             ValidateCommand.Create(),
             CheckCommand.Create(),
+            TableCommand.Create(),
+            VerifyTableCommand.Create(),
         };
         if (args.Length == 0)
         {

@@ -1,4 +1,5 @@
 using ThermVerify.Design;
+using ThermVerify.Firmware;
 using ThermVerify.Quantities;
 using ThermVerify.Reporting;
 using ThermVerify.Sensors;
@@ -28,6 +29,7 @@ public static class ErrorReport
     public static int ExitCodeFor(Exception exception) => exception switch
     {
         OperationCanceledException => ExitCodes.BadInput,
+        FirmwareInputException or TableFormatException => ExitCodes.BadInput,
         DesignException or UsageException or QuantityFormatException or SensorFitException => ExitCodes.BadInput,
         SensorRangeException or SensorTableException or OutputExistsException => ExitCodes.BadInput,
         FileNotFoundException or DirectoryNotFoundException or UnauthorizedAccessException => ExitCodes.BadInput,
