@@ -78,7 +78,8 @@ internal static class ReportFormat
         yield return ("sensor", result.SensorDescription);
         yield return ("divider", $"sensor on the {(d.Divider.SensorSide == Design.SensorSide.High ? "high" : "low")} side, fixed {V(d.Divider.FixedResistorOhms, UnitKind.Ohm)}, excitation {V(d.Divider.ExcitationVolts, UnitKind.Volt)}");
         if (d.Buffer is { } b) yield return ("buffer", $"gain {N(b.Gain, "0.###")}, isolation {V(b.IsolationResistorOhms, UnitKind.Ohm)}");
-        yield return ("filter", $"series {V(d.Filter.SeriesResistorOhms, UnitKind.Ohm)}, reservoir {V(d.Filter.ReservoirCapacitorFarads, UnitKind.Farad)}");
+        yield return ("filter", d.Filter.SeriesResistorOhms == 0 && d.Filter.ReservoirCapacitorFarads == 0 ? "none"
+            : $"series {V(d.Filter.SeriesResistorOhms, UnitKind.Ohm)}, reservoir {V(d.Filter.ReservoirCapacitorFarads, UnitKind.Farad)}");
         yield return ("ADC", $"{d.Adc.Bits} bits, reference {(d.Adc.IsRatiometric ? "ratiometric" : V(result.Adc.ReferenceVolts, UnitKind.Volt))}, " +
                              $"1 LSB = {V(result.Adc.LsbVolts, UnitKind.Volt)}, {V(d.Adc.SampleRateHertz, UnitKind.Hertz)}, acquisition {V(d.Adc.AcquisitionTimeSeconds, UnitKind.Second)}, " +
                              $"C_sh {V(d.Adc.SamplingCapacitanceFarads, UnitKind.Farad)}, precharge {Precharge(d.Adc.Precharge)}");
