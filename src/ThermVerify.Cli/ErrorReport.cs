@@ -1,3 +1,4 @@
+using ThermVerify.Baselines;
 using ThermVerify.Design;
 using ThermVerify.Firmware;
 using ThermVerify.Quantities;
@@ -32,6 +33,7 @@ public static class ErrorReport
         FirmwareInputException or TableFormatException => ExitCodes.BadInput,
         DesignException or UsageException or QuantityFormatException or SensorFitException => ExitCodes.BadInput,
         SensorRangeException or SensorTableException or OutputExistsException => ExitCodes.BadInput,
+        BaselineException => ExitCodes.BadInput,
         FileNotFoundException or DirectoryNotFoundException or UnauthorizedAccessException => ExitCodes.BadInput,
         SimulationException => ExitCodes.SimulationFailed,
         CircuitException => ExitCodes.SimulationFailed,
