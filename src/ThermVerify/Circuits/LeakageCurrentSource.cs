@@ -14,7 +14,7 @@ public sealed record LeakageCurrentSource(string Name, string Positive, string N
     public override IReadOnlyList<string> Nodes => [Positive, Negative];
 
     public double CurrentAmperesAt(double temperatureCelsius) =>
-        CurrentAt25CelsiusAmperes * Math.Pow(2, (temperatureCelsius - 25) / DoublingKelvin);
+        CurrentAt25CelsiusAmperes * Math.Exp(Math.Log(2) * (temperatureCelsius - 25) / DoublingKelvin);
 
     internal override void Validate()
     {

@@ -17,7 +17,7 @@ public static class DcSweep
     public static DcSweepResult Temperature(Circuit circuit, IReadOnlyList<double> temperaturesCelsius)
     {
         foreach (var t in temperaturesCelsius)
-            _ = circuit with { TemperatureCelsius = t };
+            Circuit.CheckTemperature(t);
         TopologyCheck.Run(circuit);
         var system = new BoundSystem(circuit);
         return Run(system, temperaturesCelsius, TemperatureAnalysisName, "temperature (°C)",
