@@ -101,7 +101,7 @@ public sealed class TransientSimulation
             if (options.FixedStepSeconds is { } fixedStep)
                 h = fixedStep >= span - Epsilon(stop) ? span : fixedStep;
             else if (sinceBreak == 1)
-                h = Math.Max(ProbeFraction * Math.Min(span, maxStep), 1e3 * Epsilon(TimeSeconds));
+                h = Math.Min(span, Math.Max(ProbeFraction * Math.Min(span, maxStep), Math.Max(1e3 * Epsilon(TimeSeconds), options.MinStepSeconds)));
             else
             {
                 h = Math.Min(proposedStep > 0 ? proposedStep : span * 1e-3, maxStep);
@@ -181,9 +181,10 @@ public sealed class TransientSimulation
         var probe = sinceBreak == 1 && options.FixedStepSeconds is null;
         var backwardEuler = sinceBreak <= 2 || options.Method == IntegrationMethod.BackwardEuler;
         var order = backwardEuler ? 1 : 2;
+        var retried = false;
         while (true)
         {
-            if (h < options.MinStepSeconds)
+            if (retried && h < options.MinStepSeconds)
                 throw new ConvergenceException(
                     $"{AnalysisName} at t = {TimeSeconds:G9} s: the step fell below {options.MinStepSeconds:G3} s. " +
                     "Check for ideal steps into capacitors (give sources a rise time) or loosen the tolerances.",
@@ -202,6 +203,7 @@ public sealed class TransientSimulation
                     throw new ConvergenceException($"{AnalysisName} at t = {tNew:G9} s: the solution is not finite at '{Name(worst)}'.",
                         AnalysisName, null, tNew, Name(worst));
                 rejectedSteps++;
+                retried = true;
                 h /= 8;
                 continue;
             }
@@ -211,6 +213,7 @@ public sealed class TransientSimulation
             if (ratio > 1)
             {
                 rejectedSteps++;
+                retried = true;
                 h *= Math.Max(1e-3, 0.9 * Math.Pow(ratio, -1.0 / (order + 1)));
                 continue;
             }

@@ -111,4 +111,20 @@ public class TransientMoreTests
         simulation.AdvanceTo(1e-6);
         Assert.Throws<CircuitException>(() => Transient.Run(b, new TransientOptions { StopTimeSeconds = 2e-6 }, simulation.CaptureState()));
     }
+
+    [Fact]
+    public void A_step_that_cannot_meet_its_tolerance_above_the_minimum_step_names_time_and_analysis()
+    {
+        var circuit = new CircuitBuilder()
+            .VoltageSource("V1", "in", "0", new PulseWaveform(0, 1, 1e-6, 1e-9, 1e-9, 1, 0))
+            .Resistor("R1", "in", "out", 1e3)
+            .Capacitor("C1", "out", "0", 1e-12)
+            .Build();
+        // τ = 1 ns cannot be followed to reltol 1e-6 with steps of at least 0.1 µs.
+        var e = Assert.Throws<ConvergenceException>(() => Transient.Run(circuit,
+            new TransientOptions { StopTimeSeconds = 5e-6, MinStepSeconds = 1e-7 }));
+        Assert.Equal(TransientSimulation.AnalysisName, e.Analysis);
+        Assert.NotNull(e.TimeSeconds);
+        Assert.True(e.TimeSeconds >= 1e-6, "fails once the pulse rises");
+    }
 }
