@@ -163,4 +163,29 @@ public class TransientMoreTests
         // Each sample approaches the divider's 1.65 V as the reservoir recovers (successive differences shrink).
         Assert.True(Math.Abs(samples[^1] - samples[^2]) < Math.Abs(samples[1] - samples[0]));
     }
+
+    [Fact]
+    public void Lc_tank_started_from_an_inductor_current_swings_to_i0_times_root_l_over_c()
+    {
+        const double l = 1e-3, c = 1e-6, i0 = 1e-3;
+        var w = 1 / Math.Sqrt(l * c);
+        var quarter = Math.PI / (2 * w);
+        var circuit = new CircuitBuilder()
+            .Add(new Inductor("L1", "x", "0", l, i0))
+            .Capacitor("C1", "x", "0", c, 0)
+            .Build();
+        var result = Transient.Run(circuit, new TransientOptions
+        {
+            StopTimeSeconds = 4 * quarter,
+            UseInitialConditions = true,
+            OutputTimesSeconds = [quarter, 2 * quarter, 3 * quarter],
+        });
+        // Lossless LC: C·dv/dt = −i_L, v(t) = −I0·√(L/C)·sin(ωt), ω = 1/√(LC) (energy exchange, textbook).
+        var peak = i0 * Math.Sqrt(l / c);
+        Tolerance.AssertClose(-peak, result.VoltageAt("x", quarter), 1e-4);
+        Tolerance.AssertClose(0, result.VoltageAt("x", 2 * quarter), 0, 1e-4 * peak);
+        Tolerance.AssertClose(peak, result.VoltageAt("x", 3 * quarter), 1e-4);
+        // After a full period the current is back to I0: i_L(t) = I0·cos(ωt).
+        Tolerance.AssertClose(i0, result.Current("L1")[^1], 1e-4);
+    }
 }
