@@ -16,6 +16,10 @@ public static class CliApp
         {
             SensorCommand.Create(),
             FitCommand.Create(),
+            ValidateCommand.Create(),
+            CheckCommand.Create(),
+            TableCommand.Create(),
+            VerifyTableCommand.Create(),
         };
         if (args.Length == 0)
         {

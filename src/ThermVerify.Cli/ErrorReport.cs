@@ -1,6 +1,10 @@
+using ThermVerify.Design;
+using ThermVerify.Firmware;
 using ThermVerify.Quantities;
 using ThermVerify.Reporting;
 using ThermVerify.Sensors;
+using ThermVerify.Simulation;
+using ThermVerify.Circuits;
 
 namespace ThermVerify.Cli;
 
@@ -25,9 +29,12 @@ public static class ErrorReport
     public static int ExitCodeFor(Exception exception) => exception switch
     {
         OperationCanceledException => ExitCodes.BadInput,
-        UsageException or QuantityFormatException or SensorFitException => ExitCodes.BadInput,
+        FirmwareInputException or TableFormatException => ExitCodes.BadInput,
+        DesignException or UsageException or QuantityFormatException or SensorFitException => ExitCodes.BadInput,
         SensorRangeException or SensorTableException or OutputExistsException => ExitCodes.BadInput,
         FileNotFoundException or DirectoryNotFoundException or UnauthorizedAccessException => ExitCodes.BadInput,
+        SimulationException => ExitCodes.SimulationFailed,
+        CircuitException => ExitCodes.SimulationFailed,
         _ => ExitCodes.InternalError,
     };
 }

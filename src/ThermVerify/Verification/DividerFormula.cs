@@ -1,14 +1,6 @@
+using ThermVerify.Design;
+
 namespace ThermVerify.Verification;
-
-/// <summary>Where the sensor sits in the divider.</summary>
-public enum SensorSide
-{
-    /// <summary>Sensor between the excitation and the ADC node; the fixed resistor to ground.</summary>
-    High,
-
-    /// <summary>Sensor between the ADC node and ground; the fixed resistor to the excitation.</summary>
-    Low,
-}
 
 /// <summary>The unloaded divider and its inverse (Ohm's law), as hand calculations and firmware assume.</summary>
 public static class DividerFormula

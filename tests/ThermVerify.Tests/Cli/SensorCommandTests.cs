@@ -56,3 +56,35 @@ public class SensorCommandTests
         Assert.Matches(@"^\d+\.\d+\.\d+", run.Output);
     }
 }
+
+public class ValidateCommandTests
+{
+    private static string Example(string name) =>
+        Path.Combine(AppContext.BaseDirectory, "..", "..", "..", "..", "..", "netlists", name);
+
+    [Fact]
+    public void Validate_prints_the_normalised_design_with_defaults_explicit()
+    {
+        var run = CliRunner.Run("validate", Example("cold-storage-logger.toml"));
+        Assert.Equal(ExitCodes.Success, run.ExitCode);
+        Assert.Contains("settle_limit = \"0.01 LSB\"", run.Output);
+    }
+
+    [Fact]
+    public void Validate_names_file_line_and_column_of_an_unknown_key()
+    {
+        var path = Path.Combine(Path.GetTempPath(), $"tv-{Guid.NewGuid():N}.toml");
+        File.WriteAllText(path, "name = \"x\"\n[sensor]\nmodel = \"beta\"\nr25 = \"10k\"\nbeta = 3950\nbetta = 1\n");
+        try
+        {
+            var run = CliRunner.Run("validate", path);
+            Assert.Equal(ExitCodes.BadInput, run.ExitCode);
+            Assert.Contains(":6:1: sensor.betta", run.Error);
+            Assert.Contains("\"beta\"", run.Error);
+        }
+        finally
+        {
+            File.Delete(path);
+        }
+    }
+}

@@ -1,0 +1,59 @@
+using ThermVerify.Quantities;
+
+namespace ThermVerify.Design;
+
+/// <summary>Reads [adc].</summary>
+internal static class AdcReader
+{
+    private static readonly Dictionary<string, PrechargeMode> Precharges = new()
+    {
+        ["last-sample"] = PrechargeMode.LastSample,
+        ["other-channel"] = PrechargeMode.OtherChannel,
+        ["discharged"] = PrechargeMode.Discharged,
+    };
+
+    private static readonly string[] Keys =
+    [
+        "bits", "reference", "reference_tolerance", "sample_rate", "acquisition_time", "sampling_capacitance",
+        "switch_resistance", "pin_capacitance", "pin_leakage", "pin_leakage_temperature", "leakage_doubling",
+        "offset_error", "gain_error", "inl", "precharge", "precharge_voltage",
+    ];
+
+    public static AdcSpec Read(TomlSection s)
+    {
+        s.AllowOnly(Keys);
+        var bits = s.Integer("bits") ?? throw s.Missing("bits", "Write bits = 12.");
+        if (bits is < DesignDefaults.MinBits or > DesignDefaults.MaxBits)
+            throw s.ErrorAtValue("bits", $"{bits} bits is outside {DesignDefaults.MinBits}..{DesignDefaults.MaxBits}", "Give the converter's resolution, e.g. bits = 12.");
+        var referenceText = s.RequiredString("reference", "Write reference = \"3.3 V\", or \"ratiometric\" when the ADC reference is the divider's excitation.");
+        double? referenceVolts = referenceText == "ratiometric" ? null : s.Quantity("reference", Bound.Positive, UnitKind.Volt)!.Value.Value;
+        var sampleRate = s.RequiredValue("sample_rate", Bound.Positive, "Write sample_rate = \"10 kHz\" (conversions per second on this channel's converter).", UnitKind.Hertz);
+        var acquisition = s.RequiredValue("acquisition_time", Bound.Positive, "Write acquisition_time = \"1.5 us\".", UnitKind.Second);
+        if (acquisition >= 1 / sampleRate)
+            throw s.ErrorAtValue("acquisition_time", $"{EngineeringFormat.Format(acquisition, UnitKind.Second)} is not shorter than the sample period {EngineeringFormat.Format(1 / sampleRate, UnitKind.Second)}",
+                "The acquisition window must fit inside one sample period: shorten it or lower sample_rate.");
+        var precharge = s.Choice("precharge", Precharges) ?? PrechargeMode.LastSample;
+        var prechargeVolts = s.Quantity("precharge_voltage", Bound.Any, UnitKind.Volt)?.Value;
+        if (prechargeVolts is not null && precharge != PrechargeMode.OtherChannel)
+            throw s.ErrorAtKey("precharge_voltage", "precharge_voltage applies only to precharge = \"other-channel\"", "Remove it, or set precharge = \"other-channel\".");
+        return new AdcSpec
+        {
+            Bits = (int)bits,
+            ReferenceVolts = referenceVolts,
+            ReferenceTolerance = SensorReader.Tolerance(s, "reference_tolerance"),
+            SampleRateHertz = sampleRate,
+            AcquisitionTimeSeconds = acquisition,
+            SamplingCapacitanceFarads = s.RequiredValue("sampling_capacitance", Bound.Positive, "Write sampling_capacitance = \"5 pF\".", UnitKind.Farad),
+            SwitchResistanceOhms = s.RequiredValue("switch_resistance", Bound.NonNegative, "Write switch_resistance = \"1 kohm\" (sampling switch on-resistance).", UnitKind.Ohm),
+            PinCapacitanceFarads = s.ValueOr("pin_capacitance", 0, Bound.NonNegative, UnitKind.Farad),
+            PinLeakageAmperes = s.ValueOr("pin_leakage", 0, Bound.Any, UnitKind.Ampere),
+            PinLeakageCelsius = s.ValueOr("pin_leakage_temperature", DesignDefaults.PinLeakageCelsius, Bound.Any, UnitKind.Celsius),
+            LeakageDoublingKelvin = s.ValueOr("leakage_doubling", DesignDefaults.LeakageDoublingKelvin, Bound.Positive, UnitKind.Kelvin),
+            OffsetErrorLsb = s.ValueOr("offset_error", 0, Bound.Any, UnitKind.Lsb),
+            GainError = s.ValueOr("gain_error", 0, Bound.Any, UnitKind.Percent, UnitKind.Ppm),
+            InlLsb = s.ValueOr("inl", 0, Bound.NonNegative, UnitKind.Lsb),
+            Precharge = precharge,
+            PrechargeVolts = prechargeVolts,
+        };
+    }
+}

@@ -1,0 +1,42 @@
+namespace ThermVerify.Design;
+
+public enum BufferTopology { Follower, NonInverting }
+
+/// <summary>A closed interval of voltage.</summary>
+public readonly record struct VoltageRange(double MinVolts, double MaxVolts);
+
+/// <summary>A vendor subcircuit for the op-amp, used by SPICE export; <see cref="FullPath"/> is resolved against the design's folder.</summary>
+public sealed record SubcircuitRef(string File, string FullPath, string Name);
+
+/// <summary>
+/// An op-amp buffer between the divider and the filter. Error terms default to zero (ideal); properties that are null
+/// are not modelled (e.g. no slew-rate limit when <see cref="SlewRateVoltsPerSecond"/> is null).
+/// </summary>
+public sealed record BufferSpec
+{
+    public BufferTopology Topology { get; init; } = BufferTopology.Follower;
+    /// <summary>Closed-loop gain; 1 for a follower.</summary>
+    public double Gain { get; init; } = 1;
+    public required double GainBandwidthHertz { get; init; }
+    public double? DcGainDecibels { get; init; }
+    public double OutputResistanceOhms { get; init; }
+    public double OffsetVolts { get; init; }
+    public double OffsetDriftVoltsPerKelvin { get; init; }
+    /// <summary>Positive flows into the input pin.</summary>
+    public double BiasCurrentAmperes { get; init; }
+    public double OffsetCurrentAmperes { get; init; }
+    public required VoltageRange Supply { get; init; }
+    /// <summary>How close the output gets to each rail.</summary>
+    public double OutputSwingVolts { get; init; }
+    /// <summary>Null: the inputs work rail to rail.</summary>
+    public VoltageRange? InputCommonMode { get; init; }
+    public double? SlewRateVoltsPerSecond { get; init; }
+    public double NoiseVoltsPerRootHertz { get; init; }
+    public double NoiseAmperesPerRootHertz { get; init; }
+    /// <summary>1/f corner of the voltage noise; null: white noise only.</summary>
+    public double? NoiseCornerHertz { get; init; }
+    /// <summary>Resistor outside the loop between the output and the filter; 0 = none.</summary>
+    public double IsolationResistorOhms { get; init; }
+    public double MinimumPhaseMarginDegrees { get; init; } = DesignDefaults.MinimumPhaseMarginDegrees;
+    public SubcircuitRef? Subcircuit { get; init; }
+}

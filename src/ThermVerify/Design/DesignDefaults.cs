@@ -1,0 +1,18 @@
+namespace ThermVerify.Design;
+
+/// <summary>Defaults for keys a design file may leave out; docs/design-file.md lists the same values.</summary>
+public static class DesignDefaults
+{
+    /// <summary>Tolerances and tempcos left out are taken as zero: the nominal design.</summary>
+    public const double Tolerance = 0;
+    public const double ReferenceCelsius = 25;
+    public const double BetaFromCelsius = 25;
+    public const double BetaToCelsius = 85;
+    public const double StepKelvin = 1;
+    public const double SettleLimitLsb = 0.01;
+    public const double LeakageDoublingKelvin = 10;
+    public const double PinLeakageCelsius = 25;
+    public const double MinimumPhaseMarginDegrees = 45;
+    public const int MinBits = 6;
+    public const int MaxBits = 24;
+}

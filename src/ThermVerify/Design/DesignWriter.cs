@@ -1,0 +1,216 @@
+using System.Globalization;
+using System.Text;
+using ThermVerify.Quantities;
+using ThermVerify.Sensors;
+
+namespace ThermVerify.Design;
+
+/// <summary>
+/// Prints a design back as TOML with every default made explicit and values in engineering notation, each printed
+/// with just enough digits to load back to the same double. Keys with no default (not modelled) are left out.
+/// </summary>
+public static class DesignWriter
+{
+    public static string ToToml(FrontEndDesign design)
+    {
+        var w = new Writer();
+        w.Text("name", design.Name);
+        if (design.Description is not null)
+            w.Text("description", design.Description);
+        WriteSensor(w, design.Sensor);
+        WriteDivider(w, design.Divider);
+        if (design.Buffer is not null)
+            WriteBuffer(w, design.Buffer);
+        w.Section("filter");
+        w.Value("series_resistor", design.Filter.SeriesResistorOhms, UnitKind.Ohm);
+        w.Value("reservoir_capacitor", design.Filter.ReservoirCapacitorFarads, UnitKind.Farad);
+        WriteAdc(w, design.Adc);
+        WriteCheck(w, design.Check);
+        return w.ToString();
+    }
+
+    private static void WriteSensor(Writer w, SensorSpec sensor)
+    {
+        w.Section("sensor");
+        w.Text("model", sensor.ModelName);
+        switch (sensor)
+        {
+            case BetaSensorSpec b:
+                if (b.ReferenceCelsius == 25)
+                    w.Value("r25", b.R0Ohms, UnitKind.Ohm);
+                else
+                {
+                    w.Value("r0", b.R0Ohms, UnitKind.Ohm);
+                    w.Value("reference_temperature", b.ReferenceCelsius, UnitKind.Celsius);
+                }
+                w.Number("beta", b.BetaKelvin);
+                w.Range("beta_between", b.BetaFromCelsius, b.BetaToCelsius, UnitKind.Celsius);
+                w.Value("resistance_tolerance", b.ResistanceTolerance, UnitKind.Percent);
+                w.Value("beta_tolerance", b.BetaTolerance, UnitKind.Percent);
+                WriteValidRange(w, b.ValidRange);
+                break;
+            case SteinhartHartSensorSpec sh:
+                w.Number("a", sh.A);
+                w.Number("b", sh.B);
+                w.Number("c", sh.C);
+                w.Number("d", sh.D);
+                w.Value("resistance_tolerance", sh.ResistanceTolerance, UnitKind.Percent);
+                WriteValidRange(w, sh.ValidRange);
+                break;
+            case TableSensorSpec t:
+                w.Text("file", t.File);
+                w.Value("resistance_tolerance", t.ResistanceTolerance, UnitKind.Percent);
+                break;
+            case RtdSensorSpec r:
+                w.Value("r0", r.R0Ohms, UnitKind.Ohm);
+                if (r.ToleranceClass is { } c)
+                    w.Text("class", c.ToString());
+                w.Number("a", r.A);
+                w.Number("b", r.B);
+                w.Number("c", r.C);
+                break;
+            default:
+                throw new ArgumentException($"unknown sensor spec {sensor.GetType().Name}", nameof(sensor));
+        }
+        if (sensor.DissipationConstantWattsPerKelvin is { } d)
+            w.Value("dissipation_constant", d, UnitKind.WattPerKelvin);
+    }
+
+    private static void WriteValidRange(Writer w, TemperatureRange? range)
+    {
+        if (range is { } r)
+            w.Range("valid_range", r.MinCelsius, r.MaxCelsius, UnitKind.Celsius);
+    }
+
+    private static void WriteDivider(Writer w, DividerSpec d)
+    {
+        w.Section("divider");
+        w.Text("sensor_side", d.SensorSide == SensorSide.High ? "high" : "low");
+        w.Value("fixed_resistor", d.FixedResistorOhms, UnitKind.Ohm);
+        w.Value("fixed_tolerance", d.FixedTolerance, UnitKind.Percent);
+        w.Value("fixed_tempco", d.FixedTempcoPerKelvin, UnitKind.PpmPerKelvin);
+        w.Value("excitation", d.ExcitationVolts, UnitKind.Volt);
+        w.Value("excitation_tolerance", d.ExcitationTolerance, UnitKind.Percent);
+    }
+
+    private static void WriteBuffer(Writer w, BufferSpec b)
+    {
+        w.Section("buffer");
+        w.Text("topology", b.Topology == BufferTopology.Follower ? "follower" : "non-inverting");
+        w.Number("gain", b.Gain);
+        w.Value("gain_bandwidth", b.GainBandwidthHertz, UnitKind.Hertz);
+        if (b.DcGainDecibels is { } dc)
+            w.Value("dc_gain", dc, UnitKind.Decibel);
+        w.Value("output_resistance", b.OutputResistanceOhms, UnitKind.Ohm);
+        w.Value("offset_voltage", b.OffsetVolts, UnitKind.Volt);
+        w.Value("offset_drift", b.OffsetDriftVoltsPerKelvin, UnitKind.VoltPerKelvin);
+        w.Value("bias_current", b.BiasCurrentAmperes, UnitKind.Ampere);
+        w.Value("offset_current", b.OffsetCurrentAmperes, UnitKind.Ampere);
+        w.Range("supply", b.Supply.MinVolts, b.Supply.MaxVolts, UnitKind.Volt);
+        w.Value("output_swing", b.OutputSwingVolts, UnitKind.Volt);
+        if (b.InputCommonMode is { } cm)
+            w.Range("input_common_mode", cm.MinVolts, cm.MaxVolts, UnitKind.Volt);
+        if (b.SlewRateVoltsPerSecond is { } sr)
+            w.Value("slew_rate", sr, UnitKind.VoltPerSecond);
+        w.Value("noise_voltage", b.NoiseVoltsPerRootHertz, UnitKind.VoltPerRootHertz);
+        w.Value("noise_current", b.NoiseAmperesPerRootHertz, UnitKind.AmperePerRootHertz);
+        if (b.NoiseCornerHertz is { } nc)
+            w.Value("noise_corner", nc, UnitKind.Hertz);
+        w.Value("isolation_resistor", b.IsolationResistorOhms, UnitKind.Ohm);
+        w.Value("minimum_phase_margin", b.MinimumPhaseMarginDegrees, UnitKind.Degree);
+        if (b.Subcircuit is { } sub)
+        {
+            w.Text("subckt_file", sub.File);
+            w.Text("subckt_name", sub.Name);
+        }
+    }
+
+    private static void WriteAdc(Writer w, AdcSpec a)
+    {
+        w.Section("adc");
+        w.Integer("bits", a.Bits);
+        if (a.ReferenceVolts is { } vref)
+            w.Value("reference", vref, UnitKind.Volt);
+        else
+            w.Text("reference", "ratiometric");
+        w.Value("reference_tolerance", a.ReferenceTolerance, UnitKind.Percent);
+        w.Value("sample_rate", a.SampleRateHertz, UnitKind.Hertz);
+        w.Value("acquisition_time", a.AcquisitionTimeSeconds, UnitKind.Second);
+        w.Value("sampling_capacitance", a.SamplingCapacitanceFarads, UnitKind.Farad);
+        w.Value("switch_resistance", a.SwitchResistanceOhms, UnitKind.Ohm);
+        w.Value("pin_capacitance", a.PinCapacitanceFarads, UnitKind.Farad);
+        w.Value("pin_leakage", a.PinLeakageAmperes, UnitKind.Ampere);
+        w.Value("pin_leakage_temperature", a.PinLeakageCelsius, UnitKind.Celsius);
+        w.Value("leakage_doubling", a.LeakageDoublingKelvin, UnitKind.Kelvin);
+        w.Value("offset_error", a.OffsetErrorLsb, UnitKind.Lsb);
+        w.Value("gain_error", a.GainError, UnitKind.Percent);
+        w.Value("inl", a.InlLsb, UnitKind.Lsb);
+        w.Text("precharge", a.Precharge switch
+        {
+            PrechargeMode.LastSample => "last-sample",
+            PrechargeMode.OtherChannel => "other-channel",
+            _ => "discharged",
+        });
+        if (a.PrechargeVolts is { } pv)
+            w.Value("precharge_voltage", pv, UnitKind.Volt);
+    }
+
+    private static void WriteCheck(Writer w, CheckSpec c)
+    {
+        w.Section("check");
+        w.Range("range", c.Range.MinCelsius, c.Range.MaxCelsius, UnitKind.Celsius);
+        w.Value("step", c.StepKelvin, UnitKind.Kelvin);
+        w.Value("budget", c.BudgetKelvin, UnitKind.Kelvin);
+        w.Value("settle_limit", c.SettleLimitLsb, UnitKind.Lsb);
+        if (c.BoardCelsius is { } board)
+            w.Value("board_temperature", board, UnitKind.Celsius);
+        foreach (var region in c.Regions)
+        {
+            w.Section("[check.region]");
+            w.Range("range", region.Range.MinCelsius, region.Range.MaxCelsius, UnitKind.Celsius);
+            w.Value("budget", region.BudgetKelvin, UnitKind.Kelvin);
+        }
+    }
+
+    private sealed class Writer
+    {
+        private readonly StringBuilder _text = new();
+
+        public void Section(string name) => _text.Append('\n').Append('[').Append(name).Append("]\n");
+
+        public void Text(string key, string value) => Line(key, Quote(value));
+
+        public void Value(string key, double value, UnitKind unit) => Line(key, Quote(EngineeringFormat.FormatExact(value, unit)));
+
+        public void Range(string key, double min, double max, UnitKind unit) =>
+            Line(key, Quote($"{EngineeringFormat.FormatExact(min, unit)} .. {EngineeringFormat.FormatExact(max, unit)}"));
+
+        public void Number(string key, double value) => Line(key, value.ToString("R", CultureInfo.InvariantCulture));
+
+        public void Integer(string key, int value) => Line(key, value.ToString(CultureInfo.InvariantCulture));
+
+        private void Line(string key, string value) => _text.Append(key).Append(" = ").Append(value).Append('\n');
+
+        /// <summary>A TOML basic string.</summary>
+        private static string Quote(string value)
+        {
+            var b = new StringBuilder("\"");
+            foreach (var ch in value)
+            {
+                b.Append(ch switch
+                {
+                    '"' => "\\\"",
+                    '\\' => "\\\\",
+                    '\n' => "\\n",
+                    '\t' => "\\t",
+                    '\r' => "\\r",
+                    < ' ' or '\u007F' => $"\\u{(int)ch:X4}",
+                    _ => ch.ToString(),
+                });
+            }
+            return b.Append('"').ToString();
+        }
+
+        public override string ToString() => _text.ToString();
+    }
+}

@@ -1,0 +1,30 @@
+namespace ThermVerify.Firmware;
+
+/// <summary>
+/// Worst-case spreads for fault thresholds, each a ± fraction (0.01 = ±1 %).
+/// When <paramref name="ExcitationTracksReference"/> is true the divider and the ADC share one reference
+/// (a ratiometric front end), so their errors cancel in the code and only the fixed resistor's tolerance counts.
+/// </summary>
+public sealed record FaultTolerances(
+    double ExcitationFraction = 0,
+    double ReferenceFraction = 0,
+    double FixedResistorFraction = 0,
+    bool ExcitationTracksReference = false)
+{
+    public static readonly FaultTolerances None = new();
+
+    public FaultTolerances Validated()
+    {
+        Check(ExcitationFraction, "excitation");
+        Check(ReferenceFraction, "ADC reference");
+        Check(FixedResistorFraction, "fixed resistor");
+        return this;
+    }
+
+    private static void Check(double fraction, string what)
+    {
+        if (!(fraction >= 0 && fraction < 0.5))
+            throw new FirmwareInputException(FormattableString.Invariant(
+                $"The {what} tolerance is {fraction}; give a ± fraction from 0 up to 0.5 (0.01 means ±1 %)."));
+    }
+}

@@ -1,0 +1,60 @@
+using ThermVerify.Design;
+using System.Globalization;
+using ThermVerify.Sensors;
+using ThermVerify.Verification;
+
+namespace ThermVerify.Firmware;
+
+/// <summary>
+/// What firmware needs to know to turn an ADC code into a temperature: the sensor, the divider around it,
+/// the converter and the temperature range the table must cover.
+/// </summary>
+/// <param name="Range">Temperatures the table covers; must lie inside the sensor's valid range.</param>
+/// <param name="LoadingCorrectionVolts">
+/// Optional: the voltage the ADC node sits away from the unloaded divider (loaded minus unloaded), as a function
+/// of the unloaded divider voltage. Null means an unloaded divider. The true temperature at a code then solves
+/// V_unloaded + correction(V_unloaded) = code·Q.
+/// </param>
+public sealed record FirmwareModel(
+    ISensorModel Sensor,
+    SensorSide Side,
+    double FixedOhms,
+    double ExcitationVolts,
+    AdcTransfer Adc,
+    TemperatureRange Range,
+    Func<double, double>? LoadingCorrectionVolts = null)
+{
+    /// <summary>Throws <see cref="FirmwareInputException"/> naming the first parameter that cannot make a table.</summary>
+    public FirmwareModel Validated()
+    {
+        ArgumentNullException.ThrowIfNull(Sensor);
+        if (!(double.IsFinite(FixedOhms) && FixedOhms > 0))
+            throw new FirmwareInputException(Invariant($"The fixed resistor is {FixedOhms} Ω; give a positive finite resistance."));
+        if (!(double.IsFinite(ExcitationVolts) && ExcitationVolts > 0))
+            throw new FirmwareInputException(Invariant($"The excitation is {ExcitationVolts} V; give a positive finite voltage."));
+        if (Adc.Bits is < 1 or > 24)
+            throw new FirmwareInputException(Invariant($"The ADC has {Adc.Bits} bits; firmware tables support 1 to 24 bits."));
+        if (!(double.IsFinite(Adc.ReferenceVolts) && Adc.ReferenceVolts > 0))
+            throw new FirmwareInputException(Invariant($"The ADC reference is {Adc.ReferenceVolts} V; give a positive finite voltage."));
+        var valid = Sensor.ValidRange;
+        if (!(Range.MinCelsius < Range.MaxCelsius) || !valid.Contains(Range.MinCelsius) || !valid.Contains(Range.MaxCelsius))
+            throw new FirmwareInputException(
+                $"The table range {Range} must be a non-empty interval inside the sensor's valid range {valid}; narrow the table range.");
+        return this;
+    }
+
+    /// <summary>The voltage at the ADC node for a sensor at <paramref name="celsius"/>, with the loading correction if any.</summary>
+    public double NodeVolts(double celsius)
+    {
+        var unloaded = DividerFormula.OutputVolts(Side, ExcitationVolts, Sensor.ResistanceOhms(celsius), FixedOhms);
+        return LoadingCorrectionVolts is null ? unloaded : unloaded + LoadingCorrectionVolts(unloaded);
+    }
+
+    /// <summary>The same model with the sensor on the other side of the divider.</summary>
+    public FirmwareModel WithOtherSide() => this with { Side = Side == SensorSide.Low ? SensorSide.High : SensorSide.Low };
+
+    private static string Invariant(FormattableString s) => s.ToString(CultureInfo.InvariantCulture);
+}
+
+/// <summary>Input that cannot make or check a firmware table; the message says what and how to fix it.</summary>
+public sealed class FirmwareInputException(string message) : ArgumentException(message);

@@ -1,0 +1,125 @@
+using System.Reflection;
+using System.Text.Json;
+using System.Text.Json.Serialization;
+using ThermVerify.Verification;
+
+namespace ThermVerify.Reporting;
+
+/// <summary>
+/// The check result as JSON, schema "thermverify.check/1" (docs/json-output.md). Field names never change within a
+/// schema version; numbers are SI (V, Ω, K, °C, s, Hz); values that do not exist (a code no sensor can produce)
+/// are null, never NaN.
+/// </summary>
+public static class CheckJson
+{
+    public const string Schema = "thermverify.check/1";
+
+    private static readonly JsonSerializerOptions Options = new()
+    {
+        WriteIndented = true,
+        PropertyNamingPolicy = JsonNamingPolicy.CamelCase,
+        DefaultIgnoreCondition = JsonIgnoreCondition.Never,
+    };
+
+    public static string Write(CheckResult result, string? designPath = null) =>
+        JsonSerializer.Serialize(ToDocument(result, designPath), Options);
+
+    private static object ToDocument(CheckResult r, string? designPath) => new
+    {
+        schema = Schema,
+        tool = new { name = "thermverify", version = ToolVersion() },
+        design = new { name = r.Design.Name, file = designPath, sensor = r.SensorDescription },
+        verdict = new
+        {
+            passed = r.Passed,
+            worstCelsius = r.Worst.Celsius,
+            worstErrorKelvin = N(r.Worst.ErrorKelvin),
+            worstBudgetKelvin = r.Worst.BudgetKelvin,
+            pointsOverBudget = r.Points.Count(p => !p.WithinBudget),
+            points = r.Points.Count,
+            failFindings = r.Findings.Count(f => f.Severity == Severity.Fail),
+        },
+        conventions = new
+        {
+            adcTransfer = "Q = Vref/2^N; code = round(V/Q) clamped to 0..2^N-1; firmware maps code to V = code*Q (IEEE Std 1241 ideal converter)",
+            error = "reported minus true temperature, in K",
+            sample = "the worse of the first conversion (from the settled pin) and the steady state",
+        },
+        adc = new { bits = r.Adc.Bits, referenceVolts = r.Adc.ReferenceVolts, lsbVolts = r.Adc.LsbVolts },
+        points = r.Points.Select(p => new
+        {
+            celsius = p.Celsius,
+            sensorOhms = p.SensorOhms,
+            idealVolts = p.IdealVolts,
+            dividerVolts = p.DividerVolts,
+            staticPinVolts = p.StaticPinVolts,
+            dcPinVolts = p.DcPinVolts,
+            firstSampleVolts = p.FirstSampleVolts,
+            steadySampleVolts = p.SteadySampleVolts,
+            prechargeVolts = p.PrechargeVolts,
+            samplingSimulated = p.SamplingSimulated,
+            code = p.Code,
+            reportedCelsius = N(p.ReportedCelsius),
+            errorKelvin = N(p.ErrorKelvin),
+            budgetKelvin = p.BudgetKelvin,
+            withinBudget = p.WithinBudget,
+            kelvinPerLsb = p.KelvinPerLsb,
+            contributionsKelvin = new
+            {
+                quantisation = N(p.Contributions.QuantisationKelvin),
+                dcLoading = N(p.Contributions.DcLoadingKelvin),
+                settling = N(p.Contributions.SettlingKelvin),
+                buffer = N(p.Contributions.BufferKelvin),
+                rest = N(p.Contributions.RestKelvin),
+            },
+            simulatedVolts = new
+            {
+                staticLoading = p.Simulated.StaticLoadingVolts,
+                averageSampling = p.Simulated.AverageSamplingVolts,
+                buffer = p.Simulated.BufferVolts,
+                firstSettling = p.Simulated.FirstSettlingVolts,
+                steadySettling = p.Simulated.SteadySettlingVolts,
+            },
+            estimatedVolts = new
+            {
+                sourceOhms = p.Estimates.SourceOhms,
+                fixedDrift = p.Estimates.FixedDriftVolts,
+                leakage = p.Estimates.LeakageVolts,
+                biasCurrent = p.Estimates.BiasCurrentVolts,
+                averageSampling = p.Estimates.AverageSamplingVolts,
+                firstConversion = p.Estimates.FirstConversionVolts,
+                steadySettling = p.Estimates.SteadySettlingVolts,
+            },
+        }),
+        sampling = r.Sampling.Select(s => new
+        {
+            celsius = s.Celsius,
+            prechargeVolts = s.PrechargeVolts,
+            firstVolts = s.FirstVolts,
+            steadyVolts = s.SteadyVolts,
+            conversions = s.ConversionsSimulated,
+            extrapolated = s.Extrapolated,
+        }),
+        findings = r.Findings.Select(f => new
+        {
+            id = f.Id,
+            severity = f.Severity.ToString().ToLowerInvariant(),
+            title = f.Title,
+            fromCelsius = f.FromCelsius,
+            toCelsius = f.ToCelsius,
+            worstCelsius = f.WorstCelsius,
+            sizeVolts = N(f.SizeVolts),
+            sizeLsb = N(f.SizeLsb),
+            sizeKelvin = N(f.SizeKelvin),
+            cause = f.Cause,
+            estimateVolts = N(f.EstimateVolts),
+            simulatedVolts = N(f.SimulatedVolts),
+            remedies = f.Remedies.Select(m => new { key = m.Key, action = m.Action, value = N(m.Value), unit = m.Unit, method = m.Method }),
+        }),
+    };
+
+    private static double? N(double? value) => value is { } v && double.IsFinite(v) ? v : null;
+
+    public static string ToolVersion() =>
+        typeof(CheckJson).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion ?? "unknown";
+}

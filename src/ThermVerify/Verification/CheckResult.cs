@@ -1,0 +1,32 @@
+using ThermVerify.Design;
+
+namespace ThermVerify.Verification;
+
+/// <summary>How a check is run; the defaults suit a CI run on a small machine.</summary>
+public sealed record CheckOptions
+{
+    /// <summary>At most this many temperatures get a sampling transient (every point when the sweep has fewer).</summary>
+    public int MaximumSamplingPoints { get; init; } = 41;
+
+    public int Threads { get; init; } = Environment.ProcessorCount;
+
+    /// <summary>Search for remedies (extra simulations at the worst temperature) when a finding needs one.</summary>
+    public bool ComputeRemedies { get; init; } = true;
+
+    public CancellationToken Cancel { get; init; }
+}
+
+/// <summary>Everything `check` found: every point of the sweep, the sampling runs, the findings and the verdict.</summary>
+public sealed record CheckResult(
+    FrontEndDesign Design,
+    string SensorDescription,
+    AdcTransfer Adc,
+    IReadOnlyList<CheckPoint> Points,
+    IReadOnlyList<SamplingOutcome> Sampling,
+    IReadOnlyList<Finding> Findings)
+{
+    public bool Passed => Points.All(p => p.WithinBudget) && Findings.All(f => f.Severity != Severity.Fail);
+
+    /// <summary>The point with the largest reported error (an unreadable code counts as the largest).</summary>
+    public CheckPoint Worst => Points.MaxBy(p => double.IsFinite(p.ErrorKelvin) ? Math.Abs(p.ErrorKelvin) : double.PositiveInfinity)!;
+}

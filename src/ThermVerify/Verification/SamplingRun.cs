@@ -1,0 +1,83 @@
+using ThermVerify.Design;
+using ThermVerify.Simulation;
+
+namespace ThermVerify.Verification;
+
+/// <summary>Successive conversions at one temperature, from a settled front end, until the sampled value is stable.</summary>
+public sealed record SamplingOutcome(
+    double Celsius,
+    double? PrechargeVolts,
+    double FirstVolts,
+    double SteadyVolts,
+    int ConversionsSimulated,
+    bool Extrapolated,
+    IReadOnlyList<double> SampledVolts);
+
+/// <summary>
+/// Simulates conversion after conversion with the sampling circuit. The sampled value is the sampling capacitor's
+/// voltage when the switch opens. It is stable when successive samples differ by less than the settle limit
+/// three times running. For a linear front end the samples then approach their limit geometrically (one slow mode,
+/// the reservoir, dominates); when the ratio of successive differences has been steady for three conversions the
+/// limit is extrapolated as s_n + Δ_n·r/(1 − r) (Aitken's Δ² process) instead of simulating hundreds of periods,
+/// and the outcome says so.
+/// </summary>
+public static class SamplingRun
+{
+    public const int DefaultMaximumConversions = 20000;
+
+    /// <summary>The first conversion alone, from the settled front end.</summary>
+    public static double FirstSampleVolts(FrontEndDesign design, double celsius, double? prechargeVolts, double settleVolts)
+    {
+        var simulation = Start(design, celsius, prechargeVolts, settleVolts, conversions: 1);
+        simulation.AdvanceTo(FrontEndCircuit.SampleTimeSeconds(design, 0));
+        return simulation.Voltage(FrontEndNodes.Hold);
+    }
+
+    public static SamplingOutcome Run(FrontEndDesign design, double celsius, double? prechargeVolts, double settleVolts,
+        int maximumConversions = DefaultMaximumConversions, CancellationToken cancel = default)
+    {
+        var simulation = Start(design, celsius, prechargeVolts, settleVolts, maximumConversions);
+
+        var samples = new List<double>();
+        var stableRuns = 0;
+        var steadyRatioRuns = 0;
+        for (var k = 0; k < maximumConversions; k++)
+        {
+            cancel.ThrowIfCancellationRequested();
+            simulation.AdvanceTo(FrontEndCircuit.SampleTimeSeconds(design, k));
+            samples.Add(simulation.Voltage(FrontEndNodes.Hold));
+            if (k == 0) continue;
+
+            var delta = samples[k] - samples[k - 1];
+            stableRuns = Math.Abs(delta) < settleVolts ? stableRuns + 1 : 0;
+            if (stableRuns >= 3) return Outcome(samples[k], extrapolated: false);
+            if (k < 3) continue;
+
+            var previousDelta = samples[k - 1] - samples[k - 2];
+            var ratio = delta / previousDelta;
+            var earlierRatio = previousDelta / (samples[k - 2] - samples[k - 3]);
+            steadyRatioRuns = ratio is > 0 and < 0.999 && Math.Abs(ratio - earlierRatio) < 1e-3 * ratio ? steadyRatioRuns + 1 : 0;
+            if (steadyRatioRuns >= 3) return Outcome(samples[k] + delta * ratio / (1 - ratio), extrapolated: true);
+        }
+        throw new SimulationException(
+            $"Sampling at {celsius:0.##} °C did not settle to {settleVolts * 1e6:G3} µV within {maximumConversions} conversions " +
+            $"(last change {(samples[^1] - samples[^2]) * 1e6:G3} µV); loosen [check] settle_limit or check the front end for oscillation.");
+
+        SamplingOutcome Outcome(double steady, bool extrapolated) =>
+            new(celsius, prechargeVolts, samples[0], steady, samples.Count, extrapolated, samples);
+    }
+
+    private static TransientSimulation Start(FrontEndDesign design, double celsius, double? prechargeVolts, double settleVolts, int conversions)
+    {
+        var period = 1 / design.Adc.SampleRateHertz;
+        var circuit = FrontEndCircuit.Sampling(design, prechargeVolts, conversions) with { TemperatureCelsius = celsius };
+        return new TransientSimulation(circuit, new TransientOptions
+        {
+            StopTimeSeconds = conversions * period,
+            MaxStepSeconds = period / 4,
+            // Local errors a hundred times below the settle limit keep the sampled values exact to well within it.
+            RelativeTolerance = 1e-5,
+            VoltageToleranceVolts = Math.Max(settleVolts / 100, 1e-12),
+        });
+    }
+}
