@@ -58,4 +58,16 @@ public sealed record Diode(string Name, string Anode, string Cathode, double Sat
     }
 
     internal override Stamp Bind(BindContext context) => new DiodeStamp(this, context);
+
+    /// <summary>SPICE diode; without a reference temperature XTI = EG = 0 keep Is constant, as here.</summary>
+    internal override void WriteSpice(SpiceDeckBuilder deck)
+    {
+        var model = $"{Name}_model";
+        deck.Card($"{SpiceDeckBuilder.Name('D', Name)} {Anode} {Cathode} {model}");
+        var temperature = SaturationReferenceCelsius is { } reference
+            ? $"tnom={SpiceDeckBuilder.Number(reference)} xti={SpiceDeckBuilder.Number(SaturationExponent)} eg={SpiceDeckBuilder.Number(BandGapElectronVolts)}"
+            : "xti=0 eg=0";
+        deck.Model($".model {model} d is={SpiceDeckBuilder.Number(SaturationCurrentAmperes)} n={SpiceDeckBuilder.Number(EmissionCoefficient)} " +
+            $"rs={SpiceDeckBuilder.Number(SeriesResistanceOhms)} {temperature}");
+    }
 }

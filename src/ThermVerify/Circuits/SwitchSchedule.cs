@@ -13,6 +13,12 @@ public abstract record SwitchSchedule
     internal abstract void CollectEdges(double fromSeconds, double toSeconds, List<double> into);
 
     internal abstract void Validate(Element owner);
+
+    /// <summary>A SPICE source for a 0/1 V control node following the schedule with 1 ps edges.</summary>
+    internal abstract string ToSpiceControl();
+
+    /// <summary>Length of the control edges in the SPICE deck.</summary>
+    internal const double SpiceEdgeSeconds = 1e-12;
 }
 
 /// <summary>Closed during each listed [close, open) interval.</summary>
@@ -35,6 +41,21 @@ public sealed record IntervalSchedule(ImmutableArray<(double CloseSeconds, doubl
             if (c >= fromSeconds && c <= toSeconds) into.Add(c);
             if (o >= fromSeconds && o <= toSeconds) into.Add(o);
         }
+    }
+
+    internal override string ToSpiceControl()
+    {
+        var corners = new List<string> { "0 0" };
+        foreach (var (c, o) in Intervals.OrderBy(i => i.CloseSeconds))
+        {
+            corners.Add($"{SpiceDeckBuilder.Number(c)} 0");
+            corners.Add($"{SpiceDeckBuilder.Number(c + SpiceEdgeSeconds)} 1");
+            corners.Add($"{SpiceDeckBuilder.Number(double.IsFinite(o) ? o : 1e30)} 1");
+            corners.Add($"{SpiceDeckBuilder.Number(double.IsFinite(o) ? o + SpiceEdgeSeconds : 1e30 + 1)} 0");
+        }
+        if (Intervals.Length > 0 && Intervals.Min(i => i.CloseSeconds) <= 0)
+            corners.RemoveAt(0);
+        return $"pwl({string.Join(" ", corners)})";
     }
 
     internal override void Validate(Element owner)
@@ -80,6 +101,13 @@ public sealed record PeriodicSchedule(double DelaySeconds, double PeriodSeconds,
             var open = close + ClosedSeconds;
             if (open >= fromSeconds && open <= toSeconds) into.Add(open);
         }
+    }
+
+    internal override string ToSpiceControl()
+    {
+        static string N(double v) => SpiceDeckBuilder.Number(v);
+        var pulses = Count is { } n ? $" {n}" : "";
+        return $"pulse(0 1 {N(DelaySeconds)} {N(SpiceEdgeSeconds)} {N(SpiceEdgeSeconds)} {N(ClosedSeconds - SpiceEdgeSeconds)} {N(PeriodSeconds)}{pulses})";
     }
 
     internal override void Validate(Element owner)
