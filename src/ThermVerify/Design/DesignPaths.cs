@@ -18,6 +18,11 @@ internal static class DesignPaths
                 "Put the file in the design file's folder (or below it) and give its path relative to the design file.");
         if (!File.Exists(full))
             throw section.ErrorAtValue(key, $"file \"{relative}\" not found (looked for {full})", "Check the name; paths are relative to the design file.");
+        // A link inside the folder may still lead out of it: follow it only to check where it ends.
+        if (new FileInfo(full).ResolveLinkTarget(returnFinalTarget: true) is { } target
+            && !Path.GetFullPath(target.FullName).StartsWith(rootWithSeparator, StringComparison.Ordinal))
+            throw section.ErrorAtValue(key, $"\"{relative}\" is a link that leads outside the design's folder",
+                "Copy the file into the design file's folder instead of linking to it.");
         return full;
     }
 }

@@ -22,3 +22,29 @@ public class DeterminismTests
         Assert.Equal(one, Run(8));
     }
 }
+
+public class DesignPathTests
+{
+    [Fact]
+    public void A_link_that_leads_outside_the_design_folder_is_refused()
+    {
+        var outside = Directory.CreateTempSubdirectory("tv-outside-");
+        var inside = Directory.CreateTempSubdirectory("tv-inside-");
+        try
+        {
+            File.WriteAllText(Path.Combine(outside.FullName, "rt.csv"), "celsius,ohms\n-50,300000\n0,30000\n50,4000\n130,300\n");
+            File.CreateSymbolicLink(Path.Combine(inside.FullName, "rt.csv"), Path.Combine(outside.FullName, "rt.csv"));
+            var text = "name = \"x\"\n[sensor]\nmodel = \"table\"\nfile = \"rt.csv\"\n[divider]\nsensor_side = \"low\"\nfixed_resistor = \"10k\"\n" +
+                       "excitation = \"3.3 V\"\n[adc]\nbits = 12\nreference = \"ratiometric\"\nsample_rate = \"1 kHz\"\nacquisition_time = \"1 us\"\n" +
+                       "sampling_capacitance = \"5 pF\"\nswitch_resistance = \"1 kohm\"\n[check]\nrange = \"0 degC .. 50 degC\"\nbudget = \"1 K\"\n";
+            var e = Assert.Throws<DesignException>(() => DesignLoader.Parse(text, "x.toml", inside.FullName));
+            Assert.Contains("leads outside", e.Problem);
+            Assert.Equal(4, e.Line);
+        }
+        finally
+        {
+            outside.Delete(recursive: true);
+            inside.Delete(recursive: true);
+        }
+    }
+}
