@@ -18,6 +18,9 @@ public static class CliApp
             FitCommand.Create(),
             ValidateCommand.Create(),
             CheckCommand.Create(),
+            WorstCaseCommand.Create(),
+            MonteCarloCommand.Create(),
+            ChooseFixedCommand.Create(),
         };
         if (args.Length == 0)
         {
