@@ -30,8 +30,8 @@ internal static class ChooseFixedCommand
         };
         objective.AcceptOnlyFromAmong([.. Objectives.Keys]);
         var at = new Option<string?>("--at") { Description = "temperature of the slope objective (default: the middle of the check range)" };
-        var min = new Option<string?>("--min") { Description = "smallest candidate (default: half the sensor's smallest resistance over the range)" };
-        var max = new Option<string?>("--max") { Description = "largest candidate (default: twice the sensor's largest resistance over the range)" };
+        var min = new Option<string?>("--min") { Description = "smallest candidate (default: the sensor's smallest resistance over the range)" };
+        var max = new Option<string?>("--max") { Description = "largest candidate (default: the sensor's largest resistance over the range)" };
         var top = new Option<int>("--top") { Description = "candidates to print", DefaultValueFactory = _ => 15 };
         var threads = new Option<int>("--threads") { Description = "candidates checked in parallel", DefaultValueFactory = _ => Environment.ProcessorCount };
         var command = new Command("choose-fixed", "Search an E-series for the fixed resistor that gives the smallest worst error (loading, settling and self-heating included) or the finest resolution.")
@@ -53,9 +53,14 @@ internal static class ChooseFixedCommand
                 MinimumOhms = parsed.GetValue(min) is { } lo ? QuantityParser.Parse(lo, UnitKind.Ohm).Value : null,
                 MaximumOhms = parsed.GetValue(max) is { } hi ? QuantityParser.Parse(hi, UnitKind.Ohm).Value : null,
                 Threads = Math.Max(1, parsed.GetValue(threads)),
+                Progress = goal == FixedResistorObjective.SlopeAt ? null : ProgressDisplay.For(parsed.InvocationConfiguration.Error, "candidates"),
                 Cancel = cancel,
             };
+            if (options.MinimumOhms is { } minimum && options.MaximumOhms is { } maximum && !(minimum > 0 && maximum >= minimum))
+                throw new UsageException($"--min {parsed.GetValue(min)} and --max {parsed.GetValue(max)}: give a positive range with --min not above --max.");
             var ranked = FixedResistorSearch.Run(loaded, options);
+            if (ranked.Count == 0)
+                throw new UsageException($"No {chosen} value lies between the bounds; widen --min/--max or choose a finer series.");
             parsed.InvocationConfiguration.Output.Write(Render(loaded, chosen, goal, ranked, parsed.GetValue(top)));
             return Task.FromResult(ExitCodes.Success);
         });

@@ -6,7 +6,7 @@ namespace ThermVerify.Cli;
 /// Progress of a long run on standard error: a bar redrawn in place on a terminal, a plain line every tenth of the
 /// run when the output goes to a file or a pipe (so that logs stay readable). Safe to call from worker threads.
 /// </summary>
-internal sealed class ProgressDisplay(TextWriter error, bool terminal, string what) : IProgress<MonteCarloProgress>
+internal sealed class ProgressDisplay(TextWriter error, bool terminal, string what) : IProgress<RunProgress>
 {
     private const int BarWidth = 40;
     private readonly Lock gate = new();
@@ -18,7 +18,7 @@ internal sealed class ProgressDisplay(TextWriter error, bool terminal, string wh
     public static ProgressDisplay For(TextWriter error, string what) =>
         new(error, ReferenceEquals(error, Console.Error) && !Console.IsErrorRedirected, what);
 
-    public void Report(MonteCarloProgress value)
+    public void Report(RunProgress value)
     {
         lock (gate)
         {

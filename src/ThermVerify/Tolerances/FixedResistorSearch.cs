@@ -20,13 +20,15 @@ public sealed record FixedResistorSearchOptions
 {
     public ESeries Series { get; init; } = ESeries.E96;
     public FixedResistorObjective Objective { get; init; } = FixedResistorObjective.WorstError;
-    /// <summary>Candidates from here; null: half the smallest sensor resistance over the range.</summary>
+    /// <summary>Candidates from here; null: the smallest sensor resistance over the range.</summary>
     public double? MinimumOhms { get; init; }
-    /// <summary>Candidates up to here; null: twice the largest sensor resistance over the range.</summary>
+    /// <summary>Candidates up to here; null: the largest sensor resistance over the range.</summary>
     public double? MaximumOhms { get; init; }
     /// <summary>Temperature of <see cref="FixedResistorObjective.SlopeAt"/>; null: the middle of the check range.</summary>
     public double? SlopeCelsius { get; init; }
     public int Threads { get; init; } = Environment.ProcessorCount;
+    /// <summary>Called from worker threads as candidates complete.</summary>
+    public IProgress<RunProgress>? Progress { get; init; }
     public CancellationToken Cancel { get; init; }
 }
 
@@ -61,17 +63,22 @@ public static class FixedResistorSearch
         var sensor = design.Sensor.Build();
         var range = design.Check.Range;
         var ends = new[] { sensor.ResistanceOhms(range.MinCelsius), sensor.ResistanceOhms(range.MaxCelsius) };
-        var low = options.MinimumOhms ?? ends.Min() / 2;
-        var high = options.MaximumOhms ?? ends.Max() * 2;
+        // Between the sensor's extremes: outside them the divider's slope falls at both ends of the range at once.
+        var low = options.MinimumOhms ?? ends.Min();
+        var high = options.MaximumOhms ?? ends.Max();
         if (!(low > 0 && high >= low))
             throw new ArgumentException($"The fixed-resistor search needs 0 < minimum ≤ maximum; got {low:G4} Ω to {high:G4} Ω.");
         var candidates = Candidates(options.Series, low, high);
         var slopeAt = options.SlopeCelsius ?? (range.MinCelsius + range.MaxCelsius) / 2;
         var results = new FixedResistorCandidate[candidates.Count];
         var parallel = new ParallelOptions { MaxDegreeOfParallelism = options.Threads, CancellationToken = options.Cancel };
+        var done = 0;
         Parallel.For(0, candidates.Count, parallel, i =>
+        {
             results[i] = Evaluate(design with { Divider = design.Divider with { FixedResistorOhms = candidates[i] } },
-                options.Objective, slopeAt));
+                options.Objective, slopeAt);
+            options.Progress?.Report(new RunProgress(Interlocked.Increment(ref done), candidates.Count));
+        });
         return options.Objective switch
         {
             FixedResistorObjective.SlopeAt => [.. results.OrderByDescending(r => r.SlopeVoltsPerKelvin)],

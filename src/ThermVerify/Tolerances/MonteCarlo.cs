@@ -32,7 +32,7 @@ public static class MonteCarlo
             outcomes[i] = evaluator.Evaluate(deviations[i], options.SimulateSettling);
             var count = Interlocked.Increment(ref done);
             if (options.Progress is { } progress && (count % step == 0 || count == n))
-                progress.Report(new MonteCarloProgress(count, n));
+                progress.Report(new RunProgress(count, n));
         });
 
         var nominal = evaluator.Evaluate(new double[evaluator.Set.Count], options.SimulateSettling);

@@ -16,10 +16,10 @@ public sealed record MonteCarloOptions
     public IReadOnlyList<double> Percentiles { get; init; } = [0.135, 2.5, 50, 97.5, 99.865];
 
     /// <summary>Called from worker threads as units complete (at most about 200 times a run).</summary>
-    public IProgress<MonteCarloProgress>? Progress { get; init; }
+    public IProgress<RunProgress>? Progress { get; init; }
 
     public CancellationToken Cancel { get; init; }
 }
 
-/// <summary>Units verified so far out of the total.</summary>
-public readonly record struct MonteCarloProgress(int Done, int Total);
+/// <summary>Units (or candidates) done so far out of the total.</summary>
+public readonly record struct RunProgress(int Done, int Total);
