@@ -1,11 +1,12 @@
 using System.CommandLine;
+using ThermVerify.Baselines;
 using ThermVerify.Design;
 using ThermVerify.Reporting;
 using ThermVerify.Verification;
 
 namespace ThermVerify.Cli;
 
-/// <summary>`thermverify check`: verify a design; exit 0 within budget, 1 over budget or any failing finding.</summary>
+/// <summary>`thermverify check`: verify a design; exit 0 within budget, 1 over budget, any failing finding or a figure worse than its baseline.</summary>
 internal static class CheckCommand
 {
     public static Command Create()
@@ -15,9 +16,13 @@ internal static class CheckCommand
         var threads = new Option<int>("--threads") { Description = "simulations in parallel", DefaultValueFactory = _ => Environment.ProcessorCount };
         var noRemedies = new Option<bool>("--no-remedies") { Description = "skip the simulations that search for remedies" };
         var quiet = new Option<bool>("--quiet", "-q") { Description = "print only the verdict line" };
+        var report = new Option<DirectoryInfo?>("--report") { Description = "write report.html (self-contained), report.md and plots/ (PNG, SVG) into this folder" };
+        var junit = new Option<FileInfo?>("--junit") { Description = "also write JUnit XML: one test case per check and per finding" };
+        var baseline = new Option<FileInfo?>("--baseline") { Description = "compare with a baseline (thermverify baseline); exit 1 when a figure got worse than its tolerance" };
+        var force = new Option<bool>("--force") { Description = "replace an existing report in the --report folder" };
         var command = new Command("check", "Verify a front end: closed form against simulation, every error in mV, LSB and K against the budget.")
         {
-            design, json, threads, noRemedies, quiet,
+            design, json, threads, noRemedies, quiet, report, junit, baseline, force,
         };
         threads.Validators.Add(r =>
         {
@@ -36,10 +41,23 @@ internal static class CheckCommand
             if (parsed.GetValue(json) is { } jsonFile)
                 AtomicFile.WriteAllText(jsonFile.FullName, CheckJson.Write(result, parsed.GetValue(design)!.ToString()));
 
+            var comparison = parsed.GetValue(baseline) is { } baselineFile
+                ? BaselineComparison.Compare(baselineFile.ToString(), BaselineFile.Read(baselineFile.FullName), BaselineFigures.From(result, CheckJson.ToolVersion()))
+                : null;
+            if (parsed.GetValue(junit) is { } junitFile)
+                AtomicFile.WriteAllText(junitFile.FullName, CheckJUnit.Write(result, comparison));
+            if (parsed.GetValue(report) is { } reportFolder)
+                ReportDirectory.Write(CheckReport.Build(result, parsed.GetValue(design)!.ToString(), comparison), reportFolder.FullName, parsed.GetValue(force));
+
             var output = parsed.InvocationConfiguration.Output;
             var summary = CheckSummaryText.Render(result);
             output.Write(parsed.GetValue(quiet) ? summary.Split('\n').First(l => l.StartsWith("PASS") || l.StartsWith("FAIL")) + "\n" : summary);
-            return Task.FromResult(result.Passed ? ExitCodes.Success : ExitCodes.CheckFailed);
+            if (comparison is not null)
+                output.Write(parsed.GetValue(quiet) ? BaselineTable.Render(comparison).Split('\n')[0] + "\n" : "\n" + BaselineTable.Render(comparison));
+            if (parsed.GetValue(report) is { } written)
+                output.WriteLine($"report: {Path.Combine(written.ToString(), ReportDirectory.HtmlFile)}, {Path.Combine(written.ToString(), ReportDirectory.MarkdownFile)}");
+            var passed = result.Passed && comparison?.Passed != false;
+            return Task.FromResult(passed ? ExitCodes.Success : ExitCodes.CheckFailed);
         });
         return command;
     }

@@ -17,4 +17,7 @@ public static class ExitCodes
 
     /// <summary>A bug in thermverify: please report it with the design that caused it.</summary>
     public const int InternalError = 4;
+
+    /// <summary>Stopped by Ctrl+C (SIGINT) or SIGTERM before it finished; no output file was written or changed.</summary>
+    public const int Cancelled = 130;
 }

@@ -25,4 +25,8 @@ public sealed record Capacitor(string Name, string NodeA, string NodeB, double C
     }
 
     internal override Stamp Bind(BindContext context) => new CapacitorStamp(this, context);
+
+    internal override void WriteSpice(SpiceDeckBuilder deck) =>
+        deck.Card($"{SpiceDeckBuilder.Name('C', Name)} {NodeA} {NodeB} {SpiceDeckBuilder.Number(CapacitanceFarads)}"
+            + (InitialVoltage is { } v ? $" ic={SpiceDeckBuilder.Number(v)}" : ""));
 }

@@ -33,13 +33,14 @@ public sealed record Circuit
     public double TemperatureCelsius
     {
         get;
-        init
-        {
-            if (!double.IsFinite(value) || value <= -PhysicalConstants.ZeroCelsiusInKelvin)
-                throw new CircuitException($"Circuit temperature {value} °C is not a physical temperature; give a finite value above −273.15 °C.");
-            field = value;
-        }
+        init => field = CheckTemperature(value);
     }
+
+    /// <summary>Returns a usable circuit temperature or throws naming it.</summary>
+    public static double CheckTemperature(double celsius) =>
+        double.IsFinite(celsius) && celsius > -PhysicalConstants.ZeroCelsiusInKelvin
+            ? celsius
+            : throw new CircuitException($"Circuit temperature {celsius} °C is not a physical temperature; give a finite value above −273.15 °C.");
 
     public Element this[string name] =>
         Elements.FirstOrDefault(e => e.Name == name)

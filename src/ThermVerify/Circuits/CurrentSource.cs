@@ -24,4 +24,8 @@ public sealed record CurrentSource(string Name, string Positive, string Negative
     }
 
     internal override Stamp Bind(BindContext context) => new CurrentSourceStamp(this, context);
+
+    internal override void WriteSpice(SpiceDeckBuilder deck) =>
+        deck.Card($"{SpiceDeckBuilder.Name('I', Name)} {Positive} {Negative} {Waveform.ToSpice()}"
+            + $" ac {SpiceDeckBuilder.Number(AcMagnitude)} {SpiceDeckBuilder.Number(AcPhaseDegrees)}");
 }

@@ -5,8 +5,10 @@ namespace ThermVerify.Circuits;
 
 /// <summary>
 /// Junction diode, Shockley equation I = Is·(exp(V/(n·Vt)) − 1) with Vt = kT/q at the circuit
-/// temperature, and an optional series resistance. Is does not scale with temperature here (give the
-/// value for the temperature studied); no junction capacitance, no breakdown. Meant for input clamps.
+/// temperature, and an optional series resistance. Is is the value at <see cref="SaturationReferenceCelsius"/>
+/// when that is given and follows SPICE's temperature law (see <see cref="SaturationCurrentAmperesAt"/>);
+/// otherwise it is used as given at every temperature. No junction capacitance, no breakdown.
+/// Meant for input clamps.
 /// </summary>
 public sealed record Diode(string Name, string Anode, string Cathode, double SaturationCurrentAmperes = 1e-14,
     double EmissionCoefficient = 1, double SeriesResistanceOhms = 0) : Element(Name)
@@ -14,6 +16,30 @@ public sealed record Diode(string Name, string Anode, string Cathode, double Sat
     public override IReadOnlyList<string> Nodes => [Anode, Cathode];
 
     internal override IEnumerable<(string A, string B)> DcPaths => [(Anode, Cathode)];
+
+    /// <summary>Temperature at which <see cref="SaturationCurrentAmperes"/> holds; null: no temperature scaling.</summary>
+    public double? SaturationReferenceCelsius { get; init; }
+
+    /// <summary>Band gap EG in eV for the temperature law (silicon 1.11, SPICE's default).</summary>
+    public double BandGapElectronVolts { get; init; } = 1.11;
+
+    /// <summary>Saturation-current temperature exponent XTI (3 for a pn junction, SPICE's default).</summary>
+    public double SaturationExponent { get; init; } = 3;
+
+    /// <summary>
+    /// Is(T) = Is·(T/T0)^(XTI/n)·exp((T/T0 − 1)·EG/(n·Vt(T))), Vt = kT/q (the SPICE2 diode model's
+    /// temperature law, Nagel 1975, from memory), or Is unchanged without a reference temperature.
+    /// </summary>
+    public double SaturationCurrentAmperesAt(double temperatureCelsius)
+    {
+        if (SaturationReferenceCelsius is not { } reference)
+            return SaturationCurrentAmperes;
+        var t = Quantities.PhysicalConstants.ToKelvin(temperatureCelsius);
+        var ratio = t / Quantities.PhysicalConstants.ToKelvin(reference);
+        var vt = Quantities.PhysicalConstants.BoltzmannJoulesPerKelvin * t / Quantities.PhysicalConstants.ElementaryChargeCoulombs;
+        return SaturationCurrentAmperes * Math.Pow(ratio, SaturationExponent / EmissionCoefficient)
+            * Math.Exp((ratio - 1) * BandGapElectronVolts / (EmissionCoefficient * vt));
+    }
 
     internal override IReadOnlyList<Unknown> ExtraUnknowns =>
         SeriesResistanceOhms > 0 ? [Unknown.Voltage($"{Name}#junction")] : [];
@@ -25,7 +51,23 @@ public sealed record Diode(string Name, string Anode, string Cathode, double Sat
         ElementChecks.Positive(this, SaturationCurrentAmperes, "saturation current");
         ElementChecks.Positive(this, EmissionCoefficient, "emission coefficient");
         ElementChecks.NonNegative(this, SeriesResistanceOhms, "series resistance");
+        if (SaturationReferenceCelsius is { } reference && !(double.IsFinite(reference) && reference > -Quantities.PhysicalConstants.ZeroCelsiusInKelvin))
+            throw new CircuitException($"{Describe}: saturation reference temperature {reference} °C is not a physical temperature.");
+        ElementChecks.Positive(this, BandGapElectronVolts, "band gap");
+        ElementChecks.Finite(this, SaturationExponent, "saturation exponent");
     }
 
     internal override Stamp Bind(BindContext context) => new DiodeStamp(this, context);
+
+    /// <summary>SPICE diode; without a reference temperature XTI = EG = 0 keep Is constant, as here.</summary>
+    internal override void WriteSpice(SpiceDeckBuilder deck)
+    {
+        var model = $"{Name}_model";
+        deck.Card($"{SpiceDeckBuilder.Name('D', Name)} {Anode} {Cathode} {model}");
+        var temperature = SaturationReferenceCelsius is { } reference
+            ? $"tnom={SpiceDeckBuilder.Number(reference)} xti={SpiceDeckBuilder.Number(SaturationExponent)} eg={SpiceDeckBuilder.Number(BandGapElectronVolts)}"
+            : "xti=0 eg=0";
+        deck.Model($".model {model} d is={SpiceDeckBuilder.Number(SaturationCurrentAmperes)} n={SpiceDeckBuilder.Number(EmissionCoefficient)} " +
+            $"rs={SpiceDeckBuilder.Number(SeriesResistanceOhms)} {temperature}");
+    }
 }

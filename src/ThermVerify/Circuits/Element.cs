@@ -28,5 +28,8 @@ public abstract record Element(string Name)
 
     internal abstract Stamp Bind(BindContext context);
 
+    /// <summary>Writes the element's SPICE cards (see <see cref="SpiceDeck"/>).</summary>
+    internal abstract void WriteSpice(SpiceDeckBuilder deck);
+
     internal string Describe => $"{GetType().Name} '{Name}'";
 }

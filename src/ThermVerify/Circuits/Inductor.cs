@@ -25,4 +25,8 @@ public sealed record Inductor(string Name, string NodeA, string NodeB, double In
     }
 
     internal override Stamp Bind(BindContext context) => new InductorStamp(this, context);
+
+    internal override void WriteSpice(SpiceDeckBuilder deck) =>
+        deck.Card($"{SpiceDeckBuilder.Name('L', Name)} {NodeA} {NodeB} {SpiceDeckBuilder.Number(InductanceHenries)}"
+            + (InitialCurrent is { } i ? $" ic={SpiceDeckBuilder.Number(i)}" : ""));
 }

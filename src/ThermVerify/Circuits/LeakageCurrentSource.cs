@@ -14,7 +14,7 @@ public sealed record LeakageCurrentSource(string Name, string Positive, string N
     public override IReadOnlyList<string> Nodes => [Positive, Negative];
 
     public double CurrentAmperesAt(double temperatureCelsius) =>
-        CurrentAt25CelsiusAmperes * Math.Pow(2, (temperatureCelsius - 25) / DoublingKelvin);
+        CurrentAt25CelsiusAmperes * Math.Exp(Math.Log(2) * (temperatureCelsius - 25) / DoublingKelvin);
 
     internal override void Validate()
     {
@@ -25,4 +25,8 @@ public sealed record LeakageCurrentSource(string Name, string Positive, string N
     }
 
     internal override Stamp Bind(BindContext context) => new LeakageCurrentSourceStamp(this, context);
+
+    internal override void WriteSpice(SpiceDeckBuilder deck) =>
+        deck.Card($"{SpiceDeckBuilder.Name('B', Name)} {Positive} {Negative} I='{SpiceDeckBuilder.Number(CurrentAt25CelsiusAmperes)}"
+            + $"*exp({SpiceDeckBuilder.Number(Math.Log(2))}*(temper-25)/{SpiceDeckBuilder.Number(DoublingKelvin)})'");
 }

@@ -89,4 +89,6 @@ public sealed record OpAmp(string Name, string NonInverting, string Inverting, s
     }
 
     internal override Stamp Bind(BindContext context) => new OpAmpStamp(this, context);
+
+    internal override void WriteSpice(SpiceDeckBuilder deck) => SpiceOpAmp.Write(this, deck);
 }

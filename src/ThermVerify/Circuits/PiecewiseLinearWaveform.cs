@@ -31,6 +31,10 @@ public sealed record PiecewiseLinearWaveform(ImmutableArray<(double TimeSeconds,
                 into.Add(t);
     }
 
+    internal override string ToSpice() =>
+        $"dc {SpiceDeckBuilder.Number(Points[0].Value)} pwl(" +
+        string.Join(" ", Points.Select(p => $"{SpiceDeckBuilder.Number(p.TimeSeconds)} {SpiceDeckBuilder.Number(p.Value)}")) + ")";
+
     internal override void Validate(Element owner)
     {
         if (Points.IsDefaultOrEmpty)

@@ -49,6 +49,16 @@ public sealed record PulseWaveform(double Initial, double Pulsed, double DelaySe
         }
     }
 
+    internal override string ToSpice()
+    {
+        static string N(double v) => SpiceDeckBuilder.Number(v);
+        // SPICE replaces a zero rise or fall by the print step; a femtosecond keeps the step ideal in effect.
+        var rise = RiseSeconds > 0 ? RiseSeconds : 1e-15;
+        var fall = FallSeconds > 0 ? FallSeconds : 1e-15;
+        var period = Repeats ? PeriodSeconds : 1e30;
+        return $"dc {N(Initial)} pulse({N(Initial)} {N(Pulsed)} {N(DelaySeconds)} {N(rise)} {N(fall)} {N(WidthSeconds)} {N(period)})";
+    }
+
     internal override void Validate(Element owner)
     {
         ElementChecks.Finite(owner, Initial, "pulse initial value");

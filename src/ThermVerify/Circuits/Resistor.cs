@@ -33,4 +33,14 @@ public sealed record Resistor(string Name, string NodeA, string NodeB, double Re
     }
 
     internal override Stamp Bind(BindContext context) => new ResistorStamp(this, context);
+
+    internal override void WriteSpice(SpiceDeckBuilder deck)
+    {
+        var r = SpiceDeckBuilder.Number(ResistanceOhms);
+        var value = DependsOnTemperature
+            ? $"r='{r}*(1+({SpiceDeckBuilder.Number(Tc1PerKelvin)})*(temper-({SpiceDeckBuilder.Number(ReferenceCelsius)}))" +
+              $"+({SpiceDeckBuilder.Number(Tc2PerKelvinSquared)})*(temper-({SpiceDeckBuilder.Number(ReferenceCelsius)}))*(temper-({SpiceDeckBuilder.Number(ReferenceCelsius)})))'"
+            : r;
+        deck.Card($"{SpiceDeckBuilder.Name('R', Name)} {NodeA} {NodeB} {value}");
+    }
 }

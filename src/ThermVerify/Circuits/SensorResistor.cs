@@ -37,4 +37,6 @@ public sealed record SensorResistor(string Name, string NodeA, string NodeB, ISe
     }
 
     internal override Stamp Bind(BindContext context) => new SensorResistorStamp(this, context);
+
+    internal override void WriteSpice(SpiceDeckBuilder deck) => SpiceSensorExpression.Write(this, deck);
 }

@@ -1,5 +1,3 @@
-using System.Collections.Immutable;
-
 namespace ThermVerify.Circuits;
 
 /// <summary>
@@ -13,83 +11,10 @@ public abstract record SwitchSchedule
     internal abstract void CollectEdges(double fromSeconds, double toSeconds, List<double> into);
 
     internal abstract void Validate(Element owner);
-}
 
-/// <summary>Closed during each listed [close, open) interval.</summary>
-public sealed record IntervalSchedule(ImmutableArray<(double CloseSeconds, double OpenSeconds)> Intervals) : SwitchSchedule
-{
-    public IntervalSchedule(params (double CloseSeconds, double OpenSeconds)[] intervals) : this(intervals.ToImmutableArray()) { }
+    /// <summary>A SPICE source for a 0/1 V control node following the schedule with 1 ps edges.</summary>
+    internal abstract string ToSpiceControl();
 
-    public override bool IsClosed(double timeSeconds)
-    {
-        foreach (var (c, o) in Intervals)
-            if (timeSeconds >= c && timeSeconds < o)
-                return true;
-        return false;
-    }
-
-    internal override void CollectEdges(double fromSeconds, double toSeconds, List<double> into)
-    {
-        foreach (var (c, o) in Intervals)
-        {
-            if (c >= fromSeconds && c <= toSeconds) into.Add(c);
-            if (o >= fromSeconds && o <= toSeconds) into.Add(o);
-        }
-    }
-
-    internal override void Validate(Element owner)
-    {
-        if (Intervals.IsDefault)
-            throw new CircuitException($"{owner.Describe}: the interval schedule is empty; give at least one (close, open) pair or use a fixed switch.");
-        for (var i = 0; i < Intervals.Length; i++)
-        {
-            var (c, o) = Intervals[i];
-            ElementChecks.Finite(owner, c, $"close time #{i + 1}");
-            if (double.IsNaN(o) || o <= c)
-                throw new CircuitException($"{owner.Describe}: interval #{i + 1} opens at {o:G6} s, not after it closes at {c:G6} s; give open > close.");
-        }
-    }
-}
-
-/// <summary>
-/// Closed for <see cref="ClosedSeconds"/> at the start of each period, first at <see cref="DelaySeconds"/>,
-/// <see cref="Count"/> times (null: for ever). An ADC's acquisition windows are the typical use.
-/// </summary>
-public sealed record PeriodicSchedule(double DelaySeconds, double PeriodSeconds, double ClosedSeconds, int? Count = null) : SwitchSchedule
-{
-    public override bool IsClosed(double timeSeconds)
-    {
-        var tau = timeSeconds - DelaySeconds;
-        if (tau < 0)
-            return false;
-        var k = Math.Floor(tau / PeriodSeconds);
-        if (Count is { } n && k >= n)
-            return false;
-        return tau - k * PeriodSeconds < ClosedSeconds;
-    }
-
-    internal override void CollectEdges(double fromSeconds, double toSeconds, List<double> into)
-    {
-        var first = Math.Max(0, Math.Floor((fromSeconds - DelaySeconds) / PeriodSeconds) - 1);
-        for (var k = first; Count is not { } n || k < n; k++)
-        {
-            var close = DelaySeconds + k * PeriodSeconds;
-            if (close > toSeconds)
-                return;
-            if (close >= fromSeconds) into.Add(close);
-            var open = close + ClosedSeconds;
-            if (open >= fromSeconds && open <= toSeconds) into.Add(open);
-        }
-    }
-
-    internal override void Validate(Element owner)
-    {
-        ElementChecks.NonNegative(owner, DelaySeconds, "schedule delay");
-        ElementChecks.Positive(owner, PeriodSeconds, "schedule period");
-        ElementChecks.Positive(owner, ClosedSeconds, "closed duration");
-        if (ClosedSeconds >= PeriodSeconds)
-            throw new CircuitException($"{owner.Describe}: closed for {ClosedSeconds:G6} s of a {PeriodSeconds:G6} s period; it must open within each period.");
-        if (Count is < 0)
-            throw new CircuitException($"{owner.Describe}: count {Count} is negative; give a count ≥ 0 or none for ever.");
-    }
+    /// <summary>Length of the control edges in the SPICE deck.</summary>
+    internal const double SpiceEdgeSeconds = 1e-12;
 }

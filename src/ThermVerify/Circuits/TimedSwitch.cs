@@ -26,4 +26,14 @@ public sealed record TimedSwitch(string Name, string NodeA, string NodeB, double
     }
 
     internal override Stamp Bind(BindContext context) => new TimedSwitchStamp(this, context);
+
+    /// <summary>A SPICE switch on a 0/1 V control node driven by the schedule with 1 ps edges.</summary>
+    internal override void WriteSpice(SpiceDeckBuilder deck)
+    {
+        var control = $"{Name}_control";
+        var model = $"{Name}_model";
+        deck.Card($"{SpiceDeckBuilder.Name('S', Name)} {NodeA} {NodeB} {control} 0 {model}");
+        deck.Card($"{SpiceDeckBuilder.Name('V', control)} {control} 0 {Schedule.ToSpiceControl()}");
+        deck.Model($".model {model} sw vt=0.5 vh=0 ron={SpiceDeckBuilder.Number(OnResistanceOhms)} roff={SpiceDeckBuilder.Number(OffResistanceOhms)}");
+    }
 }

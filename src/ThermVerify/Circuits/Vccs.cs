@@ -20,4 +20,7 @@ public sealed record Vccs(string Name, string Positive, string Negative, string 
     }
 
     internal override Stamp Bind(BindContext context) => new VccsStamp(this, context);
+
+    internal override void WriteSpice(SpiceDeckBuilder deck) =>
+        deck.Card($"{SpiceDeckBuilder.Name('G', Name)} {Positive} {Negative} {ControlPositive} {ControlNegative} {SpiceDeckBuilder.Number(TransconductanceSiemens)}");
 }

@@ -23,4 +23,7 @@ public sealed record Vcvs(string Name, string Positive, string Negative, string 
     }
 
     internal override Stamp Bind(BindContext context) => new VcvsStamp(this, context);
+
+    internal override void WriteSpice(SpiceDeckBuilder deck) =>
+        deck.Card($"{SpiceDeckBuilder.Name('E', Name)} {Positive} {Negative} {ControlPositive} {ControlNegative} {SpiceDeckBuilder.Number(Gain)}");
 }

@@ -30,4 +30,8 @@ public sealed record VoltageSource(string Name, string Positive, string Negative
     }
 
     internal override Stamp Bind(BindContext context) => new VoltageSourceStamp(this, context);
+
+    internal override void WriteSpice(SpiceDeckBuilder deck) =>
+        deck.Card($"{SpiceDeckBuilder.Name('V', Name)} {Positive} {Negative} {Waveform.ToSpice()}"
+            + $" ac {SpiceDeckBuilder.Number(AcMagnitude)} {SpiceDeckBuilder.Number(AcPhaseDegrees)}");
 }

@@ -12,6 +12,9 @@ public abstract record Waveform
 
     internal abstract void Validate(Element owner);
 
+    /// <summary>The SPICE source specification (DC, PULSE or PWL).</summary>
+    internal abstract string ToSpice();
+
     public static implicit operator Waveform(double dc) => new DcWaveform(dc);
 }
 
@@ -23,4 +26,6 @@ public sealed record DcWaveform(double Value) : Waveform
     internal override void CollectBreakpoints(double fromSeconds, double toSeconds, List<double> into) { }
 
     internal override void Validate(Element owner) => ElementChecks.Finite(owner, Value, "DC value");
+
+    internal override string ToSpice() => $"dc {SpiceDeckBuilder.Number(Value)}";
 }

@@ -6,18 +6,13 @@ namespace ThermVerify.Design;
 /// <summary>Reads [check] and its [[check.region]] entries.</summary>
 internal static class CheckReader
 {
-    public static CheckSpec Read(TomlSection s, SensorSpec sensor)
+    public static CheckSpec Read(TomlSection s, TemperatureRange sensorRange)
     {
         s.AllowOnly(["range", "step", "budget", "settle_limit", "board_temperature", "region"]);
         var range = Range(s, "range") ?? throw s.Missing("range", "Write range = \"-40 degC .. 125 degC\".");
-        var valid = sensor switch
-        {
-            BetaSensorSpec b => b.ValidRange,
-            SteinhartHartSensorSpec sh => sh.ValidRange,
-            _ => null,
-        };
-        if (valid is { } v && (range.MinCelsius < v.MinCelsius || range.MaxCelsius > v.MaxCelsius))
-            throw s.ErrorAtValue("range", $"{range} reaches outside the sensor's valid_range {v}", "Narrow the check range or widen [sensor] valid_range.");
+        if (range.MinCelsius < sensorRange.MinCelsius || range.MaxCelsius > sensorRange.MaxCelsius)
+            throw s.ErrorAtValue("range", $"{range} reaches outside the sensor's valid range {sensorRange}",
+                "Narrow the check range, or widen [sensor] valid_range where the model allows it.");
         var step = s.ValueOr("step", DesignDefaults.StepKelvin, Bound.Positive, UnitKind.Kelvin);
         if (step > range.MaxCelsius - range.MinCelsius)
             throw s.ErrorAtValue("step", "the step is wider than the range", "Use a step of a fraction of the range, e.g. \"1 K\".");

@@ -1,3 +1,5 @@
+using ThermVerify.Sensors;
+
 namespace ThermVerify.Design;
 
 /// <summary>
@@ -36,7 +38,9 @@ public static class DesignLoader
         var name = root.RequiredString("name", "Give the design a name: name = \"...\" at the top of the file.");
         if (string.IsNullOrWhiteSpace(name))
             throw root.ErrorAtValue("name", "empty name", "Give the design a short name.");
-        var sensor = SensorReader.Read(root.RequiredSection("sensor", "Add a [sensor] section with model = \"beta\", \"steinhart-hart\", \"table\" or \"rtd\"."));
+        var sensorSection = root.RequiredSection("sensor", "Add a [sensor] section with model = \"beta\", \"steinhart-hart\", \"table\" or \"rtd\".");
+        var sensor = SensorReader.Read(sensorSection);
+        var model = Build(sensorSection, sensor);
         return new FrontEndDesign
         {
             Name = name,
@@ -46,8 +50,29 @@ public static class DesignLoader
             Buffer = root.Section("buffer") is { } buffer ? CircuitReaders.ReadBuffer(buffer) : null,
             Filter = root.Section("filter") is { } filter ? CircuitReaders.ReadFilter(filter) : FilterSpec.None,
             Adc = AdcReader.Read(root.RequiredSection("adc", "Add an [adc] section (bits, reference, sample_rate, acquisition_time, ...).")),
-            Check = CheckReader.Read(root.RequiredSection("check", "Add a [check] section (range, budget)."), sensor),
+            Check = CheckReader.Read(root.RequiredSection("check", "Add a [check] section (range, budget)."), model.ValidRange),
             Tolerances = root.Section("tolerances") is { } tolerances ? ToleranceReader.Read(tolerances) : ToleranceSpec.Default,
         };
+    }
+
+    /// <summary>
+    /// Builds the sensor model once at load time, so that a table that cannot be used or coefficients that do not
+    /// describe an NTC are errors of the design file, with its position, rather than failures later.
+    /// </summary>
+    private static ISensorModel Build(TomlSection section, SensorSpec sensor)
+    {
+        try
+        {
+            return sensor.Build();
+        }
+        catch (SensorTableException e)
+        {
+            throw section.ErrorAtValue("file", e.Message.TrimEnd('.'), "Fix the table's rows, or point file at another table.");
+        }
+        catch (ArgumentException e)
+        {
+            throw section.ErrorAtValue(sensor is SteinhartHartSensorSpec ? "a" : "model", e.Message.TrimEnd('.'),
+                "Check the sensor's parameters against its documentation.");
+        }
     }
 }

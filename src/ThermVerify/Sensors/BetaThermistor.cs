@@ -59,19 +59,19 @@ public sealed class BetaThermistor : ISensorModel
 
     public double ResistanceOhms(double temperatureCelsius)
     {
-        RangeGuard.CheckTemperature(temperatureCelsius, ValidRange, Description);
+        RangeGuard.CheckTemperature(temperatureCelsius, ValidRange, this);
         return Resistance(temperatureCelsius);
     }
 
     public double TemperatureCelsius(double resistanceOhms)
     {
-        RangeGuard.CheckResistance(resistanceOhms, _minOhms, _maxOhms, ValidRange, Description);
+        RangeGuard.CheckResistance(resistanceOhms, _minOhms, _maxOhms, ValidRange, this);
         return ToCelsius(1 / (_inverseT0 + Math.Log(resistanceOhms / R0Ohms) / Beta));
     }
 
     public double SlopeOhmsPerKelvin(double temperatureCelsius)
     {
-        RangeGuard.CheckTemperature(temperatureCelsius, ValidRange, Description);
+        RangeGuard.CheckTemperature(temperatureCelsius, ValidRange, this);
         var kelvin = ToKelvin(temperatureCelsius);
         return -Beta * Resistance(temperatureCelsius) / (kelvin * kelvin);
     }

@@ -53,13 +53,13 @@ public sealed class PlatinumRtd : ISensorModel
 
     public double ResistanceOhms(double temperatureCelsius)
     {
-        RangeGuard.CheckTemperature(temperatureCelsius, ValidRange, Description);
+        RangeGuard.CheckTemperature(temperatureCelsius, ValidRange, this);
         return Resistance(temperatureCelsius);
     }
 
     public double TemperatureCelsius(double resistanceOhms)
     {
-        RangeGuard.CheckResistance(resistanceOhms, _minOhms, _maxOhms, ValidRange, Description);
+        RangeGuard.CheckResistance(resistanceOhms, _minOhms, _maxOhms, ValidRange, this);
         var t = QuadraticRoot(resistanceOhms / R0Ohms);
         if (resistanceOhms >= R0Ohms) return t;
         for (var step = 0; step < 50; step++)
@@ -73,7 +73,7 @@ public sealed class PlatinumRtd : ISensorModel
 
     public double SlopeOhmsPerKelvin(double temperatureCelsius)
     {
-        RangeGuard.CheckTemperature(temperatureCelsius, ValidRange, Description);
+        RangeGuard.CheckTemperature(temperatureCelsius, ValidRange, this);
         return Slope(temperatureCelsius);
     }
 

@@ -9,23 +9,25 @@ namespace ThermVerify.Sensors;
 /// </summary>
 internal static class RangeGuard
 {
+    // The model, not its description, is passed: formatting the description on every in-range call
+    // cost about 1 µs, more than a whole circuit solve in a temperature sweep.
     // Values a rounding error past a limit (a round trip through the model at its own edge) are still inside.
     private const double EdgeSlackKelvin = 1e-9;
     private const double EdgeSlackRelative = 1e-12;
 
-    public static void CheckTemperature(double celsius, TemperatureRange range, string model)
+    public static void CheckTemperature(double celsius, TemperatureRange range, ISensorModel model)
     {
         if (celsius >= range.MinCelsius - EdgeSlackKelvin && celsius <= range.MaxCelsius + EdgeSlackKelvin) return;
         throw new SensorRangeException(FormattableString.Invariant(
-            $"Temperature {celsius:G6} °C is outside the valid range of {model} ({range}); ") +
+            $"Temperature {celsius:G6} °C is outside the valid range of {model.Description} ({range}); ") +
             "no extrapolation is done: use a model whose valid range covers this temperature.");
     }
 
-    public static void CheckResistance(double ohms, double minOhms, double maxOhms, TemperatureRange range, string model)
+    public static void CheckResistance(double ohms, double minOhms, double maxOhms, TemperatureRange range, ISensorModel model)
     {
         if (ohms >= minOhms * (1 - EdgeSlackRelative) && ohms <= maxOhms * (1 + EdgeSlackRelative)) return;
         throw new SensorRangeException(FormattableString.Invariant(
-            $"Resistance {ohms:G6} Ω is outside the valid range of {model}: {minOhms:G6} Ω to {maxOhms:G6} Ω, which corresponds to {range}; ") +
+            $"Resistance {ohms:G6} Ω is outside the valid range of {model.Description}: {minOhms:G6} Ω to {maxOhms:G6} Ω, which corresponds to {range}; ") +
             "no extrapolation is done: check the reading or widen the model's valid range.");
     }
 

@@ -53,13 +53,13 @@ public sealed class SteinhartHartThermistor : ISensorModel
 
     public double ResistanceOhms(double temperatureCelsius)
     {
-        RangeGuard.CheckTemperature(temperatureCelsius, ValidRange, Description);
+        RangeGuard.CheckTemperature(temperatureCelsius, ValidRange, this);
         return Math.Exp(SteinhartHartInverse.LnResistance(A, B, C, D, 1 / ToKelvin(temperatureCelsius)));
     }
 
     public double TemperatureCelsius(double resistanceOhms)
     {
-        RangeGuard.CheckResistance(resistanceOhms, _minOhms, _maxOhms, ValidRange, Description);
+        RangeGuard.CheckResistance(resistanceOhms, _minOhms, _maxOhms, ValidRange, this);
         return ToCelsius(1 / InverseKelvin(Math.Log(resistanceOhms)));
     }
 

@@ -71,13 +71,13 @@ public sealed class TableThermistor : ISensorModel
 
     public double ResistanceOhms(double temperatureCelsius)
     {
-        RangeGuard.CheckTemperature(temperatureCelsius, ValidRange, Description);
+        RangeGuard.CheckTemperature(temperatureCelsius, ValidRange, this);
         return Math.Exp(_lnROfInverseKelvin.Value(1 / ToKelvin(temperatureCelsius)));
     }
 
     public double TemperatureCelsius(double resistanceOhms)
     {
-        RangeGuard.CheckResistance(resistanceOhms, Points[^1].Ohms, Points[0].Ohms, ValidRange, Description);
+        RangeGuard.CheckResistance(resistanceOhms, Points[^1].Ohms, Points[0].Ohms, ValidRange, this);
         return ToCelsius(1 / _lnROfInverseKelvin.Inverse(Math.Log(resistanceOhms)));
     }
 

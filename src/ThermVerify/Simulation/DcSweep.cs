@@ -17,7 +17,7 @@ public static class DcSweep
     public static DcSweepResult Temperature(Circuit circuit, IReadOnlyList<double> temperaturesCelsius)
     {
         foreach (var t in temperaturesCelsius)
-            _ = circuit with { TemperatureCelsius = t };
+            Circuit.CheckTemperature(t);
         TopologyCheck.Run(circuit);
         var system = new BoundSystem(circuit);
         return Run(system, temperaturesCelsius, TemperatureAnalysisName, "temperature (°C)",
@@ -42,18 +42,16 @@ public static class DcSweep
     {
         var width = system.Layout.VectorLength;
         var data = new double[values.Count * width];
-        var warnings = new List<SimulationWarning>();
-        var checks = system.Stamps.Any(s => s.HasChecks);
+        var warnings = new Warnings(system);
         for (var p = 0; p < values.Count; p++)
         {
             set(system, values[p]);
             if (!TryNewton(system))
                 DcSolver.Solve(system, analysis, values[p]);
             Array.Copy(system.Context.Solution, 0, data, p * width, width);
-            if (checks)
-                Warnings.Merge(warnings, Warnings.Collect(system).Select(w => w with { SweepValue = values[p] }));
+            warnings.Check(sweepValue: values[p]);
         }
-        return new DcSweepResult(system, parameter, [.. values], data, warnings);
+        return new DcSweepResult(system, parameter, [.. values], data, warnings.Found);
     }
 
     private static bool TryNewton(BoundSystem system)

@@ -35,6 +35,21 @@ internal sealed class TransientRecord(int width)
         Count++;
     }
 
+    /// <summary>Starts new storage holding only the newest point; results already handed out keep the old arrays.</summary>
+    public void KeepLast()
+    {
+        if (Count <= 1)
+            return;
+        var last = Count - 1;
+        var (time, values, slopes) = (Times[last], Values.AsSpan(last * Width, Width).ToArray(), Slopes.AsSpan(last * Width, Width).ToArray());
+        Times = new double[256];
+        Values = new double[256 * Width];
+        Slopes = new double[256 * Width];
+        BackwardEuler = new bool[256];
+        Count = 0;
+        Add(time, values, slopes, true);
+    }
+
     private static T[] Grow<T>(T[] a)
     {
         var b = new T[a.Length * 2];

@@ -11,14 +11,18 @@ namespace ThermVerify.Simulation;
 /// </summary>
 public sealed class TransientResult
 {
-    private readonly TransientRecord record;
+    private readonly double[] times;
+    private readonly double[] values;
+    private readonly double[] slopes;
+    private readonly bool[] backwardEuler;
+    private readonly int width;
     private readonly MnaLayout layout;
     private readonly BoundSystem system;
 
     internal TransientResult(TransientRecord record, BoundSystem system, IReadOnlyList<SimulationWarning> warnings,
         int acceptedSteps, int rejectedSteps)
     {
-        this.record = record;
+        (times, values, slopes, backwardEuler, width) = (record.Times, record.Values, record.Slopes, record.BackwardEuler, record.Width);
         layout = system.Layout;
         this.system = system;
         Count = record.Count;
@@ -36,11 +40,12 @@ public sealed class TransientResult
 
     public IReadOnlyList<SimulationWarning> Warnings { get; }
 
-    public double[] TimesSeconds => record.Times.AsSpan(0, Count).ToArray();
+    /// <summary>The time points (a copy made once per result).</summary>
+    public double[] TimesSeconds => field ??= times.AsSpan(0, Count).ToArray();
 
-    public double StartTimeSeconds => record.Times[0];
+    public double StartTimeSeconds => times[0];
 
-    public double EndTimeSeconds => record.Times[Count - 1];
+    public double EndTimeSeconds => times[Count - 1];
 
     /// <summary>Voltage of <paramref name="node"/> at every time point.</summary>
     public double[] Voltage(string node) => Column(layout.IndexOfNode(node));
@@ -55,30 +60,29 @@ public sealed class TransientResult
         return Column(layout.ExtraStart[e]);
     }
 
-    public double FinalVoltage(string node) => record.Values[(Count - 1) * record.Width + layout.IndexOfNode(node)];
+    public double FinalVoltage(string node) => values[(Count - 1) * width + layout.IndexOfNode(node)];
 
     /// <summary>Voltage of <paramref name="node"/> at any time inside the run (see the class summary).</summary>
     public double VoltageAt(string node, double timeSeconds)
     {
         var index = layout.IndexOfNode(node);
-        var times = record.Times;
         if (timeSeconds < times[0] || timeSeconds > times[Count - 1])
             throw new ArgumentOutOfRangeException(nameof(timeSeconds),
                 $"Time {timeSeconds:G6} s is outside the run ({times[0]:G6} s to {times[Count - 1]:G6} s).");
         var j = Array.BinarySearch(times, 0, Count, timeSeconds);
         if (j >= 0)
-            return record.Values[j * record.Width + index];
+            return values[j * width + index];
         j = ~j;
-        var w = record.Width;
+        var w = width;
         var t0 = times[j - 1];
         var h = times[j] - t0;
         var s = timeSeconds - t0;
-        var x0 = record.Values[(j - 1) * w + index];
-        var x1 = record.Values[j * w + index];
-        if (record.BackwardEuler[j])
+        var x0 = values[(j - 1) * w + index];
+        var x1 = values[j * w + index];
+        if (backwardEuler[j])
             return x0 + (x1 - x0) * s / h;
-        var d0 = record.Slopes[(j - 1) * w + index];
-        var d1 = record.Slopes[j * w + index];
+        var d0 = slopes[(j - 1) * w + index];
+        var d1 = slopes[j * w + index];
         return x0 + d0 * s + (d1 - d0) * s * s / (2 * h);
     }
 
@@ -86,7 +90,7 @@ public sealed class TransientResult
     {
         var v = new double[Count];
         for (var p = 0; p < Count; p++)
-            v[p] = record.Values[p * record.Width + index];
+            v[p] = values[p * width + index];
         return v;
     }
 }

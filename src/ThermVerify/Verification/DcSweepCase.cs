@@ -5,7 +5,7 @@ using static ThermVerify.Verification.FrontEndNodes;
 namespace ThermVerify.Verification;
 
 /// <summary>
-/// The temperature sweep of the DC circuit for one precharge case: divider, buffer output and pin voltages, with
+/// The temperature sweep of the DC circuit for one precharge case: divider, op-amp output and pin voltages, with
 /// and without the average sampling current (so that its share can be reported on its own).
 /// </summary>
 public sealed record DcSweepCase(
@@ -26,7 +26,7 @@ public sealed record DcSweepCase(
     {
         var plain = DcSweep.Temperature(FrontEndCircuit.Dc(design, null), temperaturesCelsius);
         var divider = plain.Voltage(Divider);
-        var buffer = design.Buffer is null ? divider : plain.Voltage(BufferOutput);
+        var buffer = design.Buffer is null ? divider : plain.Voltage(FrontEndCircuit.AmplifierNode(design));
         var pinNode = FrontEndCircuit.PinNode(design);
         var staticPin = plain.Voltage(pinNode);
         var pin = UsesAverageSamplingCurrent(design, prechargeVolts)

@@ -103,6 +103,10 @@ public static class FrontEndCircuit
     /// <summary>The node that drives the filter: the buffer's output, or the divider itself.</summary>
     public static string DriveNode(FrontEndDesign design) => design.Buffer is null ? Divider : BufferOutput;
 
+    /// <summary>The op-amp's own output (before any isolation resistor); the divider when there is no buffer.</summary>
+    public static string AmplifierNode(FrontEndDesign design) =>
+        design.Buffer is null ? Divider : design.Buffer.IsolationResistorOhms > 0 ? BufferStage.AmplifierOutput : BufferOutput;
+
     /// <summary>The ADC pin: its own node behind a series resistor, else the drive node itself.</summary>
     public static string PinNode(FrontEndDesign design) => design.Filter.SeriesResistorOhms > 0 ? Pin : DriveNode(design);
 

@@ -46,6 +46,7 @@ public static class SamplingRun
             cancel.ThrowIfCancellationRequested();
             simulation.AdvanceTo(FrontEndCircuit.SampleTimeSeconds(design, k));
             samples.Add(simulation.Voltage(FrontEndNodes.Hold));
+            simulation.ForgetRecordedPoints(); // only the samples matter; a long run must not keep every point
             if (k == 0) continue;
 
             var delta = samples[k] - samples[k - 1];

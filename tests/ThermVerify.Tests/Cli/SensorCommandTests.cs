@@ -88,3 +88,24 @@ public class ValidateCommandTests
         }
     }
 }
+
+public class ErrorReportTests
+{
+    [Fact]
+    public void Failures_from_parallel_work_keep_their_exit_code()
+    {
+        // Parallel.For wraps a worker's exception; the user must still see exit 3 for a simulation failure.
+        var wrapped = new AggregateException(new ThermVerify.Simulation.SimulationException("did not settle"));
+        var error = new StringWriter();
+        Assert.Equal(ExitCodes.SimulationFailed, ErrorReport.Write(wrapped, error));
+        Assert.Equal("thermverify: did not settle", error.ToString().Trim());
+    }
+
+    [Fact]
+    public void Cancellation_says_nothing_was_written()
+    {
+        var error = new StringWriter();
+        Assert.Equal(ExitCodes.Cancelled, ErrorReport.Write(new OperationCanceledException(), error));
+        Assert.Contains("no output file was written", error.ToString());
+    }
+}

@@ -180,7 +180,11 @@ public class DesignLoaderTests
             var e = Assert.Throws<DesignException>(() => DesignLoader.Parse(text, "t.toml", folder));
             Assert.Contains("not found", e.Problem);
             File.WriteAllText(Path.Combine(folder, "rt.csv"), "celsius,ohms\n0,1000\n");
-            var d = DesignLoader.Parse(text, "t.toml", folder);
+            var tooShort = Assert.Throws<DesignException>(() => DesignLoader.Parse(text, "t.toml", folder));
+            Assert.Contains("at least 4", tooShort.Problem);
+            Assert.Equal(5, tooShort.Line);
+            File.WriteAllText(Path.Combine(folder, "rt.csv"), "celsius,ohms\n-50,300000\n0,30000\n50,4000\n130,300\n");
+            var d = DesignLoader.Parse(text.Replace("-40 degC .. 125 degC", "-40 degC .. 120 degC"), "t.toml", folder);
             Assert.Equal(Path.Combine(folder, "rt.csv"), Assert.IsType<TableSensorSpec>(d.Sensor).FullPath);
         }
         finally

@@ -25,11 +25,17 @@ public class AcTests
 
         var wide = AcAnalysis.Run(circuit, sweep);
         var v = wide.Voltage("out");
+        var db = wide.MagnitudeDb("out", "in");
+        var degrees = wide.PhaseDegrees("out", "in");
         for (var k = 0; k < v.Length; k++)
         {
             var expected = 1 / (1 + new Complex(0, 2 * Math.PI * sweep.FrequenciesHertz[k] * r * c));
             Tolerance.AssertClose(expected.Real, v[k].Real, 1e-12, 1e-15);
             Tolerance.AssertClose(expected.Imaginary, v[k].Imaginary, 1e-12, 1e-15);
+            // |H| = 1/√(1 + (f/fc)²) and ∠H = −atan(f/fc) for the same low-pass.
+            var x = sweep.FrequenciesHertz[k] / fc;
+            Tolerance.AssertClose(-10 * Math.Log10(1 + x * x), db[k], 1e-9, 1e-12);
+            Tolerance.AssertClose(-Math.Atan(x) * 180 / Math.PI, degrees[k], 1e-9, 1e-12);
         }
     }
 

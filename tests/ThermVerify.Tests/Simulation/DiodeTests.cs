@@ -52,6 +52,32 @@ public class DiodeTests
     }
 
     [Fact]
+    public void Clamp_leakage_follows_the_saturation_current_temperature_law()
+    {
+        var circuit = new CircuitBuilder()
+            .VoltageSource("Vdd", "vdd", "0", 3.3)
+            .Resistor("Rs", "vdd", "pin", 10e3)
+            .Resistor("Rl", "pin", "0", 10e3)
+            .Add(new Diode("Dhi", "pin", "vdd", 1e-14) { SaturationReferenceCelsius = 25 })
+            .Build();
+        double[] temperatures = [-40, 25, 85, 125];
+        var current = DcSweep.Temperature(circuit, temperatures).Current("Dhi");
+        for (var i = 0; i < temperatures.Length; i++)
+        {
+            // Reverse-biased by 1.65 V: I ≈ −Is(T) − gmin·1.65 V, with Is(T) = Is·(T/T0)³·exp((T/T0 − 1)·EG/Vt(T)),
+            // EG = 1.11 eV (SPICE2 diode temperature law, Nagel 1975, from memory).
+            var t = temperatures[i] + 273.15;
+            var vt = PhysicalConstants.BoltzmannJoulesPerKelvin * t / PhysicalConstants.ElementaryChargeCoulombs;
+            var isat = 1e-14 * Math.Pow(t / 298.15, 3) * Math.Exp((t / 298.15 - 1) * 1.11 / vt);
+            Tolerance.AssertClose(-isat - 1e-12 * 1.65, current[i], 1e-6);
+        }
+        // The law gives the familiar order of magnitude: about a doubling every 5–10 K near room temperature
+        // (common practice, no source).
+        double Junction(int i) => -current[i] - 1e-12 * 1.65;
+        Assert.InRange(Math.Log2(Junction(2) / Junction(1)) / 60, 1 / 10.0, 1 / 5.0);
+    }
+
+    [Fact]
     public void A_vcvs_that_defines_its_own_control_is_a_singular_matrix_naming_it()
     {
         var circuit = new CircuitBuilder()

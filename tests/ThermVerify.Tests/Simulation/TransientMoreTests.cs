@@ -111,4 +111,81 @@ public class TransientMoreTests
         simulation.AdvanceTo(1e-6);
         Assert.Throws<CircuitException>(() => Transient.Run(b, new TransientOptions { StopTimeSeconds = 2e-6 }, simulation.CaptureState()));
     }
+
+    [Fact]
+    public void A_step_that_cannot_meet_its_tolerance_above_the_minimum_step_names_time_and_analysis()
+    {
+        var circuit = new CircuitBuilder()
+            .VoltageSource("V1", "in", "0", new PulseWaveform(0, 1, 1e-6, 1e-9, 1e-9, 1, 0))
+            .Resistor("R1", "in", "out", 1e3)
+            .Capacitor("C1", "out", "0", 1e-12)
+            .Build();
+        // τ = 1 ns cannot be followed to reltol 1e-6 with steps of at least 0.1 µs.
+        var e = Assert.Throws<ConvergenceException>(() => Transient.Run(circuit,
+            new TransientOptions { StopTimeSeconds = 5e-6, MinStepSeconds = 1e-7 }));
+        Assert.Equal(TransientSimulation.AnalysisName, e.Analysis);
+        Assert.NotNull(e.TimeSeconds);
+        Assert.True(e.TimeSeconds >= 1e-6, "fails once the pulse rises");
+    }
+
+    [Fact]
+    public void Chunks_with_forgotten_history_reach_the_same_settled_sample()
+    {
+        var circuit = new CircuitBuilder()
+            .VoltageSource("V1", "top", "0", 3.3)
+            .Resistor("R1", "top", "pin", 10e3)
+            .Resistor("R2", "pin", "0", 10e3)
+            .Capacitor("Cext", "pin", "0", 10e-9)
+            .Switch("S1", "pin", "hold", 2e3, 1e12, new PeriodicSchedule(5e-6, 20e-6, 1e-6))
+            .Capacitor("Cs", "hold", "0", 8e-12)
+            .Switch("Sr", "hold", "0", 100, 1e12, new PeriodicSchedule(10e-6, 20e-6, 1e-6))
+            .Build();
+        var options = new TransientOptions { StopTimeSeconds = 400e-6, MaxStepSeconds = 5e-6 };
+        var whole = Transient.Run(circuit, options);
+
+        var simulation = new TransientSimulation(circuit, options);
+        var samples = new List<double>();
+        TransientResult? first = null;
+        for (var k = 0; k < 20; k++)
+        {
+            var end = 5e-6 + k * 20e-6 + 1e-6;
+            simulation.AdvanceTo(end);
+            samples.Add(simulation.Voltage("hold"));
+            first ??= simulation.Result;
+            simulation.ForgetRecordedPoints();
+        }
+        simulation.AdvanceTo(400e-6);
+        // Same circuit, same physics: the last sample and the end agree within the transient tolerance.
+        Tolerance.AssertClose(whole.VoltageAt("hold", 5e-6 + 19 * 20e-6 + 1e-6), samples[^1], 0, 1e-5);
+        Tolerance.AssertClose(whole.FinalVoltage("pin"), simulation.Voltage("pin"), 0, 1e-5);
+        // A result taken before forgetting still reads its own points.
+        Assert.Equal(6e-6, first!.EndTimeSeconds);
+        // Each sample approaches the divider's 1.65 V as the reservoir recovers (successive differences shrink).
+        Assert.True(Math.Abs(samples[^1] - samples[^2]) < Math.Abs(samples[1] - samples[0]));
+    }
+
+    [Fact]
+    public void Lc_tank_started_from_an_inductor_current_swings_to_i0_times_root_l_over_c()
+    {
+        const double l = 1e-3, c = 1e-6, i0 = 1e-3;
+        var w = 1 / Math.Sqrt(l * c);
+        var quarter = Math.PI / (2 * w);
+        var circuit = new CircuitBuilder()
+            .Add(new Inductor("L1", "x", "0", l, i0))
+            .Capacitor("C1", "x", "0", c, 0)
+            .Build();
+        var result = Transient.Run(circuit, new TransientOptions
+        {
+            StopTimeSeconds = 4 * quarter,
+            UseInitialConditions = true,
+            OutputTimesSeconds = [quarter, 2 * quarter, 3 * quarter],
+        });
+        // Lossless LC: C·dv/dt = −i_L, v(t) = −I0·√(L/C)·sin(ωt), ω = 1/√(LC) (energy exchange, textbook).
+        var peak = i0 * Math.Sqrt(l / c);
+        Tolerance.AssertClose(-peak, result.VoltageAt("x", quarter), 1e-4);
+        Tolerance.AssertClose(0, result.VoltageAt("x", 2 * quarter), 0, 1e-4 * peak);
+        Tolerance.AssertClose(peak, result.VoltageAt("x", 3 * quarter), 1e-4);
+        // After a full period the current is back to I0: i_L(t) = I0·cos(ωt).
+        Tolerance.AssertClose(i0, result.Current("L1")[^1], 1e-4);
+    }
 }

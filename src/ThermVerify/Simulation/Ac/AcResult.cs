@@ -40,6 +40,14 @@ public sealed class AcResult
         return [.. o.Zip(i, (a, b) => a / b)];
     }
 
+    /// <summary>|V(output)/V(input)| in dB at every frequency.</summary>
+    public double[] MagnitudeDb(string outputNode, string inputNode = "0") =>
+        Decibels(inputNode == "0" ? Voltage(outputNode) : Transfer(outputNode, inputNode));
+
+    /// <summary>∠(V(output)/V(input)) in degrees, unwrapped along the sweep.</summary>
+    public double[] PhaseDegrees(string outputNode, string inputNode = "0") =>
+        PhaseDegrees(inputNode == "0" ? Voltage(outputNode) : Transfer(outputNode, inputNode));
+
     public static double[] Decibels(IEnumerable<Complex> values) => [.. values.Select(v => 20 * Math.Log10(v.Magnitude))];
 
     /// <summary>Phase in degrees, unwrapped along the sweep so it is continuous.</summary>

@@ -110,6 +110,7 @@ internal sealed class BoundSystem
 
     private void RebuildBase()
     {
+        factorValid = false;
         Array.Copy(fixedBase, baseMatrix, fixedBase.Length);
         foreach (var s in varyingStatic)
             s.LoadStatic(baseMatrix);

@@ -18,49 +18,56 @@ internal sealed class DenseLu(int n)
     /// <summary>Factorises the first n² entries of <paramref name="matrix"/>; returns −1 or the failing column.</summary>
     public int Factor(double[] matrix)
     {
-        Array.Copy(matrix, lu, n * n);
-        Array.Clear(columnScale);
+        Span<double> a = lu;
+        Span<double> scale = columnScale;
+        scale.Clear();
         for (var i = 0; i < n; i++)
         {
             rowOfPivot[i] = i;
-            var row = i * n;
-            for (var j = 0; j < n; j++)
-                columnScale[j] = Math.Max(columnScale[j], Math.Abs(lu[row + j]));
+            var source = matrix.AsSpan(i * n, n);
+            var target = a.Slice(i * n, n);
+            for (var j = 0; j < source.Length; j++)
+            {
+                var v = source[j];
+                target[j] = v;
+                scale[j] = Math.Max(scale[j], Math.Abs(v));
+            }
         }
         for (var k = 0; k < n; k++)
         {
             var p = k;
-            var best = Math.Abs(lu[k * n + k]);
+            var best = Math.Abs(a[k * n + k]);
             for (var i = k + 1; i < n; i++)
             {
-                var v = Math.Abs(lu[i * n + k]);
+                var v = Math.Abs(a[i * n + k]);
                 if (v > best)
                 {
                     best = v;
                     p = i;
                 }
             }
-            if (!(best > PivotRelativeThreshold * columnScale[k]) || !double.IsFinite(best))
+            if (!(best > PivotRelativeThreshold * scale[k]) || !double.IsFinite(best))
                 return k;
             if (p != k)
             {
-                lu.AsSpan(p * n, n).CopyTo(work);
-                lu.AsSpan(k * n, n).CopyTo(lu.AsSpan(p * n, n));
-                work.AsSpan(0, n).CopyTo(lu.AsSpan(k * n, n));
+                var rowP = a.Slice(p * n, n);
+                var rowK = a.Slice(k * n, n);
+                for (var j = 0; j < rowP.Length; j++)
+                    (rowP[j], rowK[j]) = (rowK[j], rowP[j]);
                 (rowOfPivot[p], rowOfPivot[k]) = (rowOfPivot[k], rowOfPivot[p]);
             }
-            var kRow = k * n;
-            var inverse = 1.0 / lu[kRow + k];
+            var pivotRow = a.Slice(k * n + k + 1, n - k - 1);
+            var inverse = 1.0 / a[k * n + k];
             for (var i = k + 1; i < n; i++)
             {
-                var iRow = i * n;
-                var factor = lu[iRow + k];
+                var factor = a[i * n + k];
                 if (factor == 0)
                     continue;
                 factor *= inverse;
-                lu[iRow + k] = factor;
-                for (var j = k + 1; j < n; j++)
-                    lu[iRow + j] -= factor * lu[kRow + j];
+                a[i * n + k] = factor;
+                var row = a.Slice(i * n + k + 1, pivotRow.Length);
+                for (var j = 0; j < row.Length; j++)
+                    row[j] -= factor * pivotRow[j];
             }
         }
         return -1;

@@ -1,21 +1,35 @@
 namespace ThermVerify.Simulation.Mna;
 
-internal static class Warnings
+/// <summary>
+/// Collects the warnings of the stamps that check their converged points, keeping the first occurrence
+/// of each (element, subject). The scratch list is reused, so a run without warnings allocates nothing.
+/// </summary>
+internal sealed class Warnings(BoundSystem system)
 {
-    public static List<SimulationWarning> Collect(BoundSystem system)
+    private readonly Stamp[] checkers = [.. system.Stamps.Where(s => s.HasChecks)];
+    private readonly List<SimulationWarning> scratch = [];
+
+    public List<SimulationWarning> Found { get; } = [];
+
+    public bool Any => checkers.Length > 0;
+
+    /// <summary>Checks the present solution; new warnings are stamped with the time or sweep value.</summary>
+    public void Check(double? timeSeconds = null, double? sweepValue = null)
     {
-        var list = new List<SimulationWarning>();
-        foreach (var s in system.Stamps)
-            if (s.HasChecks)
-                s.Check(system.Context, list);
-        return list;
+        if (checkers.Length == 0)
+            return;
+        scratch.Clear();
+        foreach (var s in checkers)
+            s.Check(system.Context, scratch);
+        foreach (var w in scratch)
+            if (!Found.Exists(x => x.Element == w.Element && x.Subject == w.Subject))
+                Found.Add(w with { TimeSeconds = timeSeconds, SweepValue = sweepValue });
     }
 
-    /// <summary>Adds warnings whose element and subject were not yet reported: the first occurrence is kept.</summary>
-    public static void Merge(List<SimulationWarning> into, IEnumerable<SimulationWarning> fresh)
+    public static List<SimulationWarning> Collect(BoundSystem system)
     {
-        foreach (var w in fresh)
-            if (!into.Any(x => x.Element == w.Element && x.Subject == w.Subject))
-                into.Add(w);
+        var w = new Warnings(system);
+        w.Check();
+        return w.Found;
     }
 }

@@ -17,6 +17,7 @@ internal sealed class DiodeStamp : Stamp
     private readonly ConductanceSlots seriesSlots;
     private readonly double seriesConductance;
     private double thermalVoltage;
+    private double saturationCurrent;
     private double lastJunctionVolts;
     private double lastConductance;
     private double lastCurrent;
@@ -42,9 +43,12 @@ internal sealed class DiodeStamp : Stamp
 
     public override bool IsNonlinear => true;
 
-    public override void SetTemperature(double celsius) =>
+    public override void SetTemperature(double celsius)
+    {
         thermalVoltage = diode.EmissionCoefficient * PhysicalConstants.BoltzmannJoulesPerKelvin * PhysicalConstants.ToKelvin(celsius)
             / PhysicalConstants.ElementaryChargeCoulombs;
+        saturationCurrent = diode.SaturationCurrentAmperesAt(celsius);
+    }
 
     public override void LoadStatic(double[] matrix)
     {
@@ -55,7 +59,7 @@ internal sealed class DiodeStamp : Stamp
     public override void Load(LoadContext c)
     {
         var nvt = thermalVoltage;
-        var isat = diode.SaturationCurrentAmperes;
+        var isat = saturationCurrent;
         var v = c.Solution[junction] - c.Solution[cathode];
         var limited = Limit(v, lastJunctionVolts, nvt, isat);
         if (limited != v)
@@ -92,7 +96,7 @@ internal sealed class DiodeStamp : Stamp
     public override double CurrentAmperes(double[] solution)
     {
         var v = solution[junction] - solution[cathode];
-        return diode.SaturationCurrentAmperes * (Math.Exp(v / thermalVoltage) - 1) + 1e-12 * v;
+        return saturationCurrent * (Math.Exp(v / thermalVoltage) - 1) + 1e-12 * v;
     }
 
     public override void CollectNoise(NoiseContext n)

@@ -174,12 +174,14 @@ internal sealed class OpAmpStamp : Stamp
 
     public override void Check(LoadContext c, ICollection<SimulationWarning> warnings)
     {
-        foreach (var (pin, node) in new[] { (plus, amp.NonInverting), (minus, amp.Inverting) })
-        {
-            var v = c.Solution[pin];
-            if (v < amp.CommonModeLowVolts || v > amp.CommonModeHighVolts)
-                warnings.Add(new SimulationWarning(Element.Name, node,
-                    $"input '{node}' at {v:G6} V is outside the common-mode range {amp.CommonModeLowVolts:G6} V to {amp.CommonModeHighVolts:G6} V"));
-        }
+        CheckPin(c.Solution[plus], amp.NonInverting, warnings);
+        CheckPin(c.Solution[minus], amp.Inverting, warnings);
+    }
+
+    private void CheckPin(double volts, string node, ICollection<SimulationWarning> warnings)
+    {
+        if (volts < amp.CommonModeLowVolts || volts > amp.CommonModeHighVolts)
+            warnings.Add(new SimulationWarning(Element.Name, node,
+                $"input '{node}' at {volts:G6} V is outside the common-mode range {amp.CommonModeLowVolts:G6} V to {amp.CommonModeHighVolts:G6} V"));
     }
 }

@@ -1,0 +1,9 @@
+namespace ThermVerify.Baselines;
+
+/// <summary>The key figures of one design's check, with the design's fingerprint (SHA-256 of its normal form).</summary>
+public sealed record Baseline(string DesignName, string DesignSha256, string ToolVersion, IReadOnlyList<BaselineFigure> Figures)
+{
+    /// <summary>Where a design's baseline lives unless told otherwise: beside it, "probe.toml" → "probe.baseline.json".</summary>
+    public static string DefaultPathFor(string designPath) =>
+        Path.Combine(Path.GetDirectoryName(Path.GetFullPath(designPath))!, Path.GetFileNameWithoutExtension(designPath) + ".baseline.json");
+}

@@ -1,0 +1,47 @@
+using ThermVerify.Design;
+using ThermVerify.Sensors;
+using ThermVerify.Verification;
+
+namespace ThermVerify.Firmware;
+
+/// <summary>The firmware model of a design, optionally corrected for the simulated DC loading, and its fault tolerances.</summary>
+public static class FirmwareFromDesign
+{
+    /// <summary>
+    /// The design's divider and converter over its check range. With <paramref name="correctForLoading"/> the pin's
+    /// simulated DC offset from the unloaded divider (leakage, bias currents, fixed-resistor drift, and the average
+    /// sampling current where a reservoir and a known precharge level make it steady) becomes the loading correction,
+    /// interpolated linearly in the unloaded voltage between the sweep's points.
+    /// </summary>
+    public static FirmwareModel Model(FrontEndDesign design, bool correctForLoading)
+    {
+        var closedForm = new ClosedFormModel(design);
+        var model = new FirmwareModel(closedForm.Sensor, design.Divider.SensorSide, design.Divider.FixedResistorOhms,
+            design.Divider.ExcitationVolts, closedForm.Adc, design.Check.Range);
+        if (!correctForLoading) return model.Validated();
+
+        var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToArray();
+        var precharge = PrechargeCases.For(design, closedForm.Adc.ReferenceVolts) is [var only] ? only : null;
+        var dc = DcSweepCase.Run(design, precharge, temperatures);
+        var gain = closedForm.BufferGain;
+        var points = temperatures
+            .Select((t, i) => (Unloaded: closedForm.At(t).IdealVolts / gain, Offset: (dc.PinVolts[i] - closedForm.At(t).IdealVolts) / gain))
+            .OrderBy(p => p.Unloaded).ToArray();
+        return (model with { LoadingCorrectionVolts = v => Interpolate(points, v) }).Validated();
+    }
+
+    public static FaultTolerances Tolerances(FrontEndDesign design) => new(
+        ExcitationFraction: design.Divider.ExcitationTolerance,
+        ReferenceFraction: design.Adc.ReferenceTolerance,
+        FixedResistorFraction: design.Divider.FixedTolerance,
+        ExcitationTracksReference: design.Adc.IsRatiometric);
+
+    private static double Interpolate((double Unloaded, double Offset)[] points, double volts)
+    {
+        if (volts <= points[0].Unloaded) return points[0].Offset;
+        if (volts >= points[^1].Unloaded) return points[^1].Offset;
+        var i = Array.FindIndex(points, p => p.Unloaded >= volts);
+        var (a, b) = (points[i - 1], points[i]);
+        return a.Offset + (b.Offset - a.Offset) * (volts - a.Unloaded) / (b.Unloaded - a.Unloaded);
+    }
+}

@@ -1,0 +1,97 @@
+using System.Text;
+using ThermVerify.Baselines;
+using ThermVerify.Verification;
+using static ThermVerify.Reporting.ReportFormat;
+
+namespace ThermVerify.Reporting;
+
+/// <summary>The report as Markdown for a pull request: the same sections as the HTML page, figures as PNG files beside it.</summary>
+public static class CheckMarkdown
+{
+    /// <param name="plotFolder">Folder of the PNG files, relative to the Markdown file.</param>
+    public static string Render(CheckReport report, string plotFolder = "plots")
+    {
+        var r = report.Result;
+        var md = new StringBuilder();
+        md.AppendLine($"# thermverify check: {Cell(r.Design.Name)}");
+        md.AppendLine();
+        if (r.Design.Description is { } d) md.AppendLine($"{Cell(d)}\n");
+        md.AppendLine($"**{Cell(Verdict(r))}**");
+        md.AppendLine();
+        md.AppendLine("> **Caution:** simulation does not replace measurement on hardware; a reading that drives a heater, charger or cut-out needs independent protection (see Cautions below).");
+        md.AppendLine();
+        md.AppendLine("| | |\n|---|---|");
+        foreach (var (label, value) in Settings(r)) md.AppendLine($"| {label} | {Cell(value)} |");
+        md.AppendLine($"| design file | `{report.DesignFile}` |");
+        md.AppendLine();
+
+        if (report.Baseline is { } b)
+        {
+            md.AppendLine("## Baseline comparison");
+            md.AppendLine();
+            md.AppendLine($"{(b.Passed ? "No figure got worse than its tolerance" : $"**{b.Figures.Count(f => f.Change == Change.Worse)} figure(s) got worse than their tolerance**")} against `{b.BaselinePath}`" +
+                          $"{(b.DesignChanged ? " (the design has changed since the baseline was written)" : "")}.");
+            md.AppendLine();
+            md.AppendLine("| figure | baseline | now | change | tolerance | verdict |\n|---|--:|--:|--:|--:|---|");
+            foreach (var f in b.Figures)
+                md.AppendLine($"| {Cell(f.Description)} (`{f.Id}`) | {Figure(f.Before, f.Unit)} | {Figure(f.Now, f.Unit)} | {Delta(f)} | ±{N(f.Tolerance, "0.####")} {f.Unit} | {ChangeText(f.Change)} |");
+            md.AppendLine();
+        }
+
+        md.AppendLine("## Figures");
+        md.AppendLine();
+        foreach (var p in report.Plots)
+        {
+            md.AppendLine($"![{p.Title}]({plotFolder}/{p.FileStem}.png)");
+            md.AppendLine();
+            md.AppendLine($"*{Cell(p.Title)}.* {Cell(p.Caption)}");
+            md.AppendLine();
+        }
+
+        md.AppendLine("## Findings");
+        md.AppendLine();
+        if (r.Findings.Count == 0) md.AppendLine("None: every effect is within ½ LSB.\n");
+        foreach (var f in r.Findings)
+        {
+            md.AppendLine($"### {f.Severity.ToString().ToUpperInvariant()} `{f.Id}`: {Cell(f.Title)}");
+            md.AppendLine();
+            md.AppendLine($"{C(f.FromCelsius)} to {C(f.ToCelsius)}, worst at {C(f.WorstCelsius)}: {V(f.SizeVolts, Quantities.UnitKind.Volt)} = {N(f.SizeLsb, "+0.##;-0.##")} LSB = {K(f.SizeKelvin)}.");
+            md.AppendLine();
+            md.AppendLine($"Cause: {Cell(f.Cause)}" + (f.EstimateVolts is { } e && f.SimulatedVolts is { } s
+                ? $"; closed form {V(e, Quantities.UnitKind.Volt)}, simulated {V(s, Quantities.UnitKind.Volt)}." : "."));
+            md.AppendLine();
+            foreach (var m in f.Remedies)
+                md.AppendLine($"- **{Cell(m.Action)}{(m.Value is null ? "" : " " + RemedyValue(m))}** (`{m.Key}`): {Cell(m.Method)}");
+            if (f.Remedies.Count > 0) md.AppendLine();
+        }
+
+        md.AppendLine("## Points");
+        md.AppendLine();
+        md.AppendLine("The error split by cause, in K (reported minus true), at selected points; the HTML report and `--json` have every point.");
+        md.AppendLine();
+        md.AppendLine("| " + string.Join(" | ", PointHeaders) + " |");
+        md.AppendLine("|" + string.Concat(PointHeaders.Select(_ => "--:|")));
+        foreach (var p in Selected(r.Points, r.Worst, 9))
+            md.AppendLine("| " + string.Join(" | ", PointCells(p)) + " |");
+        md.AppendLine();
+
+        md.AppendLine("<details><summary>Design file (normal form)</summary>");
+        md.AppendLine();
+        md.AppendLine("```toml");
+        md.Append(report.DesignToml.TrimEnd('\n'));
+        md.AppendLine();
+        md.AppendLine("```");
+        md.AppendLine();
+        md.AppendLine("</details>");
+        md.AppendLine();
+        md.AppendLine("## Cautions");
+        md.AppendLine();
+        foreach (var (heading, text) in ReportCautions.All) md.AppendLine($"- **{heading}** {text}");
+        md.AppendLine();
+        md.AppendLine($"thermverify {report.ToolVersion}");
+        return md.ToString();
+    }
+
+    /// <summary>Text safe inside a Markdown table cell and paragraph: pipes escaped, no line breaks.</summary>
+    private static string Cell(string text) => text.Replace("|", "\\|").Replace("\n", " ");
+}

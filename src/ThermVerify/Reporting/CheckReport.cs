@@ -1,0 +1,14 @@
+using ThermVerify.Baselines;
+using ThermVerify.Design;
+using ThermVerify.Reporting.Plots;
+using ThermVerify.Verification;
+
+namespace ThermVerify.Reporting;
+
+/// <summary>Everything a report page shows: the check, the design it ran on (normal form), the figures and an optional baseline comparison.</summary>
+public sealed record CheckReport(CheckResult Result, string DesignFile, string DesignToml, IReadOnlyList<RenderedPlot> Plots, BaselineComparison? Baseline, string ToolVersion)
+{
+    /// <summary>Renders the figures (one extra sampling transient at the worst point) and echoes the design.</summary>
+    public static CheckReport Build(CheckResult result, string designFile, BaselineComparison? baseline = null) =>
+        new(result, designFile, DesignWriter.ToToml(result.Design), CheckPlots.Render(result), baseline, CheckJson.ToolVersion());
+}

@@ -1,0 +1,89 @@
+using System.Globalization;
+using ThermVerify.Baselines;
+using ThermVerify.Quantities;
+using ThermVerify.Verification;
+
+namespace ThermVerify.Reporting;
+
+/// <summary>Number formats shared by the HTML and Markdown reports, so both print a figure the same way.</summary>
+internal static class ReportFormat
+{
+    public static string V(double value, UnitKind unit) => double.IsFinite(value) ? EngineeringFormat.Format(value, unit, 4) : "n/a";
+    public static string C(double celsius) => $"{N(celsius, "0.##")} °C";
+    public static string N(double value, string format) => double.IsFinite(value) ? value.ToString(format, CultureInfo.InvariantCulture) : "n/a";
+
+    public static string K(double kelvin, bool signed = true) =>
+        !double.IsFinite(kelvin) ? "n/a" : N(kelvin, signed ? "+0.000;-0.000;0.000" : "0.000") + " K";
+
+    public static string Verdict(CheckResult r)
+    {
+        var w = r.Worst;
+        return r.Passed
+            ? $"PASS: worst reported error {K(w.ErrorKelvin)} at {C(w.Celsius)} (budget {K(w.BudgetKelvin, false)})"
+            : $"FAIL: worst reported error {K(w.ErrorKelvin)} at {C(w.Celsius)} (budget {K(w.BudgetKelvin, false)}); " +
+              $"{r.Points.Count(p => !p.WithinBudget)} of {r.Points.Count} points over budget, {r.Findings.Count(f => f.Severity == Severity.Fail)} failing finding(s)";
+    }
+
+    public static string RemedyValue(Remedy r) => r.Value is not { } v ? "" : r.Unit switch
+    {
+        "s" => V(v, UnitKind.Second),
+        "F" => V(v, UnitKind.Farad),
+        "Hz" => V(v, UnitKind.Hertz),
+        "Ω" => V(v, UnitKind.Ohm),
+        _ => $"{N(v, "0.###")} {r.Unit}",
+    };
+
+    public static string Figure(double? value, string unit) => value is { } v ? $"{N(v, "0.####")} {unit}" : "none (unreadable code)";
+
+    public static string Delta(FigureChange f) => f.Delta is { } d ? N(d, "+0.####;-0.####;0") : "";
+
+    public static string ChangeText(Change c) => c switch
+    {
+        Change.Same => "same",
+        Change.Better => "better",
+        Change.Worse => "WORSE",
+        Change.New => "new",
+        _ => "gone",
+    };
+
+    /// <summary>Both ends, the worst point and evenly spread points between, in temperature order.</summary>
+    public static IEnumerable<CheckPoint> Selected(IReadOnlyList<CheckPoint> points, CheckPoint worst, int rows) =>
+        Enumerable.Range(0, rows - 1)
+            .Select(i => points[(int)Math.Round(i * (points.Count - 1) / (double)Math.Max(rows - 2, 1))])
+            .Append(worst).Distinct().OrderBy(p => p.Celsius);
+
+    public static string[] PointHeaders => ["T (°C)", "ideal", "DC pin", "sample", "code", "reported (°C)", "error (K)", "quantisation", "DC loading", "settling", "buffer", "rest", "budget (K)", "K/LSB"];
+
+    public static string[] PointCells(CheckPoint p) =>
+    [
+        N(p.Celsius, "0.##"), V(p.IdealVolts, UnitKind.Volt), V(p.DcPinVolts, UnitKind.Volt), V(p.WorstSampleVolts, UnitKind.Volt),
+        p.Code.ToString(CultureInfo.InvariantCulture), double.IsFinite(p.ReportedCelsius) ? N(p.ReportedCelsius, "0.000") : "none",
+        Signed(p.ErrorKelvin), Signed(p.Contributions.QuantisationKelvin), Signed(p.Contributions.DcLoadingKelvin),
+        Signed(p.Contributions.SettlingKelvin), Signed(p.Contributions.BufferKelvin), Signed(p.Contributions.RestKelvin),
+        N(p.BudgetKelvin, "0.###"), N(p.KelvinPerLsb, "0.0000"),
+    ];
+
+    private static string Precharge(Design.PrechargeMode mode) => mode switch
+    {
+        Design.PrechargeMode.LastSample => "last-sample",
+        Design.PrechargeMode.OtherChannel => "other-channel",
+        _ => "discharged",
+    };
+
+    private static string Signed(double kelvin) => N(kelvin, "+0.000;-0.000;0.000");
+
+    public static IEnumerable<(string Label, string Value)> Settings(CheckResult result)
+    {
+        var d = result.Design;
+        yield return ("sensor", result.SensorDescription);
+        yield return ("divider", $"sensor on the {(d.Divider.SensorSide == Design.SensorSide.High ? "high" : "low")} side, fixed {V(d.Divider.FixedResistorOhms, UnitKind.Ohm)}, excitation {V(d.Divider.ExcitationVolts, UnitKind.Volt)}");
+        if (d.Buffer is { } b) yield return ("buffer", $"gain {N(b.Gain, "0.###")}, isolation {V(b.IsolationResistorOhms, UnitKind.Ohm)}");
+        yield return ("filter", d.Filter.SeriesResistorOhms == 0 && d.Filter.ReservoirCapacitorFarads == 0 ? "none"
+            : $"series {V(d.Filter.SeriesResistorOhms, UnitKind.Ohm)}, reservoir {V(d.Filter.ReservoirCapacitorFarads, UnitKind.Farad)}");
+        yield return ("ADC", $"{d.Adc.Bits} bits, reference {(d.Adc.IsRatiometric ? "ratiometric" : V(result.Adc.ReferenceVolts, UnitKind.Volt))}, " +
+                             $"1 LSB = {V(result.Adc.LsbVolts, UnitKind.Volt)}, {V(d.Adc.SampleRateHertz, UnitKind.Hertz)}, acquisition {V(d.Adc.AcquisitionTimeSeconds, UnitKind.Second)}, " +
+                             $"C_sh {V(d.Adc.SamplingCapacitanceFarads, UnitKind.Farad)}, precharge {Precharge(d.Adc.Precharge)}");
+        yield return ("check", $"{V(d.Check.Range.MinCelsius, UnitKind.Celsius)} to {V(d.Check.Range.MaxCelsius, UnitKind.Celsius)} in {V(d.Check.StepKelvin, UnitKind.Kelvin)} steps, budget {V(d.Check.BudgetKelvin, UnitKind.Kelvin)}" +
+                               string.Concat(d.Check.Regions.Select(r => $"; {C(r.Range.MinCelsius)} to {C(r.Range.MaxCelsius)}: {V(r.BudgetKelvin, UnitKind.Kelvin)}")));
+    }
+}
