@@ -21,6 +21,9 @@ public static class CliApp
             BaselineCommand.Create(),
             TableCommand.Create(),
             VerifyTableCommand.Create(),
+            WorstCaseCommand.Create(),
+            MonteCarloCommand.Create(),
+            ChooseFixedCommand.Create(),
         };
         if (args.Length == 0)
         {

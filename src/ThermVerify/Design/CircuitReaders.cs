@@ -14,7 +14,15 @@ internal static class CircuitReaders
 
     public static DividerSpec ReadDivider(TomlSection s)
     {
-        s.AllowOnly(["sensor_side", "fixed_resistor", "fixed_tolerance", "fixed_tempco", "excitation", "excitation_tolerance"]);
+        s.AllowOnly(["sensor_side", "fixed_resistor", "fixed_tolerance", "fixed_tempco", "excitation", "excitation_tolerance", "switch_on_lead", "reading_interval"]);
+        var lead = s.Quantity("switch_on_lead", Bound.Positive, UnitKind.Second)?.Value;
+        var interval = s.Quantity("reading_interval", Bound.Positive, UnitKind.Second)?.Value;
+        if (interval is not null && lead is null)
+            throw s.ErrorAtKey("reading_interval", "reading_interval without switch_on_lead",
+                "reading_interval describes a switched excitation: add switch_on_lead = \"200 us\", or remove reading_interval.");
+        if (lead is { } l && interval is { } i && i <= l)
+            throw s.ErrorAtValue("reading_interval", "the reading interval is not longer than the switch-on lead",
+                "The excitation is on for switch_on_lead plus one conversion in every reading_interval; make the interval longer.");
         return new DividerSpec
         {
             SensorSide = s.Choice("sensor_side", Sides)
@@ -24,6 +32,8 @@ internal static class CircuitReaders
             FixedTempcoPerKelvin = s.ValueOr("fixed_tempco", DesignDefaults.Tolerance, Bound.Any, UnitKind.PpmPerKelvin),
             ExcitationVolts = s.RequiredValue("excitation", Bound.Positive, "Write excitation = \"3.3 V\".", UnitKind.Volt),
             ExcitationTolerance = SensorReader.Tolerance(s, "excitation_tolerance"),
+            SwitchOnLeadSeconds = lead,
+            ReadingIntervalSeconds = interval,
         };
     }
 

@@ -13,6 +13,8 @@ public static class DesignDefaults
     public const double LeakageDoublingKelvin = 10;
     public const double PinLeakageCelsius = 25;
     public const double MinimumPhaseMarginDegrees = 45;
+    /// <summary>A normal tolerance is at 3σ unless the design says otherwise.</summary>
+    public const double CoverageFactor = 3;
     public const int MinBits = 6;
     public const int MaxBits = 24;
 }

@@ -8,7 +8,7 @@ namespace ThermVerify.Design;
 /// </summary>
 public static class DesignLoader
 {
-    private static readonly string[] TopKeys = ["name", "description", "sensor", "divider", "buffer", "filter", "adc", "check"];
+    private static readonly string[] TopKeys = ["name", "description", "sensor", "divider", "buffer", "filter", "adc", "check", "tolerances"];
 
     public static FrontEndDesign Load(string path)
     {
@@ -51,6 +51,7 @@ public static class DesignLoader
             Filter = root.Section("filter") is { } filter ? CircuitReaders.ReadFilter(filter) : FilterSpec.None,
             Adc = AdcReader.Read(root.RequiredSection("adc", "Add an [adc] section (bits, reference, sample_rate, acquisition_time, ...).")),
             Check = CheckReader.Read(root.RequiredSection("check", "Add a [check] section (range, budget)."), model.ValidRange),
+            Tolerances = root.Section("tolerances") is { } tolerances ? ToleranceReader.Read(tolerances) : ToleranceSpec.Default,
         };
     }
 

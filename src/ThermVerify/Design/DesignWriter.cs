@@ -26,6 +26,7 @@ public static class DesignWriter
         w.Value("reservoir_capacitor", design.Filter.ReservoirCapacitorFarads, UnitKind.Farad);
         WriteAdc(w, design.Adc);
         WriteCheck(w, design.Check);
+        WriteTolerances(w, design.Tolerances);
         return w.ToString();
     }
 
@@ -91,6 +92,10 @@ public static class DesignWriter
         w.Value("fixed_tempco", d.FixedTempcoPerKelvin, UnitKind.PpmPerKelvin);
         w.Value("excitation", d.ExcitationVolts, UnitKind.Volt);
         w.Value("excitation_tolerance", d.ExcitationTolerance, UnitKind.Percent);
+        if (d.SwitchOnLeadSeconds is { } lead)
+            w.Value("switch_on_lead", lead, UnitKind.Second);
+        if (d.ReadingIntervalSeconds is { } interval)
+            w.Value("reading_interval", interval, UnitKind.Second);
     }
 
     private static void WriteBuffer(Writer w, BufferSpec b)
@@ -170,6 +175,15 @@ public static class DesignWriter
             w.Range("range", region.Range.MinCelsius, region.Range.MaxCelsius, UnitKind.Celsius);
             w.Value("budget", region.BudgetKelvin, UnitKind.Kelvin);
         }
+    }
+
+    private static void WriteTolerances(Writer w, ToleranceSpec t)
+    {
+        w.Section("tolerances");
+        w.Text("distribution", t.Distribution == ToleranceShape.Normal ? "normal" : "uniform");
+        if (t.Distribution == ToleranceShape.Normal)
+            w.Number("coverage_factor", t.CoverageFactor);
+        w.Value("leakage_spread", t.LeakageSpread, UnitKind.Percent);
     }
 
     private sealed class Writer

@@ -14,4 +14,11 @@ public sealed record DividerSpec
     public double FixedTempcoPerKelvin { get; init; } = DesignDefaults.Tolerance;
     public required double ExcitationVolts { get; init; }
     public double ExcitationTolerance { get; init; } = DesignDefaults.Tolerance;
+    /// <summary>
+    /// Null: the divider is excited all the time. A value: the firmware switches the excitation on this long before
+    /// the first acquisition window opens, takes one reading and switches it off again.
+    /// </summary>
+    public double? SwitchOnLeadSeconds { get; init; }
+    /// <summary>With a switched excitation: time from one reading to the next (sets the sensor's duty cycle).</summary>
+    public double? ReadingIntervalSeconds { get; init; }
 }

@@ -15,4 +15,6 @@ public sealed record FrontEndDesign
     public required FilterSpec Filter { get; init; }
     public required AdcSpec Adc { get; init; }
     public required CheckSpec Check { get; init; }
+    /// <summary>How tolerances are spread for the worst-case and Monte Carlo analyses.</summary>
+    public ToleranceSpec Tolerances { get; init; } = ToleranceSpec.Default;
 }

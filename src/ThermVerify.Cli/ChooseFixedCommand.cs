@@ -1,0 +1,93 @@
+using System.CommandLine;
+using System.Globalization;
+using System.Text;
+using ThermVerify.Components;
+using ThermVerify.Design;
+using ThermVerify.Quantities;
+using ThermVerify.Reporting;
+using ThermVerify.Tolerances;
+
+namespace ThermVerify.Cli;
+
+/// <summary>`thermverify choose-fixed`: rank the values of an E-series as the divider's fixed resistor.</summary>
+internal static class ChooseFixedCommand
+{
+    private static readonly Dictionary<string, FixedResistorObjective> Objectives = new()
+    {
+        ["error"] = FixedResistorObjective.WorstError,
+        ["resolution"] = FixedResistorObjective.WorstResolution,
+        ["slope"] = FixedResistorObjective.SlopeAt,
+    };
+
+    public static Command Create()
+    {
+        var design = new Argument<FileInfo>("design") { Description = "the design file (TOML)" };
+        var series = new Option<string>("--series") { Description = "IEC 60063 series to choose from (E6 … E192)", DefaultValueFactory = _ => "E96" };
+        var objective = new Option<string>("--objective")
+        {
+            Description = "error: smallest worst reported error; resolution: finest worst K per LSB; slope: steepest dV/dT at --at",
+            DefaultValueFactory = _ => "error",
+        };
+        objective.AcceptOnlyFromAmong([.. Objectives.Keys]);
+        var at = new Option<string?>("--at") { Description = "temperature of the slope objective (default: the middle of the check range)" };
+        var min = new Option<string?>("--min") { Description = "smallest candidate (default: the sensor's smallest resistance over the range)" };
+        var max = new Option<string?>("--max") { Description = "largest candidate (default: the sensor's largest resistance over the range)" };
+        var top = new Option<int>("--top") { Description = "candidates to print", DefaultValueFactory = _ => 15 };
+        var threads = new Option<int>("--threads") { Description = "candidates checked in parallel", DefaultValueFactory = _ => Environment.ProcessorCount };
+        var command = new Command("choose-fixed", "Search an E-series for the fixed resistor that gives the smallest worst error (loading, settling and self-heating included) or the finest resolution.")
+        {
+            design, series, objective, at, min, max, top, threads,
+        };
+        command.SetAction((parsed, cancel) =>
+        {
+            var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
+            var seriesName = parsed.GetValue(series)!;
+            if (!ESeries.TryParse(seriesName, out var chosen))
+                throw new UsageException($"--series {seriesName}: not an IEC 60063 series; use E6, E12, E24, E48, E96 or E192.");
+            var goal = Objectives[parsed.GetValue(objective)!];
+            var options = new FixedResistorSearchOptions
+            {
+                Series = chosen,
+                Objective = goal,
+                SlopeCelsius = parsed.GetValue(at) is { } a ? QuantityParser.Parse(a, UnitKind.Celsius).Value : null,
+                MinimumOhms = parsed.GetValue(min) is { } lo ? QuantityParser.Parse(lo, UnitKind.Ohm).Value : null,
+                MaximumOhms = parsed.GetValue(max) is { } hi ? QuantityParser.Parse(hi, UnitKind.Ohm).Value : null,
+                Threads = Math.Max(1, parsed.GetValue(threads)),
+                Progress = goal == FixedResistorObjective.SlopeAt ? null : ProgressDisplay.For(parsed.InvocationConfiguration.Error, "candidates"),
+                Cancel = cancel,
+            };
+            if (options.MinimumOhms is { } minimum && options.MaximumOhms is { } maximum && !(minimum > 0 && maximum >= minimum))
+                throw new UsageException($"--min {parsed.GetValue(min)} and --max {parsed.GetValue(max)}: give a positive range with --min not above --max.");
+            var ranked = FixedResistorSearch.Run(loaded, options);
+            if (ranked.Count == 0)
+                throw new UsageException($"No {chosen} value lies between the bounds; widen --min/--max or choose a finer series.");
+            parsed.InvocationConfiguration.Output.Write(Render(loaded, chosen, goal, ranked, parsed.GetValue(top)));
+            return Task.FromResult(ExitCodes.Success);
+        });
+        return command;
+    }
+
+    private static string Render(FrontEndDesign design, ESeries series, FixedResistorObjective goal, IReadOnlyList<FixedResistorCandidate> ranked, int top)
+    {
+        var text = new StringBuilder();
+        text.AppendLine(FormattableString.Invariant($"{design.Name}: {ranked.Count} {series} candidates, ranked by {Describe(goal)}; now {Ohms(design.Divider.FixedResistorOhms)}"));
+        var table = new TextTable("rank", "R_fixed", "worst error (K)", "at (°C)", "worst K/LSB", "|dV/dT| (mV/K)", "self-heating (mK)", "budget");
+        foreach (var (c, i) in ranked.Take(Math.Max(1, top)).Select((c, i) => (c, i)))
+            table.AddRow((i + 1).ToString(CultureInfo.InvariantCulture), Ohms(c.Ohms), F(c.WorstErrorKelvin, "0.000"), F(c.WorstErrorCelsius, "0.##"),
+                F(c.WorstKelvinPerLsb, "0.0000"), F(c.SlopeVoltsPerKelvin * 1e3, "0.000"), F(c.MaximumSelfHeatingKelvin * 1e3, "0.0"),
+                goal == FixedResistorObjective.SlopeAt ? "-" : c.WithinBudget ? "within" : "over");
+        text.Append(table);
+        return text.ToString();
+    }
+
+    private static string Describe(FixedResistorObjective goal) => goal switch
+    {
+        FixedResistorObjective.WorstResolution => "worst resolution (K per LSB, smallest first)",
+        FixedResistorObjective.SlopeAt => "divider slope |dV/dT| (steepest first)",
+        _ => "worst reported error with self-heating (smallest first)",
+    };
+
+    private static string Ohms(double v) => EngineeringFormat.Format(v, UnitKind.Ohm, 3);
+
+    private static string F(double v, string format) => double.IsFinite(v) ? v.ToString(format, CultureInfo.InvariantCulture) : "-";
+}

@@ -1,0 +1,126 @@
+using ThermVerify.Components;
+using ThermVerify.Design;
+using ThermVerify.Sensors;
+using ThermVerify.Verification;
+
+namespace ThermVerify.Tolerances;
+
+/// <summary>What makes one fixed resistor better than another.</summary>
+public enum FixedResistorObjective
+{
+    /// <summary>The smallest worst reported error over the range (check, plus self-heating).</summary>
+    WorstError,
+    /// <summary>The finest worst resolution over the range, in K per LSB.</summary>
+    WorstResolution,
+    /// <summary>The steepest divider slope |dV/dT| at one temperature (closed form only).</summary>
+    SlopeAt,
+}
+
+public sealed record FixedResistorSearchOptions
+{
+    public ESeries Series { get; init; } = ESeries.E96;
+    public FixedResistorObjective Objective { get; init; } = FixedResistorObjective.WorstError;
+    /// <summary>Candidates from here; null: the smallest sensor resistance over the range.</summary>
+    public double? MinimumOhms { get; init; }
+    /// <summary>Candidates up to here; null: the largest sensor resistance over the range.</summary>
+    public double? MaximumOhms { get; init; }
+    /// <summary>Temperature of <see cref="FixedResistorObjective.SlopeAt"/>; null: the middle of the check range.</summary>
+    public double? SlopeCelsius { get; init; }
+    public int Threads { get; init; } = Environment.ProcessorCount;
+    /// <summary>Called from worker threads as candidates complete.</summary>
+    public IProgress<RunProgress>? Progress { get; init; }
+    public CancellationToken Cancel { get; init; }
+}
+
+/// <summary>
+/// One candidate with its figures: the worst reported error (the check's error with the self-heating warming added,
+/// at the worst temperature), the worst resolution, the slope at the objective's temperature and the largest
+/// self-heating. Figures that the objective does not need are NaN when they were not simulated.
+/// </summary>
+public sealed record FixedResistorCandidate(
+    double Ohms,
+    double WorstErrorKelvin,
+    double WorstErrorCelsius,
+    double WorstKelvinPerLsb,
+    double SlopeVoltsPerKelvin,
+    double MaximumSelfHeatingKelvin,
+    bool WithinBudget);
+
+/// <summary>
+/// Tries every value of an E-series (IEC 60063) between two bounds as the fixed resistor and ranks them. The error
+/// and resolution objectives run the full check for each candidate (loading, leakage, settling by transient, with
+/// the sampling transients on a coarser grid than `check`) and add the sensor's self-heating; the slope objective
+/// is the closed form |dV/dT| = V·R_f/(R_s + R_f)²·|dR_s/dT|, whose maximum over R_f is at R_f = R_s (common practice).
+/// </summary>
+public static class FixedResistorSearch
+{
+    /// <summary>Sampling transients per candidate: coarser than `check`, enough to follow a smooth settling error.</summary>
+    private const int SamplingPointsPerCandidate = 9;
+
+    public static IReadOnlyList<FixedResistorCandidate> Run(FrontEndDesign design, FixedResistorSearchOptions? options = null)
+    {
+        options ??= new FixedResistorSearchOptions();
+        var sensor = design.Sensor.Build();
+        var range = design.Check.Range;
+        var ends = new[] { sensor.ResistanceOhms(range.MinCelsius), sensor.ResistanceOhms(range.MaxCelsius) };
+        // Between the sensor's extremes: outside them the divider's slope falls at both ends of the range at once.
+        var low = options.MinimumOhms ?? ends.Min();
+        var high = options.MaximumOhms ?? ends.Max();
+        if (!(low > 0 && high >= low))
+            throw new ArgumentException($"The fixed-resistor search needs 0 < minimum ≤ maximum; got {low:G4} Ω to {high:G4} Ω.");
+        var candidates = Candidates(options.Series, low, high);
+        var slopeAt = options.SlopeCelsius ?? (range.MinCelsius + range.MaxCelsius) / 2;
+        var results = new FixedResistorCandidate[candidates.Count];
+        var parallel = new ParallelOptions { MaxDegreeOfParallelism = options.Threads, CancellationToken = options.Cancel };
+        var done = 0;
+        Parallel.For(0, candidates.Count, parallel, i =>
+        {
+            results[i] = Evaluate(design with { Divider = design.Divider with { FixedResistorOhms = candidates[i] } },
+                options.Objective, slopeAt);
+            options.Progress?.Report(new RunProgress(Interlocked.Increment(ref done), candidates.Count));
+        });
+        return options.Objective switch
+        {
+            FixedResistorObjective.SlopeAt => [.. results.OrderByDescending(r => r.SlopeVoltsPerKelvin)],
+            FixedResistorObjective.WorstResolution => [.. results.OrderBy(r => Key(r.WorstKelvinPerLsb))],
+            _ => [.. results.OrderBy(r => Key(Math.Abs(r.WorstErrorKelvin))).ThenBy(r => r.WorstKelvinPerLsb)],
+        };
+    }
+
+    /// <summary>Every series value in [low, high], ascending.</summary>
+    public static IReadOnlyList<double> Candidates(ESeries series, double low, double high)
+    {
+        var list = new List<double>();
+        var v = series.Contains(low) ? series.Nearest(low) : series.NextHigher(low);
+        while (v <= high * (1 + 1e-12))
+        {
+            list.Add(v);
+            v = series.NextHigher(v);
+        }
+        return list;
+    }
+
+    private static FixedResistorCandidate Evaluate(FrontEndDesign candidate, FixedResistorObjective objective, double slopeAt)
+    {
+        var model = new ClosedFormModel(candidate);
+        var slope = Math.Abs(model.At(slopeAt).VoltsPerKelvin);
+        if (objective == FixedResistorObjective.SlopeAt)
+            return new FixedResistorCandidate(candidate.Divider.FixedResistorOhms, double.NaN, double.NaN, double.NaN, slope, double.NaN, false);
+
+        var check = FrontEndCheck.Run(candidate, new CheckOptions
+        {
+            MaximumSamplingPoints = SamplingPointsPerCandidate, Threads = 1, ComputeRemedies = false,
+        });
+        var points = check.Points;
+        var rise = SelfHeating.RiseKelvin(candidate, SelfHeating.PowerWatts(candidate, model.Sensor,
+            [.. points.Select(p => p.Celsius)], [.. points.Select(p => p.DividerVolts)]));
+        // The warmer sensor reads high by its warming (to first order, the firmware reads the sensor's own temperature).
+        var errors = points.Select((p, i) => p.ErrorKelvin + rise[i]).ToArray();
+        var worst = Enumerable.Range(0, errors.Length).MaxBy(i => Key(Math.Abs(errors[i])));
+        var within = Enumerable.Range(0, errors.Length).All(i => double.IsFinite(errors[i]) && Math.Abs(errors[i]) <= points[i].BudgetKelvin);
+        return new FixedResistorCandidate(candidate.Divider.FixedResistorOhms, errors[worst], points[worst].Celsius,
+            points.Max(p => p.KelvinPerLsb), slope, rise.DefaultIfEmpty(0).Max(), within);
+    }
+
+    private static double Key(double v) => double.IsFinite(v) ? v : double.PositiveInfinity;
+}

@@ -1,0 +1,44 @@
+namespace ThermVerify.Tolerances;
+
+/// <summary>The spread of the reading error at one temperature over the units.</summary>
+public sealed record EnvelopePoint(
+    double Celsius,
+    double BudgetKelvin,
+    double NominalErrorKelvin,
+    double MinKelvin,
+    IReadOnlyList<double> PercentileKelvin,
+    double MaxKelvin,
+    double MeanKelvin,
+    double StandardDeviationKelvin);
+
+/// <summary>One tolerance's share of the variance of the error, from a linear fit of the error on the deviations.</summary>
+public sealed record VarianceShare(string Key, ToleranceKind? Kind, double Share, double KelvinPerUnit);
+
+/// <summary>A histogram of the units' worst errors, for plots.</summary>
+public sealed record Histogram(double[] LowerEdgesKelvin, double BinWidthKelvin, int[] Counts);
+
+/// <summary>
+/// Everything a Monte Carlo run found; the contributors are ranked at <see cref="ContributorsCelsius"/>, where the
+/// units spread most, and <see cref="VarianceKelvinSquared"/> is the unquantised error's variance there; the per-unit arrays are there for plots and further analysis.</summary>
+public sealed record MonteCarloResult(
+    int Units,
+    ulong Seed,
+    IReadOnlyList<ToleranceParameter> Parameters,
+    IReadOnlyList<double> Percentiles,
+    IReadOnlyList<EnvelopePoint> Envelope,
+    int UnitsWithinBudget,
+    double ContributorsCelsius,
+    double VarianceKelvinSquared,
+    IReadOnlyList<VarianceShare> Contributors,
+    Histogram WorstErrors,
+    double[] WorstErrorKelvin,
+    double[] WorstCelsius,
+    double[][] Deviations,
+    double MaximumSelfHeatingKelvin)
+{
+    /// <summary>Fraction of units within the budget at every temperature.</summary>
+    public double Yield => (double)UnitsWithinBudget / Units;
+
+    /// <summary>Binomial standard error of <see cref="Yield"/>: √(y(1 − y)/N).</summary>
+    public double YieldStandardError => Math.Sqrt(Yield * (1 - Yield) / Units);
+}

@@ -1,0 +1,63 @@
+using ThermVerify.Design;
+using ThermVerify.Sensors;
+using ThermVerify.Verification;
+
+namespace ThermVerify.Tolerances;
+
+/// <summary>The sensor's own heating over the check range.</summary>
+public sealed record SelfHeatingProfile(
+    IReadOnlyList<double> Celsius,
+    IReadOnlyList<double> PowerWatts,
+    IReadOnlyList<double> RiseKelvin,
+    double DutyCycle,
+    double? DissipationConstantWattsPerKelvin);
+
+/// <summary>
+/// Self-heating in the terms of IEC 60539-1: the sensor dissipates P = V²/R at its simulated operating point and
+/// warms by ΔT = P/δ over its surroundings, δ being the dissipation constant. With a switched excitation the sensor
+/// is powered for the switch-on lead and one conversion in every reading interval; its thermal time constant is
+/// taken as much longer than the interval, so the mean power counts (P times the duty cycle).
+/// </summary>
+public static class SelfHeating
+{
+    /// <summary>Fraction of the time the divider is excited: 1 unless the design switches it.</summary>
+    public static double DutyCycle(FrontEndDesign design)
+    {
+        var d = design.Divider;
+        if (d.SwitchOnLeadSeconds is not { } lead || d.ReadingIntervalSeconds is not { } interval) return 1;
+        return Math.Min(1, (lead + 1 / design.Adc.SampleRateHertz) / interval);
+    }
+
+    /// <summary>Sensor power at each temperature from the divider voltages of a simulated DC sweep.</summary>
+    public static double[] PowerWatts(FrontEndDesign design, ISensorModel sensor, IReadOnlyList<double> celsius, IReadOnlyList<double> dividerVolts)
+    {
+        var power = new double[celsius.Count];
+        var high = design.Divider.SensorSide == SensorSide.High;
+        for (var i = 0; i < power.Length; i++)
+        {
+            var across = high ? design.Divider.ExcitationVolts - dividerVolts[i] : dividerVolts[i];
+            power[i] = across * across / sensor.ResistanceOhms(celsius[i]);
+        }
+        return power;
+    }
+
+    /// <summary>ΔT = duty·P/δ at each temperature; zeros when the design gives no dissipation constant.</summary>
+    public static double[] RiseKelvin(FrontEndDesign design, IReadOnlyList<double> powerWatts)
+    {
+        var rise = new double[powerWatts.Count];
+        if (design.Sensor.DissipationConstantWattsPerKelvin is not { } delta) return rise;
+        var duty = DutyCycle(design);
+        for (var i = 0; i < rise.Length; i++)
+            rise[i] = duty * powerWatts[i] / delta;
+        return rise;
+    }
+
+    /// <summary>The nominal design's profile over its check grid, from the simulated DC sweep.</summary>
+    public static SelfHeatingProfile Profile(FrontEndDesign design)
+    {
+        var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToArray();
+        var divider = DcSweepCase.Run(design, null, temperatures).DividerVolts;
+        var power = PowerWatts(design, design.Sensor.Build(), temperatures, divider);
+        return new SelfHeatingProfile(temperatures, power, RiseKelvin(design, power), DutyCycle(design), design.Sensor.DissipationConstantWattsPerKelvin);
+    }
+}

@@ -1,0 +1,28 @@
+namespace ThermVerify.Tolerances;
+
+/// <summary>Which part of a unit a tolerance moves.</summary>
+public enum ToleranceKind
+{
+    /// <summary>Sensor resistance scale (R25 or R0 of a Beta NTC; every point of a table or Steinhart–Hart curve together).</summary>
+    SensorResistance,
+    /// <summary>β of a Beta-model NTC.</summary>
+    SensorBeta,
+    /// <summary>IEC 60751 class of a platinum RTD: a temperature deviation, as a fraction of the class band ±(a + b·|t|).</summary>
+    RtdClass,
+    FixedResistance,
+    /// <summary>Fixed resistor tempco, spread over ±|tempco| (the written tempco is read as a bound).</summary>
+    FixedTempco,
+    Excitation,
+    /// <summary>ADC reference (absent when ratiometric: the reference is the excitation, which then cancels).</summary>
+    Reference,
+    /// <summary>IEEE Std 1241 offset error, LSB.</summary>
+    AdcOffset,
+    /// <summary>IEEE Std 1241 gain error, fraction of full scale.</summary>
+    AdcGain,
+    /// <summary>IEEE Std 1241 integral nonlinearity, LSB, as a bow between the end points.</summary>
+    AdcInl,
+    BufferOffset,
+    BufferBias,
+    /// <summary>ADC pin leakage, as a fraction of its nominal value.</summary>
+    Leakage,
+}

@@ -1,0 +1,82 @@
+using ThermVerify.Design;
+
+namespace ThermVerify.Tolerances;
+
+/// <summary>
+/// Every nonzero tolerance of a design, in a fixed order. A unit is a vector of deviations, one per parameter,
+/// in the parameter's own unit. Values the design gives as bounds without a nominal (fixed-resistor tempco, op-amp
+/// offset and bias, ADC offset, gain error and INL) are spread over ±|bound| around zero.
+/// </summary>
+public sealed class ToleranceSet
+{
+    private ToleranceSet(IReadOnlyList<ToleranceParameter> parameters) => Parameters = parameters;
+
+    public IReadOnlyList<ToleranceParameter> Parameters { get; }
+
+    public int Count => Parameters.Count;
+
+    public int IndexOf(ToleranceKind kind)
+    {
+        for (var i = 0; i < Parameters.Count; i++)
+            if (Parameters[i].Kind == kind)
+                return i;
+        return -1;
+    }
+
+    public static ToleranceSet From(FrontEndDesign design)
+    {
+        var d = ToleranceDistribution.Of(design.Tolerances);
+        var list = new List<ToleranceParameter>();
+        void Add(ToleranceKind kind, string key, double halfWidth, string unit)
+        {
+            if (halfWidth != 0) list.Add(new ToleranceParameter(kind, key, Math.Abs(halfWidth), unit, d));
+        }
+
+        switch (design.Sensor)
+        {
+            case BetaSensorSpec b:
+                Add(ToleranceKind.SensorResistance, "sensor.resistance_tolerance", b.ResistanceTolerance, "");
+                Add(ToleranceKind.SensorBeta, "sensor.beta_tolerance", b.BetaTolerance, "");
+                break;
+            case SteinhartHartSensorSpec sh:
+                Add(ToleranceKind.SensorResistance, "sensor.resistance_tolerance", sh.ResistanceTolerance, "");
+                break;
+            case TableSensorSpec t:
+                Add(ToleranceKind.SensorResistance, "sensor.resistance_tolerance", t.ResistanceTolerance, "");
+                break;
+            case RtdSensorSpec r when r.ToleranceClass is not null:
+                Add(ToleranceKind.RtdClass, "sensor.class", 1, "class band");
+                break;
+        }
+        var divider = design.Divider;
+        Add(ToleranceKind.FixedResistance, "divider.fixed_tolerance", divider.FixedTolerance, "");
+        Add(ToleranceKind.FixedTempco, "divider.fixed_tempco", divider.FixedTempcoPerKelvin, "1/K");
+        Add(ToleranceKind.Excitation, "divider.excitation_tolerance", divider.ExcitationTolerance, "");
+        var adc = design.Adc;
+        if (!adc.IsRatiometric)
+            Add(ToleranceKind.Reference, "adc.reference_tolerance", adc.ReferenceTolerance, "");
+        Add(ToleranceKind.AdcOffset, "adc.offset_error", adc.OffsetErrorLsb, "LSB");
+        Add(ToleranceKind.AdcGain, "adc.gain_error", adc.GainError, "");
+        Add(ToleranceKind.AdcInl, "adc.inl", adc.InlLsb, "LSB");
+        if (design.Buffer is { } buffer)
+        {
+            Add(ToleranceKind.BufferOffset, "buffer.offset_voltage", buffer.OffsetVolts, "V");
+            Add(ToleranceKind.BufferBias, "buffer.bias_current", buffer.BiasCurrentAmperes, "A");
+        }
+        if (adc.PinLeakageAmperes != 0)
+            Add(ToleranceKind.Leakage, "tolerances.leakage_spread", design.Tolerances.LeakageSpread, "");
+        return new ToleranceSet(list);
+    }
+
+    /// <summary>The deviations of one unit, drawn from its own stream.</summary>
+    public double[] Sample(ref UnitRandom random)
+    {
+        var deviations = new double[Parameters.Count];
+        for (var i = 0; i < deviations.Length; i++)
+            deviations[i] = Parameters[i].Distribution.Sample(ref random, Parameters[i].HalfWidth);
+        return deviations;
+    }
+
+    /// <summary>The corner of the tolerance box with the given signs (+1 or −1 per parameter).</summary>
+    public double[] Corner(IReadOnlyList<int> signs) => [.. Parameters.Select((p, i) => signs[i] * p.HalfWidth)];
+}

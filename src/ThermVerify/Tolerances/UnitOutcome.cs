@@ -1,0 +1,17 @@
+namespace ThermVerify.Tolerances;
+
+/// <summary>
+/// What one unit reports over the check grid: the error of the firmware's reading (quantised, as the firmware sees
+/// it, and unquantised for sensitivities), the self-heating included in it, and where the sampling was simulated
+/// with the unit's own parts.
+/// </summary>
+public sealed record UnitOutcome(
+    double[] ErrorKelvin,
+    double[] UnquantisedErrorKelvin,
+    double[] SelfHeatingKelvin,
+    int WorstIndex,
+    bool WithinBudget,
+    double? SettlingSimulatedCelsius)
+{
+    public double WorstErrorKelvin => ErrorKelvin[WorstIndex];
+}
