@@ -69,6 +69,8 @@ public static class CheckSummaryText
         "F" => V(value, UnitKind.Farad),
         "Hz" => V(value, UnitKind.Hertz),
         "Ω" => V(value, UnitKind.Ohm),
+        "V" => V(value, UnitKind.Volt),
+        "V/s" => V(value, UnitKind.VoltPerSecond),
         _ => $"{N(value, "0.###")} {unit}",
     };
 

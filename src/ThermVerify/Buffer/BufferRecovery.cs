@@ -1,0 +1,59 @@
+using ThermVerify.Design;
+using ThermVerify.Verification;
+
+namespace ThermVerify.Buffer;
+
+/// <summary>The buffer's share of the settling error after the sampling kicks, and what the design would need.</summary>
+public sealed record RecoveryResult(
+    double Celsius,
+    double? PrechargeVolts,
+    double SettlingErrorVolts,
+    double IdealBufferSettlingErrorVolts,
+    double AllowedVolts,
+    double? NeededGainBandwidthHertz,
+    double? NeededSlewRateVoltsPerSecond,
+    string Method)
+{
+    /// <summary>What the real op-amp adds to the settling error beyond an ideal (fast, unlimited-slew) one.</summary>
+    public double BufferShareVolts => SettlingErrorVolts - IdealBufferSettlingErrorVolts;
+}
+
+/// <summary>
+/// Recovery after each sampling kick, by simulation at the temperature and precharge case where `check` found the
+/// largest settling error: the sampling transient (conversion after conversion until stable) with the design's
+/// op-amp, and again with an ideal one (100 × the gain-bandwidth, no slew limit); the difference is the buffer's
+/// share. The gain-bandwidth the design needs is the smallest that brings the settling error within ½ LSB with no
+/// slew limit; the slew rate it needs is the smallest that does so at the larger of that and the design's
+/// gain-bandwidth (both by bisection on the simulated sample). Neither exists when an ideal buffer still misses
+/// ½ LSB: then the filter and the sampling network, not the op-amp, limit.
+/// </summary>
+public static class BufferRecovery
+{
+    private const double IdealFactor = 100;
+    private const double SearchPrecision = 0.02;
+
+    public static RecoveryResult Run(FrontEndDesign design, double celsius, double? prechargeVolts, bool search)
+    {
+        var b = BufferCircuits.Require(design);
+        var adc = new ClosedFormModel(design).Adc;
+        var allowed = adc.LsbVolts / 2;
+        var settle = design.Check.SettleLimitLsb * adc.LsbVolts;
+        double Error(BufferSpec spec) => Remedies.SettlingErrorVolts(design with { Buffer = spec }, celsius, prechargeVolts, settle);
+
+        var real = Error(b);
+        var ideal = Error(b with { GainBandwidthHertz = IdealFactor * b.GainBandwidthHertz, SlewRateVoltsPerSecond = null });
+        double? gbw = null, slew = null;
+        if (search && ideal <= allowed)
+        {
+            gbw = MonotoneSearch.SmallestPassing(b.GainBandwidthHertz * 1e-4, IdealFactor * b.GainBandwidthHertz,
+                g => Error(b with { GainBandwidthHertz = g, SlewRateVoltsPerSecond = null }) <= allowed, SearchPrecision);
+            var atGbw = Math.Max(gbw ?? b.GainBandwidthHertz, b.GainBandwidthHertz);
+            slew = MonotoneSearch.SmallestPassing(1e3, 1e11,
+                s => Error(b with { GainBandwidthHertz = atGbw, SlewRateVoltsPerSecond = s }) <= allowed, SearchPrecision);
+        }
+        var method = FormattableString.Invariant(
+            $"sampling transients at {celsius:0.##} °C, {PrechargeCases.Describe(prechargeVolts)}: design op-amp against one with {IdealFactor:0}× the gain-bandwidth and no slew limit; ") +
+            (search ? $"bisection ({SearchPrecision:P0}) on the simulated sample for ½ LSB" : "searches skipped (--no-remedies)");
+        return new RecoveryResult(celsius, prechargeVolts, real, ideal, allowed, gbw, slew, method);
+    }
+}
