@@ -14,6 +14,9 @@ public sealed record RecoveryResult(
     double? NeededSlewRateVoltsPerSecond,
     string Method)
 {
+    /// <summary>Where the gain-bandwidth search starts: a need equal to it means "this or less".</summary>
+    public double? GainBandwidthFloorHertz { get; init; }
+
     /// <summary>What the real op-amp adds to the settling error beyond an ideal (fast, unlimited-slew) one.</summary>
     public double BufferShareVolts => SettlingErrorVolts - IdealBufferSettlingErrorVolts;
 }
@@ -30,6 +33,10 @@ public sealed record RecoveryResult(
 public static class BufferRecovery
 {
     private const double IdealFactor = 100;
+
+    /// <summary>The searches start here (relative to the design's GBW, and absolute for the slew rate); a result at the floor means any op-amp down to it will do.</summary>
+    public const double GainBandwidthFloorFactor = 1e-4;
+    public const double SlewRateFloorVoltsPerSecond = 1e3;
     private const double SearchPrecision = 0.02;
 
     public static RecoveryResult Run(FrontEndDesign design, double celsius, double? prechargeVolts, bool search)
@@ -45,15 +52,15 @@ public static class BufferRecovery
         double? gbw = null, slew = null;
         if (search && ideal <= allowed)
         {
-            gbw = MonotoneSearch.SmallestPassing(b.GainBandwidthHertz * 1e-4, IdealFactor * b.GainBandwidthHertz,
+            gbw = MonotoneSearch.SmallestPassing(b.GainBandwidthHertz * GainBandwidthFloorFactor, IdealFactor * b.GainBandwidthHertz,
                 g => Error(b with { GainBandwidthHertz = g, SlewRateVoltsPerSecond = null }) <= allowed, SearchPrecision);
             var atGbw = Math.Max(gbw ?? b.GainBandwidthHertz, b.GainBandwidthHertz);
-            slew = MonotoneSearch.SmallestPassing(1e3, 1e11,
+            slew = MonotoneSearch.SmallestPassing(SlewRateFloorVoltsPerSecond, 1e11,
                 s => Error(b with { GainBandwidthHertz = atGbw, SlewRateVoltsPerSecond = s }) <= allowed, SearchPrecision);
         }
         var method = FormattableString.Invariant(
             $"sampling transients at {celsius:0.##} °C, {PrechargeCases.Describe(prechargeVolts)}: design op-amp against one with {IdealFactor:0}× the gain-bandwidth and no slew limit; ") +
-            (search ? $"bisection ({SearchPrecision:P0}) on the simulated sample for ½ LSB" : "searches skipped (--no-remedies)");
-        return new RecoveryResult(celsius, prechargeVolts, real, ideal, allowed, gbw, slew, method);
+            (search ? $"bisection ({SearchPrecision:P0}) on the simulated sample for ½ LSB; a need at the search floor (GBW × {GainBandwidthFloorFactor:G2}, {SlewRateFloorVoltsPerSecond:G2} V/s) means any op-amp down to it settles" : "searches skipped (--no-remedies)");
+        return new RecoveryResult(celsius, prechargeVolts, real, ideal, allowed, gbw, slew, method) { GainBandwidthFloorHertz = b.GainBandwidthHertz * GainBandwidthFloorFactor };
     }
 }

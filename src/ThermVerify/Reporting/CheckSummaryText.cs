@@ -44,6 +44,7 @@ public static class CheckSummaryText
         text.Append(table);
         text.AppendLine();
 
+        text.Append(BufferSectionRender.Text(result.Buffer));
         if (result.Findings.Count == 0) text.AppendLine("Findings: none; every effect is within ½ LSB.");
         else text.AppendLine("Findings:");
         foreach (var f in result.Findings) AppendFinding(text, f);
