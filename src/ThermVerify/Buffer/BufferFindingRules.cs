@@ -30,7 +30,7 @@ public static class BufferFindingRules
             findings.Add(new Finding("buffer-stability", Severity.Fail,
                 I($"the buffer's phase margin {worst.PhaseMarginDegrees:0.#}° is below the minimum {stability.MinimumPhaseMarginDegrees:0.#}°"),
                 range.MinCelsius, range.MaxCelsius, worst.Celsius, double.NaN, double.NaN, double.NaN,
-                I($"the load capacitance behind the op-amp's output resistance adds a pole inside the loop; crossover {worst.CrossoverHertz:G4} Hz, ") +
+                $"the load capacitance behind the op-amp's output resistance adds a pole inside the loop; crossover {Hertz(worst.CrossoverHertz)}, " +
                 I($"single-pole estimate {worst.ClosedFormPhaseMarginDegrees:0.#}°") +
                 (stability.Step is { } s ? I($"; a {s.StepVolts * 1e3:0.##} mV step overshoots {s.OvershootPercent:0.#} %") : ""),
                 null, null, remedies));
@@ -97,6 +97,8 @@ public static class BufferFindingRules
         }
         return findings;
     }
+
+    private static string Hertz(double? f) => f is { } v ? Quantities.EngineeringFormat.Format(v, Quantities.UnitKind.Hertz, 4) : "none";
 
     private static string I(FormattableString s) => s.ToString(CultureInfo.InvariantCulture);
 }

@@ -46,6 +46,18 @@ public static class BufferRecovery
         var allowed = adc.LsbVolts / 2;
         var settle = design.Check.SettleLimitLsb * adc.LsbVolts;
         double Error(BufferSpec spec) => Remedies.SettlingErrorVolts(design with { Buffer = spec }, celsius, prechargeVolts, settle);
+        // Far below the need the op-amp stays slewing and the transient may not converge: that candidate does not settle either.
+        bool Settles(BufferSpec spec)
+        {
+            try
+            {
+                return Error(spec) <= allowed;
+            }
+            catch (Simulation.SimulationException)
+            {
+                return false;
+            }
+        }
 
         var real = Error(b);
         var ideal = Error(b with { GainBandwidthHertz = IdealFactor * b.GainBandwidthHertz, SlewRateVoltsPerSecond = null });
@@ -53,14 +65,14 @@ public static class BufferRecovery
         if (search && ideal <= allowed)
         {
             gbw = MonotoneSearch.SmallestPassing(b.GainBandwidthHertz * GainBandwidthFloorFactor, IdealFactor * b.GainBandwidthHertz,
-                g => Error(b with { GainBandwidthHertz = g, SlewRateVoltsPerSecond = null }) <= allowed, SearchPrecision);
+                g => Settles(b with { GainBandwidthHertz = g, SlewRateVoltsPerSecond = null }), SearchPrecision);
             var atGbw = Math.Max(gbw ?? b.GainBandwidthHertz, b.GainBandwidthHertz);
             slew = MonotoneSearch.SmallestPassing(SlewRateFloorVoltsPerSecond, 1e11,
-                s => Error(b with { GainBandwidthHertz = atGbw, SlewRateVoltsPerSecond = s }) <= allowed, SearchPrecision);
+                s => Settles(b with { GainBandwidthHertz = atGbw, SlewRateVoltsPerSecond = s }), SearchPrecision);
         }
         var method = FormattableString.Invariant(
             $"sampling transients at {celsius:0.##} °C, {PrechargeCases.Describe(prechargeVolts)}: design op-amp against one with {IdealFactor:0}× the gain-bandwidth and no slew limit; ") +
-            (search ? $"bisection ({SearchPrecision:P0}) on the simulated sample for ½ LSB; a need at the search floor (GBW × {GainBandwidthFloorFactor:G2}, {SlewRateFloorVoltsPerSecond:G2} V/s) means any op-amp down to it settles" : "searches skipped (--no-remedies)");
+            (search ? $"bisection ({SearchPrecision:P0}) on the simulated sample for ½ LSB; a candidate whose transient does not converge counts as not settling; a need at the search floor (GBW × {GainBandwidthFloorFactor:G2}, {SlewRateFloorVoltsPerSecond:G2} V/s) means any op-amp down to it settles" : "searches skipped (--no-remedies)");
         return new RecoveryResult(celsius, prechargeVolts, real, ideal, allowed, gbw, slew, method) { GainBandwidthFloorHertz = b.GainBandwidthHertz * GainBandwidthFloorFactor };
     }
 }

@@ -104,5 +104,6 @@ public static class BufferSections
 
     private static string Opt(double? value, UnitKind unit) => value is { } v ? V(v, unit) : "none";
     private static string Opt(double? value, string format) => value is { } v ? N(v, format) : "none";
-    private static string Range(double low, double high) => $"{(double.IsFinite(low) ? V(low, UnitKind.Volt) : "−∞")} to {(double.IsFinite(high) ? V(high, UnitKind.Volt) : "+∞")}";
+    private static string Range(double low, double high) =>
+        !double.IsFinite(low) && !double.IsFinite(high) ? "not limited" : $"{(double.IsFinite(low) ? V(low, UnitKind.Volt) : "−∞")} to {(double.IsFinite(high) ? V(high, UnitKind.Volt) : "+∞")}";
 }

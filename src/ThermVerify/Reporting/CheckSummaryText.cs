@@ -83,7 +83,7 @@ public static class CheckSummaryText
 
     private static string V(double value, UnitKind unit) => double.IsFinite(value) ? EngineeringFormat.Format(value, unit, 4) : "n/a";
     private static string C(double celsius) => $"{N(celsius, "0.##")} °C";
-    private static string N(double value, string format) => value.ToString(format, CultureInfo.InvariantCulture);
+    private static string N(double value, string format) => double.IsFinite(value) ? value.ToString(format, CultureInfo.InvariantCulture) : "n/a";
 
     private static string K(double kelvin, bool signed = true, bool unit = true) =>
         !double.IsFinite(kelvin) ? "n/a" : N(kelvin, signed ? "+0.000;-0.000;0.000" : "0.000") + (unit ? " K" : "");
