@@ -35,13 +35,15 @@ public static class BufferStep
         var t = result.TimesSeconds;
         var v = result.Voltage(node);
         var initial = result.VoltageAt(node, start);
-        var final = v[^1];
-        var size = final - initial;
+        // The end value from the gain, not the last sample: a lightly damped loop may still ring when the run stops.
+        var size = step * b.Gain;
+        var final = initial + size;
         var direction = Math.Sign(size);
         var peakIndex = Enumerable.Range(0, t.Length).Where(i => t[i] >= start).MaxBy(i => direction * v[i]);
         var overshoot = Math.Max(0, direction * (v[peakIndex] - final) / Math.Abs(size)) * 100;
         var lastOutside = Enumerable.Range(0, t.Length).LastOrDefault(i => t[i] >= start && Math.Abs(v[i] - final) > 0.01 * Math.Abs(size), -1);
-        var settling = lastOutside < 0 ? 0 : (lastOutside + 1 < t.Length ? t[lastOutside + 1] : t[^1]) - start;
+        // Still outside 1 % at the end of the run: no settling time (∞), not the run's length.
+        var settling = lastOutside < 0 ? 0 : lastOutside + 1 < t.Length ? t[lastOutside + 1] - start : double.PositiveInfinity;
         return new StepResponse(step * b.Gain, overshoot, t[peakIndex] - start, settling, node,
             [.. t.Select(x => x - start)], v);
     }

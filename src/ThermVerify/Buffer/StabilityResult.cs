@@ -16,7 +16,7 @@ public sealed record StabilityResult(
     public double ClosedFormPhaseMarginDegrees => ClosedForm.PhaseMarginDegrees;
 }
 
-/// <summary>The closed-loop step: the second view of stability, from a transient.</summary>
+/// <summary>The closed-loop step: the second view of stability, from a transient. <see cref="SettlingSeconds"/> is ∞ when the output is still outside 1 % when the run ends.</summary>
 public sealed record StepResponse(
     double StepVolts,
     double OvershootPercent,

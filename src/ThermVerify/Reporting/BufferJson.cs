@@ -30,7 +30,7 @@ internal static class BufferJson
                 stepVolts = s.StepVolts,
                 overshootPercent = s.OvershootPercent,
                 peakSeconds = s.PeakSeconds,
-                settlingSeconds = s.SettlingSeconds,
+                settlingSeconds = N(s.SettlingSeconds),
             } : null,
         },
         headroom = new

@@ -21,7 +21,8 @@ public static class BufferSections
         };
         if (s.Step is { } step)
             notes.Add($"Closed-loop step (transient): a {V(step.StepVolts, UnitKind.Volt)} step at the input overshoots {N(step.OvershootPercent, "0.#")} % at node '{step.Node}', " +
-                      $"peak after {V(step.PeakSeconds, UnitKind.Second)}, within 1 % after {V(step.SettlingSeconds, UnitKind.Second)}.");
+                      $"peak after {V(step.PeakSeconds, UnitKind.Second)}, " +
+                      (double.IsFinite(step.SettlingSeconds) ? $"within 1 % after {V(step.SettlingSeconds, UnitKind.Second)}." : $"still outside 1 % when the run ends ({V(step.TimesSeconds[^1], UnitKind.Second)} after the step)."));
         if (s.IsolationForTargetOhms is { } r)
             notes.Add($"Isolation resistor for {N(s.TargetPhaseMarginDegrees, "0")}° (search on the loop gain): {V(r, UnitKind.Ohm)}" +
                       (s.ClosedFormIsolationForTargetOhms is { } c ? $"; single-pole estimate {V(c, UnitKind.Ohm)}." : "."));
