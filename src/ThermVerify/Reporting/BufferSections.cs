@@ -74,10 +74,11 @@ public static class BufferSections
         if (r is null)
             return new BufferSection("buffer-recovery", "Buffer recovery after sampling", ["Not simulated: the output clips (see headroom)."], [], []);
         return new BufferSection("buffer-recovery", "Buffer recovery after sampling", [$"Method: {r.Method}."],
-            ["T (°C)", "settling error", "with an ideal op-amp", "buffer's share", "share (LSB)", "GBW needed", "slew rate needed"],
+            ["T (°C)", "settling error", "with an ideal op-amp", "buffer's share", "share (LSB)", "from slew rate", "from bandwidth", "GBW needed", "slew rate needed"],
             [[
                 N(r.Celsius, "0.##"), V(r.SettlingErrorVolts, UnitKind.Volt), V(r.IdealBufferSettlingErrorVolts, UnitKind.Volt), V(r.BufferShareVolts, UnitKind.Volt),
-                N(r.BufferShareVolts / (2 * r.AllowedVolts), "+0.###;-0.###;0"), AtMost(r.NeededGainBandwidthHertz, r.GainBandwidthFloorHertz ?? 0, UnitKind.Hertz), AtMost(r.NeededSlewRateVoltsPerSecond, BufferRecovery.SlewRateFloorVoltsPerSecond, UnitKind.VoltPerSecond),
+                N(r.BufferShareVolts / (2 * r.AllowedVolts), "+0.###;-0.###;0"),
+                V(r.SlewShareVolts, UnitKind.Volt), V(r.BandwidthShareVolts, UnitKind.Volt), AtMost(r.NeededGainBandwidthHertz, r.GainBandwidthFloorHertz ?? 0, UnitKind.Hertz), AtMost(r.NeededSlewRateVoltsPerSecond, BufferRecovery.SlewRateFloorVoltsPerSecond, UnitKind.VoltPerSecond),
             ]]);
     }
 
