@@ -48,6 +48,25 @@ public class BufferOutputTests
     }
 
     [Fact]
+    public void Html_and_markdown_reports_carry_the_buffer_sections_and_an_unbuffered_design_has_none()
+    {
+        var buffered = ThermVerify.Verification.FrontEndCheck.Run(BufferDesigns.Follower(("filter.reservoir_capacitor", "\"10 nF\""), ("buffer.isolation_resistor", "\"47 ohm\"")),
+            new ThermVerify.Verification.CheckOptions { ComputeRemedies = false, MaximumSamplingPoints = 3 });
+        var report = new ThermVerify.Reporting.CheckReport(buffered, "test.toml", "", [], null, "test");
+        var html = ThermVerify.Reporting.CheckHtml.Render(report);
+        var md = ThermVerify.Reporting.CheckMarkdown.Render(report);
+        foreach (var id in new[] { "buffer-stability", "buffer-headroom", "buffer-static", "buffer-recovery", "buffer-noise" })
+            Assert.Contains($"<section id=\"{id}\">", html);
+        Assert.Contains("## Buffer stability", md);
+        Assert.Contains("## Noise at the ADC", md);
+
+        var plain = ThermVerify.Verification.FrontEndCheck.Run(Verification.TestDesign.Make(), new ThermVerify.Verification.CheckOptions { ComputeRemedies = false, MaximumSamplingPoints = 3 });
+        Assert.Null(plain.Buffer);
+        Assert.DoesNotContain("buffer-stability", ThermVerify.Reporting.CheckHtml.Render(new ThermVerify.Reporting.CheckReport(plain, "t.toml", "", [], null, "test")));
+        Assert.Contains("\"buffer\": null", ThermVerify.Reporting.CheckJson.Write(plain));
+    }
+
+    [Fact]
     public void Compare_puts_an_unbuffered_and_a_buffered_design_side_by_side()
     {
         var run = CliRunner.Run("compare", Example("cold-storage-logger.toml"), Example("cold-storage-logger-buffered.toml"), "--no-remedies");
