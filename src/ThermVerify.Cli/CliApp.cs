@@ -21,6 +21,7 @@ public static class CliApp
             BaselineCommand.Create(),
             TableCommand.Create(),
             VerifyTableCommand.Create(),
+            CompareCommand.Create(),
             WorstCaseCommand.Create(),
             MonteCarloCommand.Create(),
             ChooseFixedCommand.Create(),

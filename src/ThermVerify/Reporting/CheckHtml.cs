@@ -49,6 +49,7 @@ public static partial class CheckHtml
             html.Append($"<figure id=\"figure-{plot.FileStem}\" class=\"plot\">\n{InlineSvg(plot.Svg, plot.FileStem, plot.Title)}\n<figcaption><strong>{E(plot.Title)}.</strong> {E(plot.Caption)}</figcaption>\n</figure>\n");
         html.Append("</section>\n");
 
+        html.Append(BufferSectionRender.Html(r.Buffer));
         AppendFindings(html, r);
         AppendPoints(html, r);
 

@@ -100,6 +100,7 @@ public static class CheckJson
             conversions = s.ConversionsSimulated,
             extrapolated = s.Extrapolated,
         }),
+        buffer = BufferJson.Document(r.Buffer),
         findings = r.Findings.Select(f => new
         {
             id = f.Id,

@@ -48,6 +48,7 @@ public static class CheckMarkdown
             md.AppendLine();
         }
 
+        md.Append(BufferSectionRender.Markdown(r.Buffer));
         md.AppendLine("## Findings");
         md.AppendLine();
         if (r.Findings.Count == 0) md.AppendLine("None: every effect is within ½ LSB.\n");

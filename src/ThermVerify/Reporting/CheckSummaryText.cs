@@ -44,6 +44,7 @@ public static class CheckSummaryText
         text.Append(table);
         text.AppendLine();
 
+        text.Append(BufferSectionRender.Text(result.Buffer));
         if (result.Findings.Count == 0) text.AppendLine("Findings: none; every effect is within ½ LSB.");
         else text.AppendLine("Findings:");
         foreach (var f in result.Findings) AppendFinding(text, f);
@@ -69,6 +70,8 @@ public static class CheckSummaryText
         "F" => V(value, UnitKind.Farad),
         "Hz" => V(value, UnitKind.Hertz),
         "Ω" => V(value, UnitKind.Ohm),
+        "V" => V(value, UnitKind.Volt),
+        "V/s" => V(value, UnitKind.VoltPerSecond),
         _ => $"{N(value, "0.###")} {unit}",
     };
 
@@ -80,7 +83,7 @@ public static class CheckSummaryText
 
     private static string V(double value, UnitKind unit) => double.IsFinite(value) ? EngineeringFormat.Format(value, unit, 4) : "n/a";
     private static string C(double celsius) => $"{N(celsius, "0.##")} °C";
-    private static string N(double value, string format) => value.ToString(format, CultureInfo.InvariantCulture);
+    private static string N(double value, string format) => double.IsFinite(value) ? value.ToString(format, CultureInfo.InvariantCulture) : "n/a";
 
     private static string K(double kelvin, bool signed = true, bool unit = true) =>
         !double.IsFinite(kelvin) ? "n/a" : N(kelvin, signed ? "+0.000;-0.000;0.000" : "0.000") + (unit ? " K" : "");

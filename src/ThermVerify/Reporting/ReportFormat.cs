@@ -30,6 +30,8 @@ internal static class ReportFormat
         "F" => V(v, UnitKind.Farad),
         "Hz" => V(v, UnitKind.Hertz),
         "Ω" => V(v, UnitKind.Ohm),
+        "V" => V(v, UnitKind.Volt),
+        "V/s" => V(v, UnitKind.VoltPerSecond),
         _ => $"{N(v, "0.###")} {r.Unit}",
     };
 

@@ -11,7 +11,7 @@ internal static class BufferStage
 {
     public const string AmplifierOutput = "amp";
     public const string Feedback = "fb";
-    private const double GroundLegOhms = 10e3;
+    internal const double GroundLegOhms = 10e3;
 
     /// <summary>Adds the buffer driven from <paramref name="input"/>; returns the node that drives the filter.</summary>
     public static string Add(List<Element> elements, BufferSpec buffer, string input, double? boardCelsius)

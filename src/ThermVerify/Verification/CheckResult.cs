@@ -25,6 +25,9 @@ public sealed record CheckResult(
     IReadOnlyList<SamplingOutcome> Sampling,
     IReadOnlyList<Finding> Findings)
 {
+    /// <summary>The op-amp buffer's own sections (stability, headroom, static errors, recovery, noise) when the design has one.</summary>
+    public Buffer.BufferReport? Buffer { get; init; }
+
     public bool Passed => Points.All(p => p.WithinBudget) && Findings.All(f => f.Severity != Severity.Fail);
 
     /// <summary>The point with the largest reported error (an unreadable code counts as the largest).</summary>

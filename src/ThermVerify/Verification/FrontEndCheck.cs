@@ -39,7 +39,8 @@ public static class FrontEndCheck
 
         var sampling = cases.SelectMany(c => c.Sampling).ToList();
         var findings = FindingRules.Evaluate(design, model, points, options);
-        return new CheckResult(design, model.Sensor.Description, model.Adc, points, sampling, findings);
+        var buffer = design.Buffer is null ? null : ThermVerify.Buffer.BufferCheck.Run(design, points, options);
+        return new CheckResult(design, model.Sensor.Description, model.Adc, points, sampling, [.. findings, .. buffer?.Findings ?? []]) { Buffer = buffer };
     }
 
     /// <summary>

@@ -85,7 +85,7 @@ public class ExampleDesignTests
         Tolerance.AssertClose(0.5e6, b.SlewRateVoltsPerSecond!.Value, 1e-12);
         Tolerance.AssertClose(30e-9, b.NoiseVoltsPerRootHertz, 1e-12);
         Tolerance.AssertClose(2e-6, b.OffsetDriftVoltsPerKelvin, 1e-12);
-        Assert.Equal(new VoltageRange(-0.1, 2.2), b.InputCommonMode);
+        Assert.Equal(new VoltageRange(-0.1, 3.4), b.InputCommonMode);
         Assert.Equal(45, b.MinimumPhaseMarginDegrees);
     }
 

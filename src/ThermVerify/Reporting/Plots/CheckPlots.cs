@@ -18,6 +18,7 @@ public static class CheckPlots
             ErrorPlot.Render(result),
             WaveformPlot.Render(result, waveform),
             SensitivityPlot.Render(result),
+            .. BufferPlots.Render(result.Buffer),
         ];
     }
 }

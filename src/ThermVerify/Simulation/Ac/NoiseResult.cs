@@ -49,6 +49,13 @@ public sealed class NoiseResult
     public double ContributionRmsVolts(string element) =>
         Math.Sqrt(Integrate(ContributionPsd(element), FrequenciesHertz[0], FrequenciesHertz[^1]));
 
+    /// <summary>Every noise generator as (element, label), e.g. an op-amp's voltage and current noise apart.</summary>
+    public IReadOnlyList<(string Element, string Label)> Generators => generators;
+
+    /// <summary>RMS output noise of the generators with this element and label over the whole sweep.</summary>
+    public double GeneratorRmsVolts(string element, string label) =>
+        Math.Sqrt(Integrate(Sum(g => g.Element == element && g.Label == label), FrequenciesHertz[0], FrequenciesHertz[^1]));
+
     private double[] Sum(Func<(string Element, string Label), bool> which)
     {
         var total = new double[FrequenciesHertz.Count];

@@ -1,0 +1,32 @@
+using System.CommandLine;
+using ThermVerify.Design;
+using ThermVerify.Reporting;
+using ThermVerify.Verification;
+
+namespace ThermVerify.Cli;
+
+/// <summary>`thermverify compare A B`: check two designs and put them side by side; exit 0 when both pass, 1 when either fails.</summary>
+internal static class CompareCommand
+{
+    public static Command Create()
+    {
+        var first = new Argument<FileInfo>("design-a") { Description = "the first design file (TOML), e.g. unbuffered" };
+        var second = new Argument<FileInfo>("design-b") { Description = "the second design file (TOML), e.g. buffered or another op-amp" };
+        var threads = new Option<int>("--threads") { Description = "simulations in parallel", DefaultValueFactory = _ => Environment.ProcessorCount };
+        var noRemedies = new Option<bool>("--no-remedies") { Description = "skip the simulations that search for remedies" };
+        var command = new Command("compare", "Check two designs and show them side by side with the same budget table.") { first, second, threads, noRemedies };
+        threads.Validators.Add(r =>
+        {
+            if (r.GetValueOrDefault<int>() < 1) r.AddError("--threads must be at least 1");
+        });
+        command.SetAction((parsed, cancel) =>
+        {
+            var options = new CheckOptions { Threads = parsed.GetValue(threads), ComputeRemedies = !parsed.GetValue(noRemedies), Cancel = cancel };
+            var a = FrontEndCheck.Run(DesignLoader.Load(parsed.GetValue(first)!.FullName), options);
+            var b = FrontEndCheck.Run(DesignLoader.Load(parsed.GetValue(second)!.FullName), options);
+            parsed.InvocationConfiguration.Output.Write(ComparisonText.Render(a, b));
+            return Task.FromResult(a.Passed && b.Passed ? ExitCodes.Success : ExitCodes.CheckFailed);
+        });
+        return command;
+    }
+}

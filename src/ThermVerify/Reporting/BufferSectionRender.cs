@@ -1,0 +1,70 @@
+using System.Net;
+using System.Text;
+using ThermVerify.Buffer;
+
+namespace ThermVerify.Reporting;
+
+/// <summary>The buffer sections as terminal text, Markdown and HTML fragments.</summary>
+public static class BufferSectionRender
+{
+    public static string Text(BufferReport? buffer)
+    {
+        if (buffer is null) return "";
+        var text = new StringBuilder();
+        foreach (var s in BufferSections.Build(buffer))
+        {
+            text.AppendLine($"{s.Title}:");
+            foreach (var n in s.Notes) text.AppendLine($"  {n}");
+            if (s.Rows.Count > 0)
+            {
+                var table = new TextTable([.. s.Headers]);
+                foreach (var r in s.Rows) table.AddRow(r);
+                text.Append(table);
+            }
+            text.AppendLine();
+        }
+        return text.ToString();
+    }
+
+    public static string Markdown(BufferReport? buffer)
+    {
+        if (buffer is null) return "";
+        var md = new StringBuilder();
+        foreach (var s in BufferSections.Build(buffer, staticRows: 9))
+        {
+            md.AppendLine($"## {s.Title}");
+            md.AppendLine();
+            foreach (var n in s.Notes) md.AppendLine($"{Cell(n)}\n");
+            if (s.Rows.Count > 0)
+            {
+                md.AppendLine("| " + string.Join(" | ", s.Headers.Select(Cell)) + " |");
+                md.AppendLine("|" + string.Concat(s.Headers.Select(_ => "--:|")));
+                foreach (var r in s.Rows) md.AppendLine("| " + string.Join(" | ", r.Select(Cell)) + " |");
+                md.AppendLine();
+            }
+        }
+        return md.ToString();
+    }
+
+    public static string Html(BufferReport? buffer)
+    {
+        if (buffer is null) return "";
+        var html = new StringBuilder();
+        foreach (var s in BufferSections.Build(buffer, staticRows: 13))
+        {
+            html.Append($"<section id=\"{s.Id}\"><h2>{E(s.Title)}</h2>\n");
+            foreach (var n in s.Notes) html.Append($"<p>{E(n)}</p>\n");
+            if (s.Rows.Count > 0)
+            {
+                html.Append("<table><thead><tr>" + string.Concat(s.Headers.Select(h => $"<th>{E(h)}</th>")) + "</tr></thead><tbody>\n");
+                foreach (var r in s.Rows) html.Append("<tr>" + string.Concat(r.Select(c => $"<td class=\"num\">{E(c)}</td>")) + "</tr>\n");
+                html.Append("</tbody></table>\n");
+            }
+            html.Append("</section>\n");
+        }
+        return html.ToString();
+    }
+
+    private static string E(string text) => WebUtility.HtmlEncode(text);
+    private static string Cell(string text) => text.Replace("|", "\\|").Replace("\n", " ");
+}
