@@ -20,13 +20,22 @@ internal static class CheckCommand
         var junit = new Option<FileInfo?>("--junit") { Description = "also write JUnit XML: one test case per check and per finding" };
         var baseline = new Option<FileInfo?>("--baseline") { Description = "compare with a baseline (thermverify baseline); exit 1 when a figure got worse than its tolerance" };
         var force = new Option<bool>("--force") { Description = "replace an existing report in the --report folder" };
+        var samplingPoints = new Option<int>("--sampling-points")
+        {
+            Description = "simulate sampling at this many temperatures at most (every point of the sweep when it has fewer)",
+            DefaultValueFactory = _ => new CheckOptions().MaximumSamplingPoints,
+        };
         var command = new Command("check", "Verify a front end: closed form against simulation, every error in mV, LSB and K against the budget.")
         {
-            design, json, threads, noRemedies, quiet, report, junit, baseline, force,
+            design, json, threads, noRemedies, quiet, report, junit, baseline, force, samplingPoints,
         };
         threads.Validators.Add(r =>
         {
             if (r.GetValueOrDefault<int>() < 1) r.AddError("--threads must be at least 1");
+        });
+        samplingPoints.Validators.Add(r =>
+        {
+            if (r.GetValueOrDefault<int>() < 2) r.AddError("--sampling-points must be at least 2 (both ends of the range)");
         });
         command.SetAction((parsed, cancel) =>
         {
@@ -36,6 +45,7 @@ internal static class CheckCommand
             {
                 Threads = parsed.GetValue(threads),
                 ComputeRemedies = !parsed.GetValue(noRemedies),
+                MaximumSamplingPoints = parsed.GetValue(samplingPoints),
                 Cancel = cancel,
             });
             if (parsed.GetValue(json) is { } jsonFile)

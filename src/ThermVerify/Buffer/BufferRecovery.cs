@@ -47,6 +47,9 @@ public static class BufferRecovery
     public const double SlewRateFloorVoltsPerSecond = 1e3;
     private const double SearchPrecision = 0.02;
 
+    /// <summary>1000 V/µs: faster than any op-amp a sensor front end would use, so a need above it is reported as none found.</summary>
+    public const double SlewRateCeilingVoltsPerSecond = 1e9;
+
     public static RecoveryResult Run(FrontEndDesign design, double celsius, double? prechargeVolts, bool search)
     {
         var b = BufferCircuits.Require(design);
@@ -76,17 +79,17 @@ public static class BufferRecovery
             gbw = LowestFromAbove(b.GainBandwidthHertz * GainBandwidthFloorFactor, IdealFactor * b.GainBandwidthHertz,
                 g => Settles(b with { GainBandwidthHertz = g, SlewRateVoltsPerSecond = null }));
             var atGbw = Math.Max(gbw ?? b.GainBandwidthHertz, b.GainBandwidthHertz);
-            slew = LowestFromAbove(SlewRateFloorVoltsPerSecond, 1e11,
+            slew = LowestFromAbove(SlewRateFloorVoltsPerSecond, SlewRateCeilingVoltsPerSecond,
                 s => Settles(b with { GainBandwidthHertz = atGbw, SlewRateVoltsPerSecond = s }));
         }
         var method = FormattableString.Invariant(
             $"sampling transients at {celsius:0.##} °C, {PrechargeCases.Describe(prechargeVolts)}: design op-amp against one with {IdealFactor:0}× the gain-bandwidth and no slew limit; ") +
-            (search ? $"scan down in quarter decades, then bisection ({SearchPrecision:P0}) on the simulated sample for ½ LSB; a candidate whose transient does not converge counts as not settling; a need at the search floor (GBW × {GainBandwidthFloorFactor:G2}, {SlewRateFloorVoltsPerSecond:G2} V/s) means any op-amp down to it settles" : "searches skipped (--no-remedies)");
+            (search ? $"scan down in half decades, then bisection ({SearchPrecision:P0}) on the simulated sample for ½ LSB; a candidate whose transient does not converge counts as not settling; a need at the search floor (GBW × {GainBandwidthFloorFactor:G2}, {SlewRateFloorVoltsPerSecond:G2} V/s) means any op-amp down to it settles" : "searches skipped (--no-remedies)");
         return new RecoveryResult(celsius, prechargeVolts, real, noSlewLimit, ideal, allowed, gbw, slew, method) { GainBandwidthFloorHertz = b.GainBandwidthHertz * GainBandwidthFloorFactor };
     }
 
     /// <summary>
-    /// The lowest value above which every value settles: a scan down from <paramref name="high"/> in steps of a quarter
+    /// The lowest value above which every value settles: a scan down from <paramref name="high"/> in steps of half a
     /// decade to the first value that does not, then bisection between it and the last that did. The error is not
     /// monotone in the op-amp's speed (a very slow loop barely reacts to a kick that r_o absorbs, a middling one reacts
     /// and has not recovered when the switch opens), so a plain bisection could land in a passing pocket below a
@@ -96,7 +99,7 @@ public static class BufferRecovery
     private static double? LowestFromAbove(double low, double high, Func<double, bool> settles)
     {
         if (!settles(high)) return null;
-        var step = Math.Pow(10, 0.25);
+        var step = Math.Sqrt(10);
         var passing = high;
         for (var x = high / step; x >= low * (1 - 1e-9); x /= step)
         {

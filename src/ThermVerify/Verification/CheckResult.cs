@@ -6,7 +6,7 @@ namespace ThermVerify.Verification;
 public sealed record CheckOptions
 {
     /// <summary>At most this many temperatures get a sampling transient (every point when the sweep has fewer).</summary>
-    public int MaximumSamplingPoints { get; init; } = 41;
+    public int MaximumSamplingPoints { get; init; } = 25;
 
     public int Threads { get; init; } = Environment.ProcessorCount;
 

@@ -9,8 +9,10 @@ public class FixedPointInterpolationProperties
     [Fact]
     public void Integer_interpolation_rounds_the_exact_quotient_half_away_from_zero()
     {
-        // Reference: the exact rational v0 + (v1 − v0)(code − c0)/(c1 − c0) in decimal (exact for these sizes),
-        // rounded half away from zero by System.Decimal — an arithmetic independent of the truncating-division trick.
+        // Reference: the exact rational increment (v1 − v0)(code − c0)/(c1 − c0) in decimal (exact for these sizes),
+        // rounded half away from zero by System.Decimal and added to v0, as the routine documents — an arithmetic
+        // independent of the truncating-division trick. (Rounding the increment, not the sum, differs from rounding
+        // the sum when v0 < 0 and the increment ends in exactly .5; see the regression case below.)
         var gen =
             from c0 in Gen.Choose(0, 60_000)
             from width in Gen.Choose(1, 5_000)
@@ -20,11 +22,19 @@ public class FixedPointInterpolationProperties
             select (c0, c1: c0 + width, code: c0 + offset % (width + 1), v0, v1: v0 + dv);
         Prop.ForAll(gen.ToArbitrary(), s =>
         {
-            var exact = s.v0 + (decimal)(s.v1 - s.v0) * (s.code - s.c0) / (s.c1 - s.c0);
-            var expected = (int)Math.Round(exact, MidpointRounding.AwayFromZero);
+            var exact = (decimal)(s.v1 - s.v0) * (s.code - s.c0) / (s.c1 - s.c0);
+            var expected = s.v0 + (int)Math.Round(exact, MidpointRounding.AwayFromZero);
             var actual = FixedPointInterpolation.Interpolate(s.c0, s.v0, s.c1, s.v1, s.code);
             return (actual == expected).Label($"{s}: got {actual}, exact {exact}");
         }).QuickCheckThrowOnFailure();
+    }
+
+    [Fact]
+    public void The_increment_is_rounded_not_the_sum()
+    {
+        // Found by the property above with a reference that rounded the sum: 26955·93/270 = 9284.5 → 9285, so
+        // −11777 + 9285 = −2492 (rounding the sum −2492.5 would give −2493).
+        Assert.Equal(-2492, FixedPointInterpolation.Interpolate(33724, -11777, 33994, 15178, 33817));
     }
 
     [Fact]
