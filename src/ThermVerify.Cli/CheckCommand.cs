@@ -1,6 +1,7 @@
 using System.CommandLine;
 using ThermVerify.Baselines;
 using ThermVerify.Design;
+using ThermVerify.Firmware;
 using ThermVerify.Reporting;
 using ThermVerify.Verification;
 
@@ -48,8 +49,9 @@ internal static class CheckCommand
                 MaximumSamplingPoints = parsed.GetValue(samplingPoints),
                 Cancel = cancel,
             });
+            var faults = FaultThresholdsOrNull(loaded);
             if (parsed.GetValue(json) is { } jsonFile)
-                AtomicFile.WriteAllText(jsonFile.FullName, CheckJson.Write(result, parsed.GetValue(design)!.ToString()));
+                AtomicFile.WriteAllText(jsonFile.FullName, CheckJson.Write(result, parsed.GetValue(design)!.ToString(), faults));
 
             var comparison = parsed.GetValue(baseline) is { } baselineFile
                 ? BaselineComparison.Compare(baselineFile.ToString(), BaselineFile.Read(baselineFile.FullName), BaselineFigures.From(result, CheckJson.ToolVersion()))
@@ -61,6 +63,11 @@ internal static class CheckCommand
 
             var output = parsed.InvocationConfiguration.Output;
             var summary = CheckSummaryText.Render(result);
+            if (faults is not null)
+            {
+                var caution = summary.LastIndexOf(CheckSummaryText.Caution, StringComparison.Ordinal);
+                summary = summary.Insert(caution, FaultText.Render(faults) + Environment.NewLine + Environment.NewLine);
+            }
             output.Write(parsed.GetValue(quiet) ? summary.Split('\n').First(l => l.StartsWith("PASS") || l.StartsWith("FAIL")) + "\n" : summary);
             if (comparison is not null)
                 output.Write(parsed.GetValue(quiet) ? BaselineTable.Render(comparison).Split('\n')[0] + "\n" : "\n" + BaselineTable.Render(comparison));
@@ -70,5 +77,21 @@ internal static class CheckCommand
             return Task.FromResult(passed ? ExitCodes.Success : ExitCodes.CheckFailed);
         });
         return command;
+    }
+
+    /// <summary>
+    /// The codes an open or shorted sensor or fixed resistor produce, and thresholds with margin; none when the
+    /// tolerances leave no room between a fault and a healthy reading (the table command explains why).
+    /// </summary>
+    private static FaultThresholds? FaultThresholdsOrNull(FrontEndDesign design)
+    {
+        try
+        {
+            return FaultAnalysis.Thresholds(FirmwareFromDesign.Model(design, correctForLoading: false), FirmwareFromDesign.Tolerances(design));
+        }
+        catch (FirmwareInputException)
+        {
+            return null;
+        }
     }
 }

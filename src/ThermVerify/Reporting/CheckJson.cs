@@ -1,6 +1,7 @@
 using System.Reflection;
 using System.Text.Json;
 using System.Text.Json.Serialization;
+using ThermVerify.Firmware;
 using ThermVerify.Verification;
 
 namespace ThermVerify.Reporting;
@@ -21,10 +22,10 @@ public static class CheckJson
         DefaultIgnoreCondition = JsonIgnoreCondition.Never,
     };
 
-    public static string Write(CheckResult result, string? designPath = null) =>
-        JsonSerializer.Serialize(ToDocument(result, designPath), Options);
+    public static string Write(CheckResult result, string? designPath = null, FaultThresholds? faults = null) =>
+        JsonSerializer.Serialize(ToDocument(result, designPath, faults), Options);
 
-    private static object ToDocument(CheckResult r, string? designPath) => new
+    private static object ToDocument(CheckResult r, string? designPath, FaultThresholds? faults) => new
     {
         schema = Schema,
         tool = new { name = "thermverify", version = ToolVersion() },
@@ -101,6 +102,14 @@ public static class CheckJson
             extrapolated = s.Extrapolated,
         }),
         buffer = BufferJson.Document(r.Buffer),
+        faultThresholds = faults is null ? null : new
+        {
+            faultBelowCode = faults.FaultBelowCode,
+            faultAboveCode = faults.FaultAboveCode,
+            lowestValidCode = faults.LowestValidCode,
+            highestValidCode = faults.HighestValidCode,
+            faults = faults.Faults.Select(f => new { kind = FaultText.Kind(f.Kind), minCode = f.MinCode, maxCode = f.MaxCode }),
+        },
         findings = r.Findings.Select(f => new
         {
             id = f.Id,

@@ -50,3 +50,29 @@ public sealed class TableCommandTests : IDisposable
 
     public void Dispose() => Directory.Delete(_folder, recursive: true);
 }
+
+public class CheckFaultThresholdTests
+{
+    [Fact]
+    public void Check_reports_fault_thresholds_in_text_and_json()
+    {
+        var json = Path.Combine(Path.GetTempPath(), $"tv-{Guid.NewGuid():N}.json");
+        try
+        {
+            var example = Path.Combine(AppContext.BaseDirectory, "..", "..", "..", "..", "..", "netlists", "oven-pt1000.toml");
+            var run = CliRunner.Run("check", example, "--json", json, "--no-remedies");
+            Assert.Equal(ExitCodes.Success, run.ExitCode);
+            Assert.Contains("Fault thresholds", run.Output);
+            using var document = System.Text.Json.JsonDocument.Parse(File.ReadAllText(json));
+            var faults = document.RootElement.GetProperty("faultThresholds");
+            // Ohm's law: an open sensor on the low side pulls the pin to the excitation, i.e. full scale for a ratiometric ADC.
+            var open = faults.GetProperty("faults").EnumerateArray().Single(f => f.GetProperty("kind").GetString() == "sensor open");
+            Assert.Equal(4095, open.GetProperty("minCode").GetInt32());
+            Assert.True(faults.GetProperty("faultAboveCode").GetInt32() > faults.GetProperty("highestValidCode").GetInt32());
+        }
+        finally
+        {
+            File.Delete(json);
+        }
+    }
+}
