@@ -15,9 +15,16 @@ internal static class CheckCommand
         var threads = new Option<int>("--threads") { Description = "simulations in parallel", DefaultValueFactory = _ => Environment.ProcessorCount };
         var noRemedies = new Option<bool>("--no-remedies") { Description = "skip the simulations that search for remedies" };
         var quiet = new Option<bool>("--quiet", "-q") { Description = "print only the verdict line" };
+        var engine = new Option<string>("--engine")
+        {
+            Description = "simulation engine: built-in, or ngspice (needs the ngspice shared library; a design's own subcircuit needs ngspice)",
+            DefaultValueFactory = _ => EngineChoice.BuiltIn,
+        };
+        engine.AcceptOnlyFromAmong(EngineChoice.BuiltIn, EngineChoice.Ngspice);
+        var process = new Option<bool>("--ngspice-process") { Description = "with --engine ngspice: run every deck in a child 'ngspice -b' process instead of the shared library" };
         var command = new Command("check", "Verify a front end: closed form against simulation, every error in mV, LSB and K against the budget.")
         {
-            design, json, threads, noRemedies, quiet,
+            design, json, threads, noRemedies, quiet, engine, process,
         };
         threads.Validators.Add(r =>
         {
@@ -27,11 +34,13 @@ internal static class CheckCommand
         {
             var path = parsed.GetValue(design)!.FullName;
             var loaded = DesignLoader.Load(path);
+            var chosen = EngineChoice.Create(parsed.GetValue(engine)!, parsed.GetValue(process));
             var result = FrontEndCheck.Run(loaded, new CheckOptions
             {
                 Threads = parsed.GetValue(threads),
                 ComputeRemedies = !parsed.GetValue(noRemedies),
                 Cancel = cancel,
+                Engine = chosen,
             });
             if (parsed.GetValue(json) is { } jsonFile)
                 AtomicFile.WriteAllText(jsonFile.FullName, CheckJson.Write(result, parsed.GetValue(design)!.ToString()));

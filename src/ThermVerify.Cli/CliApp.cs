@@ -18,6 +18,7 @@ public static class CliApp
             FitCommand.Create(),
             ValidateCommand.Create(),
             CheckCommand.Create(),
+            DeckCommand.Create(),
         };
         if (args.Length == 0)
         {

@@ -4,6 +4,7 @@ using ThermVerify.Reporting;
 using ThermVerify.Sensors;
 using ThermVerify.Simulation;
 using ThermVerify.Circuits;
+using ThermVerify.Ngspice;
 
 namespace ThermVerify.Cli;
 
@@ -31,6 +32,8 @@ public static class ErrorReport
         DesignException or UsageException or QuantityFormatException or SensorFitException => ExitCodes.BadInput,
         SensorRangeException or SensorTableException or OutputExistsException => ExitCodes.BadInput,
         FileNotFoundException or DirectoryNotFoundException or UnauthorizedAccessException => ExitCodes.BadInput,
+        NgspiceUnavailableException or EngineUnsupportedException => ExitCodes.BadInput,
+        NgspiceException => ExitCodes.SimulationFailed,
         SimulationException => ExitCodes.SimulationFailed,
         CircuitException => ExitCodes.SimulationFailed,
         _ => ExitCodes.InternalError,

@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -22,6 +23,9 @@ public sealed record CurrentSource(string Name, string Positive, string Negative
         ElementChecks.Finite(this, AcMagnitude, "AC magnitude");
         ElementChecks.Finite(this, AcPhaseDegrees, "AC phase");
     }
+
+    internal override void WriteSpice(SpiceLines deck) =>
+        deck.Line($"{SpiceLines.InstanceName('I', Name)} {Positive} {Negative} {Waveform.ToSpice()}{SpiceSource.Ac(AcMagnitude, AcPhaseDegrees)}");
 
     internal override Stamp Bind(BindContext context) => new CurrentSourceStamp(this, context);
 }

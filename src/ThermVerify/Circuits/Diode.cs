@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -25,6 +26,15 @@ public sealed record Diode(string Name, string Anode, string Cathode, double Sat
         ElementChecks.Positive(this, SaturationCurrentAmperes, "saturation current");
         ElementChecks.Positive(this, EmissionCoefficient, "emission coefficient");
         ElementChecks.NonNegative(this, SeriesResistanceOhms, "series resistance");
+    }
+
+    /// <summary>xti = 0 and eg = 0 keep Is fixed with temperature, as in the built-in model.</summary>
+    internal override void WriteSpice(SpiceLines deck)
+    {
+        var model = $"{Name}_model";
+        deck.Line($"{SpiceLines.InstanceName('D', Name)} {Anode} {Cathode} {model}");
+        deck.Definition(model, $".model {model} d is={SpiceNumber.Format(SaturationCurrentAmperes)} n={SpiceNumber.Format(EmissionCoefficient)} " +
+                               $"rs={SpiceNumber.Format(SeriesResistanceOhms)} xti=0 eg=0 cjo=0");
     }
 
     internal override Stamp Bind(BindContext context) => new DiodeStamp(this, context);

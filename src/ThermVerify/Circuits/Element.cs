@@ -28,5 +28,9 @@ public abstract record Element(string Name)
 
     internal abstract Stamp Bind(BindContext context);
 
+    /// <summary>The element's lines in a SPICE deck; elements without a SPICE form say so.</summary>
+    internal virtual void WriteSpice(Spice.SpiceLines deck) =>
+        throw new EngineUnsupportedException($"{Describe} has no SPICE form; it cannot be written to a deck or run by ngspice.");
+
     internal string Describe => $"{GetType().Name} '{Name}'";
 }

@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -23,6 +24,10 @@ public sealed record Inductor(string Name, string NodeA, string NodeB, double In
         if (InitialCurrent is { } i)
             ElementChecks.Finite(this, i, "initial current");
     }
+
+    internal override void WriteSpice(SpiceLines deck) =>
+        deck.Line($"{SpiceLines.InstanceName('L', Name)} {NodeA} {NodeB} {SpiceNumber.Format(InductanceHenries)}" +
+                  (InitialCurrent is { } i ? $" ic={SpiceNumber.Format(i)}" : ""));
 
     internal override Stamp Bind(BindContext context) => new InductorStamp(this, context);
 }

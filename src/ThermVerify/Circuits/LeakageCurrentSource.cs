@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -23,6 +24,11 @@ public sealed record LeakageCurrentSource(string Name, string Positive, string N
         ElementChecks.Finite(this, CurrentAt25CelsiusAmperes, "current at 25 °C");
         ElementChecks.Positive(this, DoublingKelvin, "doubling interval");
     }
+
+    /// <summary>A behavioural current source, so that the current follows <c>temper</c> in a temperature sweep.</summary>
+    internal override void WriteSpice(SpiceLines deck) =>
+        deck.Line($"{SpiceLines.InstanceName('B', Name)} {Positive} {Negative} I={SpiceNumber.Format(CurrentAt25CelsiusAmperes)}" +
+                  $"*pow(2,(temper-25)/{SpiceNumber.Format(DoublingKelvin)})");
 
     internal override Stamp Bind(BindContext context) => new LeakageCurrentSourceStamp(this, context);
 }

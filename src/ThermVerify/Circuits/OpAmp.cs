@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -87,6 +88,8 @@ public sealed record OpAmp(string Name, string NonInverting, string Inverting, s
         ElementChecks.NonNegative(this, CurrentNoiseAmperesPerRootHertz, "current noise");
         ElementChecks.NonNegative(this, CurrentNoiseCornerHertz, "current noise corner");
     }
+
+    internal override void WriteSpice(SpiceLines deck) => OpAmpSubcircuit.Write(this, deck);
 
     internal override Stamp Bind(BindContext context) => new OpAmpStamp(this, context);
 }

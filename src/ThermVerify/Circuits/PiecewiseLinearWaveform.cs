@@ -31,6 +31,9 @@ public sealed record PiecewiseLinearWaveform(ImmutableArray<(double TimeSeconds,
                 into.Add(t);
     }
 
+    internal override string ToSpice() =>
+        $"PWL({string.Join(" ", Points.Select(p => $"{Spice.SpiceNumber.Format(p.TimeSeconds)} {Spice.SpiceNumber.Format(p.Value)}"))})";
+
     internal override void Validate(Element owner)
     {
         if (Points.IsDefaultOrEmpty)

@@ -49,6 +49,15 @@ public sealed record PulseWaveform(double Initial, double Pulsed, double DelaySe
         }
     }
 
+    /// <summary>SPICE replaces a zero rise or fall by its print step; 1 ps keeps the step as sharp as SPICE allows.</summary>
+    internal override string ToSpice()
+    {
+        static string F(double v) => Spice.SpiceNumber.Format(v);
+        var edge = Spice.SwitchControl.EdgeSeconds;
+        return $"PULSE({F(Initial)} {F(Pulsed)} {F(DelaySeconds)} {F(RiseSeconds > 0 ? RiseSeconds : edge)} " +
+               $"{F(FallSeconds > 0 ? FallSeconds : edge)} {F(WidthSeconds)} {F(Repeats ? PeriodSeconds : 0)})";
+    }
+
     internal override void Validate(Element owner)
     {
         ElementChecks.Finite(owner, Initial, "pulse initial value");

@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -30,6 +31,21 @@ public sealed record Resistor(string Name, string NodeA, string NodeB, double Re
         ElementChecks.Finite(this, Tc1PerKelvin, "tc1");
         ElementChecks.Finite(this, Tc2PerKelvinSquared, "tc2");
         ElementChecks.Finite(this, ReferenceCelsius, "reference temperature");
+    }
+
+    /// <summary>tc1/tc2 as SPICE instance parameters when referenced to 25 °C (the deck's TNOM); else the same quadratic as an expression.</summary>
+    internal override void WriteSpice(SpiceLines deck)
+    {
+        var name = SpiceLines.InstanceName('R', Name);
+        if (!DependsOnTemperature)
+            deck.Line($"{name} {NodeA} {NodeB} {SpiceNumber.Format(ResistanceOhms)}");
+        else if (ReferenceCelsius == SpiceDeckWriter.NominalCelsius)
+            deck.Line($"{name} {NodeA} {NodeB} {SpiceNumber.Format(ResistanceOhms)} tc1={SpiceNumber.Format(Tc1PerKelvin)} tc2={SpiceNumber.Format(Tc2PerKelvinSquared)}");
+        else
+        {
+            var dt = $"(temper-{SpiceNumber.Format(ReferenceCelsius)})";
+            deck.Line($"{name} {NodeA} {NodeB} r='{SpiceNumber.Format(ResistanceOhms)}*(1+{SpiceNumber.Format(Tc1PerKelvin)}*{dt}+{SpiceNumber.Format(Tc2PerKelvinSquared)}*{dt}*{dt})'");
+        }
     }
 
     internal override Stamp Bind(BindContext context) => new ResistorStamp(this, context);

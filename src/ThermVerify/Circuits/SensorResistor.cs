@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Sensors;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
@@ -35,6 +36,9 @@ public sealed record SensorResistor(string Name, string NodeA, string NodeB, ISe
             throw new CircuitException($"{Describe}: the sensor gives {r:G6} Ω at {temperatureCelsius:G6} °C; a resistance must be finite and positive.");
         return r;
     }
+
+    internal override void WriteSpice(SpiceLines deck) =>
+        deck.Line($"{SpiceLines.InstanceName('R', Name)} {NodeA} {NodeB} r='{SensorExpression.For(Sensor)}'");
 
     internal override Stamp Bind(BindContext context) => new SensorResistorStamp(this, context);
 }

@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -23,6 +24,16 @@ public sealed record TimedSwitch(string Name, string NodeA, string NodeB, double
         if (Schedule is null)
             throw new CircuitException($"{Describe} has no schedule; give intervals or a periodic schedule.");
         Schedule.Validate(this);
+    }
+
+    /// <summary>A voltage-controlled switch on its own control node, driven by the schedule (see <see cref="SwitchControl"/>).</summary>
+    internal override void WriteSpice(SpiceLines deck)
+    {
+        var control = $"{Name}_ctl";
+        var model = $"{Name}_model";
+        deck.Line($"{SpiceLines.InstanceName('V', control)} {control} 0 {SwitchControl.Waveform(Schedule, deck.StopTimeSeconds)}");
+        deck.Line($"{SpiceLines.InstanceName('S', Name)} {NodeA} {NodeB} {control} 0 {model}");
+        deck.Definition(model, $".model {model} sw vt=0.5 vh=0 ron={SpiceNumber.Format(OnResistanceOhms)} roff={SpiceNumber.Format(OffResistanceOhms)}");
     }
 
     internal override Stamp Bind(BindContext context) => new TimedSwitchStamp(this, context);

@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -18,6 +19,9 @@ public sealed record Vccs(string Name, string Positive, string Negative, string 
         ElementChecks.DistinctNodes(this, Positive, Negative);
         ElementChecks.Finite(this, TransconductanceSiemens, "transconductance");
     }
+
+    internal override void WriteSpice(SpiceLines deck) =>
+        deck.Line($"{SpiceLines.InstanceName('G', Name)} {Positive} {Negative} {ControlPositive} {ControlNegative} {SpiceNumber.Format(TransconductanceSiemens)}");
 
     internal override Stamp Bind(BindContext context) => new VccsStamp(this, context);
 }

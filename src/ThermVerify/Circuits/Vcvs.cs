@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -21,6 +22,9 @@ public sealed record Vcvs(string Name, string Positive, string Negative, string 
         ElementChecks.DistinctNodes(this, Positive, Negative);
         ElementChecks.Finite(this, Gain, "gain");
     }
+
+    internal override void WriteSpice(SpiceLines deck) =>
+        deck.Line($"{SpiceLines.InstanceName('E', Name)} {Positive} {Negative} {ControlPositive} {ControlNegative} {SpiceNumber.Format(Gain)}");
 
     internal override Stamp Bind(BindContext context) => new VcvsStamp(this, context);
 }

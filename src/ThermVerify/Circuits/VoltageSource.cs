@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -28,6 +29,9 @@ public sealed record VoltageSource(string Name, string Positive, string Negative
         ElementChecks.Finite(this, AcMagnitude, "AC magnitude");
         ElementChecks.Finite(this, AcPhaseDegrees, "AC phase");
     }
+
+    internal override void WriteSpice(SpiceLines deck) =>
+        deck.Line($"{SpiceLines.InstanceName('V', Name)} {Positive} {Negative} {Waveform.ToSpice()}{SpiceSource.Ac(AcMagnitude, AcPhaseDegrees)}");
 
     internal override Stamp Bind(BindContext context) => new VoltageSourceStamp(this, context);
 }

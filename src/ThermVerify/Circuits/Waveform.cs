@@ -12,6 +12,9 @@ public abstract record Waveform
 
     internal abstract void Validate(Element owner);
 
+    /// <summary>The SPICE source specification (DC, PULSE or PWL).</summary>
+    internal abstract string ToSpice();
+
     public static implicit operator Waveform(double dc) => new DcWaveform(dc);
 }
 
@@ -21,6 +24,8 @@ public sealed record DcWaveform(double Value) : Waveform
     public override double ValueAt(double timeSeconds) => Value;
 
     internal override void CollectBreakpoints(double fromSeconds, double toSeconds, List<double> into) { }
+
+    internal override string ToSpice() => $"dc {Spice.SpiceNumber.Format(Value)}";
 
     internal override void Validate(Element owner) => ElementChecks.Finite(owner, Value, "DC value");
 }
