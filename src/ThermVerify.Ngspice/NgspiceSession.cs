@@ -89,7 +89,8 @@ public static unsafe class NgspiceSession
     internal static bool IsErrorLine(string line) =>
         line.StartsWith("stderr", StringComparison.Ordinal) &&
         (line.Contains("error", StringComparison.OrdinalIgnoreCase) || line.Contains("aborted", StringComparison.OrdinalIgnoreCase)
-         || line.Contains("unknown", StringComparison.OrdinalIgnoreCase) || line.Contains("could not", StringComparison.OrdinalIgnoreCase));
+         || line.Contains("unknown", StringComparison.OrdinalIgnoreCase) || line.Contains("could not", StringComparison.OrdinalIgnoreCase)
+         || line.Contains("too small", StringComparison.OrdinalIgnoreCase) || line.Contains("singular", StringComparison.OrdinalIgnoreCase));
 
     private static List<NgspicePlot> ReadPlots()
     {

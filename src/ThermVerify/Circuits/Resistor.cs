@@ -41,6 +41,8 @@ public sealed record Resistor(string Name, string NodeA, string NodeB, double Re
             deck.Line($"{name} {NodeA} {NodeB} {SpiceNumber.Format(ResistanceOhms)}");
         else if (ReferenceCelsius == SpiceDeckWriter.NominalCelsius)
             deck.Line($"{name} {NodeA} {NodeB} {SpiceNumber.Format(ResistanceOhms)} tc1={SpiceNumber.Format(Tc1PerKelvin)} tc2={SpiceNumber.Format(Tc2PerKelvinSquared)}");
+        else if (!deck.SweepsTemperature)
+            deck.Line($"{name} {NodeA} {NodeB} {SpiceNumber.Format(ResistanceOhmsAt(deck.TemperatureCelsius))}");
         else
         {
             var dt = $"(temper-{SpiceNumber.Format(ReferenceCelsius)})";

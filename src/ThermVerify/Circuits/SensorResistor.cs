@@ -37,8 +37,14 @@ public sealed record SensorResistor(string Name, string NodeA, string NodeB, ISe
         return r;
     }
 
-    internal override void WriteSpice(SpiceLines deck) =>
-        deck.Line($"{SpiceLines.InstanceName('R', Name)} {NodeA} {NodeB} r='{SensorExpression.For(Sensor)}'");
+    internal override void WriteSpice(SpiceLines deck)
+    {
+        var name = SpiceLines.InstanceName('R', Name);
+        if (deck.SweepsTemperature)
+            deck.Line($"{name} {NodeA} {NodeB} r='{SensorExpression.For(Sensor)}'");
+        else
+            deck.Line($"{name} {NodeA} {NodeB} {SpiceNumber.Format(ResistanceOhmsAt(deck.TemperatureCelsius))}");
+    }
 
     internal override Stamp Bind(BindContext context) => new SensorResistorStamp(this, context);
 }

@@ -33,6 +33,9 @@ public sealed record TransientSweep(double StopSeconds, double MaxStepSeconds) :
     public double RelativeTolerance { get; init; } = 1e-6;
 
     public double VoltageToleranceVolts { get; init; } = 1e-9;
+
+    /// <summary>Windows in which the engine must take evenly spaced steps (see <see cref="StepGuard"/>).</summary>
+    public IReadOnlyList<StepGuard> StepGuards { get; init; } = [];
 }
 
 /// <summary><c>.ac dec</c> from <see cref="StartHertz"/> to <see cref="StopHertz"/>.</summary>
@@ -40,3 +43,10 @@ public sealed record AcSweep(double StartHertz, double StopHertz, int PointsPerD
 
 /// <summary><c>.noise</c> at <see cref="OutputNode"/> (against ground), input referred to <see cref="InputSource"/>.</summary>
 public sealed record NoiseSweep(string OutputNode, string InputSource, double StartHertz, double StopHertz, int PointsPerDecade) : SpiceAnalysis;
+
+/// <summary>
+/// Forces <see cref="Points"/> evenly spaced time points into the window [start, start + window) of every period:
+/// written as zero-valued PULSE current sources, whose corners SPICE takes as breakpoints. This caps the step inside
+/// short windows (an acquisition) without capping it everywhere, and costs no matrix rows.
+/// </summary>
+public sealed record StepGuard(double StartSeconds, double WindowSeconds, double PeriodSeconds, int Points);

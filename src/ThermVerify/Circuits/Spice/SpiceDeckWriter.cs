@@ -37,6 +37,7 @@ public static class SpiceDeckWriter
             StopTimeSeconds = analysis is TransientSweep t ? t.StopSeconds : null,
             TemperatureCelsius = circuit.TemperatureCelsius,
             WritesNoiseSources = analysis is NoiseSweep,
+            SweepsTemperature = analysis is DcTemperatureSweep,
         };
         foreach (var element in circuit.Elements)
             element.WriteSpice(lines);
@@ -55,6 +56,8 @@ public static class SpiceDeckWriter
         foreach (var include in lines.Includes)
             deck.AppendLine($".include \"{include}\"");
         deck.Append(lines.Netlist);
+        if (analysis is TransientSweep { StepGuards.Count: > 0 } guarded)
+            WriteGuards(deck, guarded.StepGuards);
         foreach (var definition in lines.Definitions)
             deck.AppendLine(definition);
         deck.AppendLine(AnalysisLine(analysis));
@@ -65,7 +68,7 @@ public static class SpiceDeckWriter
     /// <summary>Tight DC tolerances (a linear front end converges in two Newton steps anyway); transient ones from the analysis.</summary>
     private static string Tolerances(SpiceAnalysis analysis) => analysis switch
     {
-        TransientSweep t => $"reltol={Format(t.RelativeTolerance)} vntol={Format(t.VoltageToleranceVolts)} abstol=1e-12 chgtol=1e-20 method=trap",
+        TransientSweep t => $"reltol={Format(t.RelativeTolerance)} vntol={Format(t.VoltageToleranceVolts)} abstol=1e-12 chgtol=1e-16 method=trap",
         // abstol below 1e-12 sends ngspice's operating point into gmin stepping even on a linear circuit.
         _ => "reltol=1e-9 vntol=1e-12 abstol=1e-12",
     };
@@ -78,6 +81,20 @@ public static class SpiceDeckWriter
         NoiseSweep n => $".noise v({n.OutputNode}) {SpiceLines.InstanceName('V', n.InputSource)} dec {n.PointsPerDecade} {Format(n.StartHertz)} {Format(n.StopHertz)}",
         _ => throw new ArgumentException($"Unknown analysis {analysis.GetType().Name}."),
     };
+
+    private static void WriteGuards(StringBuilder deck, IReadOnlyList<StepGuard> guards)
+    {
+        deck.AppendLine("* step guards: zero-valued sources whose corners force time points (no effect on the circuit)");
+        deck.AppendLine("Rtv_guard tv_guard 0 1e9 noisy=0");
+        for (var g = 0; g < guards.Count; g++)
+        {
+            var (start, window, period, points) = (guards[g].StartSeconds, guards[g].WindowSeconds, guards[g].PeriodSeconds, guards[g].Points);
+            var d = window / points;
+            // Each PULSE has four corners: delay, end of rise, end of width, end of fall.
+            for (var j = 0; 4 * j + 4 <= points; j++)
+                deck.AppendLine($"Itv_guard{g}_{j} tv_guard 0 PULSE(0 0 {Format(start + d * (4 * j + 1))} {Format(d)} {Format(d)} {Format(d)} {Format(period)})");
+        }
+    }
 
     private static string OneLine(string text) => text.Replace('\r', ' ').Replace('\n', ' ');
 }

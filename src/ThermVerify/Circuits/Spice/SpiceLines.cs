@@ -20,6 +20,13 @@ public sealed class SpiceLines
     /// <summary>The circuit temperature in °C, for the few values that must be fixed at it (noise scaling).</summary>
     public double TemperatureCelsius { get; init; } = 25;
 
+    /// <summary>
+    /// True in a <c>.dc temp</c> deck: temperature-dependent values are written as expressions in <c>temper</c>.
+    /// Otherwise they are written as their value at the deck's temperature, because ngspice turns a resistor with a
+    /// <c>temper</c> expression into a behavioural one that has no thermal noise.
+    /// </summary>
+    public bool SweepsTemperature { get; init; }
+
     /// <summary>Noise-only generators (the op-amp's) are written for a noise deck alone, to keep other decks lean.</summary>
     public bool WritesNoiseSources { get; init; }
 
