@@ -84,7 +84,7 @@ public sealed class NgspiceEngine : ICheckEngine
             var maxStep = options.MaxStepSeconds > 0 ? options.MaxStepSeconds : stopSeconds / 50;
             var sweep = new TransientSweep(stopSeconds, maxStep)
             {
-                StepGuards = Guards(circuit),
+                StepGuards = StepGuard.ForSwitches(circuit),
                 // Tighter than this, ngspice gives up at the switch edges ("timestep too small"); the guard times carry the accuracy.
                 RelativeTolerance = 1e-6,
                 VoltageToleranceVolts = 1e-9,
@@ -92,19 +92,6 @@ public sealed class NgspiceEngine : ICheckEngine
             plot = engine.Run(SpiceDeckWriter.Write(circuit, sweep, new SpiceDeckHeader("thermverify sampling transient"))).Plot("tran");
             simulatedTo = stopSeconds;
         }
-
-        /// <summary>
-        /// ngspice's step control lets the charge-sharing transient right after a switch closes through with errors of
-        /// 0.5 mV at reltol 1e-6 (against the two-capacitor closed form), and tighter tolerances make it give up
-        /// ("timestep too small") at the switch edge; steps of 1/1000 of the closed window bring it to about 3 µV. A global
-        /// step cap would cost a million steps a period at a 10 Hz sample rate, so the steps are forced inside the
-        /// windows only, as breakpoints of guard sources.
-        /// </summary>
-        private const int StepsPerClosedWindow = 1000;
-
-        private static List<StepGuard> Guards(Circuit circuit) =>
-            [.. circuit.Elements.OfType<TimedSwitch>().Select(s => s.Schedule).OfType<PeriodicSchedule>()
-                .Select(p => new StepGuard(p.DelaySeconds, p.ClosedSeconds, p.PeriodSeconds, StepsPerClosedWindow))];
 
         /// <summary>The value at a time point within 0.1 ps (switch edges are breakpoints, so samples fall on one), else linear between neighbours.</summary>
         private static double Interpolate(double[] time, double[] value, double t)

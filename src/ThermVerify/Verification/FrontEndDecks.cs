@@ -54,7 +54,10 @@ public static class FrontEndDecks
             {
                 var settleVolts = design.Check.SettleLimitLsb * model.Adc.LsbVolts;
                 var (circuit, transient) = SamplingRun.Setup(design, celsius, precharge, settleVolts, options.Conversions);
-                var sweep = new TransientSweep(FrontEndCircuit.SampleTimeSeconds(design, options.Conversions - 1), transient.MaxStepSeconds);
+                var sweep = new TransientSweep(FrontEndCircuit.SampleTimeSeconds(design, options.Conversions - 1), transient.MaxStepSeconds)
+                {
+                    StepGuards = StepGuard.ForSwitches(circuit),
+                };
                 return SpiceDeckWriter.Write(circuit, sweep, Header(design, circuit,
                     $"sampling transient, {options.Conversions} conversions at {celsius:0.###} °C, {PrechargeCases.Describe(precharge)}; " +
                     $"conversion k is v({Hold}) at (k+1)/f_s"));
