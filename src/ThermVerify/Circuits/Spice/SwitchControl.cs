@@ -22,7 +22,8 @@ internal static class SwitchControl
     /// <summary>A repeating PULSE when the count does not end before the stop time (or there is no stop time).</summary>
     private static string? Pulse(PeriodicSchedule p, double? stopSeconds)
     {
-        if (p.Count is { } n && (stopSeconds is not { } stop || p.DelaySeconds + n * p.PeriodSeconds < stop))
+        // Without a stop time (DC, AC, noise decks) only the state at t = 0 matters, and the pulse has it.
+        if (p.Count is { } n && stopSeconds is { } stop && p.DelaySeconds + n * p.PeriodSeconds < stop)
             return n <= 2000 ? null : throw new EngineUnsupportedException(
                 $"A periodic switch limited to {n} closures that end before the stop time would need a control waveform of {4 * n} corners; simulate a shorter time.");
         if (p.DelaySeconds == 0)
