@@ -26,9 +26,16 @@ internal static class CheckCommand
             Description = "simulate sampling at this many temperatures at most (every point of the sweep when it has fewer)",
             DefaultValueFactory = _ => new CheckOptions().MaximumSamplingPoints,
         };
+        var engine = new Option<string>("--engine")
+        {
+            Description = "simulation engine: built-in, or ngspice (needs the ngspice shared library; a design's own subcircuit needs ngspice)",
+            DefaultValueFactory = _ => EngineChoice.BuiltIn,
+        };
+        engine.AcceptOnlyFromAmong(EngineChoice.BuiltIn, EngineChoice.Ngspice);
+        var process = new Option<bool>("--ngspice-process") { Description = "with --engine ngspice: run every deck in a child 'ngspice -b' process instead of the shared library" };
         var command = new Command("check", "Verify a front end: closed form against simulation, every error in mV, LSB and K against the budget.")
         {
-            design, json, threads, noRemedies, quiet, report, junit, baseline, force, samplingPoints,
+            design, json, threads, noRemedies, quiet, report, junit, baseline, force, samplingPoints, engine, process,
         };
         threads.Validators.Add(r =>
         {
@@ -42,12 +49,14 @@ internal static class CheckCommand
         {
             var path = parsed.GetValue(design)!.FullName;
             var loaded = DesignLoader.Load(path);
+            var chosen = EngineChoice.Create(parsed.GetValue(engine)!, parsed.GetValue(process));
             var result = FrontEndCheck.Run(loaded, new CheckOptions
             {
                 Threads = parsed.GetValue(threads),
                 ComputeRemedies = !parsed.GetValue(noRemedies),
                 MaximumSamplingPoints = parsed.GetValue(samplingPoints),
                 Cancel = cancel,
+                Engine = chosen,
             });
             var faults = FaultThresholdsOrNull(loaded);
             if (parsed.GetValue(json) is { } jsonFile)

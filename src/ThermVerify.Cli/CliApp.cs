@@ -25,6 +25,7 @@ public static class CliApp
             WorstCaseCommand.Create(),
             MonteCarloCommand.Create(),
             ChooseFixedCommand.Create(),
+            DeckCommand.Create(),
         };
         if (args.Length == 0)
         {

@@ -6,6 +6,7 @@ using ThermVerify.Reporting;
 using ThermVerify.Sensors;
 using ThermVerify.Simulation;
 using ThermVerify.Circuits;
+using ThermVerify.Ngspice;
 
 namespace ThermVerify.Cli;
 
@@ -44,6 +45,8 @@ public static class ErrorReport
         SensorRangeException or SensorTableException or OutputExistsException => ExitCodes.BadInput,
         BaselineException => ExitCodes.BadInput,
         FileNotFoundException or DirectoryNotFoundException or UnauthorizedAccessException => ExitCodes.BadInput,
+        NgspiceUnavailableException or EngineUnsupportedException => ExitCodes.BadInput,
+        NgspiceException => ExitCodes.SimulationFailed,
         SimulationException => ExitCodes.SimulationFailed,
         CircuitException => ExitCodes.SimulationFailed,
         _ => ExitCodes.InternalError,

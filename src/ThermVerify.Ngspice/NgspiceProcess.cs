@@ -37,7 +37,7 @@ public static class NgspiceProcess
                 throw new NgspiceException("ngspice did not finish in time and was stopped", []);
             }
             var output = (stdout.Result + "\n" + stderr.Result).Split('\n').Select(l => l.TrimEnd()).Where(l => l.Length > 0).ToList();
-            var errors = stderr.Result.Split('\n').Where(l => l.Contains("error", StringComparison.OrdinalIgnoreCase)).ToList();
+            var errors = NgspiceSession.ErrorLines([.. stderr.Result.Split('\n').Where(l => l.Trim().Length > 0).Select(l => "stderr " + l)]);
             if (errors.Count > 0 || !File.Exists(rawPath))
                 throw new NgspiceException($"ngspice could not run the deck: {(errors.Count > 0 ? string.Join("; ", errors) : $"exit code {process.ExitCode}, no results")}", output);
             return new NgspiceResult(AsciiRawReader.Read(File.ReadAllText(rawPath)), output);

@@ -80,16 +80,38 @@ public static unsafe class NgspiceSession
     /// <summary>Return codes do not report deck errors; ngspice's own error lines do.</summary>
     private static void ThrowOnErrors(string what)
     {
-        var errors = Output.Where(IsErrorLine).ToList();
+        var errors = ErrorLines(Output);
         if (errors.Count == 0 && _exitStatus is null) return;
-        var detail = errors.Count > 0 ? string.Join("; ", errors.Select(e => e.Replace("stderr ", "").Trim())) : $"it stopped with status {_exitStatus}";
+        var detail = errors.Count > 0 ? string.Join("; ", errors) : $"it stopped with status {_exitStatus}";
         throw new NgspiceException($"{what}: {detail}", [.. Output]);
+    }
+
+    /// <summary>
+    /// ngspice's error lines, each followed by the line it introduces when it ends in a colon ("Error on line:"
+    /// precedes the offending netlist line), and its "can't find" warnings, which name the missing model or subcircuit.
+    /// </summary>
+    internal static List<string> ErrorLines(IReadOnlyList<string> output)
+    {
+        var errors = new List<string>();
+        for (var i = 0; i < output.Count; i++)
+        {
+            var line = output[i];
+            if (!IsErrorLine(line) && !(line.StartsWith("stderr", StringComparison.Ordinal) && line.Contains("can't find", StringComparison.OrdinalIgnoreCase)))
+                continue;
+            errors.Add(Clean(line));
+            if (line.TrimEnd().EndsWith(':') && i + 1 < output.Count)
+                errors.Add(Clean(output[++i]));
+        }
+        return errors;
+
+        static string Clean(string line) => line.Replace("stderr ", "").Trim();
     }
 
     internal static bool IsErrorLine(string line) =>
         line.StartsWith("stderr", StringComparison.Ordinal) &&
         (line.Contains("error", StringComparison.OrdinalIgnoreCase) || line.Contains("aborted", StringComparison.OrdinalIgnoreCase)
-         || line.Contains("unknown", StringComparison.OrdinalIgnoreCase) || line.Contains("could not", StringComparison.OrdinalIgnoreCase));
+         || line.Contains("unknown", StringComparison.OrdinalIgnoreCase) || line.Contains("could not", StringComparison.OrdinalIgnoreCase)
+         || line.Contains("too small", StringComparison.OrdinalIgnoreCase) || line.Contains("singular", StringComparison.OrdinalIgnoreCase));
 
     private static List<NgspicePlot> ReadPlots()
     {

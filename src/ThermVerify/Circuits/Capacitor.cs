@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -24,9 +25,10 @@ public sealed record Capacitor(string Name, string NodeA, string NodeB, double C
             ElementChecks.Finite(this, v, "initial voltage");
     }
 
+    internal override void WriteSpice(SpiceLines deck) =>
+        deck.Line($"{SpiceLines.InstanceName('C', Name)} {NodeA} {NodeB} {SpiceNumber.Format(CapacitanceFarads)}" +
+                  (InitialVoltage is { } v ? $" ic={SpiceNumber.Format(v)}" : ""));
+
     internal override Stamp Bind(BindContext context) => new CapacitorStamp(this, context);
 
-    internal override void WriteSpice(SpiceDeckBuilder deck) =>
-        deck.Card($"{SpiceDeckBuilder.Name('C', Name)} {NodeA} {NodeB} {SpiceDeckBuilder.Number(CapacitanceFarads)}"
-            + (InitialVoltage is { } v ? $" ic={SpiceDeckBuilder.Number(v)}" : ""));
 }

@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -23,9 +24,8 @@ public sealed record CurrentSource(string Name, string Positive, string Negative
         ElementChecks.Finite(this, AcPhaseDegrees, "AC phase");
     }
 
-    internal override Stamp Bind(BindContext context) => new CurrentSourceStamp(this, context);
+    internal override void WriteSpice(SpiceLines deck) =>
+        deck.Line($"{SpiceLines.InstanceName('I', Name)} {Positive} {Negative} {Waveform.ToSpice()}{SpiceSource.Ac(AcMagnitude, AcPhaseDegrees)}");
 
-    internal override void WriteSpice(SpiceDeckBuilder deck) =>
-        deck.Card($"{SpiceDeckBuilder.Name('I', Name)} {Positive} {Negative} {Waveform.ToSpice()}"
-            + $" ac {SpiceDeckBuilder.Number(AcMagnitude)} {SpiceDeckBuilder.Number(AcPhaseDegrees)}");
+    internal override Stamp Bind(BindContext context) => new CurrentSourceStamp(this, context);
 }

@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -57,17 +58,15 @@ public sealed record Diode(string Name, string Anode, string Cathode, double Sat
         ElementChecks.Finite(this, SaturationExponent, "saturation exponent");
     }
 
-    internal override Stamp Bind(BindContext context) => new DiodeStamp(this, context);
-
-    /// <summary>SPICE diode; without a reference temperature XTI = EG = 0 keep Is constant, as here.</summary>
-    internal override void WriteSpice(SpiceDeckBuilder deck)
+    /// <summary>xti = 0 and eg = 0 keep Is fixed with temperature, as in the built-in model.</summary>
+    internal override void WriteSpice(SpiceLines deck)
     {
         var model = $"{Name}_model";
-        deck.Card($"{SpiceDeckBuilder.Name('D', Name)} {Anode} {Cathode} {model}");
-        var temperature = SaturationReferenceCelsius is { } reference
-            ? $"tnom={SpiceDeckBuilder.Number(reference)} xti={SpiceDeckBuilder.Number(SaturationExponent)} eg={SpiceDeckBuilder.Number(BandGapElectronVolts)}"
-            : "xti=0 eg=0";
-        deck.Model($".model {model} d is={SpiceDeckBuilder.Number(SaturationCurrentAmperes)} n={SpiceDeckBuilder.Number(EmissionCoefficient)} " +
-            $"rs={SpiceDeckBuilder.Number(SeriesResistanceOhms)} {temperature}");
+        deck.Line($"{SpiceLines.InstanceName('D', Name)} {Anode} {Cathode} {model}");
+        deck.Definition(model, $".model {model} d is={SpiceNumber.Format(SaturationCurrentAmperes)} n={SpiceNumber.Format(EmissionCoefficient)} " +
+                               $"rs={SpiceNumber.Format(SeriesResistanceOhms)} xti=0 eg=0 cjo=0");
     }
+
+    internal override Stamp Bind(BindContext context) => new DiodeStamp(this, context);
+
 }

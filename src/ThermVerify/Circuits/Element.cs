@@ -28,8 +28,9 @@ public abstract record Element(string Name)
 
     internal abstract Stamp Bind(BindContext context);
 
-    /// <summary>Writes the element's SPICE cards (see <see cref="SpiceDeck"/>).</summary>
-    internal abstract void WriteSpice(SpiceDeckBuilder deck);
+    /// <summary>The element's lines in a SPICE deck; elements without a SPICE form say so.</summary>
+    internal virtual void WriteSpice(Spice.SpiceLines deck) =>
+        throw new EngineUnsupportedException($"{Describe} has no SPICE form; it cannot be written to a deck or run by ngspice.");
 
     internal string Describe => $"{GetType().Name} '{Name}'";
 }

@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -24,9 +25,9 @@ public sealed record Inductor(string Name, string NodeA, string NodeB, double In
             ElementChecks.Finite(this, i, "initial current");
     }
 
-    internal override Stamp Bind(BindContext context) => new InductorStamp(this, context);
+    internal override void WriteSpice(SpiceLines deck) =>
+        deck.Line($"{SpiceLines.InstanceName('L', Name)} {NodeA} {NodeB} {SpiceNumber.Format(InductanceHenries)}" +
+                  (InitialCurrent is { } i ? $" ic={SpiceNumber.Format(i)}" : ""));
 
-    internal override void WriteSpice(SpiceDeckBuilder deck) =>
-        deck.Card($"{SpiceDeckBuilder.Name('L', Name)} {NodeA} {NodeB} {SpiceDeckBuilder.Number(InductanceHenries)}"
-            + (InitialCurrent is { } i ? $" ic={SpiceDeckBuilder.Number(i)}" : ""));
+    internal override Stamp Bind(BindContext context) => new InductorStamp(this, context);
 }

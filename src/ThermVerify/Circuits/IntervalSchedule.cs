@@ -24,21 +24,6 @@ public sealed record IntervalSchedule(ImmutableArray<(double CloseSeconds, doubl
         }
     }
 
-    internal override string ToSpiceControl()
-    {
-        var corners = new List<string> { "0 0" };
-        foreach (var (c, o) in Intervals.OrderBy(i => i.CloseSeconds))
-        {
-            corners.Add($"{SpiceDeckBuilder.Number(c)} 0");
-            corners.Add($"{SpiceDeckBuilder.Number(c + SpiceEdgeSeconds)} 1");
-            corners.Add($"{SpiceDeckBuilder.Number(double.IsFinite(o) ? o : 1e30)} 1");
-            corners.Add($"{SpiceDeckBuilder.Number(double.IsFinite(o) ? o + SpiceEdgeSeconds : 1e30 + 1)} 0");
-        }
-        if (Intervals.Length > 0 && Intervals.Min(i => i.CloseSeconds) <= 0)
-            corners.RemoveAt(0);
-        return $"pwl({string.Join(" ", corners)})";
-    }
-
     internal override void Validate(Element owner)
     {
         if (Intervals.IsDefault)

@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -24,9 +25,11 @@ public sealed record LeakageCurrentSource(string Name, string Positive, string N
         ElementChecks.Positive(this, DoublingKelvin, "doubling interval");
     }
 
+    /// <summary>A behavioural current source, so that the current follows <c>temper</c> in a temperature sweep.</summary>
+    internal override void WriteSpice(SpiceLines deck) =>
+        deck.Line($"{SpiceLines.InstanceName('B', Name)} {Positive} {Negative} I={SpiceNumber.Format(CurrentAt25CelsiusAmperes)}" +
+                  $"*pow(2,(temper-25)/{SpiceNumber.Format(DoublingKelvin)})");
+
     internal override Stamp Bind(BindContext context) => new LeakageCurrentSourceStamp(this, context);
 
-    internal override void WriteSpice(SpiceDeckBuilder deck) =>
-        deck.Card($"{SpiceDeckBuilder.Name('B', Name)} {Positive} {Negative} I='{SpiceDeckBuilder.Number(CurrentAt25CelsiusAmperes)}"
-            + $"*exp({SpiceDeckBuilder.Number(Math.Log(2))}*(temper-25)/{SpiceDeckBuilder.Number(DoublingKelvin)})'");
 }

@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -88,7 +89,7 @@ public sealed record OpAmp(string Name, string NonInverting, string Inverting, s
         ElementChecks.NonNegative(this, CurrentNoiseCornerHertz, "current noise corner");
     }
 
-    internal override Stamp Bind(BindContext context) => new OpAmpStamp(this, context);
+    internal override void WriteSpice(SpiceLines deck) => OpAmpSubcircuit.Write(this, deck);
 
-    internal override void WriteSpice(SpiceDeckBuilder deck) => SpiceOpAmp.Write(this, deck);
+    internal override Stamp Bind(BindContext context) => new OpAmpStamp(this, context);
 }

@@ -31,13 +31,6 @@ public sealed record PeriodicSchedule(double DelaySeconds, double PeriodSeconds,
         }
     }
 
-    internal override string ToSpiceControl()
-    {
-        static string N(double v) => SpiceDeckBuilder.Number(v);
-        var pulses = Count is { } n ? $" {n}" : "";
-        return $"pulse(0 1 {N(DelaySeconds)} {N(SpiceEdgeSeconds)} {N(SpiceEdgeSeconds)} {N(ClosedSeconds - SpiceEdgeSeconds)} {N(PeriodSeconds)}{pulses})";
-    }
-
     internal override void Validate(Element owner)
     {
         ElementChecks.NonNegative(owner, DelaySeconds, "schedule delay");

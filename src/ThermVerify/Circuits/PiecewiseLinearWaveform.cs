@@ -32,8 +32,7 @@ public sealed record PiecewiseLinearWaveform(ImmutableArray<(double TimeSeconds,
     }
 
     internal override string ToSpice() =>
-        $"dc {SpiceDeckBuilder.Number(Points[0].Value)} pwl(" +
-        string.Join(" ", Points.Select(p => $"{SpiceDeckBuilder.Number(p.TimeSeconds)} {SpiceDeckBuilder.Number(p.Value)}")) + ")";
+        $"PWL({string.Join(" ", Points.Select(p => $"{Spice.SpiceNumber.Format(p.TimeSeconds)} {Spice.SpiceNumber.Format(p.Value)}"))})";
 
     internal override void Validate(Element owner)
     {

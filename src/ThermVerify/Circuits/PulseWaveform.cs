@@ -49,14 +49,13 @@ public sealed record PulseWaveform(double Initial, double Pulsed, double DelaySe
         }
     }
 
+    /// <summary>SPICE replaces a zero rise or fall by its print step; 1 ps keeps the step as sharp as SPICE allows.</summary>
     internal override string ToSpice()
     {
-        static string N(double v) => SpiceDeckBuilder.Number(v);
-        // SPICE replaces a zero rise or fall by the print step; a femtosecond keeps the step ideal in effect.
-        var rise = RiseSeconds > 0 ? RiseSeconds : 1e-15;
-        var fall = FallSeconds > 0 ? FallSeconds : 1e-15;
-        var period = Repeats ? PeriodSeconds : 1e30;
-        return $"dc {N(Initial)} pulse({N(Initial)} {N(Pulsed)} {N(DelaySeconds)} {N(rise)} {N(fall)} {N(WidthSeconds)} {N(period)})";
+        static string F(double v) => Spice.SpiceNumber.Format(v);
+        var edge = Spice.SwitchControl.EdgeSeconds;
+        return $"PULSE({F(Initial)} {F(Pulsed)} {F(DelaySeconds)} {F(RiseSeconds > 0 ? RiseSeconds : edge)} " +
+               $"{F(FallSeconds > 0 ? FallSeconds : edge)} {F(WidthSeconds)} {F(Repeats ? PeriodSeconds : 0)})";
     }
 
     internal override void Validate(Element owner)

@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -32,15 +33,23 @@ public sealed record Resistor(string Name, string NodeA, string NodeB, double Re
         ElementChecks.Finite(this, ReferenceCelsius, "reference temperature");
     }
 
+    /// <summary>tc1/tc2 as SPICE instance parameters when referenced to 25 °C (the deck's TNOM); else the same quadratic as an expression.</summary>
+    internal override void WriteSpice(SpiceLines deck)
+    {
+        var name = SpiceLines.InstanceName('R', Name);
+        if (!DependsOnTemperature)
+            deck.Line($"{name} {NodeA} {NodeB} {SpiceNumber.Format(ResistanceOhms)}");
+        else if (ReferenceCelsius == SpiceDeckWriter.NominalCelsius)
+            deck.Line($"{name} {NodeA} {NodeB} {SpiceNumber.Format(ResistanceOhms)} tc1={SpiceNumber.Format(Tc1PerKelvin)} tc2={SpiceNumber.Format(Tc2PerKelvinSquared)}");
+        else if (!deck.SweepsTemperature)
+            deck.Line($"{name} {NodeA} {NodeB} {SpiceNumber.Format(ResistanceOhmsAt(deck.TemperatureCelsius))}");
+        else
+        {
+            var dt = $"(temper-{SpiceNumber.Format(ReferenceCelsius)})";
+            deck.Line($"{name} {NodeA} {NodeB} r='{SpiceNumber.Format(ResistanceOhms)}*(1+{SpiceNumber.Format(Tc1PerKelvin)}*{dt}+{SpiceNumber.Format(Tc2PerKelvinSquared)}*{dt}*{dt})'");
+        }
+    }
+
     internal override Stamp Bind(BindContext context) => new ResistorStamp(this, context);
 
-    internal override void WriteSpice(SpiceDeckBuilder deck)
-    {
-        var r = SpiceDeckBuilder.Number(ResistanceOhms);
-        var value = DependsOnTemperature
-            ? $"r='{r}*(1+({SpiceDeckBuilder.Number(Tc1PerKelvin)})*(temper-({SpiceDeckBuilder.Number(ReferenceCelsius)}))" +
-              $"+({SpiceDeckBuilder.Number(Tc2PerKelvinSquared)})*(temper-({SpiceDeckBuilder.Number(ReferenceCelsius)}))*(temper-({SpiceDeckBuilder.Number(ReferenceCelsius)})))'"
-            : r;
-        deck.Card($"{SpiceDeckBuilder.Name('R', Name)} {NodeA} {NodeB} {value}");
-    }
 }

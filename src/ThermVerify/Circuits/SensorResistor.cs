@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Sensors;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
@@ -36,7 +37,15 @@ public sealed record SensorResistor(string Name, string NodeA, string NodeB, ISe
         return r;
     }
 
+    internal override void WriteSpice(SpiceLines deck)
+    {
+        var name = SpiceLines.InstanceName('R', Name);
+        if (deck.SweepsTemperature)
+            deck.Line($"{name} {NodeA} {NodeB} r='{SensorExpression.For(Sensor)}'");
+        else
+            deck.Line($"{name} {NodeA} {NodeB} {SpiceNumber.Format(ResistanceOhmsAt(deck.TemperatureCelsius))}");
+    }
+
     internal override Stamp Bind(BindContext context) => new SensorResistorStamp(this, context);
 
-    internal override void WriteSpice(SpiceDeckBuilder deck) => SpiceSensorExpression.Write(this, deck);
 }

@@ -11,10 +11,4 @@ public abstract record SwitchSchedule
     internal abstract void CollectEdges(double fromSeconds, double toSeconds, List<double> into);
 
     internal abstract void Validate(Element owner);
-
-    /// <summary>A SPICE source for a 0/1 V control node following the schedule with 1 ps edges.</summary>
-    internal abstract string ToSpiceControl();
-
-    /// <summary>Length of the control edges in the SPICE deck.</summary>
-    internal const double SpiceEdgeSeconds = 1e-12;
 }

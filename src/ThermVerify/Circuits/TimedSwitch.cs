@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -25,15 +26,16 @@ public sealed record TimedSwitch(string Name, string NodeA, string NodeB, double
         Schedule.Validate(this);
     }
 
+    /// <summary>A voltage-controlled switch on its own control node, driven by the schedule (see <see cref="SwitchControl"/>).</summary>
+    internal override void WriteSpice(SpiceLines deck)
+    {
+        var control = $"{Name}_ctl";
+        var model = $"{Name}_model";
+        deck.Line($"{SpiceLines.InstanceName('V', control)} {control} 0 {SwitchControl.Waveform(Schedule, deck.StopTimeSeconds)}");
+        deck.Line($"{SpiceLines.InstanceName('S', Name)} {NodeA} {NodeB} {control} 0 {model}");
+        deck.Definition(model, $".model {model} sw vt=0.5 vh=0 ron={SpiceNumber.Format(OnResistanceOhms)} roff={SpiceNumber.Format(OffResistanceOhms)}");
+    }
+
     internal override Stamp Bind(BindContext context) => new TimedSwitchStamp(this, context);
 
-    /// <summary>A SPICE switch on a 0/1 V control node driven by the schedule with 1 ps edges.</summary>
-    internal override void WriteSpice(SpiceDeckBuilder deck)
-    {
-        var control = $"{Name}_control";
-        var model = $"{Name}_model";
-        deck.Card($"{SpiceDeckBuilder.Name('S', Name)} {NodeA} {NodeB} {control} 0 {model}");
-        deck.Card($"{SpiceDeckBuilder.Name('V', control)} {control} 0 {Schedule.ToSpiceControl()}");
-        deck.Model($".model {model} sw vt=0.5 vh=0 ron={SpiceDeckBuilder.Number(OnResistanceOhms)} roff={SpiceDeckBuilder.Number(OffResistanceOhms)}");
-    }
 }

@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -19,8 +20,9 @@ public sealed record Vccs(string Name, string Positive, string Negative, string 
         ElementChecks.Finite(this, TransconductanceSiemens, "transconductance");
     }
 
+    internal override void WriteSpice(SpiceLines deck) =>
+        deck.Line($"{SpiceLines.InstanceName('G', Name)} {Positive} {Negative} {ControlPositive} {ControlNegative} {SpiceNumber.Format(TransconductanceSiemens)}");
+
     internal override Stamp Bind(BindContext context) => new VccsStamp(this, context);
 
-    internal override void WriteSpice(SpiceDeckBuilder deck) =>
-        deck.Card($"{SpiceDeckBuilder.Name('G', Name)} {Positive} {Negative} {ControlPositive} {ControlNegative} {SpiceDeckBuilder.Number(TransconductanceSiemens)}");
 }

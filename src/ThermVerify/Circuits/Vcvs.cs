@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -22,8 +23,8 @@ public sealed record Vcvs(string Name, string Positive, string Negative, string 
         ElementChecks.Finite(this, Gain, "gain");
     }
 
-    internal override Stamp Bind(BindContext context) => new VcvsStamp(this, context);
+    internal override void WriteSpice(SpiceLines deck) =>
+        deck.Line($"{SpiceLines.InstanceName('E', Name)} {Positive} {Negative} {ControlPositive} {ControlNegative} {SpiceNumber.Format(Gain)}");
 
-    internal override void WriteSpice(SpiceDeckBuilder deck) =>
-        deck.Card($"{SpiceDeckBuilder.Name('E', Name)} {Positive} {Negative} {ControlPositive} {ControlNegative} {SpiceDeckBuilder.Number(Gain)}");
+    internal override Stamp Bind(BindContext context) => new VcvsStamp(this, context);
 }

@@ -1,3 +1,4 @@
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
 
@@ -29,9 +30,8 @@ public sealed record VoltageSource(string Name, string Positive, string Negative
         ElementChecks.Finite(this, AcPhaseDegrees, "AC phase");
     }
 
-    internal override Stamp Bind(BindContext context) => new VoltageSourceStamp(this, context);
+    internal override void WriteSpice(SpiceLines deck) =>
+        deck.Line($"{SpiceLines.InstanceName('V', Name)} {Positive} {Negative} {Waveform.ToSpice()}{SpiceSource.Ac(AcMagnitude, AcPhaseDegrees)}");
 
-    internal override void WriteSpice(SpiceDeckBuilder deck) =>
-        deck.Card($"{SpiceDeckBuilder.Name('V', Name)} {Positive} {Negative} {Waveform.ToSpice()}"
-            + $" ac {SpiceDeckBuilder.Number(AcMagnitude)} {SpiceDeckBuilder.Number(AcPhaseDegrees)}");
+    internal override Stamp Bind(BindContext context) => new VoltageSourceStamp(this, context);
 }

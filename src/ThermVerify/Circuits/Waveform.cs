@@ -25,7 +25,7 @@ public sealed record DcWaveform(double Value) : Waveform
 
     internal override void CollectBreakpoints(double fromSeconds, double toSeconds, List<double> into) { }
 
-    internal override void Validate(Element owner) => ElementChecks.Finite(owner, Value, "DC value");
+    internal override string ToSpice() => $"dc {Spice.SpiceNumber.Format(Value)}";
 
-    internal override string ToSpice() => $"dc {SpiceDeckBuilder.Number(Value)}";
+    internal override void Validate(Element owner) => ElementChecks.Finite(owner, Value, "DC value");
 }

@@ -52,6 +52,11 @@ internal sealed class MonotoneCubic
         }
     }
 
+    /// <summary>The knots, values and limited slopes, for writing the same curve elsewhere (SPICE export).</summary>
+    internal IReadOnlyList<double> Knots => _x;
+    internal IReadOnlyList<double> Values => _y;
+    internal IReadOnlyList<double> Slopes => _m;
+
     public double MinX => _x[0];
     public double MaxX => _x[^1];
     public double MinY => _y[0];

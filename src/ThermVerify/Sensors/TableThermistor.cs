@@ -64,6 +64,9 @@ public sealed class TableThermistor : ISensorModel
 
     public IReadOnlyList<TablePoint> Points { get; }
 
+    /// <summary>The interpolant itself (ln R against 1/T), so a SPICE deck can carry the very same curve.</summary>
+    internal MonotoneCubic LnResistanceOfInverseKelvin => _lnROfInverseKelvin;
+
     public string Description => string.Create(CultureInfo.InvariantCulture,
         $"NTC R–T table '{_sourceName}' ({Points.Count} rows, monotone cubic in ln R against 1/T), valid {ValidRange}");
 

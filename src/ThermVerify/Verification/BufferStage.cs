@@ -5,7 +5,8 @@ namespace ThermVerify.Verification;
 
 /// <summary>
 /// The op-amp buffer between the divider and the filter: a follower, or a non-inverting stage with a 10 kΩ
-/// ground leg, built on the engine's op-amp macro-model; an isolation resistor, when given, sits outside the loop.
+/// ground leg, built on the engine's op-amp macro-model, or on the design's own SPICE subcircuit when it names one
+/// (only a SPICE engine runs that); an isolation resistor, when given, sits outside the loop.
 /// </summary>
 internal static class BufferStage
 {
@@ -18,7 +19,9 @@ internal static class BufferStage
     {
         var output = buffer.IsolationResistorOhms > 0 ? AmplifierOutput : FrontEndNodes.BufferOutput;
         var inverting = buffer.Topology == BufferTopology.Follower ? output : Feedback;
-        elements.Add(OpAmpFor(buffer, input, inverting, output, boardCelsius));
+        elements.Add(buffer.Subcircuit is { } sub
+            ? new ExternalOpAmp("Xbuffer", input, inverting, output, sub.FullPath, sub.Name, buffer.Supply.MinVolts, buffer.Supply.MaxVolts)
+            : OpAmpFor(buffer, input, inverting, output, boardCelsius));
         if (buffer.Topology == BufferTopology.NonInverting)
         {
             elements.Add(new Resistor("Rgain", output, Feedback, (buffer.Gain - 1) * GroundLegOhms));

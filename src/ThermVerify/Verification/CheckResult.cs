@@ -14,6 +14,9 @@ public sealed record CheckOptions
     public bool ComputeRemedies { get; init; } = true;
 
     public CancellationToken Cancel { get; init; }
+
+    /// <summary>The engine that runs the temperature sweeps and sampling transients (remedy searches included).</summary>
+    public ICheckEngine Engine { get; init; } = BuiltInEngine.Instance;
 }
 
 /// <summary>Everything `check` found: every point of the sweep, the sampling runs, the findings and the verdict.</summary>

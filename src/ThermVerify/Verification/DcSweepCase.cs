@@ -1,5 +1,4 @@
 using ThermVerify.Design;
-using ThermVerify.Simulation;
 using static ThermVerify.Verification.FrontEndNodes;
 
 namespace ThermVerify.Verification;
@@ -22,15 +21,18 @@ public sealed record DcSweepCase(
     public static bool UsesAverageSamplingCurrent(FrontEndDesign design, double? prechargeVolts) =>
         prechargeVolts is not null && design.Filter.ReservoirCapacitorFarads > 0;
 
-    public static DcSweepCase Run(FrontEndDesign design, double? prechargeVolts, IReadOnlyList<double> temperaturesCelsius)
+    public static DcSweepCase Run(FrontEndDesign design, double? prechargeVolts, IReadOnlyList<double> temperaturesCelsius,
+        ICheckEngine? engine = null)
     {
-        var plain = DcSweep.Temperature(FrontEndCircuit.Dc(design, null), temperaturesCelsius);
-        var divider = plain.Voltage(Divider);
-        var buffer = design.Buffer is null ? divider : plain.Voltage(FrontEndCircuit.AmplifierNode(design));
+        engine ??= BuiltInEngine.Instance;
         var pinNode = FrontEndCircuit.PinNode(design);
-        var staticPin = plain.Voltage(pinNode);
+        var plain = engine.TemperatureSweep(FrontEndCircuit.Dc(design, null), temperaturesCelsius,
+            design.Buffer is null ? [Divider, pinNode] : [Divider, FrontEndCircuit.AmplifierNode(design), pinNode]);
+        var divider = plain[0];
+        var buffer = design.Buffer is null ? divider : plain[1];
+        var staticPin = plain[^1];
         var pin = UsesAverageSamplingCurrent(design, prechargeVolts)
-            ? DcSweep.Temperature(FrontEndCircuit.Dc(design, prechargeVolts), temperaturesCelsius).Voltage(pinNode)
+            ? engine.TemperatureSweep(FrontEndCircuit.Dc(design, prechargeVolts), temperaturesCelsius, [pinNode])[0]
             : staticPin;
         return new DcSweepCase(prechargeVolts, divider, buffer, staticPin, pin);
     }

@@ -42,8 +42,8 @@ public static class FindingRules
             if (options.ComputeRemedies)
             {
                 var estimate = SinglePoleAcquisitionEstimate(design, s.Worst, halfLsb);
-                if (Remedies.ShortestAcquisition(design, s.Worst, halfLsb, settleVolts, estimate) is { } r1) remedies.Add(r1);
-                if (Remedies.SmallestReservoir(design, s.Worst, halfLsb, settleVolts) is { } r2) remedies.Add(r2);
+                if (Remedies.ShortestAcquisition(design, s.Worst, halfLsb, settleVolts, estimate, options.Engine) is { } r1) remedies.Add(r1);
+                if (Remedies.SmallestReservoir(design, s.Worst, halfLsb, settleVolts, options.Engine) is { } r2) remedies.Add(r2);
             }
             remedies.Add(Remedies.BufferBandwidth(design, PrechargeStep(s.Worst), halfLsb));
             findings.Add(Make("settling", firstIsWorse ? "the first conversion after a precharge does not settle" : "the sampled value does not settle",

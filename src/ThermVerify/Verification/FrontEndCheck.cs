@@ -22,8 +22,8 @@ public static class FrontEndCheck
 
         var cases = PrechargeCases.For(design, model.Adc.ReferenceVolts).Select(pre =>
         {
-            var dc = DcSweepCase.Run(design, pre, temperatures);
-            var sampling = SettlingGrid.Run(design, pre, temperatures, indices, settleVolts, options.Threads, options.Cancel);
+            var dc = DcSweepCase.Run(design, pre, temperatures, options.Engine);
+            var sampling = SettlingGrid.Run(design, pre, temperatures, indices, settleVolts, options.Threads, options.Cancel, options.Engine);
             // Settling offsets at every point, linear between grid points: the first sample from the settled pin,
             // the steady sample from the pin with the average sampling current.
             var first = SettlingGrid.Interpolate(temperatures, indices, g => sampling[g].FirstVolts - dc.StaticPinVolts[indices[g]]);

@@ -11,26 +11,29 @@ namespace ThermVerify.Verification;
 public static class Remedies
 {
     /// <summary>The settling error of a design at one temperature and precharge: the worse of first and steady sample, minus the DC pin voltage.</summary>
-    public static double SettlingErrorVolts(FrontEndDesign design, double celsius, double? prechargeVolts, double settleVolts)
+    public static double SettlingErrorVolts(FrontEndDesign design, double celsius, double? prechargeVolts, double settleVolts,
+        ICheckEngine? engine = null)
     {
-        var outcome = SamplingRun.Run(design, celsius, prechargeVolts, settleVolts);
-        var dc = DcSweepCase.Run(design, prechargeVolts, [celsius]).PinVolts[0];
+        var outcome = SamplingRun.Run(design, celsius, prechargeVolts, settleVolts, engine: engine);
+        var dc = DcSweepCase.Run(design, prechargeVolts, [celsius], engine).PinVolts[0];
         return Math.Max(Math.Abs(outcome.FirstVolts - dc), Math.Abs(outcome.SteadyVolts - dc));
     }
 
     /// <summary>The charge-sharing step of the first conversion from a settled pin: first sample minus the static DC pin voltage.</summary>
-    public static double FirstConversionStepVolts(FrontEndDesign design, double celsius, double? prechargeVolts, double settleVolts)
+    public static double FirstConversionStepVolts(FrontEndDesign design, double celsius, double? prechargeVolts, double settleVolts,
+        ICheckEngine? engine = null)
     {
-        var first = SamplingRun.FirstSampleVolts(design, celsius, prechargeVolts, settleVolts);
-        var dc = DcSweepCase.Run(design, null, [celsius]).PinVolts[0];
+        var first = SamplingRun.FirstSampleVolts(design, celsius, prechargeVolts, settleVolts, engine);
+        var dc = DcSweepCase.Run(design, null, [celsius], engine).PinVolts[0];
         return Math.Abs(first - dc);
     }
 
-    public static Remedy? ShortestAcquisition(FrontEndDesign design, CheckPoint worst, double allowedVolts, double settleVolts, double estimateSeconds)
+    public static Remedy? ShortestAcquisition(FrontEndDesign design, CheckPoint worst, double allowedVolts, double settleVolts, double estimateSeconds,
+        ICheckEngine? engine = null)
     {
         var period = 1 / design.Adc.SampleRateHertz;
         var found = MonotoneSearch.SmallestPassing(Math.Min(1e-9, design.Adc.AcquisitionTimeSeconds), 0.95 * period,
-            t => SettlingErrorVolts(WithAcquisition(design, t), worst.Celsius, worst.PrechargeVolts, settleVolts) <= allowedVolts);
+            t => SettlingErrorVolts(WithAcquisition(design, t), worst.Celsius, worst.PrechargeVolts, settleVolts, engine) <= allowedVolts);
         var method = $"bisection on the simulated sample at {worst.Celsius:0.##} °C, {PrechargeCases.Describe(worst.PrechargeVolts)}; " +
                      $"single-pole estimate {Format(estimateSeconds)} s";
         return found is { } t
@@ -38,11 +41,12 @@ public static class Remedies
             : new Remedy("adc.acquisition_time", "no acquisition time within 95 % of the sample period settles to ½ LSB; add a reservoir capacitor or a buffer", null, "s", method);
     }
 
-    public static Remedy? SmallestReservoir(FrontEndDesign design, CheckPoint worst, double allowedVolts, double settleVolts)
+    public static Remedy? SmallestReservoir(FrontEndDesign design, CheckPoint worst, double allowedVolts, double settleVolts,
+        ICheckEngine? engine = null)
     {
         var cSample = design.Adc.SamplingCapacitanceFarads;
         var found = MonotoneSearch.SmallestPassing(cSample * 1e-2, cSample * 1e7,
-            c => FirstConversionStepVolts(WithReservoir(design, c), worst.Celsius, worst.PrechargeVolts, settleVolts) <= allowedVolts);
+            c => FirstConversionStepVolts(WithReservoir(design, c), worst.Celsius, worst.PrechargeVolts, settleVolts, engine) <= allowedVolts);
         var step = worst.PrechargeVolts is { } pre ? pre - worst.StaticPinVolts : 0;
         var estimate = SamplingFormulas.MinimumReservoirFarads(step, allowedVolts, cSample) - design.Adc.PinCapacitanceFarads;
         var method = $"bisection on the simulated first conversion at {worst.Celsius:0.##} °C, {PrechargeCases.Describe(worst.PrechargeVolts)}; " +

@@ -1,5 +1,6 @@
 using System.Numerics;
 using ThermVerify.Circuits;
+using ThermVerify.Circuits.Spice;
 using ThermVerify.Ngspice;
 using ThermVerify.Sensors;
 using ThermVerify.Simulation;
@@ -8,23 +9,11 @@ using ThermVerify.Tests.Ngspice;
 namespace ThermVerify.Tests.Circuits;
 
 /// <summary>
-/// Circuits written by <see cref="SpiceDeck"/> and run in ngspice (an independent engine, child process)
+/// Circuits written by <see cref="SpiceDeckWriter"/> and run in ngspice (an independent engine, child process)
 /// agree with the engine on the same circuit.
 /// </summary>
 public class SpiceDeckTests
 {
-    private const string Tight = ".options reltol=1e-9 abstol=1e-18 vntol=1e-15 numdgt=15";
-
-    [Fact]
-    public void Deck_names_elements_with_their_spice_letter_and_sets_the_temperature()
-    {
-        var circuit = new CircuitBuilder().VoltageSource("Vref", "a", "0", 1).Resistor("Rtop", "a", "0", 1e3).At(80).Build();
-        var deck = SpiceDeck.Write(circuit, ".op");
-        Assert.Contains("V_Vref a 0 dc 1 ac 0 0", deck);
-        Assert.Contains("R_Rtop a 0 1000", deck);
-        Assert.Contains(".temp 80", deck);
-        Assert.EndsWith(".end" + Environment.NewLine, deck);
-    }
 
     [NgspiceFact]
     public void Temperature_sweep_with_beta_ntc_rtd_tempco_and_leakage_matches_ngspice()
@@ -39,7 +28,7 @@ public class SpiceDeckTests
             .Resistor("Rrtd", "ref", "rtd", 1e3)
             .Add(new SensorResistor("PT1", "rtd", "0", new PlatinumRtd(100)))
             .Build();
-        var plot = NgspiceProcess.Run(SpiceDeck.Write(circuit, Tight, SpiceDeck.TemperatureSweep(-50, 150, 5))).Plot("dc");
+        var plot = NgspiceProcess.Run(SpiceDeckWriter.Write(circuit, new DcTemperatureSweep(-50, 5, 41))).Plot("dc");
         var temperatures = plot["temp-sweep"].Real;
         Assert.Equal(41, temperatures.Length);
         var sweep = DcSweep.Temperature(circuit, temperatures);
@@ -65,7 +54,7 @@ public class SpiceDeckTests
             .Resistor("Rl", "pin", "0", 100e3)
             .At(60)
             .Build();
-        var plot = NgspiceProcess.Run(SpiceDeck.Write(circuit, Tight, ".op")).Plot("op");
+        var plot = NgspiceProcess.Run(SpiceDeckWriter.Write(circuit, new OperatingPointAnalysis())).Plot("op");
         var op = OperatingPoint.Solve(circuit);
         // ngspice 39.3: same Shockley model, series resistance, gmin and (for Dlo) the SPICE temperature law.
         // Tolerance: ngspice's k and q are CODATA 2014 values; its kT/q differs from the exact SI one by 3.7e-7.
@@ -86,7 +75,7 @@ public class SpiceDeckTests
             .Capacitor("CL", "out", "0", 2.2e-9)
             .Resistor("RL", "out", "0", 10e3)
             .Build();
-        var plot = NgspiceProcess.Run(SpiceDeck.Write(circuit, Tight, ".ac dec 5 10 100meg")).Plot("ac");
+        var plot = NgspiceProcess.Run(SpiceDeckWriter.Write(circuit, new AcSweep(10, 100e6, 5))).Plot("ac");
         var frequencies = plot["frequency"].Complex!.Select(f => f.Real).ToArray();
         var ac = AcAnalysis.Run(circuit, FrequencySweep.At(frequencies));
         var ours = ac.Voltage("out");
@@ -108,7 +97,10 @@ public class SpiceDeckTests
             .Capacitor("Csample", "hold", "0", 8e-12)
             .Switch("Sreset", "hold", "0", 100, 1e12, new IntervalSchedule((16e-6, 17e-6), (116e-6, 117e-6)))
             .Build();
-        var deck = SpiceDeck.Write(circuit, ".options reltol=1e-7 abstol=1e-16 vntol=1e-10 chgtol=1e-20", ".tran 50n 300u");
+        var deck = SpiceDeckWriter.Write(circuit, new TransientSweep(300e-6, 50e-9)
+        {
+            RelativeTolerance = 1e-7, VoltageToleranceVolts = 1e-10, StepGuards = StepGuard.ForSwitches(circuit),
+        });
         var plot = NgspiceProcess.Run(deck).Plot("tran");
         var time = plot["time"].Real;
         double[] ends = [11e-6, 111e-6, 211e-6];
@@ -132,7 +124,7 @@ public class SpiceDeckTests
             .Resistor("R2", "out", "0", 100e3)
             .At(70)
             .Build();
-        var plot = NgspiceProcess.Run(SpiceDeck.Write(circuit, Tight, ".noise v(out) V_V1 dec 5 10 1meg")).Plot("noise");
+        var plot = NgspiceProcess.Run(SpiceDeckWriter.Write(circuit, new NoiseSweep("out", "V1", 10, 1e6, 5))).Plot("noise");
         var frequencies = plot["frequency"].Real;
         var noise = NoiseAnalysis.Run(circuit, "out", FrequencySweep.At(frequencies));
         var ours = noise.OutputDensity;

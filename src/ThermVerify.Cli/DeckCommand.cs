@@ -1,0 +1,54 @@
+using System.CommandLine;
+using ThermVerify.Design;
+using ThermVerify.Reporting;
+using ThermVerify.Verification;
+
+namespace ThermVerify.Cli;
+
+/// <summary>`thermverify deck`: write a design's SPICE deck for one analysis, to standard output or a file.</summary>
+internal static class DeckCommand
+{
+    public static Command Create()
+    {
+        var design = new Argument<FileInfo>("design") { Description = "the design file (TOML)" };
+        var analysis = new Option<string>("--analysis", "-a")
+        {
+            Description = "dc (temperature sweep over the check range), tran (sampling transient), ac or noise (excitation to ADC pin)",
+            DefaultValueFactory = _ => "dc",
+        };
+        analysis.AcceptOnlyFromAmong("dc", "tran", "ac", "noise");
+        var output = new Option<FileInfo?>("--out", "-o") { Description = "write the deck to this file (replaced atomically) instead of standard output" };
+        var temperature = new Option<double?>("--temperature") { Description = "circuit temperature in °C for tran, ac and noise (default: middle of the check range)" };
+        var conversions = new Option<int>("--conversions") { Description = "conversions the sampling transient covers", DefaultValueFactory = _ => 16 };
+        conversions.Validators.Add(r =>
+        {
+            if (r.GetValueOrDefault<int>() < 1) r.AddError("--conversions must be at least 1");
+        });
+        var command = new Command("deck", "Write a SPICE deck of the design for one analysis (runs in ngspice or any SPICE engine).")
+        {
+            design, analysis, output, temperature, conversions,
+        };
+        command.SetAction(parsed =>
+        {
+            var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
+            var which = parsed.GetValue(analysis) switch
+            {
+                "tran" => DeckAnalysis.Tran,
+                "ac" => DeckAnalysis.Ac,
+                "noise" => DeckAnalysis.Noise,
+                _ => DeckAnalysis.Dc,
+            };
+            var deck = FrontEndDecks.Write(loaded, which, new DeckOptions
+            {
+                TemperatureCelsius = parsed.GetValue(temperature),
+                Conversions = parsed.GetValue(conversions),
+            });
+            if (parsed.GetValue(output) is { } file)
+                AtomicFile.WriteAllText(file.FullName, deck);
+            else
+                parsed.InvocationConfiguration.Output.Write(deck);
+            return ExitCodes.Success;
+        });
+        return command;
+    }
+}

@@ -1,0 +1,109 @@
+using ThermVerify.Circuits;
+using ThermVerify.Circuits.Spice;
+using ThermVerify.Simulation;
+using ThermVerify.Verification;
+
+namespace ThermVerify.Ngspice;
+
+/// <summary>How ngspice is run.</summary>
+public enum NgspiceMode
+{
+    /// <summary>The shared library in this process; decks that include a user's file still go to a child process.</summary>
+    SharedLibrary,
+
+    /// <summary>Every deck in a child <c>ngspice -b</c> process.</summary>
+    ChildProcess,
+}
+
+/// <summary>
+/// ngspice as the check's engine: each simulation becomes a deck from <see cref="SpiceDeckWriter"/>, run by the
+/// shared library or a child process, and the vectors come back as plain voltages. A deck that includes a user's
+/// subcircuit file is treated as untrusted and always runs in a child process, so a bad model cannot bring the
+/// library (and thermverify) down.
+/// </summary>
+public sealed class NgspiceEngine : ICheckEngine
+{
+    /// <summary>Conversions the first sampling run covers; each later run doubles the simulated time.</summary>
+    private const int FirstRunFactor = 16;
+
+    public NgspiceEngine(NgspiceMode mode = NgspiceMode.SharedLibrary)
+    {
+        Mode = mode;
+        if (mode == NgspiceMode.SharedLibrary)
+            NgspiceLibrary.EnsureAvailable();
+        else if (!NgspiceProcess.IsAvailable)
+            throw new NgspiceUnavailableException(NgspiceProcess.InstallHint);
+    }
+
+    public NgspiceMode Mode { get; }
+
+    public string Name => Mode == NgspiceMode.SharedLibrary ? "ngspice" : "ngspice (child process)";
+
+    public IReadOnlyList<double[]> TemperatureSweep(Circuit circuit, IReadOnlyList<double> temperaturesCelsius, IReadOnlyList<string> nodes)
+    {
+        var sweep = DcTemperatureSweep.From(temperaturesCelsius);
+        var plot = Run(SpiceDeckWriter.Write(circuit, sweep, new SpiceDeckHeader("thermverify temperature sweep"))).Plot("dc");
+        var swept = plot["temp-sweep"].Real;
+        if (swept.Length < sweep.Points)
+            throw new NgspiceException($"ngspice returned {swept.Length} temperatures of the {sweep.Points} asked for", []);
+        for (var i = 0; i < sweep.Points; i++)
+            if (Math.Abs(swept[i] - temperaturesCelsius[i]) > 1e-6 * Math.Max(1, Math.Abs(sweep.StepKelvin)))
+                throw new NgspiceException($"ngspice swept {swept[i]} °C where {temperaturesCelsius[i]} °C was asked for", []);
+        return [.. nodes.Select(n => plot[n].Real[..sweep.Points])];
+    }
+
+    public ISampledTransient StartTransient(Circuit circuit, TransientOptions options) => new SampledRun(this, circuit, options);
+
+    /// <summary>Runs a deck the way this engine was asked to, or in a child process when it includes a user's file.</summary>
+    public NgspiceResult Run(string deck) =>
+        Mode == NgspiceMode.ChildProcess || deck.Contains("\n.include", StringComparison.OrdinalIgnoreCase)
+            ? NgspiceProcess.Run(deck)
+            : NgspiceSession.Run(deck);
+
+    /// <summary>
+    /// ngspice cannot be paused and resumed cheaply through either runner, so the transient is run to a stop time and
+    /// re-run from the start, twice as long, when a later sample is asked for: at most about twice the work of one
+    /// run of the right length.
+    /// </summary>
+    private sealed class SampledRun(NgspiceEngine engine, Circuit circuit, TransientOptions options) : ISampledTransient
+    {
+        private double simulatedTo;
+        private NgspicePlot? plot;
+
+        public double VoltageAt(double timeSeconds, string node)
+        {
+            if (plot is null || timeSeconds > simulatedTo)
+                Simulate(Math.Min(options.StopTimeSeconds, Math.Max(timeSeconds * (plot is null ? FirstRunFactor : 1), 2 * simulatedTo)));
+            if (timeSeconds > simulatedTo * (1 + 1e-12))
+                throw new ArgumentOutOfRangeException(nameof(timeSeconds), timeSeconds, $"The transient stops at {options.StopTimeSeconds} s.");
+            return Interpolate(plot!["time"].Real, plot[node].Real, timeSeconds);
+        }
+
+        private void Simulate(double stopSeconds)
+        {
+            var maxStep = options.MaxStepSeconds > 0 ? options.MaxStepSeconds : stopSeconds / 50;
+            var sweep = new TransientSweep(stopSeconds, maxStep)
+            {
+                StepGuards = StepGuard.ForSwitches(circuit),
+                // Tighter than this, ngspice gives up at the switch edges ("timestep too small"); the guard times carry the accuracy.
+                RelativeTolerance = 1e-6,
+                VoltageToleranceVolts = 1e-9,
+            };
+            plot = engine.Run(SpiceDeckWriter.Write(circuit, sweep, new SpiceDeckHeader("thermverify sampling transient"))).Plot("tran");
+            simulatedTo = stopSeconds;
+        }
+
+        /// <summary>The value at a time point within 0.1 ps (switch edges are breakpoints, so samples fall on one), else linear between neighbours.</summary>
+        private static double Interpolate(double[] time, double[] value, double t)
+        {
+            var i = Array.BinarySearch(time, t);
+            if (i >= 0) return value[i];
+            i = ~i;
+            if (i > 0 && t - time[i - 1] <= 1e-13) return value[i - 1];
+            if (i < time.Length && time[i] - t <= 1e-13) return value[i];
+            if (i == 0 || i == time.Length) return value[Math.Clamp(i, 0, time.Length - 1)];
+            var w = (t - time[i - 1]) / (time[i] - time[i - 1]);
+            return value[i - 1] + w * (value[i] - value[i - 1]);
+        }
+    }
+}

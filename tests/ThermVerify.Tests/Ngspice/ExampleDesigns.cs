@@ -1,0 +1,28 @@
+using ThermVerify.Design;
+
+namespace ThermVerify.Tests.Ngspice;
+
+/// <summary>Every design in netlists/, found by listing the folder, so a new example is cross-checked without a test edit.</summary>
+public static class ExampleDesigns
+{
+    public static string Folder()
+    {
+        for (var dir = new DirectoryInfo(AppContext.BaseDirectory); dir is not null; dir = dir.Parent)
+        {
+            var candidate = Path.Combine(dir.FullName, "netlists");
+            if (Directory.Exists(candidate) && File.Exists(Path.Combine(dir.FullName, "Directory.Build.props")))
+                return candidate;
+        }
+        throw new DirectoryNotFoundException("netlists/ not found above the test binaries");
+    }
+
+    public static TheoryData<string> All()
+    {
+        var data = new TheoryData<string>();
+        foreach (var file in Directory.GetFiles(Folder(), "*.toml").Order(StringComparer.Ordinal))
+            data.Add(Path.GetFileName(file));
+        return data;
+    }
+
+    public static FrontEndDesign Load(string fileName) => DesignLoader.Load(Path.Combine(Folder(), fileName));
+}
