@@ -50,7 +50,7 @@ public static class MonteCarloReport
         var every = Math.Max(1, r.Envelope.Count / 20);
         var rows = r.Envelope.Where((_, i) => i % every == 0 || i == r.Envelope.Count - 1).Select(e => (IReadOnlyList<string>)
             [I($"{e.Celsius:0.##}"), e.BudgetKelvin.ToString("0.###", CultureInfo.InvariantCulture), Kelvin(e.NominalErrorKelvin), Kelvin(e.MinKelvin),
-             .. e.PercentileKelvin.Select(Kelvin), Kelvin(e.MaxKelvin), Kelvin(e.StandardDeviationKelvin)]);
+             .. e.PercentileKelvin.Select(Kelvin), Kelvin(e.MaxKelvin), ReportFormat.N(e.StandardDeviationKelvin, "0.000")]);
         return new ReportTable(["T (°C)", "budget", "nominal", "min", .. r.Percentiles.Select(p => I($"{p:0.###} %")), "max", "σ"], [.. rows]);
     }
 

@@ -42,7 +42,7 @@ public static class WorstCaseReport
         var every = Math.Max(1, r.Points.Count / 20);
         var rows = r.Points.Where((p, i) => i % every == 0 || i == r.Points.Count - 1 || p == r.Worst).Select(p => (IReadOnlyList<string>)
             [I($"{p.Celsius:0.##}"), p.BudgetKelvin.ToString("0.###", CultureInfo.InvariantCulture), Kelvin(p.NominalKelvin), Kelvin(p.LowKelvin), Kelvin(p.HighKelvin),
-             Kelvin(p.LinearSumKelvin), Kelvin(p.RssKelvin), Kelvin(p.SigmaKelvin), p.WithinBudget ? "within" : "over"]);
+             ReportFormat.N(p.LinearSumKelvin, "0.000"), ReportFormat.N(p.RssKelvin, "0.000"), ReportFormat.N(p.SigmaKelvin, "0.000"), p.WithinBudget ? "within" : "over"]);
         return new ReportTable(["T (°C)", "budget", "nominal", "low corner", "high corner", "Σ|s·a|", "RSS", "σ", "verdict"], [.. rows]);
     }
 
