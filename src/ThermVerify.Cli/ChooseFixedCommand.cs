@@ -38,12 +38,14 @@ internal static class ChooseFixedCommand
         {
             design, series, objective, at, min, max, top, threads,
         };
+        var outputs = AnalysisOutputs.AddTo(command);
         command.SetAction((parsed, cancel) =>
         {
             var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
             var seriesName = parsed.GetValue(series)!;
             if (!ESeries.TryParse(seriesName, out var chosen))
                 throw new UsageException($"--series {seriesName}: not an IEC 60063 series; use E6, E12, E24, E48, E96 or E192.");
+            outputs.EnsureWritable(parsed);
             var goal = Objectives[parsed.GetValue(objective)!];
             var options = new FixedResistorSearchOptions
             {
@@ -62,6 +64,9 @@ internal static class ChooseFixedCommand
             if (ranked.Count == 0)
                 throw new UsageException($"No {chosen} value lies between the bounds; widen --min/--max or choose a finer series.");
             parsed.InvocationConfiguration.Output.Write(Render(loaded, chosen, goal, ranked, parsed.GetValue(top)));
+            var designPath = parsed.GetValue(design)!.ToString();
+            outputs.Write(parsed, () => FixedResistorJson.Write(ranked, loaded, options, designPath),
+                () => FixedResistorReport.Build(ranked, loaded, options, designPath, parsed.GetValue(top)));
             return Task.FromResult(ExitCodes.Success);
         });
         return command;
@@ -80,12 +85,7 @@ internal static class ChooseFixedCommand
         return text.ToString();
     }
 
-    private static string Describe(FixedResistorObjective goal) => goal switch
-    {
-        FixedResistorObjective.WorstResolution => "worst resolution (K per LSB, smallest first)",
-        FixedResistorObjective.SlopeAt => "divider slope |dV/dT| (steepest first)",
-        _ => "worst reported error with self-heating (smallest first)",
-    };
+    private static string Describe(FixedResistorObjective goal) => FixedResistorReport.Describe(goal);
 
     private static string Ohms(double v) => EngineeringFormat.Format(v, UnitKind.Ohm, 3);
 

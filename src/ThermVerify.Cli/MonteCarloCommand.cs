@@ -24,11 +24,13 @@ internal static class MonteCarloCommand
         {
             design, units, seed, threads, minimumYield, csv, unitsCsv, noSettling,
         };
+        var outputs = AnalysisOutputs.AddTo(command);
         units.Validators.Add(r => { if (r.GetValueOrDefault<int>() < 2) r.AddError("--units must be at least 2"); });
         threads.Validators.Add(r => { if (r.GetValueOrDefault<int>() < 1) r.AddError("--threads must be at least 1"); });
         command.SetAction((parsed, cancel) =>
         {
             var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
+            outputs.EnsureWritable(parsed);
             var output = parsed.InvocationConfiguration.Output;
             var result = MonteCarlo.Run(loaded, new MonteCarloOptions
             {
@@ -44,6 +46,9 @@ internal static class MonteCarloCommand
             if (parsed.GetValue(unitsCsv) is { } unitFile)
                 AtomicFile.WriteAllText(unitFile.FullName, UnitsCsv(result));
             output.Write(Summary(loaded, result));
+            var designPath = parsed.GetValue(design)!.ToString();
+            outputs.Write(parsed, () => MonteCarloJson.Write(result, loaded, designPath, !parsed.GetValue(noSettling)),
+                () => MonteCarloReport.Build(result, loaded, designPath, parsed.GetValue(minimumYield)));
             var passed = parsed.GetValue(minimumYield) is not { } wanted || 100 * result.Yield >= wanted;
             return Task.FromResult(passed ? ExitCodes.Success : ExitCodes.CheckFailed);
         });
@@ -104,13 +109,7 @@ internal static class MonteCarloCommand
         return text.ToString();
     }
 
-    /// <summary>A tolerance in the unit a designer writes it in: fractions in %, tempcos in ppm/K.</summary>
-    internal static string Tolerance(ToleranceParameter p) => p.Unit switch
-    {
-        "" => Invariant($"{100 * p.HalfWidth:G3} %"),
-        "1/K" => Invariant($"{1e6 * p.HalfWidth:G3} ppm/K"),
-        _ => Invariant($"{p.HalfWidth:G3} {p.Unit}"),
-    };
+    internal static string Tolerance(ToleranceParameter p) => ToleranceText.HalfWidth(p);
 
     private static string K(double v) => double.IsFinite(v) ? v.ToString("0.000", CultureInfo.InvariantCulture) : "unreadable";
 

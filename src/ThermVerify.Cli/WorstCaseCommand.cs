@@ -19,14 +19,18 @@ internal static class WorstCaseCommand
         {
             design, threads, csv,
         };
+        var outputs = AnalysisOutputs.AddTo(command);
         threads.Validators.Add(r => { if (r.GetValueOrDefault<int>() < 1) r.AddError("--threads must be at least 1"); });
         command.SetAction((parsed, cancel) =>
         {
             var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
+            outputs.EnsureWritable(parsed);
             var result = WorstCase.Run(loaded, new WorstCaseOptions { Threads = parsed.GetValue(threads), Cancel = cancel });
             if (parsed.GetValue(csv) is { } file)
                 AtomicFile.WriteAllText(file.FullName, Csv(result));
             parsed.InvocationConfiguration.Output.Write(Summary(loaded, result));
+            var designPath = parsed.GetValue(design)!.ToString();
+            outputs.Write(parsed, () => WorstCaseJson.Write(result, loaded, designPath), () => WorstCaseReport.Build(result, loaded, designPath));
             return Task.FromResult(result.WithinBudget ? ExitCodes.Success : ExitCodes.CheckFailed);
         });
         return command;

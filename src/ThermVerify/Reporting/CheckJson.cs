@@ -1,6 +1,4 @@
-using System.Reflection;
 using System.Text.Json;
-using System.Text.Json.Serialization;
 using ThermVerify.Firmware;
 using ThermVerify.Verification;
 
@@ -15,15 +13,8 @@ public static class CheckJson
 {
     public const string Schema = "thermverify.check/1";
 
-    private static readonly JsonSerializerOptions Options = new()
-    {
-        WriteIndented = true,
-        PropertyNamingPolicy = JsonNamingPolicy.CamelCase,
-        DefaultIgnoreCondition = JsonIgnoreCondition.Never,
-    };
-
     public static string Write(CheckResult result, string? designPath = null, FaultThresholds? faults = null) =>
-        JsonSerializer.Serialize(ToDocument(result, designPath, faults), Options);
+        JsonSerializer.Serialize(ToDocument(result, designPath, faults), ReportJson.Options);
 
     private static object ToDocument(CheckResult r, string? designPath, FaultThresholds? faults) => new
     {
@@ -128,8 +119,7 @@ public static class CheckJson
         }),
     };
 
-    private static double? N(double? value) => value is { } v && double.IsFinite(v) ? v : null;
+    private static double? N(double? value) => ReportJson.N(value);
 
-    public static string ToolVersion() =>
-        typeof(CheckJson).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion ?? "unknown";
+    public static string ToolVersion() => ReportJson.ToolVersion();
 }

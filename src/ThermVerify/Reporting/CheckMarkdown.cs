@@ -13,17 +13,8 @@ public static class CheckMarkdown
     {
         var r = report.Result;
         var md = new StringBuilder();
-        md.AppendLine($"# thermverify check: {Cell(r.Design.Name)}");
-        md.AppendLine();
-        if (r.Design.Description is { } d) md.AppendLine($"{Cell(d)}\n");
-        md.AppendLine($"**{Cell(Verdict(r))}**");
-        md.AppendLine();
-        md.AppendLine("> **Caution:** simulation does not replace measurement on hardware; a reading that drives a heater, charger or cut-out needs independent protection (see Cautions below).");
-        md.AppendLine();
-        md.AppendLine("| | |\n|---|---|");
-        foreach (var (label, value) in Settings(r)) md.AppendLine($"| {label} | {Cell(value)} |");
-        md.AppendLine($"| design file | `{report.DesignFile}` |");
-        md.AppendLine();
+        ReportMarkdown.AppendHeader(md, $"thermverify check: {r.Design.Name}", r.Design.Description, Verdict(r));
+        ReportMarkdown.AppendSettings(md, Settings(r), report.DesignFile);
 
         if (report.Baseline is { } b)
         {
@@ -38,15 +29,7 @@ public static class CheckMarkdown
             md.AppendLine();
         }
 
-        md.AppendLine("## Figures");
-        md.AppendLine();
-        foreach (var p in report.Plots)
-        {
-            md.AppendLine($"![{p.Title}]({plotFolder}/{p.FileStem}.png)");
-            md.AppendLine();
-            md.AppendLine($"*{Cell(p.Title)}.* {Cell(p.Caption)}");
-            md.AppendLine();
-        }
+        ReportMarkdown.AppendFigures(md, report.Plots, plotFolder);
 
         md.Append(BufferSectionRender.Markdown(r.Buffer));
         md.AppendLine("## Findings");
@@ -76,23 +59,9 @@ public static class CheckMarkdown
             md.AppendLine("| " + string.Join(" | ", PointCells(p)) + " |");
         md.AppendLine();
 
-        md.AppendLine("<details><summary>Design file (normal form)</summary>");
-        md.AppendLine();
-        md.AppendLine("```toml");
-        md.Append(report.DesignToml.TrimEnd('\n'));
-        md.AppendLine();
-        md.AppendLine("```");
-        md.AppendLine();
-        md.AppendLine("</details>");
-        md.AppendLine();
-        md.AppendLine("## Cautions");
-        md.AppendLine();
-        foreach (var (heading, text) in ReportCautions.All) md.AppendLine($"- **{heading}** {text}");
-        md.AppendLine();
-        md.AppendLine($"thermverify {report.ToolVersion}");
+        ReportMarkdown.AppendDesignAndCautions(md, report.DesignToml, report.ToolVersion);
         return md.ToString();
     }
 
-    /// <summary>Text safe inside a Markdown table cell and paragraph: pipes escaped, no line breaks.</summary>
-    private static string Cell(string text) => text.Replace("|", "\\|").Replace("\n", " ");
+    private static string Cell(string text) => ReportMarkdown.Cell(text);
 }

@@ -12,14 +12,30 @@ public static class ReportDirectory
     public const string PlotFolder = "plots";
 
     /// <returns>The files written, full paths.</returns>
-    public static IReadOnlyList<string> Write(CheckReport report, string directory, bool overwrite)
+    public static IReadOnlyList<string> Write(CheckReport report, string directory, bool overwrite) =>
+        Write(CheckHtml.Render(report), CheckMarkdown.Render(report, PlotFolder), report.Plots, directory, overwrite);
+
+    /// <returns>The files written, full paths.</returns>
+    public static IReadOnlyList<string> Write(AnalysisReport report, string directory, bool overwrite) =>
+        Write(AnalysisHtml.Render(report), AnalysisMarkdown.Render(report, PlotFolder), report.Plots, directory, overwrite);
+
+    /// <summary>Refuses before any work is done when the folder holds a report and replacing it was not asked for.</summary>
+    public static void EnsureWritable(string directory, bool overwrite)
+    {
+        if (overwrite) return;
+        var existing = new[] { HtmlFile, MarkdownFile }.Select(f => Path.Combine(directory, f)).Where(File.Exists).ToList();
+        if (existing.Count > 0)
+            throw new OutputExistsException($"{directory} holds a report already ({string.Join(", ", existing.Select(Path.GetFileName))}); pass --force to replace it");
+    }
+
+    private static IReadOnlyList<string> Write(string html, string markdown, IReadOnlyList<Plots.RenderedPlot> plots, string directory, bool overwrite)
     {
         var files = new List<(string Path, Action<string, bool> Write)>
         {
-            (Path.Combine(directory, HtmlFile), (p, o) => AtomicFile.WriteAllText(p, CheckHtml.Render(report), o)),
-            (Path.Combine(directory, MarkdownFile), (p, o) => AtomicFile.WriteAllText(p, CheckMarkdown.Render(report, PlotFolder), o)),
+            (Path.Combine(directory, HtmlFile), (p, o) => AtomicFile.WriteAllText(p, html, o)),
+            (Path.Combine(directory, MarkdownFile), (p, o) => AtomicFile.WriteAllText(p, markdown, o)),
         };
-        foreach (var plot in report.Plots)
+        foreach (var plot in plots)
         {
             files.Add((Path.Combine(directory, PlotFolder, plot.FileStem + ".png"), (p, o) => AtomicFile.WriteAllBytes(p, plot.Png, o)));
             files.Add((Path.Combine(directory, PlotFolder, plot.FileStem + ".svg"), (p, o) => AtomicFile.WriteAllText(p, plot.Svg, o)));

@@ -74,16 +74,19 @@ internal static class ReportFormat
 
     private static string Signed(double kelvin) => N(kelvin, "+0.000;-0.000;0.000");
 
-    public static IEnumerable<(string Label, string Value)> Settings(CheckResult result)
+    public static IEnumerable<(string Label, string Value)> Settings(CheckResult result) =>
+        Settings(result.Design, result.SensorDescription, result.Adc);
+
+    /// <summary>The design in a few lines, for any report on it: sensor, divider, buffer, filter, ADC and the check's range and budget.</summary>
+    public static IEnumerable<(string Label, string Value)> Settings(Design.FrontEndDesign d, string sensorDescription, AdcTransfer adc)
     {
-        var d = result.Design;
-        yield return ("sensor", result.SensorDescription);
+        yield return ("sensor", sensorDescription);
         yield return ("divider", $"sensor on the {(d.Divider.SensorSide == Design.SensorSide.High ? "high" : "low")} side, fixed {V(d.Divider.FixedResistorOhms, UnitKind.Ohm)}, excitation {V(d.Divider.ExcitationVolts, UnitKind.Volt)}");
         if (d.Buffer is { } b) yield return ("buffer", $"gain {N(b.Gain, "0.###")}, isolation {V(b.IsolationResistorOhms, UnitKind.Ohm)}");
         yield return ("filter", d.Filter.SeriesResistorOhms == 0 && d.Filter.ReservoirCapacitorFarads == 0 ? "none"
             : $"series {V(d.Filter.SeriesResistorOhms, UnitKind.Ohm)}, reservoir {V(d.Filter.ReservoirCapacitorFarads, UnitKind.Farad)}");
-        yield return ("ADC", $"{d.Adc.Bits} bits, reference {(d.Adc.IsRatiometric ? "ratiometric" : V(result.Adc.ReferenceVolts, UnitKind.Volt))}, " +
-                             $"1 LSB = {V(result.Adc.LsbVolts, UnitKind.Volt)}, {V(d.Adc.SampleRateHertz, UnitKind.Hertz)}, acquisition {V(d.Adc.AcquisitionTimeSeconds, UnitKind.Second)}, " +
+        yield return ("ADC", $"{d.Adc.Bits} bits, reference {(d.Adc.IsRatiometric ? "ratiometric" : V(adc.ReferenceVolts, UnitKind.Volt))}, " +
+                             $"1 LSB = {V(adc.LsbVolts, UnitKind.Volt)}, {V(d.Adc.SampleRateHertz, UnitKind.Hertz)}, acquisition {V(d.Adc.AcquisitionTimeSeconds, UnitKind.Second)}, " +
                              $"C_sh {V(d.Adc.SamplingCapacitanceFarads, UnitKind.Farad)}, precharge {Precharge(d.Adc.Precharge)}");
         yield return ("check", $"{V(d.Check.Range.MinCelsius, UnitKind.Celsius)} to {V(d.Check.Range.MaxCelsius, UnitKind.Celsius)} in {V(d.Check.StepKelvin, UnitKind.Kelvin)} steps, budget {V(d.Check.BudgetKelvin, UnitKind.Kelvin)}" +
                                string.Concat(d.Check.Regions.Select(r => $"; {C(r.Range.MinCelsius)} to {C(r.Range.MaxCelsius)}: {V(r.BudgetKelvin, UnitKind.Kelvin)}")));

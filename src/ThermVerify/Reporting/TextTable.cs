@@ -31,6 +31,6 @@ public sealed class TextTable(params string[] headers)
         text.AppendLine(string.Join("  ", padded).TrimEnd());
     }
 
-    private static bool LooksNumeric(string cell) =>
+    internal static bool LooksNumeric(string cell) =>
         cell.Length > 0 && (char.IsDigit(cell[0]) || ((cell[0] == '-' || cell[0] == '+' || cell[0] == '−') && cell.Length > 1 && char.IsDigit(cell[1])));
 }

@@ -19,7 +19,7 @@ public sealed record Histogram(double[] LowerEdgesKelvin, double BinWidthKelvin,
 
 /// <summary>
 /// Everything a Monte Carlo run found; the contributors are ranked at <see cref="ContributorsCelsius"/>, where the
-/// units spread most, and <see cref="VarianceKelvinSquared"/> is the unquantised error's variance there; the per-unit arrays are there for plots and further analysis.</summary>
+/// units spread most, and <see cref="VarianceKelvinSquared"/> is the unquantised error's variance there; the per-unit arrays (indexed by unit) are there for plots and further analysis; <see cref="UnitWithinBudget"/> says whether each unit met the budget, regions included, at every temperature.</summary>
 public sealed record MonteCarloResult(
     int Units,
     ulong Seed,
@@ -34,7 +34,8 @@ public sealed record MonteCarloResult(
     double[] WorstErrorKelvin,
     double[] WorstCelsius,
     double[][] Deviations,
-    double MaximumSelfHeatingKelvin)
+    double MaximumSelfHeatingKelvin,
+    bool[] UnitWithinBudget)
 {
     /// <summary>Fraction of units within the budget at every temperature.</summary>
     public double Yield => (double)UnitsWithinBudget / Units;

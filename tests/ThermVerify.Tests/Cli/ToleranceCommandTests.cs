@@ -49,3 +49,57 @@ public class ToleranceCommandTests
         Assert.Contains("E7", run.Error);
     }
 }
+
+/// <summary>--json, --report and --force on the tolerance commands, from the command line.</summary>
+public class ToleranceCommandOutputTests
+{
+    private static string Example(string name)
+    {
+        for (var dir = new DirectoryInfo(AppContext.BaseDirectory); dir is not null; dir = dir.Parent)
+            if (File.Exists(Path.Combine(dir.FullName, "Directory.Build.props")) && Directory.Exists(Path.Combine(dir.FullName, "netlists")))
+                return Path.Combine(dir.FullName, "netlists", name);
+        throw new DirectoryNotFoundException("netlists/ not found above the test binaries");
+    }
+
+    [Fact]
+    public void Montecarlo_writes_json_and_report_and_refuses_to_replace_them_without_force()
+    {
+        var folder = ThermVerify.Tests.Reporting.ReportFixture.NewTempFolder();
+        var json = Path.Combine(folder, "mc.json");
+        var report = Path.Combine(folder, "report");
+        string[] args = ["montecarlo", Example("table-sensor-freezer.toml"), "-n", "40", "--threads", "2", "--json", json, "--report", report];
+
+        var first = CliRunner.Run(args);
+        Assert.Equal(ExitCodes.Success, first.ExitCode);
+        Assert.Contains("\"schema\": \"thermverify.montecarlo/1\"", File.ReadAllText(json));
+        Assert.True(File.Exists(Path.Combine(report, "plots", "montecarlo-envelope.png")));
+
+        File.WriteAllText(json, "kept");
+        var refused = CliRunner.Run(args);
+        Assert.Equal(ExitCodes.BadInput, refused.ExitCode);
+        Assert.Contains("--force", refused.Error);
+        Assert.Equal("kept", File.ReadAllText(json));
+        // Refused before the run: no progress was printed.
+        Assert.DoesNotContain("units:", refused.Error);
+
+        var forced = CliRunner.Run([.. args, "--force"]);
+        Assert.Equal(ExitCodes.Success, forced.ExitCode);
+        Assert.StartsWith("{", File.ReadAllText(json));
+    }
+
+    [Fact]
+    public void Worstcase_and_choose_fixed_write_their_schemas()
+    {
+        var folder = ThermVerify.Tests.Reporting.ReportFixture.NewTempFolder();
+        var worst = CliRunner.Run("worstcase", Example("table-sensor-freezer.toml"), "--json", Path.Combine(folder, "wc.json"), "--report", Path.Combine(folder, "wc"));
+        Assert.True(worst.ExitCode is ExitCodes.Success or ExitCodes.CheckFailed, worst.Error);
+        Assert.Contains("\"schema\": \"thermverify.worstcase/1\"", File.ReadAllText(Path.Combine(folder, "wc.json")));
+        Assert.True(File.Exists(Path.Combine(folder, "wc", "plots", "worstcase-band.svg")));
+
+        var fixedRun = CliRunner.Run("choose-fixed", Example("table-sensor-freezer.toml"), "--series", "E6", "--json", Path.Combine(folder, "cf.json"),
+            "--report", Path.Combine(folder, "cf"));
+        Assert.Equal(ExitCodes.Success, fixedRun.ExitCode);
+        Assert.Contains("\"schema\": \"thermverify.fixed/1\"", File.ReadAllText(Path.Combine(folder, "cf.json")));
+        Assert.True(File.Exists(Path.Combine(folder, "cf", "plots", "fixed-candidates.png")));
+    }
+}

@@ -1,4 +1,3 @@
-using System.Diagnostics;
 using System.Text.RegularExpressions;
 using ThermVerify.Reporting;
 
@@ -48,29 +47,5 @@ public class HtmlReportChromiumTests(ReportFixture fixture) : IClassFixture<Repo
         Assert.True(new FileInfo(shot).Length > 20_000, $"screenshot of {new FileInfo(shot).Length} bytes looks blank");
     }
 
-    private static (int Exit, string Output, string Log) Chromium(string action, string htmlPath)
-    {
-        var profile = ReportFixture.NewTempFolder();
-        var start = new ProcessStartInfo(ChromiumFactAttribute.Path)
-        {
-            RedirectStandardOutput = true,
-            RedirectStandardError = true,
-        };
-        foreach (var arg in new[]
-                 {
-                     "--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking",
-                     "--disable-component-update", "--disable-sync", $"--user-data-dir={profile}", "--enable-logging=stderr", "--v=0",
-                     "--window-size=1200,2400", action, new Uri(htmlPath).AbsoluteUri,
-                 })
-            start.ArgumentList.Add(arg);
-        using var process = Process.Start(start)!;
-        var output = process.StandardOutput.ReadToEndAsync();
-        var error = process.StandardError.ReadToEndAsync();
-        if (!process.WaitForExit(120_000))
-        {
-            process.Kill(entireProcessTree: true);
-            throw new TimeoutException("chromium did not finish within 120 s");
-        }
-        return (process.ExitCode, output.Result, error.Result);
-    }
+    private static (int Exit, string Output, string Log) Chromium(string action, string htmlPath) => HeadlessChromium.Run(action, htmlPath);
 }

@@ -69,6 +69,28 @@ internal static class PlotStyle
         }
     }
 
+    /// <summary>A filled band between two curves; temperatures where either edge does not exist (an unreadable unit) are left out.</summary>
+    public static ScottPlot.Plottables.FillY Band(Plot plot, IEnumerable<double> xs, IEnumerable<double> lows, IEnumerable<double> highs, Color color, double alpha, string label)
+    {
+        var rows = xs.Zip(lows, highs).Where(r => double.IsFinite(r.Second) && double.IsFinite(r.Third)).ToArray();
+        var band = plot.Add.FillY([.. rows.Select(r => r.First)], [.. rows.Select(r => r.Second)], [.. rows.Select(r => r.Third)]);
+        band.FillColor = color.WithAlpha(alpha);
+        band.LineWidth = 0;
+        band.LegendText = label;
+        return band;
+    }
+
+    /// <summary>Tick marks at 1, 2 and 5 of each decade for an axis drawn in log₁₀ of a value, labelled in the value's unit.</summary>
+    public static void LogTicks(IAxis axis, double low, double high, Func<double, string> label)
+    {
+        var ticks = new List<double>();
+        for (var decade = Math.Floor(Math.Log10(low)); decade <= Math.Ceiling(Math.Log10(high)); decade++)
+            foreach (var m in (double[])[1, 2, 5])
+                if (m * Math.Pow(10, decade) is var v && v >= low / 1.001 && v <= high * 1.001) ticks.Add(v);
+        if (ticks.Count < 2) ticks = [low, high];
+        axis.SetTicks([.. ticks.Select(Math.Log10)], [.. ticks.Select(label)]);
+    }
+
     public static RenderedPlot Render(Plot plot, string stem, string title, string caption) =>
         new(stem, title, caption, plot.GetImageBytes(WidthPixels, HeightPixels, ImageFormat.Png), plot.GetSvgXml(WidthPixels, HeightPixels));
 }

@@ -1,0 +1,56 @@
+using System.Text.Json;
+using ThermVerify.Design;
+using ThermVerify.Tolerances;
+using static ThermVerify.Reporting.ReportJson;
+
+namespace ThermVerify.Reporting;
+
+/// <summary>A worst-case analysis as JSON, schema "thermverify.worstcase/1" (docs/json-output.md).</summary>
+public static class WorstCaseJson
+{
+    public const string Schema = "thermverify.worstcase/1";
+
+    public static string Write(WorstCaseResult r, FrontEndDesign design, string? designPath = null)
+    {
+        var worst = r.Worst;
+        return JsonSerializer.Serialize(new
+        {
+            schema = Schema,
+            tool = Tool(),
+            design = DesignDocument(design, designPath),
+            verdict = new
+            {
+                withinBudget = r.WithinBudget,
+                worstCelsius = worst.Celsius,
+                worstLowKelvin = N(worst.LowKelvin),
+                worstHighKelvin = N(worst.HighKelvin),
+                worstBudgetKelvin = worst.BudgetKelvin,
+                pointsOverBudget = r.Points.Count(p => !p.WithinBudget),
+                points = r.Points.Count,
+            },
+            parameters = r.Parameters.Select(Parameter),
+            cornersEvaluated = r.CornersEvaluated,
+            enumeration = r.Enumeration is { } e
+                ? new { corners = e.Corners, largestShortfallKelvin = e.LargestShortfallKelvin, shortfallCelsius = e.ShortfallCelsius }
+                : null,
+            points = r.Points.Select(p => new
+            {
+                celsius = p.Celsius,
+                budgetKelvin = p.BudgetKelvin,
+                nominalKelvin = N(p.NominalKelvin),
+                lowKelvin = N(p.LowKelvin),
+                highKelvin = N(p.HighKelvin),
+                linearSumKelvin = N(p.LinearSumKelvin),
+                rssKelvin = N(p.RssKelvin),
+                sigmaKelvin = N(p.SigmaKelvin),
+                withinBudget = p.WithinBudget,
+            }),
+            sensitivities = r.Sensitivities.Select(s => new
+            {
+                key = s.Parameter.Key,
+                unit = s.Parameter.Unit,
+                kelvinPerUnit = s.KelvinPerUnit,
+            }),
+        }, Options);
+    }
+}
