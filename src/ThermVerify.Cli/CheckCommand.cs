@@ -20,7 +20,7 @@ internal static class CheckCommand
         var report = new Option<DirectoryInfo?>("--report") { Description = "write report.html (self-contained), report.md and plots/ (PNG, SVG) into this folder" };
         var junit = new Option<FileInfo?>("--junit") { Description = "also write JUnit XML: one test case per check and per finding" };
         var baseline = new Option<FileInfo?>("--baseline") { Description = "compare with a baseline (thermverify baseline); exit 1 when a figure got worse than its tolerance" };
-        var force = new Option<bool>("--force") { Description = "replace an existing report in the --report folder" };
+        var force = new Option<bool>("--force") { Description = "replace existing output files (--json, --junit, the --report folder's report)" };
         var samplingPoints = new Option<int>("--sampling-points")
         {
             Description = "simulate sampling at this many temperatures at most (every point of the sweep when it has fewer)",
@@ -49,6 +49,13 @@ internal static class CheckCommand
         {
             var path = parsed.GetValue(design)!.FullName;
             var loaded = DesignLoader.Load(path);
+            // Refuse to replace outputs before the work, not after it: a long run is not wasted on a refusal.
+            var overwrite = parsed.GetValue(force);
+            foreach (var file in new[] { parsed.GetValue(json), parsed.GetValue(junit) })
+                if (file is { Exists: true } && !overwrite)
+                    throw new OutputExistsException($"{file} exists already; pass --force to replace it");
+            if (parsed.GetValue(report) is { } folder)
+                ReportDirectory.EnsureWritable(folder.FullName, overwrite);
             var chosen = EngineChoice.Create(parsed.GetValue(engine)!, parsed.GetValue(process));
             var result = FrontEndCheck.Run(loaded, new CheckOptions
             {
@@ -60,15 +67,15 @@ internal static class CheckCommand
             });
             var faults = FaultThresholdsOrNull(loaded);
             if (parsed.GetValue(json) is { } jsonFile)
-                AtomicFile.WriteAllText(jsonFile.FullName, CheckJson.Write(result, parsed.GetValue(design)!.ToString(), faults));
+                AtomicFile.WriteAllText(jsonFile.FullName, CheckJson.Write(result, parsed.GetValue(design)!.ToString(), faults), overwrite);
 
             var comparison = parsed.GetValue(baseline) is { } baselineFile
                 ? BaselineComparison.Compare(baselineFile.ToString(), BaselineFile.Read(baselineFile.FullName), BaselineFigures.From(result, CheckJson.ToolVersion()))
                 : null;
             if (parsed.GetValue(junit) is { } junitFile)
-                AtomicFile.WriteAllText(junitFile.FullName, CheckJUnit.Write(result, comparison));
+                AtomicFile.WriteAllText(junitFile.FullName, CheckJUnit.Write(result, comparison), overwrite);
             if (parsed.GetValue(report) is { } reportFolder)
-                ReportDirectory.Write(CheckReport.Build(result, parsed.GetValue(design)!.ToString(), comparison), reportFolder.FullName, parsed.GetValue(force));
+                ReportDirectory.Write(CheckReport.Build(result, parsed.GetValue(design)!.ToString(), comparison), reportFolder.FullName, overwrite);
 
             var output = parsed.InvocationConfiguration.Output;
             var summary = CheckSummaryText.Render(result);

@@ -76,3 +76,26 @@ public class CheckFaultThresholdTests
         }
     }
 }
+
+public class CheckOutputProtectionTests
+{
+    [Fact]
+    public void Check_refuses_to_replace_a_json_file_without_force_and_leaves_it_untouched()
+    {
+        var json = Path.Combine(Path.GetTempPath(), $"tv-{Guid.NewGuid():N}.json");
+        File.WriteAllText(json, "keep me");
+        try
+        {
+            var example = Path.Combine(AppContext.BaseDirectory, "..", "..", "..", "..", "..", "netlists", "oven-pt1000.toml");
+            var refused = CliRunner.Run("check", example, "--json", json, "--no-remedies");
+            Assert.Equal(ExitCodes.BadInput, refused.ExitCode);
+            Assert.Equal("keep me", File.ReadAllText(json));
+            Assert.Equal(ExitCodes.Success, CliRunner.Run("check", example, "--json", json, "--no-remedies", "--force").ExitCode);
+            Assert.StartsWith("{", File.ReadAllText(json));
+        }
+        finally
+        {
+            File.Delete(json);
+        }
+    }
+}
