@@ -8,7 +8,7 @@ public class SelfHeatingTests
     /// <summary>
     /// A sensor R fed from V through an equal fixed R dissipates (V/2)²/R = V²/(4R), the most it can take from that
     /// divider (maximum power transfer), and warms by ΔT = P/δ with δ the dissipation constant (IEC 60539-1 terms;
-    /// see /work/shared/REFERENCES.md). At 25 °C the 10 kΩ NTC equals the 10 kΩ fixed resistor.
+    /// the "maximum power transfer" result of circuit theory). At 25 °C the 10 kΩ NTC equals the 10 kΩ fixed resistor.
     /// </summary>
     [Fact]
     public void EqualResistancesDissipateVSquaredOverFourR()
