@@ -142,6 +142,11 @@ public static class QuantityParser
                 if (i < t.Length && t[i] == '.')
                     throw new QuantityFormatException(original, "a decimal point and an RKM letter together", "Write either \"4.7k\" or \"4k7\", not both.");
             }
+            else if (intDigits > 0 && i == t.Length - 1 && t[i] == 'R')
+            {
+                // "100R": the decimal point at the end, as schematics write whole ohms (common practice).
+                rkm = t[i++];
+            }
             if (intDigits + fractionDigits == 0)
                 throw new QuantityFormatException(original, "no number found", "Start with a number, e.g. \"4.7 kohm\" or \"3.3 V\".");
             if (rkm is null && i < t.Length && t[i] is 'e' or 'E')

@@ -13,6 +13,8 @@ public class QuantityParserTests
     [InlineData("4K7", 4.7e3)]
     [InlineData("2R2", 2.2)]
     [InlineData("R47", 0.47)]
+    [InlineData("100R", 100.0)]   // common practice on schematics, consistent with IEC 60062 (R as the decimal point)
+    [InlineData("47R", 47.0)]
     [InlineData("4M7", 4.7e6)]
     [InlineData("1M0", 1.0e6)]
     [InlineData("10k", 10e3)]
