@@ -30,6 +30,10 @@ public sealed record AdcSpec
     public double PinLeakageCelsius { get; init; } = DesignDefaults.PinLeakageCelsius;
     /// <summary>The leakage doubles every this many kelvin.</summary>
     public double LeakageDoublingKelvin { get; init; } = DesignDefaults.LeakageDoublingKelvin;
+
+    /// <summary>Pin leakage at a temperature: it doubles every <see cref="LeakageDoublingKelvin"/> (common practice, no source).</summary>
+    public double PinLeakageAmperesAt(double celsius) =>
+        PinLeakageAmperes * Math.Pow(2, (celsius - PinLeakageCelsius) / LeakageDoublingKelvin);
     public double OffsetErrorLsb { get; init; }
     /// <summary>Fraction of full scale.</summary>
     public double GainError { get; init; }

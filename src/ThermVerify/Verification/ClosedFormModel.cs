@@ -66,7 +66,4 @@ public sealed class ClosedFormModel
             return double.NaN;
         }
     }
-
-    /// <summary>Temperature error the firmware makes when the ADC sees <paramref name="volts"/> at a true temperature.</summary>
-    public double ReportedErrorKelvin(double volts, double trueCelsius) => ReportedCelsius(Adc.Code(volts)) - trueCelsius;
 }

@@ -44,10 +44,6 @@ public static class EffectEstimator
         (design.Buffer is { } b ? b.IsolationResistorOhms : point.TheveninOhms) + design.Filter.SeriesResistorOhms;
 
     /// <summary>Pin leakage at a swept temperature, or at the board temperature when the design fixes one.</summary>
-    public static double LeakageAmps(FrontEndDesign design, double sweptCelsius)
-    {
-        var adc = design.Adc;
-        var at = design.Check.BoardCelsius ?? sweptCelsius;
-        return adc.PinLeakageAmperes * Math.Pow(2, (at - adc.PinLeakageCelsius) / adc.LeakageDoublingKelvin);
-    }
+    public static double LeakageAmps(FrontEndDesign design, double sweptCelsius) =>
+        design.Adc.PinLeakageAmperesAt(design.Check.BoardCelsius ?? sweptCelsius);
 }

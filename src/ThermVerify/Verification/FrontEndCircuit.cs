@@ -119,9 +119,8 @@ public static class FrontEndCircuit
     /// <summary>Pin leakage, positive into the pin: it follows the sweep (doubling every N K) or sits at the board temperature.</summary>
     private static Element Leakage(string pin, AdcSpec adc, double? boardCelsius)
     {
-        var at25 = adc.PinLeakageAmperes * Math.Pow(2, (25 - adc.PinLeakageCelsius) / adc.LeakageDoublingKelvin);
         return boardCelsius is { } board
-            ? new CurrentSource("Ileak", pin, Circuit.Ground, new DcWaveform(SamplingFormulas.LeakageAmps(at25, adc.LeakageDoublingKelvin, board)))
-            : new LeakageCurrentSource("Ileak", pin, Circuit.Ground, at25, adc.LeakageDoublingKelvin);
+            ? new CurrentSource("Ileak", pin, Circuit.Ground, new DcWaveform(adc.PinLeakageAmperesAt(board)))
+            : new LeakageCurrentSource("Ileak", pin, Circuit.Ground, adc.PinLeakageAmperesAt(25), adc.LeakageDoublingKelvin);
     }
 }

@@ -37,10 +37,6 @@ public static class SamplingFormulas
         Math.Abs(differenceVolts) <= allowedVolts ? double.PositiveInfinity
             : 1 / (samplingFarads * sourceOhms * (Math.Abs(differenceVolts) / allowedVolts - 1));
 
-    /// <summary>Leakage that doubles every N kelvin: I(T) = I25·2^((T − 25 °C)/N); N ≤ 0 or ∞ means constant.</summary>
-    public static double LeakageAmps(double amps25, double doublingKelvin, double temperatureCelsius) =>
-        doublingKelvin is > 0 and < double.PositiveInfinity ? amps25 * Math.Pow(2, (temperatureCelsius - 25) / doublingKelvin) : amps25;
-
     /// <summary>Gain-bandwidth a follower needs for its own single pole, τ = 1/(2π·GBW), to settle within t_acq.</summary>
     public static double FollowerGainBandwidthFor(double stepVolts, double allowedVolts, double acquisitionSeconds) =>
         Math.Abs(stepVolts) <= allowedVolts ? 0 : Math.Log(Math.Abs(stepVolts) / allowedVolts) / (2 * Math.PI * acquisitionSeconds);
