@@ -33,3 +33,19 @@ public sealed class SingularMatrixException(string message, string unknown, IRea
 
     public IReadOnlyList<string> Elements { get; } = elements;
 }
+
+/// <summary>
+/// The MNA matrix is so ill-conditioned that a solution would have lost more than half its digits (the
+/// estimated condition number of the equilibrated matrix exceeds 1/√u ≈ 9.5e7, u the unit roundoff).
+/// Names the unknowns the error would fall on and the elements on them.
+/// </summary>
+public sealed class IllConditionedMatrixException(string message, double conditionNumber, IReadOnlyList<string> unknowns,
+    IReadOnlyList<string> elements) : SimulationException(message)
+{
+    /// <summary>Estimated 1-norm condition number after row and column equilibration.</summary>
+    public double ConditionNumber { get; } = conditionNumber;
+
+    public IReadOnlyList<string> Unknowns { get; } = unknowns;
+
+    public IReadOnlyList<string> Elements { get; } = elements;
+}

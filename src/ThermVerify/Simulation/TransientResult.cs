@@ -7,14 +7,15 @@ namespace ThermVerify.Simulation;
 /// Accepted time points of a transient and every unknown at them. Between points,
 /// <see cref="VoltageAt"/> evaluates the integration method's own polynomial: a straight line across a
 /// backward-Euler step; across a trapezoidal step the quadratic whose end slopes are the trapezoidal
-/// derivatives, which passes through both end values.
+/// derivatives, which passes through both end values; across a Gear-2 step the quadratic through the last
+/// three points (both end values and the formula's slope at the end).
 /// </summary>
 public sealed class TransientResult
 {
     private readonly double[] times;
     private readonly double[] values;
     private readonly double[] slopes;
-    private readonly bool[] backwardEuler;
+    private readonly StepFormula[] formulas;
     private readonly int width;
     private readonly MnaLayout layout;
     private readonly BoundSystem system;
@@ -22,7 +23,7 @@ public sealed class TransientResult
     internal TransientResult(TransientRecord record, BoundSystem system, IReadOnlyList<SimulationWarning> warnings,
         int acceptedSteps, int rejectedSteps)
     {
-        (times, values, slopes, backwardEuler, width) = (record.Times, record.Values, record.Slopes, record.BackwardEuler, record.Width);
+        (times, values, slopes, formulas, width) = (record.Times, record.Values, record.Slopes, record.Formulas, record.Width);
         layout = system.Layout;
         this.system = system;
         Count = record.Count;
@@ -39,6 +40,9 @@ public sealed class TransientResult
     public int RejectedSteps { get; }
 
     public IReadOnlyList<SimulationWarning> Warnings { get; }
+
+    /// <summary>What the solver had to do beyond its plain course: the initial point's convergence aid, a switch to Gear-2.</summary>
+    public IReadOnlyList<SolverNote> Notes { get; init; } = [];
 
     /// <summary>The time points (a copy made once per result).</summary>
     public double[] TimesSeconds => field ??= times.AsSpan(0, Count).ToArray();
@@ -79,11 +83,19 @@ public sealed class TransientResult
         var s = timeSeconds - t0;
         var x0 = values[(j - 1) * w + index];
         var x1 = values[j * w + index];
-        if (backwardEuler[j])
-            return x0 + (x1 - x0) * s / h;
-        var d0 = slopes[(j - 1) * w + index];
         var d1 = slopes[j * w + index];
-        return x0 + d0 * s + (d1 - d0) * s * s / (2 * h);
+        switch (formulas[j])
+        {
+            case StepFormula.BackwardEuler:
+                return x0 + (x1 - x0) * s / h;
+            case StepFormula.Trapezoidal:
+                var d0 = slopes[(j - 1) * w + index];
+                return x0 + d0 * s + (d1 - d0) * s * s / (2 * h);
+            default:
+                // The quadratic through both end values with Gear-2's slope at the end (the BDF2 interpolant).
+                var c = (d1 * h - (x1 - x0)) / (h * h);
+                return x0 + ((x1 - x0) / h - c * h) * s + c * s * s;
+        }
     }
 
     private double[] Column(int index)

@@ -14,7 +14,7 @@ public static class AcAnalysis
 
     public static AcResult Run(Circuit circuit, FrequencySweep sweep)
     {
-        var system = new SmallSignalSystem(circuit, $"{AnalysisName} operating point");
+        var system = new SmallSignalSystem(circuit, AnalysisName);
         var rhs = system.NewVector();
         foreach (var s in system.System.Stamps)
             s.LoadAcExcitation(rhs);

@@ -19,7 +19,7 @@ public static class NoiseAnalysis
 
     public static NoiseResult Run(Circuit circuit, string outputNode, FrequencySweep sweep, string referenceNode = Circuit.Ground)
     {
-        var system = new SmallSignalSystem(circuit, $"{AnalysisName} operating point");
+        var system = new SmallSignalSystem(circuit, AnalysisName);
         var layout = system.System.Layout;
         var noise = new NoiseContext(circuit.TemperatureCelsius, layout.Ground);
         foreach (var s in system.System.Stamps)
@@ -34,8 +34,8 @@ public static class NoiseAnalysis
         var contributions = new double[generators.Count, f.Count];
         for (var k = 0; k < f.Count; k++)
         {
-            system.Factor(f[k], transpose: true);
-            system.Solve(e, y);
+            system.Factor(f[k]);
+            system.SolveTransposed(e, y);
             for (var g = 0; g < generators.Count; g++)
             {
                 var gen = generators[g];

@@ -16,7 +16,7 @@ internal sealed class BoundSystem
     private readonly double[] fixedBase;
     private readonly double[] baseMatrix;
     private readonly double[] factoredMatrix;
-    private readonly DenseLu lu;
+    private readonly DenseLu<double> lu;
     private Stamp[] fixedStatic;
     private Stamp[] varyingStatic;
     private double[] next;
@@ -31,9 +31,11 @@ internal sealed class BoundSystem
         for (var e = 0; e < Stamps.Length; e++)
         {
             bind.ExtraStart = Layout.ExtraStart[e];
+            bind.ElementName = circuit.Elements[e].Name;
             Stamps[e] = circuit.Elements[e].Bind(bind);
         }
         StateIsCurrent = bind.StateIsCurrent;
+        StateOwners = bind.StateOwners;
         Context = new LoadContext(Layout, bind.StateCount);
         loaders = [.. Stamps.Where(s => s.HasLoad)];
         Reactive = [.. Stamps.Where(s => s.IsReactive)];
@@ -44,7 +46,7 @@ internal sealed class BoundSystem
         fixedBase = new double[Layout.MatrixLength];
         baseMatrix = new double[Layout.MatrixLength];
         factoredMatrix = new double[Layout.Size * Layout.Size];
-        lu = new DenseLu(Layout.Size);
+        lu = new DenseLu<double>(Layout.Size);
         next = new double[Layout.VectorLength];
         SetTemperature(circuit.TemperatureCelsius);
         RebuildFixedBase();
@@ -61,6 +63,9 @@ internal sealed class BoundSystem
     public Stamp[] Reactive { get; }
 
     public bool[] StateIsCurrent { get; }
+
+    /// <summary>The element owning each integrated state.</summary>
+    public string[] StateOwners { get; }
 
     public bool IsNonlinear { get; }
 
@@ -152,6 +157,23 @@ internal sealed class BoundSystem
 
     /// <summary>Makes the last solved iterate the present one.</summary>
     public void AdoptNext() => (Context.Solution, next) = (next, Context.Solution);
+
+    /// <summary>Estimated condition number of the last factorised matrix (after equilibration).</summary>
+    public double ConditionNumber => lu.ConditionNumber;
+
+    /// <summary>The last factorised matrix has lost more than half its digits (<see cref="MatrixCondition.Limit"/>).</summary>
+    public bool IsIllConditioned => factorValid && lu.ConditionNumber > MatrixCondition.Limit;
+
+    /// <summary>Throws <see cref="IllConditionedMatrixException"/> when the last factorisation is ill-conditioned.</summary>
+    public void CheckConditioning(string analysis, string where)
+    {
+        if (IsIllConditioned)
+            throw MatrixCondition.Exception(Layout, lu.ConditionNumber, lu.SensitiveUnknowns(), analysis, where);
+    }
+
+    /// <summary>The exception for an ill-conditioned last factorisation.</summary>
+    public IllConditionedMatrixException IllConditioned(string analysis, string where) =>
+        MatrixCondition.Exception(Layout, lu.ConditionNumber, lu.SensitiveUnknowns(), analysis, where);
 
     public SingularMatrixException Singular(int unknown)
     {

@@ -11,13 +11,16 @@ namespace ThermVerify.Simulation.Mna;
 internal sealed class SmallSignalSystem
 {
     private readonly Complex[] matrix;
-    private readonly ComplexLu lu;
+    private readonly DenseLu<Complex> lu;
+
+    private readonly string analysis;
 
     public SmallSignalSystem(Circuit circuit, string analysis)
     {
+        this.analysis = analysis;
         TopologyCheck.Run(circuit);
         System = new BoundSystem(circuit);
-        DcSolver.Solve(System, analysis, null);
+        DcSolver.Solve(System, $"{analysis} operating point", null);
         System.Assemble();
         var n = System.Size;
         Conductances = new double[System.Layout.MatrixLength];
@@ -26,7 +29,7 @@ internal sealed class SmallSignalSystem
         foreach (var s in System.Stamps)
             s.LoadReactive(Reactances);
         matrix = new Complex[n * n];
-        lu = new ComplexLu(n);
+        lu = new DenseLu<Complex>(n);
         Warnings = Mna.Warnings.Collect(System);
     }
 
@@ -42,8 +45,9 @@ internal sealed class SmallSignalSystem
 
     public Complex[] NewVector() => new Complex[System.Layout.VectorLength];
 
-    /// <summary>Factorises A(f) (or its transpose, for adjoint solves) built from the given conductances.</summary>
-    public void Factor(double frequencyHertz, bool transpose = false, double[]? conductances = null)
+    /// <summary>Factorises A(f) built from the given conductances (default: the circuit's own).</summary>
+    /// <exception cref="IllConditionedMatrixException">The matrix at this frequency has lost more than half its digits.</exception>
+    public void Factor(double frequencyHertz, double[]? conductances = null)
     {
         var g = conductances ?? Conductances;
         var w = 2 * Math.PI * frequencyHertz;
@@ -52,16 +56,25 @@ internal sealed class SmallSignalSystem
             for (var j = 0; j < n; j++)
             {
                 var source = i * n + j;
-                matrix[transpose ? j * n + i : source] = new Complex(g[source], w * Reactances[source]);
+                matrix[source] = new Complex(g[source], w * Reactances[source]);
             }
         var failed = lu.Factor(matrix);
         if (failed >= 0)
             throw System.Singular(failed);
+        if (lu.ConditionNumber > MatrixCondition.Limit)
+            throw MatrixCondition.Exception(System.Layout, lu.ConditionNumber, lu.SensitiveUnknowns(), analysis, $" at {frequencyHertz:G6} Hz");
     }
 
     public void Solve(Complex[] rhs, Complex[] x)
     {
         lu.Solve(rhs, x);
+        x[Size] = Complex.Zero;
+    }
+
+    /// <summary>Solves Aᵀ·x = rhs with the last factorisation (adjoint noise analysis).</summary>
+    public void SolveTransposed(Complex[] rhs, Complex[] x)
+    {
+        lu.SolveTransposed(rhs, x);
         x[Size] = Complex.Zero;
     }
 }
