@@ -35,15 +35,15 @@ public sealed class SingularMatrixException(string message, string unknown, IRea
 }
 
 /// <summary>
-/// The MNA matrix is so ill-conditioned that a solution would have lost more than half its digits (the
-/// estimated condition number of the equilibrated matrix exceeds 1/√u ≈ 9.5e7, u the unit roundoff).
-/// Names the unknowns the error would fall on and the elements on them.
+/// The MNA matrix is so ill-conditioned that the solution has lost more than half its digits: rounding alone can
+/// move some unknown by more than √u ≈ 1e-8 of the circuit's scale (u the unit roundoff). Names those unknowns and
+/// the elements on them.
 /// </summary>
-public sealed class IllConditionedMatrixException(string message, double conditionNumber, IReadOnlyList<string> unknowns,
+public sealed class IllConditionedMatrixException(string message, double amplification, IReadOnlyList<string> unknowns,
     IReadOnlyList<string> elements) : SimulationException(message)
 {
-    /// <summary>Estimated 1-norm condition number after row and column equilibration.</summary>
-    public double ConditionNumber { get; } = conditionNumber;
+    /// <summary>Largest componentwise error amplification, in units of the unit roundoff of the circuit's scale.</summary>
+    public double Amplification { get; } = amplification;
 
     public IReadOnlyList<string> Unknowns { get; } = unknowns;
 

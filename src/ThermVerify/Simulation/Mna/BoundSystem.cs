@@ -21,6 +21,8 @@ internal sealed class BoundSystem
     private Stamp[] varyingStatic;
     private double[] next;
     private bool factorValid;
+    private readonly double[] magnitudes;
+    private readonly double[] weights;
 
     public BoundSystem(Circuit circuit)
     {
@@ -48,6 +50,8 @@ internal sealed class BoundSystem
         factoredMatrix = new double[Layout.Size * Layout.Size];
         lu = new DenseLu<double>(Layout.Size);
         next = new double[Layout.VectorLength];
+        magnitudes = new double[Layout.Size];
+        weights = new double[Layout.Size];
         SetTemperature(circuit.TemperatureCelsius);
         RebuildFixedBase();
     }
@@ -158,22 +162,42 @@ internal sealed class BoundSystem
     /// <summary>Makes the last solved iterate the present one.</summary>
     public void AdoptNext() => (Context.Solution, next) = (next, Context.Solution);
 
-    /// <summary>Estimated condition number of the last factorised matrix (after equilibration).</summary>
+    /// <summary>Estimated 1-norm condition number of the last factorised matrix (after equilibration).</summary>
     public double ConditionNumber => lu.ConditionNumber;
 
-    /// <summary>The last factorised matrix has lost more than half its digits (<see cref="MatrixCondition.Limit"/>).</summary>
-    public bool IsIllConditioned => factorValid && lu.ConditionNumber > MatrixCondition.Limit;
+    /// <summary>
+    /// Whether the present solution has lost more than half its digits to the last factorised matrix
+    /// (<see cref="MatrixCondition"/>); false when the last factorisation failed.
+    /// </summary>
+    public bool IsIllConditioned => factorValid && lu.ErrorAmplification(Context.Solution, Weights()) > MatrixCondition.Limit;
 
-    /// <summary>Throws <see cref="IllConditionedMatrixException"/> when the last factorisation is ill-conditioned.</summary>
+    /// <summary>Throws <see cref="IllConditionedMatrixException"/> when <see cref="IsIllConditioned"/>.</summary>
     public void CheckConditioning(string analysis, string where)
     {
         if (IsIllConditioned)
-            throw MatrixCondition.Exception(Layout, lu.ConditionNumber, lu.SensitiveUnknowns(), analysis, where);
+            throw IllConditioned(analysis, where);
     }
 
-    /// <summary>The exception for an ill-conditioned last factorisation.</summary>
+    /// <summary>The exception for the present solution, naming the unknowns that lost their digits.</summary>
     public IllConditionedMatrixException IllConditioned(string analysis, string where) =>
-        MatrixCondition.Exception(Layout, lu.ConditionNumber, lu.SensitiveUnknowns(), analysis, where);
+        MatrixCondition.Exception(Layout, lu.ErrorAmplificationPerUnknown(Context.Solution, Weights()), analysis, where);
+
+    private double[] Weights()
+    {
+        var x = Context.Solution;
+        for (var i = 0; i < Size; i++)
+            magnitudes[i] = Math.Abs(x[i]);
+        var nodeCurrents = 0.0;
+        for (var i = 0; i < Layout.NodeCount; i++)
+        {
+            var sum = 0.0;
+            for (var j = 0; j < Size; j++)
+                sum += Math.Abs(factoredMatrix[i * Size + j]) * magnitudes[j];
+            nodeCurrents = Math.Max(nodeCurrents, sum);
+        }
+        MatrixCondition.Weights(Layout, magnitudes, nodeCurrents, weights);
+        return weights;
+    }
 
     public SingularMatrixException Singular(int unknown)
     {

@@ -18,9 +18,6 @@ internal sealed class OneNormEstimator<T>(int n) where T : struct, INumberBase<T
     private readonly T[] x = new T[n];
     private readonly T[] sign = new T[n];
 
-    /// <summary>B·v for the v of the estimate: the direction B amplifies most (of those tried).</summary>
-    public T[] WorstDirection { get; } = new T[n];
-
     /// <param name="apply">Overwrites its argument v with B·v.</param>
     /// <param name="applyTransposed">Overwrites its argument v with Bᵀ·v.</param>
     public double Estimate(Action<T[]> apply, Action<T[]> applyTransposed)
@@ -31,7 +28,6 @@ internal sealed class OneNormEstimator<T>(int n) where T : struct, INumberBase<T
         Array.Fill(x, uniform);
         apply(x);
         var estimate = Norm1(x);
-        x.CopyTo(WorstDirection, 0);
         if (n == 1)
             return estimate;
         SetSign(x);
@@ -44,15 +40,10 @@ internal sealed class OneNormEstimator<T>(int n) where T : struct, INumberBase<T
             var next = Norm1(x);
             if (next <= estimate || SignRepeats(x))
             {
-                if (next > estimate)
-                {
-                    estimate = next;
-                    x.CopyTo(WorstDirection, 0);
-                }
+                estimate = Math.Max(estimate, next);
                 break;
             }
             estimate = next;
-            x.CopyTo(WorstDirection, 0);
             SetSign(x);
             var previous = j;
             j = ArgMaxAfterAdjoint(applyTransposed);
@@ -63,13 +54,7 @@ internal sealed class OneNormEstimator<T>(int n) where T : struct, INumberBase<T
         for (var i = 0; i < n; i++)
             x[i] = Scalar<T>.From((i % 2 == 0 ? 1 : -1) * (1 + (double)i / (n - 1)));
         apply(x);
-        var alternating = 2 * Norm1(x) / (3 * n);
-        if (alternating > estimate)
-        {
-            estimate = alternating;
-            x.CopyTo(WorstDirection, 0);
-        }
-        return estimate;
+        return Math.Max(estimate, 2 * Norm1(x) / (3 * n));
     }
 
     /// <summary>z = Bᴴ·sign, and the index of its largest entry.</summary>

@@ -14,6 +14,9 @@ internal sealed class SmallSignalSystem
     private readonly DenseLu<Complex> lu;
 
     private readonly string analysis;
+    private readonly double[] magnitudes;
+    private readonly double[] weights;
+    private double factoredHertz;
 
     public SmallSignalSystem(Circuit circuit, string analysis)
     {
@@ -29,6 +32,8 @@ internal sealed class SmallSignalSystem
         foreach (var s in System.Stamps)
             s.LoadReactive(Reactances);
         matrix = new Complex[n * n];
+        magnitudes = new double[n];
+        weights = new double[n];
         lu = new DenseLu<Complex>(n);
         Warnings = Mna.Warnings.Collect(System);
     }
@@ -61,14 +66,15 @@ internal sealed class SmallSignalSystem
         var failed = lu.Factor(matrix);
         if (failed >= 0)
             throw System.Singular(failed);
-        if (lu.ConditionNumber > MatrixCondition.Limit)
-            throw MatrixCondition.Exception(System.Layout, lu.ConditionNumber, lu.SensitiveUnknowns(), analysis, $" at {frequencyHertz:G6} Hz");
+        factoredHertz = frequencyHertz;
     }
 
+    /// <exception cref="IllConditionedMatrixException">The solution has lost more than half its digits.</exception>
     public void Solve(Complex[] rhs, Complex[] x)
     {
         lu.Solve(rhs, x);
         x[Size] = Complex.Zero;
+        CheckConditioning(x, transposed: false);
     }
 
     /// <summary>Solves Aᵀ·x = rhs with the last factorisation (adjoint noise analysis).</summary>
@@ -76,5 +82,26 @@ internal sealed class SmallSignalSystem
     {
         lu.SolveTransposed(rhs, x);
         x[Size] = Complex.Zero;
+        CheckConditioning(x, transposed: true);
+    }
+
+    /// <summary>Refuses a solution that lost more than half its digits (<see cref="MatrixCondition"/>), of A or of Aᵀ.</summary>
+    private void CheckConditioning(Complex[] x, bool transposed)
+    {
+        var n = Size;
+        for (var i = 0; i < n; i++)
+            magnitudes[i] = x[i].Magnitude;
+        var nodeCurrents = 0.0;
+        for (var i = 0; i < System.Layout.NodeCount; i++)
+        {
+            var sum = 0.0;
+            for (var j = 0; j < n; j++)
+                sum += (transposed ? matrix[j * n + i] : matrix[i * n + j]).Magnitude * magnitudes[j];
+            nodeCurrents = Math.Max(nodeCurrents, sum);
+        }
+        MatrixCondition.Weights(System.Layout, magnitudes, nodeCurrents, weights, adjoint: transposed);
+        if (lu.ErrorAmplification(x, weights, transposed) > MatrixCondition.Limit)
+            throw MatrixCondition.Exception(System.Layout, lu.ErrorAmplificationPerUnknown(x, weights, transposed), analysis,
+                $" at {factoredHertz:G6} Hz{(transposed ? " (adjoint system of the noise analysis)" : "")}");
     }
 }
