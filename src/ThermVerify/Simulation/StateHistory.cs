@@ -35,6 +35,7 @@ internal sealed class StateHistory
 
     public int StateCount => stateCount;
 
+
     /// <summary>Accepted points since the last breakpoint, the breakpoint itself counted (at most <see cref="Length"/>).</summary>
     public int SinceBreak { get; set; }
 

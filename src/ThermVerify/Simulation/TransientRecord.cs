@@ -2,7 +2,7 @@ namespace ThermVerify.Simulation;
 
 /// <summary>
 /// Growing storage of accepted time points: the full solution vector, its time derivative by the
-/// integration formula, and the formula of the step that ended at the point. Grows by
+/// integration formula, the formula of the step that ended at the point and whether that step was a probe. Grows by
 /// doubling, so recording costs no allocation per step on average.
 /// </summary>
 internal sealed class TransientRecord(int width)
@@ -19,7 +19,10 @@ internal sealed class TransientRecord(int width)
 
     public StepFormula[] Formulas { get; private set; } = new StepFormula[256];
 
-    public void Add(double time, double[] solution, double[] slope, StepFormula formula)
+    /// <summary>Whether the step that ended at the point was the tiny probe right after a breakpoint.</summary>
+    public bool[] Probes { get; private set; } = new bool[256];
+
+    public void Add(double time, double[] solution, double[] slope, StepFormula formula, bool probe = false)
     {
         if (Count == Times.Length)
         {
@@ -27,11 +30,13 @@ internal sealed class TransientRecord(int width)
             Values = Grow(Values);
             Slopes = Grow(Slopes);
             Formulas = Grow(Formulas);
+            Probes = Grow(Probes);
         }
         Times[Count] = time;
         Array.Copy(solution, 0, Values, Count * Width, Width);
         Array.Copy(slope, 0, Slopes, Count * Width, Width);
         Formulas[Count] = formula;
+        Probes[Count] = probe;
         Count++;
     }
 
@@ -46,6 +51,7 @@ internal sealed class TransientRecord(int width)
         Values = new double[256 * Width];
         Slopes = new double[256 * Width];
         Formulas = new StepFormula[256];
+        Probes = new bool[256];
         Count = 0;
         Add(time, values, slopes, StepFormula.BackwardEuler);
     }

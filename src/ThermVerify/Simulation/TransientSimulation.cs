@@ -222,7 +222,7 @@ public sealed class TransientSimulation
                 h *= Math.Max(1e-3, 0.9 * Math.Pow(ratio, -1.0 / (order + 1)));
                 continue;
             }
-            Commit(tNew, h, previousStep, formula);
+            Commit(tNew, h, previousStep, formula, probe);
             if (!probe)
                 proposedStep = options.FixedStepSeconds ?? h * (ratio > 0 ? Math.Min(2, 0.9 * Math.Pow(ratio, -1.0 / (order + 1))) : 2);
             return;
@@ -257,7 +257,7 @@ public sealed class TransientSimulation
         }
     }
 
-    private void Commit(double tNew, double h, double previousStep, StepFormula formula)
+    private void Commit(double tNew, double h, double previousStep, StepFormula formula, bool probe)
     {
         var x = c.Solution;
         for (var i = 0; i < system.Size; i++)
@@ -278,7 +278,7 @@ public sealed class TransientSimulation
         if (isBreakpoint)
             ringing.Reset();
         history.Push(tNew, c.PreviousState, isBreakpoint);
-        record.Add(tNew, accepted, slope, formula);
+        record.Add(tNew, accepted, slope, formula, probe);
         acceptedSteps++;
         warnings.Check(timeSeconds: tNew);
     }

@@ -30,6 +30,9 @@ public sealed record RandomCircuit(int Seed, CircuitClass Class, Circuit Circuit
 
     public required double TransientStopSeconds { get; init; }
 
+    /// <summary>1/|s| of the fastest pole at the operating point (0 when unknown).</summary>
+    public double FastestTimeConstantSeconds { get; init; }
+
     /// <summary>The nodes both engines report (the op-amps' internal nodes are the engines' own business).</summary>
     public IReadOnlyList<string> Nodes => Circuit.NodeNames;
 

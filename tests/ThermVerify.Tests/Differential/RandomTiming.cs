@@ -83,7 +83,7 @@ public static class RandomTiming
         }
 
         var circuit = new Circuit(rc.Circuit.Elements.Select(Timed), rc.Circuit.TemperatureCelsius);
-        return rc with { Circuit = circuit, TransientStopSeconds = stop };
+        return rc with { Circuit = circuit, TransientStopSeconds = stop, FastestTimeConstantSeconds = fast };
     }
 
     /// <summary>Six significant digits, so decks and the engine see the very same numbers and times stay readable.</summary>

@@ -72,7 +72,7 @@ internal sealed class SmallSignalSystem
     /// <exception cref="IllConditionedMatrixException">The solution has lost more than half its digits.</exception>
     public void Solve(Complex[] rhs, Complex[] x)
     {
-        lu.Solve(rhs, x);
+        lu.Solve(rhs, x, refine: true);
         x[Size] = Complex.Zero;
         CheckConditioning(x, transposed: false);
     }
@@ -80,7 +80,7 @@ internal sealed class SmallSignalSystem
     /// <summary>Solves Aᵀ·x = rhs with the last factorisation (adjoint noise analysis).</summary>
     public void SolveTransposed(Complex[] rhs, Complex[] x)
     {
-        lu.SolveTransposed(rhs, x);
+        lu.SolveTransposed(rhs, x, refine: true);
         x[Size] = Complex.Zero;
         CheckConditioning(x, transposed: true);
     }
