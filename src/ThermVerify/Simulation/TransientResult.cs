@@ -108,6 +108,12 @@ public sealed class TransientResult
         return x0 + d0 * s + (d1 - d0) * s * s / (2 * h);
     }
 
+    /// <summary>The integration formula of the step that ended at point <paramref name="point"/> (for tests).</summary>
+    internal StepFormula FormulaOfStepEndingAt(int point) => formulas[point];
+
+    /// <summary>Whether the step that ended at point <paramref name="point"/> was the probe after a breakpoint (for tests).</summary>
+    internal bool IsProbeStepEndingAt(int point) => probes[point];
+
     private double[] Column(int index)
     {
         var v = new double[Count];

@@ -11,8 +11,8 @@ namespace ThermVerify.Simulation;
 /// Gear-2, which damps stiff modes, and says so in the result's notes. The local truncation
 /// error of every integrated state is estimated from divided differences of its values since the last
 /// breakpoint (<see cref="StateHistory"/>). So that those never straddle a discontinuity, the first step
-/// after a breakpoint is a tiny backward-Euler probe (10⁻⁹ of the time to the next stop, its own error
-/// far below any tolerance), the second a checked backward-Euler step, and trapezoidal steps follow.
+/// after a breakpoint is a tiny backward-Euler probe (10⁻⁹ of the time to the next stop, but at least a thousand
+/// times the time resolution at t; its own error far below any tolerance), the second a checked backward-Euler step, and trapezoidal steps follow.
 /// A step whose error exceeds its tolerance is redone shorter; the next step is
 /// h·min(2, 0.9·(tol/err)^(1/(k+1))). Breakpoints and requested output times are landed on exactly.
 /// </summary>
@@ -248,7 +248,7 @@ public sealed class TransientSimulation
     {
         try
         {
-            return Newton.Iterate(system, newton, out worst);
+            return Newton.Solve(system, newton, out worst);
         }
         catch (SingularMatrixException) when (system.IsNonlinear)
         {

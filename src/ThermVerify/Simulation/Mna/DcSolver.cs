@@ -62,7 +62,7 @@ internal static class DcSolver
     {
         try
         {
-            return Newton.Iterate(system, NewtonSettings.Default, out worst);
+            return Newton.Solve(system, NewtonSettings.Default, out worst);
         }
         catch (SingularMatrixException e)
         {

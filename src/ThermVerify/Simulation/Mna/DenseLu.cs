@@ -26,8 +26,6 @@ namespace ThermVerify.Simulation.Mna;
 /// </summary>
 internal sealed class DenseLu<T> where T : struct, INumberBase<T>
 {
-    /// <summary>A pivot below this fraction of its (equilibrated, so about unit) column counts as zero.</summary>
-    private const double PivotRelativeThreshold = 1e-14;
 
     private readonly int n;
     private readonly T[] lu;
@@ -99,8 +97,10 @@ internal sealed class DenseLu<T> where T : struct, INumberBase<T>
                     p = i;
                 }
             }
-            // Equilibrated columns have their largest entry in [½, 1], so the test is absolute.
-            if (!(best > PivotRelativeThreshold) || !double.IsFinite(best))
+            // Only an exactly vanishing pivot makes the matrix singular here. A tiny one may still give a usable answer (a
+            // diode conducting 1e19 A beside unit entries leaves pivots of 1e-21 after scaling); whether the answer kept
+            // its digits is the componentwise check's to say (MatrixCondition), with the unknowns named.
+            if (!(best > 0) || !double.IsFinite(best))
                 return k;
             if (p != k)
             {

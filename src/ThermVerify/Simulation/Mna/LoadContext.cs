@@ -37,6 +37,9 @@ internal sealed class LoadContext(MnaLayout layout, int stateCount)
     /// <summary>Conductance across every junction, as SPICE adds (1e-12 S).</summary>
     public double JunctionGmin { get; set; } = 1e-12;
 
+    /// <summary>Whether op-amps limit their clamp and input-stage steps between Newton iterations (see <see cref="Newton.Solve"/>).</summary>
+    public bool OpAmpLimiting { get; set; } = true;
+
     /// <summary>Set by a nonlinear stamp that limited its step; the iterate is then not converged.</summary>
     public bool Limited { get; set; }
 

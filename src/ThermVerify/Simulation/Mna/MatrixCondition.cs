@@ -4,11 +4,12 @@ namespace ThermVerify.Simulation.Mna;
 /// When a solution has lost more than half its digits, and the error that says so. Rounding the matrix entries and
 /// the elimination move unknown i by about u·(|A⁻¹|·|A|·|x|)_i (u = 2⁻⁵³, the unit roundoff; Skeel 1979, see
 /// <see cref="DenseLu{T}.ErrorAmplification"/>). Each unknown is judged against the circuit's scale: a node voltage
-/// against the largest node voltage, an internal voltage (op-amp pole) against the larger of itself and that, a
-/// branch current against the largest current in the circuit — the larger of the branch currents and the
+/// against the largest node voltage, a branch current against the largest current in the circuit — the larger of the branch currents and the
 /// currents meeting at any node, Σ_j |G_ij·x_j| (a source's current can be the small difference of large ones) — plus
-/// Newton's absolute tolerance (1e-12 V, 1e-15 A). An amplification above 1/√u ≈ 9.5e7 leaves fewer than half of
-/// the 16 digits of that scale.
+/// Newton's absolute tolerance (1e-12 V, 1e-15 A). Internal voltages of the element models (an op-amp's pole nodes, a
+/// diode's junction) are not judged by themselves: whatever of their error matters reaches a circuit node or a
+/// branch current, while a saturated op-amp's pole, open-loop at kilovolts behind a flat clamp, may lose digits that
+/// nothing sees. An amplification above 1/√u ≈ 9.5e7 leaves fewer than half of the 16 digits of that scale.
 /// </summary>
 internal static class MatrixCondition
 {
@@ -35,9 +36,9 @@ internal static class MatrixCondition
         }
         for (var i = 0; i < n; i++)
         {
-            var scale = layout.IsCurrent[i] ? currents + CurrentFloor
-                : Math.Max(i < layout.NodeCount ? 0 : magnitudes[i], nodes) + VoltageFloor;
-            weights[i] = adjoint && layout.IsCurrent[i] ? 0 : 1 / scale;
+            var scale = layout.IsCurrent[i] ? currents + CurrentFloor : nodes + VoltageFloor;
+            var judged = layout.IsCurrent[i] ? !adjoint : i < layout.NodeCount;
+            weights[i] = judged ? 1 / scale : 0;
         }
     }
 

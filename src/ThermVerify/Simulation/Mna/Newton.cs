@@ -12,6 +12,32 @@ internal static class Newton
 {
     private const int StagnantIterations = 3;
 
+    /// <summary>
+    /// <see cref="Iterate"/> with the op-amp limiting on (<see cref="Stamps.ClampLimit"/>), and if that fails, once more
+    /// from the same start with it off: the limiting cures the rail-to-rail oscillation of an op-amp in negative
+    /// feedback, but in a latch (positive feedback) it can keep the iterate from the rail where the solution is, which
+    /// plain Newton reaches.
+    /// </summary>
+    public static bool Solve(BoundSystem system, NewtonSettings settings, out int worstUnknown)
+    {
+        var c = system.Context;
+        if (!system.IsNonlinear)
+            return Iterate(system, settings, out worstUnknown);
+        var start = (double[])c.Solution.Clone();
+        if (Iterate(system, settings, out worstUnknown))
+            return true;
+        Array.Copy(start, c.Solution, start.Length);
+        c.OpAmpLimiting = false;
+        try
+        {
+            return Iterate(system, settings, out worstUnknown);
+        }
+        finally
+        {
+            c.OpAmpLimiting = true;
+        }
+    }
+
     /// <summary>Iterates to convergence. A linear system takes one solve. Returns false (worst unknown set) on failure.</summary>
     public static bool Iterate(BoundSystem system, NewtonSettings settings, out int worstUnknown)
     {

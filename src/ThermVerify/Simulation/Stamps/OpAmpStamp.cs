@@ -104,7 +104,7 @@ internal sealed class OpAmpStamp : Stamp
         {
             // The tanh saturates beyond a few I_max/g_m: limited like the clamp, for the same reason.
             var knee = maxCurrent / gm;
-            var limited = ClampLimit.Apply(vd, lastInputVolts, -2 * knee, 2 * knee, knee);
+            var limited = c.OpAmpLimiting ? ClampLimit.Apply(vd, lastInputVolts, -2 * knee, 2 * knee, knee) : vd;
             if (limited != vd)
                 c.Limited = true;
             vd = limited;
@@ -139,7 +139,7 @@ internal sealed class OpAmpStamp : Stamp
         var v = x[last];
         if (Clamps)
         {
-            var limited = ClampLimit.Apply(v, lastClampInput, amp.OutputLowVolts, amp.OutputHighVolts, amp.OutputKneeVolts);
+            var limited = c.OpAmpLimiting ? ClampLimit.Apply(v, lastClampInput, amp.OutputLowVolts, amp.OutputHighVolts, amp.OutputKneeVolts) : v;
             if (limited != v)
                 c.Limited = true;
             v = limited;
