@@ -30,6 +30,9 @@ public sealed record Comparison(DifferentialAnalysis Analysis, string? OursFailu
 
     public bool BothCompleted => OursFailure is null && NgspiceFailure is null;
 
+    /// <summary>What the engine's solver had to do (convergence aids, a switch to Gear-2), if anything.</summary>
+    public string? Notes { get; init; }
+
     /// <summary>Run time of each engine (for the report's curiosity only; nothing is judged on it).</summary>
     public (double Ours, double Ngspice) Milliseconds { get; init; }
 }
@@ -43,7 +46,7 @@ public sealed record CaseResult(RandomCircuit Circuit, bool? Stable, IReadOnlyLi
 /// <item>operating point and both DC sweeps: the largest node-voltage difference over all nodes (and points) divided
 /// by the circuit's scale, the largest node voltage magnitude anywhere in the analysis;</item>
 /// <item>AC (1 Hz to 1 GHz, 5 points a decade, at ngspice's frequencies): the largest difference in dB over all nodes
-/// whose response is above 1e-6 of that frequency's largest;</item>
+/// whose response is within 60 dB of that frequency's largest;</item>
 /// <item>noise (same frequencies): the largest relative difference of the output noise density;</item>
 /// <item>transient (to the circuit's stop time, both engines at most 1/100 of it per step, reltol 1e-6): the largest
 /// node-voltage difference at ngspice's time points, the engine read between its own points by its own interpolant,
@@ -67,15 +70,20 @@ public static class DifferentialCase
     public const int SweepPoints = 21;
     public const int MaxTransientSteps = 2_000_000;
 
+    /// <summary>Called before and after each analysis of each circuit (a long run's log, to see where it spends its time).</summary>
+    public static Action<string>? Progress { get; set; }
+
     public static CaseResult Run(RandomCircuit rc, IReadOnlySet<DifferentialAnalysis>? only = null)
     {
         bool? stable;
         try
         {
             var poles = StabilityScreen.PolesOf(rc.Circuit);
-            stable = poles.Stable && (!rc.Circuit.Elements.Any(e => e is TimedSwitch)
-                || StabilityScreen.PolesOf(StabilityScreen.WithSwitchesFlipped(rc.Circuit)).Stable);
+            var flipped = rc.Circuit.Elements.Any(e => e is TimedSwitch) ? StabilityScreen.PolesOf(StabilityScreen.WithSwitchesFlipped(rc.Circuit)) : poles;
+            stable = poles.Stable && flipped.Stable;
             rc = RandomTiming.Apply(rc, poles, rc.Seed);
+            // After an edge the circuit may be faster than before it (an inductor's current thrown onto an open switch).
+            rc = rc with { FastestTimeConstantSeconds = Math.Min(poles.FastestSeconds, flipped.FastestSeconds is > 0 and var f ? f : double.PositiveInfinity) };
         }
         catch (Exception e) when (e is SimulationException or InvalidOperationException)
         {
@@ -87,7 +95,13 @@ public static class DifferentialCase
             return new CaseResult(rc, stable, comparisons);
         foreach (var analysis in Enum.GetValues<DifferentialAnalysis>())
             if (only is null || only.Contains(analysis))
-                comparisons.Add(Compare(rc, analysis));
+            {
+                Progress?.Invoke($"seed {rc.Seed} {analysis}: start");
+                var comparison = Compare(rc, analysis);
+                Progress?.Invoke($"seed {rc.Seed} {analysis}: ours {comparison.Milliseconds.Ours:F0} ms, ngspice {comparison.Milliseconds.Ngspice:F0} ms" +
+                                 (comparison.OursFailure is { } f ? $", ours failed: {f}" : "") + (comparison.NgspiceFailure is { } g ? $", ngspice failed: {g}" : ""));
+                comparisons.Add(comparison);
+            }
         return new CaseResult(rc, stable, comparisons);
     }
 
@@ -118,9 +132,11 @@ public static class DifferentialCase
                 _ => TransientDifference(rc, plot),
             };
             var ours = clock.Elapsed.TotalMilliseconds;
+            var notes = LastNotes.Value;
+            LastNotes.Value = null;
             return new Comparison(analysis, null, ngspiceFailure, difference)
             {
-                Explanation = Explain(rc, analysis, plot, difference), Milliseconds = (ours, ngspiceMilliseconds),
+                Explanation = Explain(rc, analysis, plot, difference), Milliseconds = (ours, ngspiceMilliseconds), Notes = notes,
             };
         }
         catch (Exception e) when (e is SimulationException or CircuitException)
@@ -147,6 +163,13 @@ public static class DifferentialCase
                 return $"ngspice's switch in {(analysis == DifferentialAnalysis.Ac ? "AC" : "noise")}: it linearises every switch at its off " +
                        $"conductance; with the closed switches open in the small-signal system the engines agree to {view:G2}";
         }
+        if (analysis is DifferentialAnalysis.OperatingPoint or DifferentialAnalysis.SourceSweep or DifferentialAnalysis.TemperatureSweep
+            && OtherSolutionDistance(rc, analysis, plot) is { } other && other <= Limits[analysis])
+            return $"multiple DC solutions: Newton from ngspice's point stays there (to {other:G2}), so it solves the engine's equations too";
+        if (analysis == DifferentialAnalysis.Transient && rc.Circuit.Elements.Any(e => e is TimedSwitch)
+            && rc.FastestTimeConstantSeconds < 100 * SwitchControl.EdgeSeconds)
+            return $"switching faster than ngspice's switch can place its edge: the fastest time constant ({rc.FastestTimeConstantSeconds:G2} s, in one " +
+                   "of the switch states) is under 100 times ngspice's 1 ps control ramp, so where in the ramp it flips moves the waveform";
         if (analysis == DifferentialAnalysis.Transient)
         {
             // A tighter ngspice run as the reference: if the engine at its defaults agrees with it, the disagreement was
@@ -166,6 +189,42 @@ public static class DifferentialCase
             }
         }
         return null;
+    }
+
+    /// <summary>The worst <see cref="OtherSolution.Distance"/> over the points where the engines disagree, or null.</summary>
+    private static double? OtherSolutionDistance(RandomCircuit rc, DifferentialAnalysis analysis, NgspicePlot plot)
+    {
+        if (analysis == DifferentialAnalysis.OperatingPoint)
+            return OtherSolution.Distance(rc, plot, 0, _ => { });
+        var values = analysis == DifferentialAnalysis.SourceSweep
+            ? Enumerable.Range(0, SweepPoints).Select(i => rc.SweepFrom + i * SweepStep(rc)).ToArray()
+            : Enumerable.Range(0, 31).Select(i => -40 + 5.5 * i).ToArray();
+        var ours = analysis == DifferentialAnalysis.SourceSweep
+            ? DcSweep.Element(rc.Circuit, rc.SweepSource, values)
+            : DcSweep.Temperature(rc.Circuit, values);
+        var scale = rc.Nodes.Max(n => Math.Max(ours.Voltage(n).Max(Math.Abs), plot[n].Real.Take(values.Length).Max(Math.Abs)));
+        double? worst = 0;
+        for (var p = 0; p < values.Length; p++)
+        {
+            if (rc.Nodes.All(n => Math.Abs(ours.Voltage(n)[p] - plot[n].Real[p]) <= Limits[analysis] * scale))
+                continue;
+            var value = values[p];
+            var distance = OtherSolution.Distance(rc, plot, p, system =>
+            {
+                if (analysis == DifferentialAnalysis.TemperatureSweep)
+                    system.SetTemperature(value);
+                else
+                {
+                    var stamp = system.StampOf(rc.SweepSource);
+                    system.MarkVarying(stamp);
+                    system.SetSweepValue(stamp, value);
+                }
+            });
+            if (distance is null)
+                return null;
+            worst = Math.Max(worst.Value, distance.Value);
+        }
+        return worst;
     }
 
     private static NgspicePlot Ngspice(RandomCircuit rc, DifferentialAnalysis analysis)
@@ -188,9 +247,19 @@ public static class DifferentialCase
 
     private static double SweepStep(RandomCircuit rc) => (rc.SweepTo - rc.SweepFrom) / (SweepPoints - 1);
 
+    /// <summary>The solver notes of the analysis just run (set by each analysis, read by <see cref="Compare"/>).</summary>
+    private static readonly ThreadLocal<string?> LastNotes = new();
+
+    private static void Note(IEnumerable<string> notes)
+    {
+        var list = notes.ToList();
+        LastNotes.Value = list.Count == 0 ? null : string.Join("; ", list.Take(3)) + (list.Count > 3 ? $" (+{list.Count - 3})" : "");
+    }
+
     private static double? OperatingPointDifference(RandomCircuit rc, NgspicePlot? plot)
     {
         var op = OperatingPoint.Solve(rc.Circuit);
+        Note(op.Aid == ConvergenceAid.None ? [] : [$"operating point: {op.Aid}"]);
         if (plot is null)
             return null;
         return ScaledDifference(rc.Nodes.Select(n => (new[] { op.Voltage(n) }, plot[n].Real)));
@@ -200,6 +269,7 @@ public static class DifferentialCase
     {
         var values = Enumerable.Range(0, SweepPoints).Select(i => rc.SweepFrom + i * SweepStep(rc)).ToArray();
         var sweep = DcSweep.Element(rc.Circuit, rc.SweepSource, values);
+        Note(sweep.Notes.Select(n => n.Message));
         if (plot is null)
             return null;
         return ScaledDifference(rc.Nodes.Select(n => (sweep.Voltage(n), plot[n].Real[..SweepPoints])));
@@ -209,6 +279,7 @@ public static class DifferentialCase
     {
         var temperatures = Enumerable.Range(0, 31).Select(i => -40 + 5.5 * i).ToArray();
         var sweep = DcSweep.Temperature(rc.Circuit, temperatures);
+        Note(sweep.Notes.Select(n => n.Message));
         if (plot is null)
             return null;
         return ScaledDifference(rc.Nodes.Select(n => (sweep.Voltage(n), plot[n].Real[..31])));
@@ -223,15 +294,19 @@ public static class DifferentialCase
         return AcMetric(rc.Nodes.Select(ac.Voltage).ToList(), rc.Nodes.Select(n => plot[n].Complex!).ToList());
     }
 
-    /// <summary>The largest |Δ| in dB over nodes whose response is above 1e-6 of the frequency's largest.</summary>
-    private static double AcMetric(IReadOnlyList<Complex[]> ours, IReadOnlyList<Complex[]> theirs)
+    /// <summary>
+    /// The largest |Δ| in dB over nodes whose response is within 60 dB of the frequency's largest: below that a node's
+    /// few correct digits relative to the circuit's response are all either engine keeps (ngspice's solve leaves about
+    /// 1e-11 of the largest response there, which is 1e-5 dB on a node 100 dB down).
+    /// </summary>
+    internal static double AcMetric(IReadOnlyList<Complex[]> ours, IReadOnlyList<Complex[]> theirs)
     {
         var worst = 0.0;
         for (var k = 0; k < theirs[0].Length; k++)
         {
             var largest = theirs.Max(v => v[k].Magnitude);
             for (var i = 0; i < ours.Count; i++)
-                if (theirs[i][k].Magnitude > 1e-6 * largest && ours[i][k] != Complex.Zero)
+                if (theirs[i][k].Magnitude > 1e-3 * largest && ours[i][k] != Complex.Zero)
                     worst = Math.Max(worst, Math.Abs(20 * Math.Log10(ours[i][k].Magnitude / theirs[i][k].Magnitude)));
         }
         return worst;
@@ -246,12 +321,16 @@ public static class DifferentialCase
         return NoiseMetric(noise.OutputDensity, plot["onoise_spectrum"].Real);
     }
 
+    /// <summary>
+    /// The largest relative difference of the output noise density; densities below 1e-9 of the spectrum's largest (or
+    /// 1e-20 V/√Hz) count as zero: an output held by a source has none, up to rounding.
+    /// </summary>
     private static double NoiseMetric(double[] ours, double[] theirs)
     {
+        var floor = Math.Max(1e-9 * Math.Max(ours.Max(), theirs.Max()), 1e-20);
         var worst = 0.0;
         for (var k = 0; k < ours.Length; k++)
-            if (theirs[k] > 0 || ours[k] > 0)
-                worst = Math.Max(worst, Math.Abs(ours[k] - theirs[k]) / Math.Max(ours[k], theirs[k]));
+            worst = Math.Max(worst, Math.Abs(ours[k] - theirs[k]) / Math.Max(Math.Max(ours[k], theirs[k]), floor));
         return worst;
     }
 
@@ -268,11 +347,17 @@ public static class DifferentialCase
                     TransientSimulation.AnalysisName, null, simulation.TimeSeconds, "(step budget)");
         }
         var result = simulation.Result;
+        Note(result.Notes.Select(n => n.Message));
         if (plot is null)
             return null;
         var time = plot["time"].Real;
         var edges = SwitchEdges(rc.Circuit, stop);
-        return ScaledDifference(rc.Nodes.Select(n => (time.Select((t, i) => Ours(result, n, Math.Min(t, result.EndTimeSeconds), plot[n].Real[i], edges, rc.FastestTimeConstantSeconds)).ToArray(), plot[n].Real)));
+        // Points inside ngspice's 1 ps control ramp of a switch edge are not compared: there its switch is in either state.
+        var compared = Enumerable.Range(0, time.Length)
+            .Where(i => !edges.Any(e => Math.Abs(time[i] - e) <= SwitchControl.EdgeSeconds)).ToArray();
+        return ScaledDifference(rc.Nodes.Select(n => (
+            compared.Select(i => Ours(result, n, Math.Min(time[i], result.EndTimeSeconds), plot[n].Real[i], edges, rc.FastestTimeConstantSeconds)).ToArray(),
+            compared.Select(i => plot[n].Real[i]).ToArray())));
     }
 
     /// <summary>

@@ -65,6 +65,10 @@ public sealed class DifferentialReport(IReadOnlyList<CaseResult> cases)
         s.AppendLine("Declines (the built-in engine says why):");
         foreach (var (c, x) in Declines)
             s.AppendLine(inv, $"- {x.Analysis}, seed {c.Circuit.Seed} ({c.Circuit.Class}): {x.OursFailure}");
+        s.AppendLine("Convergence aids and method changes the engine reported:");
+        foreach (var c in Screened)
+            foreach (var x in c.Comparisons.Where(x => x.Notes is not null))
+                s.AppendLine(inv, $"- {x.Analysis}, seed {c.Circuit.Seed} ({c.Circuit.Class}): {x.Notes}");
         s.AppendLine("Explained disagreements:");
         foreach (var c in Screened)
             foreach (var x in c.Comparisons.Where(x => x.Explanation is not null))

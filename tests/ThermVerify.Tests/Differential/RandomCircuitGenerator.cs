@@ -49,7 +49,10 @@ public sealed class RandomCircuitGenerator(int seed, CircuitClass circuitClass, 
         for (var k = 0; k < extras; k++)
             AddExtra();
         if (Nonlinear && !elements.Any(e => e is Diode || e is OpAmp { OutputHighVolts: < double.PositiveInfinity }))
-            AddDiode(Pick(nodes), RandomNodeOrGround());
+        {
+            var anode = Pick(nodes);
+            AddDiode(anode, RandomNodeOrGround(except: anode));
+        }
         FixSingleConnections();
 
         var circuit = new Circuit(elements, temperatureCelsius: Math.Round(Uniform(-20, 80)));
