@@ -1,4 +1,5 @@
 using System.CommandLine;
+using ThermVerify.Files;
 using ThermVerify.Reporting;
 
 namespace ThermVerify.Cli;

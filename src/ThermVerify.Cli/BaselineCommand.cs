@@ -1,8 +1,9 @@
 using System.CommandLine;
 using ThermVerify.Baselines;
+using ThermVerify.Check;
 using ThermVerify.Design;
+using ThermVerify.Files;
 using ThermVerify.Reporting;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Cli;
 

@@ -1,9 +1,10 @@
 using System.CommandLine;
 using ThermVerify.Baselines;
+using ThermVerify.Check;
 using ThermVerify.Design;
+using ThermVerify.Files;
 using ThermVerify.Firmware;
 using ThermVerify.Reporting;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Cli;
 

@@ -1,7 +1,7 @@
 using System.CommandLine;
+using ThermVerify.Check;
 using ThermVerify.Design;
 using ThermVerify.Reporting;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Cli;
 

@@ -1,7 +1,7 @@
 using System.CommandLine;
 using ThermVerify.Design;
-using ThermVerify.Reporting;
-using ThermVerify.Verification;
+using ThermVerify.Files;
+using ThermVerify.FrontEnd;
 
 namespace ThermVerify.Cli;
 

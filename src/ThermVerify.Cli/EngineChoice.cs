@@ -1,5 +1,5 @@
+using ThermVerify.FrontEnd;
 using ThermVerify.Ngspice;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Cli;
 

@@ -1,12 +1,12 @@
 using ThermVerify.Baselines;
+using ThermVerify.Circuits;
 using ThermVerify.Design;
+using ThermVerify.Files;
 using ThermVerify.Firmware;
+using ThermVerify.Ngspice;
 using ThermVerify.Quantities;
-using ThermVerify.Reporting;
 using ThermVerify.Sensors;
 using ThermVerify.Simulation;
-using ThermVerify.Circuits;
-using ThermVerify.Ngspice;
 
 namespace ThermVerify.Cli;
 

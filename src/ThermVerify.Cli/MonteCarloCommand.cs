@@ -2,6 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using System.Text;
 using ThermVerify.Design;
+using ThermVerify.Files;
 using ThermVerify.Reporting;
 using ThermVerify.Tolerances;
 

@@ -2,9 +2,9 @@ using System.CommandLine;
 using System.Globalization;
 using System.Text.RegularExpressions;
 using ThermVerify.Design;
+using ThermVerify.Files;
 using ThermVerify.Firmware;
 using ThermVerify.Quantities;
-using ThermVerify.Reporting;
 
 namespace ThermVerify.Cli;
 

@@ -1,7 +1,7 @@
 using ThermVerify.Circuits;
 using ThermVerify.Circuits.Spice;
+using ThermVerify.FrontEnd;
 using ThermVerify.Simulation;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Ngspice;
 

@@ -1,8 +1,9 @@
 using System.Globalization;
 using System.Security.Cryptography;
 using System.Text;
+using ThermVerify.Check;
 using ThermVerify.Design;
-using ThermVerify.Verification;
+using ThermVerify.Sensors;
 
 namespace ThermVerify.Baselines;
 

@@ -1,6 +1,5 @@
 using ThermVerify.Circuits.Spice;
 using ThermVerify.Simulation.Mna;
-using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Circuits;
 

@@ -1,6 +1,6 @@
 using System.Globalization;
+using ThermVerify.FrontEnd;
 using ThermVerify.Sensors;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Firmware;
 

@@ -1,6 +1,6 @@
-using ThermVerify.Design;
 using System.Globalization;
-using ThermVerify.Verification;
+using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 
 namespace ThermVerify.Firmware;
 

@@ -1,6 +1,6 @@
 using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 using ThermVerify.Sensors;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Firmware;
 

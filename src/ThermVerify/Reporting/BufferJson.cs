@@ -1,4 +1,5 @@
-using ThermVerify.Buffer;
+using ThermVerify.Check.Buffer;
+using ThermVerify.Circuits;
 
 namespace ThermVerify.Reporting;
 

@@ -1,6 +1,6 @@
 using System.Net;
 using System.Text;
-using ThermVerify.Buffer;
+using ThermVerify.Check.Buffer;
 
 namespace ThermVerify.Reporting;
 

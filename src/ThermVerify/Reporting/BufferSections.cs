@@ -1,4 +1,5 @@
-using ThermVerify.Buffer;
+using ThermVerify.Check.Buffer;
+using ThermVerify.Circuits;
 using ThermVerify.Quantities;
 using static ThermVerify.Reporting.ReportFormat;
 

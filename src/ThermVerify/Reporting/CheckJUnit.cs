@@ -1,7 +1,8 @@
 using System.Globalization;
 using System.Xml.Linq;
 using ThermVerify.Baselines;
-using ThermVerify.Verification;
+using ThermVerify.Check;
+using ThermVerify.Circuits;
 using static ThermVerify.Reporting.ReportFormat;
 
 namespace ThermVerify.Reporting;

@@ -1,6 +1,6 @@
 using System.Text.Json;
+using ThermVerify.Check;
 using ThermVerify.Firmware;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Reporting;
 

@@ -1,6 +1,7 @@
 using System.Text;
 using ThermVerify.Baselines;
-using ThermVerify.Verification;
+using ThermVerify.Check;
+using ThermVerify.Quantities;
 using static ThermVerify.Reporting.ReportFormat;
 
 namespace ThermVerify.Reporting;

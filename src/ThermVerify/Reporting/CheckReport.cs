@@ -1,7 +1,7 @@
 using ThermVerify.Baselines;
+using ThermVerify.Check;
 using ThermVerify.Design;
 using ThermVerify.Reporting.Plots;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Reporting;
 

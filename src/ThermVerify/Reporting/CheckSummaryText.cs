@@ -1,8 +1,8 @@
 using System.Globalization;
 using System.Text;
+using ThermVerify.Check;
 using ThermVerify.Design;
 using ThermVerify.Quantities;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Reporting;
 

@@ -1,7 +1,8 @@
 using System.Globalization;
 using System.Text;
+using ThermVerify.Check;
+using ThermVerify.Check.Buffer;
 using ThermVerify.Quantities;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Reporting;
 
@@ -56,7 +57,7 @@ public static class ComparisonText
 
     private static string Pm(CheckResult r) => Buf(r, x => x.Stability.Worst.PhaseMarginDegrees is { } pm ? N(pm, "0.0") : "no crossover");
 
-    private static string Buf(CheckResult r, Func<Buffer.BufferReport, string> f) => r.Buffer is { } b ? f(b) : "no buffer";
+    private static string Buf(CheckResult r, Func<Check.Buffer.BufferReport, string> f) => r.Buffer is { } b ? f(b) : "no buffer";
 
     private static string Count(int n) => n.ToString(CultureInfo.InvariantCulture);
     private static string V(double value, UnitKind unit) => double.IsFinite(value) ? EngineeringFormat.Format(value, unit, 4) : "n/a";

@@ -1,5 +1,4 @@
 using System.Text.Json;
-using ThermVerify.Components;
 using ThermVerify.Design;
 using ThermVerify.Tolerances;
 using static ThermVerify.Reporting.ReportJson;

@@ -1,9 +1,9 @@
 using System.Globalization;
 using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 using ThermVerify.Quantities;
 using ThermVerify.Reporting.Plots;
 using ThermVerify.Tolerances;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Reporting;
 

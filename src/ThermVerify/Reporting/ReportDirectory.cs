@@ -1,3 +1,5 @@
+using ThermVerify.Files;
+
 namespace ThermVerify.Reporting;
 
 /// <summary>

@@ -2,8 +2,8 @@ using System.Reflection;
 using System.Text.Json;
 using System.Text.Json.Serialization;
 using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 using ThermVerify.Tolerances;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Reporting;
 

@@ -1,8 +1,8 @@
 using System.Globalization;
 using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 using ThermVerify.Reporting.Plots;
 using ThermVerify.Tolerances;
-using ThermVerify.Verification;
 using static ThermVerify.Reporting.ToleranceText;
 
 namespace ThermVerify.Reporting;

@@ -1,4 +1,4 @@
-using ThermVerify.Verification;
+using ThermVerify.FrontEnd;
 
 namespace ThermVerify.Tolerances;
 

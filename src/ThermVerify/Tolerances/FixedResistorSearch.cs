@@ -1,7 +1,7 @@
+using ThermVerify.Check;
 using ThermVerify.Components;
 using ThermVerify.Design;
-using ThermVerify.Sensors;
-using ThermVerify.Verification;
+using ThermVerify.FrontEnd;
 
 namespace ThermVerify.Tolerances;
 

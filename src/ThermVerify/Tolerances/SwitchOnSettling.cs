@@ -1,8 +1,8 @@
 using System.Collections.Immutable;
 using ThermVerify.Circuits;
 using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 using ThermVerify.Simulation;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Tolerances;
 

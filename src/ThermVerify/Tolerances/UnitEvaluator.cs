@@ -1,7 +1,8 @@
+using ThermVerify.Check;
 using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 using ThermVerify.Sensors;
 using ThermVerify.Simulation;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Tolerances;
 

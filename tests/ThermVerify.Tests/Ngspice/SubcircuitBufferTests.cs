@@ -1,10 +1,10 @@
 using ThermVerify.Circuits;
 using ThermVerify.Cli;
 using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 using ThermVerify.Ngspice;
 using ThermVerify.Sensors;
 using ThermVerify.Tests.Cli;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Tests.Ngspice;
 

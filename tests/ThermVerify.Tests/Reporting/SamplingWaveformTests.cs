@@ -1,5 +1,5 @@
-using ThermVerify.Tests.Verification;
-using ThermVerify.Verification;
+using ThermVerify.FrontEnd;
+using ThermVerify.Tests.Check;
 
 namespace ThermVerify.Tests.Reporting;
 

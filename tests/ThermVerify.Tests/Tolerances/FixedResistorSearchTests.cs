@@ -1,6 +1,6 @@
 using ThermVerify.Components;
+using ThermVerify.Tests.Check;
 using ThermVerify.Tolerances;
-using ThermVerify.Tests.Verification;
 
 namespace ThermVerify.Tests.Tolerances;
 

@@ -1,5 +1,6 @@
 using ScottPlot;
-using ThermVerify.Buffer;
+using ThermVerify.Check.Buffer;
+using ThermVerify.Simulation;
 
 namespace ThermVerify.Reporting.Plots;
 

@@ -1,4 +1,5 @@
-using ThermVerify.Verification;
+using ThermVerify.Check;
+using ThermVerify.FrontEnd;
 
 namespace ThermVerify.Reporting.Plots;
 

@@ -1,5 +1,5 @@
 using ScottPlot;
-using ThermVerify.Verification;
+using ThermVerify.Check;
 
 namespace ThermVerify.Reporting.Plots;
 

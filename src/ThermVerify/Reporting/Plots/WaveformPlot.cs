@@ -1,5 +1,6 @@
 using ScottPlot;
-using ThermVerify.Verification;
+using ThermVerify.Check;
+using ThermVerify.FrontEnd;
 
 namespace ThermVerify.Reporting.Plots;
 

@@ -1,0 +1,59 @@
+using ThermVerify.Circuits;
+using ThermVerify.Simulation;
+
+namespace ThermVerify.FrontEnd;
+
+/// <summary>
+/// The two simulations a check needs, so that another engine (ngspice) can stand in for the built-in one: the
+/// temperature sweep of a DC circuit, and a transient read at the sample instants. Results are plain voltages, the
+/// same whichever engine produced them.
+/// </summary>
+public interface ICheckEngine
+{
+    /// <summary>A short name for reports ("built-in", "ngspice").</summary>
+    string Name { get; }
+
+    /// <summary>The voltage of each of <paramref name="nodes"/> at every temperature, as SPICE's <c>.dc temp</c>.</summary>
+    IReadOnlyList<double[]> TemperatureSweep(Circuit circuit, IReadOnlyList<double> temperaturesCelsius, IReadOnlyList<string> nodes);
+
+    /// <summary>A transient of <paramref name="circuit"/> from its operating point, read at rising times.</summary>
+    ISampledTransient StartTransient(Circuit circuit, TransientOptions options);
+}
+
+/// <summary>A running transient: node voltages at times that never go back.</summary>
+public interface ISampledTransient
+{
+    double VoltageAt(double timeSeconds, string node);
+}
+
+/// <summary>The built-in modified-nodal-analysis engine, the default.</summary>
+public sealed class BuiltInEngine : ICheckEngine
+{
+    public static readonly BuiltInEngine Instance = new();
+
+    private BuiltInEngine() { }
+
+    public string Name => "built-in";
+
+    public IReadOnlyList<double[]> TemperatureSweep(Circuit circuit, IReadOnlyList<double> temperaturesCelsius, IReadOnlyList<string> nodes)
+    {
+        var result = DcSweep.Temperature(circuit, temperaturesCelsius);
+        return [.. nodes.Select(result.Voltage)];
+    }
+
+    public ISampledTransient StartTransient(Circuit circuit, TransientOptions options) =>
+        new Running(new TransientSimulation(circuit, options));
+
+    private sealed class Running(TransientSimulation simulation) : ISampledTransient
+    {
+        public double VoltageAt(double timeSeconds, string node)
+        {
+            if (timeSeconds > simulation.TimeSeconds)
+            {
+                simulation.AdvanceTo(timeSeconds);
+                simulation.ForgetRecordedPoints(); // only the samples are read: a long run must not keep every point
+            }
+            return simulation.Voltage(node);
+        }
+    }
+}
