@@ -1,6 +1,4 @@
 using ThermVerify.Circuits.Spice;
-using ThermVerify.Simulation.Mna;
-using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Circuits;
 
@@ -28,7 +26,4 @@ public sealed record Capacitor(string Name, string NodeA, string NodeB, double C
     internal override void WriteSpice(SpiceLines deck) =>
         deck.Line($"{SpiceLines.InstanceName('C', Name)} {NodeA} {NodeB} {SpiceNumber.Format(CapacitanceFarads)}" +
                   (InitialVoltage is { } v ? $" ic={SpiceNumber.Format(v)}" : ""));
-
-    internal override Stamp Bind(BindContext context) => new CapacitorStamp(this, context);
-
 }

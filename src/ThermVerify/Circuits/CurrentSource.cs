@@ -1,6 +1,4 @@
 using ThermVerify.Circuits.Spice;
-using ThermVerify.Simulation.Mna;
-using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Circuits;
 
@@ -26,6 +24,4 @@ public sealed record CurrentSource(string Name, string Positive, string Negative
 
     internal override void WriteSpice(SpiceLines deck) =>
         deck.Line($"{SpiceLines.InstanceName('I', Name)} {Positive} {Negative} {Waveform.ToSpice()}{SpiceSource.Ac(AcMagnitude, AcPhaseDegrees)}");
-
-    internal override Stamp Bind(BindContext context) => new CurrentSourceStamp(this, context);
 }

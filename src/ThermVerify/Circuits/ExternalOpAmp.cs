@@ -1,5 +1,4 @@
 using ThermVerify.Circuits.Spice;
-using ThermVerify.Simulation.Mna;
 
 namespace ThermVerify.Circuits;
 
@@ -36,9 +35,4 @@ public sealed record ExternalOpAmp(string Name, string NonInverting, string Inve
         deck.Line($"{SpiceLines.InstanceName('V', negative)} {negative} 0 dc {SpiceNumber.Format(SupplyLowVolts)}");
         deck.Line($"{SpiceLines.InstanceName('X', Name)} {NonInverting} {Inverting} {positive} {negative} {Output} {SubcircuitName}");
     }
-
-    internal override Stamp Bind(BindContext context) =>
-        throw new EngineUnsupportedException(
-            $"The buffer is the SPICE subcircuit '{SubcircuitName}' from {SubcircuitPath}; the built-in engine cannot run a SPICE subcircuit. " +
-            "Run the check with '--engine ngspice', or remove subckt_file and subckt_name to use the built-in op-amp model.");
 }

@@ -1,6 +1,4 @@
 using ThermVerify.Circuits.Spice;
-using ThermVerify.Simulation.Mna;
-using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Circuits;
 
@@ -14,7 +12,7 @@ public sealed record Inductor(string Name, string NodeA, string NodeB, double In
 
     internal override IEnumerable<(string A, string B)> VoltageDefinedPaths => [(NodeA, NodeB)];
 
-    internal override IReadOnlyList<Unknown> ExtraUnknowns => [Unknown.Current($"I({Name})")];
+    internal override IReadOnlyList<ExtraUnknown> ExtraUnknowns => [ExtraUnknown.Current($"I({Name})")];
 
     internal override void Validate()
     {
@@ -28,6 +26,4 @@ public sealed record Inductor(string Name, string NodeA, string NodeB, double In
     internal override void WriteSpice(SpiceLines deck) =>
         deck.Line($"{SpiceLines.InstanceName('L', Name)} {NodeA} {NodeB} {SpiceNumber.Format(InductanceHenries)}" +
                   (InitialCurrent is { } i ? $" ic={SpiceNumber.Format(i)}" : ""));
-
-    internal override Stamp Bind(BindContext context) => new InductorStamp(this, context);
 }

@@ -1,6 +1,4 @@
 using ThermVerify.Circuits.Spice;
-using ThermVerify.Simulation.Mna;
-using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Circuits;
 
@@ -29,7 +27,4 @@ public sealed record LeakageCurrentSource(string Name, string Positive, string N
     internal override void WriteSpice(SpiceLines deck) =>
         deck.Line($"{SpiceLines.InstanceName('B', Name)} {Positive} {Negative} I={SpiceNumber.Format(CurrentAt25CelsiusAmperes)}" +
                   $"*pow(2,(temper-25)/{SpiceNumber.Format(DoublingKelvin)})");
-
-    internal override Stamp Bind(BindContext context) => new LeakageCurrentSourceStamp(this, context);
-
 }

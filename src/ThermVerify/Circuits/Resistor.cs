@@ -1,6 +1,4 @@
 using ThermVerify.Circuits.Spice;
-using ThermVerify.Simulation.Mna;
-using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Circuits;
 
@@ -49,7 +47,4 @@ public sealed record Resistor(string Name, string NodeA, string NodeB, double Re
             deck.Line($"{name} {NodeA} {NodeB} r='{SpiceNumber.Format(ResistanceOhms)}*(1+{SpiceNumber.Format(Tc1PerKelvin)}*{dt}+{SpiceNumber.Format(Tc2PerKelvinSquared)}*{dt}*{dt})'");
         }
     }
-
-    internal override Stamp Bind(BindContext context) => new ResistorStamp(this, context);
-
 }

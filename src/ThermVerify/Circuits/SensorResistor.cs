@@ -1,7 +1,5 @@
 using ThermVerify.Circuits.Spice;
 using ThermVerify.Sensors;
-using ThermVerify.Simulation.Mna;
-using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Circuits;
 
@@ -45,7 +43,4 @@ public sealed record SensorResistor(string Name, string NodeA, string NodeB, ISe
         else
             deck.Line($"{name} {NodeA} {NodeB} {SpiceNumber.Format(ResistanceOhmsAt(deck.TemperatureCelsius))}");
     }
-
-    internal override Stamp Bind(BindContext context) => new SensorResistorStamp(this, context);
-
 }

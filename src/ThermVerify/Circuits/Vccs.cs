@@ -1,6 +1,4 @@
 using ThermVerify.Circuits.Spice;
-using ThermVerify.Simulation.Mna;
-using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Circuits;
 
@@ -22,7 +20,4 @@ public sealed record Vccs(string Name, string Positive, string Negative, string 
 
     internal override void WriteSpice(SpiceLines deck) =>
         deck.Line($"{SpiceLines.InstanceName('G', Name)} {Positive} {Negative} {ControlPositive} {ControlNegative} {SpiceNumber.Format(TransconductanceSiemens)}");
-
-    internal override Stamp Bind(BindContext context) => new VccsStamp(this, context);
-
 }

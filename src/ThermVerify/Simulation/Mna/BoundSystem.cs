@@ -1,4 +1,5 @@
 using ThermVerify.Circuits;
+using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Simulation.Mna;
 
@@ -31,7 +32,7 @@ internal sealed class BoundSystem
         for (var e = 0; e < Stamps.Length; e++)
         {
             bind.ExtraStart = Layout.ExtraStart[e];
-            Stamps[e] = circuit.Elements[e].Bind(bind);
+            Stamps[e] = StampCatalog.Bind(circuit.Elements[e], bind);
         }
         StateIsCurrent = bind.StateIsCurrent;
         Context = new LoadContext(Layout, bind.StateCount);
