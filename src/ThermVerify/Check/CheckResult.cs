@@ -21,14 +21,18 @@ public sealed record CheckOptions
     public ICheckEngine Engine { get; init; } = BuiltInEngine.Instance;
 }
 
-/// <summary>Everything `check` found: every point of the sweep, the sampling runs, the findings and the verdict.</summary>
+/// <summary>
+/// Everything `check` found: every point of the sweep, the sampling runs, the findings and the verdict, and the
+/// sampling waveform at the worst point (recorded by the check's own engine, so reports draw it without simulating).
+/// </summary>
 public sealed record CheckResult(
     FrontEndDesign Design,
     string SensorDescription,
     AdcTransfer Adc,
     IReadOnlyList<CheckPoint> Points,
     IReadOnlyList<SamplingOutcome> Sampling,
-    IReadOnlyList<Finding> Findings)
+    IReadOnlyList<Finding> Findings,
+    SamplingWaveform Waveform)
 {
     /// <summary>The op-amp buffer's own sections (stability, headroom, static errors, recovery, noise) when the design has one.</summary>
     public Buffer.BufferReport? Buffer { get; init; }

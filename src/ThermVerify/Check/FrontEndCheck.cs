@@ -42,7 +42,12 @@ public static class FrontEndCheck
         var sampling = cases.SelectMany(c => c.Sampling).ToList();
         var findings = FindingRules.Evaluate(design, model, points, options);
         var buffer = design.Buffer is null ? null : Buffer.BufferCheck.Run(design, points, options);
-        return new CheckResult(design, model.Sensor.Description, model.Adc, points, sampling, [.. findings, .. buffer?.Findings ?? []]) { Buffer = buffer };
+        var worst = points.MaxBy(p => double.IsFinite(p.ErrorKelvin) ? Math.Abs(p.ErrorKelvin) : double.PositiveInfinity)!;
+        var waveform = SamplingWaveform.Record(design, worst.Celsius, worst.PrechargeVolts, settleVolts, options.Engine);
+        return new CheckResult(design, model.Sensor.Description, model.Adc, points, sampling, [.. findings, .. buffer?.Findings ?? []], waveform)
+        {
+            Buffer = buffer,
+        };
     }
 
     /// <summary>

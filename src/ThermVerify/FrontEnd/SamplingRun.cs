@@ -75,7 +75,8 @@ public static class SamplingRun
         var circuit = FrontEndCircuit.Sampling(design, prechargeVolts, conversions) with { TemperatureCelsius = celsius };
         return (circuit, new TransientOptions
         {
-            StopTimeSeconds = conversions * period,
+            // The last sample instant itself, computed as every sample time is, so a read there is never past the end.
+            StopTimeSeconds = FrontEndCircuit.SampleTimeSeconds(design, conversions - 1),
             MaxStepSeconds = period / 4,
             // The global error of a sample grows as the local tolerance to the power 2/3 (second-order steps) and the
             // relative part dominates at volt levels: 1e-5 left 0.2 mV (0.2 LSB of 12 bits) after a charge-sharing step,

@@ -1,5 +1,4 @@
 using ThermVerify.Design;
-using ThermVerify.Simulation;
 
 namespace ThermVerify.FrontEnd;
 
@@ -9,47 +8,43 @@ public sealed record AcquisitionTrace(int Conversion, double[] TimeFromStartSeco
 /// <summary>The first conversions at one temperature and precharge, recorded around each acquisition window.</summary>
 public sealed record SamplingWaveform(double Celsius, double? PrechargeVolts, double AcquisitionSeconds, IReadOnlyList<AcquisitionTrace> Conversions)
 {
+    /// <summary>Conversions a check records: the first shows the precharge step, the next ones the recovery.</summary>
+    public const int DefaultConversions = 3;
+
     /// <summary>
-    /// Re-simulates the sampling circuit from the settled front end for <paramref name="conversions"/> conversions.
-    /// Windows are recorded rather than whole periods because the acquisition is often a thousandth of the period
-    /// or less; each window starts a quarter of the acquisition time early so the level the capacitor brings is seen.
+    /// Runs the sampling transient from the settled front end with the engine and the tolerances of the check
+    /// itself (<see cref="SamplingRun.Setup"/>), reading the pin and the sampling capacitor at
+    /// <paramref name="pointsPerWindow"/> + 1 times in each acquisition window. Windows are recorded rather than whole
+    /// periods because the acquisition is often a thousandth of the period or less; each starts a quarter of the
+    /// acquisition time early so the level the capacitor brings is seen, and ends exactly at the sample instant.
     /// </summary>
-    public static SamplingWaveform Simulate(FrontEndDesign design, double celsius, double? prechargeVolts, int conversions = 3, int pointsPerWindow = 160)
+    public static SamplingWaveform Record(FrontEndDesign design, double celsius, double? prechargeVolts, double settleVolts,
+        ICheckEngine engine, int conversions = DefaultConversions, int pointsPerWindow = 160)
     {
         if (conversions < 1) throw new ArgumentOutOfRangeException(nameof(conversions), "record at least one conversion");
-        var adc = design.Adc;
-        var period = 1 / adc.SampleRateHertz;
-        var acquisition = adc.AcquisitionTimeSeconds;
+        var acquisition = design.Adc.AcquisitionTimeSeconds;
+        var period = 1 / design.Adc.SampleRateHertz;
         var lead = Math.Min(acquisition / 4, (period - acquisition) / 2);
-        var windows = Enumerable.Range(0, conversions)
-            .Select(k => FrontEndCircuit.SampleTimeSeconds(design, k) - acquisition)
-            .Select(start => Enumerable.Range(0, pointsPerWindow + 1).Select(j => start - lead + j * (acquisition + lead) / pointsPerWindow).ToArray())
-            .ToArray();
-
-        var circuit = FrontEndCircuit.Sampling(design, prechargeVolts, conversions) with { TemperatureCelsius = celsius };
-        var simulation = new TransientSimulation(circuit, new TransientOptions
-        {
-            StopTimeSeconds = conversions * period,
-            MaxStepSeconds = period / 4,
-            RelativeTolerance = 1e-5,
-            VoltageToleranceVolts = Math.Max(design.Check.SettleLimitLsb * (adc.ReferenceVolts ?? design.Divider.ExcitationVolts) / (1 << adc.Bits) / 100, 1e-12),
-            OutputTimesSeconds = [.. windows.SelectMany(w => w).Where(t => t > 0)],
-        });
-        simulation.AdvanceTo(conversions * period);
-        var result = simulation.Result;
+        var (circuit, options) = SamplingRun.Setup(design, celsius, prechargeVolts, settleVolts, conversions);
+        var run = engine.StartTransient(circuit, options);
         var pin = FrontEndCircuit.PinNode(design);
 
-        var traces = windows.Select((times, k) =>
+        var traces = new List<AcquisitionTrace>(conversions);
+        for (var k = 0; k < conversions; k++)
         {
-            var start = FrontEndCircuit.SampleTimeSeconds(design, k) - acquisition;
-            // The last window ends at the stop time, which rounding may put a hair beyond the last recorded point.
-            var inside = times.Where(t => t >= result.StartTimeSeconds).Select(t => Math.Min(t, result.EndTimeSeconds)).ToArray();
-            return new AcquisitionTrace(k + 1,
-                [.. inside.Select(t => t - start)],
-                [.. inside.Select(t => result.VoltageAt(pin, t))],
-                [.. inside.Select(t => result.VoltageAt(FrontEndNodes.Hold, t))],
-                result.VoltageAt(FrontEndNodes.Hold, FrontEndCircuit.SampleTimeSeconds(design, k)));
-        }).ToList();
+            var sampleTime = FrontEndCircuit.SampleTimeSeconds(design, k);
+            var span = acquisition + lead;
+            // Counted back from the sample instant, so the last point is that instant exactly (never past the run's end).
+            var times = Enumerable.Range(0, pointsPerWindow + 1).Select(j => sampleTime - (pointsPerWindow - j) * span / pointsPerWindow).ToArray();
+            var pinVolts = new double[times.Length];
+            var holdVolts = new double[times.Length];
+            for (var j = 0; j < times.Length; j++)
+            {
+                pinVolts[j] = run.VoltageAt(times[j], pin);
+                holdVolts[j] = run.VoltageAt(times[j], FrontEndNodes.Hold);
+            }
+            traces.Add(new AcquisitionTrace(k + 1, [.. times.Select(t => t - (sampleTime - acquisition))], pinVolts, holdVolts, holdVolts[^1]));
+        }
         return new SamplingWaveform(celsius, prechargeVolts, acquisition, traces);
     }
 }

@@ -1,7 +1,7 @@
 using ThermVerify.FrontEnd;
 using ThermVerify.Tests.Check;
 
-namespace ThermVerify.Tests.Reporting;
+namespace ThermVerify.Tests.FrontEnd;
 
 public class SamplingWaveformTests
 {
@@ -12,7 +12,7 @@ public class SamplingWaveformTests
         // resistance plus the switch, v(t) = V_pin·(1 − e^(−t/τ)), τ = (R_th + R_on)·C_sh (RC charging, elementary).
         var design = TestDesign.Make(("adc.precharge", "\"discharged\""));
         const double celsius = 25;
-        var waveform = SamplingWaveform.Simulate(design, celsius, 0.0, conversions: 2);
+        var waveform = SamplingWaveform.Record(design, celsius, 0.0, settleVolts: 1e-6, BuiltInEngine.Instance, conversions: 2);
 
         var thevenin = 10e3 * 10e3 / (10e3 + 10e3);   // 10 kΩ NTC at 25 °C against 10 kΩ fixed
         var tau = (thevenin + 1e3) * 10e-12;
