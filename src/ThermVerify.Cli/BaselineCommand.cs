@@ -1,9 +1,11 @@
 using System.CommandLine;
+using ThermVerify.Api;
 using ThermVerify.Baselines;
 using ThermVerify.Check;
 using ThermVerify.Design;
 using ThermVerify.Files;
 using ThermVerify.Reporting;
+using ThermVerify.Reporting.Text;
 
 namespace ThermVerify.Cli;
 
@@ -31,17 +33,9 @@ internal static class BaselineCommand
             // Refuse before the simulations run rather than after.
             if (!parsed.GetValue(force) && File.Exists(target))
                 throw new OutputExistsException($"{target} exists already; pass --force to replace it");
-            var result = FrontEndCheck.Run(DesignLoader.Load(path), new CheckOptions { Threads = parsed.GetValue(threads), ComputeRemedies = false, Cancel = cancel });
-            var baseline = BaselineFigures.From(result, CheckJson.ToolVersion());
-            BaselineFile.Write(target, baseline, parsed.GetValue(force));
-
-            var output = parsed.InvocationConfiguration.Output;
-            output.WriteLine($"baseline written: {target} ({baseline.Figures.Count} figures; the check itself {(result.Passed ? "passes" : "fails")})");
-            var table = new TextTable("figure", "value", "better", "tolerance");
-            foreach (var f in baseline.Figures)
-                table.AddRow(f.Id, f.Value is { } v ? FormattableString.Invariant($"{v:0.####} {f.Unit}") : "none", f.Better == Better.Lower ? "lower" : "higher",
-                    FormattableString.Invariant($"±{f.Tolerance:0.####} {f.Unit}"));
-            output.Write(table);
+            var (baseline, result) = Verifier.MakeBaseline(Verifier.LoadDesign(path), new CheckOptions { Threads = parsed.GetValue(threads), Cancel = cancel });
+            AtomicFile.WriteAllText(target, BaselineFile.ToJson(baseline), parsed.GetValue(force));
+            parsed.InvocationConfiguration.Output.Write(BaselineText.Render(target, baseline, result.Passed));
             return Task.FromResult(ExitCodes.Success);
         });
         return command;

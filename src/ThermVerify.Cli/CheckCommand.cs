@@ -1,9 +1,9 @@
 using System.CommandLine;
-using ThermVerify.Baselines;
+using ThermVerify.Reporting.Text;
+using ThermVerify.Api;
 using ThermVerify.Check;
 using ThermVerify.Design;
 using ThermVerify.Files;
-using ThermVerify.Firmware;
 using ThermVerify.Reporting;
 
 namespace ThermVerify.Cli;
@@ -58,57 +58,32 @@ internal static class CheckCommand
             if (parsed.GetValue(report) is { } folder)
                 ReportDirectory.EnsureWritable(folder.FullName, overwrite);
             var chosen = EngineChoice.Create(parsed.GetValue(engine)!, parsed.GetValue(process));
-            var result = FrontEndCheck.Run(loaded, new CheckOptions
+            var run = Verifier.Check(loaded, new CheckOptions
             {
                 Threads = parsed.GetValue(threads),
                 ComputeRemedies = !parsed.GetValue(noRemedies),
                 MaximumSamplingPoints = parsed.GetValue(samplingPoints),
                 Cancel = cancel,
                 Engine = chosen,
-            });
-            var faults = FaultThresholdsOrNull(loaded);
-            if (parsed.GetValue(json) is { } jsonFile)
-                AtomicFile.WriteAllText(jsonFile.FullName, CheckJson.Write(result, parsed.GetValue(design)!.ToString(), faults), overwrite);
+            }, parsed.GetValue(baseline)?.FullName);
 
-            var comparison = parsed.GetValue(baseline) is { } baselineFile
-                ? BaselineComparison.Compare(baselineFile.ToString(), BaselineFile.Read(baselineFile.FullName), BaselineFigures.From(result, CheckJson.ToolVersion()))
-                : null;
+            var designPath = parsed.GetValue(design)!.ToString();
+            if (parsed.GetValue(json) is { } jsonFile)
+                AtomicFile.WriteAllText(jsonFile.FullName, CheckJson.Write(run.Result, designPath), overwrite);
             if (parsed.GetValue(junit) is { } junitFile)
-                AtomicFile.WriteAllText(junitFile.FullName, CheckJUnit.Write(result, comparison), overwrite);
+                AtomicFile.WriteAllText(junitFile.FullName, CheckJUnit.Write(run.Result, run.Baseline), overwrite);
             if (parsed.GetValue(report) is { } reportFolder)
-                ReportDirectory.Write(CheckReport.Build(result, parsed.GetValue(design)!.ToString(), comparison), reportFolder.FullName, overwrite);
+                ReportDirectory.Write(CheckReport.Build(run.Result, designPath, run.Baseline), reportFolder.FullName, overwrite);
 
             var output = parsed.InvocationConfiguration.Output;
-            var summary = CheckSummaryText.Render(result);
-            if (faults is not null)
-            {
-                var caution = summary.LastIndexOf(CheckSummaryText.Caution, StringComparison.Ordinal);
-                summary = summary.Insert(caution, FaultText.Render(faults) + Environment.NewLine + Environment.NewLine);
-            }
-            output.Write(parsed.GetValue(quiet) ? summary.Split('\n').First(l => l.StartsWith("PASS") || l.StartsWith("FAIL")) + "\n" : summary);
-            if (comparison is not null)
-                output.Write(parsed.GetValue(quiet) ? BaselineTable.Render(comparison).Split('\n')[0] + "\n" : "\n" + BaselineTable.Render(comparison));
+            output.Write(parsed.GetValue(quiet) ? CheckSummaryText.VerdictLine(run.Result) : CheckSummaryText.Render(run.Result));
+            if (run.Baseline is { } comparison)
+                output.Write(parsed.GetValue(quiet) ? BaselineTable.Headline(comparison) + "\n" : "\n" + BaselineTable.Render(comparison));
             if (parsed.GetValue(report) is { } written)
                 output.WriteLine($"report: {Path.Combine(written.ToString(), ReportDirectory.HtmlFile)}, {Path.Combine(written.ToString(), ReportDirectory.MarkdownFile)}");
-            var passed = result.Passed && comparison?.Passed != false;
-            return Task.FromResult(passed ? ExitCodes.Success : ExitCodes.CheckFailed);
+            return Task.FromResult(run.Passed ? ExitCodes.Success : ExitCodes.CheckFailed);
         });
         return command;
     }
 
-    /// <summary>
-    /// The codes an open or shorted sensor or fixed resistor produce, and thresholds with margin; none when the
-    /// tolerances leave no room between a fault and a healthy reading (the table command explains why).
-    /// </summary>
-    private static FaultThresholds? FaultThresholdsOrNull(FrontEndDesign design)
-    {
-        try
-        {
-            return FaultAnalysis.Thresholds(FirmwareFromDesign.Model(design, correctForLoading: false), FirmwareFromDesign.Tolerances(design));
-        }
-        catch (FirmwareInputException)
-        {
-            return null;
-        }
-    }
 }

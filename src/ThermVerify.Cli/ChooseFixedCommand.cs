@@ -1,10 +1,10 @@
 using System.CommandLine;
-using System.Globalization;
-using System.Text;
+using ThermVerify.Api;
 using ThermVerify.Components;
 using ThermVerify.Design;
 using ThermVerify.Quantities;
 using ThermVerify.Reporting;
+using ThermVerify.Reporting.Text;
 using ThermVerify.Tolerances;
 
 namespace ThermVerify.Cli;
@@ -60,10 +60,10 @@ internal static class ChooseFixedCommand
             };
             if (options.MinimumOhms is { } minimum && options.MaximumOhms is { } maximum && !(minimum > 0 && maximum >= minimum))
                 throw new UsageException($"--min {parsed.GetValue(min)} and --max {parsed.GetValue(max)}: give a positive range with --min not above --max.");
-            var ranked = FixedResistorSearch.Run(loaded, options);
+            var ranked = Verifier.ChooseFixed(loaded, options);
             if (ranked.Count == 0)
                 throw new UsageException($"No {chosen} value lies between the bounds; widen --min/--max or choose a finer series.");
-            parsed.InvocationConfiguration.Output.Write(Render(loaded, chosen, goal, ranked, parsed.GetValue(top)));
+            parsed.InvocationConfiguration.Output.Write(FixedResistorText.Render(loaded, chosen, goal, ranked, parsed.GetValue(top)));
             var designPath = parsed.GetValue(design)!.ToString();
             outputs.Write(parsed, () => FixedResistorJson.Write(ranked, loaded, options, designPath),
                 () => FixedResistorReport.Build(ranked, loaded, options, designPath, parsed.GetValue(top)));
@@ -71,23 +71,4 @@ internal static class ChooseFixedCommand
         });
         return command;
     }
-
-    private static string Render(FrontEndDesign design, ESeries series, FixedResistorObjective goal, IReadOnlyList<FixedResistorCandidate> ranked, int top)
-    {
-        var text = new StringBuilder();
-        text.AppendLine(FormattableString.Invariant($"{design.Name}: {ranked.Count} {series} candidates, ranked by {Describe(goal)}; now {Ohms(design.Divider.FixedResistorOhms)}"));
-        var table = new TextTable("rank", "R_fixed", "worst error (K)", "at (°C)", "worst K/LSB", "|dV/dT| (mV/K)", "self-heating (mK)", "budget");
-        foreach (var (c, i) in ranked.Take(Math.Max(1, top)).Select((c, i) => (c, i)))
-            table.AddRow((i + 1).ToString(CultureInfo.InvariantCulture), Ohms(c.Ohms), F(c.WorstErrorKelvin, "0.000"), F(c.WorstErrorCelsius, "0.##"),
-                F(c.WorstKelvinPerLsb, "0.0000"), F(c.SlopeVoltsPerKelvin * 1e3, "0.000"), F(c.MaximumSelfHeatingKelvin * 1e3, "0.0"),
-                goal == FixedResistorObjective.SlopeAt ? "-" : c.WithinBudget ? "within" : "over");
-        text.Append(table);
-        return text.ToString();
-    }
-
-    private static string Describe(FixedResistorObjective goal) => FixedResistorReport.Describe(goal);
-
-    private static string Ohms(double v) => EngineeringFormat.Format(v, UnitKind.Ohm, 3);
-
-    private static string F(double v, string format) => double.IsFinite(v) ? v.ToString(format, CultureInfo.InvariantCulture) : "-";
 }

@@ -1,7 +1,9 @@
 using System.CommandLine;
+using ThermVerify.Api;
 using ThermVerify.Check;
 using ThermVerify.Design;
 using ThermVerify.Reporting;
+using ThermVerify.Reporting.Text;
 
 namespace ThermVerify.Cli;
 
@@ -22,10 +24,9 @@ internal static class CompareCommand
         command.SetAction((parsed, cancel) =>
         {
             var options = new CheckOptions { Threads = parsed.GetValue(threads), ComputeRemedies = !parsed.GetValue(noRemedies), Cancel = cancel };
-            var a = FrontEndCheck.Run(DesignLoader.Load(parsed.GetValue(first)!.FullName), options);
-            var b = FrontEndCheck.Run(DesignLoader.Load(parsed.GetValue(second)!.FullName), options);
-            parsed.InvocationConfiguration.Output.Write(ComparisonText.Render(a, b));
-            return Task.FromResult(a.Passed && b.Passed ? ExitCodes.Success : ExitCodes.CheckFailed);
+            var pair = Verifier.Compare(Verifier.LoadDesign(parsed.GetValue(first)!.FullName), Verifier.LoadDesign(parsed.GetValue(second)!.FullName), options);
+            parsed.InvocationConfiguration.Output.Write(ComparisonText.Render(pair.First, pair.Second));
+            return Task.FromResult(pair.BothPass ? ExitCodes.Success : ExitCodes.CheckFailed);
         });
         return command;
     }

@@ -1,4 +1,5 @@
 using System.CommandLine;
+using ThermVerify.Api;
 using ThermVerify.Design;
 using ThermVerify.Files;
 using ThermVerify.FrontEnd;
@@ -38,7 +39,7 @@ internal static class DeckCommand
                 "noise" => DeckAnalysis.Noise,
                 _ => DeckAnalysis.Dc,
             };
-            var deck = FrontEndDecks.Write(loaded, which, new DeckOptions
+            var deck = Verifier.Deck(loaded, which, new DeckOptions
             {
                 TemperatureCelsius = parsed.GetValue(temperature),
                 Conversions = parsed.GetValue(conversions),

@@ -1,5 +1,6 @@
 using ThermVerify.Check.Buffer;
 using ThermVerify.Design;
+using ThermVerify.Firmware;
 using ThermVerify.FrontEnd;
 
 namespace ThermVerify.Check;
@@ -36,6 +37,9 @@ public sealed record CheckResult(
 {
     /// <summary>The op-amp buffer's own sections (stability, headroom, static errors, recovery, noise) when the design has one.</summary>
     public Buffer.BufferReport? Buffer { get; init; }
+
+    /// <summary>The codes a broken sensor or fixed resistor produce and the thresholds that catch them; null when the tolerances leave no room.</summary>
+    public FaultThresholds? Faults { get; init; }
 
     public bool Passed => Points.All(p => p.WithinBudget) && Findings.All(f => f.Severity != Severity.Fail);
 

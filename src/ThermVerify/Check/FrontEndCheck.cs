@@ -1,5 +1,6 @@
 using ThermVerify.Check.Buffer;
 using ThermVerify.Design;
+using ThermVerify.Firmware;
 using ThermVerify.FrontEnd;
 using ThermVerify.Sensors;
 
@@ -47,6 +48,7 @@ public static class FrontEndCheck
         return new CheckResult(design, model.Sensor.Description, model.Adc, points, sampling, [.. findings, .. buffer?.Findings ?? []], waveform)
         {
             Buffer = buffer,
+            Faults = FaultThresholdsOrNull(design),
         };
     }
 
@@ -66,6 +68,22 @@ public static class FrontEndCheck
         var quantisation = model.ReportedCelsius(model.Adc.Code(sampleVolts)) - model.CelsiusAtVolts(sampleVolts);
         var parts = new[] { quantisation, loading, settling, buffer }.Select(k => double.IsFinite(k) ? k : 0).ToArray();
         return new ErrorContributions(parts[0], parts[1], parts[2], parts[3], error - parts.Sum());
+    }
+
+    /// <summary>
+    /// The codes an open or shorted sensor or fixed resistor produce, and thresholds with margin; none when the
+    /// tolerances leave no room between a fault and a healthy reading (the table command explains why).
+    /// </summary>
+    private static FaultThresholds? FaultThresholdsOrNull(FrontEndDesign design)
+    {
+        try
+        {
+            return FaultAnalysis.Thresholds(FirmwareFromDesign.Model(design, correctForLoading: false), FirmwareFromDesign.Tolerances(design));
+        }
+        catch (FirmwareInputException)
+        {
+            return null;
+        }
     }
 
     private sealed record CaseResult(DcSweepCase Dc, SamplingOutcome[] Sampling, double[] FirstOffsetVolts, double[] SteadyOffsetVolts);

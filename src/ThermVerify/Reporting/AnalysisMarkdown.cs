@@ -1,4 +1,5 @@
 using System.Text;
+using ThermVerify.Reporting.Text;
 using static ThermVerify.Reporting.ReportMarkdown;
 
 namespace ThermVerify.Reporting;

@@ -1,5 +1,6 @@
 using System.Net;
 using System.Text;
+using ThermVerify.Reporting.Text;
 using ThermVerify.Check.Buffer;
 
 namespace ThermVerify.Reporting;

@@ -1,4 +1,5 @@
 using System.Text.Json;
+using ThermVerify.Reporting.Text;
 using ThermVerify.Check;
 using ThermVerify.Firmware;
 
@@ -13,13 +14,13 @@ public static class CheckJson
 {
     public const string Schema = "thermverify.check/1";
 
-    public static string Write(CheckResult result, string? designPath = null, FaultThresholds? faults = null) =>
-        JsonSerializer.Serialize(ToDocument(result, designPath, faults), ReportJson.Options);
+    public static string Write(CheckResult result, string? designPath = null) =>
+        JsonSerializer.Serialize(ToDocument(result, designPath, result.Faults), ReportJson.Options);
 
     private static object ToDocument(CheckResult r, string? designPath, FaultThresholds? faults) => new
     {
         schema = Schema,
-        tool = new { name = "thermverify", version = ToolVersion() },
+        tool = new { name = "thermverify", version = Provenance.ToolVersion.Current },
         design = new { name = r.Design.Name, file = designPath, sensor = r.SensorDescription },
         verdict = new
         {
@@ -121,5 +122,4 @@ public static class CheckJson
 
     private static double? N(double? value) => ReportJson.N(value);
 
-    public static string ToolVersion() => ReportJson.ToolVersion();
 }

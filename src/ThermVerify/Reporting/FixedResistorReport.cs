@@ -1,4 +1,5 @@
 using System.Globalization;
+using ThermVerify.Reporting.Text;
 using ThermVerify.Design;
 using ThermVerify.FrontEnd;
 using ThermVerify.Quantities;
@@ -37,7 +38,7 @@ public static class FixedResistorReport
         return new AnalysisReport($"thermverify choose-fixed: {design.Name}", design.Description, verdict, null,
             [.. ReportFormat.Settings(design, model.Sensor.Description, model.Adc)], designFile,
             [FixedResistorPlot.Render(ranked, options.Objective, present, design.Check.BudgetKelvin, design.Name)], sections,
-            DesignWriter.ToToml(design), ReportJson.ToolVersion(), FixedResistorJson.Schema);
+            DesignWriter.ToToml(design), Provenance.ToolVersion.Current, FixedResistorJson.Schema);
     }
 
     public static string Describe(FixedResistorObjective goal) => goal switch

@@ -1,6 +1,6 @@
 using System.Text;
 
-namespace ThermVerify.Reporting;
+namespace ThermVerify.Reporting.Text;
 
 /// <summary>A plain-text table for terminals and logs: right-aligned numbers, left-aligned text.</summary>
 public sealed class TextTable(params string[] headers)

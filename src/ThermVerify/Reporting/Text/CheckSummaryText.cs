@@ -4,7 +4,7 @@ using ThermVerify.Check;
 using ThermVerify.Design;
 using ThermVerify.Quantities;
 
-namespace ThermVerify.Reporting;
+namespace ThermVerify.Reporting.Text;
 
 /// <summary>The compact terminal summary of a check: verdict, a contribution table at a handful of temperatures, findings.</summary>
 public static class CheckSummaryText
@@ -27,11 +27,7 @@ public static class CheckSummaryText
         text.AppendLine();
 
         var worst = result.Worst;
-        var over = result.Points.Count(p => !p.WithinBudget);
-        text.AppendLine(result.Passed
-            ? $"PASS: worst reported error {K(worst.ErrorKelvin)} at {C(worst.Celsius)} (budget {K(worst.BudgetKelvin, signed: false)})"
-            : $"FAIL: worst reported error {K(worst.ErrorKelvin)} at {C(worst.Celsius)} (budget {K(worst.BudgetKelvin, signed: false)}); " +
-              $"{over} of {result.Points.Count} points over budget, {result.Findings.Count(f => f.Severity == Severity.Fail)} failing finding(s)");
+        text.Append(VerdictLine(result));
         text.AppendLine();
 
         text.AppendLine("Reported-temperature error and its causes (K):");
@@ -49,8 +45,24 @@ public static class CheckSummaryText
         else text.AppendLine("Findings:");
         foreach (var f in result.Findings) AppendFinding(text, f);
         text.AppendLine();
+        if (result.Faults is { } faults)
+        {
+            text.AppendLine(FaultText.Render(faults));
+            text.AppendLine();
+        }
         text.AppendLine(Caution);
         return text.ToString();
+    }
+
+    /// <summary>The PASS or FAIL line alone, as printed under the header (and alone with --quiet).</summary>
+    public static string VerdictLine(CheckResult result)
+    {
+        var worst = result.Worst;
+        var over = result.Points.Count(p => !p.WithinBudget);
+        return (result.Passed
+            ? $"PASS: worst reported error {K(worst.ErrorKelvin)} at {C(worst.Celsius)} (budget {K(worst.BudgetKelvin, signed: false)})"
+            : $"FAIL: worst reported error {K(worst.ErrorKelvin)} at {C(worst.Celsius)} (budget {K(worst.BudgetKelvin, signed: false)}); " +
+              $"{over} of {result.Points.Count} points over budget, {result.Findings.Count(f => f.Severity == Severity.Fail)} failing finding(s)") + Environment.NewLine;
     }
 
     private static void AppendFinding(StringBuilder text, Finding f)

@@ -4,7 +4,7 @@ using ThermVerify.Check;
 using ThermVerify.Check.Buffer;
 using ThermVerify.Quantities;
 
-namespace ThermVerify.Reporting;
+namespace ThermVerify.Reporting.Text;
 
 /// <summary>
 /// Two checks side by side (an unbuffered design against a buffered one, or two op-amps): the verdicts, the same

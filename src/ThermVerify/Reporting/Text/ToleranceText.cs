@@ -1,7 +1,7 @@
 using System.Globalization;
 using ThermVerify.Tolerances;
 
-namespace ThermVerify.Reporting;
+namespace ThermVerify.Reporting.Text;
 
 /// <summary>Tolerances in the words and units a designer writes them in: fractions in %, tempcos in ppm/K.</summary>
 public static class ToleranceText

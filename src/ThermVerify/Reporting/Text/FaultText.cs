@@ -1,6 +1,6 @@
 using ThermVerify.Firmware;
 
-namespace ThermVerify.Reporting;
+namespace ThermVerify.Reporting.Text;
 
 /// <summary>Fault thresholds in words, for the terminal summary of `check` and the JSON.</summary>
 public static class FaultText

@@ -1,0 +1,43 @@
+using System.Text;
+using ThermVerify.Quantities;
+using ThermVerify.Sensors;
+using static ThermVerify.Reporting.Text.TextNumbers;
+
+namespace ThermVerify.Reporting.Text;
+
+/// <summary>What `fit` prints: the Beta and Steinhart–Hart coefficients and every point's residual under each.</summary>
+public static class FitText
+{
+    public static string Render(SensorFitSummary summary)
+    {
+        var text = new StringBuilder();
+        text.AppendLine($"Beta (from the outermost points): β = {Format(summary.Beta.Model.Beta, "0.###")} K, " +
+                        $"R0 = {EngineeringFormat.Format(summary.Beta.Model.R0Ohms, UnitKind.Ohm, 6)} at {Format(summary.Beta.Model.T0Celsius, "0.###")} °C");
+        AppendFit(text, "Steinhart–Hart (A + B ln R + C ln³R)", summary.SteinhartHart);
+        AppendFit(text, "Steinhart–Hart with squared term (+ D ln²R)", summary.SteinhartHartWithSquaredTerm);
+        text.AppendLine();
+
+        var table = new TextTable(["T (°C)", "R", "Beta residual (K)",
+            .. summary.SteinhartHart is null ? Array.Empty<string>() : ["S–H residual (K)"],
+            .. summary.SteinhartHartWithSquaredTerm is null ? Array.Empty<string>() : ["S–H4 residual (K)"]]);
+        for (var i = 0; i < summary.Points.Count; i++)
+        {
+            var p = summary.Points[i];
+            table.AddRow([Format(p.Celsius, "0.###"), EngineeringFormat.Format(p.Ohms, UnitKind.Ohm, 6), Format(summary.Beta.ResidualsKelvin[i], "0.00000"),
+                .. summary.SteinhartHart is null ? Array.Empty<string>() : [Format(summary.SteinhartHart.ResidualsKelvin[i], "0.0000000")],
+                .. summary.SteinhartHartWithSquaredTerm is null ? Array.Empty<string>() : [Format(summary.SteinhartHartWithSquaredTerm.ResidualsKelvin[i], "0.0000000")]]);
+        }
+        text.Append(table);
+        return text.ToString();
+    }
+
+    private static void AppendFit(StringBuilder text, string title, SensorFit<SteinhartHartThermistor>? fit)
+    {
+        if (fit is null) return;
+        var m = fit.Model;
+        text.AppendLine($"{title}: A = {Scientific(m.A)}, B = {Scientific(m.B)}, C = {Scientific(m.C)}" + (m.D != 0 ? $", D = {Scientific(m.D)}" : "") +
+                        $"; worst residual {Format(fit.MaxAbsResidualKelvin, "G3")} K");
+    }
+
+    private static string Scientific(double value) => Format(value, "0.0000000000E+0");
+}
