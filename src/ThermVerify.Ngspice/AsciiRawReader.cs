@@ -4,7 +4,7 @@ using System.Numerics;
 namespace ThermVerify.Ngspice;
 
 /// <summary>Reads ngspice's ASCII raw file (several plots, each: header, Variables:, Values:).</summary>
-public static class AsciiRawReader
+internal static class AsciiRawReader
 {
     public static List<NgspicePlot> Read(string text)
     {

@@ -39,7 +39,7 @@ public sealed class NgspiceEngine : ICheckEngine
 
     public string Name => Mode == NgspiceMode.SharedLibrary ? "ngspice" : "ngspice (child process)";
 
-    public IReadOnlyList<double[]> TemperatureSweep(Circuit circuit, IReadOnlyList<double> temperaturesCelsius, IReadOnlyList<string> nodes)
+    IReadOnlyList<double[]> ICheckEngine.TemperatureSweep(Circuit circuit, IReadOnlyList<double> temperaturesCelsius, IReadOnlyList<string> nodes)
     {
         var sweep = DcTemperatureSweep.From(temperaturesCelsius);
         var plot = Run(SpiceDeckWriter.Write(circuit, sweep, new SpiceDeckHeader("thermverify temperature sweep"))).Plot("dc");
@@ -52,10 +52,10 @@ public sealed class NgspiceEngine : ICheckEngine
         return [.. nodes.Select(n => plot[n].Real[..sweep.Points])];
     }
 
-    public ISampledTransient StartTransient(Circuit circuit, TransientOptions options) => new SampledRun(this, circuit, options);
+    ISampledTransient ICheckEngine.StartTransient(Circuit circuit, TransientOptions options) => new SampledRun(this, circuit, options);
 
     /// <summary>Runs a deck the way this engine was asked to, or in a child process when it includes a user's file.</summary>
-    public NgspiceResult Run(string deck) =>
+    internal NgspiceResult Run(string deck) =>
         Mode == NgspiceMode.ChildProcess || deck.Contains("\n.include", StringComparison.OrdinalIgnoreCase)
             ? NgspiceProcess.Run(deck)
             : NgspiceSession.Run(deck);

@@ -4,7 +4,7 @@ using System.Runtime.InteropServices;
 namespace ThermVerify.Ngspice;
 
 /// <summary>Finds the ngspice shared library, which is optional: thermverify runs without it.</summary>
-public static class NgspiceLibrary
+internal static class NgspiceLibrary
 {
     /// <summary>How to get the library on the systems we know of.</summary>
     public const string InstallHint =

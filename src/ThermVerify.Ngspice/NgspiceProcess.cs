@@ -6,7 +6,7 @@ namespace ThermVerify.Ngspice;
 /// Runs a deck in a child <c>ngspice -b</c> process: slower than the shared library, but a deck that would bring
 /// the engine down cannot take thermverify with it.
 /// </summary>
-public static class NgspiceProcess
+internal static class NgspiceProcess
 {
     public const string InstallHint =
         "the ngspice program was not found on PATH; install it, on Debian or Ubuntu with 'apt-get install ngspice'";

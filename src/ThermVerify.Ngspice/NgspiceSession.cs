@@ -8,7 +8,7 @@ namespace ThermVerify.Ngspice;
 /// not reentrant, so every call is serialised; a deck that made the instance unusable is reported, and later
 /// calls are refused (use <see cref="NgspiceProcess"/> to isolate such decks).
 /// </summary>
-public static unsafe class NgspiceSession
+internal static unsafe class NgspiceSession
 {
     private static readonly Lock Gate = new();
     private static readonly List<string> Output = [];

@@ -9,7 +9,7 @@ namespace ThermVerify.Check;
 /// Martin), charge sharing with a reservoir, and single-pole settling without one (the dominant pole from the sum
 /// of open-circuit time constants, R_s·(C_sh + C_pin) + R_on·C_sh; exact for C_pin = 0).
 /// </summary>
-public static class EffectEstimator
+internal static class EffectEstimator
 {
     public static EffectEstimates At(FrontEndDesign design, ClosedFormPoint point, double dcPinVolts, double? prechargeVolts)
     {

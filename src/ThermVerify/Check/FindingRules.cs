@@ -8,7 +8,7 @@ namespace ThermVerify.Check;
 /// where the budget is broken at a temperature where the effect is that large, and warns otherwise. The budget
 /// itself is a finding of its own when broken.
 /// </summary>
-public static class FindingRules
+internal static class FindingRules
 {
     public static IReadOnlyList<Finding> Evaluate(FrontEndDesign design, ClosedFormModel model, IReadOnlyList<CheckPoint> points, CheckOptions options)
     {

@@ -12,7 +12,7 @@ namespace ThermVerify.Check;
 /// steady-state samples; each point's sample goes through the ideal ADC and the firmware's inverse, and the
 /// reported error is split into its causes. Findings and remedies follow from the points.
 /// </summary>
-public static class FrontEndCheck
+internal static class FrontEndCheck
 {
     public static CheckResult Run(FrontEndDesign design, CheckOptions? options = null)
     {

@@ -1,7 +1,7 @@
 namespace ThermVerify.Check;
 
 /// <summary>Bisection for a threshold of a monotone yes/no question, in log space (values spanning decades).</summary>
-public static class MonotoneSearch
+internal static class MonotoneSearch
 {
     /// <summary>
     /// The smallest x in [low, high] with passes(x) true, assuming false below a threshold and true above it;

@@ -9,7 +9,7 @@ namespace ThermVerify.Check;
 /// sample at the worst temperature and precharge) for the value that just meets ½ LSB. A closed-form estimate is
 /// given beside each as a cross-check.
 /// </summary>
-public static class Remedies
+internal static class Remedies
 {
     /// <summary>The settling error of a design at one temperature and precharge: the worse of first and steady sample, minus the DC pin voltage.</summary>
     public static double SettlingErrorVolts(FrontEndDesign design, double celsius, double? prechargeVolts, double settleVolts,

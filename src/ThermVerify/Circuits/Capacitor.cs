@@ -6,7 +6,7 @@ namespace ThermVerify.Circuits;
 /// Capacitor. <see cref="InitialVoltage"/> (V(A) − V(B) at the start) is used when a transient runs
 /// with <c>UseInitialConditions</c>; otherwise the start comes from the operating point.
 /// </summary>
-public sealed record Capacitor(string Name, string NodeA, string NodeB, double CapacitanceFarads,
+internal sealed record Capacitor(string Name, string NodeA, string NodeB, double CapacitanceFarads,
     double? InitialVoltage = null) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [NodeA, NodeB];

@@ -6,7 +6,7 @@ namespace ThermVerify.Circuits;
 /// Independent current source: the current flows from Positive through the source to Negative
 /// (SPICE convention), i.e. it is drawn out of Positive and pushed into Negative.
 /// </summary>
-public sealed record CurrentSource(string Name, string Positive, string Negative, Waveform Waveform,
+internal sealed record CurrentSource(string Name, string Positive, string Negative, Waveform Waveform,
     double AcMagnitude = 0, double AcPhaseDegrees = 0) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [Positive, Negative];

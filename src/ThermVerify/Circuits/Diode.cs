@@ -9,7 +9,7 @@ namespace ThermVerify.Circuits;
 /// otherwise it is used as given at every temperature. No junction capacitance, no breakdown.
 /// Meant for input clamps.
 /// </summary>
-public sealed record Diode(string Name, string Anode, string Cathode, double SaturationCurrentAmperes = 1e-14,
+internal sealed record Diode(string Name, string Anode, string Cathode, double SaturationCurrentAmperes = 1e-14,
     double EmissionCoefficient = 1, double SeriesResistanceOhms = 0) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [Anode, Cathode];

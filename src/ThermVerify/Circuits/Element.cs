@@ -4,7 +4,7 @@ namespace ThermVerify.Circuits;
 /// A circuit element on named nodes ("0" is ground). Records are immutable; how an element enters the
 /// matrix belongs to the engine that runs it (the built-in engine's stamps live in Simulation/Stamps).
 /// </summary>
-public abstract record Element(string Name)
+internal abstract record Element(string Name)
 {
     /// <summary>Every terminal, in the element's own order (controlling terminals included).</summary>
     public abstract IReadOnlyList<string> Nodes { get; }

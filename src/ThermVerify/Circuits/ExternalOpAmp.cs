@@ -8,7 +8,7 @@ namespace ThermVerify.Circuits;
 /// supply, output (the usual order of five-pin op-amp subcircuits). Only a SPICE engine can run it; the built-in
 /// engine refuses it with <see cref="EngineUnsupportedException"/>.
 /// </summary>
-public sealed record ExternalOpAmp(string Name, string NonInverting, string Inverting, string Output,
+internal sealed record ExternalOpAmp(string Name, string NonInverting, string Inverting, string Output,
     string SubcircuitPath, string SubcircuitName, double SupplyLowVolts, double SupplyHighVolts) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [NonInverting, Inverting, Output];

@@ -4,7 +4,7 @@ namespace ThermVerify.Circuits;
 /// An unknown an element adds beside its nodes: a branch current (voltage sources, inductors, controlled voltage
 /// sources) or an internal node. Every nodal engine numbers these; the label names it in messages and results.
 /// </summary>
-public readonly record struct ExtraUnknown(string Label, bool IsCurrent)
+internal readonly record struct ExtraUnknown(string Label, bool IsCurrent)
 {
     public static ExtraUnknown Current(string label) => new(label, true);
 

@@ -3,7 +3,7 @@ using ThermVerify.Circuits.Spice;
 namespace ThermVerify.Circuits;
 
 /// <summary>Inductor; current flows from A to B through it. A short at DC.</summary>
-public sealed record Inductor(string Name, string NodeA, string NodeB, double InductanceHenries,
+internal sealed record Inductor(string Name, string NodeA, string NodeB, double InductanceHenries,
     double? InitialCurrent = null) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [NodeA, NodeB];

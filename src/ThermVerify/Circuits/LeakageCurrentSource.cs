@@ -7,7 +7,7 @@ namespace ThermVerify.Circuits;
 /// description of an input pin's leakage (common practice, no source). Direction as for
 /// <see cref="CurrentSource"/>: out of Positive, into Negative; a pin leaking to ground is (pin, "0").
 /// </summary>
-public sealed record LeakageCurrentSource(string Name, string Positive, string Negative,
+internal sealed record LeakageCurrentSource(string Name, string Positive, string Negative,
     double CurrentAt25CelsiusAmperes, double DoublingKelvin = 10) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [Positive, Negative];

@@ -13,7 +13,7 @@ namespace ThermVerify.Circuits;
 /// range are reported as warnings, not errors. Noise: input voltage and current noise densities, each
 /// white with a 1/f corner, e²(f) = e_w²·(1 + f_c/f).
 /// </summary>
-public sealed record OpAmp(string Name, string NonInverting, string Inverting, string Output) : Element(Name)
+internal sealed record OpAmp(string Name, string NonInverting, string Inverting, string Output) : Element(Name)
 {
     public double OpenLoopGain { get; init; } = 1e5;
 

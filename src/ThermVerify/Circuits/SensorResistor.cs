@@ -4,7 +4,7 @@ using ThermVerify.Sensors;
 namespace ThermVerify.Circuits;
 
 /// <summary>A resistive temperature sensor at the circuit temperature: R = sensor.ResistanceOhms(T).</summary>
-public sealed record SensorResistor(string Name, string NodeA, string NodeB, ISensorModel Sensor) : Element(Name)
+internal sealed record SensorResistor(string Name, string NodeA, string NodeB, ISensorModel Sensor) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [NodeA, NodeB];
 

@@ -6,7 +6,7 @@ namespace ThermVerify.Circuits;
 /// A switch driven by time alone: <see cref="OnResistanceOhms"/> while the schedule says closed,
 /// <see cref="OffResistanceOhms"/> otherwise. Edges are exact breakpoints; there is no control voltage.
 /// </summary>
-public sealed record TimedSwitch(string Name, string NodeA, string NodeB, double OnResistanceOhms,
+internal sealed record TimedSwitch(string Name, string NodeA, string NodeB, double OnResistanceOhms,
     double OffResistanceOhms, SwitchSchedule Schedule) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [NodeA, NodeB];

@@ -6,7 +6,7 @@ namespace ThermVerify.Circuits;
 /// Voltage-controlled current source: a current Gm·(V(CP) − V(CN)) flows from Positive through the
 /// source to Negative (SPICE convention).
 /// </summary>
-public sealed record Vccs(string Name, string Positive, string Negative, string ControlPositive,
+internal sealed record Vccs(string Name, string Positive, string Negative, string ControlPositive,
     string ControlNegative, double TransconductanceSiemens) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [Positive, Negative, ControlPositive, ControlNegative];

@@ -3,7 +3,7 @@ using ThermVerify.Circuits.Spice;
 namespace ThermVerify.Circuits;
 
 /// <summary>Voltage-controlled voltage source: V(P) − V(N) = Gain·(V(CP) − V(CN)).</summary>
-public sealed record Vcvs(string Name, string Positive, string Negative, string ControlPositive,
+internal sealed record Vcvs(string Name, string Positive, string Negative, string ControlPositive,
     string ControlNegative, double Gain) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [Positive, Negative, ControlPositive, ControlNegative];

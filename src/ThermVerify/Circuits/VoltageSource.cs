@@ -6,7 +6,7 @@ namespace ThermVerify.Circuits;
 /// Independent voltage source: V(Positive) − V(Negative) = waveform(t). Its branch current flows from
 /// Positive through the source to Negative (SPICE convention). <see cref="AcMagnitude"/> drives AC analysis.
 /// </summary>
-public sealed record VoltageSource(string Name, string Positive, string Negative, Waveform Waveform,
+internal sealed record VoltageSource(string Name, string Positive, string Negative, Waveform Waveform,
     double AcMagnitude = 0, double AcPhaseDegrees = 0) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [Positive, Negative];

@@ -6,7 +6,7 @@ namespace ThermVerify.Design;
 /// Loads a design file strictly: unknown keys, missing required keys, wrong units and impossible values
 /// are all <see cref="DesignException"/>s with file, line, column and a hint. See docs/design-file.md.
 /// </summary>
-public static class DesignLoader
+internal static class DesignLoader
 {
     private static readonly string[] TopKeys = ["name", "description", "sensor", "divider", "buffer", "filter", "adc", "check", "tolerances"];
 

@@ -3,7 +3,7 @@ using System.Text.RegularExpressions;
 namespace ThermVerify.Firmware;
 
 /// <summary>C identifiers made from a design's name.</summary>
-public static partial class CIdentifiers
+internal static partial class CIdentifiers
 {
     /// <summary>Lower case, runs of other characters as one underscore, a letter first, at most 31 characters (C99's significant length).</summary>
     public static string PrefixFor(string designName)

@@ -9,7 +9,7 @@ namespace ThermVerify.Firmware;
 /// divider, two rows swapped, one row out of place, rows out of code order. A cause is named only when assuming it
 /// brings every row within the budget.
 /// </summary>
-public static class TableVerifier
+internal static class TableVerifier
 {
     /// <summary>Wide valid range for candidate β models, so a candidate never refuses a row the fit needs to see.</summary>
     private static readonly TemperatureRange CandidateRange = new(-150, 400);

@@ -4,7 +4,7 @@ using ThermVerify.Sensors;
 namespace ThermVerify.FrontEnd;
 
 /// <summary>What the hand calculation and the firmware assume at one temperature.</summary>
-public readonly record struct ClosedFormPoint(
+internal readonly record struct ClosedFormPoint(
     double Celsius,
     double SensorOhms,
     double IdealVolts,
@@ -16,7 +16,7 @@ public readonly record struct ClosedFormPoint(
 /// The model hand calculations and firmware use: an unloaded divider, an ideal ADC (see <see cref="AdcTransfer"/>)
 /// and the firmware's inverse, code → voltage → sensor resistance → temperature with the nominal sensor model.
 /// </summary>
-public sealed class ClosedFormModel
+internal sealed class ClosedFormModel
 {
     public ClosedFormModel(FrontEndDesign design)
     {

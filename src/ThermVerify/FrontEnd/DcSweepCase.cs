@@ -7,7 +7,7 @@ namespace ThermVerify.FrontEnd;
 /// The temperature sweep of the DC circuit for one precharge case: divider, op-amp output and pin voltages, with
 /// and without the average sampling current (so that its share can be reported on its own).
 /// </summary>
-public sealed record DcSweepCase(
+internal sealed record DcSweepCase(
     double? PrechargeVolts,
     double[] DividerVolts,
     double[] BufferVolts,

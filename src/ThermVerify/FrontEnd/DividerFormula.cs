@@ -3,7 +3,7 @@ using ThermVerify.Design;
 namespace ThermVerify.FrontEnd;
 
 /// <summary>The unloaded divider and its inverse (Ohm's law), as hand calculations and firmware assume.</summary>
-public static class DividerFormula
+internal static class DividerFormula
 {
     public static double OutputVolts(SensorSide side, double excitationVolts, double sensorOhms, double fixedOhms) =>
         side == SensorSide.Low

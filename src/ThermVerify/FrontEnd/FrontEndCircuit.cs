@@ -9,7 +9,7 @@ namespace ThermVerify.FrontEnd;
 /// ADC input (pin capacitance, pin leakage, sampling switch and capacitor). One builder, two uses: the DC circuit
 /// for the temperature sweep (sampling replaced by its average current) and the sampling circuit for transients.
 /// </summary>
-public static class FrontEndCircuit
+internal static class FrontEndCircuit
 {
     /// <summary>Off resistance of the ideal switches: an open switch, but a DC path for the solver.</summary>
     public const double SwitchOffOhms = 1e12;

@@ -30,7 +30,7 @@ public sealed record DeckOptions
 /// transient (the first precharge case the check covers), and AC and noise of the DC circuit with the excitation
 /// as the AC input and the ADC pin as the output. The comments name the design and every node.
 /// </summary>
-public static class FrontEndDecks
+internal static class FrontEndDecks
 {
     public const string AcInputSource = "Vexc";
 

@@ -1,7 +1,7 @@
 namespace ThermVerify.FrontEnd;
 
 /// <summary>Node and element names of the circuits built from a design (also used in SPICE decks and reports).</summary>
-public static class FrontEndNodes
+internal static class FrontEndNodes
 {
     /// <summary>Excitation: the top of the divider.</summary>
     public const string Excitation = "exc";

@@ -6,7 +6,8 @@ namespace ThermVerify.FrontEnd;
 /// <summary>
 /// The two simulations a check needs, so that another engine (ngspice) can stand in for the built-in one: the
 /// temperature sweep of a DC circuit, and a transient read at the sample instants. Results are plain voltages, the
-/// same whichever engine produced them.
+/// same whichever engine produced them. Programs choose an engine (<see cref="BuiltInEngine.Instance"/>, or ngspice's);
+/// the simulations themselves are the library's own business, so they are internal.
 /// </summary>
 public interface ICheckEngine
 {
@@ -14,14 +15,14 @@ public interface ICheckEngine
     string Name { get; }
 
     /// <summary>The voltage of each of <paramref name="nodes"/> at every temperature, as SPICE's <c>.dc temp</c>.</summary>
-    IReadOnlyList<double[]> TemperatureSweep(Circuit circuit, IReadOnlyList<double> temperaturesCelsius, IReadOnlyList<string> nodes);
+    internal IReadOnlyList<double[]> TemperatureSweep(Circuit circuit, IReadOnlyList<double> temperaturesCelsius, IReadOnlyList<string> nodes);
 
     /// <summary>A transient of <paramref name="circuit"/> from its operating point, read at rising times.</summary>
-    ISampledTransient StartTransient(Circuit circuit, TransientOptions options);
+    internal ISampledTransient StartTransient(Circuit circuit, TransientOptions options);
 }
 
 /// <summary>A running transient: node voltages at times that never go back.</summary>
-public interface ISampledTransient
+internal interface ISampledTransient
 {
     double VoltageAt(double timeSeconds, string node);
 }
@@ -35,13 +36,13 @@ public sealed class BuiltInEngine : ICheckEngine
 
     public string Name => "built-in";
 
-    public IReadOnlyList<double[]> TemperatureSweep(Circuit circuit, IReadOnlyList<double> temperaturesCelsius, IReadOnlyList<string> nodes)
+    IReadOnlyList<double[]> ICheckEngine.TemperatureSweep(Circuit circuit, IReadOnlyList<double> temperaturesCelsius, IReadOnlyList<string> nodes)
     {
         var result = DcSweep.Temperature(circuit, temperaturesCelsius);
         return [.. nodes.Select(result.Voltage)];
     }
 
-    public ISampledTransient StartTransient(Circuit circuit, TransientOptions options) =>
+    ISampledTransient ICheckEngine.StartTransient(Circuit circuit, TransientOptions options) =>
         new Running(new TransientSimulation(circuit, options));
 
     private sealed class Running(TransientSimulation simulation) : ISampledTransient

@@ -7,7 +7,7 @@ namespace ThermVerify.FrontEnd;
 /// keeps this channel's last sample. "Another channel" without a stated voltage is both extremes, zero and full
 /// scale, and the check reports the worse at each temperature.
 /// </summary>
-public static class PrechargeCases
+internal static class PrechargeCases
 {
     public static IReadOnlyList<double?> For(FrontEndDesign design, double referenceVolts) => design.Adc.Precharge switch
     {

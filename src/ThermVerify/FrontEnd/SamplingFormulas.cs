@@ -4,7 +4,7 @@ namespace ThermVerify.FrontEnd;
 /// Closed-form estimates of what the ideal divider model leaves out at a sampling ADC input. Each is the
 /// textbook first-order result; the verification puts it beside the simulated value.
 /// </summary>
-public static class SamplingFormulas
+internal static class SamplingFormulas
 {
     /// <summary>Residual of a single-pole acquisition: ΔV·e^(−t/τ), τ = (R_source + R_switch)·C_sample.</summary>
     public static double SinglePoleResidualVolts(double stepVolts, double acquisitionSeconds, double tauSeconds) =>

@@ -22,7 +22,7 @@ public sealed record SamplingOutcome(
 /// limit is extrapolated as s_n + Δ_n·r/(1 − r) (Aitken's Δ² process) instead of simulating hundreds of periods,
 /// and the outcome says so.
 /// </summary>
-public static class SamplingRun
+internal static class SamplingRun
 {
     public const int DefaultMaximumConversions = 20000;
 

@@ -8,7 +8,7 @@ namespace ThermVerify.FrontEnd;
 /// interpolated linearly in temperature. Points run in parallel; each is independent, so the result does not
 /// depend on the thread count.
 /// </summary>
-public static class SettlingGrid
+internal static class SettlingGrid
 {
     public static int[] Indices(int pointCount, int maximumPoints)
     {

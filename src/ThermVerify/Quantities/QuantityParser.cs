@@ -16,7 +16,7 @@ namespace ThermVerify.Quantities;
 /// </list>
 /// Passing no accepted kinds accepts any kind.
 /// </summary>
-public static class QuantityParser
+internal static class QuantityParser
 {
     private const string RangeSeparator = "..";
 

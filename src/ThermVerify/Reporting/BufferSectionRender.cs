@@ -6,7 +6,7 @@ using ThermVerify.Check.Buffer;
 namespace ThermVerify.Reporting;
 
 /// <summary>The buffer sections as terminal text, Markdown and HTML fragments.</summary>
-public static class BufferSectionRender
+internal static class BufferSectionRender
 {
     public static string Text(BufferReport? buffer)
     {

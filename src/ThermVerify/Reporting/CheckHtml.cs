@@ -10,7 +10,7 @@ namespace ThermVerify.Reporting;
 /// The report as one self-contained HTML page: styles inline, figures inline as SVG, no script and no outside
 /// reference, so it can be archived as a CI artefact and opened anywhere.
 /// </summary>
-public static class CheckHtml
+internal static class CheckHtml
 {
     public static string Render(CheckReport report)
     {

@@ -8,7 +8,7 @@ namespace ThermVerify.Sensors;
 /// temperature/resistance relationship). Above 0 °C the inverse is the quadratic root; below, Newton from
 /// that root converges in a few steps because the C term is small there.
 /// </remarks>
-public sealed class PlatinumRtd : ISensorModel
+internal sealed class PlatinumRtd : ISensorModel
 {
     public const double IecA = 3.9083e-3;
     public const double IecB = -5.775e-7;

@@ -1,7 +1,7 @@
 namespace ThermVerify.Sensors;
 
 /// <summary>Every fit that a set of calibration points supports, each with its residuals in K.</summary>
-public sealed record SensorFitSummary(
+internal sealed record SensorFitSummary(
     IReadOnlyList<TablePoint> Points,
     SensorFit<BetaThermistor> Beta,
     SensorFit<SteinhartHartThermistor>? SteinhartHart,

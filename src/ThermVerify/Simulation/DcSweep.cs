@@ -7,7 +7,7 @@ namespace ThermVerify.Simulation;
 /// DC sweeps. Each point starts Newton from the previous point's solution; a linear circuit costs one
 /// LU and one substitution per point, with only the temperature- or value-dependent stamps restamped.
 /// </summary>
-public static class DcSweep
+internal static class DcSweep
 {
     public const string TemperatureAnalysisName = "DC temperature sweep";
     public const string ElementAnalysisName = "DC sweep";

@@ -9,7 +9,7 @@ namespace ThermVerify.Simulation;
 /// backward-Euler step; across a trapezoidal step the quadratic whose end slopes are the trapezoidal
 /// derivatives, which passes through both end values.
 /// </summary>
-public sealed class TransientResult
+internal sealed class TransientResult
 {
     private readonly double[] times;
     private readonly double[] values;

@@ -52,7 +52,7 @@ public sealed record FixedResistorCandidate(
 /// the sampling transients on a coarser grid than `check`) and add the sensor's self-heating; the slope objective
 /// is the closed form |dV/dT| = V·R_f/(R_s + R_f)²·|dR_s/dT|, whose maximum over R_f is at R_f = R_s (common practice).
 /// </summary>
-public static class FixedResistorSearch
+internal static class FixedResistorSearch
 {
     /// <summary>Sampling transients per candidate: coarser than `check`, enough to follow a smooth settling error.</summary>
     private const int SamplingPointsPerCandidate = 9;

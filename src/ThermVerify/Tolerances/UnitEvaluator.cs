@@ -15,7 +15,7 @@ namespace ThermVerify.Tolerances;
 /// linear between grid points); at the unit's worst temperature the sampling transient is rerun with the unit's
 /// own parts and replaces them. Thread-safe: the nominal part is computed once in the constructor.
 /// </summary>
-public sealed class UnitEvaluator
+internal sealed class UnitEvaluator
 {
     private readonly CaseOffsets[] cases;
     private readonly ClosedFormPoint[] closedForm;

@@ -7,7 +7,7 @@ namespace ThermVerify.Check.Buffer;
 /// largest settling error). Headroom and static errors use every point of the check; the loop gain the ends and the
 /// middle of the range; noise a grid of five temperatures.
 /// </summary>
-public static class BufferCheck
+internal static class BufferCheck
 {
     private const int NoiseTemperatures = 5;
 

@@ -10,7 +10,7 @@ namespace ThermVerify.Check.Buffer;
 /// the sampling switch's on resistance and the sampling capacitor. The acquisition is the heavier load, so it is
 /// the one stability and noise are judged on.
 /// </summary>
-public static class BufferCircuits
+internal static class BufferCircuits
 {
     /// <summary>The op-amp's element name in every circuit built from a design.</summary>
     public const string OpAmpName = "Xbuffer";

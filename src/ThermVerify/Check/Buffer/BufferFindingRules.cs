@@ -13,7 +13,7 @@ namespace ThermVerify.Check.Buffer;
 /// errors, the buffer's share of the settling error and the sampled noise where each exceeds ½ LSB. Stability has no
 /// voltage size, so its sizes are NaN (null in JSON).
 /// </summary>
-public static class BufferFindingRules
+internal static class BufferFindingRules
 {
     public static IReadOnlyList<Finding> Evaluate(FrontEndDesign design, IReadOnlyList<CheckPoint> points, StabilityReport stability,
         HeadroomResult headroom, IReadOnlyList<StaticErrorPoint> statics, RecoveryResult? recovery, NoiseReport noise)

@@ -44,7 +44,7 @@ public sealed record HeadroomResult(
 /// the closed form meets the limit, not at the nearest grid point. While the output is clipped the ADC reads the
 /// limit's code whatever the temperature.
 /// </summary>
-public static class BufferHeadroom
+internal static class BufferHeadroom
 {
     public static HeadroomResult Run(FrontEndDesign design, IReadOnlyList<double> temperaturesCelsius)
     {

@@ -47,7 +47,7 @@ public sealed record NoiseReport(
 /// ρ = e^(−T_s/τ) with τ = (R_iso + R_filter)·(C_res + C_pin) (single-pole assumption), and the variance of the
 /// mean of N is σ²/N·[1 + 2Σ(1 − k/N)ρ^k]. The white column assumes every sample independent (ρ = 0).
 /// </summary>
-public static class BufferNoise
+internal static class BufferNoise
 {
     public const double FromHertz = 0.1;
     private const int PointsPerDecade = 20;

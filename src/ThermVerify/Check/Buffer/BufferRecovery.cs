@@ -39,7 +39,7 @@ public sealed record RecoveryResult(
 /// ½ LSB: then the filter and the sampling network, not the op-amp, limit. The share is split into the slew-rate part
 /// (the same op-amp without a slew limit) and the bandwidth part (that against the ideal one).
 /// </summary>
-public static class BufferRecovery
+internal static class BufferRecovery
 {
     private const double IdealFactor = 100;
 

@@ -11,7 +11,7 @@ namespace ThermVerify.Check.Buffer;
 /// resistors, reservoir, pin and sampling capacitance, the feedback network) stays as it is. The margins come from
 /// the sweep; the single-pole hand calculation is given beside them.
 /// </summary>
-public static class BufferStability
+internal static class BufferStability
 {
     public const double TargetPhaseMarginDegrees = 60;
 

@@ -23,7 +23,7 @@ public sealed record StaticErrorPoint(
 /// resistance R_th(T) pulls the input down by I·R_th; for a non-inverting stage the inverting pin's current
 /// I_b − I_os/2 flows through the feedback resistor and raises the output by I·R_f.
 /// </summary>
-public static class BufferStaticErrors
+internal static class BufferStaticErrors
 {
     public static IReadOnlyList<StaticErrorPoint> Run(FrontEndDesign design, IReadOnlyList<double> temperaturesCelsius)
     {

@@ -10,7 +10,7 @@ namespace ThermVerify.Check.Buffer;
 /// never slews (its fastest single-pole rate ΔV·2π·GBW stays under half the slew rate), so it shows the linear
 /// loop's damping, which is what the phase margin predicts.
 /// </summary>
-public static class BufferStep
+internal static class BufferStep
 {
     private const double MaximumStepVolts = 0.01;
 

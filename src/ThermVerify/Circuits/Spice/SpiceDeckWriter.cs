@@ -4,7 +4,7 @@ using static ThermVerify.Circuits.Spice.SpiceNumber;
 namespace ThermVerify.Circuits.Spice;
 
 /// <summary>What a deck says about itself: the title line and comments naming the design and each node.</summary>
-public sealed record SpiceDeckHeader(string Title)
+internal sealed record SpiceDeckHeader(string Title)
 {
     public IReadOnlyList<string> Notes { get; init; } = [];
 
@@ -18,7 +18,7 @@ public sealed record SpiceDeckHeader(string Title)
 /// exponent form and sets tolerances tight enough that a SPICE engine reproduces the built-in engine's results to
 /// well within the cross-check limits. Vector names are the node names in lower case (SPICE ignores case).
 /// </summary>
-public static class SpiceDeckWriter
+internal static class SpiceDeckWriter
 {
     /// <summary>The deck's TNOM: the temperature resistor tempcos and sensor expressions are referred to.</summary>
     public const double NominalCelsius = 25;

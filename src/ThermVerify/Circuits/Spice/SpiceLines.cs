@@ -7,7 +7,7 @@ namespace ThermVerify.Circuits.Spice;
 /// separately so the deck lists them after the netlist). Instance names get the SPICE type letter in front when the
 /// element's own name does not start with it, since SPICE decides the element type by that letter.
 /// </summary>
-public sealed class SpiceLines
+internal sealed class SpiceLines
 {
     private readonly StringBuilder netlist = new();
     private readonly List<string> definitions = [];

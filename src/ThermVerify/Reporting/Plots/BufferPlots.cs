@@ -8,7 +8,7 @@ namespace ThermVerify.Reporting.Plots;
 /// The buffer's two views of stability: the loop gain's magnitude and phase margin over frequency (the worst loop),
 /// and the closed-loop small step from the transient.
 /// </summary>
-public static class BufferPlots
+internal static class BufferPlots
 {
     public static IReadOnlyList<RenderedPlot> Render(BufferReport? buffer)
     {

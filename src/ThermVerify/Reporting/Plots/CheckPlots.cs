@@ -3,7 +3,7 @@ using ThermVerify.Check;
 namespace ThermVerify.Reporting.Plots;
 
 /// <summary>Every figure of a check report, in the order the report shows them.</summary>
-public static class CheckPlots
+internal static class CheckPlots
 {
     public static IReadOnlyList<RenderedPlot> Render(CheckResult result)
     {

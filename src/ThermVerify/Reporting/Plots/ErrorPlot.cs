@@ -4,7 +4,7 @@ using ThermVerify.Check;
 namespace ThermVerify.Reporting.Plots;
 
 /// <summary>The reported-temperature error against temperature: the budget band, the total and each contribution.</summary>
-public static class ErrorPlot
+internal static class ErrorPlot
 {
     public static RenderedPlot Render(CheckResult result)
     {

@@ -3,7 +3,7 @@ using ThermVerify.Firmware;
 namespace ThermVerify.Reporting.Text;
 
 /// <summary>Fault thresholds in words, for the terminal summary of `check` and the JSON.</summary>
-public static class FaultText
+internal static class FaultText
 {
     public static string Kind(FaultKind kind) => kind switch
     {

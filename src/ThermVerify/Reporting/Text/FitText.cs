@@ -6,7 +6,7 @@ using static ThermVerify.Reporting.Text.TextNumbers;
 namespace ThermVerify.Reporting.Text;
 
 /// <summary>What `fit` prints: the Beta and Steinhart–Hart coefficients and every point's residual under each.</summary>
-public static class FitText
+internal static class FitText
 {
     public static string Render(SensorFitSummary summary)
     {

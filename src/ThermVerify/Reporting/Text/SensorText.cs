@@ -6,7 +6,7 @@ using static ThermVerify.Reporting.Text.TextNumbers;
 namespace ThermVerify.Reporting.Text;
 
 /// <summary>What `sensor` prints: the model, R(T) with slope and α over a range, and T at asked resistances.</summary>
-public static class SensorText
+internal static class SensorText
 {
     public static string Render(ISensorModel model, TemperatureRange range, double stepKelvin, IReadOnlyList<double> resistancesOhms)
     {

@@ -3,7 +3,7 @@ using System.Text;
 namespace ThermVerify.Reporting.Text;
 
 /// <summary>A plain-text table for terminals and logs: right-aligned numbers, left-aligned text.</summary>
-public sealed class TextTable(params string[] headers)
+internal sealed class TextTable(params string[] headers)
 {
     private readonly List<string[]> _rows = [];
 

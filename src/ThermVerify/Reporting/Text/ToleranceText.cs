@@ -4,7 +4,7 @@ using ThermVerify.Tolerances;
 namespace ThermVerify.Reporting.Text;
 
 /// <summary>Tolerances in the words and units a designer writes them in: fractions in %, tempcos in ppm/K.</summary>
-public static class ToleranceText
+internal static class ToleranceText
 {
     public static string HalfWidth(ToleranceParameter p) => p.Unit switch
     {
