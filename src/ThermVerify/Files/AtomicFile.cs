@@ -4,7 +4,7 @@ namespace ThermVerify.Files;
 /// Writes an output file so that readers only ever see the old file or the complete new one: the content goes
 /// to a temporary file in the same folder, which then replaces the target in one rename.
 /// </summary>
-public static class AtomicFile
+internal static class AtomicFile
 {
     public static void WriteAllText(string path, string content, bool overwrite = true) =>
         Write(path, overwrite, temporary => File.WriteAllText(temporary, content));

@@ -3,7 +3,7 @@ using System.Reflection;
 namespace ThermVerify.Provenance;
 
 /// <summary>The version of thermverify that produced an output, as every output names it.</summary>
-public static class ToolVersion
+internal static class ToolVersion
 {
     public static string Current { get; } =
         typeof(ToolVersion).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion ?? "unknown";

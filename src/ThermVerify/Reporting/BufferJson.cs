@@ -1,5 +1,4 @@
 using ThermVerify.Check.Buffer;
-using ThermVerify.Circuits;
 
 namespace ThermVerify.Reporting;
 

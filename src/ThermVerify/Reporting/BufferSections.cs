@@ -1,5 +1,4 @@
 using ThermVerify.Check.Buffer;
-using ThermVerify.Circuits;
 using ThermVerify.Quantities;
 using static ThermVerify.Reporting.ReportFormat;
 

@@ -2,7 +2,6 @@ using System.Globalization;
 using System.Xml.Linq;
 using ThermVerify.Baselines;
 using ThermVerify.Check;
-using ThermVerify.Circuits;
 using static ThermVerify.Reporting.ReportFormat;
 
 namespace ThermVerify.Reporting;

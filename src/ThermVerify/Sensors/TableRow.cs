@@ -1,4 +1,4 @@
 namespace ThermVerify.Sensors;
 
 /// <summary>A table point and where it came from (file line, or 1-based position in a list).</summary>
-public readonly record struct TableRow(TablePoint Point, int Line);
+internal readonly record struct TableRow(TablePoint Point, int Line);

@@ -1,6 +1,5 @@
 using ScottPlot;
 using ThermVerify.Check.Buffer;
-using ThermVerify.Simulation;
 
 namespace ThermVerify.Reporting.Plots;
 
