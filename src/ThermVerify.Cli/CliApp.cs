@@ -36,6 +36,7 @@ public static class CliApp
         if (parsed.Errors.Count > 0)
         {
             foreach (var parseError in parsed.Errors) error.WriteLine($"thermverify: {parseError.Message}");
+            foreach (var hint in Suggestions.For(parsed)) error.WriteLine($"thermverify: {hint}");
             error.WriteLine("Run 'thermverify --help' for the commands and their options.");
             return ExitCodes.BadInput;
         }

@@ -28,6 +28,11 @@ internal static class TableCommand
         {
             design, header, csv, bound, breakpoints, unit, corrected, prefix, force,
         };
+        command.Validators.Add(result =>
+        {
+            if (result.GetValue(bound) is not null && result.GetValue(breakpoints) is not null)
+                result.AddError("--bound and --breakpoints place the breakpoints in two different ways; give one of them");
+        });
         command.SetAction(parsed =>
         {
             var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
