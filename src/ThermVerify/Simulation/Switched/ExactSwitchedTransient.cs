@@ -1,0 +1,365 @@
+using System.Diagnostics.CodeAnalysis;
+using ThermVerify.Circuits;
+using ThermVerify.Simulation.Mna;
+
+namespace ThermVerify.Simulation.Switched;
+
+/// <summary>
+/// Exact transient of a linear switched circuit: between switch edges the circuit is linear and time-invariant, so
+/// the state after an interval h is e^(Ah)·z + ∫₀ʰ e^(As) ds·u (<see cref="IntervalMap"/>), with no time step and no
+/// truncation error; rounding is the only error. All timed switches must follow <see cref="PeriodicSchedule"/>s of one
+/// period, sources must be DC, and the only nonlinear element allowed is the op-amp macro-model, linearised in its
+/// linear region and checked on every interval (<see cref="NotLinearException"/> says where it leaves it, so that the
+/// caller can use <see cref="TransientSimulation"/> there).
+/// <para>
+/// The run starts from the operating point at t = 0 (the engine's DC solver, switches as the schedules have them
+/// at 0), as <see cref="TransientSimulation"/> does. One period's map z_{k+1} = Φ·z_k + c is composed once and reused;
+/// runs of equal periods are jumped with a matrix power; the periodic steady state is one solve of (I − Φ)·z = c.
+/// A value at a switch edge is the limit from before the edge, as the time-stepping engine reports it.
+/// </para>
+/// Objects keep caches and are not thread-safe; make one per thread. Circuit temperature: the circuit's own
+/// (<c>circuit with { TemperatureCelsius = t }</c>).
+/// </summary>
+public sealed class ExactSwitchedTransient
+{
+    public const string AnalysisName = "Exact switched transient";
+
+    /// <summary>Partial-interval maps kept for arbitrary read times before the cache is emptied.</summary>
+    private const int PartialCacheLimit = 256;
+
+    private readonly BoundSystem system;
+    private readonly LinearAssembly assembly;
+    private readonly StateCoordinates coordinates;
+    private readonly PeriodicTimeline timeline;
+    private readonly double[] initialSolution;
+    private readonly double[] initialState;
+    private readonly Dictionary<int, SegmentModel> models = [];
+    private readonly Dictionary<(int Mask, int Interval), IntervalMap> intervalMaps = [];
+    private readonly Dictionary<(int Mask, double Seconds), IntervalMap> partialMaps = [];
+    private readonly Dictionary<string, PeriodMap> periodMaps = [];
+    private double[]? steadyState;
+
+    private ExactSwitchedTransient(Circuit circuit, ExactSwitchedOptions options)
+    {
+        options.Validate();
+        TopologyCheck.Run(circuit);
+        system = new BoundSystem(circuit);
+        assembly = new LinearAssembly(system, options.LinearityToleranceVolts);
+        timeline = new PeriodicTimeline(assembly.Switches);
+        coordinates = new StateCoordinates(assembly.Reactive(), system.Size);
+
+        // The engine's own operating point at t = 0, started from the linear model's DC solution so that an op-amp
+        // circuit needs one or two Newton iterations instead of a search from zero.
+        var seed = assembly.LinearDcSolution(timeline.MaskAt(0));
+        var c = system.Context;
+        c.Mode = AnalysisMode.Dc;
+        c.TimeSeconds = 0;
+        c.StepSeconds = 0;
+        if (seed is not null)
+            Array.Copy(seed, c.Solution, seed.Length);
+        DcSolver.Solve(system, $"{AnalysisName} initial point", null);
+        initialSolution = c.Solution[..system.Size];
+        initialState = coordinates.StateOf(initialSolution);
+    }
+
+    /// <exception cref="NotLinearException">The circuit is outside what exact propagation handles (the message says why).</exception>
+    /// <exception cref="TopologyException">The connections make the circuit unsolvable.</exception>
+    /// <exception cref="SimulationException">The operating point at t = 0 failed.</exception>
+    public static ExactSwitchedTransient Start(Circuit circuit, ExactSwitchedOptions? options = null) =>
+        new(circuit, options ?? new ExactSwitchedOptions());
+
+    /// <summary>As <see cref="Start"/>, but a circuit exact propagation cannot handle gives false and the reason.</summary>
+    public static bool TryStart(Circuit circuit, [NotNullWhen(true)] out ExactSwitchedTransient? run,
+        [NotNullWhen(false)] out NotLinearException? reason, ExactSwitchedOptions? options = null)
+    {
+        try
+        {
+            run = Start(circuit, options);
+            reason = null;
+            return true;
+        }
+        catch (NotLinearException e)
+        {
+            run = null;
+            reason = e;
+            return false;
+        }
+    }
+
+    public double PeriodSeconds => timeline.PeriodSeconds;
+
+    /// <summary>The number of independent energy stores (the length of the state vector).</summary>
+    public int StateCount => coordinates.StateCount;
+
+    /// <summary>The node's voltage at each time (rising, from 0: the operating point), from the start of the run.</summary>
+    /// <exception cref="NotLinearException">An op-amp leaves its linear region before the last time.</exception>
+    public double[] VoltagesAt(IReadOnlyList<double> timesSeconds, string node)
+    {
+        var unknown = UnknownOf(node);
+        var cursor = new Cursor(this);
+        var result = new double[timesSeconds.Count];
+        var previous = 0.0;
+        for (var i = 0; i < result.Length; i++)
+        {
+            var t = timesSeconds[i];
+            if (!double.IsFinite(t) || t < previous)
+                throw new ArgumentException($"Read times must be finite, not negative and not falling; time #{i + 1} is {t:G9} s after {previous:G9} s.", nameof(timesSeconds));
+            previous = t;
+            if (t <= timeline.SnapSeconds)
+            {
+                result[i] = unknown == system.Layout.Ground ? 0 : initialSolution[unknown];
+                continue;
+            }
+            var (period, phase) = PeriodAndPhase(t);
+            result[i] = cursor.ReadAt(period, phase, unknown);
+        }
+        return result;
+    }
+
+    /// <summary>
+    /// The node's voltage when <paramref name="samplingSwitch"/> opens for the (<paramref name="conversion"/> + 1)-th
+    /// time: conversion k of an ADC whose sampling capacitor is read as its switch opens. Runs of equal periods are
+    /// jumped with a matrix power (stepped one by one, with every interval checked, when an op-amp is present).
+    /// </summary>
+    public double SampleVoltage(string samplingSwitch, long conversion, string node)
+    {
+        var unknown = UnknownOf(node);
+        var (period, phase) = Opening(samplingSwitch, conversion);
+        return new Cursor(this).ReadAt(period, phase, unknown);
+    }
+
+    /// <summary>Conversions 0 … count − 1 (see <see cref="SampleVoltage"/>), one period map application each.</summary>
+    public double[] SampleVoltages(string samplingSwitch, int count, string node)
+    {
+        ArgumentOutOfRangeException.ThrowIfNegative(count);
+        var unknown = UnknownOf(node);
+        var cursor = new Cursor(this);
+        var result = new double[count];
+        for (var k = 0; k < count; k++)
+        {
+            var (period, phase) = Opening(samplingSwitch, k);
+            result[k] = cursor.ReadAt(period, phase, unknown);
+        }
+        return result;
+    }
+
+    /// <summary>
+    /// The node's voltage when <paramref name="samplingSwitch"/> opens in the periodic steady state: every schedule
+    /// running for ever (counts ignored), after all transients have died out. One solve of (I − Φ)·z = c.
+    /// A <see cref="LinearityViolation"/> raised here gives times from the start of a steady-state period.
+    /// </summary>
+    public double SteadyStateSampleVoltage(string samplingSwitch, string node)
+    {
+        var unknown = UnknownOf(node);
+        var (_, phase) = Opening(samplingSwitch, 0);
+        return SteadyStateCursor().ReadAt(0, phase, unknown);
+    }
+
+    /// <summary>The node's voltage at a phase in (0, T] of a period of the periodic steady state (see <see cref="SteadyStateSampleVoltage"/>).</summary>
+    public double SteadyStateVoltage(double phaseSeconds, string node)
+    {
+        if (!(phaseSeconds > 0 && phaseSeconds <= PeriodSeconds))
+            throw new ArgumentOutOfRangeException(nameof(phaseSeconds), $"The phase {phaseSeconds:G9} s must lie in (0, {PeriodSeconds:G9}] s.");
+        return SteadyStateCursor().ReadAt(0, phaseSeconds, UnknownOf(node));
+    }
+
+    private Cursor SteadyStateCursor()
+    {
+        if (steadyState is null)
+        {
+            var fixedPoint = PeriodMapOf(timeline.RegularPattern(), 0).FixedPoint();
+            if (assembly.Monitors.Count > 0)
+                new Cursor(this, fixedPoint, regular: true).StepWithin(timeline.PeriodSeconds);
+            steadyState = fixedPoint;
+        }
+        return new Cursor(this, steadyState, regular: true);
+    }
+
+    private int UnknownOf(string node) => system.Layout.IndexOfNode(node);
+
+    /// <summary>t as (period, phase in (0, T]); an instant on a period boundary is the end of the period before it.</summary>
+    private (long Period, double Phase) PeriodAndPhase(double t)
+    {
+        var period = (long)Math.Floor(t / PeriodSeconds);
+        var phase = t - period * PeriodSeconds;
+        if (phase <= timeline.SnapSeconds)
+            return (period - 1, PeriodSeconds);
+        return (period, Math.Min(phase, PeriodSeconds));
+    }
+
+    private (long Period, double Phase) Opening(string switchName, long conversion)
+    {
+        ArgumentOutOfRangeException.ThrowIfNegative(conversion);
+        var sw = assembly.Switches.FirstOrDefault(s => s.Name == switchName)
+            ?? throw new CircuitException($"The circuit has no timed switch named '{switchName}'. Timed switches: {string.Join(", ", assembly.Switches.Select(s => s.Name))}.");
+        var schedule = (PeriodicSchedule)sw.Schedule;
+        if (schedule.Count is { } n && conversion >= n)
+            throw new ArgumentOutOfRangeException(nameof(conversion), $"Switch '{switchName}' opens {n} times; conversion {conversion} (from 0) does not happen.");
+        var (period, phase) = PeriodAndPhase(schedule.DelaySeconds + schedule.ClosedSeconds);
+        return (period + conversion, phase);
+    }
+
+    private SegmentModel ModelOf(int mask)
+    {
+        if (!models.TryGetValue(mask, out var model))
+        {
+            var (g, b) = assembly.Assemble(mask);
+            model = coordinates.Reduce(g, b, () => PeriodicTimeline.Describe(assembly.Switches, mask));
+            models[mask] = model;
+        }
+        return model;
+    }
+
+    private IntervalMap FullMap(int mask, int interval)
+    {
+        if (!intervalMaps.TryGetValue((mask, interval), out var map))
+        {
+            map = IntervalMap.Build(ModelOf(mask), timeline.Durations[interval], assembly.Monitors);
+            intervalMaps[(mask, interval)] = map;
+        }
+        return map;
+    }
+
+    private IntervalMap PartialMap(int mask, double seconds)
+    {
+        if (!partialMaps.TryGetValue((mask, seconds), out var map))
+        {
+            if (partialMaps.Count >= PartialCacheLimit)
+                partialMaps.Clear();
+            map = IntervalMap.Build(ModelOf(mask), seconds, assembly.Monitors);
+            partialMaps[(mask, seconds)] = map;
+        }
+        return map;
+    }
+
+    private PeriodMap PeriodMapOf(int[] pattern, long period)
+    {
+        var key = string.Join(",", pattern);
+        if (!periodMaps.TryGetValue(key, out var map))
+        {
+            map = new PeriodMap(pattern.Select((mask, i) => FullMap(mask, i)), StateCount);
+            periodMaps[key] = map;
+        }
+        return map;
+    }
+
+    /// <summary>
+    /// A position on the timeline — period, interval, time into the interval — and the state there. Moves forward
+    /// only; each step applies an exact interval map (checked first when there are monitors).
+    /// </summary>
+    private sealed class Cursor
+    {
+        private readonly ExactSwitchedTransient run;
+        private readonly PeriodicTimeline timeline;
+        private readonly bool regular;
+        private double[] z;
+        private double[] next;
+        private long period;
+        private int interval;
+        private double elapsed;
+        private int[] pattern;
+
+        public Cursor(ExactSwitchedTransient run) : this(run, run.initialState, regular: false) { }
+
+        public Cursor(ExactSwitchedTransient run, double[] state, bool regular)
+        {
+            this.run = run;
+            timeline = run.timeline;
+            this.regular = regular;
+            z = (double[])state.Clone();
+            next = new double[z.Length];
+            pattern = PatternOf(0);
+        }
+
+        /// <summary>Moves to (period k, phase in (0, T]) and reads an unknown there (limit from the left).</summary>
+        public double ReadAt(long k, double phase, int unknown)
+        {
+            var snap = timeline.SnapSeconds;
+            var (targetPeriod, targetPhase) = phase >= timeline.PeriodSeconds - snap ? (k + 1, 0.0) : (k, phase);
+            if (targetPeriod < period || targetPeriod == period && targetPhase < timeline.Starts[interval] + elapsed - snap)
+                throw new InvalidOperationException("The exact transient was asked to go back in time.");
+            while (period < k)
+            {
+                if (interval == 0 && elapsed == 0)
+                    JumpTowards(k);
+                else
+                    StepWithin(timeline.PeriodSeconds);
+            }
+            if (period == k)
+                StepWithin(phase);
+            if (unknown == run.system.Layout.Ground)
+                return 0;
+            // The cursor may have rolled over to the next period's start; the value belongs to the interval ending at the phase.
+            var endPattern = period == k ? pattern : PatternOf(k);
+            return run.ModelOf(endPattern[timeline.IntervalEndingAt(phase)]).Output(unknown, z);
+        }
+
+        /// <summary>Advances within the present period to a phase in (0, T]; reaching T moves to the next period's start.</summary>
+        public void StepWithin(double phase)
+        {
+            var snap = timeline.SnapSeconds;
+            while (true)
+            {
+                var start = timeline.Starts[interval];
+                var duration = timeline.Durations[interval];
+                var mask = pattern[interval];
+                if (phase >= start + duration - snap)
+                {
+                    Apply(elapsed == 0 ? run.FullMap(mask, interval) : run.PartialMap(mask, duration - elapsed), duration - elapsed);
+                    var last = interval == timeline.IntervalCount - 1;
+                    if (last)
+                    {
+                        period++;
+                        interval = 0;
+                        pattern = PatternOf(period);
+                    }
+                    else
+                        interval++;
+                    elapsed = 0;
+                    if (last || phase <= start + duration + snap)
+                        return;
+                }
+                else
+                {
+                    var h = phase - start - elapsed;
+                    if (h > snap)
+                    {
+                        Apply(run.PartialMap(mask, h), h);
+                        elapsed += h;
+                    }
+                    return;
+                }
+            }
+        }
+
+        /// <summary>From a period start, towards period k: a run of equal periods in one matrix power, unless intervals must be checked.</summary>
+        private void JumpTowards(long k)
+        {
+            var end = regular ? k : Math.Min(k, timeline.NextChange(period));
+            var count = end - period;
+            if (count < 2 || run.assembly.Monitors.Count > 0)
+            {
+                StepWithin(timeline.PeriodSeconds);
+                return;
+            }
+            z = run.PeriodMapOf(pattern, period).Advance(z, count);
+            next = new double[z.Length];
+            period = end;
+            pattern = PatternOf(period);
+        }
+
+        private void Apply(IntervalMap map, double seconds)
+        {
+            if (map.HasChecks)
+            {
+                var from = period * timeline.PeriodSeconds + timeline.Starts[interval] + elapsed;
+                if (map.Check(z, from, seconds) is { } violation)
+                    throw NotLinearException.Leaves(violation);
+            }
+            map.Apply(z, next);
+            (z, next) = (next, z);
+        }
+
+        private int[] PatternOf(long k) => regular ? timeline.RegularPattern() : timeline.Pattern(k);
+    }
+}
