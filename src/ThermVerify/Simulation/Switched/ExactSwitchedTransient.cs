@@ -60,6 +60,11 @@ public sealed class ExactSwitchedTransient
         DcSolver.Solve(system, $"{AnalysisName} initial point", null);
         initialSolution = c.Solution[..system.Size];
         initialState = coordinates.StateOf(initialSolution);
+
+        // Reduce the configurations of the first and of a regular period now, so that a circuit exact propagation
+        // cannot handle is refused here rather than at the first read.
+        foreach (var mask in timeline.Pattern(0).Concat(timeline.RegularPattern()).Distinct())
+            ModelOf(mask);
     }
 
     /// <exception cref="NotLinearException">The circuit is outside what exact propagation handles (the message says why).</exception>
