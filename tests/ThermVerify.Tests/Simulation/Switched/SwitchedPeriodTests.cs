@@ -38,10 +38,10 @@ public class SwitchedPeriodTests
         Tolerance.AssertClose(steady, run.SampleVoltage(FrontEndNodes.SamplingSwitch, 1_000_000, FrontEndNodes.Hold), 1e-12, 0, "limit");
         // Far from the start's 64th conversion: the steady state is not the first samples' value.
         Assert.True(Math.Abs(steady - run.SampleVoltage(FrontEndNodes.SamplingSwitch, 63, FrontEndNodes.Hold)) > 0.05);
-        // Fixed point: the steady-state period ends where it starts. The reservoir pin moves by under 1e-9 V in the
+        // Fixed point: the steady-state period ends where it starts. The reservoir at the pin (the divider node here) moves by under 1e-9 V in the
         // first 2e-6 of the period (its time constant is milliseconds), so start and end agree to that.
         var period = run.PeriodSeconds;
-        Tolerance.AssertClose(run.SteadyStateVoltage(period, FrontEndNodes.Pin), run.SteadyStateVoltage(2e-6 * period, FrontEndNodes.Pin), 0, 1e-9, "pin");
+        Tolerance.AssertClose(run.SteadyStateVoltage(period, FrontEndNodes.Divider), run.SteadyStateVoltage(2e-6 * period, FrontEndNodes.Divider), 0, 1e-9, "pin");
     }
 
     [Fact]
