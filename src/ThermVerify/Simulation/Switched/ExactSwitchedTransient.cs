@@ -263,6 +263,7 @@ public sealed class ExactSwitchedTransient
         private int interval;
         private double elapsed;
         private int[] pattern;
+        private long patternUntil;
 
         public Cursor(ExactSwitchedTransient run) : this(run, run.initialState, regular: false) { }
 
@@ -274,6 +275,17 @@ public sealed class ExactSwitchedTransient
             z = (double[])state.Clone();
             next = new double[z.Length];
             pattern = PatternOf(0);
+            patternUntil = regular ? long.MaxValue : timeline.NextChange(0);
+        }
+
+        /// <summary>The present period's pattern, recomputed only where the timeline says it may change.</summary>
+        private void NewPeriod(long k)
+        {
+            period = k;
+            if (regular || k < patternUntil)
+                return;
+            pattern = timeline.Pattern(k);
+            patternUntil = timeline.NextChange(k);
         }
 
         /// <summary>Moves to (period k, phase in (0, T]) and reads an unknown there (limit from the left).</summary>
@@ -314,9 +326,8 @@ public sealed class ExactSwitchedTransient
                     var last = interval == timeline.IntervalCount - 1;
                     if (last)
                     {
-                        period++;
+                        NewPeriod(period + 1);
                         interval = 0;
-                        pattern = PatternOf(period);
                     }
                     else
                         interval++;
@@ -349,8 +360,7 @@ public sealed class ExactSwitchedTransient
             }
             z = run.PeriodMapOf(pattern, period).Advance(z, count);
             next = new double[z.Length];
-            period = end;
-            pattern = PatternOf(period);
+            NewPeriod(end);
         }
 
         private void Apply(IntervalMap map, double seconds)
