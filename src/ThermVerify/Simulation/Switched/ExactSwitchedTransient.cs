@@ -24,19 +24,13 @@ public sealed class ExactSwitchedTransient
 {
     public const string AnalysisName = "Exact switched transient";
 
-    /// <summary>Partial-interval maps kept for arbitrary read times before the cache is emptied.</summary>
-    private const int PartialCacheLimit = 256;
-
     private readonly BoundSystem system;
     private readonly LinearAssembly assembly;
     private readonly StateCoordinates coordinates;
     private readonly PeriodicTimeline timeline;
     private readonly double[] initialSolution;
     private readonly double[] initialState;
-    private readonly Dictionary<int, SegmentModel> models = [];
-    private readonly Dictionary<(int Mask, int Interval), IntervalMap> intervalMaps = [];
-    private readonly Dictionary<(int Mask, double Seconds), IntervalMap> partialMaps = [];
-    private readonly Dictionary<string, PeriodMap> periodMaps = [];
+    private readonly SwitchedMaps maps;
     private double[]? steadyState;
 
     private ExactSwitchedTransient(Circuit circuit, ExactSwitchedOptions options)
@@ -47,6 +41,7 @@ public sealed class ExactSwitchedTransient
         assembly = new LinearAssembly(system, options.LinearityToleranceVolts);
         timeline = new PeriodicTimeline(assembly.Switches);
         coordinates = new StateCoordinates(assembly.Reactive(), system.Size);
+        maps = new SwitchedMaps(assembly, coordinates, timeline);
 
         // The engine's own operating point at t = 0, started from the linear model's DC solution so that an op-amp
         // circuit needs one or two Newton iterations instead of a search from zero.
@@ -64,7 +59,7 @@ public sealed class ExactSwitchedTransient
         // Reduce the configurations of the first and of a regular period now, so that a circuit exact propagation
         // cannot handle is refused here rather than at the first read.
         foreach (var mask in timeline.Pattern(0).Concat(timeline.RegularPattern()).Distinct())
-            ModelOf(mask);
+            maps.ModelOf(mask);
     }
 
     /// <exception cref="NotLinearException">The circuit is outside what exact propagation handles (the message says why).</exception>
@@ -101,7 +96,7 @@ public sealed class ExactSwitchedTransient
     public double[] VoltagesAt(IReadOnlyList<double> timesSeconds, string node)
     {
         var unknown = UnknownOf(node);
-        var cursor = new Cursor(this);
+        var cursor = Cursor();
         var result = new double[timesSeconds.Count];
         var previous = 0.0;
         for (var i = 0; i < result.Length; i++)
@@ -130,7 +125,7 @@ public sealed class ExactSwitchedTransient
     {
         var unknown = UnknownOf(node);
         var (period, phase) = Opening(samplingSwitch, conversion);
-        return new Cursor(this).ReadAt(period, phase, unknown);
+        return Cursor().ReadAt(period, phase, unknown);
     }
 
     /// <summary>Conversions 0 … count − 1 (see <see cref="SampleVoltage"/>), one period map application each.</summary>
@@ -138,13 +133,14 @@ public sealed class ExactSwitchedTransient
     {
         ArgumentOutOfRangeException.ThrowIfNegative(count);
         var unknown = UnknownOf(node);
-        var cursor = new Cursor(this);
+        var cursor = Cursor();
         var result = new double[count];
+        if (count == 0)
+            return result;
+        var (first, phase) = Opening(samplingSwitch, count - 1);
+        first -= count - 1;
         for (var k = 0; k < count; k++)
-        {
-            var (period, phase) = Opening(samplingSwitch, k);
-            result[k] = cursor.ReadAt(period, phase, unknown);
-        }
+            result[k] = cursor.ReadAt(first + k, phase, unknown);
         return result;
     }
 
@@ -168,17 +164,19 @@ public sealed class ExactSwitchedTransient
         return SteadyStateCursor().ReadAt(0, phaseSeconds, UnknownOf(node));
     }
 
-    private Cursor SteadyStateCursor()
+    private TimelineCursor SteadyStateCursor()
     {
         if (steadyState is null)
         {
-            var fixedPoint = PeriodMapOf(timeline.RegularPattern(), 0).FixedPoint();
-            if (assembly.Monitors.Count > 0)
-                new Cursor(this, fixedPoint, regular: true).StepWithin(timeline.PeriodSeconds);
+            var fixedPoint = maps.PeriodMapOf(timeline.RegularPattern()).FixedPoint();
+            if (maps.HasChecks)
+                new TimelineCursor(maps, timeline, fixedPoint, regular: true).StepWithin(timeline.PeriodSeconds);
             steadyState = fixedPoint;
         }
-        return new Cursor(this, steadyState, regular: true);
+        return new TimelineCursor(maps, timeline, steadyState, regular: true);
     }
+
+    private TimelineCursor Cursor() => new(maps, timeline, initialState, regular: false);
 
     private int UnknownOf(string node) => system.Layout.IndexOfNode(node);
 
@@ -202,179 +200,5 @@ public sealed class ExactSwitchedTransient
             throw new ArgumentOutOfRangeException(nameof(conversion), $"Switch '{switchName}' opens {n} times; conversion {conversion} (from 0) does not happen.");
         var (period, phase) = PeriodAndPhase(schedule.DelaySeconds + schedule.ClosedSeconds);
         return (period + conversion, phase);
-    }
-
-    private SegmentModel ModelOf(int mask)
-    {
-        if (!models.TryGetValue(mask, out var model))
-        {
-            var (g, b) = assembly.Assemble(mask);
-            model = coordinates.Reduce(g, b, () => PeriodicTimeline.Describe(assembly.Switches, mask));
-            models[mask] = model;
-        }
-        return model;
-    }
-
-    private IntervalMap FullMap(int mask, int interval)
-    {
-        if (!intervalMaps.TryGetValue((mask, interval), out var map))
-        {
-            map = IntervalMap.Build(ModelOf(mask), timeline.Durations[interval], assembly.Monitors);
-            intervalMaps[(mask, interval)] = map;
-        }
-        return map;
-    }
-
-    private IntervalMap PartialMap(int mask, double seconds)
-    {
-        if (!partialMaps.TryGetValue((mask, seconds), out var map))
-        {
-            if (partialMaps.Count >= PartialCacheLimit)
-                partialMaps.Clear();
-            map = IntervalMap.Build(ModelOf(mask), seconds, assembly.Monitors);
-            partialMaps[(mask, seconds)] = map;
-        }
-        return map;
-    }
-
-    private PeriodMap PeriodMapOf(int[] pattern, long period)
-    {
-        var key = string.Join(",", pattern);
-        if (!periodMaps.TryGetValue(key, out var map))
-        {
-            map = new PeriodMap(pattern.Select((mask, i) => FullMap(mask, i)), StateCount);
-            periodMaps[key] = map;
-        }
-        return map;
-    }
-
-    /// <summary>
-    /// A position on the timeline — period, interval, time into the interval — and the state there. Moves forward
-    /// only; each step applies an exact interval map (checked first when there are monitors).
-    /// </summary>
-    private sealed class Cursor
-    {
-        private readonly ExactSwitchedTransient run;
-        private readonly PeriodicTimeline timeline;
-        private readonly bool regular;
-        private double[] z;
-        private double[] next;
-        private long period;
-        private int interval;
-        private double elapsed;
-        private int[] pattern;
-        private long patternUntil;
-
-        public Cursor(ExactSwitchedTransient run) : this(run, run.initialState, regular: false) { }
-
-        public Cursor(ExactSwitchedTransient run, double[] state, bool regular)
-        {
-            this.run = run;
-            timeline = run.timeline;
-            this.regular = regular;
-            z = (double[])state.Clone();
-            next = new double[z.Length];
-            pattern = PatternOf(0);
-            patternUntil = regular ? long.MaxValue : timeline.NextChange(0);
-        }
-
-        /// <summary>The present period's pattern, recomputed only where the timeline says it may change.</summary>
-        private void NewPeriod(long k)
-        {
-            period = k;
-            if (regular || k < patternUntil)
-                return;
-            pattern = timeline.Pattern(k);
-            patternUntil = timeline.NextChange(k);
-        }
-
-        /// <summary>Moves to (period k, phase in (0, T]) and reads an unknown there (limit from the left).</summary>
-        public double ReadAt(long k, double phase, int unknown)
-        {
-            var snap = timeline.SnapSeconds;
-            var (targetPeriod, targetPhase) = phase >= timeline.PeriodSeconds - snap ? (k + 1, 0.0) : (k, phase);
-            if (targetPeriod < period || targetPeriod == period && targetPhase < timeline.Starts[interval] + elapsed - snap)
-                throw new InvalidOperationException("The exact transient was asked to go back in time.");
-            while (period < k)
-            {
-                if (interval == 0 && elapsed == 0)
-                    JumpTowards(k);
-                else
-                    StepWithin(timeline.PeriodSeconds);
-            }
-            if (period == k)
-                StepWithin(phase);
-            if (unknown == run.system.Layout.Ground)
-                return 0;
-            // The cursor may have rolled over to the next period's start; the value belongs to the interval ending at the phase.
-            var endPattern = period == k ? pattern : PatternOf(k);
-            return run.ModelOf(endPattern[timeline.IntervalEndingAt(phase)]).Output(unknown, z);
-        }
-
-        /// <summary>Advances within the present period to a phase in (0, T]; reaching T moves to the next period's start.</summary>
-        public void StepWithin(double phase)
-        {
-            var snap = timeline.SnapSeconds;
-            while (true)
-            {
-                var start = timeline.Starts[interval];
-                var duration = timeline.Durations[interval];
-                var mask = pattern[interval];
-                if (phase >= start + duration - snap)
-                {
-                    Apply(elapsed == 0 ? run.FullMap(mask, interval) : run.PartialMap(mask, duration - elapsed), duration - elapsed);
-                    var last = interval == timeline.IntervalCount - 1;
-                    if (last)
-                    {
-                        NewPeriod(period + 1);
-                        interval = 0;
-                    }
-                    else
-                        interval++;
-                    elapsed = 0;
-                    if (last || phase <= start + duration + snap)
-                        return;
-                }
-                else
-                {
-                    var h = phase - start - elapsed;
-                    if (h > snap)
-                    {
-                        Apply(run.PartialMap(mask, h), h);
-                        elapsed += h;
-                    }
-                    return;
-                }
-            }
-        }
-
-        /// <summary>From a period start, towards period k: a run of equal periods in one matrix power, unless intervals must be checked.</summary>
-        private void JumpTowards(long k)
-        {
-            var end = regular ? k : Math.Min(k, timeline.NextChange(period));
-            var count = end - period;
-            if (count < 2 || run.assembly.Monitors.Count > 0)
-            {
-                StepWithin(timeline.PeriodSeconds);
-                return;
-            }
-            z = run.PeriodMapOf(pattern, period).Advance(z, count);
-            next = new double[z.Length];
-            NewPeriod(end);
-        }
-
-        private void Apply(IntervalMap map, double seconds)
-        {
-            if (map.HasChecks)
-            {
-                var from = period * timeline.PeriodSeconds + timeline.Starts[interval] + elapsed;
-                if (map.Check(z, from, seconds) is { } violation)
-                    throw NotLinearException.Leaves(violation);
-            }
-            map.Apply(z, next);
-            (z, next) = (next, z);
-        }
-
-        private int[] PatternOf(long k) => regular ? timeline.RegularPattern() : timeline.Pattern(k);
     }
 }

@@ -29,9 +29,11 @@ internal sealed class SegmentModel
 
     public int UnknownCount { get; }
 
-    /// <summary>x[unknown] = P[unknown, ·]·z + p[unknown].</summary>
+    /// <summary>x[unknown] = P[unknown, ·]·z + p[unknown]; the ground index (one past the last unknown) reads 0.</summary>
     public double Output(int unknown, ReadOnlySpan<double> z)
     {
+        if (unknown == UnknownCount)
+            return 0;
         var r = StateCount;
         var sum = outputOffsets[unknown];
         var row = outputRows.AsSpan(unknown * r, r);
