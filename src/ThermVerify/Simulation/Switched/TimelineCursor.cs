@@ -16,6 +16,7 @@ internal sealed class TimelineCursor
     private int interval;
     private double elapsed;
     private int[] pattern;
+    private int[] previousPattern;
     private long patternUntil;
 
     /// <param name="regular">Follow the regular pattern in every period (the periodic steady state) instead of the schedules' own.</param>
@@ -27,12 +28,14 @@ internal sealed class TimelineCursor
         z = (double[])state.Clone();
         next = new double[z.Length];
         pattern = PatternOf(0);
+        previousPattern = pattern;
         patternUntil = regular ? long.MaxValue : timeline.NextChange(0);
     }
 
     /// <summary>The present period's pattern, recomputed only where the timeline says it may change.</summary>
     private void NewPeriod(long k)
     {
+        previousPattern = k == period + 1 ? pattern : PatternOf(k - 1);
         period = k;
         if (regular || k < patternUntil)
             return;
@@ -57,7 +60,7 @@ internal sealed class TimelineCursor
         if (period == k)
             StepWithin(phase);
         // The cursor may have rolled over to the next period's start; the value belongs to the interval ending at the phase.
-        var endPattern = period == k ? pattern : PatternOf(k);
+        var endPattern = period == k ? pattern : previousPattern;
         return maps.ModelOf(endPattern[timeline.IntervalEndingAt(phase)]).Output(unknown, z);
     }
 
