@@ -1,3 +1,4 @@
+using MathNet.Numerics.LinearAlgebra;
 using ThermVerify.Circuits;
 using ThermVerify.Simulation.Mna;
 using ThermVerify.Simulation.Stamps;
@@ -84,8 +85,8 @@ internal sealed class LinearAssembly
     {
         var n = Size;
         var (g, b) = Assemble(mask);
-        var matrix = MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.Dense(n, n, (i, j) => g[i * n + j]);
-        var x = matrix.LU().Solve(MathNet.Numerics.LinearAlgebra.Vector<double>.Build.DenseOfArray(b)).ToArray();
+        var matrix = Matrix<double>.Build.Dense(n, n, (i, j) => g[i * n + j]);
+        var x = matrix.LU().Solve(Vector<double>.Build.DenseOfArray(b)).ToArray();
         return x.All(double.IsFinite) ? x : null;
     }
 
