@@ -13,7 +13,7 @@ public class OpAmpLinearRegionTests
     /// A follower whose input steps when a switch to ground closes at 5 µs: the input is a 1 kΩ/1 kΩ divider from 2 V,
     /// and the switch (R_on) loads its lower leg, so the step is 2·(1k ∥ R_on)/(1k + 1k ∥ R_on) − 1 V.
     /// </summary>
-    private static Circuit SteppedFollower(double switchOhms) => new CircuitBuilder()
+    private static Circuit SteppedFollower(double switchOhms, double? secondPoleHertz = null) => new CircuitBuilder()
         .VoltageSource("V1", "src", "0", 2.0)
         .Resistor("R1", "src", "in", 1e3)
         .Resistor("R2", "in", "0", 1e3)
@@ -26,6 +26,7 @@ public class OpAmpLinearRegionTests
             SlewRateVoltsPerSecond = Slew,
             OutputLowVolts = 0,
             OutputHighVolts = 3.3,
+            SecondPoleHertz = secondPoleHertz,
         })
         .Resistor("Rload", "out", "0", 1e6)
         .Build();
@@ -56,6 +57,22 @@ public class OpAmpLinearRegionTests
             // a 1 V node is about 1e-9 V: 3e-9 V.
             Tolerance.AssertClose(stepping.VoltageAt("out", times[i]), exact[i + 1], 0, 3e-9, $"against time stepping at {multiples[i]} τ");
         }
+    }
+
+    [Fact]
+    public void Second_pole_follower_rings_as_the_time_stepping_engine_has_it()
+    {
+        // A second pole at 2 MHz against 1 MHz GBW: about 50° of phase margin, so the 50 µV step overshoots and rings.
+        var circuit = SteppedFollower(10e6, secondPoleHertz: 2e6);
+        var times = Enumerable.Range(1, 40).Select(i => Close + i * 25e-9).ToArray();
+        var run = ExactSwitchedTransient.Start(circuit);
+        var exact = run.VoltagesAt(times, "out");
+        var stepping = Transient.Run(circuit, new TransientOptions { StopTimeSeconds = 2 * Close, RelativeTolerance = 1e-10, VoltageToleranceVolts = 1e-13, OutputTimesSeconds = times });
+        var final = run.VoltagesAt([0], "out")[0] + Step(10e6);
+        Assert.True(exact.Min() < final - 1e-6, "the step overshoots (the output falls below its final value)");
+        for (var i = 0; i < times.Length; i++)
+            // The time-stepping engine on the same nonlinear model at relative tolerance 1e-10: 3e-9 V, as above.
+            Tolerance.AssertClose(stepping.VoltageAt("out", times[i]), exact[i], 0, 3e-9, $"v at {times[i]:G4} s");
     }
 
     [Fact]
