@@ -13,9 +13,9 @@ namespace ThermVerify.Simulation.Switched;
 /// <para>
 /// Conditions, for a tolerance δ in volts. Slewing: the stage delivers I_max·tanh(g_m·v_d/I_max), which is
 /// g_m·(s·tanh(v_d/s)) with s = I_max/g_m = SR/(2π·GBW) (the model sets I_max = SR·C_p and g_m/C_p = 2π·GBW). Referred
-/// to the input its error is v_d − s·tanh(v_d/s) ≤ |v_d|³/(3s²) (Taylor series of tanh, alternating), so
-/// |v_d| ≤ (3δs²)^(1/3) keeps it within δ; its relative slope error tanh²(v_d/s) is then of the same order against the
-/// size of the disturbance. Output clamp (soft clamp of knee width w): its value departs from the identity by at most
+/// to the input its error is |v_d − s·tanh(v_d/s)| ≤ |v_d|³/(3s²) (tanh x ≥ x − x³/3 for x ≥ 0), so
+/// |v_d| ≤ (3δs²)^(1/3) keeps it within δ; its slope is then low by the fraction tanh²(v_d/s) ≤ (v_d/s)², which on a
+/// disturbance of size v_d is again an error of order δ. Output clamp (soft clamp of knee width w): its value departs from the identity by at most
 /// w·(e^(−d_low/w) + e^(−d_high/w)) for distances d from the swing limits (softplus tail ln(1 + e^(−y)) ≤ e^(−y)), so
 /// d ≥ w·ln(2w/δ) keeps it within δ; its slope error is then below δ/w. Both are conservative inside a feedback loop,
 /// which divides such errors by the loop gain.
