@@ -4,7 +4,7 @@ using ThermVerify.Circuits;
 using ThermVerify.Design;
 using ThermVerify.Simulation;
 using ThermVerify.Simulation.Switched;
-using ThermVerify.Verification;
+using ThermVerify.FrontEnd;
 
 namespace ThermVerify.Benchmarks;
 

@@ -58,3 +58,13 @@ public sealed class BuiltInEngine : ICheckEngine
         }
     }
 }
+
+/// <summary>The engine's simulations called on a concrete engine (its interface members are implemented explicitly).</summary>
+internal static class CheckEngineCalls
+{
+    public static IReadOnlyList<double[]> TemperatureSweep(this ICheckEngine engine, Circuit circuit, IReadOnlyList<double> temperaturesCelsius,
+        IReadOnlyList<string> nodes) => engine.TemperatureSweep(circuit, temperaturesCelsius, nodes);
+
+    public static ISampledTransient StartTransient(this ICheckEngine engine, Circuit circuit, TransientOptions options) =>
+        engine.StartTransient(circuit, options);
+}

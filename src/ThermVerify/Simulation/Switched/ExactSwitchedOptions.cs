@@ -1,7 +1,7 @@
 namespace ThermVerify.Simulation.Switched;
 
 /// <summary>Settings of <see cref="ExactSwitchedTransient"/>.</summary>
-public sealed record ExactSwitchedOptions
+internal sealed record ExactSwitchedOptions
 {
     /// <summary>
     /// How far an op-amp's nonlinear characteristics may depart from their linear-region tangents and still count as

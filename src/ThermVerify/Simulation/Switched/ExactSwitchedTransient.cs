@@ -20,7 +20,7 @@ namespace ThermVerify.Simulation.Switched;
 /// Objects keep caches and are not thread-safe; make one per thread. Circuit temperature: the circuit's own
 /// (<c>circuit with { TemperatureCelsius = t }</c>).
 /// </summary>
-public sealed class ExactSwitchedTransient
+internal sealed class ExactSwitchedTransient
 {
     public const string AnalysisName = "Exact switched transient";
 

@@ -2,7 +2,7 @@ using ThermVerify.Circuits;
 using ThermVerify.Simulation;
 using ThermVerify.Simulation.Switched;
 using ThermVerify.Tests.Ngspice;
-using ThermVerify.Verification;
+using ThermVerify.FrontEnd;
 
 namespace ThermVerify.Tests.Simulation.Switched;
 
