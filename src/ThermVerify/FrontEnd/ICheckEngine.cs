@@ -25,37 +25,15 @@ public interface ICheckEngine
 internal interface ISampledTransient
 {
     double VoltageAt(double timeSeconds, string node);
-}
 
-/// <summary>The built-in modified-nodal-analysis engine, the default.</summary>
-public sealed class BuiltInEngine : ICheckEngine
-{
-    public static readonly BuiltInEngine Instance = new();
-
-    private BuiltInEngine() { }
-
-    public string Name => "built-in";
-
-    IReadOnlyList<double[]> ICheckEngine.TemperatureSweep(Circuit circuit, IReadOnlyList<double> temperaturesCelsius, IReadOnlyList<string> nodes)
+    /// <summary>
+    /// The node's voltage when <paramref name="samplingSwitch"/> opens in the periodic steady state, where the engine
+    /// can compute it directly (exact propagation); false where only conversion after conversion can tell.
+    /// </summary>
+    bool TryPeriodicSteadyState(string samplingSwitch, string node, out double volts)
     {
-        var result = DcSweep.Temperature(circuit, temperaturesCelsius);
-        return [.. nodes.Select(result.Voltage)];
-    }
-
-    ISampledTransient ICheckEngine.StartTransient(Circuit circuit, TransientOptions options) =>
-        new Running(new TransientSimulation(circuit, options));
-
-    private sealed class Running(TransientSimulation simulation) : ISampledTransient
-    {
-        public double VoltageAt(double timeSeconds, string node)
-        {
-            if (timeSeconds > simulation.TimeSeconds)
-            {
-                simulation.AdvanceTo(timeSeconds);
-                simulation.ForgetRecordedPoints(); // only the samples are read: a long run must not keep every point
-            }
-            return simulation.Voltage(node);
-        }
+        volts = double.NaN;
+        return false;
     }
 }
 

@@ -12,7 +12,11 @@ public sealed record SamplingOutcome(
     double SteadyVolts,
     int ConversionsSimulated,
     bool Extrapolated,
-    IReadOnlyList<double> SampledVolts);
+    IReadOnlyList<double> SampledVolts)
+{
+    /// <summary>The steady sample is the exact periodic steady state (one solve), not the end of a run of conversions.</summary>
+    public bool ExactSteadyState { get; init; }
+}
 
 /// <summary>
 /// Simulates conversion after conversion with the sampling circuit. The sampled value is the sampling capacitor's
@@ -20,7 +24,8 @@ public sealed record SamplingOutcome(
 /// three times running. For a linear front end the samples then approach their limit geometrically (one slow mode,
 /// the reservoir, dominates); when the ratio of successive differences has been steady for three conversions the
 /// limit is extrapolated as s_n + Δ_n·r/(1 − r) (Aitken's Δ² process) instead of simulating hundreds of periods,
-/// and the outcome says so.
+/// and the outcome says so. Where the engine propagates the circuit exactly (the built-in engine on a front end that
+/// is linear between switch edges), the steady sample is the exact periodic steady state instead.
 /// </summary>
 internal static class SamplingRun
 {
@@ -38,6 +43,8 @@ internal static class SamplingRun
         int maximumConversions = DefaultMaximumConversions, CancellationToken cancel = default, ICheckEngine? engine = null)
     {
         var simulation = Start(engine, design, celsius, prechargeVolts, settleVolts, maximumConversions);
+        if (simulation.TryPeriodicSteadyState(FrontEndNodes.SamplingSwitch, FrontEndNodes.Hold, out var exactSteady))
+            return ApproachTo(exactSteady);
 
         var samples = new List<double>();
         var stableRuns = 0;
@@ -65,7 +72,25 @@ internal static class SamplingRun
 
         SamplingOutcome Outcome(double steady, bool extrapolated) =>
             new(celsius, prechargeVolts, samples[0], steady, samples.Count, extrapolated, samples);
+
+        // With the limit known exactly, the conversions are read only until they are within the settle limit of it
+        // three times running (at most 64), so that the outcome still shows how the samples approach it.
+        SamplingOutcome ApproachTo(double steady)
+        {
+            var approach = new List<double>();
+            var near = 0;
+            for (var k = 0; k < Math.Min(maximumConversions, ApproachConversions) && near < 3; k++)
+            {
+                cancel.ThrowIfCancellationRequested();
+                approach.Add(simulation.VoltageAt(FrontEndCircuit.SampleTimeSeconds(design, k), FrontEndNodes.Hold));
+                near = Math.Abs(approach[k] - steady) < settleVolts ? near + 1 : 0;
+            }
+            return new SamplingOutcome(celsius, prechargeVolts, approach[0], steady, approach.Count, false, approach) { ExactSteadyState = true };
+        }
     }
+
+    /// <summary>Conversions read to show the approach to an exact steady state.</summary>
+    private const int ApproachConversions = 64;
 
     /// <summary>The sampling transient's circuit and options, the same for every engine.</summary>
     public static (Circuit Circuit, TransientOptions Options) Setup(FrontEndDesign design, double celsius, double? prechargeVolts,

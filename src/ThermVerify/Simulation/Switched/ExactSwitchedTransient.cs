@@ -164,6 +164,25 @@ internal sealed class ExactSwitchedTransient
         return SteadyStateCursor().ReadAt(0, phaseSeconds, UnknownOf(node));
     }
 
+    /// <summary>
+    /// A reader of node voltages at rising times, one cursor for the whole run: what a caller that reads sample after
+    /// sample needs (<see cref="VoltagesAt"/> starts from t = 0 on every call).
+    /// </summary>
+    public Func<double, string, double> Reader()
+    {
+        var cursor = Cursor();
+        return (t, node) =>
+        {
+            var unknown = UnknownOf(node);
+            if (!double.IsFinite(t) || t < 0)
+                throw new ArgumentOutOfRangeException(nameof(t), t, "Read times must be finite and not negative.");
+            if (t <= timeline.SnapSeconds)
+                return unknown == system.Layout.Ground ? 0 : initialSolution[unknown];
+            var (period, phase) = PeriodAndPhase(t);
+            return cursor.ReadAt(period, phase, unknown);
+        };
+    }
+
     private TimelineCursor SteadyStateCursor()
     {
         if (steadyState is null)
