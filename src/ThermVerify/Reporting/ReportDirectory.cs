@@ -17,6 +17,10 @@ public static class ReportDirectory
     public static IReadOnlyList<string> Write(CheckReport report, string directory, bool overwrite) =>
         Write(CheckHtml.Render(report), CheckMarkdown.Render(report, PlotFolder), report.Plots, directory, overwrite);
 
+    /// <summary>As <see cref="Write(CheckReport, string, bool)"/>, with the page's HTML passed through <paramref name="finishHtml"/> first.</summary>
+    internal static IReadOnlyList<string> Write(CheckReport report, string directory, bool overwrite, Func<string, string> finishHtml) =>
+        Write(finishHtml(CheckHtml.Render(report)), CheckMarkdown.Render(report, PlotFolder), report.Plots, directory, overwrite);
+
     /// <returns>The files written, full paths.</returns>
     public static IReadOnlyList<string> Write(AnalysisReport report, string directory, bool overwrite) =>
         Write(AnalysisHtml.Render(report), AnalysisMarkdown.Render(report, PlotFolder), report.Plots, directory, overwrite);
