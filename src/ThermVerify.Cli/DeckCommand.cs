@@ -25,9 +25,10 @@ internal static class DeckCommand
         {
             if (r.GetValueOrDefault<int>() < 1) r.AddError("--conversions must be at least 1");
         });
+        var bare = new Option<bool>("--bare") { Description = "only the netlist and its analysis, without the statements that make a batch run print the figures" };
         var command = new Command("deck", "Write a SPICE deck of the design for one analysis (runs in ngspice or any SPICE engine).")
         {
-            design, analysis, output, temperature, conversions,
+            design, analysis, output, temperature, conversions, bare,
         };
         command.SetAction(parsed =>
         {
@@ -43,6 +44,7 @@ internal static class DeckCommand
             {
                 TemperatureCelsius = parsed.GetValue(temperature),
                 Conversions = parsed.GetValue(conversions),
+                PrintFigures = !parsed.GetValue(bare),
             });
             if (parsed.GetValue(output) is { } file)
                 AtomicFile.WriteAllText(file.FullName, deck);
