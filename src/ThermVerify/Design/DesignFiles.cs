@@ -1,7 +1,7 @@
 namespace ThermVerify.Design;
 
 /// <summary>The files a design is made of: the design file and every file it names (an R–T table, an op-amp subcircuit).</summary>
-public static class DesignFiles
+internal static class DesignFiles
 {
     public static IReadOnlyList<string> Of(string designPath, FrontEndDesign? design)
     {

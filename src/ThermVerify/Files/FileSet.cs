@@ -6,7 +6,7 @@ namespace ThermVerify.Files;
 /// The contents of a set of files, by SHA-256, so that a change is noticed however an editor saves (in place, or a
 /// new file renamed over the old one) and a save that changes nothing is not. A missing file has no hash.
 /// </summary>
-public sealed class FileSet
+internal sealed class FileSet
 {
     private readonly IReadOnlyList<string> paths;
     private readonly string?[] hashes;
