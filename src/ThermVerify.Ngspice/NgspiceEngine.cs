@@ -1,4 +1,5 @@
 using System.Collections.Concurrent;
+using System.Numerics;
 using ThermVerify.Circuits;
 using ThermVerify.Circuits.Spice;
 using ThermVerify.FrontEnd;
@@ -32,11 +33,19 @@ public sealed class NgspiceEngine : ICheckEngine, IDisposable
     private readonly ConcurrentBag<NgspiceWorker> idle = [];
     private readonly SemaphoreSlim slots = new(Environment.ProcessorCount);
     private readonly TimeSpan deckTimeLimit;
+    private readonly string? workerLibrary;
 
     /// <param name="deckTimeLimit">A deck that runs longer is taken as hung and stopped (default 5 minutes).</param>
     public NgspiceEngine(NgspiceMode mode = NgspiceMode.SharedLibrary, TimeSpan? deckTimeLimit = null)
+        : this(mode, deckTimeLimit, null)
+    {
+    }
+
+    /// <param name="workerLibrary">A build of the shared library for the workers to load instead of the system's (tests).</param>
+    internal NgspiceEngine(NgspiceMode mode, TimeSpan? deckTimeLimit, string? workerLibrary)
     {
         Mode = mode;
+        this.workerLibrary = workerLibrary;
         this.deckTimeLimit = deckTimeLimit ?? NgspiceProcess.DefaultTimeLimit;
         if (mode == NgspiceMode.SharedLibrary)
             NgspiceLibrary.EnsureAvailable();
@@ -63,6 +72,24 @@ public sealed class NgspiceEngine : ICheckEngine, IDisposable
 
     ISampledTransient ICheckEngine.StartTransient(Circuit circuit, TransientOptions options) => new SampledRun(this, circuit, options);
 
+    (double[] FrequenciesHertz, Complex[][] Volts) ICheckEngine.AcSweep(Circuit circuit, double startHertz, double stopHertz, int pointsPerDecade,
+        IReadOnlyList<string> nodes)
+    {
+        var plot = Run(SpiceDeckWriter.Write(circuit, new AcSweep(startHertz, stopHertz, pointsPerDecade), new SpiceDeckHeader("thermverify AC sweep"))).Plot("ac");
+        var frequencies = Finite(plot["frequency"].Real, "the AC sweep's frequencies");
+        return (frequencies, [.. nodes.Select(n => plot[n].Complex is { } c && c.All(v => double.IsFinite(v.Real) && double.IsFinite(v.Imaginary))
+            ? c
+            : throw new NgspiceException($"ngspice returned no finite AC values for node {n}", []))]);
+    }
+
+    (double[] FrequenciesHertz, double[] VoltsPerRootHertz) ICheckEngine.NoiseSweep(Circuit circuit, string node, string inputSource,
+        double startHertz, double stopHertz, int pointsPerDecade)
+    {
+        var deck = SpiceDeckWriter.Write(circuit, new NoiseSweep(node, inputSource, startHertz, stopHertz, pointsPerDecade), new SpiceDeckHeader("thermverify noise"));
+        var plot = Run(deck).Plot("noise");
+        return (Finite(plot["frequency"].Real, "the noise sweep's frequencies"), Finite(plot["onoise_spectrum"].Real, $"the noise density at node {node}"));
+    }
+
     /// <summary>Runs a deck the way this engine was asked to.</summary>
     internal NgspiceResult Run(string deck)
     {
@@ -72,7 +99,7 @@ public sealed class NgspiceEngine : ICheckEngine, IDisposable
         slots.Wait(Work.Cancel);
         try
         {
-            var worker = idle.TryTake(out var ready) ? ready : NgspiceWorker.Start();
+            var worker = idle.TryTake(out var ready) ? ready : NgspiceWorker.Start(workerLibrary);
             try
             {
                 return worker.Run(deck, deckTimeLimit);

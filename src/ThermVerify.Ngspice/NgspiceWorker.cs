@@ -43,7 +43,8 @@ internal sealed class NgspiceWorker : IDisposable
     /// <summary>False once the worker has ended or the library stopped itself: the engine starts another.</summary>
     public bool Usable { get; private set; } = true;
 
-    public static NgspiceWorker Start()
+    /// <param name="library">A build of the shared library to load instead of the system's; null for the usual search.</param>
+    public static NgspiceWorker Start(string? library = null)
     {
         var folder = TemporaryFolders.Create();
         try
@@ -58,6 +59,7 @@ internal sealed class NgspiceWorker : IDisposable
             start.ArgumentList.Add(WorkerLoop.Argument);
             start.ArgumentList.Add(folder.FullName);
             start.Environment["HOME"] = folder.FullName;
+            if (library is not null) start.Environment[NgspiceLibrary.LibraryVariable] = library;
             var process = Process.Start(start) ?? throw new NgspiceUnavailableException("the ngspice worker process could not be started");
             return new NgspiceWorker(process, folder);
         }

@@ -1,3 +1,4 @@
+using System.Numerics;
 using ThermVerify.Circuits;
 using ThermVerify.Simulation;
 
@@ -19,6 +20,18 @@ public interface ICheckEngine
 
     /// <summary>A transient of <paramref name="circuit"/> from its operating point, read at rising times.</summary>
     internal ISampledTransient StartTransient(Circuit circuit, TransientOptions options);
+
+    /// <summary>
+    /// Small-signal voltages of <paramref name="nodes"/> driven by the circuit's AC sources, logarithmic in frequency
+    /// (as SPICE's <c>.ac dec</c>); the engine says at which frequencies. The buffer checks of a design's own op-amp
+    /// subcircuit measure its loop gain this way.
+    /// </summary>
+    internal (double[] FrequenciesHertz, Complex[][] Volts) AcSweep(Circuit circuit, double startHertz, double stopHertz, int pointsPerDecade,
+        IReadOnlyList<string> nodes);
+
+    /// <summary>The output noise density (V/√Hz) at <paramref name="node"/>, logarithmic in frequency (as SPICE's <c>.noise</c>).</summary>
+    internal (double[] FrequenciesHertz, double[] VoltsPerRootHertz) NoiseSweep(Circuit circuit, string node, string inputSource,
+        double startHertz, double stopHertz, int pointsPerDecade);
 }
 
 /// <summary>A running transient: node voltages at times that never go back.</summary>
@@ -44,6 +57,20 @@ public sealed class BuiltInEngine : ICheckEngine
 
     ISampledTransient ICheckEngine.StartTransient(Circuit circuit, TransientOptions options) =>
         new Running(new TransientSimulation(circuit, options));
+
+    (double[] FrequenciesHertz, Complex[][] Volts) ICheckEngine.AcSweep(Circuit circuit, double startHertz, double stopHertz, int pointsPerDecade,
+        IReadOnlyList<string> nodes)
+    {
+        var result = AcAnalysis.Run(circuit, FrequencySweep.Logarithmic(startHertz, stopHertz, pointsPerDecade));
+        return ([.. result.FrequenciesHertz], [.. nodes.Select(result.Voltage)]);
+    }
+
+    (double[] FrequenciesHertz, double[] VoltsPerRootHertz) ICheckEngine.NoiseSweep(Circuit circuit, string node, string inputSource,
+        double startHertz, double stopHertz, int pointsPerDecade)
+    {
+        var result = NoiseAnalysis.Run(circuit, node, FrequencySweep.Logarithmic(startHertz, stopHertz, pointsPerDecade));
+        return ([.. result.FrequenciesHertz], result.OutputDensity);
+    }
 
     private sealed class Running(TransientSimulation simulation) : ISampledTransient
     {

@@ -59,6 +59,9 @@ internal sealed partial class SubcircuitParser
         var what = $"source {t[0].Text}";
         Require(t, 3, what, $"Write {t[0].Text} NODE+ NODE- [DC] VALUE [AC MAGNITUDE [PHASE]].");
         var (a, b) = (Node(t[1]), Node(t[2]));
+        if (t.FirstOrDefault(x => x.Kind == SpiceTokenKind.Word && TransientFunctions.Contains(x.Text)) is { Text.Length: > 0 } waveform)
+            throw errors.At(waveform, $"{what}: \"{waveform.Text}\" is not accepted (only DC and AC values)",
+                "Transient waveforms (PULSE, SIN, PWL, ...) are not accepted in a subcircuit file.");
         ValueWriter? dc = null;
         var ac = new List<ValueWriter>();
         var i = 3;
@@ -81,6 +84,11 @@ internal sealed partial class SubcircuitParser
             return ac.Count == 0 ? text : $"{text} ac {string.Join(' ', ac.Select(v => v(r)))}";
         };
     }
+
+    private static readonly HashSet<string> TransientFunctions = new(StringComparer.OrdinalIgnoreCase)
+    {
+        "pulse", "sin", "exp", "pwl", "sffm", "am", "trnoise", "trrandom",
+    };
 
     private CardWriter Diode(List<SpiceToken> t, Scope scope)
     {
@@ -109,6 +117,10 @@ internal sealed partial class SubcircuitParser
         var what = $"controlled source {t[0].Text}";
         var form = nodesPerControl == 2 ? "NODE+ NODE- CONTROL+ CONTROL- GAIN" : "NODE+ NODE- VSOURCE GAIN";
         Require(t, 3, what, $"Write {t[0].Text} {form}.");
+        var equals = t.FindIndex(x => x.Kind == SpiceTokenKind.Equals);
+        if (equals > 0)
+            throw errors.At(t[equals - 1], $"{what}: a behavioural form (value=, table, laplace) is not accepted",
+                "Write a linear gain, or POLY(n) with its coefficients.");
         var (a, b) = (Node(t[1]), Node(t[2]));
         var i = 3;
         var polynomial = 0;
