@@ -45,6 +45,7 @@ public sealed class NgspiceEngine : ICheckEngine, IDisposable
     internal NgspiceEngine(NgspiceMode mode, TimeSpan? deckTimeLimit, string? workerLibrary)
     {
         Mode = mode;
+        TemporaryFolders.SweepOnce(); // the folders of runs that were killed outright, before this run adds its own
         this.workerLibrary = workerLibrary;
         this.deckTimeLimit = deckTimeLimit ?? NgspiceProcess.DefaultTimeLimit;
         if (mode == NgspiceMode.SharedLibrary)

@@ -14,8 +14,14 @@ internal static class TemporaryFolders
 
     public static DirectoryInfo Create()
     {
-        if (Interlocked.Exchange(ref swept, 1) == 0) SweepAbandoned();
+        SweepOnce();
         return Directory.CreateTempSubdirectory($"{Prefix}{Environment.ProcessId}-");
+    }
+
+    /// <summary>Sweeps the abandoned folders the first time this process asks.</summary>
+    public static void SweepOnce()
+    {
+        if (Interlocked.Exchange(ref swept, 1) == 0) SweepAbandoned();
     }
 
     public static void Delete(DirectoryInfo folder)

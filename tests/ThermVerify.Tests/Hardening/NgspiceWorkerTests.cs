@@ -97,6 +97,7 @@ public sealed class NgspiceWorkerTests : IDisposable
         using var scope = new EnvironmentScope("FAKE_MODE", "hang");
         using var marking = new EnvironmentScope("FAKE_MARKER", marker);
         using var cancel = new CancellationTokenSource();
+        var before = WorkerFolders().ToHashSet(); // engines of other tests may keep idle workers until this process ends
         var run = Task.Run(() =>
         {
             using var work = Work.Scope(cancel.Token);
@@ -109,7 +110,7 @@ public sealed class NgspiceWorkerTests : IDisposable
         cancel.Cancel();
         Assert.ThrowsAny<OperationCanceledException>(() => run.GetAwaiter().GetResult());
         engine.Dispose();
-        Assert.Empty(WorkerFolders());
+        Assert.Empty(WorkerFolders().Except(before));
     }
 
     [Fact]
