@@ -33,7 +33,7 @@ internal sealed class AnalysisOutputs
         if (parsed.GetValue(json) is { } file)
             set.Add(file.ToString(), document);
         if (parsed.GetValue(report) is { } folder)
-            set.AddFolder(folder.ToString(), () => ReportDirectory.Files(page()));
+            set.AddFolder(folder.ToString(), () => ReportDirectory.Files(page()), ReportDirectory.ExpectedFiles);
     }
 
     /// <summary>Says where the report went, after the set was written.</summary>

@@ -59,7 +59,8 @@ internal static class CheckCommand
             if (parsed.GetValue(junit) is { } junitFile)
                 outputs.Add(junitFile.ToString(), () => CheckJUnit.Write(run!.Result, run.Baseline));
             if (parsed.GetValue(report) is { } reportFolder)
-                outputs.AddFolder(reportFolder.ToString(), () => ReportDirectory.Files(CheckReport.Build(run!.Result, designPath, run.Baseline)));
+                outputs.AddFolder(reportFolder.ToString(), () => ReportDirectory.Files(CheckReport.Build(run!.Result, designPath, run.Baseline)),
+                    ReportDirectory.ExpectedFiles);
             outputs.CheckTargets();
             using var chosen = EngineChoice.Create(parsed.GetValue(engine)!, parsed.GetValue(process));
             run = Verifier.Check(loaded, new CheckOptions

@@ -11,7 +11,7 @@ namespace ThermVerify.Files;
 public sealed class OutputSet(bool overwrite)
 {
     private readonly List<(string Path, Func<byte[]> Content)> files = [];
-    private readonly List<(string Folder, Func<IReadOnlyList<(string RelativePath, byte[] Content)>> Contents)> folders = [];
+    private readonly List<(string Folder, Func<IReadOnlyList<(string RelativePath, byte[] Content)>> Contents, IReadOnlyList<string> Expected)> folders = [];
 
     public bool IsEmpty => files.Count == 0 && folders.Count == 0;
 
@@ -24,10 +24,13 @@ public sealed class OutputSet(bool overwrite)
         return this;
     }
 
-    /// <summary>A folder of files whose names are known only once rendered (a report and its plots).</summary>
-    public OutputSet AddFolder(string folder, Func<IReadOnlyList<(string RelativePath, byte[] Content)>> contents)
+    /// <summary>
+    /// A folder of files whose names are known only once rendered (a report and its plots); the files named in
+    /// <paramref name="expected"/> are known before and are checked with the other targets, before the work.
+    /// </summary>
+    public OutputSet AddFolder(string folder, Func<IReadOnlyList<(string RelativePath, byte[] Content)>> contents, IReadOnlyList<string>? expected = null)
     {
-        folders.Add((folder, contents));
+        folders.Add((folder, contents, expected ?? []));
         return this;
     }
 
@@ -41,32 +44,36 @@ public sealed class OutputSet(bool overwrite)
                 throw new OutputPathException($"{path} is named for two outputs; give each its own file");
             OutputTarget.CheckFile(path, overwrite);
         }
-        foreach (var (folder, _) in folders)
+        foreach (var (folder, _, expected) in folders)
+        {
             OutputTarget.CheckFolder(folder);
+            foreach (var file in expected)
+                OutputTarget.CheckFile(Path.Combine(folder, file), overwrite, parentMayBeCreated: true);
+        }
     }
 
     /// <summary>Renders, writes and renames the whole set; returns the files written (full paths).</summary>
     public IReadOnlyList<string> Write()
     {
         CheckTargets();
-        var rendered = new List<(string Shown, string Full, byte[] Content)>();
+        var rendered = new List<(string Shown, string Full, byte[] Content, bool InFolder)>();
         foreach (var (path, content) in files)
-            rendered.Add((path, Path.GetFullPath(path), Render(path, content)));
-        foreach (var (folder, contents) in folders)
+            rendered.Add((path, Path.GetFullPath(path), Render(path, content), false));
+        foreach (var (folder, contents, _) in folders)
         {
             foreach (var (relative, content) in Render(folder, contents))
             {
                 var shown = Path.Combine(folder, relative);
-                rendered.Add((shown, Path.GetFullPath(shown), content));
+                rendered.Add((shown, Path.GetFullPath(shown), content, true));
             }
         }
-        foreach (var (shown, _, _) in rendered)
-            OutputTarget.CheckFile(shown, overwrite);
+        foreach (var (shown, _, _, inFolder) in rendered)
+            OutputTarget.CheckFile(shown, overwrite, inFolder);
 
         var temporaries = new List<(string Temporary, string Full)>();
         try
         {
-            foreach (var (_, full, content) in rendered)
+            foreach (var (_, full, content, _) in rendered)
             {
                 var folder = Path.GetDirectoryName(full)!;
                 Directory.CreateDirectory(folder);
@@ -76,8 +83,8 @@ public sealed class OutputSet(bool overwrite)
                     stream.Write(content);
             }
             // Just before the renames, the targets once more: nothing became a link or a device in the meantime.
-            foreach (var (shown, _, _) in rendered)
-                OutputTarget.CheckFile(shown, overwrite);
+            foreach (var (shown, _, _, inFolder) in rendered)
+                OutputTarget.CheckFile(shown, overwrite, inFolder);
             foreach (var (temporary, full) in temporaries)
                 File.Move(temporary, full, overwrite);
         }

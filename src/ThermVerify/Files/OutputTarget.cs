@@ -8,10 +8,11 @@ namespace ThermVerify.Files;
 /// </summary>
 internal static class OutputTarget
 {
-    public static void CheckFile(string path, bool overwrite)
+    /// <param name="parentMayBeCreated">True for a file inside an output folder (a report), whose folders are made when the set is written.</param>
+    public static void CheckFile(string path, bool overwrite, bool parentMayBeCreated = false)
     {
         var full = Path.GetFullPath(path);
-        CheckParent(path, Path.GetDirectoryName(full)!, mayBeCreated: false);
+        CheckParent(path, Path.GetDirectoryName(full)!, parentMayBeCreated);
         switch (KindOf(full))
         {
             case null:
@@ -52,6 +53,8 @@ internal static class OutputTarget
             throw new OutputPathException($"{path}: {parent} is a file, where a folder is needed. Name a path inside a folder");
         if (!mayBeCreated)
             throw new OutputPathException($"{path}: the folder {parent} does not exist; create it first, or name a file in an existing folder");
+        if (Path.GetDirectoryName(parent) is { } above && above != parent)
+            CheckParent(path, above, mayBeCreated: true);
     }
 
     /// <summary>What is at <paramref name="full"/> itself (a link is a link); null when nothing is.</summary>

@@ -15,13 +15,16 @@ public static class ReportDirectory
     public const string MarkdownFile = "report.md";
     public const string PlotFolder = "plots";
 
+    /// <summary>The files every report has, known before it is built (so an existing report is refused before the work).</summary>
+    public static IReadOnlyList<string> ExpectedFiles { get; } = [HtmlFile, MarkdownFile];
+
     /// <returns>The files written, full paths.</returns>
     public static IReadOnlyList<string> Write(CheckReport report, string directory, bool overwrite) =>
-        new OutputSet(overwrite).AddFolder(directory, () => Files(report)).Write();
+        new OutputSet(overwrite).AddFolder(directory, () => Files(report), ExpectedFiles).Write();
 
     /// <returns>The files written, full paths.</returns>
     public static IReadOnlyList<string> Write(AnalysisReport report, string directory, bool overwrite) =>
-        new OutputSet(overwrite).AddFolder(directory, () => Files(report)).Write();
+        new OutputSet(overwrite).AddFolder(directory, () => Files(report), ExpectedFiles).Write();
 
     /// <summary>The report's files, relative to its folder, rendered.</summary>
     public static IReadOnlyList<(string RelativePath, byte[] Content)> Files(CheckReport report) =>
@@ -39,15 +42,11 @@ public static class ReportDirectory
         {
             try
             {
-                OutputTarget.CheckFile(Path.Combine(directory, file), overwrite);
+                OutputTarget.CheckFile(Path.Combine(directory, file), overwrite, parentMayBeCreated: true);
             }
             catch (OutputExistsException)
             {
                 throw new OutputExistsException($"{directory} holds a report already ({file}); pass --force to replace it");
-            }
-            catch (OutputPathException) when (!Directory.Exists(directory))
-            {
-                // the folder itself will be created; its files cannot exist yet
             }
         }
     }

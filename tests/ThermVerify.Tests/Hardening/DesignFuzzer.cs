@@ -27,14 +27,14 @@ internal static partial class DesignFuzzer
     {
         var random = new Random(number);
         var lines = seeds[random.Next(seeds.Count)].Split('\n').ToList();
-        var edits = 1 + random.Next(4);
+        var edits = 1 + random.Next(2);
         for (var e = 0; e < edits; e++)
         {
             var candidates = lines.Select((l, i) => (l, i)).Where(x => Assignment().IsMatch(x.l)).Select(x => x.i).ToList();
             if (candidates.Count == 0) break;
             var at = candidates[random.Next(candidates.Count)];
             var m = Assignment().Match(lines[at]);
-            switch (random.Next(10))
+            switch (random.Next(20))
             {
                 case 0:
                     lines.RemoveAt(at);
@@ -53,6 +53,9 @@ internal static partial class DesignFuzzer
     private static string Value(Random random, string current)
     {
         var unit = UnitOf(current);
+        // Three times in four the value keeps its unit and moves by up to four decades either way: most such designs load,
+        // so the check itself meets the extremes; the rest are far-out numbers, oddities and wrong units.
+        if (random.Next(4) != 0 && Scaled(random, current) is { } scaled) return scaled;
         return random.Next(12) switch
         {
             0 => $"\"{Oddities[random.Next(Oddities.Length)]}\"",
@@ -65,6 +68,20 @@ internal static partial class DesignFuzzer
                 ? $"\"{Number(random)} {unit} .. {Number(random)} {unit}\""
                 : current.StartsWith('"') ? $"\"{Number(random)} {unit}\"" : Number(random),
         };
+    }
+
+    /// <summary>Every number in <paramref name="current"/> multiplied by one factor 10^u, u in [-4, 4] (a range keeps its order).</summary>
+    private static string? Scaled(Random random, string current)
+    {
+        var factor = Math.Pow(10, random.NextDouble() * 8 - 4);
+        var any = false;
+        var result = NumberInText().Replace(current, m =>
+        {
+            if (!double.TryParse(m.Value, NumberStyles.Float, CultureInfo.InvariantCulture, out var v)) return m.Value;
+            any = true;
+            return (v * factor).ToString("G4", CultureInfo.InvariantCulture);
+        });
+        return any ? result : null;
     }
 
     /// <summary>A number of any sign and any decade from 1e-30 to 1e30, sometimes near the ordinary (1 to 1000).</summary>
@@ -81,6 +98,9 @@ internal static partial class DesignFuzzer
         var m = UnitPattern().Match(value);
         return m.Success ? m.Groups[1].Value : "";
     }
+
+    [GeneratedRegex(@"-?\d+(\.\d+)?([eE][-+]?\d+)?")]
+    private static partial Regex NumberInText();
 
     [GeneratedRegex(@"^(?<key>[a-z_0-9]+)\s*=\s*(?<value>[^#\n]+?)\s*(#.*)?$")]
     private static partial Regex Assignment();

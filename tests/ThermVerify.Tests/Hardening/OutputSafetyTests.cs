@@ -79,6 +79,19 @@ public sealed class OutputSafetyTests : IDisposable
     }
 
     [Fact]
+    public void A_report_folder_is_made_when_missing_and_an_existing_report_is_refused_before_the_work()
+    {
+        var design = folder.Design();
+        var report = Path.Combine(folder.DesignFolder, "new-report");
+        var made = CliRunner.Run("check", design, "-q", "--report", report);
+        Assert.True(made.ExitCode is ExitCodes.Success or ExitCodes.CheckFailed, made.Error);
+        Assert.True(File.Exists(Path.Combine(report, "report.md")));
+        var again = CliRunner.Run(["check", design, "-q", "--report", report, .. FailsIfSimulated]);
+        Assert.Equal(ExitCodes.BadInput, again.ExitCode);
+        Assert.Contains("pass --force to replace it", again.Error);
+    }
+
+    [Fact]
     public void When_one_output_is_refused_no_output_of_the_set_is_written()
     {
         var json = Path.Combine(folder.DesignFolder, "ok.json");
