@@ -48,7 +48,7 @@ public static class Failure
         OperationCanceledException => FailureKind.Cancelled,
         DesignException or QuantityFormatException or SensorFitException or SensorRangeException or SensorTableException => FailureKind.BadInput,
         FirmwareInputException or TableFormatException or BaselineException or OutputExistsException => FailureKind.BadInput,
-        OutputPathException or InputFileException or WorkLimitException => FailureKind.BadInput,
+        OutputPathException or InputFileException => FailureKind.BadInput,
         FileNotFoundException or DirectoryNotFoundException or UnauthorizedAccessException => FailureKind.BadInput,
         EngineUnsupportedException => FailureKind.BadInput,
         SimulationException or CircuitException or TimeLimitException => FailureKind.SimulationFailed,

@@ -8,7 +8,7 @@ namespace ThermVerify.Files;
 /// only when all of them are complete are they renamed over their targets, one after the other. A failure or a
 /// cancellation before that leaves every target as it was and no temporary file behind.
 /// </summary>
-public sealed class OutputSet(bool overwrite)
+internal sealed class OutputSet(bool overwrite)
 {
     private readonly List<(string Path, Func<byte[]> Content)> files = [];
     private readonly List<(string Folder, Func<IReadOnlyList<(string RelativePath, byte[] Content)>> Contents, IReadOnlyList<string> Expected)> folders = [];

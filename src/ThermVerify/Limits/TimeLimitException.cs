@@ -7,6 +7,3 @@ public sealed class TimeLimitException(TimeSpan limit, Exception? inner = null)
 {
     public TimeSpan Limit { get; } = limit;
 }
-
-/// <summary>A design asks for more work than the limits allow; the message names the limit and the option that raises it.</summary>
-public sealed class WorkLimitException(string message) : Exception(message);
