@@ -29,9 +29,17 @@ internal sealed class TerminalText(TextWriter raw) : TextWriter
             return;
         }
         var b = new StringBuilder(value.Length + 8);
-        foreach (var c in value) b.Append(Escape(c) ?? c.ToString());
+        for (var i = 0; i < value.Length; i++)
+        {
+            var c = value[i];
+            // A line end of CR LF (Windows) is a line end, not a cursor movement.
+            if (c == '\r' && i + 1 < value.Length && value[i + 1] == '\n') b.Append(c);
+            else b.Append(Escape(c) ?? c.ToString());
+        }
         Raw.Write(b.ToString());
     }
+
+    public override void WriteLine() => Raw.WriteLine();
 
     public override void Write(char[] buffer, int index, int count) => Write(new string(buffer, index, count));
 

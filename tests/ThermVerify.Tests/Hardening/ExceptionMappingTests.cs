@@ -88,6 +88,42 @@ public class ExceptionMappingTests
         Assert.Equal(ExitCodes.SimulationFailed, ErrorReport.ExitCodeFor(e));
     }
 
+    public static TheoryData<string, string> EdgesOfThePlausibleRanges => new()
+    {
+        { "gain_bandwidth = \"1 MHz\"", "gain_bandwidth = \"1 Hz\"" },
+        { "gain_bandwidth = \"1 MHz\"", "gain_bandwidth = \"100 GHz\"" },
+        { "isolation_resistor = \"47 ohm\"", "isolation_resistor = \"1 Tohm\"" },
+        { "dc_gain = \"100 dB\"", "dc_gain = \"20 dB\"" },
+        { "slew_rate = \"0.5 V/us\"", "slew_rate = \"1 V/s\"" },
+        { "budget = \"1 K\"", "budget = \"1000 K\"" },
+    };
+
+    /// <summary>Values at the ends of their plausible ranges (which once broke the sweeps, the step and the plot scaling) end in a verdict.</summary>
+    [Theory]
+    [MemberData(nameof(EdgesOfThePlausibleRanges))]
+    public void A_buffered_design_at_the_edge_of_a_plausible_range_ends_in_a_verdict_with_its_report(string line, string replacement)
+    {
+        using var folder = new HostileFolder();
+        var example = File.ReadAllText(Path.Combine(AppContext.BaseDirectory, "..", "..", "..", "..", "..", "netlists", "buffered-cable-probe.toml"));
+        Assert.Contains(line, example);
+        var design = folder.Write("edge.toml", example.Replace(line, replacement).Replace("range = \"-20 degC .. 100 degC\"", "range = \"20 degC .. 40 degC\"\nstep = \"10 K\""));
+        var run = Cli.CliRunner.Run("check", design, "-q", "--no-remedies", "--sampling-points", "2", "--report", Path.Combine(folder.DesignFolder, "report"),
+            "--json", Path.Combine(folder.DesignFolder, "edge.json"), "--junit", Path.Combine(folder.DesignFolder, "edge.xml"));
+        Assert.True(run.ExitCode is ExitCodes.Success or ExitCodes.CheckFailed or ExitCodes.SimulationFailed, $"{replacement}: exit {run.ExitCode}: {run.Error}");
+    }
+
+    [Fact]
+    public void A_report_of_a_slow_sampling_design_draws_its_waveform_inside_the_run()
+    {
+        // The leaky-pin example at 2 Hz once asked its plot for a sample time just past the end of the run.
+        using var folder = new HostileFolder();
+        var example = File.ReadAllText(Path.Combine(AppContext.BaseDirectory, "..", "..", "..", "..", "..", "netlists", "attic-fan-leaky-pin.toml"));
+        var design = folder.Write("attic.toml", example.Replace("sample_rate = \"10 Hz\"", "sample_rate = \"2 Hz\""));
+        var run = Cli.CliRunner.Run("check", design, "-q", "--report", Path.Combine(folder.DesignFolder, "report"));
+        Assert.True(run.ExitCode is ExitCodes.Success or ExitCodes.CheckFailed, run.Error);
+        Assert.True(File.Exists(Path.Combine(folder.DesignFolder, "report", "plots", "sampling.svg")));
+    }
+
     [Fact]
     public void Every_exception_a_design_can_raise_maps_to_a_documented_code_other_than_4()
     {
