@@ -98,6 +98,21 @@ public sealed class PathSafetyTests : IDisposable
     }
 
     [Fact]
+    public void A_fifo_or_a_device_as_a_baseline_or_a_firmware_table_is_refused_without_blocking()
+    {
+        if (!OperatingSystem.IsLinux()) return;
+        var fifo = Path.Combine(folder.DesignFolder, "named-pipe");
+        Process.Start("mkfifo", [fifo])!.WaitForExit();
+        var design = folder.Design();
+        var baseline = CliRunner.Run("check", design, "-q", "--baseline", fifo);
+        Assert.Equal(ExitCodes.BadInput, baseline.ExitCode);
+        Assert.Contains("FIFO", baseline.Error);
+        var table = CliRunner.Run("verify-table", design, "/dev/zero");
+        Assert.Equal(ExitCodes.BadInput, table.ExitCode);
+        Assert.Contains("is a device", table.Error);
+    }
+
+    [Fact]
     public void A_file_larger_than_the_limit_is_refused_and_the_limit_can_be_raised()
     {
         var design = folder.Design("# " + new string('x', 5 << 20) + "\n");
