@@ -63,6 +63,7 @@ internal sealed class OutputSet(bool overwrite)
         {
             foreach (var (relative, content) in Render(folder, contents))
             {
+                OutputTarget.CheckSubfolders(folder, relative);
                 var shown = Path.Combine(folder, relative);
                 rendered.Add((shown, Path.GetFullPath(shown), content, true));
             }

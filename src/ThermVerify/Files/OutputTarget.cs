@@ -46,6 +46,21 @@ internal static class OutputTarget
         }
     }
 
+    /// <summary>
+    /// The folders between an output folder and a file in it (a report's plots/) must be real folders: a link planted
+    /// there would send the file anywhere.
+    /// </summary>
+    public static void CheckSubfolders(string folder, string relativePath)
+    {
+        var current = Path.GetFullPath(folder);
+        foreach (var part in (Path.GetDirectoryName(relativePath) ?? "").Split(Path.DirectorySeparatorChar, StringSplitOptions.RemoveEmptyEntries))
+        {
+            current = Path.Combine(current, part);
+            if (KindOf(current) is { } kind and not FileKind.Directory)
+                throw new OutputPathException($"{Path.Combine(folder, relativePath)}: {current} {Describe(kind)}, where a folder of the report is needed; remove it");
+        }
+    }
+
     private static void CheckParent(string path, string parent, bool mayBeCreated)
     {
         if (Directory.Exists(parent)) return;

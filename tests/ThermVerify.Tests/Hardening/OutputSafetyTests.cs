@@ -92,6 +92,19 @@ public sealed class OutputSafetyTests : IDisposable
     }
 
     [Fact]
+    public void A_link_planted_inside_a_report_folder_is_not_written_through()
+    {
+        var report = Path.Combine(folder.DesignFolder, "report");
+        Directory.CreateDirectory(report);
+        Directory.CreateSymbolicLink(Path.Combine(report, "plots"), folder.Outside);
+        var run = CliRunner.Run("check", folder.Design(), "-q", "--report", report);
+        Assert.Equal(ExitCodes.BadInput, run.ExitCode);
+        Assert.Contains("is a link, where a folder of the report is needed", run.Error);
+        Assert.Empty(Directory.GetFileSystemEntries(folder.Outside));
+        Assert.False(File.Exists(Path.Combine(report, "report.html")));
+    }
+
+    [Fact]
     public void When_one_output_is_refused_no_output_of_the_set_is_written()
     {
         var json = Path.Combine(folder.DesignFolder, "ok.json");
