@@ -100,8 +100,11 @@ internal static class BufferNoise
             var correlated = Math.Sqrt(worst.SamplingRmsVolts * worst.SamplingRmsVolts / n + worst.FrontEndRmsVolts * worst.FrontEndRmsVolts * CorrelatedFactor(n, rho));
             return new AveragingGain(n, worst.RmsVolts / Math.Sqrt(n), correlated, correlated / perKelvin);
         }).ToList();
+        var analysis = b.Subcircuit is null
+            ? "noise analysis (adjoint)"
+            : "noise analysis of your op-amp subcircuit by the check's engine (the total only; the switch's share taken as its kT/C)";
         var method = FormattableString.Invariant(
-            $"noise analysis (adjoint) at the sampling capacitor with the switch closed, {FromHertz:G3} Hz to {to:G3} Hz; averaging: kT/C uncorrelated, front end correlated as e^(−T_s/τ), τ = {tau:G3} s");
+            $"{analysis} at the sampling capacitor with the switch closed, {FromHertz:G3} Hz to {to:G3} Hz; averaging: kT/C uncorrelated, front end correlated as e^(−T_s/τ), τ = {tau:G3} s");
         return new NoiseReport(FromHertz, to, points, tau, rho, averaging, method);
     }
 
