@@ -42,7 +42,12 @@ public static class CliApp
             return ExitCodes.BadInput;
         }
 
-        var configuration = new InvocationConfiguration { Output = output, Error = error, EnableDefaultExceptionHandler = false };
+        // Ctrl+C and SIGTERM cancel the run's token; every analysis observes it and cleans up (no temporary file, no
+        // ngspice folder or worker left), which takes far less than this generous wait before the process is ended anyway.
+        var configuration = new InvocationConfiguration
+        {
+            Output = output, Error = error, EnableDefaultExceptionHandler = false, ProcessTerminationTimeout = TimeSpan.FromSeconds(60),
+        };
         try
         {
             return parsed.Invoke(configuration);

@@ -15,8 +15,11 @@ internal sealed class ProgressDisplay(TextWriter error, bool terminal, string wh
     private int lastDone;
 
     /// <summary>A bar when <paramref name="error"/> is the process's own standard error and that is a terminal.</summary>
-    public static ProgressDisplay For(TextWriter error, string what) =>
-        new(error, ReferenceEquals(error, Console.Error) && !Console.IsErrorRedirected, what);
+    public static ProgressDisplay For(TextWriter error, string what) => error switch
+    {
+        TerminalText { Raw: var raw } when ReferenceEquals(raw, Console.Error) && !Console.IsErrorRedirected => new(raw, true, what),
+        _ => new(error, ReferenceEquals(error, Console.Error) && !Console.IsErrorRedirected, what),
+    };
 
     public void Report(RunProgress value)
     {

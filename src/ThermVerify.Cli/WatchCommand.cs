@@ -37,11 +37,12 @@ internal static class WatchCommand
             if (parsed.GetValue(report) is { } reportFolder)
                 ReportDirectory.EnsureWritable(reportFolder.FullName, parsed.GetValue(force));
             var output = parsed.InvocationConfiguration.Output;
+            using var chosen = EngineChoice.Create(parsed.GetValue(engine)!, childProcess: false);
             var options = new CheckOptions
             {
                 Threads = parsed.GetValue(threads),
                 ComputeRemedies = !parsed.GetValue(noRemedies),
-                Engine = EngineChoice.Create(parsed.GetValue(engine)!, childProcess: false),
+                Engine = chosen.Engine,
                 Cancel = cancel,
             };
             CheckResult? previous = null;

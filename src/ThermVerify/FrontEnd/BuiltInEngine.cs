@@ -1,3 +1,4 @@
+using System.Numerics;
 using ThermVerify.Circuits;
 using ThermVerify.Simulation;
 using ThermVerify.Simulation.Switched;
@@ -29,6 +30,20 @@ public sealed class BuiltInEngine : ICheckEngine
         ExactSwitchedTransient.TryStart(circuit, out var exact, out _)
             ? new Exact(exact, () => new Stepped(new TransientSimulation(circuit, options)))
             : new Stepped(new TransientSimulation(circuit, options));
+
+    (double[] FrequenciesHertz, Complex[][] Volts) ICheckEngine.AcSweep(Circuit circuit, double startHertz, double stopHertz, int pointsPerDecade,
+        IReadOnlyList<string> nodes)
+    {
+        var result = AcAnalysis.Run(circuit, FrequencySweep.Logarithmic(startHertz, stopHertz, pointsPerDecade));
+        return ([.. result.FrequenciesHertz], [.. nodes.Select(result.Voltage)]);
+    }
+
+    (double[] FrequenciesHertz, double[] VoltsPerRootHertz) ICheckEngine.NoiseSweep(Circuit circuit, string node, string inputSource,
+        double startHertz, double stopHertz, int pointsPerDecade)
+    {
+        var result = NoiseAnalysis.Run(circuit, node, FrequencySweep.Logarithmic(startHertz, stopHertz, pointsPerDecade));
+        return ([.. result.FrequenciesHertz], result.OutputDensity);
+    }
 
     /// <summary>Time stepping; only the samples are read, so a long run keeps no recorded waveform.</summary>
     private sealed class Stepped(TransientSimulation simulation) : ISampledTransient

@@ -1,3 +1,4 @@
+using System.Numerics;
 using ThermVerify.Circuits;
 using ThermVerify.Simulation;
 
@@ -19,6 +20,18 @@ public interface ICheckEngine
 
     /// <summary>A transient of <paramref name="circuit"/> from its operating point, read at rising times.</summary>
     internal ISampledTransient StartTransient(Circuit circuit, TransientOptions options);
+
+    /// <summary>
+    /// Small-signal voltages of <paramref name="nodes"/> driven by the circuit's AC sources, logarithmic in frequency
+    /// (as SPICE's <c>.ac dec</c>); the engine says at which frequencies. The buffer checks of a design's own op-amp
+    /// subcircuit measure its loop gain this way.
+    /// </summary>
+    internal (double[] FrequenciesHertz, Complex[][] Volts) AcSweep(Circuit circuit, double startHertz, double stopHertz, int pointsPerDecade,
+        IReadOnlyList<string> nodes);
+
+    /// <summary>The output noise density (V/√Hz) at <paramref name="node"/>, logarithmic in frequency (as SPICE's <c>.noise</c>).</summary>
+    internal (double[] FrequenciesHertz, double[] VoltsPerRootHertz) NoiseSweep(Circuit circuit, string node, string inputSource,
+        double startHertz, double stopHertz, int pointsPerDecade);
 }
 
 /// <summary>A running transient: node voltages at times that never go back.</summary>
@@ -45,4 +58,12 @@ internal static class CheckEngineCalls
 
     public static ISampledTransient StartTransient(this ICheckEngine engine, Circuit circuit, TransientOptions options) =>
         engine.StartTransient(circuit, options);
+
+    public static (double[] FrequenciesHertz, Complex[][] Volts) AcSweep(this ICheckEngine engine, Circuit circuit,
+        double startHertz, double stopHertz, int pointsPerDecade, IReadOnlyList<string> nodes) =>
+        engine.AcSweep(circuit, startHertz, stopHertz, pointsPerDecade, nodes);
+
+    public static (double[] FrequenciesHertz, double[] VoltsPerRootHertz) NoiseSweep(this ICheckEngine engine, Circuit circuit, string node,
+        string inputSource, double startHertz, double stopHertz, int pointsPerDecade) =>
+        engine.NoiseSweep(circuit, node, inputSource, startHertz, stopHertz, pointsPerDecade);
 }

@@ -29,6 +29,7 @@ public sealed record SamplingOutcome(
 /// </summary>
 internal static class SamplingRun
 {
+    /// <summary>The default bound on conversions per run; the run's limit (--max-conversions) applies unless a caller gives one.</summary>
     public const int DefaultMaximumConversions = 20000;
 
     /// <summary>The first conversion alone, from the settled front end.</summary>
@@ -40,16 +41,17 @@ internal static class SamplingRun
     }
 
     public static SamplingOutcome Run(FrontEndDesign design, double celsius, double? prechargeVolts, double settleVolts,
-        int maximumConversions = DefaultMaximumConversions, CancellationToken cancel = default, ICheckEngine? engine = null)
+        int? maximumConversions = null, CancellationToken cancel = default, ICheckEngine? engine = null)
     {
-        var simulation = Start(engine, design, celsius, prechargeVolts, settleVolts, maximumConversions);
+        var limit = maximumConversions ?? Limits.Work.Limits.MaximumConversions;
+        var simulation = Start(engine, design, celsius, prechargeVolts, settleVolts, limit);
         if (simulation.TryPeriodicSteadyState(FrontEndNodes.SamplingSwitch, FrontEndNodes.Hold, out var exactSteady))
             return ApproachTo(exactSteady);
 
         var samples = new List<double>();
         var stableRuns = 0;
         var steadyRatioRuns = 0;
-        for (var k = 0; k < maximumConversions; k++)
+        for (var k = 0; k < limit; k++)
         {
             cancel.ThrowIfCancellationRequested();
             samples.Add(simulation.VoltageAt(FrontEndCircuit.SampleTimeSeconds(design, k), FrontEndNodes.Hold));
@@ -67,8 +69,9 @@ internal static class SamplingRun
             if (steadyRatioRuns >= 3) return Outcome(samples[k] + delta * ratio / (1 - ratio), extrapolated: true);
         }
         throw new SimulationException(
-            $"Sampling at {celsius:0.##} °C did not settle to {settleVolts * 1e6:G3} µV within {maximumConversions} conversions " +
-            $"(last change {(samples[^1] - samples[^2]) * 1e6:G3} µV); loosen [check] settle_limit or check the front end for oscillation.");
+            $"Sampling at {celsius:0.##} °C did not settle to {settleVolts * 1e6:G3} µV within {limit} conversions " +
+            $"(last change {(samples.Count > 1 ? (samples[^1] - samples[^2]) * 1e6 : double.NaN):G3} µV); loosen [check] settle_limit, raise --max-conversions, " +
+            "or check the front end for oscillation.");
 
         SamplingOutcome Outcome(double steady, bool extrapolated) =>
             new(celsius, prechargeVolts, samples[0], steady, samples.Count, extrapolated, samples);
@@ -79,7 +82,7 @@ internal static class SamplingRun
         {
             var approach = new List<double>();
             var near = 0;
-            for (var k = 0; k < Math.Min(maximumConversions, ApproachConversions) && near < 3; k++)
+            for (var k = 0; k < Math.Min(limit, ApproachConversions) && near < 3; k++)
             {
                 cancel.ThrowIfCancellationRequested();
                 approach.Add(simulation.VoltageAt(FrontEndCircuit.SampleTimeSeconds(design, k), FrontEndNodes.Hold));

@@ -54,8 +54,6 @@ internal static class SpiceDeckWriter
                 deck.AppendLine($"* node {node}: {OneLine(what)}");
         deck.AppendLine($".options tnom={Format(NominalCelsius)} numdgt=15 {Tolerances(analysis)}");
         deck.AppendLine($".temp {Format(circuit.TemperatureCelsius)}");
-        foreach (var include in lines.Includes)
-            deck.AppendLine($".include \"{include}\"");
         deck.Append(lines.Netlist);
         if (analysis is TransientSweep { StepGuards.Count: > 0 } guarded)
             WriteGuards(deck, guarded.StepGuards);
