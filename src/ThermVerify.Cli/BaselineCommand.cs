@@ -1,8 +1,11 @@
 using System.CommandLine;
+using ThermVerify.Api;
 using ThermVerify.Baselines;
+using ThermVerify.Check;
 using ThermVerify.Design;
+using ThermVerify.Files;
 using ThermVerify.Reporting;
-using ThermVerify.Verification;
+using ThermVerify.Reporting.Text;
 
 namespace ThermVerify.Cli;
 
@@ -23,26 +26,20 @@ internal static class BaselineCommand
         {
             design, outFile, force, threads,
         };
-        command.SetAction((parsed, cancel) =>
+        var work = WorkOptions.AddTo(command);
+        command.SetAction((parsed, interrupt) => work.Run(parsed, interrupt, cancel =>
         {
             var path = parsed.GetValue(design)!.FullName;
-            var target = parsed.GetValue(outFile)?.FullName ?? Baseline.DefaultPathFor(path);
+            var target = parsed.GetValue(outFile)?.ToString() ?? Baseline.DefaultPathFor(path);
+            Baseline? baseline = null;
             // Refuse before the simulations run rather than after.
-            if (!parsed.GetValue(force) && File.Exists(target))
-                throw new OutputExistsException($"{target} exists already; pass --force to replace it");
-            var result = FrontEndCheck.Run(DesignLoader.Load(path), new CheckOptions { Threads = parsed.GetValue(threads), ComputeRemedies = false, Cancel = cancel });
-            var baseline = BaselineFigures.From(result, CheckJson.ToolVersion());
-            BaselineFile.Write(target, baseline, parsed.GetValue(force));
-
-            var output = parsed.InvocationConfiguration.Output;
-            output.WriteLine($"baseline written: {target} ({baseline.Figures.Count} figures; the check itself {(result.Passed ? "passes" : "fails")})");
-            var table = new TextTable("figure", "value", "better", "tolerance");
-            foreach (var f in baseline.Figures)
-                table.AddRow(f.Id, f.Value is { } v ? FormattableString.Invariant($"{v:0.####} {f.Unit}") : "none", f.Better == Better.Lower ? "lower" : "higher",
-                    FormattableString.Invariant($"±{f.Tolerance:0.####} {f.Unit}"));
-            output.Write(table);
-            return Task.FromResult(ExitCodes.Success);
-        });
+            var outputs = new OutputSet(parsed.GetValue(force)).Add(target, () => BaselineFile.ToJson(baseline!));
+            outputs.CheckTargets();
+            (baseline, var result) = Verifier.MakeBaseline(Verifier.LoadDesign(path), new CheckOptions { Threads = parsed.GetValue(threads), Cancel = cancel });
+            outputs.Write();
+            parsed.InvocationConfiguration.Output.Write(BaselineText.Render(target, baseline, result.Passed));
+            return ExitCodes.Success;
+        }));
         return command;
     }
 }

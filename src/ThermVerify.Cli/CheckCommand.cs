@@ -1,9 +1,10 @@
 using System.CommandLine;
-using ThermVerify.Baselines;
+using ThermVerify.Reporting.Text;
+using ThermVerify.Api;
+using ThermVerify.Check;
 using ThermVerify.Design;
-using ThermVerify.Firmware;
+using ThermVerify.Files;
 using ThermVerify.Reporting;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Cli;
 
@@ -37,77 +38,49 @@ internal static class CheckCommand
         {
             design, json, threads, noRemedies, quiet, report, junit, baseline, force, samplingPoints, engine, process,
         };
+        var work = WorkOptions.AddTo(command);
         threads.Validators.Add(r =>
         {
-            if (r.GetValueOrDefault<int>() < 1) r.AddError("--threads must be at least 1");
+            if (r.GetValueOrDefault<int>() is < 1 or > 1024) r.AddError("--threads must be between 1 and 1024");
         });
         samplingPoints.Validators.Add(r =>
         {
             if (r.GetValueOrDefault<int>() < 2) r.AddError("--sampling-points must be at least 2 (both ends of the range)");
         });
-        command.SetAction((parsed, cancel) =>
+        command.SetAction((parsed, interrupt) => work.Run(parsed, interrupt, cancel =>
         {
-            var path = parsed.GetValue(design)!.FullName;
-            var loaded = DesignLoader.Load(path);
-            // Refuse to replace outputs before the work, not after it: a long run is not wasted on a refusal.
-            var overwrite = parsed.GetValue(force);
-            foreach (var file in new[] { parsed.GetValue(json), parsed.GetValue(junit) })
-                if (file is { Exists: true } && !overwrite)
-                    throw new OutputExistsException($"{file} exists already; pass --force to replace it");
-            if (parsed.GetValue(report) is { } folder)
-                ReportDirectory.EnsureWritable(folder.FullName, overwrite);
-            var chosen = EngineChoice.Create(parsed.GetValue(engine)!, parsed.GetValue(process));
-            var result = FrontEndCheck.Run(loaded, new CheckOptions
+            var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
+            var designPath = parsed.GetValue(design)!.ToString();
+            // Every output is declared and checked before the work, and written as one set after it.
+            CheckRun? run = null;
+            var outputs = new OutputSet(parsed.GetValue(force));
+            if (parsed.GetValue(json) is { } jsonFile)
+                outputs.Add(jsonFile.ToString(), () => CheckJson.Write(run!.Result, designPath));
+            if (parsed.GetValue(junit) is { } junitFile)
+                outputs.Add(junitFile.ToString(), () => CheckJUnit.Write(run!.Result, run.Baseline));
+            if (parsed.GetValue(report) is { } reportFolder)
+                outputs.AddFolder(reportFolder.ToString(), () => ReportDirectory.Files(CheckReport.Build(run!.Result, designPath, run.Baseline)),
+                    ReportDirectory.ExpectedFiles);
+            outputs.CheckTargets();
+            using var chosen = EngineChoice.Create(parsed.GetValue(engine)!, parsed.GetValue(process));
+            run = Verifier.Check(loaded, new CheckOptions
             {
                 Threads = parsed.GetValue(threads),
                 ComputeRemedies = !parsed.GetValue(noRemedies),
                 MaximumSamplingPoints = parsed.GetValue(samplingPoints),
                 Cancel = cancel,
-                Engine = chosen,
-            });
-            var faults = FaultThresholdsOrNull(loaded);
-            if (parsed.GetValue(json) is { } jsonFile)
-                AtomicFile.WriteAllText(jsonFile.FullName, CheckJson.Write(result, parsed.GetValue(design)!.ToString(), faults), overwrite);
-
-            var comparison = parsed.GetValue(baseline) is { } baselineFile
-                ? BaselineComparison.Compare(baselineFile.ToString(), BaselineFile.Read(baselineFile.FullName), BaselineFigures.From(result, CheckJson.ToolVersion()))
-                : null;
-            if (parsed.GetValue(junit) is { } junitFile)
-                AtomicFile.WriteAllText(junitFile.FullName, CheckJUnit.Write(result, comparison), overwrite);
-            if (parsed.GetValue(report) is { } reportFolder)
-                ReportDirectory.Write(CheckReport.Build(result, parsed.GetValue(design)!.ToString(), comparison), reportFolder.FullName, overwrite);
+                Engine = chosen.Engine,
+            }, parsed.GetValue(baseline)?.FullName);
+            outputs.Write();
 
             var output = parsed.InvocationConfiguration.Output;
-            var summary = CheckSummaryText.Render(result);
-            if (faults is not null)
-            {
-                var caution = summary.LastIndexOf(CheckSummaryText.Caution, StringComparison.Ordinal);
-                summary = summary.Insert(caution, FaultText.Render(faults) + Environment.NewLine + Environment.NewLine);
-            }
-            output.Write(parsed.GetValue(quiet) ? summary.Split('\n').First(l => l.StartsWith("PASS") || l.StartsWith("FAIL")) + "\n" : summary);
-            if (comparison is not null)
-                output.Write(parsed.GetValue(quiet) ? BaselineTable.Render(comparison).Split('\n')[0] + "\n" : "\n" + BaselineTable.Render(comparison));
+            output.Write(parsed.GetValue(quiet) ? CheckSummaryText.VerdictLine(run.Result) : CheckSummaryText.Render(run.Result));
+            if (run.Baseline is { } comparison)
+                output.Write(parsed.GetValue(quiet) ? BaselineTable.Headline(comparison) + "\n" : "\n" + BaselineTable.Render(comparison));
             if (parsed.GetValue(report) is { } written)
                 output.WriteLine($"report: {Path.Combine(written.ToString(), ReportDirectory.HtmlFile)}, {Path.Combine(written.ToString(), ReportDirectory.MarkdownFile)}");
-            var passed = result.Passed && comparison?.Passed != false;
-            return Task.FromResult(passed ? ExitCodes.Success : ExitCodes.CheckFailed);
-        });
+            return run.Passed ? ExitCodes.Success : ExitCodes.CheckFailed;
+        }));
         return command;
-    }
-
-    /// <summary>
-    /// The codes an open or shorted sensor or fixed resistor produce, and thresholds with margin; none when the
-    /// tolerances leave no room between a fault and a healthy reading (the table command explains why).
-    /// </summary>
-    private static FaultThresholds? FaultThresholdsOrNull(FrontEndDesign design)
-    {
-        try
-        {
-            return FaultAnalysis.Thresholds(FirmwareFromDesign.Model(design, correctForLoading: false), FirmwareFromDesign.Tolerances(design));
-        }
-        catch (FirmwareInputException)
-        {
-            return null;
-        }
     }
 }

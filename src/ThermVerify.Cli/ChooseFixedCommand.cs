@@ -1,10 +1,10 @@
 using System.CommandLine;
-using System.Globalization;
-using System.Text;
+using ThermVerify.Api;
 using ThermVerify.Components;
 using ThermVerify.Design;
 using ThermVerify.Quantities;
 using ThermVerify.Reporting;
+using ThermVerify.Reporting.Text;
 using ThermVerify.Tolerances;
 
 namespace ThermVerify.Cli;
@@ -39,15 +39,22 @@ internal static class ChooseFixedCommand
             design, series, objective, at, min, max, top, threads,
         };
         var outputs = AnalysisOutputs.AddTo(command);
-        command.SetAction((parsed, cancel) =>
+        var work = WorkOptions.AddTo(command);
+        command.SetAction((parsed, interrupt) => work.Run(parsed, interrupt, cancel =>
         {
             var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
             var seriesName = parsed.GetValue(series)!;
             if (!ESeries.TryParse(seriesName, out var chosen))
                 throw new UsageException($"--series {seriesName}: not an IEC 60063 series; use E6, E12, E24, E48, E96 or E192.");
-            outputs.EnsureWritable(parsed);
+            IReadOnlyList<FixedResistorCandidate>? ranked = null;
+            FixedResistorSearchOptions? options = null;
+            var designPath = parsed.GetValue(design)!.ToString();
+            var set = outputs.NewSet(parsed);
+            outputs.Declare(parsed, set, () => FixedResistorJson.Write(ranked!, loaded, options!, designPath),
+                () => FixedResistorReport.Build(ranked!, loaded, options!, designPath, parsed.GetValue(top)));
+            set.CheckTargets();
             var goal = Objectives[parsed.GetValue(objective)!];
-            var options = new FixedResistorSearchOptions
+            options = new FixedResistorSearchOptions
             {
                 Series = chosen,
                 Objective = goal,
@@ -55,39 +62,19 @@ internal static class ChooseFixedCommand
                 MinimumOhms = parsed.GetValue(min) is { } lo ? QuantityParser.Parse(lo, UnitKind.Ohm).Value : null,
                 MaximumOhms = parsed.GetValue(max) is { } hi ? QuantityParser.Parse(hi, UnitKind.Ohm).Value : null,
                 Threads = Math.Max(1, parsed.GetValue(threads)),
-                Progress = goal == FixedResistorObjective.SlopeAt ? null : ProgressDisplay.For(parsed.InvocationConfiguration.Error, "candidates"),
+                Progress = goal == FixedResistorObjective.SlopeAt ? null : work.Progress(parsed, "candidates"),
                 Cancel = cancel,
             };
             if (options.MinimumOhms is { } minimum && options.MaximumOhms is { } maximum && !(minimum > 0 && maximum >= minimum))
                 throw new UsageException($"--min {parsed.GetValue(min)} and --max {parsed.GetValue(max)}: give a positive range with --min not above --max.");
-            var ranked = FixedResistorSearch.Run(loaded, options);
+            ranked = Verifier.ChooseFixed(loaded, options);
             if (ranked.Count == 0)
                 throw new UsageException($"No {chosen} value lies between the bounds; widen --min/--max or choose a finer series.");
-            parsed.InvocationConfiguration.Output.Write(Render(loaded, chosen, goal, ranked, parsed.GetValue(top)));
-            var designPath = parsed.GetValue(design)!.ToString();
-            outputs.Write(parsed, () => FixedResistorJson.Write(ranked, loaded, options, designPath),
-                () => FixedResistorReport.Build(ranked, loaded, options, designPath, parsed.GetValue(top)));
-            return Task.FromResult(ExitCodes.Success);
-        });
+            set.Write();
+            parsed.InvocationConfiguration.Output.Write(FixedResistorText.Render(loaded, chosen, goal, ranked, parsed.GetValue(top)));
+            outputs.Announce(parsed);
+            return ExitCodes.Success;
+        }));
         return command;
     }
-
-    private static string Render(FrontEndDesign design, ESeries series, FixedResistorObjective goal, IReadOnlyList<FixedResistorCandidate> ranked, int top)
-    {
-        var text = new StringBuilder();
-        text.AppendLine(FormattableString.Invariant($"{design.Name}: {ranked.Count} {series} candidates, ranked by {Describe(goal)}; now {Ohms(design.Divider.FixedResistorOhms)}"));
-        var table = new TextTable("rank", "R_fixed", "worst error (K)", "at (°C)", "worst K/LSB", "|dV/dT| (mV/K)", "self-heating (mK)", "budget");
-        foreach (var (c, i) in ranked.Take(Math.Max(1, top)).Select((c, i) => (c, i)))
-            table.AddRow((i + 1).ToString(CultureInfo.InvariantCulture), Ohms(c.Ohms), F(c.WorstErrorKelvin, "0.000"), F(c.WorstErrorCelsius, "0.##"),
-                F(c.WorstKelvinPerLsb, "0.0000"), F(c.SlopeVoltsPerKelvin * 1e3, "0.000"), F(c.MaximumSelfHeatingKelvin * 1e3, "0.0"),
-                goal == FixedResistorObjective.SlopeAt ? "-" : c.WithinBudget ? "within" : "over");
-        text.Append(table);
-        return text.ToString();
-    }
-
-    private static string Describe(FixedResistorObjective goal) => FixedResistorReport.Describe(goal);
-
-    private static string Ohms(double v) => EngineeringFormat.Format(v, UnitKind.Ohm, 3);
-
-    private static string F(double v, string format) => double.IsFinite(v) ? v.ToString(format, CultureInfo.InvariantCulture) : "-";
 }

@@ -1,7 +1,9 @@
 using System.CommandLine;
+using ThermVerify.Api;
+using ThermVerify.Check;
 using ThermVerify.Design;
 using ThermVerify.Reporting;
-using ThermVerify.Verification;
+using ThermVerify.Reporting.Text;
 
 namespace ThermVerify.Cli;
 
@@ -15,18 +17,18 @@ internal static class CompareCommand
         var threads = new Option<int>("--threads") { Description = "simulations in parallel", DefaultValueFactory = _ => Environment.ProcessorCount };
         var noRemedies = new Option<bool>("--no-remedies") { Description = "skip the simulations that search for remedies" };
         var command = new Command("compare", "Check two designs and show them side by side with the same budget table.") { first, second, threads, noRemedies };
+        var work = WorkOptions.AddTo(command);
         threads.Validators.Add(r =>
         {
             if (r.GetValueOrDefault<int>() < 1) r.AddError("--threads must be at least 1");
         });
-        command.SetAction((parsed, cancel) =>
+        command.SetAction((parsed, interrupt) => work.Run(parsed, interrupt, cancel =>
         {
             var options = new CheckOptions { Threads = parsed.GetValue(threads), ComputeRemedies = !parsed.GetValue(noRemedies), Cancel = cancel };
-            var a = FrontEndCheck.Run(DesignLoader.Load(parsed.GetValue(first)!.FullName), options);
-            var b = FrontEndCheck.Run(DesignLoader.Load(parsed.GetValue(second)!.FullName), options);
-            parsed.InvocationConfiguration.Output.Write(ComparisonText.Render(a, b));
-            return Task.FromResult(a.Passed && b.Passed ? ExitCodes.Success : ExitCodes.CheckFailed);
-        });
+            var pair = Verifier.Compare(Verifier.LoadDesign(parsed.GetValue(first)!.FullName), Verifier.LoadDesign(parsed.GetValue(second)!.FullName), options);
+            parsed.InvocationConfiguration.Output.Write(ComparisonText.Render(pair.First, pair.Second));
+            return pair.BothPass ? ExitCodes.Success : ExitCodes.CheckFailed;
+        }));
         return command;
     }
 }

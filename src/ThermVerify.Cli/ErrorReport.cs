@@ -1,11 +1,4 @@
-using ThermVerify.Baselines;
-using ThermVerify.Design;
-using ThermVerify.Firmware;
-using ThermVerify.Quantities;
-using ThermVerify.Reporting;
-using ThermVerify.Sensors;
-using ThermVerify.Simulation;
-using ThermVerify.Circuits;
+using ThermVerify.Api;
 using ThermVerify.Ngspice;
 
 namespace ThermVerify.Cli;
@@ -15,7 +8,7 @@ public static class ErrorReport
 {
     public static int Write(Exception exception, TextWriter error)
     {
-        exception = Unwrap(exception);
+        exception = Failure.Unwrap(exception);
         var code = ExitCodeFor(exception);
         if (code == ExitCodes.InternalError)
         {
@@ -33,22 +26,16 @@ public static class ErrorReport
         return code;
     }
 
-    /// <summary>Parallel work reports its failures wrapped; the first inner failure is the one to explain.</summary>
-    private static Exception Unwrap(Exception exception) =>
-        exception is AggregateException { InnerExceptions.Count: > 0 } aggregate ? Unwrap(aggregate.InnerExceptions[0]) : exception;
-
-    public static int ExitCodeFor(Exception exception) => Unwrap(exception) switch
+    public static int ExitCodeFor(Exception exception) => Failure.Unwrap(exception) switch
     {
-        OperationCanceledException => ExitCodes.Cancelled,
-        FirmwareInputException or TableFormatException => ExitCodes.BadInput,
-        DesignException or UsageException or QuantityFormatException or SensorFitException => ExitCodes.BadInput,
-        SensorRangeException or SensorTableException or OutputExistsException => ExitCodes.BadInput,
-        BaselineException => ExitCodes.BadInput,
-        FileNotFoundException or DirectoryNotFoundException or UnauthorizedAccessException => ExitCodes.BadInput,
-        NgspiceUnavailableException or EngineUnsupportedException => ExitCodes.BadInput,
+        UsageException or NgspiceUnavailableException => ExitCodes.BadInput,
         NgspiceException => ExitCodes.SimulationFailed,
-        SimulationException => ExitCodes.SimulationFailed,
-        CircuitException => ExitCodes.SimulationFailed,
-        _ => ExitCodes.InternalError,
+        var other => Failure.KindOf(other) switch
+        {
+            FailureKind.BadInput => ExitCodes.BadInput,
+            FailureKind.SimulationFailed => ExitCodes.SimulationFailed,
+            FailureKind.Cancelled => ExitCodes.Cancelled,
+            _ => ExitCodes.InternalError,
+        },
     };
 }

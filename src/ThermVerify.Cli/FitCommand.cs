@@ -1,6 +1,7 @@
 using System.CommandLine;
 using ThermVerify.Quantities;
 using ThermVerify.Reporting;
+using ThermVerify.Reporting.Text;
 using ThermVerify.Sensors;
 using static ThermVerify.Cli.SensorCommand;
 
@@ -19,40 +20,12 @@ internal static class FitCommand
         var command = new Command("fit", "Fit Beta and Steinhart–Hart coefficients to 2 or more (temperature, resistance) points.") { points };
         command.SetAction(parsed =>
         {
-            var output = parsed.InvocationConfiguration.Output;
             var summary = SensorFitSummary.Fit(parsed.GetValue(points)!.Select(ParsePoint).ToList());
-
-            output.WriteLine($"Beta (from the outermost points): β = {Number(summary.Beta.Model.Beta, "0.###")} K, " +
-                             $"R0 = {EngineeringFormat.Format(summary.Beta.Model.R0Ohms, UnitKind.Ohm, 6)} at {Number(summary.Beta.Model.T0Celsius, "0.###")} °C");
-            WriteFit(output, "Steinhart–Hart (A + B ln R + C ln³R)", summary.SteinhartHart);
-            WriteFit(output, "Steinhart–Hart with squared term (+ D ln²R)", summary.SteinhartHartWithSquaredTerm);
-            output.WriteLine();
-
-            var table = new TextTable(["T (°C)", "R", "Beta residual (K)",
-                .. summary.SteinhartHart is null ? Array.Empty<string>() : ["S–H residual (K)"],
-                .. summary.SteinhartHartWithSquaredTerm is null ? Array.Empty<string>() : ["S–H4 residual (K)"]]);
-            for (var i = 0; i < summary.Points.Count; i++)
-            {
-                var p = summary.Points[i];
-                table.AddRow([Number(p.Celsius, "0.###"), EngineeringFormat.Format(p.Ohms, UnitKind.Ohm, 6), Number(summary.Beta.ResidualsKelvin[i], "0.00000"),
-                    .. summary.SteinhartHart is null ? Array.Empty<string>() : [Number(summary.SteinhartHart.ResidualsKelvin[i], "0.0000000")],
-                    .. summary.SteinhartHartWithSquaredTerm is null ? Array.Empty<string>() : [Number(summary.SteinhartHartWithSquaredTerm.ResidualsKelvin[i], "0.0000000")]]);
-            }
-            output.Write(table);
+            parsed.InvocationConfiguration.Output.Write(FitText.Render(summary));
             return ExitCodes.Success;
         });
         return command;
     }
-
-    private static void WriteFit(TextWriter output, string title, SensorFit<SteinhartHartThermistor>? fit)
-    {
-        if (fit is null) return;
-        var m = fit.Model;
-        output.WriteLine($"{title}: A = {Sci(m.A)}, B = {Sci(m.B)}, C = {Sci(m.C)}" + (m.D != 0 ? $", D = {Sci(m.D)}" : "") +
-                         $"; worst residual {Number(fit.MaxAbsResidualKelvin, "G3")} K");
-    }
-
-    private static string Sci(double value) => Number(value, "0.0000000000E+0");
 
     private static TablePoint ParsePoint(string text)
     {

@@ -1,8 +1,9 @@
 using System.CommandLine;
-using System.Globalization;
-using System.Text;
+using ThermVerify.Api;
 using ThermVerify.Design;
+using ThermVerify.Files;
 using ThermVerify.Reporting;
+using ThermVerify.Reporting.Text;
 using ThermVerify.Tolerances;
 
 namespace ThermVerify.Cli;
@@ -25,95 +26,41 @@ internal static class MonteCarloCommand
             design, units, seed, threads, minimumYield, csv, unitsCsv, noSettling,
         };
         var outputs = AnalysisOutputs.AddTo(command);
-        units.Validators.Add(r => { if (r.GetValueOrDefault<int>() < 2) r.AddError("--units must be at least 2"); });
-        threads.Validators.Add(r => { if (r.GetValueOrDefault<int>() < 1) r.AddError("--threads must be at least 1"); });
-        command.SetAction((parsed, cancel) =>
+        var work = WorkOptions.AddTo(command);
+        units.Validators.Add(r => { if (r.GetValueOrDefault<int>() is < 2 or > MaximumUnits) r.AddError($"--units must be between 2 and {MaximumUnits}"); });
+        threads.Validators.Add(r => { if (r.GetValueOrDefault<int>() is < 1 or > 1024) r.AddError("--threads must be between 1 and 1024"); });
+        command.SetAction((parsed, interrupt) => work.Run(parsed, interrupt, cancel =>
         {
             var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
-            outputs.EnsureWritable(parsed);
+            var designPath = parsed.GetValue(design)!.ToString();
+            MonteCarloResult? result = null;
+            var set = outputs.NewSet(parsed);
+            outputs.Declare(parsed, set, () => MonteCarloJson.Write(result!, loaded, designPath, !parsed.GetValue(noSettling)),
+                () => MonteCarloReport.Build(result!, loaded, designPath, parsed.GetValue(minimumYield)));
+            if (parsed.GetValue(csv) is { } envelopeFile)
+                set.Add(envelopeFile.ToString(), () => MonteCarloText.EnvelopeCsv(result!));
+            if (parsed.GetValue(unitsCsv) is { } unitFile)
+                set.Add(unitFile.ToString(), () => MonteCarloText.UnitsCsv(result!));
+            set.CheckTargets();
             var output = parsed.InvocationConfiguration.Output;
-            var result = MonteCarlo.Run(loaded, new MonteCarloOptions
+            result = Verifier.MonteCarlo(loaded, new MonteCarloOptions
             {
                 Units = parsed.GetValue(units),
                 Seed = parsed.GetValue(seed),
                 Threads = parsed.GetValue(threads),
                 SimulateSettling = !parsed.GetValue(noSettling),
-                Progress = ProgressDisplay.For(parsed.InvocationConfiguration.Error, "units"),
+                Progress = work.Progress(parsed, "units"),
                 Cancel = cancel,
             });
-            if (parsed.GetValue(csv) is { } envelopeFile)
-                AtomicFile.WriteAllText(envelopeFile.FullName, EnvelopeCsv(result));
-            if (parsed.GetValue(unitsCsv) is { } unitFile)
-                AtomicFile.WriteAllText(unitFile.FullName, UnitsCsv(result));
-            output.Write(Summary(loaded, result));
-            var designPath = parsed.GetValue(design)!.ToString();
-            outputs.Write(parsed, () => MonteCarloJson.Write(result, loaded, designPath, !parsed.GetValue(noSettling)),
-                () => MonteCarloReport.Build(result, loaded, designPath, parsed.GetValue(minimumYield)));
+            set.Write();
+            output.Write(MonteCarloText.Render(loaded, result));
+            outputs.Announce(parsed);
             var passed = parsed.GetValue(minimumYield) is not { } wanted || 100 * result.Yield >= wanted;
-            return Task.FromResult(passed ? ExitCodes.Success : ExitCodes.CheckFailed);
-        });
+            return passed ? ExitCodes.Success : ExitCodes.CheckFailed;
+        }));
         return command;
     }
 
-    private static string Summary(FrontEndDesign design, MonteCarloResult r)
-    {
-        var text = new StringBuilder();
-        var distribution = r.Parameters.Count > 0 ? r.Parameters[0].Distribution.ToString() : "none";
-        text.AppendLine(Invariant($"{design.Name}: {r.Units} units, seed {r.Seed}, tolerances {distribution}"));
-        text.AppendLine(Invariant($"yield: {100 * r.Yield:0.00} % within budget ({r.UnitsWithinBudget} of {r.Units}; ±{100 * r.YieldStandardError:0.00} % standard error)"));
-        text.AppendLine(Invariant($"largest self-heating in any unit: {r.MaximumSelfHeatingKelvin * 1e3:0.###} mK"));
-        text.AppendLine();
-        text.AppendLine("error envelope (K, reported minus true):");
-        var headers = new List<string> { "T (°C)", "budget", "nominal", "min" };
-        headers.AddRange(r.Percentiles.Select(p => Invariant($"p{p:0.###}")));
-        headers.Add("max");
-        var table = new TextTable([.. headers]);
-        var every = Math.Max(1, r.Envelope.Count / 20);
-        for (var i = 0; i < r.Envelope.Count; i++)
-        {
-            if (i % every != 0 && i != r.Envelope.Count - 1) continue;
-            var e = r.Envelope[i];
-            table.AddRow([Invariant($"{e.Celsius:0.##}"), K(e.BudgetKelvin), K(e.NominalErrorKelvin), K(e.MinKelvin),
-                .. e.PercentileKelvin.Select(K), K(e.MaxKelvin)]);
-        }
-        text.Append(table);
-        text.AppendLine();
-        text.AppendLine(Invariant($"contributors, share of the error variance at {r.ContributorsCelsius:0.##} °C (σ = {Math.Sqrt(r.VarianceKelvinSquared):0.####} K):"));
-        var shares = new TextTable("tolerance", "share", "±tolerance");
-        foreach (var s in r.Contributors)
-        {
-            var p = r.Parameters.FirstOrDefault(q => q.Key == s.Key);
-            shares.AddRow(s.Key, Invariant($"{100 * s.Share:0.0} %"), p is null ? "" : Tolerance(p));
-        }
-        text.Append(shares);
-        return text.ToString();
-    }
-
-    private static string EnvelopeCsv(MonteCarloResult r)
-    {
-        var text = new StringBuilder("celsius,budget_k,nominal_k,min_k,");
-        text.Append(string.Join(",", r.Percentiles.Select(p => Invariant($"p{p:0.###}_k")))).AppendLine(",max_k,mean_k,sd_k");
-        foreach (var e in r.Envelope)
-            text.AppendLine(string.Join(",", new[] { e.Celsius, e.BudgetKelvin, e.NominalErrorKelvin, e.MinKelvin }
-                .Concat(e.PercentileKelvin).Concat([e.MaxKelvin, e.MeanKelvin, e.StandardDeviationKelvin]).Select(R)));
-        return text.ToString();
-    }
-
-    private static string UnitsCsv(MonteCarloResult r)
-    {
-        var text = new StringBuilder("unit,worst_error_k,worst_celsius,");
-        text.AppendLine(string.Join(",", r.Parameters.Select(p => p.Key)));
-        for (var u = 0; u < r.Units; u++)
-            text.AppendLine(string.Join(",", new[] { u.ToString(CultureInfo.InvariantCulture), R(r.WorstErrorKelvin[u]), R(r.WorstCelsius[u]) }
-                .Concat(r.Deviations[u].Select(R))));
-        return text.ToString();
-    }
-
-    internal static string Tolerance(ToleranceParameter p) => ToleranceText.HalfWidth(p);
-
-    private static string K(double v) => double.IsFinite(v) ? v.ToString("0.000", CultureInfo.InvariantCulture) : "unreadable";
-
-    private static string R(double v) => v.ToString("R", CultureInfo.InvariantCulture);
-
-    private static string Invariant(FormattableString s) => FormattableString.Invariant(s);
+    /// <summary>Ten million units: each keeps a few numbers, so more would outgrow memory long before it finished.</summary>
+    private const int MaximumUnits = 10_000_000;
 }

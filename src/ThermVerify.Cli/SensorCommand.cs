@@ -1,7 +1,8 @@
 using System.CommandLine;
-using System.Globalization;
+using ThermVerify.Limits;
 using ThermVerify.Quantities;
 using ThermVerify.Reporting;
+using ThermVerify.Reporting.Text;
 using ThermVerify.Sensors;
 
 namespace ThermVerify.Cli;
@@ -20,39 +21,23 @@ internal static class SensorCommand
         command.Add(range);
         command.Add(step);
         command.Add(resistance);
-        command.SetAction(parsed =>
+        var work = WorkOptions.AddTo(command);
+        command.SetAction((parsed, interrupt) => work.Run(parsed, interrupt, _ =>
         {
-            var output = parsed.InvocationConfiguration.Output;
             var model = sensor.Build(parsed);
             var rangeText = parsed.GetValue(range);
             var span = rangeText is null ? model.ValidRange : ToRange(QuantityParser.ParseRange(rangeText, UnitKind.Celsius));
             var stepKelvin = QuantityParser.Parse(parsed.GetValue(step), UnitKind.Kelvin).Value;
-
-            output.WriteLine(model.Description);
-            output.WriteLine($"valid range: {model.ValidRange}");
-            output.WriteLine();
-            var table = new TextTable("T (°C)", "R", "dR/dT (Ω/K)", "α (%/K)");
-            foreach (var row in SensorTabulation.Tabulate(model, span, stepKelvin))
-                table.AddRow(Number(row.Celsius, "0.##"), EngineeringFormat.Format(row.Ohms, UnitKind.Ohm, 5),
-                    Number(row.SlopeOhmsPerKelvin, "G5"), Number(100 * row.AlphaPerKelvin, "0.0000"));
-            output.Write(table);
-
-            var asked = parsed.GetValue(resistance) ?? [];
-            if (asked.Length == 0) return ExitCodes.Success;
-            output.WriteLine();
-            var inverse = new TextTable("R", "T (°C)");
-            foreach (var text in asked)
-            {
-                var ohms = QuantityParser.Parse(text, UnitKind.Ohm).Value;
-                inverse.AddRow(EngineeringFormat.Format(ohms, UnitKind.Ohm, 5), Number(model.TemperatureCelsius(ohms), "0.0000"));
-            }
-            output.Write(inverse);
+            var rows = (span.MaxCelsius - span.MinCelsius) / stepKelvin + 1;
+            if (!(stepKelvin > 0 && rows <= Work.Limits.MaximumSweepPoints))
+                throw new UsageException($"--step {parsed.GetValue(step)}: the table would have {rows:G3} rows, more than the limit of {Work.Limits.MaximumSweepPoints}; " +
+                                         "use a coarser step or raise --max-points.");
+            var resistances = (parsed.GetValue(resistance) ?? []).Select(r => QuantityParser.Parse(r, UnitKind.Ohm).Value).ToList();
+            parsed.InvocationConfiguration.Output.Write(SensorText.Render(model, span, stepKelvin, resistances));
             return ExitCodes.Success;
-        });
+        }));
         return command;
     }
 
     internal static TemperatureRange ToRange(QuantityRange range) => new(range.Min, range.Max);
-
-    internal static string Number(double value, string format) => value.ToString(format, CultureInfo.InvariantCulture);
 }

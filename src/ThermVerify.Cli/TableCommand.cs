@@ -1,15 +1,16 @@
 using System.CommandLine;
 using System.Globalization;
-using System.Text.RegularExpressions;
+using ThermVerify.Api;
 using ThermVerify.Design;
+using ThermVerify.Files;
 using ThermVerify.Firmware;
 using ThermVerify.Quantities;
-using ThermVerify.Reporting;
+using ThermVerify.Reporting.Text;
 
 namespace ThermVerify.Cli;
 
 /// <summary>`thermverify table`: the code-to-temperature table a design needs, as a C header and CSV, with its error.</summary>
-internal static partial class TableCommand
+internal static class TableCommand
 {
     public static Command Create()
     {
@@ -27,47 +28,38 @@ internal static partial class TableCommand
         {
             design, header, csv, bound, breakpoints, unit, corrected, prefix, force,
         };
-        command.SetAction(parsed =>
+        command.Validators.Add(result =>
+        {
+            if (result.GetValue(bound) is not null && result.GetValue(breakpoints) is not null)
+                result.AddError("--bound and --breakpoints place the breakpoints in two different ways; give one of them");
+        });
+        var work = WorkOptions.AddTo(command);
+        command.SetAction((parsed, interrupt) => work.Run(parsed, interrupt, _ =>
         {
             var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
-            var model = FirmwareFromDesign.Model(loaded, parsed.GetValue(corrected));
-            var scale = new FixedPointScale((int)Math.Round(1 / double.Parse(parsed.GetValue(unit)!.TrimEnd('K'), CultureInfo.InvariantCulture)));
-            var table = parsed.GetValue(breakpoints) is { } n ? TableBuilder.WithBreakpoints(model, scale, n)
-                : parsed.GetValue(bound) is { } b ? TableBuilder.WithinBound(model, scale, QuantityParser.Parse(b, UnitKind.Kelvin).Value)
-                : TableBuilder.EveryCode(model, scale);
-            var error = TableErrorAnalysis.Evaluate(model, table);
-            var faults = FaultAnalysis.Thresholds(model, FirmwareFromDesign.Tolerances(loaded));
-            var overwrite = parsed.GetValue(force);
-
+            FirmwareTableRun? run = null;
+            var outputs = new OutputSet(parsed.GetValue(force));
             if (parsed.GetValue(header) is { } h)
-            {
-                var coefficients = loaded.Sensor is RtdSensorSpec ? null : ComputedCoefficients.Fit(model);
-                var content = new FirmwareHeaderContent(loaded.Name, parsed.GetValue(prefix) ?? PrefixFor(loaded.Name), model, table, error, faults, coefficients);
-                AtomicFile.WriteAllText(h.FullName, CHeaderRenderer.Render(content.Validated()), overwrite);
-            }
+                outputs.Add(h.ToString(), () => CHeaderRenderer.Render(run!.Header));
             if (parsed.GetValue(csv) is { } c)
-                AtomicFile.WriteAllText(c.FullName, TableCsvRenderer.Render(table, breakpointsOnly: !table.IsDense), overwrite);
-
-            var output = parsed.InvocationConfiguration.Output;
-            output.WriteLine($"table for {loaded.Name}: codes {table.Span.FirstCode}..{table.Span.LastCode}, {table.Codes.Count} " +
-                             $"{(table.IsDense ? "entries (every code)" : "breakpoints")}, unit {scale.Name}" +
-                             (parsed.GetValue(corrected) ? ", corrected for the simulated DC loading" : ""));
-            var worstCode = Math.Abs(error.MaxErrorKelvin) >= Math.Abs(error.MinErrorKelvin) ? error.MaxErrorCode : error.MinErrorCode;
-            output.WriteLine(FormattableString.Invariant(
-                $"table error against the true temperature: {error.MinErrorKelvin:+0.0000;-0.0000} K to {error.MaxErrorKelvin:+0.0000;-0.0000} K (worst at code {worstCode}); the converter's own ½ LSB is up to {error.HalfCodeKelvin:0.0000} K"));
-            output.WriteLine($"fault thresholds: code < {faults.FaultBelowCode} or code > {faults.FaultAboveCode} is a fault (valid codes {faults.LowestValidCode}..{faults.HighestValidCode})");
+                outputs.Add(c.ToString(), () => TableCsvRenderer.Render(run!.Table, breakpointsOnly: !run.Table.IsDense));
+            outputs.CheckTargets();
+            run = Verifier.Table(loaded, new TableRequest
+            {
+                Scale = FixedPointUnit(parsed.GetValue(unit)!),
+                BoundKelvin = parsed.GetValue(bound) is { } b ? QuantityParser.Parse(b, UnitKind.Kelvin).Value : null,
+                Breakpoints = parsed.GetValue(breakpoints),
+                CorrectForLoading = parsed.GetValue(corrected),
+                Prefix = parsed.GetValue(prefix),
+            });
+            outputs.Write();
+            parsed.InvocationConfiguration.Output.Write(TableText.Render(run));
             return ExitCodes.Success;
-        });
+        }));
         return command;
     }
 
-    internal static string PrefixFor(string designName)
-    {
-        var words = NonIdentifier().Replace(designName.ToLowerInvariant(), "_").Trim('_');
-        var prefix = words.Length == 0 || !char.IsAsciiLetterLower(words[0]) ? "tv_" + words : words;
-        return prefix.Length > 31 ? prefix[..31].TrimEnd('_') : prefix;
-    }
-
-    [GeneratedRegex("[^a-z0-9]+")]
-    private static partial Regex NonIdentifier();
+    /// <summary>"0.01K" → hundredths of a kelvin.</summary>
+    internal static FixedPointScale FixedPointUnit(string text) =>
+        new((int)Math.Round(1 / double.Parse(text.TrimEnd('K'), CultureInfo.InvariantCulture)));
 }

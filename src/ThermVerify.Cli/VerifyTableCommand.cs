@@ -1,9 +1,13 @@
 using System.CommandLine;
 using System.Globalization;
+using ThermVerify.Api;
 using ThermVerify.Design;
+using ThermVerify.Files;
 using ThermVerify.Firmware;
+using ThermVerify.Limits;
 using ThermVerify.Quantities;
 using ThermVerify.Reporting;
+using ThermVerify.Reporting.Text;
 
 namespace ThermVerify.Cli;
 
@@ -22,38 +26,29 @@ internal static class VerifyTableCommand
         {
             design, table, unit, budget, corrected,
         };
-        command.SetAction(parsed =>
+        var work = WorkOptions.AddTo(command);
+        command.SetAction((parsed, interrupt) => work.Run(parsed, interrupt, _ =>
         {
             var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
             var file = parsed.GetValue(table)!;
-            FixedPointScale? scale = parsed.GetValue(unit) is { } u
-                ? new FixedPointScale((int)Math.Round(1 / double.Parse(u.TrimEnd('K'), CultureInfo.InvariantCulture)))
-                : null;
-            var rows = TableCsvReader.Parse(File.ReadAllText(file.FullName), file.Name, scale);
             var allowed = parsed.GetValue(budget) is { } b ? QuantityParser.Parse(b, UnitKind.Kelvin).Value : loaded.Check.BudgetKelvin;
-            var result = TableVerifier.Verify(FirmwareFromDesign.Model(loaded, parsed.GetValue(corrected)), rows, allowed);
-
-            var output = parsed.InvocationConfiguration.Output;
-            output.WriteLine(FormattableString.Invariant(
-                $"{(result.Passes ? "PASS" : "FAIL")}: {file.Name}, {result.RowCount} rows, worst disagreement {result.MaxAbsErrorKelvin:0.0000} K (budget {allowed:0.###} K)"));
-            if (result.Disagreements.Count > 0)
-            {
-                var rowsTable = new TextTable("line", "code", "table (°C)", "hardware (°C)", "error (K)");
-                foreach (var d in result.Disagreements.Take(20))
-                    rowsTable.AddRow(d.Row.Line.ToString(CultureInfo.InvariantCulture), d.Row.Code.ToString(CultureInfo.InvariantCulture),
-                        N(d.Row.Celsius), N(d.ModelCelsius), N(d.ErrorKelvin));
-                output.WriteLine();
-                output.Write(rowsTable);
-                if (result.Disagreements.Count > 20) output.WriteLine($"... and {result.Disagreements.Count - 20} more rows");
-            }
-            foreach (var cause in result.LikelyCauses)
-                output.WriteLine($"likely cause: {cause.Explanation}");
-            if (result.BetweenRows is { } between)
-                output.WriteLine(FormattableString.Invariant($"between rows, linear interpolation errs by up to {between.MaxAbsErrorKelvin:0.0000} K (at code {between.AtCode})"));
+            var result = Verifier.VerifyTable(loaded, ReadTable(file), file.Name,
+                parsed.GetValue(unit) is { } u ? TableCommand.FixedPointUnit(u) : null, allowed, parsed.GetValue(corrected));
+            parsed.InvocationConfiguration.Output.Write(TableVerificationText.Render(file.Name, result, allowed));
             return result.Passes ? ExitCodes.Success : ExitCodes.CheckFailed;
-        });
+        }));
         return command;
     }
 
-    private static string N(double value) => value.ToString("0.0000", CultureInfo.InvariantCulture);
+    private static string ReadTable(FileInfo file)
+    {
+        try
+        {
+            return InputFile.ReadText(file.FullName, Work.Limits.MaximumFileBytes);
+        }
+        catch (InputFileException e)
+        {
+            throw new UsageException($"{file}: the firmware table {e.Problem}. {e.Hint}");
+        }
+    }
 }

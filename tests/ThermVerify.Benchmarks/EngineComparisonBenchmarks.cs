@@ -4,7 +4,7 @@ using ThermVerify.Circuits.Spice;
 using ThermVerify.Design;
 using ThermVerify.Ngspice;
 using ThermVerify.Simulation;
-using ThermVerify.Verification;
+using ThermVerify.FrontEnd;
 
 /// <summary>
 /// The same two simulations through the built-in engine, the ngspice shared library and an `ngspice -b` process:

@@ -4,7 +4,7 @@ using ThermVerify.Sensors;
 namespace ThermVerify.Benchmarks;
 
 /// <summary>The invented front ends the benchmarks run (own scenarios, not a product's).</summary>
-public static class FrontEnds
+internal static class FrontEnds
 {
     /// <summary>3.3 V over 10 kΩ into a 10 kΩ β = 3950 NTC, 1 kΩ + 100 nF filter, 50 nA pin leakage doubling every 10 K.</summary>
     public static Circuit NtcDivider() => new CircuitBuilder()

@@ -1,8 +1,9 @@
 using System.Globalization;
 using System.Security.Cryptography;
 using System.Text;
+using ThermVerify.Check;
 using ThermVerify.Design;
-using ThermVerify.Verification;
+using ThermVerify.Sensors;
 
 namespace ThermVerify.Baselines;
 
@@ -11,7 +12,7 @@ namespace ThermVerify.Baselines;
 /// whole range and in each budget region, the worst settling, DC-loading, average-sampling and buffer errors at the
 /// pin in LSB, and the counts of points over budget and of failing findings.
 /// </summary>
-public static class BaselineFigures
+internal static class BaselineFigures
 {
     /// <summary>Tolerances written into a new baseline. The check is deterministic, so these only absorb numerical
     /// differences between versions of the solver (step control, extrapolation); they are far below any budget.</summary>

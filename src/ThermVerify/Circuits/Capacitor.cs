@@ -1,6 +1,4 @@
 using ThermVerify.Circuits.Spice;
-using ThermVerify.Simulation.Mna;
-using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Circuits;
 
@@ -8,7 +6,7 @@ namespace ThermVerify.Circuits;
 /// Capacitor. <see cref="InitialVoltage"/> (V(A) − V(B) at the start) is used when a transient runs
 /// with <c>UseInitialConditions</c>; otherwise the start comes from the operating point.
 /// </summary>
-public sealed record Capacitor(string Name, string NodeA, string NodeB, double CapacitanceFarads,
+internal sealed record Capacitor(string Name, string NodeA, string NodeB, double CapacitanceFarads,
     double? InitialVoltage = null) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [NodeA, NodeB];
@@ -28,7 +26,4 @@ public sealed record Capacitor(string Name, string NodeA, string NodeB, double C
     internal override void WriteSpice(SpiceLines deck) =>
         deck.Line($"{SpiceLines.InstanceName('C', Name)} {NodeA} {NodeB} {SpiceNumber.Format(CapacitanceFarads)}" +
                   (InitialVoltage is { } v ? $" ic={SpiceNumber.Format(v)}" : ""));
-
-    internal override Stamp Bind(BindContext context) => new CapacitorStamp(this, context);
-
 }

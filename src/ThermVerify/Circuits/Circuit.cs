@@ -8,7 +8,7 @@ namespace ThermVerify.Circuits;
 /// <c>circuit with { TemperatureCelsius = 80 }</c> gives the same netlist at another temperature.
 /// Every element is validated and names are unique when the circuit is made.
 /// </summary>
-public sealed record Circuit
+internal sealed record Circuit
 {
     public const string Ground = "0";
 

@@ -1,7 +1,7 @@
 namespace ThermVerify.Circuits;
 
 /// <summary>Collects elements fluently; <see cref="Build"/> validates them into a <see cref="Circuit"/>.</summary>
-public sealed class CircuitBuilder
+internal sealed class CircuitBuilder
 {
     private readonly List<Element> elements = [];
     private double temperatureCelsius = 25;

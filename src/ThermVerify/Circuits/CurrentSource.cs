@@ -1,6 +1,4 @@
 using ThermVerify.Circuits.Spice;
-using ThermVerify.Simulation.Mna;
-using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Circuits;
 
@@ -8,7 +6,7 @@ namespace ThermVerify.Circuits;
 /// Independent current source: the current flows from Positive through the source to Negative
 /// (SPICE convention), i.e. it is drawn out of Positive and pushed into Negative.
 /// </summary>
-public sealed record CurrentSource(string Name, string Positive, string Negative, Waveform Waveform,
+internal sealed record CurrentSource(string Name, string Positive, string Negative, Waveform Waveform,
     double AcMagnitude = 0, double AcPhaseDegrees = 0) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [Positive, Negative];
@@ -26,6 +24,4 @@ public sealed record CurrentSource(string Name, string Positive, string Negative
 
     internal override void WriteSpice(SpiceLines deck) =>
         deck.Line($"{SpiceLines.InstanceName('I', Name)} {Positive} {Negative} {Waveform.ToSpice()}{SpiceSource.Ac(AcMagnitude, AcPhaseDegrees)}");
-
-    internal override Stamp Bind(BindContext context) => new CurrentSourceStamp(this, context);
 }

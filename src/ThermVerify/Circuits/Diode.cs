@@ -1,6 +1,4 @@
 using ThermVerify.Circuits.Spice;
-using ThermVerify.Simulation.Mna;
-using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Circuits;
 
@@ -11,7 +9,7 @@ namespace ThermVerify.Circuits;
 /// otherwise it is used as given at every temperature. No junction capacitance, no breakdown.
 /// Meant for input clamps.
 /// </summary>
-public sealed record Diode(string Name, string Anode, string Cathode, double SaturationCurrentAmperes = 1e-14,
+internal sealed record Diode(string Name, string Anode, string Cathode, double SaturationCurrentAmperes = 1e-14,
     double EmissionCoefficient = 1, double SeriesResistanceOhms = 0) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [Anode, Cathode];
@@ -42,8 +40,8 @@ public sealed record Diode(string Name, string Anode, string Cathode, double Sat
             * Math.Exp((ratio - 1) * BandGapElectronVolts / (EmissionCoefficient * vt));
     }
 
-    internal override IReadOnlyList<Unknown> ExtraUnknowns =>
-        SeriesResistanceOhms > 0 ? [Unknown.Voltage($"{Name}#junction")] : [];
+    internal override IReadOnlyList<ExtraUnknown> ExtraUnknowns =>
+        SeriesResistanceOhms > 0 ? [ExtraUnknown.Voltage($"{Name}#junction")] : [];
 
     internal override void Validate()
     {
@@ -66,7 +64,4 @@ public sealed record Diode(string Name, string Anode, string Cathode, double Sat
         deck.Definition(model, $".model {model} d is={SpiceNumber.Format(SaturationCurrentAmperes)} n={SpiceNumber.Format(EmissionCoefficient)} " +
                                $"rs={SpiceNumber.Format(SeriesResistanceOhms)} xti=0 eg=0 cjo=0");
     }
-
-    internal override Stamp Bind(BindContext context) => new DiodeStamp(this, context);
-
 }

@@ -1,12 +1,10 @@
-using ThermVerify.Simulation.Mna;
-
 namespace ThermVerify.Circuits;
 
 /// <summary>
 /// A circuit element on named nodes ("0" is ground). Records are immutable; how an element enters the
-/// matrix is its stamp, created by <see cref="Bind"/> once per analysis.
+/// matrix belongs to the engine that runs it (the built-in engine's stamps live in Simulation/Stamps).
 /// </summary>
-public abstract record Element(string Name)
+internal abstract record Element(string Name)
 {
     /// <summary>Every terminal, in the element's own order (controlling terminals included).</summary>
     public abstract IReadOnlyList<string> Nodes { get; }
@@ -21,12 +19,10 @@ public abstract record Element(string Name)
     internal virtual IEnumerable<(string A, string B)> DcPathsHoldingInitialConditions => DcPaths;
 
     /// <summary>Labels of the extra unknowns (branch currents, internal nodes) this element adds.</summary>
-    internal virtual IReadOnlyList<Unknown> ExtraUnknowns => [];
+    internal virtual IReadOnlyList<ExtraUnknown> ExtraUnknowns => [];
 
     /// <summary>Checks values; throws <see cref="CircuitException"/> naming the element.</summary>
     internal virtual void Validate() => ElementChecks.Name(this);
-
-    internal abstract Stamp Bind(BindContext context);
 
     /// <summary>The element's lines in a SPICE deck; elements without a SPICE form say so.</summary>
     internal virtual void WriteSpice(Spice.SpiceLines deck) =>

@@ -1,11 +1,9 @@
 using ThermVerify.Circuits.Spice;
-using ThermVerify.Simulation.Mna;
-using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Circuits;
 
 /// <summary>Inductor; current flows from A to B through it. A short at DC.</summary>
-public sealed record Inductor(string Name, string NodeA, string NodeB, double InductanceHenries,
+internal sealed record Inductor(string Name, string NodeA, string NodeB, double InductanceHenries,
     double? InitialCurrent = null) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [NodeA, NodeB];
@@ -14,7 +12,7 @@ public sealed record Inductor(string Name, string NodeA, string NodeB, double In
 
     internal override IEnumerable<(string A, string B)> VoltageDefinedPaths => [(NodeA, NodeB)];
 
-    internal override IReadOnlyList<Unknown> ExtraUnknowns => [Unknown.Current($"I({Name})")];
+    internal override IReadOnlyList<ExtraUnknown> ExtraUnknowns => [ExtraUnknown.Current($"I({Name})")];
 
     internal override void Validate()
     {
@@ -28,6 +26,4 @@ public sealed record Inductor(string Name, string NodeA, string NodeB, double In
     internal override void WriteSpice(SpiceLines deck) =>
         deck.Line($"{SpiceLines.InstanceName('L', Name)} {NodeA} {NodeB} {SpiceNumber.Format(InductanceHenries)}" +
                   (InitialCurrent is { } i ? $" ic={SpiceNumber.Format(i)}" : ""));
-
-    internal override Stamp Bind(BindContext context) => new InductorStamp(this, context);
 }

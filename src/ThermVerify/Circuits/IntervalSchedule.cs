@@ -3,7 +3,7 @@ using System.Collections.Immutable;
 namespace ThermVerify.Circuits;
 
 /// <summary>Closed during each listed [close, open) interval.</summary>
-public sealed record IntervalSchedule(ImmutableArray<(double CloseSeconds, double OpenSeconds)> Intervals) : SwitchSchedule
+internal sealed record IntervalSchedule(ImmutableArray<(double CloseSeconds, double OpenSeconds)> Intervals) : SwitchSchedule
 {
     public IntervalSchedule(params (double CloseSeconds, double OpenSeconds)[] intervals) : this(intervals.ToImmutableArray()) { }
 

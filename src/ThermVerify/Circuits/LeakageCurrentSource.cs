@@ -1,6 +1,4 @@
 using ThermVerify.Circuits.Spice;
-using ThermVerify.Simulation.Mna;
-using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Circuits;
 
@@ -9,7 +7,7 @@ namespace ThermVerify.Circuits;
 /// description of an input pin's leakage (common practice, no source). Direction as for
 /// <see cref="CurrentSource"/>: out of Positive, into Negative; a pin leaking to ground is (pin, "0").
 /// </summary>
-public sealed record LeakageCurrentSource(string Name, string Positive, string Negative,
+internal sealed record LeakageCurrentSource(string Name, string Positive, string Negative,
     double CurrentAt25CelsiusAmperes, double DoublingKelvin = 10) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [Positive, Negative];
@@ -29,7 +27,4 @@ public sealed record LeakageCurrentSource(string Name, string Positive, string N
     internal override void WriteSpice(SpiceLines deck) =>
         deck.Line($"{SpiceLines.InstanceName('B', Name)} {Positive} {Negative} I={SpiceNumber.Format(CurrentAt25CelsiusAmperes)}" +
                   $"*pow(2,(temper-25)/{SpiceNumber.Format(DoublingKelvin)})");
-
-    internal override Stamp Bind(BindContext context) => new LeakageCurrentSourceStamp(this, context);
-
 }

@@ -1,6 +1,4 @@
 using ThermVerify.Circuits.Spice;
-using ThermVerify.Simulation.Mna;
-using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Circuits;
 
@@ -15,7 +13,7 @@ namespace ThermVerify.Circuits;
 /// range are reported as warnings, not errors. Noise: input voltage and current noise densities, each
 /// white with a 1/f corner, e²(f) = e_w²·(1 + f_c/f).
 /// </summary>
-public sealed record OpAmp(string Name, string NonInverting, string Inverting, string Output) : Element(Name)
+internal sealed record OpAmp(string Name, string NonInverting, string Inverting, string Output) : Element(Name)
 {
     public double OpenLoopGain { get; init; } = 1e5;
 
@@ -59,10 +57,10 @@ public sealed record OpAmp(string Name, string NonInverting, string Inverting, s
 
     internal override IEnumerable<(string A, string B)> DcPaths => [(Output, Circuit.Ground)];
 
-    internal override IReadOnlyList<Unknown> ExtraUnknowns =>
+    internal override IReadOnlyList<ExtraUnknown> ExtraUnknowns =>
         SecondPoleHertz is null
-            ? [Unknown.Voltage($"{Name}#pole"), Unknown.Voltage($"{Name}#drive"), Unknown.Current($"I({Name})")]
-            : [Unknown.Voltage($"{Name}#pole"), Unknown.Voltage($"{Name}#pole2"), Unknown.Voltage($"{Name}#drive"), Unknown.Current($"I({Name})")];
+            ? [ExtraUnknown.Voltage($"{Name}#pole"), ExtraUnknown.Voltage($"{Name}#drive"), ExtraUnknown.Current($"I({Name})")]
+            : [ExtraUnknown.Voltage($"{Name}#pole"), ExtraUnknown.Voltage($"{Name}#pole2"), ExtraUnknown.Voltage($"{Name}#drive"), ExtraUnknown.Current($"I({Name})")];
 
     internal override void Validate()
     {
@@ -90,6 +88,4 @@ public sealed record OpAmp(string Name, string NonInverting, string Inverting, s
     }
 
     internal override void WriteSpice(SpiceLines deck) => OpAmpSubcircuit.Write(this, deck);
-
-    internal override Stamp Bind(BindContext context) => new OpAmpStamp(this, context);
 }

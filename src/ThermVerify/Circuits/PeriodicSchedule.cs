@@ -4,7 +4,7 @@ namespace ThermVerify.Circuits;
 /// Closed for <see cref="ClosedSeconds"/> at the start of each period, first at <see cref="DelaySeconds"/>,
 /// <see cref="Count"/> times (null: for ever). An ADC's acquisition windows are the typical use.
 /// </summary>
-public sealed record PeriodicSchedule(double DelaySeconds, double PeriodSeconds, double ClosedSeconds, int? Count = null) : SwitchSchedule
+internal sealed record PeriodicSchedule(double DelaySeconds, double PeriodSeconds, double ClosedSeconds, int? Count = null) : SwitchSchedule
 {
     public override bool IsClosed(double timeSeconds)
     {

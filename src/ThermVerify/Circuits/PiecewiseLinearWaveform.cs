@@ -3,7 +3,7 @@ using System.Collections.Immutable;
 namespace ThermVerify.Circuits;
 
 /// <summary>Straight lines between (time, value) corners; constant before the first and after the last.</summary>
-public sealed record PiecewiseLinearWaveform(ImmutableArray<(double TimeSeconds, double Value)> Points) : Waveform
+internal sealed record PiecewiseLinearWaveform(ImmutableArray<(double TimeSeconds, double Value)> Points) : Waveform
 {
     public PiecewiseLinearWaveform(params (double TimeSeconds, double Value)[] points) : this(points.ToImmutableArray()) { }
 

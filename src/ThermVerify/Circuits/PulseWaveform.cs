@@ -5,7 +5,7 @@ namespace ThermVerify.Circuits;
 /// <see cref="Pulsed"/>, held for <see cref="WidthSeconds"/>, a linear fall, repeated every
 /// <see cref="PeriodSeconds"/> (0 or ∞: a single pulse). Zero rise or fall gives an ideal step.
 /// </summary>
-public sealed record PulseWaveform(double Initial, double Pulsed, double DelaySeconds, double RiseSeconds,
+internal sealed record PulseWaveform(double Initial, double Pulsed, double DelaySeconds, double RiseSeconds,
     double FallSeconds, double WidthSeconds, double PeriodSeconds) : Waveform
 {
     private bool Repeats => PeriodSeconds > 0 && double.IsFinite(PeriodSeconds);

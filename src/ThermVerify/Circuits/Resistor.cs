@@ -1,6 +1,4 @@
 using ThermVerify.Circuits.Spice;
-using ThermVerify.Simulation.Mna;
-using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Circuits;
 
@@ -8,7 +6,7 @@ namespace ThermVerify.Circuits;
 /// Resistor with a quadratic temperature coefficient about <see cref="ReferenceCelsius"/>:
 /// R(T) = R·(1 + tc1·ΔT + tc2·ΔT²), ΔT = T − T_ref, T the circuit temperature.
 /// </summary>
-public sealed record Resistor(string Name, string NodeA, string NodeB, double ResistanceOhms,
+internal sealed record Resistor(string Name, string NodeA, string NodeB, double ResistanceOhms,
     double Tc1PerKelvin = 0, double Tc2PerKelvinSquared = 0, double ReferenceCelsius = 25) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [NodeA, NodeB];
@@ -49,7 +47,4 @@ public sealed record Resistor(string Name, string NodeA, string NodeB, double Re
             deck.Line($"{name} {NodeA} {NodeB} r='{SpiceNumber.Format(ResistanceOhms)}*(1+{SpiceNumber.Format(Tc1PerKelvin)}*{dt}+{SpiceNumber.Format(Tc2PerKelvinSquared)}*{dt}*{dt})'");
         }
     }
-
-    internal override Stamp Bind(BindContext context) => new ResistorStamp(this, context);
-
 }

@@ -1,12 +1,10 @@
 using ThermVerify.Circuits.Spice;
 using ThermVerify.Sensors;
-using ThermVerify.Simulation.Mna;
-using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Circuits;
 
 /// <summary>A resistive temperature sensor at the circuit temperature: R = sensor.ResistanceOhms(T).</summary>
-public sealed record SensorResistor(string Name, string NodeA, string NodeB, ISensorModel Sensor) : Element(Name)
+internal sealed record SensorResistor(string Name, string NodeA, string NodeB, ISensorModel Sensor) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [NodeA, NodeB];
 
@@ -45,7 +43,4 @@ public sealed record SensorResistor(string Name, string NodeA, string NodeB, ISe
         else
             deck.Line($"{name} {NodeA} {NodeB} {SpiceNumber.Format(ResistanceOhmsAt(deck.TemperatureCelsius))}");
     }
-
-    internal override Stamp Bind(BindContext context) => new SensorResistorStamp(this, context);
-
 }

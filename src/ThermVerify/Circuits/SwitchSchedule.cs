@@ -4,7 +4,7 @@ namespace ThermVerify.Circuits;
 /// When a <see cref="TimedSwitch"/> is closed. Intervals are half-open, [close, open): at an edge the
 /// state of the step that ends there is the state before the edge. Every edge is a breakpoint.
 /// </summary>
-public abstract record SwitchSchedule
+internal abstract record SwitchSchedule
 {
     public abstract bool IsClosed(double timeSeconds);
 

@@ -1,6 +1,4 @@
 using ThermVerify.Circuits.Spice;
-using ThermVerify.Simulation.Mna;
-using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Circuits;
 
@@ -8,7 +6,7 @@ namespace ThermVerify.Circuits;
 /// A switch driven by time alone: <see cref="OnResistanceOhms"/> while the schedule says closed,
 /// <see cref="OffResistanceOhms"/> otherwise. Edges are exact breakpoints; there is no control voltage.
 /// </summary>
-public sealed record TimedSwitch(string Name, string NodeA, string NodeB, double OnResistanceOhms,
+internal sealed record TimedSwitch(string Name, string NodeA, string NodeB, double OnResistanceOhms,
     double OffResistanceOhms, SwitchSchedule Schedule) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [NodeA, NodeB];
@@ -35,7 +33,4 @@ public sealed record TimedSwitch(string Name, string NodeA, string NodeB, double
         deck.Line($"{SpiceLines.InstanceName('S', Name)} {NodeA} {NodeB} {control} 0 {model}");
         deck.Definition(model, $".model {model} sw vt=0.5 vh=0 ron={SpiceNumber.Format(OnResistanceOhms)} roff={SpiceNumber.Format(OffResistanceOhms)}");
     }
-
-    internal override Stamp Bind(BindContext context) => new TimedSwitchStamp(this, context);
-
 }

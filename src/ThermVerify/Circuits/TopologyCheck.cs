@@ -5,7 +5,7 @@ namespace ThermVerify.Circuits;
 /// and element name instead of as a singular matrix: no ground, floating nodes, loops of
 /// voltage-defined branches (sources, inductors), and nodes without a DC path to ground.
 /// </summary>
-public static class TopologyCheck
+internal static class TopologyCheck
 {
     /// <param name="checkDcPaths">False when no DC solution is needed (a transient continued from a state).</param>
     /// <param name="holdInitialConditions">Capacitors with an initial voltage count as DC paths

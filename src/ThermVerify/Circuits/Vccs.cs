@@ -1,6 +1,4 @@
 using ThermVerify.Circuits.Spice;
-using ThermVerify.Simulation.Mna;
-using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Circuits;
 
@@ -8,7 +6,7 @@ namespace ThermVerify.Circuits;
 /// Voltage-controlled current source: a current Gm·(V(CP) − V(CN)) flows from Positive through the
 /// source to Negative (SPICE convention).
 /// </summary>
-public sealed record Vccs(string Name, string Positive, string Negative, string ControlPositive,
+internal sealed record Vccs(string Name, string Positive, string Negative, string ControlPositive,
     string ControlNegative, double TransconductanceSiemens) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [Positive, Negative, ControlPositive, ControlNegative];
@@ -22,7 +20,4 @@ public sealed record Vccs(string Name, string Positive, string Negative, string 
 
     internal override void WriteSpice(SpiceLines deck) =>
         deck.Line($"{SpiceLines.InstanceName('G', Name)} {Positive} {Negative} {ControlPositive} {ControlNegative} {SpiceNumber.Format(TransconductanceSiemens)}");
-
-    internal override Stamp Bind(BindContext context) => new VccsStamp(this, context);
-
 }

@@ -1,11 +1,9 @@
 using ThermVerify.Circuits.Spice;
-using ThermVerify.Simulation.Mna;
-using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Circuits;
 
 /// <summary>Voltage-controlled voltage source: V(P) − V(N) = Gain·(V(CP) − V(CN)).</summary>
-public sealed record Vcvs(string Name, string Positive, string Negative, string ControlPositive,
+internal sealed record Vcvs(string Name, string Positive, string Negative, string ControlPositive,
     string ControlNegative, double Gain) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [Positive, Negative, ControlPositive, ControlNegative];
@@ -14,7 +12,7 @@ public sealed record Vcvs(string Name, string Positive, string Negative, string 
 
     internal override IEnumerable<(string A, string B)> VoltageDefinedPaths => [(Positive, Negative)];
 
-    internal override IReadOnlyList<Unknown> ExtraUnknowns => [Unknown.Current($"I({Name})")];
+    internal override IReadOnlyList<ExtraUnknown> ExtraUnknowns => [ExtraUnknown.Current($"I({Name})")];
 
     internal override void Validate()
     {
@@ -25,6 +23,4 @@ public sealed record Vcvs(string Name, string Positive, string Negative, string 
 
     internal override void WriteSpice(SpiceLines deck) =>
         deck.Line($"{SpiceLines.InstanceName('E', Name)} {Positive} {Negative} {ControlPositive} {ControlNegative} {SpiceNumber.Format(Gain)}");
-
-    internal override Stamp Bind(BindContext context) => new VcvsStamp(this, context);
 }

@@ -1,6 +1,4 @@
 using ThermVerify.Circuits.Spice;
-using ThermVerify.Simulation.Mna;
-using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Circuits;
 
@@ -8,7 +6,7 @@ namespace ThermVerify.Circuits;
 /// Independent voltage source: V(Positive) − V(Negative) = waveform(t). Its branch current flows from
 /// Positive through the source to Negative (SPICE convention). <see cref="AcMagnitude"/> drives AC analysis.
 /// </summary>
-public sealed record VoltageSource(string Name, string Positive, string Negative, Waveform Waveform,
+internal sealed record VoltageSource(string Name, string Positive, string Negative, Waveform Waveform,
     double AcMagnitude = 0, double AcPhaseDegrees = 0) : Element(Name)
 {
     public override IReadOnlyList<string> Nodes => [Positive, Negative];
@@ -17,7 +15,7 @@ public sealed record VoltageSource(string Name, string Positive, string Negative
 
     internal override IEnumerable<(string A, string B)> VoltageDefinedPaths => [(Positive, Negative)];
 
-    internal override IReadOnlyList<Unknown> ExtraUnknowns => [Unknown.Current($"I({Name})")];
+    internal override IReadOnlyList<ExtraUnknown> ExtraUnknowns => [ExtraUnknown.Current($"I({Name})")];
 
     internal override void Validate()
     {
@@ -32,6 +30,4 @@ public sealed record VoltageSource(string Name, string Positive, string Negative
 
     internal override void WriteSpice(SpiceLines deck) =>
         deck.Line($"{SpiceLines.InstanceName('V', Name)} {Positive} {Negative} {Waveform.ToSpice()}{SpiceSource.Ac(AcMagnitude, AcPhaseDegrees)}");
-
-    internal override Stamp Bind(BindContext context) => new VoltageSourceStamp(this, context);
 }

@@ -4,7 +4,7 @@ namespace ThermVerify.Circuits;
 /// Time dependence of an independent source. Values are left-continuous at corners, so a step that ends
 /// exactly on a corner still sees the value before it; every corner is reported as a breakpoint.
 /// </summary>
-public abstract record Waveform
+internal abstract record Waveform
 {
     public abstract double ValueAt(double timeSeconds);
 
@@ -19,7 +19,7 @@ public abstract record Waveform
 }
 
 /// <summary>A constant value.</summary>
-public sealed record DcWaveform(double Value) : Waveform
+internal sealed record DcWaveform(double Value) : Waveform
 {
     public override double ValueAt(double timeSeconds) => Value;
 

@@ -1,7 +1,7 @@
 namespace ThermVerify.Design;
 
 /// <summary>Defaults for keys a design file may leave out; docs/design-file.md lists the same values.</summary>
-public static class DesignDefaults
+internal static class DesignDefaults
 {
     /// <summary>Tolerances and tempcos left out are taken as zero: the nominal design.</summary>
     public const double Tolerance = 0;

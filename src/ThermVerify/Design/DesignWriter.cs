@@ -9,7 +9,7 @@ namespace ThermVerify.Design;
 /// Prints a design back as TOML with every default made explicit and values in engineering notation, each printed
 /// with just enough digits to load back to the same double. Keys with no default (not modelled) are left out.
 /// </summary>
-public static class DesignWriter
+internal static class DesignWriter
 {
     public static string ToToml(FrontEndDesign design)
     {

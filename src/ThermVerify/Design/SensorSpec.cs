@@ -15,7 +15,7 @@ public abstract record SensorSpec
 }
 
 /// <summary>NTC, Beta model.</summary>
-public sealed record BetaSensorSpec : SensorSpec
+internal sealed record BetaSensorSpec : SensorSpec
 {
     public override string ModelName => "beta";
     public required double R0Ohms { get; init; }
@@ -37,7 +37,7 @@ public sealed record BetaSensorSpec : SensorSpec
 }
 
 /// <summary>NTC, Steinhart–Hart coefficients (1/K, with R in Ω).</summary>
-public sealed record SteinhartHartSensorSpec : SensorSpec
+internal sealed record SteinhartHartSensorSpec : SensorSpec
 {
     public override string ModelName => "steinhart-hart";
     public required double A { get; init; }
@@ -52,22 +52,26 @@ public sealed record SteinhartHartSensorSpec : SensorSpec
 }
 
 /// <summary>NTC from an R–T table in a CSV file next to the design.</summary>
-public sealed record TableSensorSpec : SensorSpec
+internal sealed record TableSensorSpec : SensorSpec
 {
     public override string ModelName => "table";
     /// <summary>As written in the design file, relative to it.</summary>
     public required string File { get; init; }
     public required string FullPath { get; init; }
+
+    /// <summary>The table as read once at load time (checked where it lies, how large it is, what it is).</summary>
+    public required string Text { get; init; }
+
     public double ResistanceTolerance { get; init; } = DesignDefaults.Tolerance;
 
-    public override ISensorModel Build() => TableThermistor.Load(FullPath);
+    public override ISensorModel Build() => TableThermistor.Parse(Text, FullPath);
 }
 
 /// <summary>IEC 60751 tolerance classes of platinum RTDs.</summary>
-public enum RtdClass { AA, A, B, C }
+internal enum RtdClass { AA, A, B, C }
 
 /// <summary>Platinum RTD, Callendar–Van Dusen with IEC 60751 coefficients unless overridden.</summary>
-public sealed record RtdSensorSpec : SensorSpec
+internal sealed record RtdSensorSpec : SensorSpec
 {
     public override string ModelName => "rtd";
     public required double R0Ohms { get; init; }

@@ -1,4 +1,3 @@
-using ThermVerify.Quantities;
 
 namespace ThermVerify.Design;
 

@@ -1,7 +1,8 @@
-using ThermVerify.Design;
 using System.Globalization;
 using System.Text;
-using ThermVerify.Verification;
+using ThermVerify.Design;
+using ThermVerify.FrontEnd;
+using ThermVerify.Quantities;
 
 namespace ThermVerify.Firmware;
 

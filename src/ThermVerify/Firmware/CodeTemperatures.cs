@@ -1,6 +1,6 @@
 using System.Globalization;
+using ThermVerify.FrontEnd;
 using ThermVerify.Sensors;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Firmware;
 
@@ -8,7 +8,7 @@ namespace ThermVerify.Firmware;
 /// The true temperature behind each ADC code: the temperature whose divider voltage is the centre of the code's
 /// bin, V = code·Q (the firmware's inverse of the ideal converter), found by inverting the divider and the sensor.
 /// </summary>
-public static class CodeTemperatures
+internal static class CodeTemperatures
 {
     /// <summary>True temperature at <paramref name="code"/> (fractional codes allowed), or NaN outside the sensor's valid range.</summary>
     public static double TrueCelsius(FirmwareModel model, double code)

@@ -1,6 +1,6 @@
-using ThermVerify.Design;
 using System.Globalization;
-using ThermVerify.Verification;
+using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 
 namespace ThermVerify.Firmware;
 
@@ -8,7 +8,7 @@ namespace ThermVerify.Firmware;
 /// Fault codes by Ohm's law on the ideal divider (the ADC input draws no current): an open part leaves the node tied
 /// to the rail through the other part, a shorted part ties it to its own rail. The loading correction is not applied.
 /// </summary>
-public static class FaultAnalysis
+internal static class FaultAnalysis
 {
     public static FaultThresholds Thresholds(FirmwareModel model, FaultTolerances tolerances)
     {

@@ -5,7 +5,7 @@ namespace ThermVerify.Firmware;
 /// When <paramref name="ExcitationTracksReference"/> is true the divider and the ADC share one reference
 /// (a ratiometric front end), so their errors cancel in the code and only the fixed resistor's tolerance counts.
 /// </summary>
-public sealed record FaultTolerances(
+internal sealed record FaultTolerances(
     double ExcitationFraction = 0,
     double ReferenceFraction = 0,
     double FixedResistorFraction = 0,

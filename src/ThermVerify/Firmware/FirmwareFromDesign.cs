@@ -1,11 +1,11 @@
 using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 using ThermVerify.Sensors;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Firmware;
 
 /// <summary>The firmware model of a design, optionally corrected for the simulated DC loading, and its fault tolerances.</summary>
-public static class FirmwareFromDesign
+internal static class FirmwareFromDesign
 {
     /// <summary>
     /// The design's divider and converter over its check range. With <paramref name="correctForLoading"/> the pin's

@@ -1,7 +1,7 @@
-using ThermVerify.Design;
 using System.Globalization;
+using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 using ThermVerify.Sensors;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Firmware;
 

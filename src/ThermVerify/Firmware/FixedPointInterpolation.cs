@@ -4,7 +4,7 @@ namespace ThermVerify.Firmware;
 /// The integer arithmetic of the reference C routine, operation for operation (C99 and C# both truncate integer
 /// division toward zero), so the library can predict the firmware's output exactly.
 /// </summary>
-public static class FixedPointInterpolation
+internal static class FixedPointInterpolation
 {
     /// <summary>
     /// v0 + round((v1 − v0)(code − c0) / (c1 − c0)), rounding half away from zero, for c0 &lt; c1 and c0 ≤ code ≤ c1.

@@ -9,7 +9,7 @@ namespace ThermVerify.Firmware;
 /// shorter segment is never worse than a longer one, which holds for a smooth curve up to integer rounding; every
 /// chosen segment is checked in full regardless, so the bound always holds.
 /// </summary>
-public static class TableBuilder
+internal static class TableBuilder
 {
     /// <summary>A value for every code of the span.</summary>
     public static FirmwareTable EveryCode(FirmwareModel model, FixedPointScale scale)

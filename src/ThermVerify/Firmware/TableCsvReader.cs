@@ -18,7 +18,7 @@ public sealed class TableFormatException(string source, int line, string message
 /// starting with '#' skipped. Temperatures are °C, or integers in a fixed-point unit when one is given.
 /// Rows may come in any order (out-of-order rows are a finding of the verifier, not a read error); a code twice is an error.
 /// </summary>
-public static class TableCsvReader
+internal static class TableCsvReader
 {
     public static IReadOnlyList<TableRow> Parse(string text, string sourceName, FixedPointScale? unit = null)
     {

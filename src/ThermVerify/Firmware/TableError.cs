@@ -13,7 +13,7 @@ public sealed record TableError(
     public double MaxAbsErrorKelvin => Math.Max(Math.Abs(MaxErrorKelvin), Math.Abs(MinErrorKelvin));
 }
 
-public static class TableErrorAnalysis
+internal static class TableErrorAnalysis
 {
     public static TableError Evaluate(FirmwareModel model, FirmwareTable table)
     {

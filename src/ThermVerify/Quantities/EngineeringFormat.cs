@@ -7,7 +7,7 @@ namespace ThermVerify.Quantities;
 /// "1.5 µs", "12.3 mV", "1 %", "25 ppm/K", "0.5 V/µs". The mantissa lies in [1, 1000) where a prefix applies;
 /// outside the prefixes f..T the number is printed with an exponent.
 /// </summary>
-public static class EngineeringFormat
+internal static class EngineeringFormat
 {
     public static string Format(double valueSi, UnitKind unit, int significantDigits = 4)
     {

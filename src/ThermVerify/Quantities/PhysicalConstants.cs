@@ -1,7 +1,7 @@
 namespace ThermVerify.Quantities;
 
 /// <summary>Exact constants of the SI (SI Brochure, 9th edition, 2019).</summary>
-public static class PhysicalConstants
+internal static class PhysicalConstants
 {
     /// <summary>Offset between the Celsius and Kelvin scales: T/K = t/°C + 273.15.</summary>
     public const double ZeroCelsiusInKelvin = 273.15;

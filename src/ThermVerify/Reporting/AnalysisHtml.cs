@@ -1,10 +1,11 @@
 using System.Text;
+using ThermVerify.Reporting.Text;
 using static ThermVerify.Reporting.ReportHtml;
 
 namespace ThermVerify.Reporting;
 
 /// <summary>An analysis report as one self-contained HTML page, in the frame of the check report (see <see cref="ReportHtml"/>).</summary>
-public static class AnalysisHtml
+internal static class AnalysisHtml
 {
     public static string Render(AnalysisReport report)
     {

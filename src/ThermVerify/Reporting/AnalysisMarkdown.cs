@@ -1,10 +1,11 @@
 using System.Text;
+using ThermVerify.Reporting.Text;
 using static ThermVerify.Reporting.ReportMarkdown;
 
 namespace ThermVerify.Reporting;
 
 /// <summary>An analysis report as Markdown for a pull request: the same sections as the HTML page, figures as PNG files beside it.</summary>
-public static class AnalysisMarkdown
+internal static class AnalysisMarkdown
 {
     /// <param name="plotFolder">Folder of the PNG files, relative to the Markdown file.</param>
     public static string Render(AnalysisReport report, string plotFolder = "plots")

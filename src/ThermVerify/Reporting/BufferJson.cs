@@ -1,4 +1,4 @@
-using ThermVerify.Buffer;
+using ThermVerify.Check.Buffer;
 
 namespace ThermVerify.Reporting;
 

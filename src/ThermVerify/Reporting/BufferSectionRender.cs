@@ -1,11 +1,12 @@
 using System.Net;
 using System.Text;
-using ThermVerify.Buffer;
+using ThermVerify.Reporting.Text;
+using ThermVerify.Check.Buffer;
 
 namespace ThermVerify.Reporting;
 
 /// <summary>The buffer sections as terminal text, Markdown and HTML fragments.</summary>
-public static class BufferSectionRender
+internal static class BufferSectionRender
 {
     public static string Text(BufferReport? buffer)
     {

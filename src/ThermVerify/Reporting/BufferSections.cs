@@ -1,14 +1,14 @@
-using ThermVerify.Buffer;
+using ThermVerify.Check.Buffer;
 using ThermVerify.Quantities;
 using static ThermVerify.Reporting.ReportFormat;
 
 namespace ThermVerify.Reporting;
 
 /// <summary>One buffer section of a report: a heading, sentences, and a table. Text, HTML and Markdown render the same sections.</summary>
-public sealed record BufferSection(string Id, string Title, IReadOnlyList<string> Notes, IReadOnlyList<string> Headers, IReadOnlyList<string[]> Rows);
+internal sealed record BufferSection(string Id, string Title, IReadOnlyList<string> Notes, IReadOnlyList<string> Headers, IReadOnlyList<string[]> Rows);
 
 /// <summary>The buffer's results as report sections: stability, headroom, static errors, recovery, noise.</summary>
-public static class BufferSections
+internal static class BufferSections
 {
     public static IReadOnlyList<BufferSection> Build(BufferReport b, int staticRows = 7) =>
         [Stability(b.Stability), Headroom(b.Headroom), Static(b.StaticErrors, staticRows), Recovery(b.Recovery), Noise(b.Noise)];

@@ -1,6 +1,7 @@
 using System.Text;
 using ThermVerify.Baselines;
-using ThermVerify.Verification;
+using ThermVerify.Check;
+using ThermVerify.Quantities;
 using static ThermVerify.Reporting.ReportFormat;
 
 namespace ThermVerify.Reporting;
@@ -9,7 +10,7 @@ namespace ThermVerify.Reporting;
 /// The report as one self-contained HTML page: styles inline, figures inline as SVG, no script and no outside
 /// reference, so it can be archived as a CI artefact and opened anywhere.
 /// </summary>
-public static class CheckHtml
+internal static class CheckHtml
 {
     public static string Render(CheckReport report)
     {

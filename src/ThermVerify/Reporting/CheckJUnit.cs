@@ -1,7 +1,7 @@
 using System.Globalization;
 using System.Xml.Linq;
 using ThermVerify.Baselines;
-using ThermVerify.Verification;
+using ThermVerify.Check;
 using static ThermVerify.Reporting.ReportFormat;
 
 namespace ThermVerify.Reporting;

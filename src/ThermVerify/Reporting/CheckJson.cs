@@ -1,6 +1,7 @@
 using System.Text.Json;
+using ThermVerify.Reporting.Text;
+using ThermVerify.Check;
 using ThermVerify.Firmware;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Reporting;
 
@@ -13,13 +14,13 @@ public static class CheckJson
 {
     public const string Schema = "thermverify.check/1";
 
-    public static string Write(CheckResult result, string? designPath = null, FaultThresholds? faults = null) =>
-        JsonSerializer.Serialize(ToDocument(result, designPath, faults), ReportJson.Options);
+    public static string Write(CheckResult result, string? designPath = null) =>
+        JsonSerializer.Serialize(ToDocument(result, designPath, result.Faults), ReportJson.Options);
 
     private static object ToDocument(CheckResult r, string? designPath, FaultThresholds? faults) => new
     {
         schema = Schema,
-        tool = new { name = "thermverify", version = ToolVersion() },
+        tool = new { name = "thermverify", version = Provenance.ToolVersion.Current },
         design = new { name = r.Design.Name, file = designPath, sensor = r.SensorDescription },
         verdict = new
         {
@@ -91,6 +92,7 @@ public static class CheckJson
             steadyVolts = s.SteadyVolts,
             conversions = s.ConversionsSimulated,
             extrapolated = s.Extrapolated,
+            exactSteadyState = s.ExactSteadyState,
         }),
         buffer = BufferJson.Document(r.Buffer),
         faultThresholds = faults is null ? null : new
@@ -121,5 +123,4 @@ public static class CheckJson
 
     private static double? N(double? value) => ReportJson.N(value);
 
-    public static string ToolVersion() => ReportJson.ToolVersion();
 }

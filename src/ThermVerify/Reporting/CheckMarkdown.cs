@@ -1,12 +1,13 @@
 using System.Text;
 using ThermVerify.Baselines;
-using ThermVerify.Verification;
+using ThermVerify.Check;
+using ThermVerify.Quantities;
 using static ThermVerify.Reporting.ReportFormat;
 
 namespace ThermVerify.Reporting;
 
 /// <summary>The report as Markdown for a pull request: the same sections as the HTML page, figures as PNG files beside it.</summary>
-public static class CheckMarkdown
+internal static class CheckMarkdown
 {
     /// <param name="plotFolder">Folder of the PNG files, relative to the Markdown file.</param>
     public static string Render(CheckReport report, string plotFolder = "plots")

@@ -1,7 +1,7 @@
 using ThermVerify.Baselines;
+using ThermVerify.Check;
 using ThermVerify.Design;
 using ThermVerify.Reporting.Plots;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Reporting;
 
@@ -10,5 +10,5 @@ public sealed record CheckReport(CheckResult Result, string DesignFile, string D
 {
     /// <summary>Renders the figures (one extra sampling transient at the worst point) and echoes the design.</summary>
     public static CheckReport Build(CheckResult result, string designFile, BaselineComparison? baseline = null) =>
-        new(result, designFile, DesignWriter.ToToml(result.Design), CheckPlots.Render(result), baseline, CheckJson.ToolVersion());
+        new(result, designFile, DesignWriter.ToToml(result.Design), CheckPlots.Render(result), baseline, Provenance.ToolVersion.Current);
 }

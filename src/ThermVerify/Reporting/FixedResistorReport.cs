@@ -1,9 +1,10 @@
 using System.Globalization;
+using ThermVerify.Reporting.Text;
 using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 using ThermVerify.Quantities;
 using ThermVerify.Reporting.Plots;
 using ThermVerify.Tolerances;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Reporting;
 
@@ -37,7 +38,7 @@ public static class FixedResistorReport
         return new AnalysisReport($"thermverify choose-fixed: {design.Name}", design.Description, verdict, null,
             [.. ReportFormat.Settings(design, model.Sensor.Description, model.Adc)], designFile,
             [FixedResistorPlot.Render(ranked, options.Objective, present, design.Check.BudgetKelvin, design.Name)], sections,
-            DesignWriter.ToToml(design), ReportJson.ToolVersion(), FixedResistorJson.Schema);
+            DesignWriter.ToToml(design), Provenance.ToolVersion.Current, FixedResistorJson.Schema);
     }
 
     public static string Describe(FixedResistorObjective goal) => goal switch

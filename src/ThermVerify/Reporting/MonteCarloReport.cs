@@ -1,9 +1,9 @@
 using System.Globalization;
 using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 using ThermVerify.Reporting.Plots;
 using ThermVerify.Tolerances;
-using ThermVerify.Verification;
-using static ThermVerify.Reporting.ToleranceText;
+using static ThermVerify.Reporting.Text.ToleranceText;
 
 namespace ThermVerify.Reporting;
 
@@ -42,7 +42,7 @@ public static class MonteCarloReport
         ];
         return new AnalysisReport($"thermverify montecarlo: {design.Name}", design.Description, verdict, passed,
             [.. ReportFormat.Settings(design, model.Sensor.Description, model.Adc)], designFile, plots, sections,
-            DesignWriter.ToToml(design), ReportJson.ToolVersion(), MonteCarloJson.Schema);
+            DesignWriter.ToToml(design), Provenance.ToolVersion.Current, MonteCarloJson.Schema);
     }
 
     private static ReportTable EnvelopeTable(MonteCarloResult r)

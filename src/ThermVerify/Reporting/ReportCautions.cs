@@ -1,7 +1,7 @@
 namespace ThermVerify.Reporting;
 
 /// <summary>The limits every report states (the same as docs/cautions.md), as heading and text pairs.</summary>
-public static class ReportCautions
+internal static class ReportCautions
 {
     public static readonly IReadOnlyList<(string Heading, string Text)> All =
     [

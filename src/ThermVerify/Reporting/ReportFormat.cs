@@ -1,7 +1,9 @@
 using System.Globalization;
 using ThermVerify.Baselines;
+using ThermVerify.Check;
+using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 using ThermVerify.Quantities;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Reporting;
 

@@ -2,8 +2,8 @@ using System.Reflection;
 using System.Text.Json;
 using System.Text.Json.Serialization;
 using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 using ThermVerify.Tolerances;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Reporting;
 
@@ -23,7 +23,7 @@ internal static class ReportJson
     /// <summary>A number, or null when it does not exist (NaN from an unreadable code, infinity from an unbounded search).</summary>
     public static double? N(double? value) => value is { } v && double.IsFinite(v) ? v : null;
 
-    public static object Tool() => new { name = "thermverify", version = ToolVersion() };
+    public static object Tool() => new { name = "thermverify", version = Provenance.ToolVersion.Current };
 
     public static object DesignDocument(FrontEndDesign design, string? designPath) =>
         new { name = design.Name, file = designPath, sensor = new ClosedFormModel(design).Sensor.Description };
@@ -40,6 +40,4 @@ internal static class ReportJson
         standardDeviation = p.StandardDeviation,
     };
 
-    public static string ToolVersion() =>
-        typeof(ReportJson).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion ?? "unknown";
 }

@@ -1,9 +1,9 @@
 using System.Globalization;
 using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 using ThermVerify.Reporting.Plots;
 using ThermVerify.Tolerances;
-using ThermVerify.Verification;
-using static ThermVerify.Reporting.ToleranceText;
+using static ThermVerify.Reporting.Text.ToleranceText;
 
 namespace ThermVerify.Reporting;
 
@@ -34,7 +34,7 @@ public static class WorstCaseReport
         ];
         return new AnalysisReport($"thermverify worstcase: {design.Name}", design.Description, verdict, r.WithinBudget,
             [.. ReportFormat.Settings(design, model.Sensor.Description, model.Adc)], designFile, [WorstCasePlot.Render(r, design.Name)], sections,
-            DesignWriter.ToToml(design), ReportJson.ToolVersion(), WorstCaseJson.Schema);
+            DesignWriter.ToToml(design), Provenance.ToolVersion.Current, WorstCaseJson.Schema);
     }
 
     private static ReportTable BandTable(WorstCaseResult r)

@@ -1,4 +1,5 @@
 using System.Globalization;
+using ThermVerify.Quantities;
 
 namespace ThermVerify.Sensors;
 
@@ -8,7 +9,7 @@ namespace ThermVerify.Sensors;
 /// temperature/resistance relationship). Above 0 °C the inverse is the quadratic root; below, Newton from
 /// that root converges in a few steps because the C term is small there.
 /// </remarks>
-public sealed class PlatinumRtd : ISensorModel
+internal sealed class PlatinumRtd : ISensorModel
 {
     public const double IecA = 3.9083e-3;
     public const double IecB = -5.775e-7;
@@ -45,7 +46,7 @@ public sealed class PlatinumRtd : ISensorModel
     public bool UsesIecCoefficients => CoefficientA == IecA && CoefficientB == IecB && CoefficientC == IecC;
 
     public string Description => 
-        FormattableString.Invariant($"Platinum RTD, R0 = {R0Ohms:G6} Ω, ") +
+        FormattableString.Invariant($"Platinum RTD, R0 = {EngineeringFormat.Format(R0Ohms, UnitKind.Ohm, 6)}, ") +
         (UsesIecCoefficients ? "IEC 60751 coefficients" : FormattableString.Invariant($"Callendar–Van Dusen A = {CoefficientA:G6}, B = {CoefficientB:G6}, C = {CoefficientC:G6}")) +
         $", valid {ValidRange}";
 

@@ -10,7 +10,7 @@ namespace ThermVerify.Sensors;
 /// B 0.3 + 0.005|t|; class C 0.6 + 0.01|t| from memory. The standard also limits each class to a temperature
 /// span (different for wire-wound and film elements); that is not modelled here.
 /// </remarks>
-public sealed record RtdToleranceClass(string Name, double ConstantKelvin, double PerKelvinOfTemperature)
+internal sealed record RtdToleranceClass(string Name, double ConstantKelvin, double PerKelvinOfTemperature)
 {
     public static readonly RtdToleranceClass AA = new("AA", 0.1, 0.0017);
     public static readonly RtdToleranceClass A = new("A", 0.15, 0.002);

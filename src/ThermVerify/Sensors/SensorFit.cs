@@ -2,7 +2,7 @@ namespace ThermVerify.Sensors;
 
 /// <summary>A fitted model and how well it reproduces the points it was fitted to.</summary>
 /// <param name="ResidualsKelvin">Model temperature minus given temperature at each input point, in input order.</param>
-public sealed record SensorFit<TModel>(TModel Model, IReadOnlyList<double> ResidualsKelvin) where TModel : ISensorModel
+internal sealed record SensorFit<TModel>(TModel Model, IReadOnlyList<double> ResidualsKelvin) where TModel : ISensorModel
 {
     public double MaxAbsResidualKelvin => ResidualsKelvin.Max(Math.Abs);
 }

@@ -9,7 +9,7 @@ namespace ThermVerify.Sensors;
 /// When no valid range is given, a fitted model gets the model's default range widened to cover the points;
 /// a given range must contain every point, since a fit outside its own data is extrapolation.
 /// </remarks>
-public static class SensorFitting
+internal static class SensorFitting
 {
     /// <summary>"Beta from 2 points": β = ln(R1/R2)/(1/T1 − 1/T2), R0 and T0 from <paramref name="p1"/>.</summary>
     public static SensorFit<BetaThermistor> BetaFromTwoPoints(TablePoint p1, TablePoint p2, TemperatureRange? validRange = null)

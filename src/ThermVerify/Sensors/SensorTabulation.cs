@@ -1,13 +1,13 @@
 namespace ThermVerify.Sensors;
 
 /// <summary>One row of a sensor's R(T) table: resistance, slope and the relative coefficient α = (dR/dT)/R.</summary>
-public readonly record struct SensorTableRow(double Celsius, double Ohms, double SlopeOhmsPerKelvin)
+internal readonly record struct SensorTableRow(double Celsius, double Ohms, double SlopeOhmsPerKelvin)
 {
     public double AlphaPerKelvin => SlopeOhmsPerKelvin / Ohms;
 }
 
 /// <summary>Tabulates a sensor model over a range; the end of the range is always included.</summary>
-public static class SensorTabulation
+internal static class SensorTabulation
 {
     public static IReadOnlyList<SensorTableRow> Tabulate(ISensorModel sensor, TemperatureRange range, double stepKelvin)
     {

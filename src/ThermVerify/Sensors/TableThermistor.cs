@@ -15,7 +15,7 @@ public readonly record struct TablePoint(double Celsius, double Ohms);
 /// there needs far fewer rows than interpolating R against T. The monotone cubic (Fritsch–Carlson 1980)
 /// keeps one temperature per resistance, which an ordinary cubic spline does not promise.
 /// </remarks>
-public sealed class TableThermistor : ISensorModel
+internal sealed class TableThermistor : ISensorModel
 {
     /// <summary>Fewest rows accepted: the end slopes of the cubic need three, and one spare catches a typo.</summary>
     public const int MinimumRows = 4;
@@ -49,7 +49,11 @@ public sealed class TableThermistor : ISensorModel
         string text;
         try
         {
-            text = File.ReadAllText(csvPath);
+            text = Files.InputFile.ReadText(csvPath, Limits.Work.Limits.MaximumFileBytes);
+        }
+        catch (Files.InputFileException e)
+        {
+            throw new SensorTableException($"Cannot read R–T table '{csvPath}': the file {e.Problem}. {e.Hint}", csvPath, 0);
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {

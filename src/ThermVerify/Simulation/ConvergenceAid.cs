@@ -1,7 +1,7 @@
 namespace ThermVerify.Simulation;
 
 /// <summary>What a DC solution needed beyond plain Newton–Raphson from its starting point, in the usual order of trying.</summary>
-public enum ConvergenceAid
+internal enum ConvergenceAid
 {
     /// <summary>Newton–Raphson (with junction voltage limiting) converged from the starting point.</summary>
     None,
@@ -21,4 +21,4 @@ public enum ConvergenceAid
 /// aid (<see cref="Aid"/> set), or a transient that changed its integration method. Says which analysis, where
 /// (sweep value or time), and gives a sentence for a report.
 /// </summary>
-public sealed record SolverNote(string Analysis, string Message, ConvergenceAid? Aid = null, double? SweepValue = null, double? TimeSeconds = null);
+internal sealed record SolverNote(string Analysis, string Message, ConvergenceAid? Aid = null, double? SweepValue = null, double? TimeSeconds = null);

@@ -9,7 +9,7 @@ namespace ThermVerify.Simulation;
 /// restamped. A point Newton cannot reach directly is approached in halved steps, then with gmin and source
 /// stepping; <see cref="DcSweepResult.Notes"/> lists every point that needed an aid.
 /// </summary>
-public static class DcSweep
+internal static class DcSweep
 {
     public const string TemperatureAnalysisName = "DC temperature sweep";
     public const string ElementAnalysisName = "DC sweep";

@@ -4,7 +4,7 @@ using ThermVerify.Simulation.Mna;
 namespace ThermVerify.Simulation;
 
 /// <summary>Node voltages and element currents at every point of a DC sweep.</summary>
-public sealed class DcSweepResult
+internal sealed class DcSweepResult
 {
     private readonly BoundSystem system;
     private readonly double[] data;

@@ -5,7 +5,7 @@ using ThermVerify.Simulation.Mna;
 namespace ThermVerify.Simulation;
 
 /// <summary>DC operating point at the circuit temperature (capacitors open, inductors shorted, t = 0).</summary>
-public static class OperatingPoint
+internal static class OperatingPoint
 {
     public const string AnalysisName = "Operating point";
 

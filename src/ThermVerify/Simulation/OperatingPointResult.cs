@@ -4,7 +4,7 @@ using ThermVerify.Simulation.Mna;
 namespace ThermVerify.Simulation;
 
 /// <summary>The DC operating point: every node voltage and branch current, plus warnings.</summary>
-public sealed class OperatingPointResult
+internal sealed class OperatingPointResult
 {
     private readonly MnaLayout layout;
     private readonly double[] solution;

@@ -5,4 +5,4 @@ namespace ThermVerify.Simulation;
 /// common-mode range. <see cref="Subject"/> says which part of the element (a pin, a node);
 /// <see cref="TimeSeconds"/> or <see cref="SweepValue"/> say where it was first seen.
 /// </summary>
-public sealed record SimulationWarning(string Element, string Subject, string Message, double? TimeSeconds = null, double? SweepValue = null);
+internal sealed record SimulationWarning(string Element, string Subject, string Message, double? TimeSeconds = null, double? SweepValue = null);

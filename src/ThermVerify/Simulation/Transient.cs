@@ -3,7 +3,7 @@ using ThermVerify.Circuits;
 namespace ThermVerify.Simulation;
 
 /// <summary>Transient analysis from t = 0 (or from a captured state) to the options' stop time.</summary>
-public static class Transient
+internal static class Transient
 {
     /// <exception cref="TopologyException">The connections make the circuit unsolvable.</exception>
     /// <exception cref="ConvergenceException">A step could not be completed above the minimum step.</exception>

@@ -8,7 +8,7 @@ namespace ThermVerify.Simulation;
 /// SPICE's (reltol 1e-3, trtol 7) because sampled voltages are judged in fractions of an LSB, and the
 /// error estimate here (divided differences of the states) is not inflated, so the factor is 1.
 /// </summary>
-public sealed record TransientOptions
+internal sealed record TransientOptions
 {
     /// <summary>End of the run, in seconds from t = 0 (absolute, also when continuing from a state).</summary>
     public required double StopTimeSeconds { get; init; }
@@ -22,7 +22,8 @@ public sealed record TransientOptions
     /// <summary>Below this step the run gives up with a <see cref="ConvergenceException"/>.</summary>
     public double MinStepSeconds { get; init; } = 1e-18;
 
-    public IntegrationMethod Method { get; init; } = IntegrationMethod.Trapezoidal;
+    /// <summary>Trapezoidal, switching to Gear-2 if it rings (<see cref="IntegrationMethod.Automatic"/>), unless chosen.</summary>
+    public IntegrationMethod Method { get; init; } = IntegrationMethod.Automatic;
 
     public double RelativeTolerance { get; init; } = 1e-6;
 

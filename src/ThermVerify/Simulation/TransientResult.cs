@@ -12,7 +12,7 @@ namespace ThermVerify.Simulation;
 /// (an op-amp entering its clamp, a diode turning on) they ring from step to step, ±the jump, for ever, and a
 /// quadratic built on them strays by h·|jump|/4 between points.
 /// </summary>
-public sealed class TransientResult
+internal sealed class TransientResult
 {
     private readonly double[] times;
     private readonly double[] values;

@@ -16,7 +16,7 @@ namespace ThermVerify.Simulation;
 /// A step whose error exceeds its tolerance is redone shorter; the next step is
 /// h·min(2, 0.9·(tol/err)^(1/(k+1))). Breakpoints and requested output times are landed on exactly.
 /// </summary>
-public sealed class TransientSimulation
+internal sealed class TransientSimulation
 {
     public const string AnalysisName = "Transient";
 

@@ -5,7 +5,7 @@ namespace ThermVerify.Simulation;
 /// states with their recent history (for the error estimate), and the step the run would take next.
 /// Valid only for a circuit with the same elements and nodes (values may not change either).
 /// </summary>
-public sealed record TransientState
+internal sealed record TransientState
 {
     internal TransientState() { }
 

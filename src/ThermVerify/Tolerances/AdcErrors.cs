@@ -6,7 +6,7 @@ namespace ThermVerify.Tolerances;
 /// is taken as a bow that is zero at both ends of the scale and peaks at mid-scale, 4·x·(1 − x) times its value
 /// (the end-point fit makes INL vanish at the ends; the bow shape is a modelling choice, common practice, no source).
 /// </summary>
-public readonly record struct AdcErrors(double OffsetLsb, double GainError, double InlLsb)
+internal readonly record struct AdcErrors(double OffsetLsb, double GainError, double InlLsb)
 {
     public static AdcErrors None => default;
 

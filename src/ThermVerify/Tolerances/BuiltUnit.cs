@@ -8,7 +8,7 @@ namespace ThermVerify.Tolerances;
 /// converter's static errors, and the reference its LSB is a fraction of (the unit's excitation when ratiometric,
 /// so that the excitation's tolerance cancels).
 /// </summary>
-public sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, AdcErrors Adc, double ReferenceVolts)
+internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, AdcErrors Adc, double ReferenceVolts)
 {
     /// <param name="nominalSensor">The nominal design's sensor model, built once (a table is read from its file).</param>
     public static BuiltUnit Build(FrontEndDesign nominal, ISensorModel nominalSensor, ToleranceSet set, ReadOnlySpan<double> deviations)

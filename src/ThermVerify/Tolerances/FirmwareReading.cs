@@ -1,4 +1,4 @@
-using ThermVerify.Verification;
+using ThermVerify.FrontEnd;
 
 namespace ThermVerify.Tolerances;
 
@@ -7,7 +7,7 @@ namespace ThermVerify.Tolerances;
 /// a Monte Carlo run reads millions of codes. Between codes (an unquantised code) the reading is linear, which
 /// differs from the exact inverse by the curve's bend over one LSB only.
 /// </summary>
-public sealed class FirmwareReading
+internal sealed class FirmwareReading
 {
     private const int MaximumTabulatedBits = 16;
     private readonly ClosedFormModel model;

@@ -7,7 +7,7 @@ namespace ThermVerify.Tolerances;
 /// <see cref="UnitEvaluator"/>). Unit i draws from a stream derived from (seed, i) alone and results are kept by
 /// index, so a seed gives the same result whatever the thread count.
 /// </summary>
-public static class MonteCarlo
+internal static class MonteCarlo
 {
     public static MonteCarloResult Run(FrontEndDesign design, MonteCarloOptions? options = null)
     {

@@ -7,7 +7,7 @@ namespace ThermVerify.Tolerances;
 /// The sensor of one built unit: the design's sensor section with its own, already built model. It stands in for
 /// the nominal section, so every circuit a design builds (DC sweep, sampling, switch-on) carries this unit's sensor.
 /// </summary>
-public sealed record PerturbedSensorSpec : SensorSpec
+internal sealed record PerturbedSensorSpec : SensorSpec
 {
     private readonly ISensorModel model;
 

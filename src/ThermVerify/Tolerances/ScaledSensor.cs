@@ -3,7 +3,7 @@ using ThermVerify.Sensors;
 namespace ThermVerify.Tolerances;
 
 /// <summary>A sensor whose every resistance is the nominal one times a factor (a resistance tolerance).</summary>
-public sealed class ScaledSensor(ISensorModel nominal, double factor) : ISensorModel
+internal sealed class ScaledSensor(ISensorModel nominal, double factor) : ISensorModel
 {
     public string Description => FormattableString.Invariant($"{nominal.Description}, resistance × {factor:G6}");
 

@@ -1,11 +1,11 @@
 using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 using ThermVerify.Sensors;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Tolerances;
 
 /// <summary>The sensor's own heating over the check range.</summary>
-public sealed record SelfHeatingProfile(
+internal sealed record SelfHeatingProfile(
     IReadOnlyList<double> Celsius,
     IReadOnlyList<double> PowerWatts,
     IReadOnlyList<double> RiseKelvin,
@@ -18,7 +18,7 @@ public sealed record SelfHeatingProfile(
 /// is powered for the switch-on lead and one conversion in every reading interval; its thermal time constant is
 /// taken as much longer than the interval, so the mean power counts (P times the duty cycle).
 /// </summary>
-public static class SelfHeating
+internal static class SelfHeating
 {
     /// <summary>Fraction of the time the divider is excited: 1 unless the design switches it.</summary>
     public static double DutyCycle(FrontEndDesign design)

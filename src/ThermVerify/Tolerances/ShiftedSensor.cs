@@ -6,7 +6,7 @@ namespace ThermVerify.Tolerances;
 /// A platinum RTD inside its IEC 60751 class: at a true temperature t it has the resistance the nominal curve gives
 /// at t + f·(a + b·|t|), f in [−1, 1] being where this unit sits in the class band (one f for the whole range).
 /// </summary>
-public sealed class ShiftedSensor(ISensorModel nominal, RtdToleranceClass toleranceClass, double fraction) : ISensorModel
+internal sealed class ShiftedSensor(ISensorModel nominal, RtdToleranceClass toleranceClass, double fraction) : ISensorModel
 {
     public string Description => FormattableString.Invariant($"{nominal.Description}, {fraction:+0.###;-0.###} of {toleranceClass}");
 

@@ -1,8 +1,8 @@
 using System.Collections.Immutable;
 using ThermVerify.Circuits;
 using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 using ThermVerify.Simulation;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Tolerances;
 
@@ -11,7 +11,7 @@ namespace ThermVerify.Tolerances;
 /// operating point with the excitation off, and the first acquisition window opens after the switch-on lead. The
 /// first sample is compared with the settled pin voltage; the reservoir and the divider must have settled by then.
 /// </summary>
-public static class SwitchOnSettling
+internal static class SwitchOnSettling
 {
     /// <summary>Rise time of the excitation switch: short against any time constant of the front end.</summary>
     private const double EdgeSeconds = 1e-9;

@@ -20,7 +20,7 @@ public readonly record struct ToleranceDistribution(ToleranceShape Shape, double
         Shape == ToleranceShape.Normal ? halfWidth / CoverageFactor : halfWidth / Math.Sqrt(3);
 
     /// <summary>One draw for a tolerance of half-width <paramref name="halfWidth"/>.</summary>
-    public double Sample(ref UnitRandom random, double halfWidth) =>
+    internal double Sample(ref UnitRandom random, double halfWidth) =>
         Shape == ToleranceShape.Normal
             ? halfWidth / CoverageFactor * random.NextStandardNormal()
             : halfWidth * (2 * random.NextUnit() - 1);

@@ -7,7 +7,7 @@ namespace ThermVerify.Tolerances;
 /// in the parameter's own unit. Values the design gives as bounds without a nominal (fixed-resistor tempco, op-amp
 /// offset and bias, ADC offset, gain error and INL) are spread over ±|bound| around zero.
 /// </summary>
-public sealed class ToleranceSet
+internal sealed class ToleranceSet
 {
     private ToleranceSet(IReadOnlyList<ToleranceParameter> parameters) => Parameters = parameters;
 
@@ -69,7 +69,7 @@ public sealed class ToleranceSet
     }
 
     /// <summary>The deviations of one unit, drawn from its own stream.</summary>
-    public double[] Sample(ref UnitRandom random)
+    internal double[] Sample(ref UnitRandom random)
     {
         var deviations = new double[Parameters.Count];
         for (var i = 0; i < deviations.Length; i++)

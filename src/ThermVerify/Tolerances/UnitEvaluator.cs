@@ -1,7 +1,8 @@
+using ThermVerify.Check;
 using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 using ThermVerify.Sensors;
 using ThermVerify.Simulation;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Tolerances;
 
@@ -14,7 +15,7 @@ namespace ThermVerify.Tolerances;
 /// linear between grid points); at the unit's worst temperature the sampling transient is rerun with the unit's
 /// own parts and replaces them. Thread-safe: the nominal part is computed once in the constructor.
 /// </summary>
-public sealed class UnitEvaluator
+internal sealed class UnitEvaluator
 {
     private readonly CaseOffsets[] cases;
     private readonly ClosedFormPoint[] closedForm;

@@ -5,7 +5,7 @@ namespace ThermVerify.Tolerances;
 /// it, and unquantised for sensitivities), the self-heating included in it, and where the sampling was simulated
 /// with the unit's own parts.
 /// </summary>
-public sealed record UnitOutcome(
+internal sealed record UnitOutcome(
     double[] ErrorKelvin,
     double[] UnquantisedErrorKelvin,
     double[] SelfHeatingKelvin,

@@ -5,7 +5,7 @@ namespace ThermVerify.Tolerances;
 /// the same parts whichever thread builds it. SplitMix64 (Steele, Lea, Flood, "Fast splittable pseudorandom number
 /// generators", OOPSLA 2014) both mixes seed and index into a state and generates from it.
 /// </summary>
-public struct UnitRandom
+internal struct UnitRandom
 {
     private const ulong Gamma = 0x9E3779B97F4A7C15UL;
     private ulong state;

@@ -9,7 +9,7 @@ namespace ThermVerify.Tolerances;
 /// for independent inputs); what the fit leaves is reported as "nonlinear and settling". Quantisation is not in the unquantised error; its own variance is Q²/12 in volts
 /// (IEEE Std 1241) and shows in the envelope.
 /// </summary>
-public static class VarianceShares
+internal static class VarianceShares
 {
     public const string RestKey = "nonlinear and settling (what a linear fit leaves)";
 

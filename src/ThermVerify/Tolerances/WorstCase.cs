@@ -60,7 +60,7 @@ public sealed record WorstCaseResult(
 /// the one that lowers it most, and each distinct corner is then verified in full (DC sweep, the sampling transient
 /// at its worst temperature, quantisation). With few tolerances every corner is enumerated as a check.
 /// </summary>
-public static class WorstCase
+internal static class WorstCase
 {
     public static WorstCaseResult Run(FrontEndDesign design, WorstCaseOptions? options = null)
     {

@@ -14,14 +14,24 @@ public class ToleranceCommandTests
     }
 
     [Fact]
-    public void MonteCarloPrintsYieldAndProgressLinesWhenRedirected()
+    public void MonteCarloPrintsYieldAndNoProgressWhenRedirected()
     {
         var run = CliRunner.Run("montecarlo", Example("table-sensor-freezer.toml"), "-n", "100", "--threads", "2");
         Assert.Equal(ExitCodes.Success, run.ExitCode);
         Assert.Contains("yield:", run.Output);
         Assert.Contains("contributors", run.Output);
-        // Redirected output gets plain lines (one per tenth of the run), never a bar redrawn with carriage returns.
+        // Redirected output carries the results alone: the progress bar is for an interactive terminal.
+        Assert.Equal("", run.Error);
+    }
+
+    [Fact]
+    public void MonteCarloPrintsPlainProgressLinesWhenAsked()
+    {
+        var run = CliRunner.Run("montecarlo", Example("table-sensor-freezer.toml"), "-n", "100", "--threads", "2", "--progress");
+        Assert.Equal(ExitCodes.Success, run.ExitCode);
+        // One line per tenth of the run for a log, never a bar redrawn with carriage returns.
         Assert.Contains("units: 100/100 (100 %)", run.Error);
+        Assert.InRange(run.Error.Split('\n', StringSplitOptions.RemoveEmptyEntries).Length, 2, 11);
         Assert.DoesNotContain("\r", run.Error);
     }
 

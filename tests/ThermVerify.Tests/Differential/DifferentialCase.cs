@@ -6,7 +6,7 @@ using Complex = System.Numerics.Complex;
 
 namespace ThermVerify.Tests.Differential;
 
-public enum DifferentialAnalysis
+internal enum DifferentialAnalysis
 {
     OperatingPoint,
     SourceSweep,
@@ -21,7 +21,7 @@ public enum DifferentialAnalysis
 /// completed, in the analysis' own measure (see <see cref="DifferentialCase"/>). A failure of the built-in engine
 /// that names its reason as an ill-conditioned matrix is a decline, not a crash.
 /// </summary>
-public sealed record Comparison(DifferentialAnalysis Analysis, string? OursFailure, string? NgspiceFailure, double? Difference)
+internal sealed record Comparison(DifferentialAnalysis Analysis, string? OursFailure, string? NgspiceFailure, double? Difference)
 {
     public bool OursDeclined { get; init; }
 
@@ -37,7 +37,7 @@ public sealed record Comparison(DifferentialAnalysis Analysis, string? OursFailu
     public (double Ours, double Ngspice) Milliseconds { get; init; }
 }
 
-public sealed record CaseResult(RandomCircuit Circuit, bool? Stable, IReadOnlyList<Comparison> Comparisons);
+internal sealed record CaseResult(RandomCircuit Circuit, bool? Stable, IReadOnlyList<Comparison> Comparisons);
 
 /// <summary>
 /// Runs one random circuit through the built-in engine and through ngspice (the project's deck writer, the ngspice
@@ -53,7 +53,7 @@ public sealed record CaseResult(RandomCircuit Circuit, bool? Stable, IReadOnlyLi
 /// divided by the scale.</item>
 /// </list>
 /// </summary>
-public static class DifferentialCase
+internal static class DifferentialCase
 {
     /// <summary>p99 limits of the agreement where both engines complete (issue 15's acceptance figures; the transient
     /// one is ours: a few times both engines' own error at reltol 1e-6).</summary>
@@ -177,7 +177,7 @@ public static class DifferentialCase
             try
             {
                 var stop = rc.TransientStopSeconds;
-                var tight = NgspiceSession.Run(SpiceDeckWriter.Write(NgspiceTwin.For(rc.Circuit),
+                var tight = DifferentialNgspice.Run(SpiceDeckWriter.Write(NgspiceTwin.For(rc.Circuit),
                     new TransientSweep(stop, stop / 100) { RelativeTolerance = 1e-9, VoltageToleranceVolts = 1e-12 })).Plot("tran");
                 var against = TransientDifference(rc, tight);
                 if (against <= Limits[analysis])
@@ -242,7 +242,7 @@ public static class DifferentialCase
         };
         if (analysis == DifferentialAnalysis.Noise)
             twin = twin.Replace(((VoltageSource)twin[rc.NoiseInput!]) with { AcMagnitude = 1 });
-        return NgspiceSession.Run(SpiceDeckWriter.Write(twin, spice)).Plot(plot);
+        return DifferentialNgspice.Run(SpiceDeckWriter.Write(twin, spice)).Plot(plot);
     }
 
     private static double SweepStep(RandomCircuit rc) => (rc.SweepTo - rc.SweepFrom) / (SweepPoints - 1);

@@ -4,7 +4,7 @@ using System.Text;
 namespace ThermVerify.Tests.Differential;
 
 /// <summary>Figures of a differential run: completion of each engine, agreement percentiles, every disagreement.</summary>
-public sealed class DifferentialReport(IReadOnlyList<CaseResult> cases)
+internal sealed class DifferentialReport(IReadOnlyList<CaseResult> cases)
 {
     public IReadOnlyList<CaseResult> Cases => cases;
 

@@ -13,7 +13,7 @@ namespace ThermVerify.Tests.Differential;
 /// small-signal conductance (and thermal noise) is set to the off value. Agreement with ngspice in this view
 /// explains a disagreement as ngspice's, not the engine's.
 /// </summary>
-public static class NgspiceSwitchView
+internal static class NgspiceSwitchView
 {
     public static bool Applies(Circuit circuit) => circuit.Elements.OfType<TimedSwitch>().Any(s => s.Schedule.IsClosed(0));
 

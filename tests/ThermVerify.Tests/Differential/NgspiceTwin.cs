@@ -9,7 +9,7 @@ namespace ThermVerify.Tests.Differential;
 /// scaled by that ratio, so both engines solve the same n·kT/q and the comparison shows the engines, not the constants.
 /// The effect of the constants alone is measured separately (<c>DifferentialTests</c>) and stated in docs/engine.md.
 /// </summary>
-public static class NgspiceTwin
+internal static class NgspiceTwin
 {
     public static readonly double ThermalVoltageRatio =
         (1.380649e-23 / 1.602176634e-19) / (1.38064852e-23 / 1.6021766208e-19);

@@ -3,7 +3,7 @@ using ThermVerify.Circuits;
 namespace ThermVerify.Tests.Differential;
 
 /// <summary>Linear circuits hold only linear elements (switches included); nonlinear ones add diodes or op-amp limits.</summary>
-public enum CircuitClass
+internal enum CircuitClass
 {
     Linear,
     Nonlinear,
@@ -13,7 +13,7 @@ public enum CircuitClass
 /// A generated circuit and what the differential run does with it: an AC source (AC magnitude 1), a noise output and
 /// the voltage source the noise is referred to, a source to sweep, and the transient's stop time.
 /// </summary>
-public sealed record RandomCircuit(int Seed, CircuitClass Class, Circuit Circuit)
+internal sealed record RandomCircuit(int Seed, CircuitClass Class, Circuit Circuit)
 {
     public required string AcSource { get; init; }
 

@@ -12,7 +12,7 @@ namespace ThermVerify.Tests.Differential;
 /// engine's own topology check. The same seed always gives the same circuit (System.Random with a seed is
 /// deterministic within a .NET version).
 /// </summary>
-public sealed class RandomCircuitGenerator(int seed, CircuitClass circuitClass, int maxNodes = 15)
+internal sealed class RandomCircuitGenerator(int seed, CircuitClass circuitClass, int maxNodes = 15)
 {
     private readonly Random random = new(seed);
     private readonly List<Element> elements = [];

@@ -10,7 +10,7 @@ namespace ThermVerify.Tests.Differential;
 /// operating point, AC and noise analyses use). Rise and fall times are never zero, so both engines see the same
 /// waveform (SPICE replaces a zero rise by its own step).
 /// </summary>
-public static class RandomTiming
+internal static class RandomTiming
 {
     public static RandomCircuit Apply(RandomCircuit rc, Poles poles, int seed)
     {

@@ -7,7 +7,7 @@ using Complex = System.Numerics.Complex;
 namespace ThermVerify.Tests.Differential;
 
 /// <summary>The finite natural frequencies of a circuit linearised at its operating point.</summary>
-public sealed record Poles(IReadOnlyList<Complex> Values)
+internal sealed record Poles(IReadOnlyList<Complex> Values)
 {
     /// <summary>Every pole in the open left half plane, none within 1e-9·|s| of the imaginary axis.</summary>
     public bool Stable => Values.All(s => s.Real < -1e-9 * s.Magnitude);
@@ -29,7 +29,7 @@ public sealed record Poles(IReadOnlyList<Complex> Values)
 /// algebraic (infinite) part (shift-and-invert for a matrix pencil; Golub &amp; Van Loan §7.7, from memory). The
 /// eigenvalues come from MathNet.Numerics (an independent implementation).
 /// </summary>
-public static class StabilityScreen
+internal static class StabilityScreen
 {
     public static Poles PolesOf(Circuit circuit)
     {

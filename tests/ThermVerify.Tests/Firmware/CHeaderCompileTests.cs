@@ -1,8 +1,8 @@
-using ThermVerify.Design;
 using System.Diagnostics;
 using System.Globalization;
+using ThermVerify.Design;
 using ThermVerify.Firmware;
-using ThermVerify.Verification;
+using ThermVerify.Sensors;
 
 namespace ThermVerify.Tests.Firmware;
 

@@ -1,7 +1,7 @@
 using ThermVerify.Design;
 using ThermVerify.Firmware;
+using ThermVerify.FrontEnd;
 using ThermVerify.Sensors;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Tests.Firmware;
 

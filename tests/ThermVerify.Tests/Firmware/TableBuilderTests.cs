@@ -1,6 +1,5 @@
 using ThermVerify.Design;
 using ThermVerify.Firmware;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Tests.Firmware;
 

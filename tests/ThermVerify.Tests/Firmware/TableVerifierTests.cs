@@ -1,7 +1,6 @@
-using ThermVerify.Design;
 using System.Globalization;
+using ThermVerify.Design;
 using ThermVerify.Firmware;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Tests.Firmware;
 

@@ -1,6 +1,6 @@
+using ThermVerify.Check;
 using ThermVerify.Design;
 using ThermVerify.Reporting;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Tests.Hardening;
 

@@ -1,5 +1,5 @@
-using ThermVerify.Tests.Verification;
-using ThermVerify.Verification;
+using ThermVerify.Check;
+using ThermVerify.Tests.Check;
 
 namespace ThermVerify.Tests.Hardening;
 

@@ -3,7 +3,6 @@ using System.Text.RegularExpressions;
 using ThermVerify.Circuits;
 using ThermVerify.Circuits.Spice;
 using ThermVerify.Tests.Cli;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Tests.Ngspice;
 

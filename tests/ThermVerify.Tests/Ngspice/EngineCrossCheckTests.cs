@@ -1,9 +1,9 @@
 using System.Numerics;
-using ThermVerify.Circuits.Spice;
+using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 using ThermVerify.Ngspice;
 using ThermVerify.Sensors;
 using ThermVerify.Simulation;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Tests.Ngspice;
 

@@ -1,5 +1,5 @@
+using ThermVerify.Check;
 using ThermVerify.Ngspice;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Tests.Ngspice;
 

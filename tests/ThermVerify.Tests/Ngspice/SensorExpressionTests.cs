@@ -1,6 +1,6 @@
+using ThermVerify.Ngspice;
 using ThermVerify.Circuits;
 using ThermVerify.Circuits.Spice;
-using ThermVerify.Ngspice;
 using ThermVerify.Sensors;
 
 namespace ThermVerify.Tests.Ngspice;

@@ -1,4 +1,5 @@
 using System.Text.RegularExpressions;
+using ThermVerify.Files;
 using ThermVerify.Reporting;
 
 namespace ThermVerify.Tests.Reporting;

@@ -1,5 +1,5 @@
 using ThermVerify.Baselines;
-using ThermVerify.Reporting;
+using ThermVerify.Files;
 using ThermVerify.Tests.Cli;
 
 namespace ThermVerify.Tests.Reporting;

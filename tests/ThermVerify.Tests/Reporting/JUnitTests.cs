@@ -1,7 +1,8 @@
 using System.Xml.Linq;
 using ThermVerify.Baselines;
+using ThermVerify.Check;
+using ThermVerify.Circuits;
 using ThermVerify.Reporting;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Tests.Reporting;
 

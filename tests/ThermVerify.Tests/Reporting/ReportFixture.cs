@@ -1,6 +1,6 @@
+using ThermVerify.Check;
 using ThermVerify.Reporting;
-using ThermVerify.Tests.Verification;
-using ThermVerify.Verification;
+using ThermVerify.Tests.Check;
 
 namespace ThermVerify.Tests.Reporting;
 

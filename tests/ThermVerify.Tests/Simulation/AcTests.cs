@@ -1,6 +1,6 @@
 using System.Numerics;
-using ThermVerify.Circuits;
 using ThermVerify.Simulation;
+using ThermVerify.Circuits;
 
 namespace ThermVerify.Tests.Simulation;
 

@@ -1,5 +1,5 @@
-using ThermVerify.Circuits;
 using ThermVerify.Simulation;
+using ThermVerify.Circuits;
 
 namespace ThermVerify.Tests.Simulation;
 

@@ -1,6 +1,6 @@
+using ThermVerify.Simulation;
 using ThermVerify.Circuits;
 using ThermVerify.Quantities;
-using ThermVerify.Simulation;
 
 namespace ThermVerify.Tests.Simulation;
 

@@ -1,6 +1,6 @@
 using ThermVerify.Design;
+using ThermVerify.Tests.Check;
 using ThermVerify.Tolerances;
-using ThermVerify.Tests.Verification;
 
 namespace ThermVerify.Tests.Tolerances;
 

@@ -1,6 +1,6 @@
 using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 using ThermVerify.Tolerances;
-using ThermVerify.Verification;
 
 namespace ThermVerify.Tests.Tolerances;
 

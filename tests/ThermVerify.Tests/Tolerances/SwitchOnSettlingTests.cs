@@ -1,5 +1,5 @@
+using ThermVerify.Tests.Check;
 using ThermVerify.Tolerances;
-using ThermVerify.Tests.Verification;
 
 namespace ThermVerify.Tests.Tolerances;
 

@@ -1,5 +1,5 @@
 using ThermVerify.Design;
-using ThermVerify.Tests.Verification;
+using ThermVerify.Tests.Check;
 
 namespace ThermVerify.Tests.Tolerances;
 

@@ -10,7 +10,7 @@ namespace ThermVerify.Circuits.Spice;
 /// <c>r='…'</c>: SPICE re-evaluates it at every point of a <c>.dc temp</c> sweep. Each expression is the model's own
 /// closed form, so both engines compute the same resistance to rounding.
 /// </summary>
-public static class SensorExpression
+internal static class SensorExpression
 {
     private static readonly string Kelvin = $"(temper+{Format(PhysicalConstants.ZeroCelsiusInKelvin)})";
 

@@ -1,14 +1,14 @@
 namespace ThermVerify.Circuits.Spice;
 
 /// <summary>One analysis of a SPICE deck.</summary>
-public abstract record SpiceAnalysis;
+internal abstract record SpiceAnalysis;
 
 /// <summary>
 /// <c>.dc temp</c> from <see cref="StartCelsius"/> in steps of <see cref="StepKelvin"/>, <see cref="Points"/> points.
 /// The stop value is written half a step beyond the last point, because SPICE accumulates the step and may otherwise
 /// drop the last point; read only the first <see cref="Points"/> values.
 /// </summary>
-public sealed record DcTemperatureSweep(double StartCelsius, double StepKelvin, int Points) : SpiceAnalysis
+internal sealed record DcTemperatureSweep(double StartCelsius, double StepKelvin, int Points) : SpiceAnalysis
 {
     /// <summary>An evenly spaced list (to 1e-9 of a step) as a sweep; anything else cannot be one <c>.dc</c> line.</summary>
     public static DcTemperatureSweep From(IReadOnlyList<double> temperaturesCelsius)
@@ -31,10 +31,10 @@ public sealed record DcTemperatureSweep(double StartCelsius, double StepKelvin, 
 /// <see cref="Points"/> points; the stop value is written half a step beyond the last point, as for
 /// <see cref="DcTemperatureSweep"/>.
 /// </summary>
-public sealed record DcSourceSweep(string Source, double Start, double Step, int Points) : SpiceAnalysis;
+internal sealed record DcSourceSweep(string Source, double Start, double Step, int Points) : SpiceAnalysis;
 
 /// <summary><c>.tran</c> to <see cref="StopSeconds"/> with at most <see cref="MaxStepSeconds"/> per step.</summary>
-public sealed record TransientSweep(double StopSeconds, double MaxStepSeconds) : SpiceAnalysis
+internal sealed record TransientSweep(double StopSeconds, double MaxStepSeconds) : SpiceAnalysis
 {
     /// <summary>SPICE's relative tolerance for this deck (also sets the truncation-error control).</summary>
     public double RelativeTolerance { get; init; } = 1e-6;
@@ -46,20 +46,20 @@ public sealed record TransientSweep(double StopSeconds, double MaxStepSeconds) :
 }
 
 /// <summary><c>.op</c>: the DC operating point at the circuit's temperature.</summary>
-public sealed record OperatingPointAnalysis : SpiceAnalysis;
+internal sealed record OperatingPointAnalysis : SpiceAnalysis;
 
 /// <summary><c>.ac dec</c> from <see cref="StartHertz"/> to <see cref="StopHertz"/>.</summary>
-public sealed record AcSweep(double StartHertz, double StopHertz, int PointsPerDecade) : SpiceAnalysis;
+internal sealed record AcSweep(double StartHertz, double StopHertz, int PointsPerDecade) : SpiceAnalysis;
 
 /// <summary><c>.noise</c> at <see cref="OutputNode"/> (against ground), input referred to <see cref="InputSource"/>.</summary>
-public sealed record NoiseSweep(string OutputNode, string InputSource, double StartHertz, double StopHertz, int PointsPerDecade) : SpiceAnalysis;
+internal sealed record NoiseSweep(string OutputNode, string InputSource, double StartHertz, double StopHertz, int PointsPerDecade) : SpiceAnalysis;
 
 /// <summary>
 /// Forces <see cref="Points"/> evenly spaced time points into the window [start, start + window) of every period:
 /// written as zero-valued PULSE current sources, whose corners SPICE takes as breakpoints. This caps the step inside
 /// short windows (an acquisition) without capping it everywhere, and costs no matrix rows.
 /// </summary>
-public sealed record StepGuard(double StartSeconds, double WindowSeconds, double PeriodSeconds, int Points)
+internal sealed record StepGuard(double StartSeconds, double WindowSeconds, double PeriodSeconds, int Points)
 {
     /// <summary>
     /// Points per closed switch window that bring ngspice's samples after a charge-sharing step to about 3 µV of the

@@ -4,7 +4,7 @@ using static ThermVerify.Circuits.Spice.SpiceNumber;
 namespace ThermVerify.Circuits.Spice;
 
 /// <summary>What a deck says about itself: the title line and comments naming the design and each node.</summary>
-public sealed record SpiceDeckHeader(string Title)
+internal sealed record SpiceDeckHeader(string Title)
 {
     public IReadOnlyList<string> Notes { get; init; } = [];
 
@@ -18,12 +18,13 @@ public sealed record SpiceDeckHeader(string Title)
 /// exponent form and sets tolerances tight enough that a SPICE engine reproduces the built-in engine's results to
 /// well within the cross-check limits. Vector names are the node names in lower case (SPICE ignores case).
 /// </summary>
-public static class SpiceDeckWriter
+internal static class SpiceDeckWriter
 {
     /// <summary>The deck's TNOM: the temperature resistor tempcos and sensor expressions are referred to.</summary>
     public const double NominalCelsius = 25;
 
-    public static string Write(Circuit circuit, SpiceAnalysis analysis, SpiceDeckHeader? header = null)
+    /// <param name="outputs">Output statements after the analysis; none writes a bare netlist and analysis.</param>
+    public static string Write(Circuit circuit, SpiceAnalysis analysis, SpiceDeckHeader? header = null, IReadOnlyList<SpiceOutput>? outputs = null)
     {
         ArgumentNullException.ThrowIfNull(circuit);
         ArgumentNullException.ThrowIfNull(analysis);
@@ -53,14 +54,14 @@ public static class SpiceDeckWriter
                 deck.AppendLine($"* node {node}: {OneLine(what)}");
         deck.AppendLine($".options tnom={Format(NominalCelsius)} numdgt=15 {Tolerances(analysis)}");
         deck.AppendLine($".temp {Format(circuit.TemperatureCelsius)}");
-        foreach (var include in lines.Includes)
-            deck.AppendLine($".include \"{include}\"");
         deck.Append(lines.Netlist);
         if (analysis is TransientSweep { StepGuards.Count: > 0 } guarded)
             WriteGuards(deck, guarded.StepGuards);
         foreach (var definition in lines.Definitions)
             deck.AppendLine(definition);
         deck.AppendLine(AnalysisLine(analysis, circuit));
+        foreach (var output in outputs ?? [])
+            deck.AppendLine(output.Line());
         deck.AppendLine(".end");
         return deck.ToString();
     }

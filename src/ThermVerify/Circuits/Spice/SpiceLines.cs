@@ -7,12 +7,11 @@ namespace ThermVerify.Circuits.Spice;
 /// separately so the deck lists them after the netlist). Instance names get the SPICE type letter in front when the
 /// element's own name does not start with it, since SPICE decides the element type by that letter.
 /// </summary>
-public sealed class SpiceLines
+internal sealed class SpiceLines
 {
     private readonly StringBuilder netlist = new();
     private readonly List<string> definitions = [];
     private readonly HashSet<string> definitionKeys = [];
-    private readonly List<string> includes = [];
 
     /// <summary>The simulation stop time of a transient deck (switch controls are written up to it), else null.</summary>
     public double? StopTimeSeconds { get; init; }
@@ -42,13 +41,6 @@ public sealed class SpiceLines
     {
         if (definitionKeys.Add(key)) definitions.Add(text.TrimEnd());
     }
-
-    public void Include(string path)
-    {
-        if (!includes.Contains(path)) includes.Add(path);
-    }
-
-    public IReadOnlyList<string> Includes => includes;
 
     public string Netlist => netlist.ToString();
 

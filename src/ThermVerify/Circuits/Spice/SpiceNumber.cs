@@ -6,7 +6,7 @@ namespace ThermVerify.Circuits.Spice;
 /// Numbers for a SPICE deck: shortest round-trip digits in plain exponent form ("4.7e-09"), never a scale suffix,
 /// because SPICE reads "1M" as milli and only "1meg" as 10⁶, a classic trap for anyone editing the deck by hand.
 /// </summary>
-public static class SpiceNumber
+internal static class SpiceNumber
 {
     public static string Format(double value)
     {

@@ -4,7 +4,7 @@ using ThermVerify.Tolerances;
 namespace ThermVerify.Reporting.Plots;
 
 /// <summary>The tolerances ranked by their share of the error variance, largest at the top, as horizontal bars.</summary>
-public static class ContributorsPlot
+internal static class ContributorsPlot
 {
     public static RenderedPlot Render(MonteCarloResult result, string designName)
     {

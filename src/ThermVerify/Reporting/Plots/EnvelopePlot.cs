@@ -7,7 +7,7 @@ namespace ThermVerify.Reporting.Plots;
 /// The Monte Carlo error envelope against temperature: the budget band, min to max over the units, the percentile
 /// bands paired from the outside in, the median and the nominal unit.
 /// </summary>
-public static class EnvelopePlot
+internal static class EnvelopePlot
 {
     // Darker than the bands it runs through.
     private static readonly Color Median = Color.FromHex("#08306b");

@@ -1,10 +1,10 @@
 using ScottPlot;
-using ThermVerify.Verification;
+using ThermVerify.Check;
 
 namespace ThermVerify.Reporting.Plots;
 
 /// <summary>The reported-temperature error against temperature: the budget band, the total and each contribution.</summary>
-public static class ErrorPlot
+internal static class ErrorPlot
 {
     public static RenderedPlot Render(CheckResult result)
     {

@@ -8,7 +8,7 @@ namespace ThermVerify.Reporting.Plots;
 /// The ranking figure of choose-fixed: the objective's figure against the candidate resistance on a log axis, with
 /// the present fixed resistor and the best candidate marked (and the budget, for the error objective).
 /// </summary>
-public static class FixedResistorPlot
+internal static class FixedResistorPlot
 {
     public static RenderedPlot Render(IReadOnlyList<FixedResistorCandidate> ranked, FixedResistorObjective objective, double presentOhms, double? budgetKelvin, string designName)
     {

@@ -1,5 +1,6 @@
 using ScottPlot;
-using ThermVerify.Verification;
+using ThermVerify.Check;
+using ThermVerify.Tolerances;
 
 namespace ThermVerify.Reporting.Plots;
 
@@ -7,7 +8,7 @@ namespace ThermVerify.Reporting.Plots;
 /// Kelvin per LSB against temperature, with the resolution limit: quantisation alone reaches ±½ LSB (IEEE Std
 /// 1241), so the budget can hold only where one LSB is at most twice the budget.
 /// </summary>
-public static class SensitivityPlot
+internal static class SensitivityPlot
 {
     public static RenderedPlot Render(CheckResult result)
     {

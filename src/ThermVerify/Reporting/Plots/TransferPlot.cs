@@ -1,5 +1,5 @@
 using ScottPlot;
-using ThermVerify.Verification;
+using ThermVerify.Check;
 
 namespace ThermVerify.Reporting.Plots;
 
@@ -8,7 +8,7 @@ namespace ThermVerify.Reporting.Plots;
 /// simulated DC pin voltage, the simulated sample and the code it converts to. The code axis is the voltage axis
 /// divided by one LSB, so a code marker sits on the voltage it stands for.
 /// </summary>
-public static class TransferPlot
+internal static class TransferPlot
 {
     public static RenderedPlot Render(CheckResult result)
     {

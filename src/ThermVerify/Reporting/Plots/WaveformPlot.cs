@@ -1,5 +1,6 @@
 using ScottPlot;
-using ThermVerify.Verification;
+using ThermVerify.Check;
+using ThermVerify.FrontEnd;
 
 namespace ThermVerify.Reporting.Plots;
 
@@ -7,7 +8,7 @@ namespace ThermVerify.Reporting.Plots;
 /// The pin and the sampling capacitor during the first acquisitions at the worst temperature, each window drawn
 /// from the moment the sampling switch closes, with the settled (DC) pin voltage the sample should reach.
 /// </summary>
-public static class WaveformPlot
+internal static class WaveformPlot
 {
     public static RenderedPlot Render(CheckResult result, SamplingWaveform waveform)
     {

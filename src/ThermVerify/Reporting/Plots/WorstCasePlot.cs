@@ -7,7 +7,7 @@ namespace ThermVerify.Reporting.Plots;
 /// The worst-case band against temperature: the errors of the corners that raise and lower the error most, the
 /// nominal unit, nominal ± RSS of the sensitivities and the budget band.
 /// </summary>
-public static class WorstCasePlot
+internal static class WorstCasePlot
 {
     public static RenderedPlot Render(WorstCaseResult result, string designName)
     {

@@ -4,7 +4,7 @@ using ThermVerify.Tolerances;
 namespace ThermVerify.Reporting.Plots;
 
 /// <summary>How many units reach each worst |error| over the range, with the budget marked and the yield in the title.</summary>
-public static class WorstErrorHistogramPlot
+internal static class WorstErrorHistogramPlot
 {
     public const int Bins = 40;
 

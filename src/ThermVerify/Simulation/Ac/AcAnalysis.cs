@@ -8,7 +8,7 @@ namespace ThermVerify.Simulation;
 /// Small-signal AC analysis about the operating point: the complex MNA system (G + jωB)·x = b is
 /// solved at every frequency, b holding each source's AC magnitude and phase.
 /// </summary>
-public static class AcAnalysis
+internal static class AcAnalysis
 {
     public const string AnalysisName = "AC";
 

@@ -4,7 +4,7 @@ using ThermVerify.Simulation.Mna;
 namespace ThermVerify.Simulation;
 
 /// <summary>Node phasors at every frequency of an AC analysis, with magnitude/phase helpers.</summary>
-public sealed class AcResult
+internal sealed class AcResult
 {
     private readonly MnaLayout layout;
     private readonly Complex[] data;

@@ -1,7 +1,7 @@
 namespace ThermVerify.Simulation;
 
 /// <summary>The frequencies of an AC or noise analysis.</summary>
-public sealed record FrequencySweep
+internal sealed record FrequencySweep
 {
     private FrequencySweep(double[] frequencies) => FrequenciesHertz = frequencies;
 

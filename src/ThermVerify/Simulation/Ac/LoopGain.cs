@@ -12,7 +12,7 @@ namespace ThermVerify.Simulation;
 /// is zeroed, and T = −g·vd of the response. Nothing is cut, so every loading (r_o, the load, the
 /// feedback network, the input) stays as it is; for the model it is exact, not an approximation.
 /// </summary>
-public static class LoopGain
+internal static class LoopGain
 {
     public const string AnalysisName = "Loop gain";
 

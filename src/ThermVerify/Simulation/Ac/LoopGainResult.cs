@@ -6,7 +6,7 @@ namespace ThermVerify.Simulation;
 /// The loop gain T(f) over a sweep, with the crossover (|T| = 1, refined by bisection on log f between
 /// the bracketing sweep points) and the phase margin 180° + ∠T(f_c), phase unwrapped from the low end.
 /// </summary>
-public sealed class LoopGainResult
+internal sealed class LoopGainResult
 {
     internal LoopGainResult(double[] frequencies, Complex[] gain, Func<double, Complex> evaluate, IReadOnlyList<SimulationWarning> warnings)
     {

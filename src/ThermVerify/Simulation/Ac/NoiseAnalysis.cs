@@ -13,7 +13,7 @@ namespace ThermVerify.Simulation;
 /// (white with a 1/f corner). Generators are uncorrelated. The op-amp model's own internal resistors
 /// are noiseless.
 /// </summary>
-public static class NoiseAnalysis
+internal static class NoiseAnalysis
 {
     public const string AnalysisName = "Noise";
 

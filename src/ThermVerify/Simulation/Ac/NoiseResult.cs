@@ -6,7 +6,7 @@ namespace ThermVerify.Simulation;
 /// segment, which is exact for white, 1/f and 1/f² stretches and needs far fewer points than the
 /// trapezoidal rule.
 /// </summary>
-public sealed class NoiseResult
+internal sealed class NoiseResult
 {
     private readonly (string Element, string Label)[] generators;
     private readonly double[,] psd;

@@ -1,4 +1,5 @@
 using ThermVerify.Circuits;
+using ThermVerify.Simulation.Stamps;
 
 namespace ThermVerify.Simulation.Mna;
 
@@ -34,7 +35,7 @@ internal sealed class BoundSystem
         {
             bind.ExtraStart = Layout.ExtraStart[e];
             bind.ElementName = circuit.Elements[e].Name;
-            Stamps[e] = circuit.Elements[e].Bind(bind);
+            Stamps[e] = StampCatalog.Bind(circuit.Elements[e], bind);
         }
         StateIsCurrent = bind.StateIsCurrent;
         StateOwners = bind.StateOwners;

@@ -1,4 +1,5 @@
 using System.Numerics;
+using ThermVerify.Limits;
 
 namespace ThermVerify.Simulation.Mna;
 
@@ -26,7 +27,6 @@ namespace ThermVerify.Simulation.Mna;
 /// </summary>
 internal sealed class DenseLu<T> where T : struct, INumberBase<T>
 {
-
     private readonly int n;
     private readonly T[] lu;
     private readonly T[] equilibrated;
@@ -41,6 +41,8 @@ internal sealed class DenseLu<T> where T : struct, INumberBase<T>
     private readonly Action<T[]> inverse, inverseTransposed;
     private double equilibratedNorm;
     private double? condition;
+    // Per thread, not per matrix: short analyses that build a new matrix each time still count up.
+    [ThreadStatic] private static int factorisations;
 
     public DenseLu(int n)
     {
@@ -75,6 +77,8 @@ internal sealed class DenseLu<T> where T : struct, INumberBase<T>
     /// </summary>
     public int Factor(T[] matrix)
     {
+        // Every analysis passes through here: Ctrl+C and the time limit stop it within a few solver steps.
+        if ((++factorisations & 63) == 0) Work.ThrowIfCancelled();
         condition = null;
         var a = lu.AsSpan();
         matrix.AsSpan(0, n * n).CopyTo(a);

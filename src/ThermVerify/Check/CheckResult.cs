@@ -1,0 +1,48 @@
+using ThermVerify.Check.Buffer;
+using ThermVerify.Design;
+using ThermVerify.Firmware;
+using ThermVerify.FrontEnd;
+
+namespace ThermVerify.Check;
+
+/// <summary>How a check is run; the defaults suit a CI run on a small machine.</summary>
+public sealed record CheckOptions
+{
+    /// <summary>At most this many temperatures get a sampling transient (every point when the sweep has fewer).</summary>
+    public int MaximumSamplingPoints { get; init; } = 25;
+
+    public int Threads { get; init; } = Environment.ProcessorCount;
+
+    /// <summary>Search for remedies (extra simulations at the worst temperature) when a finding needs one.</summary>
+    public bool ComputeRemedies { get; init; } = true;
+
+    public CancellationToken Cancel { get; init; }
+
+    /// <summary>The engine that runs the temperature sweeps and sampling transients (remedy searches included).</summary>
+    public ICheckEngine Engine { get; init; } = BuiltInEngine.Instance;
+}
+
+/// <summary>
+/// Everything `check` found: every point of the sweep, the sampling runs, the findings and the verdict, and the
+/// sampling waveform at the worst point (recorded by the check's own engine, so reports draw it without simulating).
+/// </summary>
+public sealed record CheckResult(
+    FrontEndDesign Design,
+    string SensorDescription,
+    AdcTransfer Adc,
+    IReadOnlyList<CheckPoint> Points,
+    IReadOnlyList<SamplingOutcome> Sampling,
+    IReadOnlyList<Finding> Findings,
+    SamplingWaveform Waveform)
+{
+    /// <summary>The op-amp buffer's own sections (stability, headroom, static errors, recovery, noise) when the design has one.</summary>
+    public Buffer.BufferReport? Buffer { get; init; }
+
+    /// <summary>The codes a broken sensor or fixed resistor produce and the thresholds that catch them; null when the tolerances leave no room.</summary>
+    public FaultThresholds? Faults { get; init; }
+
+    public bool Passed => Points.All(p => p.WithinBudget) && Findings.All(f => f.Severity != Severity.Fail);
+
+    /// <summary>The point with the largest reported error (an unreadable code counts as the largest).</summary>
+    public CheckPoint Worst => Points.MaxBy(p => double.IsFinite(p.ErrorKelvin) ? Math.Abs(p.ErrorKelvin) : double.PositiveInfinity)!;
+}

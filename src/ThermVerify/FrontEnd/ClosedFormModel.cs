@@ -1,0 +1,69 @@
+using ThermVerify.Design;
+using ThermVerify.Sensors;
+
+namespace ThermVerify.FrontEnd;
+
+/// <summary>What the hand calculation and the firmware assume at one temperature.</summary>
+internal readonly record struct ClosedFormPoint(
+    double Celsius,
+    double SensorOhms,
+    double IdealVolts,
+    double IdealCode,
+    double VoltsPerKelvin,
+    double TheveninOhms);
+
+/// <summary>
+/// The model hand calculations and firmware use: an unloaded divider, an ideal ADC (see <see cref="AdcTransfer"/>)
+/// and the firmware's inverse, code → voltage → sensor resistance → temperature with the nominal sensor model.
+/// </summary>
+internal sealed class ClosedFormModel
+{
+    public ClosedFormModel(FrontEndDesign design)
+    {
+        Design = design;
+        Sensor = design.Sensor.Build();
+        Adc = new AdcTransfer(design.Adc.Bits, design.Adc.ReferenceVolts ?? design.Divider.ExcitationVolts);
+    }
+
+    public FrontEndDesign Design { get; }
+    public ISensorModel Sensor { get; }
+    public AdcTransfer Adc { get; }
+
+    private DividerSpec Divider => Design.Divider;
+
+    /// <summary>Gain from the divider to the ADC pin: 1 without a buffer or with a follower.</summary>
+    public double BufferGain => Design.Buffer?.Gain ?? 1;
+
+    public ClosedFormPoint At(double celsius)
+    {
+        var r = Sensor.ResistanceOhms(celsius);
+        var volts = BufferGain * DividerFormula.OutputVolts(Divider.SensorSide, Divider.ExcitationVolts, r, Divider.FixedResistorOhms);
+        var slope = BufferGain * DividerFormula.SlopeVoltsPerOhm(Divider.SensorSide, Divider.ExcitationVolts, r, Divider.FixedResistorOhms)
+                    * Sensor.SlopeOhmsPerKelvin(celsius);
+        return new ClosedFormPoint(celsius, r, volts, Adc.IdealCode(volts), slope, DividerFormula.TheveninOhms(r, Divider.FixedResistorOhms));
+    }
+
+    /// <summary>
+    /// The temperature the firmware reports for a code: the code's voltage, through the divider's inverse and the
+    /// nominal sensor model. NaN for codes no sensor inside its valid range can produce (the rails, shorts, opens).
+    /// </summary>
+    public double ReportedCelsius(int code)
+    {
+        return CelsiusAtVolts(Adc.VoltsOf(code));
+    }
+
+    /// <summary>The temperature whose ideal pin voltage this is (no quantisation); NaN outside the sensor's range.</summary>
+    public double CelsiusAtVolts(double volts)
+    {
+        var ohms = DividerFormula.SensorOhms(Divider.SensorSide, Divider.ExcitationVolts, volts / BufferGain, Divider.FixedResistorOhms);
+        if (double.IsNaN(ohms)) return double.NaN;
+        try
+        {
+            return Sensor.TemperatureCelsius(ohms);
+        }
+        catch (SensorRangeException)
+        {
+            return double.NaN;
+        }
+    }
+}

@@ -1,0 +1,126 @@
+using ThermVerify.Circuits;
+using ThermVerify.Design;
+using static ThermVerify.FrontEnd.FrontEndNodes;
+
+namespace ThermVerify.FrontEnd;
+
+/// <summary>
+/// Builds the netlists of a design: excitation, divider, optional buffer, optional filter and reservoir, and the
+/// ADC input (pin capacitance, pin leakage, sampling switch and capacitor). One builder, two uses: the DC circuit
+/// for the temperature sweep (sampling replaced by its average current) and the sampling circuit for transients.
+/// </summary>
+internal static class FrontEndCircuit
+{
+    /// <summary>Off resistance of the ideal switches: an open switch, but a DC path for the solver.</summary>
+    public const double SwitchOffOhms = 1e12;
+
+    /// <summary>
+    /// Time constants the precharge switch gets within its window: e^−40 leaves nothing measurable, and a slower
+    /// switch than a near-short keeps the transient free of picosecond steps.
+    /// </summary>
+    private const double PrechargeTimeConstants = 40;
+
+    // A zero-ohm sampling switch is allowed in the design (ideal); the solver needs a finite conductance.
+    private const double MinimumSwitchOhms = 1e-3;
+
+    /// <summary>
+    /// The DC circuit at 25 °C: every element the design gives, with periodic sampling replaced by its average
+    /// current, a resistor R_eq = 1/(f_s·C_sh) from the pin to the precharge level (Johns &amp; Martin). With
+    /// "last-sample" precharge the average current is zero in the steady state, so no resistor is added.
+    /// </summary>
+    public static Circuit Dc(FrontEndDesign design, double? prechargeVolts)
+    {
+        var elements = Front(design);
+        if (prechargeVolts is { } pre)
+        {
+            elements.Add(new VoltageSource("Vprecharge", Precharge, Circuit.Ground, new DcWaveform(pre)));
+            elements.Add(new Resistor("Rsampling", PinNode(design), Precharge, 1 / (design.Adc.SampleRateHertz * design.Adc.SamplingCapacitanceFarads)));
+        }
+        return new Circuit(elements);
+    }
+
+    /// <summary>
+    /// The sampling circuit. Conversion k acquires during [(k+1)·T − t_acq, (k+1)·T): the sampling switch joins
+    /// the pin to the sampling capacitor, which is read when the switch opens at (k+1)·T. When a precharge level is
+    /// given, a second switch holds the capacitor at it from k·T until a short gap before each acquisition
+    /// (the multiplexer has just converted another channel, or the converter discharges the capacitor).
+    /// </summary>
+    public static Circuit Sampling(FrontEndDesign design, double? prechargeVolts, int conversions)
+    {
+        var adc = design.Adc;
+        var period = 1 / adc.SampleRateHertz;
+        var elements = Front(design);
+        elements.Add(new Capacitor("Csample", Hold, Circuit.Ground, adc.SamplingCapacitanceFarads));
+        elements.Add(new TimedSwitch(SamplingSwitch, PinNode(design), Hold, Math.Max(adc.SwitchResistanceOhms, MinimumSwitchOhms), SwitchOffOhms,
+            new PeriodicSchedule(period - adc.AcquisitionTimeSeconds, period, adc.AcquisitionTimeSeconds, conversions)));
+        if (prechargeVolts is { } pre)
+        {
+            var window = period - adc.AcquisitionTimeSeconds - PrechargeGapSeconds(design);
+            var onOhms = window / (PrechargeTimeConstants * adc.SamplingCapacitanceFarads);
+            elements.Add(new VoltageSource("Vprecharge", Precharge, Circuit.Ground, new DcWaveform(pre)));
+            elements.Add(new TimedSwitch(PrechargeSwitch, Precharge, Hold, onOhms, SwitchOffOhms,
+                new PeriodicSchedule(0, period, window, conversions)));
+        }
+        return new Circuit(elements);
+    }
+
+    /// <summary>Time between the precharge switch opening and the sampling switch closing.</summary>
+    public static double PrechargeGapSeconds(FrontEndDesign design) =>
+        0.01 * (1 / design.Adc.SampleRateHertz - design.Adc.AcquisitionTimeSeconds);
+
+    /// <summary>The time at which conversion k (from 0) is taken: the end of its acquisition.</summary>
+    public static double SampleTimeSeconds(FrontEndDesign design, int conversion) => (conversion + 1) / design.Adc.SampleRateHertz;
+
+    /// <summary>Excitation, divider, buffer, filter and the static part of the ADC input.</summary>
+    private static List<Element> Front(FrontEndDesign design)
+    {
+        var divider = design.Divider;
+        var board = design.Check.BoardCelsius;
+        var sensor = new SensorResistor(SensorElement, divider.SensorSide == SensorSide.High ? Excitation : Divider,
+            divider.SensorSide == SensorSide.High ? Divider : Circuit.Ground, design.Sensor.Build());
+        var fixedNodes = divider.SensorSide == SensorSide.High ? (Divider, Circuit.Ground) : (Excitation, Divider);
+        var elements = new List<Element>
+        {
+            new VoltageSource("Vexc", Excitation, Circuit.Ground, new DcWaveform(divider.ExcitationVolts)),
+            sensor,
+            FixedResistor(FixedElement, fixedNodes.Item1, fixedNodes.Item2, divider.FixedResistorOhms, divider.FixedTempcoPerKelvin, board),
+        };
+
+        if (design.Buffer is { } buffer)
+            BufferStage.Add(elements, buffer, Divider, board);
+        var pin = PinNode(design);
+        if (design.Filter.SeriesResistorOhms > 0)
+            elements.Add(new Resistor("Rfilter", DriveNode(design), Pin, design.Filter.SeriesResistorOhms));
+        if (design.Filter.ReservoirCapacitorFarads > 0)
+            elements.Add(new Capacitor("Creservoir", pin, Circuit.Ground, design.Filter.ReservoirCapacitorFarads));
+        if (design.Adc.PinCapacitanceFarads > 0)
+            elements.Add(new Capacitor("Cpin", pin, Circuit.Ground, design.Adc.PinCapacitanceFarads));
+        if (design.Adc.PinLeakageAmperes != 0)
+            elements.Add(Leakage(pin, design.Adc, board));
+        return elements;
+    }
+
+    /// <summary>The node that drives the filter: the buffer's output, or the divider itself.</summary>
+    public static string DriveNode(FrontEndDesign design) => design.Buffer is null ? Divider : BufferOutput;
+
+    /// <summary>The op-amp's own output (before any isolation resistor); the divider when there is no buffer.</summary>
+    public static string AmplifierNode(FrontEndDesign design) =>
+        design.Buffer is null ? Divider : design.Buffer.IsolationResistorOhms > 0 ? BufferStage.AmplifierOutput : BufferOutput;
+
+    /// <summary>The ADC pin: its own node behind a series resistor, else the drive node itself.</summary>
+    public static string PinNode(FrontEndDesign design) => design.Filter.SeriesResistorOhms > 0 ? Pin : DriveNode(design);
+
+    /// <summary>The fixed resistor: its tempco follows the sweep, or is taken once at the board temperature.</summary>
+    private static Resistor FixedResistor(string name, string a, string b, double ohms, double tempco, double? boardCelsius) =>
+        boardCelsius is { } board
+            ? new Resistor(name, a, b, ohms * (1 + tempco * (board - 25)))
+            : new Resistor(name, a, b, ohms, tempco);
+
+    /// <summary>Pin leakage, positive into the pin: it follows the sweep (doubling every N K) or sits at the board temperature.</summary>
+    private static Element Leakage(string pin, AdcSpec adc, double? boardCelsius)
+    {
+        return boardCelsius is { } board
+            ? new CurrentSource("Ileak", pin, Circuit.Ground, new DcWaveform(adc.PinLeakageAmperesAt(board)))
+            : new LeakageCurrentSource("Ileak", pin, Circuit.Ground, adc.PinLeakageAmperesAt(25), adc.LeakageDoublingKelvin);
+    }
+}

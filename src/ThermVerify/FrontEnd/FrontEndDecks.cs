@@ -1,0 +1,123 @@
+using ThermVerify.Circuits;
+using ThermVerify.Circuits.Spice;
+using ThermVerify.Design;
+using ThermVerify.Sensors;
+using static ThermVerify.FrontEnd.FrontEndNodes;
+
+namespace ThermVerify.FrontEnd;
+
+/// <summary>The analyses a design's SPICE decks can carry.</summary>
+public enum DeckAnalysis { Dc, Tran, Ac, Noise }
+
+/// <summary>Choices for a design's decks; nulls take the check's own values.</summary>
+public sealed record DeckOptions
+{
+    /// <summary>Circuit temperature of the transient, AC and noise decks; null: the middle of the check range.</summary>
+    public double? TemperatureCelsius { get; init; }
+
+    /// <summary>Conversions the sampling transient covers.</summary>
+    public int Conversions { get; init; } = 16;
+
+    public double StartHertz { get; init; } = 1;
+
+    public double StopHertz { get; init; } = 10e6;
+
+    public int PointsPerDecade { get; init; } = 10;
+
+    /// <summary>
+    /// Write the statements that make a batch run print the figures (<c>.print</c>, <c>.meas</c>); false writes the
+    /// bare netlist and its analysis.
+    /// </summary>
+    public bool PrintFigures { get; init; } = true;
+}
+
+/// <summary>
+/// A design's circuits as SPICE decks: the temperature sweep of the DC circuit over the check range, the sampling
+/// transient (the first precharge case the check covers), and AC and noise of the DC circuit with the excitation
+/// as the AC input and the ADC pin as the output. The comments name the design and every node.
+/// </summary>
+internal static class FrontEndDecks
+{
+    public const string AcInputSource = "Vexc";
+
+    public static string Write(FrontEndDesign design, DeckAnalysis analysis, DeckOptions? options = null)
+    {
+        options ??= new DeckOptions();
+        var model = new ClosedFormModel(design);
+        var precharge = PrechargeCases.For(design, model.Adc.ReferenceVolts)[0];
+        var celsius = options.TemperatureCelsius ?? (design.Check.Range.MinCelsius + design.Check.Range.MaxCelsius) / 2;
+        var pin = FrontEndCircuit.PinNode(design);
+        switch (analysis)
+        {
+            case DeckAnalysis.Dc:
+            {
+                var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToList();
+                var circuit = FrontEndCircuit.Dc(design, DcSweepCase.UsesAverageSamplingCurrent(design, precharge) ? precharge : null);
+                return SpiceDeckWriter.Write(circuit, DcTemperatureSweep.From(temperatures),
+                    Header(design, circuit, $"temperature sweep over the check range, {PrechargeCases.Describe(precharge)}",
+                        $"prints v({pin}) at each temperature: the check's DC pin voltage (with leakage, bias and average sampling currents)"),
+                    Outputs(options, new PrintVectors("dc", [$"v({Divider})", $"v({pin})"])));
+            }
+            case DeckAnalysis.Tran:
+            {
+                var settleVolts = design.Check.SettleLimitLsb * model.Adc.LsbVolts;
+                // One period more than is measured: ngspice's .meas cannot read at the very end of a run.
+                var (circuit, transient) = SamplingRun.Setup(design, celsius, precharge, settleVolts, options.Conversions + 1);
+                var sweep = new TransientSweep(transient.StopTimeSeconds, transient.MaxStepSeconds)
+                {
+                    StepGuards = StepGuard.ForSwitches(circuit),
+                };
+                return SpiceDeckWriter.Write(circuit, sweep, Header(design, circuit,
+                    $"sampling transient, {options.Conversions} conversions at {celsius:0.###} °C, {PrechargeCases.Describe(precharge)}; " +
+                    $"conversion k is v({Hold}) at (k+1)/f_s",
+                    $"prints sample_k for k = 0 … {options.Conversions - 1}: the value the converter takes at conversion k (sample_0 is the check's first conversion)"),
+                    Outputs(options, [.. Enumerable.Range(0, options.Conversions)
+                        .Select(k => new MeasureAt($"sample_{k}", Hold, FrontEndCircuit.SampleTimeSeconds(design, k)))]));
+            }
+            default:
+            {
+                var circuit = AcCircuit(design, celsius);
+                SpiceAnalysis sweep = analysis == DeckAnalysis.Ac
+                    ? new AcSweep(options.StartHertz, options.StopHertz, options.PointsPerDecade)
+                    : new NoiseSweep(pin, AcInputSource, options.StartHertz, options.StopHertz, options.PointsPerDecade);
+                return SpiceDeckWriter.Write(circuit, sweep, Header(design, circuit,
+                    $"{(analysis == DeckAnalysis.Ac ? "AC response" : "output noise")} of the DC circuit at {celsius:0.###} °C, " +
+                    $"input {AcInputSource} (1 V AC), output v({pin})",
+                    analysis == DeckAnalysis.Ac
+                        ? $"prints vdb({pin}) and vp({pin}) (dB and radians) at each frequency: the transfer from the excitation to the pin"
+                        : "prints onoise_spectrum at each frequency: the noise density at the pin in V/√Hz"),
+                    Outputs(options, analysis == DeckAnalysis.Ac
+                        ? new PrintVectors("ac", [$"vdb({pin})", $"vp({pin})"])
+                        : new PrintVectors("noise", ["onoise_spectrum"])));
+            }
+        }
+    }
+
+    /// <summary>The DC circuit at <paramref name="celsius"/> with the excitation as a 1 V AC input.</summary>
+    public static Circuit AcCircuit(FrontEndDesign design, double celsius)
+    {
+        var circuit = FrontEndCircuit.Dc(design, null) with { TemperatureCelsius = celsius };
+        var excitation = (VoltageSource)circuit[AcInputSource];
+        return circuit.Replace(excitation with { AcMagnitude = 1 });
+    }
+
+    private static IReadOnlyList<SpiceOutput> Outputs(DeckOptions options, params SpiceOutput[] outputs) => options.PrintFigures ? outputs : [];
+
+    public static SpiceDeckHeader Header(FrontEndDesign design, Circuit circuit, string what, string? prints = null) =>
+        new($"thermverify: {design.Name}: {what}")
+        {
+            Notes = [$"design: {design.Name}" + (design.Description is { } d ? $" ({d})" : ""), what,
+                .. prints is null ? Array.Empty<string>() : [$"ngspice -b on this deck {prints}"]],
+            NodeDescriptions = new Dictionary<string, string>
+            {
+                [Excitation] = "excitation, the top of the divider",
+                [Divider] = "divider midpoint, where the sensor meets the fixed resistor",
+                [BufferStage.AmplifierOutput] = "op-amp output, before the isolation resistor",
+                [BufferStage.Feedback] = "op-amp feedback divider",
+                [BufferOutput] = "buffer output, drives the filter",
+                [Pin] = "ADC pin, after the series resistor",
+                [Hold] = "sampling capacitor behind the sampling switch",
+                [Precharge] = "precharge level of the sampling capacitor",
+            },
+        };
+}

@@ -1,0 +1,102 @@
+using System.Globalization;
+using System.Text;
+using ThermVerify.Check;
+using ThermVerify.Design;
+using ThermVerify.Quantities;
+
+namespace ThermVerify.Reporting.Text;
+
+/// <summary>The compact terminal summary of a check: verdict, a contribution table at a handful of temperatures, findings.</summary>
+public static class CheckSummaryText
+{
+    public const string Caution =
+        "Caution: simulation does not replace measurement on hardware. A reading that drives a heater, charger or cut-out " +
+        "needs independent protection and must follow the applicable standards, local codes and licensed practice.";
+
+    public static string Render(CheckResult result, int tableRows = 7)
+    {
+        var text = new StringBuilder();
+        var d = result.Design;
+        text.AppendLine($"thermverify check: {d.Name}");
+        text.AppendLine($"  sensor   {result.SensorDescription}");
+        text.AppendLine($"  divider  sensor on the {(d.Divider.SensorSide == SensorSide.High ? "high" : "low")} side, fixed {V(d.Divider.FixedResistorOhms, UnitKind.Ohm)}, excitation {V(d.Divider.ExcitationVolts, UnitKind.Volt)}");
+        text.AppendLine($"  ADC      {d.Adc.Bits} bits, reference {(d.Adc.IsRatiometric ? "ratiometric" : V(result.Adc.ReferenceVolts, UnitKind.Volt))}, " +
+                        $"1 LSB = {V(result.Adc.LsbVolts, UnitKind.Volt)}, {V(d.Adc.SampleRateHertz, UnitKind.Hertz)}, acquisition {V(d.Adc.AcquisitionTimeSeconds, UnitKind.Second)}");
+        text.AppendLine($"  check    {V(d.Check.Range.MinCelsius, UnitKind.Celsius)} to {V(d.Check.Range.MaxCelsius, UnitKind.Celsius)} in {V(d.Check.StepKelvin, UnitKind.Kelvin)} steps, budget {V(d.Check.BudgetKelvin, UnitKind.Kelvin)}" +
+                        string.Concat(d.Check.Regions.Select(r => $" ({r.Range}: {V(r.BudgetKelvin, UnitKind.Kelvin)})")));
+        text.AppendLine();
+
+        var worst = result.Worst;
+        text.Append(VerdictLine(result));
+        text.AppendLine();
+
+        text.AppendLine("Reported-temperature error and its causes (K):");
+        var table = new TextTable("T (°C)", "ideal", "sample", "code", "reported (°C)", "error", "quantisation", "DC loading", "settling", "buffer", "rest", "budget");
+        foreach (var p in Selected(result.Points, worst, tableRows))
+            table.AddRow(N(p.Celsius, "0.##"), V(p.IdealVolts, UnitKind.Volt), V(p.WorstSampleVolts, UnitKind.Volt), p.Code.ToString(CultureInfo.InvariantCulture),
+                double.IsFinite(p.ReportedCelsius) ? N(p.ReportedCelsius, "0.000") : "none", K(p.ErrorKelvin, unit: false),
+                K(p.Contributions.QuantisationKelvin, unit: false), K(p.Contributions.DcLoadingKelvin, unit: false), K(p.Contributions.SettlingKelvin, unit: false),
+                K(p.Contributions.BufferKelvin, unit: false), K(p.Contributions.RestKelvin, unit: false), N(p.BudgetKelvin, "0.###"));
+        text.Append(table);
+        text.AppendLine();
+
+        text.Append(BufferSectionRender.Text(result.Buffer));
+        if (result.Findings.Count == 0) text.AppendLine("Findings: none; every effect is within ½ LSB.");
+        else text.AppendLine("Findings:");
+        foreach (var f in result.Findings) AppendFinding(text, f);
+        text.AppendLine();
+        if (result.Faults is { } faults)
+        {
+            text.AppendLine(FaultText.Render(faults));
+            text.AppendLine();
+        }
+        text.AppendLine(Caution);
+        return text.ToString();
+    }
+
+    /// <summary>The PASS or FAIL line alone, as printed under the header (and alone with --quiet).</summary>
+    public static string VerdictLine(CheckResult result)
+    {
+        var worst = result.Worst;
+        var over = result.Points.Count(p => !p.WithinBudget);
+        return (result.Passed
+            ? $"PASS: worst reported error {K(worst.ErrorKelvin)} at {C(worst.Celsius)} (budget {K(worst.BudgetKelvin, signed: false)})"
+            : $"FAIL: worst reported error {K(worst.ErrorKelvin)} at {C(worst.Celsius)} (budget {K(worst.BudgetKelvin, signed: false)}); " +
+              $"{over} of {result.Points.Count} points over budget, {result.Findings.Count(f => f.Severity == Severity.Fail)} failing finding(s)") + Environment.NewLine;
+    }
+
+    private static void AppendFinding(StringBuilder text, Finding f)
+    {
+        text.AppendLine($"  {f.Severity.ToString().ToUpperInvariant(),-4} {f.Id}: {f.Title}");
+        text.AppendLine($"       {C(f.FromCelsius)} to {C(f.ToCelsius)}, worst at {C(f.WorstCelsius)}: " +
+                        $"{V(f.SizeVolts, UnitKind.Volt)} = {N(f.SizeLsb, "+0.##;-0.##")} LSB = {K(f.SizeKelvin)}");
+        text.AppendLine($"       cause: {f.Cause}" + (f.EstimateVolts is { } e && f.SimulatedVolts is { } s
+            ? $"; closed form {V(e, UnitKind.Volt)}, simulated {V(s, UnitKind.Volt)}" : ""));
+        foreach (var r in f.Remedies)
+            text.AppendLine($"       remedy: {r.Action}{(r.Value is { } v ? " " + RemedyValue(v, r.Unit) : "")} [{r.Key}]");
+    }
+
+    private static string RemedyValue(double value, string unit) => unit switch
+    {
+        "s" => V(value, UnitKind.Second),
+        "F" => V(value, UnitKind.Farad),
+        "Hz" => V(value, UnitKind.Hertz),
+        "Ω" => V(value, UnitKind.Ohm),
+        "V" => V(value, UnitKind.Volt),
+        "V/s" => V(value, UnitKind.VoltPerSecond),
+        _ => $"{N(value, "0.###")} {unit}",
+    };
+
+    /// <summary>Both ends, the worst point and evenly spread points between, in temperature order.</summary>
+    private static IEnumerable<CheckPoint> Selected(IReadOnlyList<CheckPoint> points, CheckPoint worst, int rows) =>
+        Enumerable.Range(0, rows - 1)
+            .Select(i => points[(int)Math.Round(i * (points.Count - 1) / (double)Math.Max(rows - 2, 1))])
+            .Append(worst).Distinct().OrderBy(p => p.Celsius);
+
+    private static string V(double value, UnitKind unit) => double.IsFinite(value) ? EngineeringFormat.Format(value, unit, 4) : "n/a";
+    private static string C(double celsius) => $"{N(celsius, "0.##")} °C";
+    private static string N(double value, string format) => double.IsFinite(value) ? value.ToString(format, CultureInfo.InvariantCulture) : "n/a";
+
+    private static string K(double kelvin, bool signed = true, bool unit = true) =>
+        !double.IsFinite(kelvin) ? "n/a" : N(kelvin, signed ? "+0.000;-0.000;0.000" : "0.000") + (unit ? " K" : "");
+}

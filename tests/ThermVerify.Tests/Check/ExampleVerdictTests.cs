@@ -1,0 +1,42 @@
+using ThermVerify.Check;
+using ThermVerify.Design;
+
+namespace ThermVerify.Tests.Check;
+
+/// <summary>
+/// Each bundled example exists to show one verdict; if a change to the engine or the rules moves it, the example
+/// (and the README's table of examples) must be looked at again.
+/// </summary>
+public class ExampleVerdictTests
+{
+    private static string Example(string name) =>
+        Path.Combine(AppContext.BaseDirectory, "..", "..", "..", "..", "..", "netlists", name);
+
+    [Theory]
+    [InlineData("buffered-cable-probe.toml", true, null)]
+    [InlineData("oven-pt1000.toml", true, null)]
+    [InlineData("table-sensor-freezer.toml", true, null)]
+    [InlineData("cold-storage-logger-buffered.toml", true, null)]
+    [InlineData("soil-probe-switched.toml", true, null)]
+    [InlineData("attic-fan-leaky-pin.toml", false, "dc-loading")]
+    [InlineData("cold-storage-logger.toml", false, "settling")]
+    [InlineData("cold-storage-logger-reservoir.toml", false, "reservoir-recovery")]
+    [InlineData("cold-storage-logger-bare-opamp.toml", false, "buffer-stability")]
+    public void Example_shows_its_verdict(string example, bool passes, string? failingFinding)
+    {
+        var result = FrontEndCheck.Run(DesignLoader.Load(Example(example)), new CheckOptions { ComputeRemedies = false });
+        Assert.Equal(passes, result.Passed);
+        if (failingFinding is not null)
+            Assert.Contains(result.Findings, f => f.Id == failingFinding && f.Severity == Severity.Fail);
+    }
+
+    [Fact]
+    public void Every_example_has_a_stated_verdict()
+    {
+        var stated = typeof(ExampleVerdictTests).GetMethod(nameof(Example_shows_its_verdict))!
+            .GetCustomAttributes(typeof(InlineDataAttribute), false).Cast<InlineDataAttribute>()
+            .Select(a => (string)a.GetData(null!).First()[0]).ToHashSet();
+        var present = Directory.GetFiles(Path.GetDirectoryName(Example("x"))!, "*.toml").Select(Path.GetFileName).ToHashSet();
+        Assert.Equal(present.Order(), stated.Order());
+    }
+}
