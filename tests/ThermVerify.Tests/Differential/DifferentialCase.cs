@@ -2,6 +2,7 @@ using ThermVerify.Circuits;
 using ThermVerify.Circuits.Spice;
 using ThermVerify.Ngspice;
 using ThermVerify.Simulation;
+using ThermVerify.Simulation.Mna;
 using Complex = System.Numerics.Complex;
 
 namespace ThermVerify.Tests.Differential;
@@ -163,13 +164,29 @@ internal static class DifferentialCase
                 return $"ngspice's switch in {(analysis == DifferentialAnalysis.Ac ? "AC" : "noise")}: it linearises every switch at its off " +
                        $"conductance; with the closed switches open in the small-signal system the engines agree to {view:G2}";
         }
+        if (analysis is DifferentialAnalysis.Ac or DifferentialAnalysis.Noise && AboutNgspicesOperatingPoint(rc, analysis, plot) is { } about
+            && about <= Limits[analysis])
+            return $"linearised about another DC solution: started at ngspice's operating point (which solves the engine's equations too), " +
+                   $"the engine's {(analysis == DifferentialAnalysis.Ac ? "AC" : "noise")} agrees to {about:G2}" +
+                   (NgspiceSwitchView.Applies(rc.Circuit) ? " with the closed switches open as ngspice has them" : "");
         if (analysis is DifferentialAnalysis.OperatingPoint or DifferentialAnalysis.SourceSweep or DifferentialAnalysis.TemperatureSweep
             && OtherSolutionDistance(rc, analysis, plot) is { } other && other <= Limits[analysis])
             return $"multiple DC solutions: Newton from ngspice's point stays there (to {other:G2}), so it solves the engine's equations too";
+        if (analysis is DifferentialAnalysis.SourceSweep or DifferentialAnalysis.TemperatureSweep
+            && NgspiceAloneDistance(rc, analysis, plot) is { } alone && alone <= Limits[analysis])
+            return $"ngspice's sweep drifts from its own answer: each disagreeing point run alone in ngspice agrees with the engine to {alone:G2}";
+        if (analysis is DifferentialAnalysis.OperatingPoint or DifferentialAnalysis.SourceSweep or DifferentialAnalysis.TemperatureSweep
+            && ExactDistance(rc, analysis, plot) is { } exact && exact <= Limits[analysis] / 10)
+            return $"the engine solves its own equations exactly: their exact solution (rational arithmetic) is {exact:G2} of the scale " +
+                   $"from the engine's result, where the engines are {d:G2} apart (an ill-conditioned circuit; ngspice's elimination does not scale its rows)";
         if (analysis == DifferentialAnalysis.Transient && rc.Circuit.Elements.Any(e => e is TimedSwitch)
             && rc.FastestTimeConstantSeconds < 100 * SwitchControl.EdgeSeconds)
             return $"switching faster than ngspice's switch can place its edge: the fastest time constant ({rc.FastestTimeConstantSeconds:G2} s, in one " +
                    "of the switch states) is under 100 times ngspice's 1 ps control ramp, so where in the ramp it flips moves the waveform";
+        if (analysis == DifferentialAnalysis.Transient && FirstEdgeSteppedOver(rc, plot["time"].Real) is var (edge, next)
+            && TransientDifference(rc, plot, until: edge) is { } before && before <= Limits[analysis])
+            return $"ngspice stepped across the switch edge at {edge:G6} s (its next point is {next - edge:G2} s later, where its switch " +
+                   $"flips); before that edge the engines agree to {before:G2}";
         if (analysis == DifferentialAnalysis.Transient)
         {
             // A tighter ngspice run as the reference: if the engine at its defaults agrees with it, the disagreement was
@@ -191,25 +208,107 @@ internal static class DifferentialCase
         return null;
     }
 
+    /// <summary>
+    /// Where the two operating points differ and ngspice's solves the engine's equations too (<see cref="OtherSolution"/>):
+    /// the AC or noise metric of the engine linearised about ngspice's point (in ngspice's switch view if it applies),
+    /// else null.
+    /// </summary>
+    private static double? AboutNgspicesOperatingPoint(RandomCircuit rc, DifferentialAnalysis analysis, NgspicePlot plot)
+    {
+        NgspicePlot op;
+        try
+        {
+            op = Ngspice(rc, DifferentialAnalysis.OperatingPoint);
+        }
+        catch (NgspiceException)
+        {
+            return null;
+        }
+        var own = OperatingPoint.Solve(rc.Circuit);
+        var apart = ScaledDifference(rc.Nodes.Select(n => (new[] { own.Voltage(n) }, op[n].Real)));
+        if (apart <= Limits[DifferentialAnalysis.OperatingPoint]
+            || OtherSolutionDistance(rc, DifferentialAnalysis.OperatingPoint, op) is not { } other || other > Limits[DifferentialAnalysis.OperatingPoint])
+            return null;
+        void Start(BoundSystem system) => OtherSolution.Seed(system, op, 0);
+        var frequencies = plot["frequency"].Real;
+        if (analysis == DifferentialAnalysis.Ac)
+        {
+            var ours = NgspiceSwitchView.Applies(rc.Circuit)
+                ? NgspiceSwitchView.Ac(rc.Circuit, rc.Nodes, frequencies, Start)
+                : AcAnalysis.Run(rc.Circuit, FrequencySweep.At(frequencies), Start) is var ac ? rc.Nodes.Select(ac.Voltage).ToArray() : null!;
+            return AcMetric(ours, rc.Nodes.Select(n => plot[n].Complex!).ToList());
+        }
+        var density = NgspiceSwitchView.Applies(rc.Circuit)
+            ? NgspiceSwitchView.NoiseDensity(rc.Circuit, rc.NoiseOutput, frequencies, Start)
+            : NoiseAnalysis.Run(rc.Circuit, rc.NoiseOutput, FrequencySweep.At(frequencies), start: Start).OutputDensity;
+        return NoiseMetric(density, plot["onoise_spectrum"].Real);
+    }
+
     /// <summary>The worst <see cref="OtherSolution.Distance"/> over the points where the engines disagree, or null.</summary>
-    private static double? OtherSolutionDistance(RandomCircuit rc, DifferentialAnalysis analysis, NgspicePlot plot)
+    private static double? OtherSolutionDistance(RandomCircuit rc, DifferentialAnalysis analysis, NgspicePlot plot) =>
+        WorstOverDisagreeingPoints(rc, analysis, plot, (p, _, set, _) => OtherSolution.Distance(rc, plot, p, set));
+
+    /// <summary>
+    /// ngspice's sweep point run on its own (a one-point <c>.dc</c> at that value), against the engine's point: the worst
+    /// distance over the points where the engines disagree, or null if ngspice cannot run one.
+    /// </summary>
+    private static double? NgspiceAloneDistance(RandomCircuit rc, DifferentialAnalysis analysis, NgspicePlot plot) =>
+        WorstOverDisagreeingPoints(rc, analysis, plot, (_, value, _, ours) =>
+        {
+            SpiceAnalysis single = analysis == DifferentialAnalysis.TemperatureSweep
+                ? new DcTemperatureSweep(value, 1, 1)
+                : new DcSourceSweep(rc.SweepSource, value, 1, 1);
+            try
+            {
+                var alone = DifferentialNgspice.Run(SpiceDeckWriter.Write(NgspiceTwin.For(rc.Circuit), single)).Plot("dc");
+                return rc.Nodes.Select((n, i) => Math.Abs(alone[n].Real[0] - ours[i])).Max();
+            }
+            catch (NgspiceException)
+            {
+                return null;
+            }
+        });
+
+    /// <summary>
+    /// For a linear circuit, the worst distance (over the scale) of the engine's DC result from the exact solution of its
+    /// own equations (<see cref="ExactDcSolution"/>) at the points where the engines disagree, or null.
+    /// </summary>
+    private static double? ExactDistance(RandomCircuit rc, DifferentialAnalysis analysis, NgspicePlot plot) =>
+        rc.Circuit.Elements.Any(e => e is Diode || e is OpAmp { OutputHighVolts: < double.PositiveInfinity })
+            ? null
+            : WorstOverDisagreeingPoints(rc, analysis, plot, (_, _, set, ours) =>
+                ExactDcSolution.NodeVoltages(rc, rc.Nodes, set) is { } exact
+                    ? exact.Select((v, i) => Math.Abs(ours[i] - v)).Max()
+                    : null);
+
+    /// <summary>
+    /// The worst of <paramref name="measure"/> (a distance in volts from the point index, the sweep value, the setter of
+    /// that point and the engine's node voltages there), divided by the analysis' scale, over the DC points where the engines disagree beyond the limit; null if any is null.
+    /// </summary>
+    private static double? WorstOverDisagreeingPoints(RandomCircuit rc, DifferentialAnalysis analysis, NgspicePlot plot,
+        Func<int, double, Action<BoundSystem>, double[], double?> measure)
     {
         if (analysis == DifferentialAnalysis.OperatingPoint)
-            return OtherSolution.Distance(rc, plot, 0, _ => { });
+        {
+            var op = OperatingPoint.Solve(rc.Circuit);
+            var voltages = rc.Nodes.Select(op.Voltage).ToArray();
+            var scale = voltages.Concat(rc.Nodes.Select(n => plot[n].Real[0])).Max(Math.Abs);
+            return measure(0, 0, _ => { }, voltages) is { } m ? (scale > 0 ? m / scale : m) : null;
+        }
         var values = analysis == DifferentialAnalysis.SourceSweep
             ? Enumerable.Range(0, SweepPoints).Select(i => rc.SweepFrom + i * SweepStep(rc)).ToArray()
             : Enumerable.Range(0, 31).Select(i => -40 + 5.5 * i).ToArray();
         var ours = analysis == DifferentialAnalysis.SourceSweep
             ? DcSweep.Element(rc.Circuit, rc.SweepSource, values)
             : DcSweep.Temperature(rc.Circuit, values);
-        var scale = rc.Nodes.Max(n => Math.Max(ours.Voltage(n).Max(Math.Abs), plot[n].Real.Take(values.Length).Max(Math.Abs)));
-        double? worst = 0;
+        var sweepScale = rc.Nodes.Max(n => Math.Max(ours.Voltage(n).Max(Math.Abs), plot[n].Real.Take(values.Length).Max(Math.Abs)));
+        var worst = 0.0;
         for (var p = 0; p < values.Length; p++)
         {
-            if (rc.Nodes.All(n => Math.Abs(ours.Voltage(n)[p] - plot[n].Real[p]) <= Limits[analysis] * scale))
+            if (rc.Nodes.All(n => Math.Abs(ours.Voltage(n)[p] - plot[n].Real[p]) <= Limits[analysis] * sweepScale))
                 continue;
             var value = values[p];
-            var distance = OtherSolution.Distance(rc, plot, p, system =>
+            var m = measure(p, value, system =>
             {
                 if (analysis == DifferentialAnalysis.TemperatureSweep)
                     system.SetTemperature(value);
@@ -219,10 +318,10 @@ internal static class DifferentialCase
                     system.MarkVarying(stamp);
                     system.SetSweepValue(stamp, value);
                 }
-            });
-            if (distance is null)
+            }, [.. rc.Nodes.Select(n => ours.Voltage(n)[p])]);
+            if (m is null)
                 return null;
-            worst = Math.Max(worst.Value, distance.Value);
+            worst = Math.Max(worst, sweepScale > 0 ? m.Value / sweepScale : m.Value);
         }
         return worst;
     }
@@ -323,18 +422,20 @@ internal static class DifferentialCase
 
     /// <summary>
     /// The largest relative difference of the output noise density; densities below 1e-9 of the spectrum's largest (or
-    /// 1e-20 V/√Hz) count as zero: an output held by a source has none, up to rounding.
+    /// 1e-18 V/√Hz, the thermal noise of 6e-17 Ω at room temperature) count as zero: an output held by sources has none, up to
+    /// rounding (ngspice reports 4e-25 V/√Hz there).
     /// </summary>
     private static double NoiseMetric(double[] ours, double[] theirs)
     {
-        var floor = Math.Max(1e-9 * Math.Max(ours.Max(), theirs.Max()), 1e-20);
+        var floor = Math.Max(1e-9 * Math.Max(ours.Max(), theirs.Max()), 1e-18);
         var worst = 0.0;
         for (var k = 0; k < ours.Length; k++)
             worst = Math.Max(worst, Math.Abs(ours[k] - theirs[k]) / Math.Max(Math.Max(ours[k], theirs[k]), floor));
         return worst;
     }
 
-    private static double? TransientDifference(RandomCircuit rc, NgspicePlot? plot)
+    /// <param name="until">Compare only ngspice's points before this time (all when null).</param>
+    private static double? TransientDifference(RandomCircuit rc, NgspicePlot? plot, double? until = null)
     {
         var stop = rc.TransientStopSeconds;
         var simulation = new TransientSimulation(rc.Circuit, new TransientOptions { StopTimeSeconds = stop, MaxStepSeconds = stop / 100 });
@@ -354,7 +455,7 @@ internal static class DifferentialCase
         var edges = SwitchEdges(rc.Circuit, stop);
         // Points inside ngspice's 1 ps control ramp of a switch edge are not compared: there its switch is in either state.
         var compared = Enumerable.Range(0, time.Length)
-            .Where(i => !edges.Any(e => Math.Abs(time[i] - e) <= SwitchControl.EdgeSeconds)).ToArray();
+            .Where(i => time[i] < (until ?? double.PositiveInfinity) && !edges.Any(e => Math.Abs(time[i] - e) <= SwitchControl.EdgeSeconds)).ToArray();
         return ScaledDifference(rc.Nodes.Select(n => (
             compared.Select(i => Ours(result, n, Math.Min(time[i], result.EndTimeSeconds), plot[n].Real[i], edges, rc.FastestTimeConstantSeconds)).ToArray(),
             compared.Select(i => plot[n].Real[i]).ToArray())));
@@ -381,6 +482,24 @@ internal static class DifferentialCase
                         value = result.VoltageAt(node, near);
                 }
         return value;
+    }
+
+    /// <summary>
+    /// The first switch edge ngspice stepped across: no time point of its own on or next to the 1 ps control ramp (within
+    /// two ramps), so its switch flipped at its next point, late by up to that step. Null if it landed on every edge.
+    /// </summary>
+    private static (double Edge, double Next)? FirstEdgeSteppedOver(RandomCircuit rc, double[] time)
+    {
+        foreach (var edge in SwitchEdges(rc.Circuit, rc.TransientStopSeconds).Order())
+        {
+            var ramp = SwitchControl.EdgeSeconds;
+            if (time.Any(t => Math.Abs(t - edge) <= 2 * ramp))
+                continue;
+            var next = time.FirstOrDefault(t => t > edge, double.NaN);
+            if (!double.IsNaN(next))
+                return (edge, next);
+        }
+        return null;
     }
 
     private static List<double> SwitchEdges(Circuit circuit, double stop)

@@ -9,7 +9,8 @@ namespace ThermVerify.Tests.Differential;
 /// The built-in engine's AC and noise analyses as ngspice 39 computes them for voltage-controlled switches: ngspice
 /// linearises every switch at its off conductance in .ac and .noise whatever its control says (observed: a switch on
 /// a DC control of 1 V, threshold 0.5 V, conducts as ron at .op but as roff in .ac and .noise), while its operating
-/// point has the switch in the right state. Here the operating point is the circuit's own; only the switches'
+/// point has the switch in the right state. Here the operating point is the circuit's own (or the one nearest a given
+/// start); only the switches'
 /// small-signal conductance (and thermal noise) is set to the off value. Agreement with ngspice in this view
 /// explains a disagreement as ngspice's, not the engine's.
 /// </summary>
@@ -17,9 +18,11 @@ internal static class NgspiceSwitchView
 {
     public static bool Applies(Circuit circuit) => circuit.Elements.OfType<TimedSwitch>().Any(s => s.Schedule.IsClosed(0));
 
-    public static Complex[][] Ac(Circuit circuit, IReadOnlyList<string> nodes, double[] frequencies)
+    /// <param name="start">Where the operating point's Newton starts (<see cref="SmallSignalSystem"/>), e.g. at
+    /// ngspice's operating point (<see cref="OtherSolution.Seed"/>).</param>
+    public static Complex[][] Ac(Circuit circuit, IReadOnlyList<string> nodes, double[] frequencies, Action<BoundSystem>? start = null)
     {
-        var system = new SmallSignalSystem(circuit, "AC (ngspice's switch view)");
+        var system = new SmallSignalSystem(circuit, "AC (ngspice's switch view)", start);
         var conductances = OpenSwitches(system, circuit);
         var rhs = system.NewVector();
         foreach (var s in system.System.Stamps)
@@ -36,9 +39,9 @@ internal static class NgspiceSwitchView
         return result;
     }
 
-    public static double[] NoiseDensity(Circuit circuit, string output, double[] frequencies)
+    public static double[] NoiseDensity(Circuit circuit, string output, double[] frequencies, Action<BoundSystem>? start = null)
     {
-        var system = new SmallSignalSystem(circuit, "Noise (ngspice's switch view)");
+        var system = new SmallSignalSystem(circuit, "Noise (ngspice's switch view)", start);
         var conductances = OpenSwitches(system, circuit);
         var layout = system.System.Layout;
         var noise = new NoiseContext(circuit.TemperatureCelsius, layout.Ground);

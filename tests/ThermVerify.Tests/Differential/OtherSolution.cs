@@ -14,32 +14,29 @@ namespace ThermVerify.Tests.Differential;
 /// </summary>
 internal static class OtherSolution
 {
-    /// <summary>The largest node difference (over the scale) between ngspice's point and where the engine's Newton
-    /// goes from it, or null when Newton does not converge from there.</summary>
+    /// <summary>The largest node difference (volts) between ngspice's point and where the engine's Newton goes from it,
+    /// or null when Newton does not converge from there.</summary>
     /// <param name="point">Index into ngspice's vectors (0 for an operating point).</param>
     /// <param name="set">Puts the system at the sweep value of that point (nothing for an operating point).</param>
     public static double? Distance(RandomCircuit rc, NgspicePlot plot, int point, Action<BoundSystem> set)
     {
         var system = new BoundSystem(rc.Circuit);
         set(system);
+        Seed(system, plot, point);
+        SingularMatrixException? singular = null;
+        if (!DcSolver.Attempt(system, ref singular, out _))
+            return null;
+        return rc.Nodes.Max(node => Math.Abs(system.NodeVoltage(node) - plot[node].Real[point]));
+    }
+
+    /// <summary>Puts ngspice's values of point <paramref name="point"/> into the system's solution, unknown by unknown.</summary>
+    public static void Seed(BoundSystem system, NgspicePlot plot, int point)
+    {
         var layout = system.Layout;
         var x = system.Context.Solution;
         for (var i = 0; i < layout.Size; i++)
             if (plot.Vectors.TryGetValue(NgspiceName(layout.UnknownNames[i]), out var vector))
                 x[i] = vector.Real[point];
-        SingularMatrixException? singular = null;
-        if (!DcSolver.Attempt(system, ref singular, out _))
-            return null;
-        var worst = 0.0;
-        var scale = 0.0;
-        foreach (var node in rc.Nodes)
-        {
-            var theirs = plot[node].Real[point];
-            var ours = system.NodeVoltage(node);
-            worst = Math.Max(worst, Math.Abs(ours - theirs));
-            scale = Math.Max(scale, Math.Max(Math.Abs(ours), Math.Abs(theirs)));
-        }
-        return scale > 0 ? worst / scale : worst;
     }
 
     /// <summary>The engine's unknown names as ngspice's vectors: "U1#pole" is "xu1.pole", "I(V1)" is "v1#branch".</summary>

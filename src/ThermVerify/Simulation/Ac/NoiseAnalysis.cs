@@ -17,9 +17,11 @@ internal static class NoiseAnalysis
 {
     public const string AnalysisName = "Noise";
 
-    public static NoiseResult Run(Circuit circuit, string outputNode, FrequencySweep sweep, string referenceNode = Circuit.Ground)
+    /// <param name="start">Where the operating point's Newton starts (see <see cref="SmallSignalSystem"/>).</param>
+    public static NoiseResult Run(Circuit circuit, string outputNode, FrequencySweep sweep, string referenceNode = Circuit.Ground,
+        Action<BoundSystem>? start = null)
     {
-        var system = new SmallSignalSystem(circuit, AnalysisName);
+        var system = new SmallSignalSystem(circuit, AnalysisName, start);
         var layout = system.System.Layout;
         var noise = new NoiseContext(circuit.TemperatureCelsius, layout.Ground);
         foreach (var s in system.System.Stamps)

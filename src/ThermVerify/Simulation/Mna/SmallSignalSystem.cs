@@ -18,11 +18,14 @@ internal sealed class SmallSignalSystem
     private readonly double[] weights;
     private double factoredHertz;
 
-    public SmallSignalSystem(Circuit circuit, string analysis)
+    /// <param name="start">Sets the starting point of the operating point's Newton iteration (a circuit with several
+    /// DC solutions is linearised about the one nearest it); none starts from zero.</param>
+    public SmallSignalSystem(Circuit circuit, string analysis, Action<BoundSystem>? start = null)
     {
         this.analysis = analysis;
         TopologyCheck.Run(circuit);
         System = new BoundSystem(circuit);
+        start?.Invoke(System);
         DcSolver.Solve(System, $"{analysis} operating point", null);
         System.Assemble();
         var n = System.Size;
