@@ -1,4 +1,5 @@
 using ThermVerify.Circuits;
+using ThermVerify.Limits;
 using ThermVerify.Simulation.Mna;
 
 namespace ThermVerify.Simulation;
@@ -98,6 +99,9 @@ internal sealed class TransientSimulation
         CollectBreakpoints(timeSeconds);
         while (TimeSeconds < timeSeconds - StopQueue.Epsilon(timeSeconds))
         {
+            // A linear circuit at a steady step never refactorises (where the LU checks): Ctrl+C and the time limit
+            // must still stop it.
+            Work.ThrowIfCancelled();
             var stop = stops.Next(timeSeconds);
             Step(FirstTry(stop - TimeSeconds, stop), stop);
         }

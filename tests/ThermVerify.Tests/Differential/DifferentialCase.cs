@@ -1,5 +1,6 @@
 using ThermVerify.Circuits;
 using ThermVerify.Circuits.Spice;
+using ThermVerify.Limits;
 using ThermVerify.Ngspice;
 using ThermVerify.Simulation;
 using ThermVerify.Simulation.Mna;
@@ -69,6 +70,9 @@ internal static class DifferentialCase
     };
 
     public const int SweepPoints = 21;
+
+    /// <summary>How long one analysis of the built-in engine may take before it counts as failed (a hang guard).</summary>
+    public static readonly TimeSpan OursTimeLimit = TimeSpan.FromSeconds(120);
     public const int MaxTransientSteps = 2_000_000;
 
     /// <summary>Called before and after each analysis of each circuit (a long run's log, to see where it spends its time).</summary>
@@ -121,6 +125,10 @@ internal static class DifferentialCase
         }
         var ngspiceMilliseconds = clock.Elapsed.TotalMilliseconds;
         clock.Restart();
+        // A guard, not a measurement: an analysis of ours that has not finished after this long is recorded as failed
+        // (the run observes the limit in every transient step and every 64th factorisation).
+        using var limit = new CancellationTokenSource(OursTimeLimit);
+        using var scope = Work.Scope(limit.Token);
         try
         {
             var difference = analysis switch
@@ -138,6 +146,13 @@ internal static class DifferentialCase
             return new Comparison(analysis, null, ngspiceFailure, difference)
             {
                 Explanation = Explain(rc, analysis, plot, difference), Milliseconds = (ours, ngspiceMilliseconds), Notes = notes,
+            };
+        }
+        catch (OperationCanceledException) when (limit.IsCancellationRequested)
+        {
+            return new Comparison(analysis, $"did not finish within {OursTimeLimit.TotalSeconds:0} s", ngspiceFailure, null)
+            {
+                Milliseconds = (clock.Elapsed.TotalMilliseconds, ngspiceMilliseconds),
             };
         }
         catch (Exception e) when (e is SimulationException or CircuitException)
