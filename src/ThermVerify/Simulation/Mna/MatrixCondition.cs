@@ -42,6 +42,9 @@ internal static class MatrixCondition
         }
     }
 
+    /// <summary>Whether some unknown's amplification is above <see cref="Limit"/> (or not a number).</summary>
+    public static bool Exceeds(double[] amplification) => amplification.Any(a => !(a <= Limit));
+
     public static IllConditionedMatrixException Exception(MnaLayout layout, double[] amplification, string analysis, string where)
     {
         var worst = amplification.Max();

@@ -103,8 +103,12 @@ internal sealed class SmallSignalSystem
             nodeCurrents = Math.Max(nodeCurrents, sum);
         }
         MatrixCondition.Weights(System.Layout, magnitudes, nodeCurrents, weights, adjoint: transposed);
-        if (lu.ErrorAmplification(x, weights, transposed) > MatrixCondition.Limit)
-            throw MatrixCondition.Exception(System.Layout, lu.ErrorAmplificationPerUnknown(x, weights, transposed), analysis,
+        // The estimate first, the exact figures (which decide) only when it exceeds the limit (see BoundSystem.IsIllConditioned).
+        if (lu.ErrorAmplification(x, weights, transposed) <= MatrixCondition.Limit)
+            return;
+        var amplification = lu.ErrorAmplificationPerUnknown(x, weights, transposed);
+        if (MatrixCondition.Exceeds(amplification))
+            throw MatrixCondition.Exception(System.Layout, amplification, analysis,
                 $" at {factoredHertz:G6} Hz{(transposed ? " (adjoint system of the noise analysis)" : "")}");
     }
 }
