@@ -7,12 +7,13 @@ namespace ThermVerify.Tests.Differential;
 
 /// <summary>
 /// The DC convergence aids on circuits where plain Newton fails, taken from the seeded generator (the fast subset's
-/// circuits, up to 12 nodes): the aid is named in the result, and the answer it reaches is ngspice's.
+/// circuits of up to 12 nodes, the large run's of up to 15): the aid is named in the result, and the answer it reaches
+/// is ngspice's.
 /// </summary>
 public class ConvergenceAidTests
 {
-    private static RandomCircuit Circuit(int seed) =>
-        RandomCircuitGenerator.Generate(seed, seed % 2 == 0 ? CircuitClass.Linear : CircuitClass.Nonlinear, 12)
+    private static RandomCircuit Circuit(int seed, int maxNodes = 12) =>
+        RandomCircuitGenerator.Generate(seed, seed % 2 == 0 ? CircuitClass.Linear : CircuitClass.Nonlinear, maxNodes)
         ?? throw new InvalidOperationException($"seed {seed} gives no circuit");
 
     /// <summary>The largest node difference over the largest node voltage of either engine.</summary>
@@ -37,6 +38,19 @@ public class ConvergenceAidTests
         Assert.Equal(ConvergenceAid.GminStepping, op.Aid);
         // Reference: ngspice 39 on the same circuit (its own aids); 1e-8 of the circuit's scale, the differential
         // run's limit for DC.
+        var plot = DifferentialNgspice.Run(SpiceDeckWriter.Write(NgspiceTwin.For(rc.Circuit), new OperatingPointAnalysis())).Plot("op");
+        var difference = ScaledDifference(rc, (node, _) => op.Voltage(node), plot, 1);
+        Assert.True(difference <= 1e-8, $"operating point {difference:G3} of the scale from ngspice's");
+    }
+
+    [NgspiceFact]
+    public void Source_stepping_finds_the_operating_point_where_gmin_stepping_fails()
+    {
+        // Seed 13 of the large run (15 nodes at most): neither Newton from zero nor gmin stepping converges.
+        var rc = Circuit(13, maxNodes: 15);
+        var op = OperatingPoint.Solve(rc.Circuit);
+        Assert.Equal(ConvergenceAid.SourceStepping, op.Aid);
+        // Reference: ngspice 39, as above.
         var plot = DifferentialNgspice.Run(SpiceDeckWriter.Write(NgspiceTwin.For(rc.Circuit), new OperatingPointAnalysis())).Plot("op");
         var difference = ScaledDifference(rc, (node, _) => op.Voltage(node), plot, 1);
         Assert.True(difference <= 1e-8, $"operating point {difference:G3} of the scale from ngspice's");
