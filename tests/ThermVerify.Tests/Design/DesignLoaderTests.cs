@@ -50,6 +50,17 @@ public class DesignLoaderTests
     }
 
     [Fact]
+    public void A_very_long_unknown_key_is_shown_cut_with_its_length()
+    {
+        var key = new string('q', 1_000_000);
+        var e = Fails(DesignText.With(10, $"  {key} = 1"));
+        Assert.Equal(10, e.Line);
+        Assert.Contains("unknown key", e.Problem);
+        Assert.Contains("(1,000,000 characters)", e.Message);
+        Assert.True(e.Message.Length < 1000, $"the message is {e.Message.Length} characters long");
+    }
+
+    [Fact]
     public void UnknownKeyNamesTheNearestValidKey()
     {
         var e = Fails(DesignText.With(10, "  fixed_resistr = \"10k\""));
