@@ -139,6 +139,8 @@ internal static class DesignWriter
         else
             w.Text("reference", "ratiometric");
         w.Value("reference_tolerance", a.ReferenceTolerance, UnitKind.Percent);
+        if (a.ReferenceVolts is not null)
+            w.Value("reference_tempco", a.ReferenceTempcoPerKelvin, UnitKind.PpmPerKelvin);
         w.Value("sample_rate", a.SampleRateHertz, UnitKind.Hertz);
         w.Value("acquisition_time", a.AcquisitionTimeSeconds, UnitKind.Second);
         w.Value("sampling_capacitance", a.SamplingCapacitanceFarads, UnitKind.Farad);
@@ -154,10 +156,13 @@ internal static class DesignWriter
         {
             PrechargeMode.LastSample => "last-sample",
             PrechargeMode.OtherChannel => "other-channel",
-            _ => "discharged",
+            PrechargeMode.Discharged => "discharged",
+            _ => "worst",
         });
         if (a.PrechargeVolts is { } pv)
             w.Value("precharge_voltage", pv, UnitKind.Volt);
+        w.Text("first_transition", a.FirstTransition == FirstTransition.HalfLsb ? "half-lsb" : "one-lsb");
+        w.Text("firmware_inverse", a.FirmwareInverse == CodeInverse.BinMiddle ? "bin-middle" : "bin-edge");
     }
 
     private static void WriteCheck(Writer w, CheckSpec c)

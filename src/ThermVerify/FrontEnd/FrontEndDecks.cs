@@ -38,7 +38,7 @@ internal static class FrontEndDecks
     {
         options ??= new DeckOptions();
         var model = new ClosedFormModel(design);
-        var precharge = PrechargeCases.For(design, model.Adc.ReferenceVolts)[0];
+        var precharge = PrechargeCases.For(design, model.Adc.ReferenceVolts)[0].Volts;
         var celsius = options.TemperatureCelsius ?? (design.Check.Range.MinCelsius + design.Check.Range.MaxCelsius) / 2;
         var pin = FrontEndCircuit.PinNode(design);
         switch (analysis)
@@ -46,9 +46,11 @@ internal static class FrontEndDecks
             case DeckAnalysis.Dc:
             {
                 var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToList();
-                var circuit = FrontEndCircuit.Dc(design, DcSweepCase.UsesAverageSamplingCurrent(design, precharge) ? precharge : null);
+                var circuit = FrontEndCircuit.Dc(design, DcLevels.UsesAverageSamplingCurrent(design, precharge) ? precharge : null);
+                var drift = BufferStage.DriftFollowsSweep(design)
+                    ? "; the op-amp's offset drift is held at 25 °C in this deck (the check drifts it to each swept temperature)" : "";
                 return SpiceDeckWriter.Write(circuit, DcTemperatureSweep.From(temperatures),
-                    Header(design, circuit, $"temperature sweep over the check range, {PrechargeCases.Describe(precharge)}"));
+                    Header(design, circuit, $"temperature sweep over the check range, {PrechargeCases.Describe(precharge)}{drift}"));
             }
             case DeckAnalysis.Tran:
             {
@@ -78,7 +80,7 @@ internal static class FrontEndDecks
     /// <summary>The DC circuit at <paramref name="celsius"/> with the excitation as a 1 V AC input.</summary>
     public static Circuit AcCircuit(FrontEndDesign design, double celsius)
     {
-        var circuit = FrontEndCircuit.Dc(design, null) with { TemperatureCelsius = celsius };
+        var circuit = FrontEndCircuit.Dc(design, null, celsius);
         var excitation = (VoltageSource)circuit[AcInputSource];
         return circuit.Replace(excitation with { AcMagnitude = 1 });
     }

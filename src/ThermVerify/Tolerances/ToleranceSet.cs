@@ -5,7 +5,8 @@ namespace ThermVerify.Tolerances;
 /// <summary>
 /// Every nonzero tolerance of a design, in a fixed order. A unit is a vector of deviations, one per parameter,
 /// in the parameter's own unit. Values the design gives as bounds without a nominal (fixed-resistor tempco, op-amp
-/// offset and bias, ADC offset, gain error and INL) are spread over ±|bound| around zero.
+/// offset, drift and bias, ADC offset, gain error and INL, reference tempco) are spread over ±|bound| around zero, so
+/// the unit with every deviation zero has them at zero: <see cref="UnitEvaluator.NominalUnitDesign"/>.
 /// </summary>
 internal sealed class ToleranceSet
 {
@@ -54,13 +55,17 @@ internal sealed class ToleranceSet
         Add(ToleranceKind.Excitation, "divider.excitation_tolerance", divider.ExcitationTolerance, "");
         var adc = design.Adc;
         if (!adc.IsRatiometric)
+        {
             Add(ToleranceKind.Reference, "adc.reference_tolerance", adc.ReferenceTolerance, "");
+            Add(ToleranceKind.ReferenceTempco, "adc.reference_tempco", adc.ReferenceTempcoPerKelvin, "1/K");
+        }
         Add(ToleranceKind.AdcOffset, "adc.offset_error", adc.OffsetErrorLsb, "LSB");
         Add(ToleranceKind.AdcGain, "adc.gain_error", adc.GainError, "");
         Add(ToleranceKind.AdcInl, "adc.inl", adc.InlLsb, "LSB");
         if (design.Buffer is { } buffer)
         {
             Add(ToleranceKind.BufferOffset, "buffer.offset_voltage", buffer.OffsetVolts, "V");
+            Add(ToleranceKind.BufferDrift, "buffer.offset_drift", buffer.OffsetDriftVoltsPerKelvin, "V/K");
             Add(ToleranceKind.BufferBias, "buffer.bias_current", buffer.BiasCurrentAmperes, "A");
         }
         if (adc.PinLeakageAmperes != 0)
