@@ -72,8 +72,19 @@ internal static class FrontEndCircuit
     public static double PrechargeGapSeconds(FrontEndDesign design) =>
         0.01 * (1 / design.Adc.SampleRateHertz - design.Adc.AcquisitionTimeSeconds);
 
-    /// <summary>The time at which conversion k (from 0) is taken: the end of its acquisition.</summary>
-    public static double SampleTimeSeconds(FrontEndDesign design, int conversion) => (conversion + 1) / design.Adc.SampleRateHertz;
+    /// <summary>
+    /// The time at which conversion k (from 0) is taken: the sampling switch's own opening edge, computed exactly as its
+    /// schedule computes it (close = delay + k·period with delay = period − t_acq, open = close + t_acq). A sample time
+    /// written another way, (k + 1)/f_s, can differ from the edge in the last bit, and a read or a run's end placed by
+    /// one formula then fell a rounding outside what the other had simulated; every sample instant, stop time and
+    /// recorded window end comes from here.
+    /// </summary>
+    public static double SampleTimeSeconds(FrontEndDesign design, int conversion)
+    {
+        var period = 1 / design.Adc.SampleRateHertz;
+        var acquisition = design.Adc.AcquisitionTimeSeconds;
+        return period - acquisition + conversion * period + acquisition;
+    }
 
     /// <summary>Excitation, divider, buffer, filter and the static part of the ADC input.</summary>
     private static List<Element> Front(FrontEndDesign design, double? celsius)
