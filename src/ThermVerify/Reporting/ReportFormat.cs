@@ -76,7 +76,10 @@ internal static class ReportFormat
     public static string PrechargeLine(CheckResult r) =>
         r.PrechargeCases.Count == 1
             ? $"{PrechargeText(r.Design.Adc.Precharge)} ({r.PrechargeCases[0].Describe()})"
-            : $"{PrechargeText(r.Design.Adc.Precharge)}: every case is checked ({string.Join(", ", r.PrechargeCases.Select(c => c.Volts is { } v ? $"{c.Name} = {V(v, UnitKind.Volt)}" : c.Name))}); the worst at each temperature is reported";
+            : $"{PrechargeText(r.Design.Adc.Precharge)}: every case is checked ({string.Join(", ", r.PrechargeCases.Select(CaseText))}); the worst at each temperature is reported (column \"reading\")";
+
+    private static string CaseText(PrechargeCase c) =>
+        c.Volts is { } v && !c.Name.EndsWith(" V", StringComparison.Ordinal) ? $"{c.Name} {V(v, UnitKind.Volt)}" : c.Name;
 
     public static string PrechargeText(Design.PrechargeMode mode) => Precharge(mode);
 
