@@ -8,9 +8,10 @@ namespace ThermVerify.Check;
 /// The first-order closed form of each effect the ideal model leaves out, at one temperature: Ohm's law for leakage
 /// and bias currents, the fixed resistor's tempco through the divider's slope, the buffer's offset with its drift,
 /// the switched-capacitor resistance for the average sampling current (Johns &amp; Martin), charge sharing with a
-/// reservoir, and single-pole settling without one (the dominant pole from the sum of open-circuit time constants,
-/// R_s·(C_sh + C_pin) + R_on·C_sh; exact for C_pin = 0). A first conversion starts from the settled (static) pin; the
-/// steady state from the pin with the average sampling current.
+/// reservoir (the first conversion from the settled pin; the steady state from the sawtooth the reservoir settles into,
+/// <see cref="SamplingFormulas.SteadySampleVolts"/>, against the pin with the average sampling current), and
+/// single-pole settling without one (the dominant pole from the sum of open-circuit time constants,
+/// R_s·(C_sh + C_pin) + R_on·C_sh; exact for C_pin = 0).
 /// </summary>
 internal static class EffectEstimator
 {
@@ -35,8 +36,12 @@ internal static class EffectEstimator
 
         var reservoir = design.Filter.ReservoirCapacitorFarads;
         if (reservoir > 0)
-            return Make(SamplingFormulas.KickbackStepVolts(pre - staticPinVolts, adc.SamplingCapacitanceFarads, reservoir + adc.PinCapacitanceFarads),
-                SamplingFormulas.KickbackStepVolts(pre - averagePinVolts, adc.SamplingCapacitanceFarads, reservoir + adc.PinCapacitanceFarads));
+        {
+            var external = reservoir + adc.PinCapacitanceFarads;
+            var steady = SamplingFormulas.SteadySampleVolts(staticPinVolts, pre, adc.SamplingCapacitanceFarads, external,
+                source * external, 1 / adc.SampleRateHertz) - averagePinVolts;
+            return Make(SamplingFormulas.KickbackStepVolts(pre - staticPinVolts, adc.SamplingCapacitanceFarads, external), steady);
+        }
         var tau = SinglePoleTauSeconds(design, source);
         double Residual(double from) => SamplingFormulas.SinglePoleResidualVolts(
             SamplingFormulas.KickbackStepVolts(pre - from, adc.SamplingCapacitanceFarads, adc.PinCapacitanceFarads), adc.AcquisitionTimeSeconds, tau);

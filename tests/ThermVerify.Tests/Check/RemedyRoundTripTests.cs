@@ -1,0 +1,119 @@
+using System.Globalization;
+using System.Text.RegularExpressions;
+using ThermVerify.Check;
+using ThermVerify.Design;
+using ThermVerify.Quantities;
+using ThermVerify.Tests.Ngspice;
+
+namespace ThermVerify.Tests.Check;
+
+/// <summary>
+/// Every remedy of every bundled example, written into the design file the way a user would (the key set to the
+/// printed value in the design's normal form, loaded again), clears the finding it addresses and brings no failing
+/// finding the design did not already have; and no remedy asks for what the design already has or exceeds. The
+/// examples run on a coarser grid than their own (the remedies then belong to that grid, and so do the checks here).
+/// </summary>
+public class RemedyRoundTripTests
+{
+    private static readonly CheckOptions Options = new() { MaximumSamplingPoints = 3 };
+
+    [Theory]
+    [MemberData(nameof(ExampleDesigns.All), MemberType = typeof(ExampleDesigns))]
+    public void Every_remedy_written_into_the_design_clears_its_finding(string example)
+    {
+        var loaded = ExampleDesigns.Load(example);
+        var range = loaded.Check.Range;
+        var design = loaded with { Check = loaded.Check with { StepKelvin = Math.Max(loaded.Check.StepKelvin, (range.MaxCelsius - range.MinCelsius) / 10) } };
+        var result = FrontEndCheck.Run(design, Options);
+        var failingBefore = result.Findings.Where(f => f.Severity == Severity.Fail).Select(f => f.Id).ToHashSet();
+        foreach (var finding in result.Findings)
+            foreach (var remedy in finding.Remedies)
+            {
+                var changes = remedy.Together.Prepend(remedy).ToList();
+                foreach (var change in changes.Where(c => c.Value is not null))
+                    AssertMovesAway(design, change);
+                var changed = Written(design, changes);
+                var check = FrontEndCheck.Run(changed, Options with { ComputeRemedies = false });
+                var what = $"{example}: {finding.Id} with {string.Join(" and ", changes.Select(c => $"{c.Key} = {c.Value?.ToString("G6", CultureInfo.InvariantCulture) ?? "0"}"))}";
+                Assert.DoesNotContain(check.Findings, f => f.Id == finding.Id);
+                Assert.All(check.Findings.Where(f => f.Severity == Severity.Fail), f => Assert.True(failingBefore.Contains(f.Id), $"{what} brings a failing {f.Id}"));
+            }
+    }
+
+    /// <summary>"at least" asks for more than the design has, "at most" for less (in magnitude); an absent part counts as none.</summary>
+    private static void AssertMovesAway(FrontEndDesign design, Remedy change)
+    {
+        var current = Current(design, change.Key);
+        if (current is null) return;
+        if (change.Action.Contains("at least", StringComparison.Ordinal))
+            Assert.True(change.Value > current, $"{change.Key}: asks for at least {change.Value} where the design has {current}");
+        else if (change.Action.Contains("at most", StringComparison.Ordinal) || change.Action.Contains("within", StringComparison.Ordinal))
+            Assert.True(Math.Abs(change.Value!.Value) < Math.Abs(current.Value), $"{change.Key}: asks for at most {change.Value} where the design has {current}");
+    }
+
+    private static double? Current(FrontEndDesign d, string key) => key switch
+    {
+        "adc.acquisition_time" => d.Adc.AcquisitionTimeSeconds,
+        "adc.sample_rate" => d.Adc.SampleRateHertz,
+        "adc.pin_leakage" => d.Adc.PinLeakageAmperes,
+        "adc.offset_error" => d.Adc.OffsetErrorLsb,
+        "adc.gain_error" => d.Adc.GainError,
+        "adc.inl" => d.Adc.InlLsb,
+        "adc.bits" => d.Adc.Bits,
+        "adc.reference_tempco" => d.Adc.ReferenceTempcoPerKelvin,
+        "filter.reservoir_capacitor" => d.Filter.ReservoirCapacitorFarads > 0 ? d.Filter.ReservoirCapacitorFarads : null,
+        "filter.series_resistor" => d.Filter.SeriesResistorOhms,
+        "divider.fixed_tempco" => d.Divider.FixedTempcoPerKelvin,
+        "sensor.dissipation_constant" => d.Sensor.DissipationConstantWattsPerKelvin,
+        "buffer.gain_bandwidth" => d.Buffer?.GainBandwidthHertz,
+        "buffer.offset_voltage" => d.Buffer?.OffsetVolts,
+        "buffer.offset_drift" => d.Buffer?.OffsetDriftVoltsPerKelvin,
+        "buffer.bias_current" => d.Buffer?.BiasCurrentAmperes,
+        "buffer.isolation_resistor" => d.Buffer is { IsolationResistorOhms: > 0 } b ? b.IsolationResistorOhms : null,
+        "buffer.slew_rate" => d.Buffer?.SlewRateVoltsPerSecond,
+        "buffer.noise_voltage" => d.Buffer?.NoiseVoltsPerRootHertz,
+        "buffer.output_swing" => d.Buffer?.OutputSwingVolts,
+        _ => throw new InvalidOperationException($"a remedy for {key}: add it to this test"),
+    };
+
+    /// <summary>The design's normal form with each key set to the remedy's value (a value-less remedy removes the error: 0), loaded again.</summary>
+    private static FrontEndDesign Written(FrontEndDesign design, IEnumerable<Remedy> changes)
+    {
+        var text = DesignWriter.ToToml(design);
+        foreach (var change in changes)
+        {
+            var dot = change.Key.IndexOf('.');
+            var (section, key) = (change.Key[..dot], change.Key[(dot + 1)..]);
+            var value = Toml(change);
+            if (section == "buffer" && !text.Contains("\n[buffer]\n", StringComparison.Ordinal))
+            {
+                // The follower the remedy describes: rail-to-rail on the excitation (or reference), 100 Ω open-loop output resistance.
+                var top = Math.Max(design.Divider.ExcitationVolts, design.Adc.ReferenceVolts ?? 0).ToString("R", CultureInfo.InvariantCulture);
+                text = text.Replace("\n[filter]\n", $"\n[buffer]\n{key} = {value}\nsupply = \"0 V .. {top} V\"\noutput_resistance = \"100 ohm\"\n\n[filter]\n", StringComparison.Ordinal);
+                continue;
+            }
+            var header = $"\n[{section}]\n";
+            var start = text.IndexOf(header, StringComparison.Ordinal) + header.Length;
+            var end = text.IndexOf("\n[", start, StringComparison.Ordinal);
+            var body = text[start..(end < 0 ? text.Length : end + 1)];
+            var line = new Regex($"^{Regex.Escape(key)} = .*$", RegexOptions.Multiline);
+            var edited = line.IsMatch(body) ? line.Replace(body, $"{key} = {value}") : $"{key} = {value}\n" + body;
+            text = text[..start] + edited + text[(start + body.Length)..];
+        }
+        return DesignLoader.Parse(text, "remedied.toml", ExampleDesigns.Folder());
+    }
+
+    private static string Toml(Remedy r)
+    {
+        var v = r.Value ?? 0;
+        var unit = r.Unit switch
+        {
+            "s" => UnitKind.Second, "F" => UnitKind.Farad, "Hz" => UnitKind.Hertz, "Ω" => UnitKind.Ohm, "A" => UnitKind.Ampere,
+            "V" => UnitKind.Volt, "V/K" => UnitKind.VoltPerKelvin, "V/s" => UnitKind.VoltPerSecond, "W/K" => UnitKind.WattPerKelvin,
+            "V/√Hz" => UnitKind.VoltPerRootHertz, "ppm/K" => UnitKind.PpmPerKelvin, "fraction" => UnitKind.Percent, "LSB" => UnitKind.Lsb,
+            "bits" => (UnitKind?)null,
+            _ => throw new InvalidOperationException($"unit {r.Unit}: add it to this test"),
+        };
+        return unit is { } u ? $"\"{EngineeringFormat.FormatExact(v, u)}\"" : ((int)v).ToString(CultureInfo.InvariantCulture);
+    }
+}
