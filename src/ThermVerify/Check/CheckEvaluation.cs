@@ -12,7 +12,7 @@ namespace ThermVerify.Check;
 internal sealed class CheckEvaluation
 {
     private CheckEvaluation(FrontEndDesign design, ClosedFormModel model, FirmwareReading reading, IReadOnlyList<double> temperatures,
-        IReadOnlyList<PrechargeCase> cases, DcLevels dc, SamplingOffsets offsets, Converter converter, double settleVolts, SampleKinds kinds)
+        IReadOnlyList<PrechargeCase> cases, DcCorners dc, SamplingOffsets offsets, Converter converter, double settleVolts, SampleKinds kinds)
     {
         Design = design;
         Model = model;
@@ -35,7 +35,8 @@ internal sealed class CheckEvaluation
     public IReadOnlyList<double> Temperatures { get; }
     public ClosedFormPoint[] ClosedForm { get; }
     public IReadOnlyList<PrechargeCase> Cases { get; }
-    public DcLevels Dc { get; }
+    /// <summary>The DC levels at the corners of the design's bounds; sampling runs on <see cref="DcCorners.Base"/>.</summary>
+    public DcCorners Dc { get; }
     public SamplingOffsets Offsets { get; }
     public Converter Converter { get; }
     public double SettleVolts { get; }
@@ -57,12 +58,15 @@ internal sealed class CheckEvaluation
         cases ??= PrechargeCases.For(design, model.Adc.ReferenceVolts);
         var settleVolts = design.Check.SettleLimitLsb * model.Adc.LsbVolts;
         var indices = SettlingGrid.Indices(temperatures.Count, options.MaximumSamplingPoints);
-        var dc = DcLevels.Run(design, cases, temperatures, options.Engine);
+        var dc = DcCorners.Run(design, cases, temperatures, options.Engine);
+        // Sampling offsets (sample minus the level it starts from) of the design with its bounds at zero: the bounds
+        // move the levels, which the corners carry, and a larger bound can only move them further.
+        var sampled = StaticBounds.Zeroed(design);
         var offsets = kinds switch
         {
             null => SamplingOffsets.None(cases, temperatures.Count),
-            SampleKinds.FirstOnly => SamplingOffsets.FirstOnly(design, cases, temperatures, dc, settleVolts, options.Engine),
-            _ => SamplingOffsets.Run(design, cases, temperatures, indices, dc, settleVolts, options.Threads, options.Cancel, options.Engine),
+            SampleKinds.FirstOnly => SamplingOffsets.FirstOnly(sampled, cases, temperatures, dc.Base, settleVolts, options.Engine),
+            _ => SamplingOffsets.Run(sampled, cases, temperatures, indices, dc.Base, settleVolts, options.Threads, options.Cancel, options.Engine),
         };
         return new CheckEvaluation(design, model, reading, temperatures, cases, dc, offsets, Converter.Of(design), settleVolts, kinds ?? SampleKinds.Both);
     }
@@ -71,7 +75,7 @@ internal sealed class CheckEvaluation
     public CheckEvaluation Refined(CheckOptions options)
     {
         var worst = ErrorModel.WorstIndex([.. Points.Select(p => p.ErrorKelvin)]);
-        var offsets = Offsets.WithPoint(Design, Temperatures, worst, Dc, SettleVolts, options.Cancel, options.Engine);
+        var offsets = Offsets.WithPoint(StaticBounds.Zeroed(Design), Temperatures, worst, Dc.Base, SettleVolts, options.Cancel, options.Engine);
         return ReferenceEquals(offsets, Offsets) ? this
             : new CheckEvaluation(Design, Model, Reading, Temperatures, Cases, Dc, offsets, Converter, SettleVolts, Kinds);
     }
@@ -81,15 +85,16 @@ internal sealed class CheckEvaluation
         var cf = ClosedForm[i];
         var (choice, _) = ErrorModel.WorstAt(Inputs, i, Reading);
         var c = choice.Case;
+        var corner = Dc.Corners[choice.Corner];
         var first = Offsets.FirstVolts[c][i];
         var steady = Offsets.SteadyVolts[c][i];
-        var staticPin = Dc.StaticPinVolts[i];
-        var averagePin = Dc.AveragePinVolts[c][i];
+        var staticPin = corner.StaticPinVolts[i];
+        var averagePin = corner.AveragePinVolts[c][i];
         var heat = Inputs.SelfHeatingVolts[i];
 
         // The walk from the closed form to the code, one cause at a time.
         var ideal = cf.IdealVolts;
-        var afterBuffer = Dc.AfterBufferVolts?[i] ?? ideal;
+        var afterBuffer = corner.AfterBufferVolts?[i] ?? ideal;
         var level = choice.First ? staticPin : averagePin;
         var sample = level + (choice.First ? first : steady);
         var warmed = choice.SampleVolts;
@@ -110,10 +115,10 @@ internal sealed class CheckEvaluation
         var contributions = new ErrorContributions(parts[0], parts[1], parts[2], parts[3], parts[4], parts[5], parts[6], error - parts.Sum());
         var volts = new VoltageErrors(afterBuffer - ideal, staticPin - afterBuffer, level - staticPin, sample - level, warmed - sample,
             converted - warmed, first, steady, averagePin - staticPin);
-        var converterCase = Converter.Cases.Count > 1 ? (Converter.Cases[choice.ConverterCase].InlBowLsb > 0 ? "INL +" : "INL −") : "";
-        return new CheckPoint(cf.Celsius, cf.SensorOhms, ideal, Dc.DividerVolts[i], staticPin, averagePin, staticPin + first, averagePin + steady,
-            warmed, Cases[c], choice.First, converterCase, Offsets.SimulatedIndices.Contains(i), choice.Code, Reading.Celsius(choice.Code), error,
+        var cornerName = Dc.Corners.Count > 1 ? (choice.Corner == 0 ? "bounds up" : "bounds down") : "";
+        return new CheckPoint(cf.Celsius, cf.SensorOhms, ideal, Dc.Base.DividerVolts[i], staticPin, averagePin, staticPin + first, averagePin + steady,
+            warmed, Cases[c], choice.First, cornerName, Offsets.SimulatedIndices.Contains(i), choice.Code, Reading.Celsius(choice.Code), error,
             Design.Check.BudgetAt(cf.Celsius), Model.Adc.LsbVolts / Math.Abs(cf.VoltsPerKelvin), contributions, volts,
-            EffectEstimator.At(Design, cf, staticPin, averagePin, Cases[c].Volts, heat));
+            EffectEstimator.At(Dc.DesignAt(Design, choice.Corner, i), cf, staticPin, averagePin, Cases[c].Volts, heat));
     }
 }

@@ -92,7 +92,7 @@ public sealed record CheckPoint(
     double SampleVolts,
     PrechargeCase Precharge,
     bool FirstConversion,
-    string ConverterCase,
+    string Corner,
     bool SamplingSimulated,
     int Code,
     double ReportedCelsius,

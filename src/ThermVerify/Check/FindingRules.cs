@@ -133,29 +133,44 @@ internal static class FindingRules
     {
         var parts = new List<string>();
         if (design.Adc.PinLeakageAmperes != 0)
-            parts.Add(I($"pin leakage {Amps(EffectEstimator.LeakageAmps(design, p.Celsius))} through the {Ohms(p.Estimates.SourceOhms)} the pin sees (Ohm's law) {Volts(p.Estimates.LeakageVolts)}"));
+            parts.Add(I($"pin leakage {Bounded(Amps(Math.Abs(EffectEstimator.LeakageAmps(design, p.Celsius))), design.Adc.PinLeakageSigned, design.Adc.PinLeakageAmperes)} ") +
+                      I($"through the {Ohms(p.Estimates.SourceOhms)} the pin sees (Ohm's law) {Volts(p.Estimates.LeakageVolts)}"));
         if (design.Divider.FixedTempcoPerKelvin != 0)
-            parts.Add(I($"the fixed resistor's tempco of {design.Divider.FixedTempcoPerKelvin * 1e6:0.###} ppm/K at {(design.Check.BoardCelsius ?? p.Celsius):0.##} °C {Volts(p.Estimates.FixedDriftVolts)}"));
-        return string.Join(", and ", parts);
+            parts.Add(I($"the fixed resistor's tempco of {Bounded(I($"{Math.Abs(design.Divider.FixedTempcoPerKelvin) * 1e6:0.###} ppm/K"), design.Divider.FixedTempcoSigned, design.Divider.FixedTempcoPerKelvin)} ") +
+                      I($"at {(design.Check.BoardCelsius ?? p.Celsius):0.##} °C {Volts(p.Estimates.FixedDriftVolts)}"));
+        return string.Join(", and ", parts) + CornerNote(p);
     }
 
     private static string ConverterCause(FrontEndDesign design, CheckPoint p, double lsb)
     {
         var adc = design.Adc;
         var parts = new List<string>();
-        if (adc.OffsetErrorLsb != 0) parts.Add(I($"offset {adc.OffsetErrorLsb:+0.###;-0.###} LSB"));
-        if (adc.GainError != 0) parts.Add(I($"gain error {adc.GainError * 100:+0.###;-0.###} %"));
-        if (adc.InlLsb != 0) parts.Add(I($"INL ±{adc.InlLsb:0.###} LSB as a bow, {p.ConverterCase} here"));
-        if (adc.ReferenceTempcoPerKelvin != 0) parts.Add(I($"reference tempco {adc.ReferenceTempcoPerKelvin * 1e6:+0.###;-0.###} ppm/K"));
-        return string.Join(", ", parts) + I($" (IEEE Std 1241 terms): the code moves by {p.Simulated.ConverterVolts / lsb:+0.##;-0.##} LSB at {p.Celsius:0.##} °C");
+        if (adc.OffsetErrorLsb != 0) parts.Add("offset " + Bounded(I($"{Math.Abs(adc.OffsetErrorLsb):0.###} LSB"), adc.OffsetErrorSigned, adc.OffsetErrorLsb));
+        if (adc.GainError != 0) parts.Add("gain error " + Bounded(I($"{Math.Abs(adc.GainError) * 100:0.###} %"), adc.GainErrorSigned, adc.GainError));
+        if (adc.InlLsb != 0) parts.Add(I($"INL ±{adc.InlLsb:0.###} LSB as a bow"));
+        if (adc.ReferenceTempcoPerKelvin != 0) parts.Add("reference tempco " + Bounded(I($"{Math.Abs(adc.ReferenceTempcoPerKelvin) * 1e6:0.###} ppm/K"), adc.ReferenceTempcoSigned, adc.ReferenceTempcoPerKelvin));
+        return string.Join(", ", parts) + I($" (IEEE Std 1241 terms): the code moves by {p.Simulated.ConverterVolts / lsb:+0.##;-0.##} LSB at {p.Celsius:0.##} °C") + CornerNote(p);
     }
 
     private static string BufferCause(FrontEndDesign design, CheckPoint p)
     {
-        var s = BufferStaticErrors.At(design, new ClosedFormModel(design).At(p.Celsius));
-        return I($"offset {Volts(s.OffsetVolts)}, drift {Volts(s.DriftVolts)} (op-amp at {(design.Check.BoardCelsius ?? p.Celsius):0.##} °C), ") +
-               I($"bias current through {Ohms(s.SourceOhms)} {Volts(s.BiasVolts)} (Ohm's law)");
+        var b = design.Buffer!;
+        var words = new List<string>();
+        if (b.OffsetVolts != 0) words.Add("offset " + Bounded(Volts(Math.Abs(b.OffsetVolts)), b.OffsetSigned, b.OffsetVolts));
+        if (b.OffsetDriftVoltsPerKelvin != 0) words.Add("drift " + Bounded(EngineeringFormat.Format(Math.Abs(b.OffsetDriftVoltsPerKelvin), UnitKind.VoltPerKelvin, 4), b.OffsetDriftSigned, b.OffsetDriftVoltsPerKelvin) +
+                                                        I($" with the op-amp at {(design.Check.BoardCelsius ?? p.Celsius):0.##} °C"));
+        if (b.BiasCurrentAmperes != 0) words.Add("bias current " + Bounded(Amps(Math.Abs(b.BiasCurrentAmperes)), b.BiasCurrentSigned, b.BiasCurrentAmperes));
+        var thevenin = p.SensorOhms * design.Divider.FixedResistorOhms / (p.SensorOhms + design.Divider.FixedResistorOhms);
+        return string.Join(", ", words) + I($": offset and drift {Volts(p.Estimates.BufferOffsetVolts)} (times the stage gain), bias current through the divider's {Ohms(thevenin)} ") +
+               I($"{Volts(p.Estimates.BiasCurrentVolts)} (Ohm's law), and the finite open-loop gain") + CornerNote(p);
     }
+
+    /// <summary>A value as the design gives it: "±25 nA (a bound)" or "+25 nA" when written with its sign.</summary>
+    private static string Bounded(string magnitude, bool signed, double value) =>
+        signed ? (value < 0 ? "−" : "+") + magnitude : "±" + magnitude + " (a bound)";
+
+    /// <summary>Which corner of the bounds the point's reading is at.</summary>
+    private static string CornerNote(CheckPoint p) => p.Corner.Length > 0 ? I($"; the bounds at the corner that reads worse here ({p.Corner})") : "";
 
     private static string Volts(double v) => EngineeringFormat.Format(v, UnitKind.Volt, 4);
     private static string Amps(double a) => EngineeringFormat.Format(a, UnitKind.Ampere, 4);

@@ -73,6 +73,10 @@ internal static class AdcReader
             Precharge = precharge,
             PrechargeVolts = prechargeVolts,
             ReferenceTempcoPerKelvin = referenceTempco,
+            OffsetErrorSigned = SignWritten.Of(s, "offset_error"),
+            GainErrorSigned = SignWritten.Of(s, "gain_error"),
+            PinLeakageSigned = SignWritten.Of(s, "pin_leakage"),
+            ReferenceTempcoSigned = SignWritten.Of(s, "reference_tempco"),
             FirstTransition = s.Choice("first_transition", Transitions) ?? FirstTransition.HalfLsb,
             FirmwareInverse = s.Choice("firmware_inverse", Inverses) ?? CodeInverse.BinMiddle,
         };

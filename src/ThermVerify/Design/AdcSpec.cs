@@ -65,6 +65,14 @@ public sealed record AdcSpec
     public PrechargeMode Precharge { get; init; } = PrechargeMode.Worst;
     /// <summary>Voltage left by the other channel; null: analyses take the worse of 0 V and full scale.</summary>
     public double? PrechargeVolts { get; init; }
+    /// <summary>
+    /// Whether each static error was written with a sign: without one it is a bound the check takes at the worse sign
+    /// at each temperature; with one, at that sign (<see cref="SignWritten"/>). INL is always a bound.
+    /// </summary>
+    public bool OffsetErrorSigned { get; init; }
+    public bool GainErrorSigned { get; init; }
+    public bool PinLeakageSigned { get; init; }
+    public bool ReferenceTempcoSigned { get; init; }
     /// <summary>The converter's transfer convention: the first code transition at ½ LSB (round) or 1 LSB (floor).</summary>
     public FirstTransition FirstTransition { get; init; } = FirstTransition.HalfLsb;
     /// <summary>The firmware's inverse: a code stands for the middle of its bin or its lower edge.</summary>

@@ -20,11 +20,20 @@ internal readonly record struct ConverterErrors(double OffsetLsb, double GainErr
         return idealCode * (1 + GainError) + OffsetLsb + InlBowLsb * 4 * x * (1 - x);
     }
 
-    /// <summary>The cases a design's check covers: offset and gain at the sign written, INL as a bound (both signs).</summary>
-    public static IReadOnlyList<ConverterErrors> CasesOf(AdcSpec adc) =>
-        adc.InlLsb == 0
-            ? [new(adc.OffsetErrorLsb, adc.GainError, 0)]
-            : [new(adc.OffsetErrorLsb, adc.GainError, adc.InlLsb), new(adc.OffsetErrorLsb, adc.GainError, -adc.InlLsb)];
+    /// <summary>
+    /// A design's converter errors at its two corners (or its one, when it has no bound): offset and gain at the sign
+    /// written, or, written without a sign, at the sign that raises the code at the upper corner and lowers it at the
+    /// lower; INL is always a bound (its bow up, then down).
+    /// </summary>
+    public static IReadOnlyList<ConverterErrors> CornersOf(FrontEndDesign design)
+    {
+        var adc = design.Adc;
+        ConverterErrors At(double direction) => new(
+            adc.OffsetErrorSigned ? adc.OffsetErrorLsb : direction * Math.Abs(adc.OffsetErrorLsb),
+            adc.GainErrorSigned ? adc.GainError : direction * Math.Abs(adc.GainError),
+            direction * adc.InlLsb);
+        return StaticBounds.Any(design) ? [At(1), At(-1)] : [At(1)];
+    }
 }
 
 /// <summary>
@@ -32,13 +41,24 @@ internal readonly record struct ConverterErrors(double OffsetLsb, double GainErr
 /// temperature (a fixed reference only), and its static-error cases. Its LSB is what the code is a multiple of; the
 /// firmware still reads codes with the nominal LSB, so a reference error shows as a gain error of the reading.
 /// </summary>
-internal sealed record Converter(int Bits, double ReferenceVolts, double ReferenceTempcoPerKelvin, IReadOnlyList<ConverterErrors> Cases)
+/// <param name="Cases">The converter's errors at each corner of the design's bounds (one entry for a built unit).</param>
+/// <param name="TempcoIsBound">The reference tempco was written without a sign: at each corner it takes the sign that moves the code that way.</param>
+internal sealed record Converter(int Bits, double ReferenceVolts, double ReferenceTempcoPerKelvin, IReadOnlyList<ConverterErrors> Cases, bool TempcoIsBound = false)
 {
     public static Converter Of(FrontEndDesign design) =>
         new(design.Adc.Bits, design.Adc.ReferenceVolts ?? design.Divider.ExcitationVolts,
-            design.Adc.IsRatiometric ? 0 : design.Adc.ReferenceTempcoPerKelvin, ConverterErrors.CasesOf(design.Adc));
+            design.Adc.IsRatiometric ? 0 : design.Adc.ReferenceTempcoPerKelvin, ConverterErrors.CornersOf(design),
+            !design.Adc.IsRatiometric && !design.Adc.ReferenceTempcoSigned);
 
-    /// <summary>The converter's LSB with its reference at <paramref name="boardCelsius"/>.</summary>
-    public double LsbVoltsAt(double boardCelsius) =>
-        ReferenceVolts * (1 + ReferenceTempcoPerKelvin * (boardCelsius - 25)) / (1 << Bits);
+    /// <summary>
+    /// The converter's LSB with its reference at <paramref name="boardCelsius"/>, at corner <paramref name="corner"/>:
+    /// a bound tempco lowers the reference (raising the code) at the upper corner and raises it at the lower.
+    /// </summary>
+    public double LsbVoltsAt(double boardCelsius, int corner)
+    {
+        var drift = TempcoIsBound
+            ? (corner == 0 ? -1 : 1) * Math.Abs(ReferenceTempcoPerKelvin * (boardCelsius - 25))
+            : ReferenceTempcoPerKelvin * (boardCelsius - 25);
+        return ReferenceVolts * (1 + drift) / (1 << Bits);
+    }
 }

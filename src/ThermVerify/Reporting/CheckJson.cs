@@ -61,7 +61,7 @@ public static class CheckJson
             precharge = p.Precharge.Name,
             prechargeVolts = p.PrechargeVolts,
             sample = p.SampleKind,
-            converterCase = p.ConverterCase.Length > 0 ? p.ConverterCase : null,
+            corner = p.Corner.Length > 0 ? p.Corner : null,
             samplingSimulated = p.SamplingSimulated,
             code = p.Code,
             reportedCelsius = N(p.ReportedCelsius),

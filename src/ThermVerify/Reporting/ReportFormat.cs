@@ -70,7 +70,7 @@ internal static class ReportFormat
 
     /// <summary>Which reading a point converts: the precharge case, the first or steady sample, the INL sign where INL is a bound.</summary>
     public static string ReadingCell(CheckPoint p) =>
-        $"{p.Precharge.Name}, {p.SampleKind}" + (p.ConverterCase.Length > 0 ? $", {p.ConverterCase}" : "");
+        $"{p.Precharge.Name}, {p.SampleKind}" + (p.Corner.Length > 0 ? $", {p.Corner}" : "");
 
     /// <summary>The precharge setting and the cases it covers, for headers.</summary>
     public static string PrechargeLine(CheckResult r) =>

@@ -24,19 +24,28 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
         double Bound(ToleranceKind kind, double written) => set.IndexOf(kind) < 0 ? written : Dev(kind);
 
         var sensor = SensorOf(nominal.Sensor, nominalSensor, Dev(ToleranceKind.SensorResistance), Dev(ToleranceKind.SensorBeta), Dev(ToleranceKind.RtdClass));
+        // A built unit has every value at its own sign: nothing of it is a bound any more.
         var divider = nominal.Divider with
         {
             FixedResistorOhms = nominal.Divider.FixedResistorOhms * (1 + Dev(ToleranceKind.FixedResistance)),
             FixedTempcoPerKelvin = Bound(ToleranceKind.FixedTempco, nominal.Divider.FixedTempcoPerKelvin),
+            FixedTempcoSigned = true,
             ExcitationVolts = nominal.Divider.ExcitationVolts * (1 + Dev(ToleranceKind.Excitation)),
         };
-        var adc = nominal.Adc with { PinLeakageAmperes = nominal.Adc.PinLeakageAmperes * (1 + Dev(ToleranceKind.Leakage)) };
+        var adc = nominal.Adc with
+        {
+            PinLeakageAmperes = nominal.Adc.PinLeakageAmperes * (1 + Dev(ToleranceKind.Leakage)),
+            PinLeakageSigned = true,
+        };
         var buffer = nominal.Buffer is { } b
             ? b with
             {
                 OffsetVolts = Bound(ToleranceKind.BufferOffset, b.OffsetVolts),
                 OffsetDriftVoltsPerKelvin = Bound(ToleranceKind.BufferDrift, b.OffsetDriftVoltsPerKelvin),
                 BiasCurrentAmperes = Bound(ToleranceKind.BufferBias, b.BiasCurrentAmperes),
+                OffsetSigned = true,
+                OffsetDriftSigned = true,
+                BiasCurrentSigned = true,
             }
             : null;
         var design = nominal with
@@ -50,7 +59,7 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
         var tempco = nominal.Adc.IsRatiometric ? 0 : Bound(ToleranceKind.ReferenceTempco, nominal.Adc.ReferenceTempcoPerKelvin);
         var errors = new ConverterErrors(Bound(ToleranceKind.AdcOffset, nominal.Adc.OffsetErrorLsb),
             Bound(ToleranceKind.AdcGain, nominal.Adc.GainError), Dev(ToleranceKind.AdcInl));
-        return new BuiltUnit(design, sensor, new Converter(nominal.Adc.Bits, reference, tempco, [errors]));
+        return new BuiltUnit(design, sensor, new Converter(nominal.Adc.Bits, reference, tempco, [errors], TempcoIsBound: false));
     }
 
     /// <summary>The unit's sensor model: R0 and β scaled (Beta), the whole curve scaled (Steinhart–Hart, table), or shifted in its class band (RTD).</summary>

@@ -28,9 +28,10 @@ internal sealed class ToleranceSet
     {
         var d = ToleranceDistribution.Of(design.Tolerances);
         var list = new List<ToleranceParameter>();
-        void Add(ToleranceKind kind, string key, double halfWidth, string unit)
+        void Add(ToleranceKind kind, string key, double halfWidth, string unit, bool signed = false)
         {
-            if (halfWidth != 0) list.Add(new ToleranceParameter(kind, key, Math.Abs(halfWidth), unit, d));
+            // A value written with its sign is known, not spread: every unit has it as written.
+            if (halfWidth != 0 && !signed) list.Add(new ToleranceParameter(kind, key, Math.Abs(halfWidth), unit, d));
         }
 
         switch (design.Sensor)
@@ -51,22 +52,22 @@ internal sealed class ToleranceSet
         }
         var divider = design.Divider;
         Add(ToleranceKind.FixedResistance, "divider.fixed_tolerance", divider.FixedTolerance, "");
-        Add(ToleranceKind.FixedTempco, "divider.fixed_tempco", divider.FixedTempcoPerKelvin, "1/K");
+        Add(ToleranceKind.FixedTempco, "divider.fixed_tempco", divider.FixedTempcoPerKelvin, "1/K", divider.FixedTempcoSigned);
         Add(ToleranceKind.Excitation, "divider.excitation_tolerance", divider.ExcitationTolerance, "");
         var adc = design.Adc;
         if (!adc.IsRatiometric)
         {
             Add(ToleranceKind.Reference, "adc.reference_tolerance", adc.ReferenceTolerance, "");
-            Add(ToleranceKind.ReferenceTempco, "adc.reference_tempco", adc.ReferenceTempcoPerKelvin, "1/K");
+            Add(ToleranceKind.ReferenceTempco, "adc.reference_tempco", adc.ReferenceTempcoPerKelvin, "1/K", adc.ReferenceTempcoSigned);
         }
-        Add(ToleranceKind.AdcOffset, "adc.offset_error", adc.OffsetErrorLsb, "LSB");
-        Add(ToleranceKind.AdcGain, "adc.gain_error", adc.GainError, "");
+        Add(ToleranceKind.AdcOffset, "adc.offset_error", adc.OffsetErrorLsb, "LSB", adc.OffsetErrorSigned);
+        Add(ToleranceKind.AdcGain, "adc.gain_error", adc.GainError, "", adc.GainErrorSigned);
         Add(ToleranceKind.AdcInl, "adc.inl", adc.InlLsb, "LSB");
         if (design.Buffer is { } buffer)
         {
-            Add(ToleranceKind.BufferOffset, "buffer.offset_voltage", buffer.OffsetVolts, "V");
-            Add(ToleranceKind.BufferDrift, "buffer.offset_drift", buffer.OffsetDriftVoltsPerKelvin, "V/K");
-            Add(ToleranceKind.BufferBias, "buffer.bias_current", buffer.BiasCurrentAmperes, "A");
+            Add(ToleranceKind.BufferOffset, "buffer.offset_voltage", buffer.OffsetVolts, "V", buffer.OffsetSigned);
+            Add(ToleranceKind.BufferDrift, "buffer.offset_drift", buffer.OffsetDriftVoltsPerKelvin, "V/K", buffer.OffsetDriftSigned);
+            Add(ToleranceKind.BufferBias, "buffer.bias_current", buffer.BiasCurrentAmperes, "A", buffer.BiasCurrentSigned);
         }
         if (adc.PinLeakageAmperes != 0)
             Add(ToleranceKind.Leakage, "tolerances.leakage_spread", design.Tolerances.LeakageSpread, "");

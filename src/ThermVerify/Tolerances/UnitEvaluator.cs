@@ -33,8 +33,8 @@ internal sealed class UnitEvaluator
         Cases = PrechargeCases.For(design, Model.Adc.ReferenceVolts);
         NominalUnitDesign = BuiltUnit.Build(design, Model.Sensor, Set, new double[Set.Count]).Design;
         var indices = SettlingGrid.Indices(Temperatures.Length, maximumSamplingPoints ?? new CheckOptions().MaximumSamplingPoints);
-        var dc = DcLevels.Run(NominalUnitDesign, Cases, Temperatures);
-        nominalOffsets = SamplingOffsets.Run(NominalUnitDesign, Cases, Temperatures, indices, dc, SettleVolts, threads, cancel, BuiltInEngine.Instance);
+        var dc = DcCorners.Run(NominalUnitDesign, Cases, Temperatures);
+        nominalOffsets = SamplingOffsets.Run(NominalUnitDesign, Cases, Temperatures, indices, dc.Base, SettleVolts, threads, cancel, BuiltInEngine.Instance);
     }
 
     public FrontEndDesign Design { get; }
@@ -60,7 +60,7 @@ internal sealed class UnitEvaluator
     {
         var unit = BuiltUnit.Build(Design, Model.Sensor, Set, deviations);
         var n = Temperatures.Length;
-        var dc = DcLevels.Run(unit.Design, Cases, Temperatures);
+        var dc = DcCorners.Run(unit.Design, Cases, Temperatures);
         var inputs = ErrorModel.Inputs(unit.Design, unit.Sensor, Temperatures, dc, nominalOffsets.FirstVolts, nominalOffsets.SteadyVolts, unit.Converter);
         var error = new double[n];
         var unquantised = new double[n];
@@ -74,7 +74,7 @@ internal sealed class UnitEvaluator
         double? simulatedAt = null;
         if (simulateSettling)
         {
-            var offsets = nominalOffsets.WithPoint(unit.Design, Temperatures, worst, dc, SettleVolts, Cancel, BuiltInEngine.Instance, rerun: true);
+            var offsets = nominalOffsets.WithPoint(unit.Design, Temperatures, worst, dc.Base, SettleVolts, Cancel, BuiltInEngine.Instance, rerun: true);
             var rerun = inputs with { FirstOffsetVolts = offsets.FirstVolts, SteadyOffsetVolts = offsets.SteadyVolts };
             var (reading, exact) = ErrorModel.WorstAt(rerun, worst, Reading);
             (error[worst], unquantised[worst]) = (reading.ErrorKelvin, exact);
@@ -82,7 +82,7 @@ internal sealed class UnitEvaluator
             worst = ErrorModel.WorstIndex(error);
         }
 
-        var rise = SelfHeating.RiseKelvin(unit.Design, SelfHeating.PowerWatts(unit.Design, unit.Sensor, Temperatures, dc.DividerVolts));
+        var rise = SelfHeating.RiseKelvin(unit.Design, SelfHeating.PowerWatts(unit.Design, unit.Sensor, Temperatures, dc.Base.DividerVolts));
         var within = true;
         for (var i = 0; i < n; i++)
             within &= double.IsFinite(error[i]) && Math.Abs(error[i]) <= Budgets[i];

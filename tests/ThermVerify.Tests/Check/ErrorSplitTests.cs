@@ -60,8 +60,9 @@ public class ErrorSplitTests
     [Fact]
     public void Pin_leakage_is_dc_loading_and_nothing_else()
     {
-        // Ohm's law: 2 µA into the pin pulls it down by I·(R_s ∥ R_f); the board at 25 °C holds the leakage constant.
-        var result = FrontEndCheck.Run(TestDesign.Make(("adc.pin_leakage", "\"2 uA\""), ("check.board_temperature", "\"25 degC\"")), Options);
+        // Ohm's law: 2 µA into the pin (written with its sign) pulls it down by I·(R_s ∥ R_f); the board at 25 °C holds
+        // the leakage constant.
+        var result = FrontEndCheck.Run(TestDesign.Make(("adc.pin_leakage", "\"+2 uA\""), ("check.board_temperature", "\"25 degC\"")), Options);
         OnlyIn(result, "dc-loading",
             p => Celsius(Volts(p.Celsius) - 2e-6 * Ohms(p.Celsius) * 10e3 / (Ohms(p.Celsius) + 10e3)) - p.Celsius, 1e-4);
     }
@@ -69,8 +70,8 @@ public class ErrorSplitTests
     [Fact]
     public void Converter_offset_is_the_converter_column()
     {
-        // IEEE Std 1241: an offset error of 3 LSB shifts every code by 3; the firmware reads 3·Q more.
-        var result = FrontEndCheck.Run(TestDesign.Make(("adc.offset_error", "\"3 LSB\"")), Options);
+        // IEEE Std 1241: an offset error of +3 LSB shifts every code by 3; the firmware reads 3·Q more.
+        var result = FrontEndCheck.Run(TestDesign.Make(("adc.offset_error", "\"+3 LSB\"")), Options);
         OnlyIn(result, "converter", p => Celsius(Volts(p.Celsius) + 3 * 3.3 / 4096) - p.Celsius, 1e-4);
     }
 
@@ -79,8 +80,28 @@ public class ErrorSplitTests
     {
         // A follower whose offset drifts 200 µV/K with the unit (no board temperature): G·D·(T − 25 °C) at the pin, less
         // the follower's finite-gain error V/A (A = 1e6 here: under 3.3 µV, 0.0001 K).
-        var result = FrontEndCheck.Run(Buffer.BufferDesigns.Follower(("buffer.offset_drift", "\"200 uV/K\"")), Options);
+        var result = FrontEndCheck.Run(Buffer.BufferDesigns.Follower(("buffer.offset_drift", "\"+200 uV/K\"")), Options);
         OnlyIn(result, "buffer-static", p => Celsius(Volts(p.Celsius) + 200e-6 * (p.Celsius - 25)) - p.Celsius, 2e-4);
+    }
+
+    [Fact]
+    public void A_value_written_without_a_sign_is_a_bound_read_at_the_worse_sign()
+    {
+        // "3 LSB" is a datasheet bound: at each temperature the check reads the code shifted by +3 or −3, whichever gives
+        // the larger |reported − true|, and says which corner it took.
+        var result = FrontEndCheck.Run(TestDesign.Make(("adc.offset_error", "\"3 LSB\"")), Options);
+        foreach (var p in result.Points)
+        {
+            double Error(double shiftLsb)
+            {
+                var code = (int)Math.Floor((Volts(p.Celsius) / (3.3 / 4096)) + shiftLsb + 0.5);
+                return Celsius(code * 3.3 / 4096) - p.Celsius;
+            }
+            var up = Error(3);
+            var down = Error(-3);
+            Tolerance.AssertClose(Math.Max(Math.Abs(up), Math.Abs(down)), Math.Abs(p.ErrorKelvin), 0, 1e-9, $"worse sign at {p.Celsius} °C");
+            Assert.Equal(Math.Abs(up) >= Math.Abs(down) ? "bounds up" : "bounds down", p.Corner);
+        }
     }
 
     [Fact]

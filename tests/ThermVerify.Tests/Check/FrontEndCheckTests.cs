@@ -31,7 +31,7 @@ public class FrontEndCheckTests
     {
         // Ohm's law: a constant leakage I into the pin moves it by −I·R_th, R_th = R_sensor ∥ R_fixed.
         const double leakage = 200e-9;
-        var design = TestDesign.Make(("adc.pin_leakage", "\"200 nA\""), ("check.board_temperature", "\"25 degC\""));
+        var design = TestDesign.Make(("adc.pin_leakage", "\"+200 nA\""), ("check.board_temperature", "\"25 degC\""));
         var result = FrontEndCheck.Run(design);
         foreach (var p in result.Points)
         {

@@ -13,12 +13,28 @@ namespace ThermVerify.Tests.Tolerances;
 /// </summary>
 public class OneModelTests
 {
-    /// <summary>The nominal unit written out by hand from the design: every bound the tolerance analyses spread about zero, at zero.</summary>
+    /// <summary>
+    /// The nominal unit written out by hand from the design: every bound the tolerance analyses spread about zero (a
+    /// value written without a sign) at zero; values written with a sign stay.
+    /// </summary>
     private static FrontEndDesign NominalUnit(FrontEndDesign d) => d with
     {
-        Divider = d.Divider with { FixedTempcoPerKelvin = 0 },
-        Adc = d.Adc with { OffsetErrorLsb = 0, GainError = 0, InlLsb = 0, ReferenceTempcoPerKelvin = 0 },
-        Buffer = d.Buffer is { } b ? b with { OffsetVolts = 0, OffsetDriftVoltsPerKelvin = 0, BiasCurrentAmperes = 0 } : null,
+        Divider = d.Divider with { FixedTempcoPerKelvin = d.Divider.FixedTempcoSigned ? d.Divider.FixedTempcoPerKelvin : 0 },
+        Adc = d.Adc with
+        {
+            OffsetErrorLsb = d.Adc.OffsetErrorSigned ? d.Adc.OffsetErrorLsb : 0,
+            GainError = d.Adc.GainErrorSigned ? d.Adc.GainError : 0,
+            InlLsb = 0,
+            ReferenceTempcoPerKelvin = d.Adc.ReferenceTempcoSigned ? d.Adc.ReferenceTempcoPerKelvin : 0,
+        },
+        Buffer = d.Buffer is { } b
+            ? b with
+            {
+                OffsetVolts = b.OffsetSigned ? b.OffsetVolts : 0,
+                OffsetDriftVoltsPerKelvin = b.OffsetDriftSigned ? b.OffsetDriftVoltsPerKelvin : 0,
+                BiasCurrentAmperes = b.BiasCurrentSigned ? b.BiasCurrentAmperes : 0,
+            }
+            : null,
     };
 
     [Theory]

@@ -33,7 +33,7 @@ internal sealed class FindingProbe(string findingId, double celsius, PrechargeCa
                 false => Math.Abs(e.Offsets.SteadyVolts[0][0]),
                 _ => Math.Max(Math.Abs(e.Offsets.FirstVolts[0][0]), Math.Abs(e.Offsets.SteadyVolts[0][0])),
             },
-            "reservoir-recovery" => Math.Abs(e.Dc.AveragePinVolts[0][0] - e.Dc.StaticPinVolts[0]),
+            "reservoir-recovery" => Math.Abs(e.Dc.Base.AveragePinVolts[0][0] - e.Dc.Base.StaticPinVolts[0]),
             "dc-loading" => Math.Abs(p.Simulated.DcLoadingVolts),
             "buffer-static" => Math.Abs(p.Simulated.BufferVolts),
             "self-heating" => Math.Abs(p.Simulated.SelfHeatingVolts),
@@ -51,7 +51,7 @@ internal sealed class FindingProbe(string findingId, double celsius, PrechargeCa
     {
         var q = e.Model.Adc.LsbVolts;
         var worst = 0.0;
-        for (var k = 0; k < e.Inputs.ConverterCases.Count; k++)
+        for (var k = 0; k < e.Inputs.CornerCount; k++)
             worst = Math.Max(worst, Math.Abs(e.Inputs.UnroundedCode(0, p.SampleVolts, k) * q - p.SampleVolts));
         return worst;
     }
