@@ -71,11 +71,16 @@ internal sealed class CheckEvaluation
         return new CheckEvaluation(design, model, reading, temperatures, cases, dc, offsets, Converter.Of(design), settleVolts, kinds ?? SampleKinds.Both);
     }
 
-    /// <summary>The same evaluation with a sampling transient at the worst temperature (every case) when the grid did not simulate it there.</summary>
+    /// <summary>
+    /// The same evaluation with a sampling transient at the worst temperature, for its worst reading's precharge case
+    /// and sample, when the grid did not simulate it there (as every unit of the tolerance analyses does).
+    /// </summary>
     public CheckEvaluation Refined(CheckOptions options)
     {
         var worst = ErrorModel.WorstIndex([.. Points.Select(p => p.ErrorKelvin)]);
-        var offsets = Offsets.WithPoint(StaticBounds.Zeroed(Design), Temperatures, worst, Dc.Base, SettleVolts, options.Cancel, options.Engine);
+        var (choice, _) = ErrorModel.WorstAt(Inputs, worst, Reading);
+        var offsets = Offsets.WithPoint(StaticBounds.Zeroed(Design), Temperatures, worst, Dc.Base, SettleVolts, options.Cancel, options.Engine,
+            choice.Case, choice.First);
         return ReferenceEquals(offsets, Offsets) ? this
             : new CheckEvaluation(Design, Model, Reading, Temperatures, Cases, Dc, offsets, Converter, SettleVolts, Kinds);
     }

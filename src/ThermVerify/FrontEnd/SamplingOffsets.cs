@@ -54,26 +54,33 @@ internal sealed record SamplingOffsets(
         new(cases, [], [], [.. cases.Select(_ => new double[points])], [.. cases.Select(_ => new double[points])]);
 
     /// <summary>
-    /// The offsets with a sampling transient at point <paramref name="index"/> for every case: no change when it was
-    /// simulated already, unless <paramref name="rerun"/> (another unit's parts in <paramref name="design"/>).
+    /// The offsets with a sampling transient at point <paramref name="index"/> for the reading that is worst there: its
+    /// precharge case <paramref name="precharge"/>, and the first conversion alone (one conversion) when that reading is
+    /// a first conversion, else the run to the steady state. No change when the point was simulated already, unless
+    /// <paramref name="rerun"/> (another unit's parts in <paramref name="design"/>).
     /// </summary>
     public SamplingOffsets WithPoint(FrontEndDesign design, IReadOnlyList<double> temperatures, int index, DcLevels dc, double settleVolts,
-        CancellationToken cancel, ICheckEngine engine, bool rerun = false)
+        CancellationToken cancel, ICheckEngine engine, int precharge, bool firstOnly, bool rerun = false)
     {
         if (!rerun && SimulatedIndices.Contains(index)) return this;
         var outcomes = Outcomes.ToList();
         var first = FirstVolts.Select(a => (double[])a.Clone()).ToArray();
         var steady = SteadyVolts.Select(a => (double[])a.Clone()).ToArray();
-        for (var c = 0; c < Cases.Count; c++)
+        var pre = Cases[precharge].Volts;
+        var t = temperatures[index];
+        double firstSample;
+        if (firstOnly)
+            firstSample = design.Divider.SwitchOnLeadSeconds is null
+                ? SamplingRun.FirstSampleVolts(design, t, pre, settleVolts, engine)
+                : SwitchOnSettling.FirstSampleVolts(design, t, pre, settleVolts, engine);
+        else
         {
-            var pre = Cases[c].Volts;
-            var run = SamplingRun.Run(design, temperatures[index], pre, settleVolts, cancel: cancel, engine: engine);
+            var run = SamplingRun.Run(design, t, pre, settleVolts, cancel: cancel, engine: engine);
             outcomes.Add(run);
-            var firstSample = design.Divider.SwitchOnLeadSeconds is null ? run.FirstVolts
-                : SwitchOnSettling.FirstSampleVolts(design, temperatures[index], pre, settleVolts, engine);
-            first[c][index] = firstSample - dc.StaticPinVolts[index];
-            steady[c][index] = run.SteadyVolts - dc.AveragePinVolts[c][index];
+            firstSample = design.Divider.SwitchOnLeadSeconds is null ? run.FirstVolts : SwitchOnSettling.FirstSampleVolts(design, t, pre, settleVolts, engine);
+            steady[precharge][index] = run.SteadyVolts - dc.AveragePinVolts[precharge][index];
         }
+        first[precharge][index] = firstSample - dc.StaticPinVolts[index];
         return this with { SimulatedIndices = [.. SimulatedIndices.Append(index).Distinct()], Outcomes = outcomes, FirstVolts = first, SteadyVolts = steady };
     }
 

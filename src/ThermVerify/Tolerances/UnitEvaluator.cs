@@ -11,7 +11,8 @@ namespace ThermVerify.Tolerances;
 /// fixed-resistor drift), the sampling offsets of the first and steady sample for each precharge case, the sensor's
 /// self-heating, and the unit's converter (its reference, offset, gain error and INL bow); the firmware reads the code
 /// with the nominal model. The sampling offsets start from the nominal unit's transients (on the same grid as `check`,
-/// linear between grid points); at the unit's worst temperature the sampling transient is rerun with the unit's own
+/// linear between grid points); at the unit's worst temperature the sampling transient of its worst reading (that
+/// precharge case; the first conversion alone when the reading is a first conversion) is rerun with the unit's own
 /// parts and replaces them, as `check` adds one at its worst temperature. The nominal unit is the design with every
 /// bound spread about zero (<see cref="NominalUnitDesign"/>); `check` of that design gives the nominal unit's errors
 /// exactly. Thread-safe: the nominal part is computed once in the constructor.
@@ -74,7 +75,9 @@ internal sealed class UnitEvaluator
         double? simulatedAt = null;
         if (simulateSettling)
         {
-            var offsets = nominalOffsets.WithPoint(unit.Design, Temperatures, worst, dc.Base, SettleVolts, Cancel, BuiltInEngine.Instance, rerun: true);
+            var (choice, _) = ErrorModel.WorstAt(inputs, worst, Reading);
+            var offsets = nominalOffsets.WithPoint(unit.Design, Temperatures, worst, dc.Base, SettleVolts, Cancel, BuiltInEngine.Instance,
+                choice.Case, choice.First, rerun: true);
             var rerun = inputs with { FirstOffsetVolts = offsets.FirstVolts, SteadyOffsetVolts = offsets.SteadyVolts };
             var (reading, exact) = ErrorModel.WorstAt(rerun, worst, Reading);
             (error[worst], unquantised[worst]) = (reading.ErrorKelvin, exact);

@@ -14,7 +14,7 @@ internal static class EmbeddingExample
         foreach (var finding in run.Result.Findings)
             output.WriteLine($"  {finding.Severity}: {finding.Id} ({finding.SizeKelvin:+0.000;-0.000} K)");
 
-        var json = ThermVerify.Reporting.CheckJson.Write(run.Result, designPath); // the same document as `check --json`
+        var json = ThermVerify.Reporting.CheckJson.Write(run.Result, Path.GetFileName(designPath)); // the same document as `check --json`
         output.WriteLine($"JSON: {json.Length} characters");
         return run.Passed ? 0 : 1;
     }
