@@ -19,7 +19,9 @@ internal sealed class FindingProbe(string findingId, double celsius, PrechargeCa
     /// <summary>The size of the finding in the changed design (NaN when it cannot be formed: no sensor reading there).</summary>
     public double Measure(FrontEndDesign design)
     {
-        var sampling = FindingId is "settling" or FindingRules.OverBudgetId;
+        if (FindingId == "buffer-noise")
+            return Buffer.BufferNoise.Run(design, [Celsius]).Worst.RmsVolts;
+        var sampling = FindingId is "settling" or "converter" or FindingRules.OverBudgetId;
         IReadOnlyList<PrechargeCase>? cases = precharge is null ? null : [precharge];
         SampleKinds? kinds = !sampling ? null : first switch { true => SampleKinds.FirstOnly, false => SampleKinds.SteadyOnly, _ => SampleKinds.Both };
         var e = CheckEvaluation.Run(design, [Celsius], options with { MaximumSamplingPoints = 2, Threads = 1 }, cases, kinds);
@@ -56,7 +58,8 @@ internal sealed class FindingProbe(string findingId, double celsius, PrechargeCa
         return worst;
     }
 
-    /// <summary>Whether a finding has a probe at all (the buffer's loop, headroom, recovery and noise are searched by their own analyses).</summary>
+    /// <summary>Whether a finding has a probe at all (the buffer's loop, headroom and recovery are searched by their own analyses).</summary>
     public static bool Supports(string findingId) =>
-        findingId is FindingRules.OverBudgetId or "settling" or "reservoir-recovery" or "dc-loading" or "buffer-static" or "self-heating" or "converter";
+        findingId is FindingRules.OverBudgetId or "settling" or "reservoir-recovery" or "dc-loading" or "buffer-static" or "self-heating" or "converter"
+            or "buffer-noise";
 }

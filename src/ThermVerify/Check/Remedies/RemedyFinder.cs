@@ -19,7 +19,7 @@ namespace ThermVerify.Check.Remedies;
 internal sealed class RemedyFinder
 {
     private const int ExtraRounds = 2;
-    private const int MaximumPairs = 6;
+    private const int MaximumPairs = 8;
 
     private readonly CheckResult original;
     private readonly CheckOptions options;
@@ -127,20 +127,30 @@ internal sealed class RemedyFinder
         // next searched; then the two largest removed and the next searched, and so on.
         var worst = SearchPoint(original, finding);
         var own = finding.Id == FindingRules.OverBudgetId ? [] : Knobs.For(finding.Id, Design, worst);
-        var removable = own.Where(k => k.Better == Better.Lower && k.Limit(Design) == 0 && k.Current(Design) is > 0).ToList();
+        // What a firmware calibration removes (offset, gain) goes before what it cannot (INL needs a code-by-code correction).
+        var removable = own.Where(k => k.Better == Better.Lower && k.Limit(Design) == 0 && k.Current(Design) is > 0)
+            .OrderBy(k => k == Knobs.AdcInl ? 1 : 0).ToList();
         for (var n = 1; n < own.Count && n <= removable.Count; n++)
         {
             var removed = removable.Take(n).ToList();
-            var design = removed.Aggregate(Design, (d, k) => k.Apply(d, 0));
+            var fixedChanges = removed.Select(k => (k, 0.0)).ToList();
+            if (pairs++ >= MaximumPairs) break;
+            // Where the finding now is largest, with those parts gone (or whether their removal alone clears it).
+            if (Check(fixedChanges) is not { } without) continue;
+            var together = removed.Skip(1).Select(k => Make(k, 0, without, finding.Id, "removed")).ToList();
+            if (Clears(without, finding.Id))
+                return Make(removed[0], 0, without, finding.Id, I($"{string.Join(" and ", removed.Select(k => k.Key))} removed")) with { Together = together };
+            if (without.Findings.FirstOrDefault(f => f.Id == finding.Id) is not { } still) continue;
             foreach (var b in own.Where(k => removed.All(r => r.Key != k.Key)))
             {
                 if (pairs++ >= MaximumPairs) break;
-                if (Search(finding, finding, worst, b, [.. removed.Select(k => (k, 0.0))], null) is not { } found) continue;
+                if (Search(finding, finding, SearchPoint(without, still), b, fixedChanges, null) is not { } found) continue;
                 var all = found.Check;
                 return Make(removed[0], 0, all, finding.Id, I($"{string.Join(" and ", removed.Select(k => k.Key))} removed, then {b.Key} searched"))
                     with { Together = [.. removed.Skip(1).Select(k => Make(k, 0, all, finding.Id, "removed")), Make(b, found.Value, all, finding.Id, Method(finding, found.At, b, found.Round))] };
             }
         }
+
         foreach (var a in tried.Where(a => a.Check is not null).DistinctBy(a => a.Knob.Key))
         {
             var changed = a.Knob.Apply(Design, a.Value);
@@ -170,9 +180,10 @@ internal sealed class RemedyFinder
         }
         if (FindingProbe.Supports(finding.Id))
         {
-            // The reading the finding was worst at: its precharge case, and for sampled quantities its sample.
-            var perCase = finding.Id is "settling" or "reservoir-recovery" or FindingRules.OverBudgetId;
-            var perSample = finding.Id is "settling" or FindingRules.OverBudgetId;
+            // The reading the finding was worst at: its precharge case, and for sampled quantities its sample (the
+            // converter's shift depends on the voltage it converts, which a failing settling moves far from the pin's).
+            var perCase = finding.Id is "settling" or "reservoir-recovery" or "converter" or FindingRules.OverBudgetId;
+            var perSample = finding.Id is "settling" or "converter" or FindingRules.OverBudgetId;
             var probe = new FindingProbe(finding.Id, at.Celsius, perCase ? at.Precharge : null, perSample ? at.FirstConversion : null, options);
             var target = probe.Target(Design);
             return KnobSearch.Find(knob, design, d => probe.Measure(d) <= target);
