@@ -123,8 +123,9 @@ internal static class ReportFormat
 
     private static string Signed(double kelvin) => N(kelvin, "+0.000;-0.000;0.000");
 
+    /// <summary>The design's settings and the precharge cases the check covered (the worst of them is each point's "reading").</summary>
     public static IEnumerable<(string Label, string Value)> Settings(CheckResult result) =>
-        Settings(result.Design, result.SensorDescription, result.Adc);
+        Settings(result.Design, result.SensorDescription, result.Adc).Append(("precharge", PrechargeLine(result)));
 
     /// <summary>The design in a few lines, for any report on it: sensor, divider, buffer, filter, ADC and the check's range and budget.</summary>
     public static IEnumerable<(string Label, string Value)> Settings(Design.FrontEndDesign d, string sensorDescription, AdcTransfer adc)

@@ -58,6 +58,11 @@ public class PrechargeWorstTests
         for (var i = 0; i < points.Count; i++)
             Assert.Equal(worst.Points[i].Precharge.Name, points[i].GetProperty("precharge").GetString());
 
+        // The report's settings say the same, and its points table names each temperature's reading.
+        var report = new CheckReport(worst, "test.toml", "", [], null, "test");
+        Assert.Contains("| precharge | worst: every case is checked (last-sample, 0 V, full scale 3.3 V)", CheckMarkdown.Render(report));
+        Assert.Contains("worst: every case is checked (last-sample, 0 V, full scale 3.3 V)", System.Net.WebUtility.HtmlDecode(CheckHtml.Render(report)));
+
         var single = Run("\"last-sample\"");
         Assert.Contains("precharge last-sample (last-sample: holding this channel's last sample)", CheckSummaryText.Render(single));
     }

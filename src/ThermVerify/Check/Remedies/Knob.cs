@@ -28,6 +28,12 @@ internal sealed record Knob(
     /// <summary>The words for bringing a signed value to zero (calibrating an offset out, a resistor with no tempco).</summary>
     public string? Removal { get; init; }
 
+    /// <summary>
+    /// A one-point calibration (firmware, or a trim at assembly) removes it: an offset, a gain error. In a combination
+    /// these go first, before the parts a calibration leaves (drift, INL).
+    /// </summary>
+    public bool Calibrated { get; init; }
+
     /// <summary>Whole numbers only (bits).</summary>
     public bool Integer { get; init; }
 

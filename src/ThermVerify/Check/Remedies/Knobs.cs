@@ -95,7 +95,7 @@ internal static class Knobs
         d => 1e9, "use an op-amp with a slew rate of at least");
 
     public static readonly Knob BufferOffset = Magnitude("buffer.offset_voltage", "V", d => d.Buffer!.OffsetVolts,
-        (d, v) => d with { Buffer = d.Buffer! with { OffsetVolts = v } }, "use an op-amp with an offset of at most");
+        (d, v) => d with { Buffer = d.Buffer! with { OffsetVolts = v } }, "use an op-amp with an offset of at most") with { Calibrated = true };
 
     public static readonly Knob BufferDrift = Magnitude("buffer.offset_drift", "V/K", d => d.Buffer!.OffsetDriftVoltsPerKelvin,
         (d, v) => d with { Buffer = d.Buffer! with { OffsetDriftVoltsPerKelvin = v } }, "use an op-amp with an offset drift of at most");
@@ -117,10 +117,10 @@ internal static class Knobs
         (d, v) => d with { Buffer = d.Buffer! with { OutputSwingVolts = v } }, "use an op-amp whose output swings to within, of each rail,");
 
     public static readonly Knob AdcOffset = Magnitude("adc.offset_error", "LSB", d => d.Adc.OffsetErrorLsb,
-        (d, v) => d with { Adc = d.Adc with { OffsetErrorLsb = v } }, "choose a converter (or calibrate) with an offset error of at most");
+        (d, v) => d with { Adc = d.Adc with { OffsetErrorLsb = v } }, "choose a converter (or calibrate) with an offset error of at most") with { Calibrated = true };
 
     public static readonly Knob AdcGain = Magnitude("adc.gain_error", "fraction", d => d.Adc.GainError,
-        (d, v) => d with { Adc = d.Adc with { GainError = v } }, "choose a converter (or calibrate) with a gain error of at most");
+        (d, v) => d with { Adc = d.Adc with { GainError = v } }, "choose a converter (or calibrate) with a gain error of at most") with { Calibrated = true };
 
     public static readonly Knob AdcInl = Magnitude("adc.inl", "LSB", d => d.Adc.InlLsb,
         (d, v) => d with { Adc = d.Adc with { InlLsb = v } }, "choose a converter with an INL of at most");

@@ -10,21 +10,23 @@ namespace ThermVerify.Check.Remedies;
 /// (<see cref="FindingProbe"/>); the value found, rounded to what the remedy prints, is put into a copy of the design
 /// and the copy is checked in full. The remedy is given only when that check no longer has the finding and has no
 /// failing finding the design did not already have. When the finding moves to another temperature the search is
-/// repeated there (at most twice more). When no single change clears it, the changes whose check left a new failing
-/// finding are combined with a change for that finding, and a pair is given when its check clears it; otherwise the
-/// finding says so. The over-budget finding reuses the proofs of the other findings where they also bring the total
-/// within budget, and searches the remaining changes in the order of the contributions at its worst point. Checks of
-/// the same changes are made once.
+/// repeated, held there and at every temperature searched before (at most three more times). When no single change
+/// clears it, the parts of one effect are combined (what a calibration removes first, the rest searched), and the
+/// changes whose check left a new failing finding are combined with a change for that finding; a combination is given
+/// when its check clears it, otherwise the finding says so. The over-budget finding reuses the proofs (single or
+/// combined) of the other findings where they also bring the total within budget, and searches the remaining changes
+/// in the order of the contributions at its worst point. Checks of the same changes are made once.
 /// </summary>
 internal sealed class RemedyFinder
 {
-    private const int ExtraRounds = 2;
+    private const int ExtraRounds = 3;
     private const int MaximumPairs = 8;
 
     private readonly CheckResult original;
     private readonly CheckOptions options;
     private readonly Dictionary<string, CheckResult?> checks = [];
     private readonly Dictionary<string, List<Attempt>> attempts = [];
+    private readonly List<Combination> combinations = [];
 
     private RemedyFinder(CheckResult original, CheckOptions options)
     {
@@ -49,6 +51,9 @@ internal sealed class RemedyFinder
     /// <summary>One change tried for a finding: the value and what the check of the changed design found.</summary>
     private sealed record Attempt(Knob Knob, double Value, CheckResult? Check);
 
+    /// <summary>A combination proven for a finding: its changes (with how each was found) and the check of all of them applied.</summary>
+    private sealed record Combination(string FindingId, IReadOnlyList<(Knob Knob, double Value, string Method)> Changes, CheckResult Check);
+
     private Finding Solve(Finding finding)
     {
         var worst = SearchPoint(original, finding);
@@ -63,7 +68,7 @@ internal sealed class RemedyFinder
             if (Single(finding, worst, knob, tried) is { } remedy) remedies.Add(remedy);
         }
         if (remedies.Count > 0) return finding with { Remedies = remedies };
-        if (Pair(finding, tried) is { } pair)
+        if ((Pair(finding, tried) ?? ReusedCombination(finding)) is { } pair)
             return finding with { Remedies = [pair], RemedyNote = "no single change clears it; the smallest combination found, checked with every change of it applied:" };
         return finding with
         {
@@ -84,6 +89,21 @@ internal sealed class RemedyFinder
         return null;
     }
 
+    /// <summary>For the over-budget finding: a combination already proven for another finding whose check also has every point within budget.</summary>
+    private Remedy? ReusedCombination(Finding finding)
+    {
+        if (finding.Id != FindingRules.OverBudgetId) return null;
+        foreach (var c in combinations.Where(c => Clears(c.Check, finding.Id)).OrderBy(c => c.Changes.Count))
+        {
+            var (knob, value, _) = c.Changes[0];
+            return Make(knob, value, c.Check, finding.Id, I($"the combination found for {c.FindingId}; its check also has every point within the budget")) with
+            {
+                Together = [.. c.Changes.Skip(1).Select(x => Make(x.Knob, x.Value, c.Check, finding.Id, x.Method))],
+            };
+        }
+        return null;
+    }
+
     private Remedy? Single(Finding finding, CheckPoint worst, Knob knob, List<Attempt> tried) =>
         Search(finding, finding, worst, knob, [], tried) is { } found
             ? Make(knob, found.Value, found.Check, finding.Id, Method(finding, found.At, knob, found.Round))
@@ -99,19 +119,21 @@ internal sealed class RemedyFinder
         IReadOnlyList<(Knob Knob, double Value)> fixedChanges, List<Attempt>? tried)
     {
         var design = fixedChanges.Aggregate(Design, (d, c) => c.Knob.Apply(d, c.Value));
-        var at = start;
+        // Every point searched so far stays in the search, the newest first: a finding that moves between
+        // neighbouring temperatures (a code step, a quantisation phase) is then held at all of them at once.
+        var points = new List<CheckPoint> { start };
         for (var round = 0; round <= ExtraRounds; round++)
         {
-            if (Value(target, at, knob, design) is not { } found) return null;
+            if (Value(target, points, knob, design) is not { } found) return null;
             var value = Rounded(knob, found);
             var check = Check([.. fixedChanges, (knob, value)]);
             tried?.Add(new Attempt(knob, value, check));
             if (check is null) return null;
-            if (Clears(check, addressed.Id)) return (value, check, at, round);
+            if (Clears(check, addressed.Id)) return (value, check, points[0], round);
             // Still there (elsewhere, or the rounding was not enough): search again from the new value where it now is worst.
             if (check.Findings.FirstOrDefault(f => f.Id == target.Id) is not { } still || !FindingProbe.Supports(target.Id)) return null;
             design = knob.Apply(design, value);
-            at = SearchPoint(check, still);
+            points.Insert(0, SearchPoint(check, still));
         }
         return null;
     }
@@ -126,10 +148,13 @@ internal sealed class RemedyFinder
         // Parts of one effect (the converter's offset, gain and INL): the largest removed (calibrated out), then the
         // next searched; then the two largest removed and the next searched, and so on.
         var worst = SearchPoint(original, finding);
-        var own = finding.Id == FindingRules.OverBudgetId ? [] : Knobs.For(finding.Id, Design, worst);
-        // What a firmware calibration removes (offset, gain) goes before what it cannot (INL needs a code-by-code correction).
+        // For the total, the parts of the effect that dominates at its worst point.
+        var own = finding.Id != FindingRules.OverBudgetId ? Knobs.For(finding.Id, Design, worst)
+            : FindingRules.ByContribution(worst.Contributions).FirstOrDefault() is { FindingId: var top } ? Knobs.For(top, Design, worst) : [];
+        // What a calibration removes (an offset, a gain error) goes before what it leaves (drift; INL needs a
+        // code-by-code correction); otherwise the dominant part first.
         var removable = own.Where(k => k.Better == Better.Lower && k.Limit(Design) == 0 && k.Current(Design) is > 0)
-            .OrderBy(k => k == Knobs.AdcInl ? 1 : 0).ToList();
+            .OrderBy(k => k.Calibrated ? 0 : 1).ToList();
         for (var n = 1; n < own.Count && n <= removable.Count; n++)
         {
             var removed = removable.Take(n).ToList();
@@ -137,17 +162,16 @@ internal sealed class RemedyFinder
             if (pairs++ >= MaximumPairs) break;
             // Where the finding now is largest, with those parts gone (or whether their removal alone clears it).
             if (Check(fixedChanges) is not { } without) continue;
-            var together = removed.Skip(1).Select(k => Make(k, 0, without, finding.Id, "removed")).ToList();
+            var names = string.Join(" and ", removed.Select(k => k.Key));
             if (Clears(without, finding.Id))
-                return Make(removed[0], 0, without, finding.Id, I($"{string.Join(" and ", removed.Select(k => k.Key))} removed")) with { Together = together };
+                return Combined(finding.Id, [(removed[0], 0, I($"{names} removed")), .. removed.Skip(1).Select(k => (k, 0.0, "removed"))], without);
             if (without.Findings.FirstOrDefault(f => f.Id == finding.Id) is not { } still) continue;
             foreach (var b in own.Where(k => removed.All(r => r.Key != k.Key)))
             {
                 if (pairs++ >= MaximumPairs) break;
                 if (Search(finding, finding, SearchPoint(without, still), b, fixedChanges, null) is not { } found) continue;
-                var all = found.Check;
-                return Make(removed[0], 0, all, finding.Id, I($"{string.Join(" and ", removed.Select(k => k.Key))} removed, then {b.Key} searched"))
-                    with { Together = [.. removed.Skip(1).Select(k => Make(k, 0, all, finding.Id, "removed")), Make(b, found.Value, all, finding.Id, Method(finding, found.At, b, found.Round))] };
+                return Combined(finding.Id, [(removed[0], 0, I($"{names} removed, then {b.Key} searched")), .. removed.Skip(1).Select(k => (k, 0.0, "removed")),
+                    (b, found.Value, Method(finding, found.At, b, found.Round))], found.Check);
             }
         }
 
@@ -162,16 +186,30 @@ internal sealed class RemedyFinder
                 {
                     if (pairs++ >= MaximumPairs) return null;
                     if (Search(finding, g, gWorst, b, [(a.Knob, a.Value)], null) is not { } found) continue;
-                    return Make(a.Knob, a.Value, found.Check, finding.Id, I($"for {finding.Id}, then {b.Key} for the {g.Id} it leaves"))
-                        with { Together = [Make(b, found.Value, found.Check, g.Id, Method(g, found.At, b, found.Round))] };
+                    return Combined(finding.Id, [(a.Knob, a.Value, I($"for {finding.Id}, then {b.Key} for the {g.Id} it leaves")),
+                        (b, found.Value, Method(g, found.At, b, found.Round))], found.Check);
                 }
             }
         }
         return null;
     }
 
-    /// <summary>The value a knob needs for a finding at a point: bisection on the finding's quantity; the resolution and the buffer's own searches otherwise.</summary>
-    private double? Value(Finding finding, CheckPoint at, Knob knob, FrontEndDesign design)
+    /// <summary>A proven combination as one remedy (the first change, the others together with it), kept for the over-budget finding to reuse.</summary>
+    private Remedy Combined(string findingId, IReadOnlyList<(Knob Knob, double Value, string Method)> changes, CheckResult check)
+    {
+        combinations.Add(new Combination(findingId, changes, check));
+        var (knob, value, method) = changes[0];
+        return Make(knob, value, check, findingId, method) with
+        {
+            Together = [.. changes.Skip(1).Select(c => Make(c.Knob, c.Value, check, findingId, c.Method))],
+        };
+    }
+
+    /// <summary>
+    /// The value a knob needs for a finding at its points: bisection on the finding's quantity, held within its target
+    /// at every point; the resolution and the buffer's own searches otherwise.
+    /// </summary>
+    private double? Value(Finding finding, IReadOnlyList<CheckPoint> at, Knob knob, FrontEndDesign design)
     {
         if (finding.Id == "resolution" && knob == Knobs.Bits)
         {
@@ -184,9 +222,9 @@ internal sealed class RemedyFinder
             // converter's shift depends on the voltage it converts, which a failing settling moves far from the pin's).
             var perCase = finding.Id is "settling" or "reservoir-recovery" or "converter" or FindingRules.OverBudgetId;
             var perSample = finding.Id is "settling" or "converter" or FindingRules.OverBudgetId;
-            var probe = new FindingProbe(finding.Id, at.Celsius, perCase ? at.Precharge : null, perSample ? at.FirstConversion : null, options);
-            var target = probe.Target(Design);
-            return KnobSearch.Find(knob, design, d => probe.Measure(d) <= target);
+            var probes = at.Select(p => new FindingProbe(finding.Id, p.Celsius, perCase ? p.Precharge : null, perSample ? p.FirstConversion : null, options))
+                .Select(p => (Probe: p, Target: p.Target(Design))).ToList();
+            return KnobSearch.Find(knob, design, d => probes.All(p => p.Probe.Measure(d) <= p.Target));
         }
         // The buffer's loop, recovery and headroom have their own searches; their value is the one to prove.
         return finding.Remedies.FirstOrDefault(r => r.Key == knob.Key)?.Value;
