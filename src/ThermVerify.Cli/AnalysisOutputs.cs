@@ -5,14 +5,15 @@ using ThermVerify.Reporting;
 namespace ThermVerify.Cli;
 
 /// <summary>
-/// The --json, --report and --force options the tolerance commands share. Existing outputs are refused before the
-/// analysis runs (a Monte Carlo run is not thrown away at the end) and written through AtomicFile.
+/// The --json, --report and --force options the analysis commands share. A command declares its outputs in one
+/// <see cref="OutputSet"/> before the work (so a refusal costs nothing: a Monte Carlo run is not thrown away at the
+/// end) and writes the set after it; the contents are rendered only then.
 /// </summary>
 internal sealed class AnalysisOutputs
 {
     private readonly Option<FileInfo?> json = new("--json") { Description = "also write every number as JSON (schema in docs/json-output.md)" };
     private readonly Option<DirectoryInfo?> report = new("--report") { Description = "write report.html (self-contained), report.md and plots/ (PNG, SVG) into this folder" };
-    private readonly Option<bool> force = new("--force") { Description = "replace an existing --json file or report in the --report folder" };
+    private readonly Option<bool> force = new("--force") { Description = "replace existing output files (--json, --csv, the --report folder's report)" };
 
     public static AnalysisOutputs AddTo(Command command)
     {
@@ -23,26 +24,23 @@ internal sealed class AnalysisOutputs
         return outputs;
     }
 
-    public void EnsureWritable(ParseResult parsed)
+    /// <summary>A set for this run's outputs, replacing files only with --force.</summary>
+    public OutputSet NewSet(ParseResult parsed) => new(parsed.GetValue(force));
+
+    /// <summary>Adds --json and --report to <paramref name="set"/>; the report is built only when the set is written (its figures take a moment).</summary>
+    public void Declare(ParseResult parsed, OutputSet set, Func<string> document, Func<AnalysisReport> page)
     {
-        var overwrite = parsed.GetValue(force);
-        if (parsed.GetValue(json) is { } file && !overwrite && file.Exists)
-            throw new OutputExistsException($"{file} exists already; pass --force to replace it");
+        if (parsed.GetValue(json) is { } file)
+            set.Add(file.ToString(), document);
         if (parsed.GetValue(report) is { } folder)
-            ReportDirectory.EnsureWritable(folder.FullName, overwrite);
+            set.AddFolder(folder.ToString(), () => ReportDirectory.Files(page()), ReportDirectory.ExpectedFiles);
     }
 
-    /// <summary>Writes what was asked for; the report is built only then (its figures take a moment).</summary>
-    public void Write(ParseResult parsed, Func<string> document, Func<AnalysisReport> page)
+    /// <summary>Says where the report went, after the set was written.</summary>
+    public void Announce(ParseResult parsed)
     {
-        var overwrite = parsed.GetValue(force);
-        if (parsed.GetValue(json) is { } file)
-            AtomicFile.WriteAllText(file.FullName, document(), overwrite);
         if (parsed.GetValue(report) is { } folder)
-        {
-            ReportDirectory.Write(page(), folder.FullName, overwrite);
             parsed.InvocationConfiguration.Output.WriteLine(
                 $"report: {Path.Combine(folder.ToString(), ReportDirectory.HtmlFile)}, {Path.Combine(folder.ToString(), ReportDirectory.MarkdownFile)}");
-        }
     }
 }

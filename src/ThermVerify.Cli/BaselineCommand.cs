@@ -26,18 +26,20 @@ internal static class BaselineCommand
         {
             design, outFile, force, threads,
         };
-        command.SetAction((parsed, cancel) =>
+        var work = WorkOptions.AddTo(command);
+        command.SetAction((parsed, interrupt) => work.Run(parsed, interrupt, cancel =>
         {
             var path = parsed.GetValue(design)!.FullName;
-            var target = parsed.GetValue(outFile)?.FullName ?? Baseline.DefaultPathFor(path);
+            var target = parsed.GetValue(outFile)?.ToString() ?? Baseline.DefaultPathFor(path);
+            Baseline? baseline = null;
             // Refuse before the simulations run rather than after.
-            if (!parsed.GetValue(force) && File.Exists(target))
-                throw new OutputExistsException($"{target} exists already; pass --force to replace it");
-            var (baseline, result) = Verifier.MakeBaseline(Verifier.LoadDesign(path), new CheckOptions { Threads = parsed.GetValue(threads), Cancel = cancel });
-            AtomicFile.WriteAllText(target, BaselineFile.ToJson(baseline), parsed.GetValue(force));
+            var outputs = new OutputSet(parsed.GetValue(force)).Add(target, () => BaselineFile.ToJson(baseline!));
+            outputs.CheckTargets();
+            (baseline, var result) = Verifier.MakeBaseline(Verifier.LoadDesign(path), new CheckOptions { Threads = parsed.GetValue(threads), Cancel = cancel });
+            outputs.Write();
             parsed.InvocationConfiguration.Output.Write(BaselineText.Render(target, baseline, result.Passed));
-            return Task.FromResult(ExitCodes.Success);
-        });
+            return ExitCodes.Success;
+        }));
         return command;
     }
 }

@@ -38,42 +38,40 @@ internal static class CheckCommand
         {
             design, json, threads, noRemedies, quiet, report, junit, baseline, force, samplingPoints, engine, process,
         };
+        var work = WorkOptions.AddTo(command);
         threads.Validators.Add(r =>
         {
-            if (r.GetValueOrDefault<int>() < 1) r.AddError("--threads must be at least 1");
+            if (r.GetValueOrDefault<int>() is < 1 or > 1024) r.AddError("--threads must be between 1 and 1024");
         });
         samplingPoints.Validators.Add(r =>
         {
             if (r.GetValueOrDefault<int>() < 2) r.AddError("--sampling-points must be at least 2 (both ends of the range)");
         });
-        command.SetAction((parsed, cancel) =>
+        command.SetAction((parsed, interrupt) => work.Run(parsed, interrupt, cancel =>
         {
-            var path = parsed.GetValue(design)!.FullName;
-            var loaded = DesignLoader.Load(path);
-            // Refuse to replace outputs before the work, not after it: a long run is not wasted on a refusal.
-            var overwrite = parsed.GetValue(force);
-            foreach (var file in new[] { parsed.GetValue(json), parsed.GetValue(junit) })
-                if (file is { Exists: true } && !overwrite)
-                    throw new OutputExistsException($"{file} exists already; pass --force to replace it");
-            if (parsed.GetValue(report) is { } folder)
-                ReportDirectory.EnsureWritable(folder.FullName, overwrite);
-            var chosen = EngineChoice.Create(parsed.GetValue(engine)!, parsed.GetValue(process));
-            var run = Verifier.Check(loaded, new CheckOptions
+            var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
+            var designPath = parsed.GetValue(design)!.ToString();
+            // Every output is declared and checked before the work, and written as one set after it.
+            CheckRun? run = null;
+            var outputs = new OutputSet(parsed.GetValue(force));
+            if (parsed.GetValue(json) is { } jsonFile)
+                outputs.Add(jsonFile.ToString(), () => CheckJson.Write(run!.Result, designPath));
+            if (parsed.GetValue(junit) is { } junitFile)
+                outputs.Add(junitFile.ToString(), () => CheckJUnit.Write(run!.Result, run.Baseline));
+            if (parsed.GetValue(report) is { } reportFolder)
+                outputs.AddFolder(reportFolder.ToString(), () => ReportDirectory.Files(CheckReport.Build(run!.Result, designPath, run.Baseline)),
+                    ReportDirectory.ExpectedFiles);
+            outputs.CheckTargets();
+            using var chosen = EngineChoice.Create(parsed.GetValue(engine)!, parsed.GetValue(process));
+            run = Verifier.Check(loaded, new CheckOptions
             {
                 Threads = parsed.GetValue(threads),
                 ComputeRemedies = !parsed.GetValue(noRemedies),
                 MaximumSamplingPoints = parsed.GetValue(samplingPoints),
                 Cancel = cancel,
-                Engine = chosen,
+                Engine = chosen.Engine,
             }, parsed.GetValue(baseline)?.FullName);
-
-            var designPath = parsed.GetValue(design)!.ToString();
-            if (parsed.GetValue(json) is { } jsonFile)
-                AtomicFile.WriteAllText(jsonFile.FullName, CheckJson.Write(run.Result, designPath), overwrite);
-            if (parsed.GetValue(junit) is { } junitFile)
-                AtomicFile.WriteAllText(junitFile.FullName, CheckJUnit.Write(run.Result, run.Baseline), overwrite);
-            if (parsed.GetValue(report) is { } reportFolder)
-                ReportDirectory.Write(CheckReport.Build(run.Result, designPath, run.Baseline), reportFolder.FullName, overwrite);
+            outputs.Write();
 
             var output = parsed.InvocationConfiguration.Output;
             output.Write(parsed.GetValue(quiet) ? CheckSummaryText.VerdictLine(run.Result) : CheckSummaryText.Render(run.Result));
@@ -81,9 +79,8 @@ internal static class CheckCommand
                 output.Write(parsed.GetValue(quiet) ? BaselineTable.Headline(comparison) + "\n" : "\n" + BaselineTable.Render(comparison));
             if (parsed.GetValue(report) is { } written)
                 output.WriteLine($"report: {Path.Combine(written.ToString(), ReportDirectory.HtmlFile)}, {Path.Combine(written.ToString(), ReportDirectory.MarkdownFile)}");
-            return Task.FromResult(run.Passed ? ExitCodes.Success : ExitCodes.CheckFailed);
-        });
+            return run.Passed ? ExitCodes.Success : ExitCodes.CheckFailed;
+        }));
         return command;
     }
-
 }

@@ -39,15 +39,22 @@ internal static class ChooseFixedCommand
             design, series, objective, at, min, max, top, threads,
         };
         var outputs = AnalysisOutputs.AddTo(command);
-        command.SetAction((parsed, cancel) =>
+        var work = WorkOptions.AddTo(command);
+        command.SetAction((parsed, interrupt) => work.Run(parsed, interrupt, cancel =>
         {
             var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
             var seriesName = parsed.GetValue(series)!;
             if (!ESeries.TryParse(seriesName, out var chosen))
                 throw new UsageException($"--series {seriesName}: not an IEC 60063 series; use E6, E12, E24, E48, E96 or E192.");
-            outputs.EnsureWritable(parsed);
+            IReadOnlyList<FixedResistorCandidate>? ranked = null;
+            FixedResistorSearchOptions? options = null;
+            var designPath = parsed.GetValue(design)!.ToString();
+            var set = outputs.NewSet(parsed);
+            outputs.Declare(parsed, set, () => FixedResistorJson.Write(ranked!, loaded, options!, designPath),
+                () => FixedResistorReport.Build(ranked!, loaded, options!, designPath, parsed.GetValue(top)));
+            set.CheckTargets();
             var goal = Objectives[parsed.GetValue(objective)!];
-            var options = new FixedResistorSearchOptions
+            options = new FixedResistorSearchOptions
             {
                 Series = chosen,
                 Objective = goal,
@@ -60,15 +67,14 @@ internal static class ChooseFixedCommand
             };
             if (options.MinimumOhms is { } minimum && options.MaximumOhms is { } maximum && !(minimum > 0 && maximum >= minimum))
                 throw new UsageException($"--min {parsed.GetValue(min)} and --max {parsed.GetValue(max)}: give a positive range with --min not above --max.");
-            var ranked = Verifier.ChooseFixed(loaded, options);
+            ranked = Verifier.ChooseFixed(loaded, options);
             if (ranked.Count == 0)
                 throw new UsageException($"No {chosen} value lies between the bounds; widen --min/--max or choose a finer series.");
+            set.Write();
             parsed.InvocationConfiguration.Output.Write(FixedResistorText.Render(loaded, chosen, goal, ranked, parsed.GetValue(top)));
-            var designPath = parsed.GetValue(design)!.ToString();
-            outputs.Write(parsed, () => FixedResistorJson.Write(ranked, loaded, options, designPath),
-                () => FixedResistorReport.Build(ranked, loaded, options, designPath, parsed.GetValue(top)));
-            return Task.FromResult(ExitCodes.Success);
-        });
+            outputs.Announce(parsed);
+            return ExitCodes.Success;
+        }));
         return command;
     }
 }

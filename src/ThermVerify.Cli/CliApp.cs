@@ -26,6 +26,7 @@ public static class CliApp
             MonteCarloCommand.Create(),
             ChooseFixedCommand.Create(),
             DeckCommand.Create(),
+            WatchCommand.Create(),
         };
         if (args.Length == 0)
         {
@@ -36,11 +37,17 @@ public static class CliApp
         if (parsed.Errors.Count > 0)
         {
             foreach (var parseError in parsed.Errors) error.WriteLine($"thermverify: {parseError.Message}");
+            foreach (var hint in Suggestions.For(parsed)) error.WriteLine($"thermverify: {hint}");
             error.WriteLine("Run 'thermverify --help' for the commands and their options.");
             return ExitCodes.BadInput;
         }
 
-        var configuration = new InvocationConfiguration { Output = output, Error = error, EnableDefaultExceptionHandler = false };
+        // Ctrl+C and SIGTERM cancel the run's token; every analysis observes it and cleans up (no temporary file, no
+        // ngspice folder or worker left), which takes far less than this generous wait before the process is ended anyway.
+        var configuration = new InvocationConfiguration
+        {
+            Output = output, Error = error, EnableDefaultExceptionHandler = false, ProcessTerminationTimeout = TimeSpan.FromSeconds(60),
+        };
         try
         {
             return parsed.Invoke(configuration);

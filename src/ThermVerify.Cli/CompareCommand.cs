@@ -17,17 +17,18 @@ internal static class CompareCommand
         var threads = new Option<int>("--threads") { Description = "simulations in parallel", DefaultValueFactory = _ => Environment.ProcessorCount };
         var noRemedies = new Option<bool>("--no-remedies") { Description = "skip the simulations that search for remedies" };
         var command = new Command("compare", "Check two designs and show them side by side with the same budget table.") { first, second, threads, noRemedies };
+        var work = WorkOptions.AddTo(command);
         threads.Validators.Add(r =>
         {
             if (r.GetValueOrDefault<int>() < 1) r.AddError("--threads must be at least 1");
         });
-        command.SetAction((parsed, cancel) =>
+        command.SetAction((parsed, interrupt) => work.Run(parsed, interrupt, cancel =>
         {
             var options = new CheckOptions { Threads = parsed.GetValue(threads), ComputeRemedies = !parsed.GetValue(noRemedies), Cancel = cancel };
             var pair = Verifier.Compare(Verifier.LoadDesign(parsed.GetValue(first)!.FullName), Verifier.LoadDesign(parsed.GetValue(second)!.FullName), options);
             parsed.InvocationConfiguration.Output.Write(ComparisonText.Render(pair.First, pair.Second));
-            return Task.FromResult(pair.BothPass ? ExitCodes.Success : ExitCodes.CheckFailed);
-        });
+            return pair.BothPass ? ExitCodes.Success : ExitCodes.CheckFailed;
+        }));
         return command;
     }
 }

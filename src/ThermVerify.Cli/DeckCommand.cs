@@ -18,19 +18,27 @@ internal static class DeckCommand
             DefaultValueFactory = _ => "dc",
         };
         analysis.AcceptOnlyFromAmong("dc", "tran", "ac", "noise");
-        var output = new Option<FileInfo?>("--out", "-o") { Description = "write the deck to this file (replaced atomically) instead of standard output" };
+        var output = new Option<FileInfo?>("--out", "-o") { Description = "write the deck to this file instead of standard output" };
+        var force = new Option<bool>("--force") { Description = "replace an existing --out file" };
         var temperature = new Option<double?>("--temperature") { Description = "circuit temperature in °C for tran, ac and noise (default: middle of the check range)" };
         var conversions = new Option<int>("--conversions") { Description = "conversions the sampling transient covers", DefaultValueFactory = _ => 16 };
         conversions.Validators.Add(r =>
         {
-            if (r.GetValueOrDefault<int>() < 1) r.AddError("--conversions must be at least 1");
+            if (r.GetValueOrDefault<int>() is < 1 or > 1_000_000) r.AddError("--conversions must be between 1 and 1000000");
         });
+        var bare = new Option<bool>("--bare") { Description = "only the netlist and its analysis, without the statements that make a batch run print the figures" };
         var command = new Command("deck", "Write a SPICE deck of the design for one analysis (runs in ngspice or any SPICE engine).")
         {
-            design, analysis, output, temperature, conversions,
+            design, analysis, output, temperature, conversions, bare, force,
         };
-        command.SetAction(parsed =>
+        var work = WorkOptions.AddTo(command);
+        command.SetAction((parsed, interrupt) => work.Run(parsed, interrupt, _ =>
         {
+            string? deck = null;
+            var outputs = new OutputSet(parsed.GetValue(force));
+            if (parsed.GetValue(output) is { } file)
+                outputs.Add(file.ToString(), () => deck!);
+            outputs.CheckTargets();
             var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
             var which = parsed.GetValue(analysis) switch
             {
@@ -39,17 +47,18 @@ internal static class DeckCommand
                 "noise" => DeckAnalysis.Noise,
                 _ => DeckAnalysis.Dc,
             };
-            var deck = Verifier.Deck(loaded, which, new DeckOptions
+            deck = Verifier.Deck(loaded, which, new DeckOptions
             {
                 TemperatureCelsius = parsed.GetValue(temperature),
                 Conversions = parsed.GetValue(conversions),
+                PrintFigures = !parsed.GetValue(bare),
             });
-            if (parsed.GetValue(output) is { } file)
-                AtomicFile.WriteAllText(file.FullName, deck);
-            else
+            if (outputs.IsEmpty)
                 parsed.InvocationConfiguration.Output.Write(deck);
+            else
+                outputs.Write();
             return ExitCodes.Success;
-        });
+        }));
         return command;
     }
 }

@@ -26,14 +26,24 @@ internal static class MonteCarloCommand
             design, units, seed, threads, minimumYield, csv, unitsCsv, noSettling,
         };
         var outputs = AnalysisOutputs.AddTo(command);
-        units.Validators.Add(r => { if (r.GetValueOrDefault<int>() < 2) r.AddError("--units must be at least 2"); });
-        threads.Validators.Add(r => { if (r.GetValueOrDefault<int>() < 1) r.AddError("--threads must be at least 1"); });
-        command.SetAction((parsed, cancel) =>
+        var work = WorkOptions.AddTo(command);
+        units.Validators.Add(r => { if (r.GetValueOrDefault<int>() is < 2 or > MaximumUnits) r.AddError($"--units must be between 2 and {MaximumUnits}"); });
+        threads.Validators.Add(r => { if (r.GetValueOrDefault<int>() is < 1 or > 1024) r.AddError("--threads must be between 1 and 1024"); });
+        command.SetAction((parsed, interrupt) => work.Run(parsed, interrupt, cancel =>
         {
             var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
-            outputs.EnsureWritable(parsed);
+            var designPath = parsed.GetValue(design)!.ToString();
+            MonteCarloResult? result = null;
+            var set = outputs.NewSet(parsed);
+            outputs.Declare(parsed, set, () => MonteCarloJson.Write(result!, loaded, designPath, !parsed.GetValue(noSettling)),
+                () => MonteCarloReport.Build(result!, loaded, designPath, parsed.GetValue(minimumYield)));
+            if (parsed.GetValue(csv) is { } envelopeFile)
+                set.Add(envelopeFile.ToString(), () => MonteCarloText.EnvelopeCsv(result!));
+            if (parsed.GetValue(unitsCsv) is { } unitFile)
+                set.Add(unitFile.ToString(), () => MonteCarloText.UnitsCsv(result!));
+            set.CheckTargets();
             var output = parsed.InvocationConfiguration.Output;
-            var result = Verifier.MonteCarlo(loaded, new MonteCarloOptions
+            result = Verifier.MonteCarlo(loaded, new MonteCarloOptions
             {
                 Units = parsed.GetValue(units),
                 Seed = parsed.GetValue(seed),
@@ -42,17 +52,15 @@ internal static class MonteCarloCommand
                 Progress = ProgressDisplay.For(parsed.InvocationConfiguration.Error, "units"),
                 Cancel = cancel,
             });
-            if (parsed.GetValue(csv) is { } envelopeFile)
-                AtomicFile.WriteAllText(envelopeFile.FullName, MonteCarloText.EnvelopeCsv(result));
-            if (parsed.GetValue(unitsCsv) is { } unitFile)
-                AtomicFile.WriteAllText(unitFile.FullName, MonteCarloText.UnitsCsv(result));
+            set.Write();
             output.Write(MonteCarloText.Render(loaded, result));
-            var designPath = parsed.GetValue(design)!.ToString();
-            outputs.Write(parsed, () => MonteCarloJson.Write(result, loaded, designPath, !parsed.GetValue(noSettling)),
-                () => MonteCarloReport.Build(result, loaded, designPath, parsed.GetValue(minimumYield)));
+            outputs.Announce(parsed);
             var passed = parsed.GetValue(minimumYield) is not { } wanted || 100 * result.Yield >= wanted;
-            return Task.FromResult(passed ? ExitCodes.Success : ExitCodes.CheckFailed);
-        });
+            return passed ? ExitCodes.Success : ExitCodes.CheckFailed;
+        }));
         return command;
     }
+
+    /// <summary>Ten million units: each keeps a few numbers, so more would outgrow memory long before it finished.</summary>
+    private const int MaximumUnits = 10_000_000;
 }

@@ -1,3 +1,4 @@
 using ThermVerify.Cli;
 
-return CliApp.Run(args, Console.Out, Console.Error);
+// What reaches the terminal goes through TerminalText: no escape code from a design is written raw.
+return CliApp.Run(args, new TerminalText(Console.Out), new TerminalText(Console.Error));

@@ -3,39 +3,58 @@ using ThermVerify.Tolerances;
 namespace ThermVerify.Cli;
 
 /// <summary>
-/// Progress of a long run on standard error: a bar redrawn in place on a terminal, a plain line every tenth of the
-/// run when the output goes to a file or a pipe (so that logs stay readable). Safe to call from worker threads.
+/// Progress of a long run: a bar on an interactive terminal, redrawn in place, with the time spent and the time the
+/// rest should take at the rate so far. Nothing at all when standard error goes to a file or a pipe, or with
+/// --quiet: logs and CI output stay exactly the command's results. Safe to call from worker threads.
 /// </summary>
-internal sealed class ProgressDisplay(TextWriter error, bool terminal, string what) : IProgress<RunProgress>
+internal sealed class ProgressDisplay(TextWriter terminal, string what, Func<TimeSpan> elapsed) : IProgress<RunProgress>
 {
-    private const int BarWidth = 40;
+    private const int BarWidth = 30;
     private readonly Lock gate = new();
-    private readonly System.Diagnostics.Stopwatch clock = System.Diagnostics.Stopwatch.StartNew();
-    private int lastTenth = -1;
-    private int lastDone;
+    private int lastDone = -1;
+    private int lastPercent = -1;
 
-    /// <summary>A bar when <paramref name="error"/> is the process's own standard error and that is a terminal.</summary>
-    public static ProgressDisplay For(TextWriter error, string what) =>
-        new(error, ReferenceEquals(error, Console.Error) && !Console.IsErrorRedirected, what);
+    /// <summary>
+    /// A bar when <paramref name="error"/> is the process's own standard error, that is a terminal and the run is not
+    /// quiet; otherwise none (null), so the library does no reporting work either.
+    /// </summary>
+    public static ProgressDisplay? For(TextWriter error, string what, bool quiet = false)
+    {
+        var raw = error is TerminalText text ? text.Raw : error;
+        if (quiet || !ReferenceEquals(raw, Console.Error) || Console.IsErrorRedirected) return null;
+        var clock = System.Diagnostics.Stopwatch.StartNew();
+        return new ProgressDisplay(raw, what, () => clock.Elapsed);
+    }
 
     public void Report(RunProgress value)
     {
         lock (gate)
         {
-            if (value.Done < lastDone) return; // reports from worker threads may arrive out of order
+            if (value.Done <= lastDone) return; // reports from worker threads may arrive out of order
             lastDone = value.Done;
-            var fraction = (double)value.Done / value.Total;
-            if (terminal)
-            {
-                var filled = (int)(fraction * BarWidth);
-                error.Write($"\r{what} [{new string('#', filled)}{new string('.', BarWidth - filled)}] {value.Done}/{value.Total} {clock.Elapsed.TotalSeconds:0.0} s");
-                if (value.Done == value.Total) error.WriteLine();
-                return;
-            }
-            var tenth = (int)(fraction * 10);
-            if (tenth == lastTenth) return;
-            lastTenth = tenth;
-            error.WriteLine($"{what}: {value.Done}/{value.Total} ({100 * fraction:0} %), {clock.Elapsed.TotalSeconds:0.0} s");
+            // A redraw only when the percentage moves: a terminal redrawn 10,000 times slows the run.
+            var percent = (int)(Fraction(value) * 100);
+            if (percent == lastPercent && value.Done != value.Total) return;
+            lastPercent = percent;
+            terminal.Write($"\r{Line(value, elapsed())}");
+            if (value.Done == value.Total) terminal.WriteLine();
         }
     }
+
+    /// <summary>One line of the bar: what, bar, count, percentage, time spent and, once measurable, the time left.</summary>
+    internal string Line(RunProgress value, TimeSpan spent)
+    {
+        var fraction = Fraction(value);
+        var filled = (int)(fraction * BarWidth);
+        var bar = $"{what} [{new string('#', filled)}{new string('.', BarWidth - filled)}] {value.Done}/{value.Total} ({100 * fraction:0} %), {Duration(spent)}";
+        if (value.Done == 0 || value.Done == value.Total) return bar + "   ";
+        var left = TimeSpan.FromTicks((long)(spent.Ticks * (value.Total - value.Done) / (double)value.Done));
+        return $"{bar}, about {Duration(left)} left   "; // trailing blanks clear a longer previous line
+    }
+
+    private static double Fraction(RunProgress value) => value.Total > 0 ? Math.Clamp((double)value.Done / value.Total, 0, 1) : 1;
+
+    private static string Duration(TimeSpan span) => span.TotalSeconds < 60
+        ? $"{span.TotalSeconds:0.0} s"
+        : span.TotalMinutes < 60 ? $"{(int)span.TotalMinutes} min {span.Seconds:00} s" : $"{(int)span.TotalHours} h {span.Minutes:00} min";
 }

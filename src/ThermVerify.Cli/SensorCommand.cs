@@ -1,4 +1,5 @@
 using System.CommandLine;
+using ThermVerify.Limits;
 using ThermVerify.Quantities;
 using ThermVerify.Reporting;
 using ThermVerify.Reporting.Text;
@@ -20,16 +21,21 @@ internal static class SensorCommand
         command.Add(range);
         command.Add(step);
         command.Add(resistance);
-        command.SetAction(parsed =>
+        var work = WorkOptions.AddTo(command);
+        command.SetAction((parsed, interrupt) => work.Run(parsed, interrupt, _ =>
         {
             var model = sensor.Build(parsed);
             var rangeText = parsed.GetValue(range);
             var span = rangeText is null ? model.ValidRange : ToRange(QuantityParser.ParseRange(rangeText, UnitKind.Celsius));
             var stepKelvin = QuantityParser.Parse(parsed.GetValue(step), UnitKind.Kelvin).Value;
+            var rows = (span.MaxCelsius - span.MinCelsius) / stepKelvin + 1;
+            if (!(stepKelvin > 0 && rows <= Work.Limits.MaximumSweepPoints))
+                throw new UsageException($"--step {parsed.GetValue(step)}: the table would have {rows:G3} rows, more than the limit of {Work.Limits.MaximumSweepPoints}; " +
+                                         "use a coarser step or raise --max-points.");
             var resistances = (parsed.GetValue(resistance) ?? []).Select(r => QuantityParser.Parse(r, UnitKind.Ohm).Value).ToList();
             parsed.InvocationConfiguration.Output.Write(SensorText.Render(model, span, stepKelvin, resistances));
             return ExitCodes.Success;
-        });
+        }));
         return command;
     }
 

@@ -28,10 +28,23 @@ internal static class TableCommand
         {
             design, header, csv, bound, breakpoints, unit, corrected, prefix, force,
         };
-        command.SetAction(parsed =>
+        command.Validators.Add(result =>
+        {
+            if (result.GetValue(bound) is not null && result.GetValue(breakpoints) is not null)
+                result.AddError("--bound and --breakpoints place the breakpoints in two different ways; give one of them");
+        });
+        var work = WorkOptions.AddTo(command);
+        command.SetAction((parsed, interrupt) => work.Run(parsed, interrupt, _ =>
         {
             var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
-            var run = Verifier.Table(loaded, new TableRequest
+            FirmwareTableRun? run = null;
+            var outputs = new OutputSet(parsed.GetValue(force));
+            if (parsed.GetValue(header) is { } h)
+                outputs.Add(h.ToString(), () => CHeaderRenderer.Render(run!.Header));
+            if (parsed.GetValue(csv) is { } c)
+                outputs.Add(c.ToString(), () => TableCsvRenderer.Render(run!.Table, breakpointsOnly: !run.Table.IsDense));
+            outputs.CheckTargets();
+            run = Verifier.Table(loaded, new TableRequest
             {
                 Scale = FixedPointUnit(parsed.GetValue(unit)!),
                 BoundKelvin = parsed.GetValue(bound) is { } b ? QuantityParser.Parse(b, UnitKind.Kelvin).Value : null,
@@ -39,14 +52,10 @@ internal static class TableCommand
                 CorrectForLoading = parsed.GetValue(corrected),
                 Prefix = parsed.GetValue(prefix),
             });
-            var overwrite = parsed.GetValue(force);
-            if (parsed.GetValue(header) is { } h)
-                AtomicFile.WriteAllText(h.FullName, CHeaderRenderer.Render(run.Header), overwrite);
-            if (parsed.GetValue(csv) is { } c)
-                AtomicFile.WriteAllText(c.FullName, TableCsvRenderer.Render(run.Table, breakpointsOnly: !run.Table.IsDense), overwrite);
+            outputs.Write();
             parsed.InvocationConfiguration.Output.Write(TableText.Render(run));
             return ExitCodes.Success;
-        });
+        }));
         return command;
     }
 

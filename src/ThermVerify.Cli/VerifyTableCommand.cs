@@ -2,7 +2,9 @@ using System.CommandLine;
 using System.Globalization;
 using ThermVerify.Api;
 using ThermVerify.Design;
+using ThermVerify.Files;
 using ThermVerify.Firmware;
+using ThermVerify.Limits;
 using ThermVerify.Quantities;
 using ThermVerify.Reporting;
 using ThermVerify.Reporting.Text;
@@ -24,16 +26,29 @@ internal static class VerifyTableCommand
         {
             design, table, unit, budget, corrected,
         };
-        command.SetAction(parsed =>
+        var work = WorkOptions.AddTo(command);
+        command.SetAction((parsed, interrupt) => work.Run(parsed, interrupt, _ =>
         {
             var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
             var file = parsed.GetValue(table)!;
             var allowed = parsed.GetValue(budget) is { } b ? QuantityParser.Parse(b, UnitKind.Kelvin).Value : loaded.Check.BudgetKelvin;
-            var result = Verifier.VerifyTable(loaded, File.ReadAllText(file.FullName), file.Name,
+            var result = Verifier.VerifyTable(loaded, ReadTable(file), file.Name,
                 parsed.GetValue(unit) is { } u ? TableCommand.FixedPointUnit(u) : null, allowed, parsed.GetValue(corrected));
             parsed.InvocationConfiguration.Output.Write(TableVerificationText.Render(file.Name, result, allowed));
             return result.Passes ? ExitCodes.Success : ExitCodes.CheckFailed;
-        });
+        }));
         return command;
+    }
+
+    private static string ReadTable(FileInfo file)
+    {
+        try
+        {
+            return InputFile.ReadText(file.FullName, Work.Limits.MaximumFileBytes);
+        }
+        catch (InputFileException e)
+        {
+            throw new UsageException($"{file}: the firmware table {e.Problem}. {e.Hint}");
+        }
     }
 }

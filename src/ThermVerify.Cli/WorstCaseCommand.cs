@@ -21,19 +21,24 @@ internal static class WorstCaseCommand
             design, threads, csv,
         };
         var outputs = AnalysisOutputs.AddTo(command);
-        threads.Validators.Add(r => { if (r.GetValueOrDefault<int>() < 1) r.AddError("--threads must be at least 1"); });
-        command.SetAction((parsed, cancel) =>
+        var work = WorkOptions.AddTo(command);
+        threads.Validators.Add(r => { if (r.GetValueOrDefault<int>() is < 1 or > 1024) r.AddError("--threads must be between 1 and 1024"); });
+        command.SetAction((parsed, interrupt) => work.Run(parsed, interrupt, cancel =>
         {
             var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
-            outputs.EnsureWritable(parsed);
-            var result = Verifier.WorstCase(loaded, new WorstCaseOptions { Threads = parsed.GetValue(threads), Cancel = cancel });
-            if (parsed.GetValue(csv) is { } file)
-                AtomicFile.WriteAllText(file.FullName, WorstCaseText.Csv(result));
-            parsed.InvocationConfiguration.Output.Write(WorstCaseText.Render(loaded, result));
             var designPath = parsed.GetValue(design)!.ToString();
-            outputs.Write(parsed, () => WorstCaseJson.Write(result, loaded, designPath), () => WorstCaseReport.Build(result, loaded, designPath));
-            return Task.FromResult(result.WithinBudget ? ExitCodes.Success : ExitCodes.CheckFailed);
-        });
+            WorstCaseResult? result = null;
+            var set = outputs.NewSet(parsed);
+            outputs.Declare(parsed, set, () => WorstCaseJson.Write(result!, loaded, designPath), () => WorstCaseReport.Build(result!, loaded, designPath));
+            if (parsed.GetValue(csv) is { } file)
+                set.Add(file.ToString(), () => WorstCaseText.Csv(result!));
+            set.CheckTargets();
+            result = Verifier.WorstCase(loaded, new WorstCaseOptions { Threads = parsed.GetValue(threads), Cancel = cancel });
+            set.Write();
+            parsed.InvocationConfiguration.Output.Write(WorstCaseText.Render(loaded, result));
+            outputs.Announce(parsed);
+            return result.WithinBudget ? ExitCodes.Success : ExitCodes.CheckFailed;
+        }));
         return command;
     }
 }

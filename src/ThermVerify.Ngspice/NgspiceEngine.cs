@@ -1,6 +1,9 @@
+using System.Collections.Concurrent;
+using System.Numerics;
 using ThermVerify.Circuits;
 using ThermVerify.Circuits.Spice;
 using ThermVerify.FrontEnd;
+using ThermVerify.Limits;
 using ThermVerify.Simulation;
 
 namespace ThermVerify.Ngspice;
@@ -17,18 +20,34 @@ public enum NgspiceMode
 
 /// <summary>
 /// ngspice as the check's engine: each simulation becomes a deck from <see cref="SpiceDeckWriter"/>, run by the
-/// shared library or a child process, and the vectors come back as plain voltages. A deck that includes a user's
-/// subcircuit file is treated as untrusted and always runs in a child process, so a bad model cannot bring the
-/// library (and thermverify) down.
+/// shared library in a worker process (<see cref="NgspiceWorker"/>, one per thread at most) or by a child
+/// <c>ngspice -b</c> process, and the vectors come back as plain voltages. Either way a deck that hangs or crashes
+/// ngspice costs a process, never thermverify, and the run's cancellation (Ctrl+C, --timeout) stops it at once.
+/// Dispose the engine to stop its workers (they also stop by themselves when this process ends).
 /// </summary>
-public sealed class NgspiceEngine : ICheckEngine
+public sealed class NgspiceEngine : ICheckEngine, IDisposable
 {
     /// <summary>Conversions the first sampling run covers; each later run doubles the simulated time.</summary>
     private const int FirstRunFactor = 16;
 
-    public NgspiceEngine(NgspiceMode mode = NgspiceMode.SharedLibrary)
+    private readonly ConcurrentBag<NgspiceWorker> idle = [];
+    private readonly SemaphoreSlim slots = new(Environment.ProcessorCount);
+    private readonly TimeSpan deckTimeLimit;
+    private readonly string? workerLibrary;
+
+    /// <param name="deckTimeLimit">A deck that runs longer is taken as hung and stopped (default 5 minutes).</param>
+    public NgspiceEngine(NgspiceMode mode = NgspiceMode.SharedLibrary, TimeSpan? deckTimeLimit = null)
+        : this(mode, deckTimeLimit, null)
+    {
+    }
+
+    /// <param name="workerLibrary">A build of the shared library for the workers to load instead of the system's (tests).</param>
+    internal NgspiceEngine(NgspiceMode mode, TimeSpan? deckTimeLimit, string? workerLibrary)
     {
         Mode = mode;
+        TemporaryFolders.SweepOnce(); // the folders of runs that were killed outright, before this run adds its own
+        this.workerLibrary = workerLibrary;
+        this.deckTimeLimit = deckTimeLimit ?? NgspiceProcess.DefaultTimeLimit;
         if (mode == NgspiceMode.SharedLibrary)
             NgspiceLibrary.EnsureAvailable();
         else if (!NgspiceProcess.IsAvailable)
@@ -49,16 +68,68 @@ public sealed class NgspiceEngine : ICheckEngine
         for (var i = 0; i < sweep.Points; i++)
             if (Math.Abs(swept[i] - temperaturesCelsius[i]) > 1e-6 * Math.Max(1, Math.Abs(sweep.StepKelvin)))
                 throw new NgspiceException($"ngspice swept {swept[i]} °C where {temperaturesCelsius[i]} °C was asked for", []);
-        return [.. nodes.Select(n => plot[n].Real[..sweep.Points])];
+        return [.. nodes.Select(n => Finite(plot[n].Real[..sweep.Points], $"node {n} in the temperature sweep"))];
     }
 
     ISampledTransient ICheckEngine.StartTransient(Circuit circuit, TransientOptions options) => new SampledRun(this, circuit, options);
 
-    /// <summary>Runs a deck the way this engine was asked to, or in a child process when it includes a user's file.</summary>
-    internal NgspiceResult Run(string deck) =>
-        Mode == NgspiceMode.ChildProcess || deck.Contains("\n.include", StringComparison.OrdinalIgnoreCase)
-            ? NgspiceProcess.Run(deck)
-            : NgspiceSession.Run(deck);
+    (double[] FrequenciesHertz, Complex[][] Volts) ICheckEngine.AcSweep(Circuit circuit, double startHertz, double stopHertz, int pointsPerDecade,
+        IReadOnlyList<string> nodes)
+    {
+        var plot = Run(SpiceDeckWriter.Write(circuit, new AcSweep(startHertz, stopHertz, pointsPerDecade), new SpiceDeckHeader("thermverify AC sweep"))).Plot("ac");
+        var frequencies = Finite(plot["frequency"].Real, "the AC sweep's frequencies");
+        return (frequencies, [.. nodes.Select(n => plot[n].Complex is { } c && c.All(v => double.IsFinite(v.Real) && double.IsFinite(v.Imaginary))
+            ? c
+            : throw new NgspiceException($"ngspice returned no finite AC values for node {n}", []))]);
+    }
+
+    (double[] FrequenciesHertz, double[] VoltsPerRootHertz) ICheckEngine.NoiseSweep(Circuit circuit, string node, string inputSource,
+        double startHertz, double stopHertz, int pointsPerDecade)
+    {
+        var deck = SpiceDeckWriter.Write(circuit, new NoiseSweep(node, inputSource, startHertz, stopHertz, pointsPerDecade), new SpiceDeckHeader("thermverify noise"));
+        var plot = Run(deck).Plot("noise");
+        return (Finite(plot["frequency"].Real, "the noise sweep's frequencies"), Finite(plot["onoise_spectrum"].Real, $"the noise density at node {node}"));
+    }
+
+    /// <summary>Runs a deck the way this engine was asked to.</summary>
+    internal NgspiceResult Run(string deck)
+    {
+        Work.ThrowIfCancelled();
+        if (Mode == NgspiceMode.ChildProcess)
+            return NgspiceProcess.Run(deck, deckTimeLimit);
+        slots.Wait(Work.Cancel);
+        try
+        {
+            var worker = idle.TryTake(out var ready) ? ready : NgspiceWorker.Start(workerLibrary);
+            try
+            {
+                return worker.Run(deck, deckTimeLimit);
+            }
+            finally
+            {
+                if (worker.Usable) idle.Add(worker);
+                else worker.Dispose();
+            }
+        }
+        finally
+        {
+            slots.Release();
+        }
+    }
+
+    public void Dispose()
+    {
+        while (idle.TryTake(out var worker)) worker.Dispose();
+    }
+
+    /// <summary>A value ngspice returned that is not a number stops the analysis with the place it came from.</summary>
+    private static double[] Finite(double[] values, string what)
+    {
+        for (var i = 0; i < values.Length; i++)
+            if (!double.IsFinite(values[i]))
+                throw new NgspiceException($"ngspice returned a value that is not a finite number for {what} (point {i + 1}); the circuit has no usable solution there", []);
+        return values;
+    }
 
     /// <summary>
     /// ngspice cannot be paused and resumed cheaply through either runner, so the transient is run to a stop time and
@@ -76,7 +147,9 @@ public sealed class NgspiceEngine : ICheckEngine
                 Simulate(Math.Min(options.StopTimeSeconds, Math.Max(timeSeconds * (plot is null ? FirstRunFactor : 1), 2 * simulatedTo)));
             if (timeSeconds > simulatedTo * (1 + 1e-12))
                 throw new ArgumentOutOfRangeException(nameof(timeSeconds), timeSeconds, $"The transient stops at {options.StopTimeSeconds} s.");
-            return Interpolate(plot!["time"].Real, plot[node].Real, timeSeconds);
+            var value = Interpolate(plot!["time"].Real, plot[node].Real, timeSeconds);
+            return double.IsFinite(value) ? value
+                : throw new NgspiceException($"ngspice returned a value that is not a finite number for node {node} at t = {timeSeconds:G4} s in the sampling transient", []);
         }
 
         private void Simulate(double stopSeconds)

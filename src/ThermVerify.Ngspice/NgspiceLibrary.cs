@@ -12,6 +12,9 @@ internal static class NgspiceLibrary
         "'apt-get install libngspice0' (and 'ngspice' for the command-line engine), or use the default engine";
 
     private static readonly string[] Candidates = ["libngspice.so.0", "libngspice.so", "libngspice.0.dylib", "ngspice.dll", "ngspice"];
+
+    /// <summary>Names a build of the library to use instead of the system's (an absolute path); the user's own setting.</summary>
+    public const string LibraryVariable = "THERMVERIFY_NGSPICE_LIBRARY";
     private static readonly Lazy<IntPtr> Handle = new(Load);
 
     static NgspiceLibrary() =>
@@ -28,8 +31,17 @@ internal static class NgspiceLibrary
     private static IntPtr Resolve(string name, Assembly assembly, DllImportSearchPath? path) =>
         name == NativeMethods.Library ? Handle.Value : IntPtr.Zero;
 
+    /// <summary>An entry point the library may or may not have (newer versions add some).</summary>
+    public static bool TryGetExport(string name, out IntPtr entry)
+    {
+        entry = IntPtr.Zero;
+        return IsAvailable && NativeLibrary.TryGetExport(Handle.Value, name, out entry);
+    }
+
     private static IntPtr Load()
     {
+        if (Environment.GetEnvironmentVariable(LibraryVariable) is { Length: > 0 } chosen)
+            return Path.IsPathRooted(chosen) && NativeLibrary.TryLoad(chosen, out var own) ? own : IntPtr.Zero;
         foreach (var candidate in Candidates)
             if (NativeLibrary.TryLoad(candidate, out var handle)) return handle;
         return IntPtr.Zero;

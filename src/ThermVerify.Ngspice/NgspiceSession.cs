@@ -4,9 +4,10 @@ using System.Runtime.InteropServices;
 namespace ThermVerify.Ngspice;
 
 /// <summary>
-/// Runs decks through the ngspice shared library inside this process. ngspice keeps one global instance and is
-/// not reentrant, so every call is serialised; a deck that made the instance unusable is reported, and later
-/// calls are refused (use <see cref="NgspiceProcess"/> to isolate such decks).
+/// Runs decks through the ngspice shared library inside this process: in thermverify's ngspice worker
+/// (<see cref="WorkerLoop"/>), where a hang or a crash of the library cannot take thermverify with it, and in tests
+/// and benchmarks of trusted decks. ngspice keeps one global instance and is not reentrant, so every call is
+/// serialised; a deck that made the instance unusable is reported, and later calls are refused.
 /// </summary>
 internal static unsafe class NgspiceSession
 {
@@ -21,6 +22,9 @@ internal static unsafe class NgspiceSession
 
     private static bool _initialised;
     private static int? _exitStatus;
+
+    /// <summary>The library stopped itself (its controlled exit): this process cannot run another deck.</summary>
+    public static bool Stopped => _exitStatus is not null;
 
     /// <summary>Loads the deck, runs its analyses and copies every vector of every plot it made.</summary>
     public static NgspiceResult Run(string deck)

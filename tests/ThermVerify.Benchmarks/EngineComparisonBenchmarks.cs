@@ -57,7 +57,7 @@ public class EngineComparisonBenchmarks
     [Benchmark]
     public double Sampling_built_in()
     {
-        var run = ((ICheckEngine)BuiltInEngine.Instance).StartTransient(samplingCircuit, samplingOptions);
+        var run = BuiltInEngine.Instance.StartTransient(samplingCircuit, samplingOptions);
         var sum = 0.0;
         foreach (var t in sampleTimes) sum += run.VoltageAt(t, FrontEndNodes.Hold);
         return sum;

@@ -3,6 +3,7 @@ using ThermVerify.Circuits;
 using ThermVerify.Design;
 using ThermVerify.Files;
 using ThermVerify.Firmware;
+using ThermVerify.Limits;
 using ThermVerify.Quantities;
 using ThermVerify.Sensors;
 using ThermVerify.Simulation;
@@ -28,18 +29,31 @@ public enum FailureKind
 /// <summary>The one map from the library's exceptions to their kind.</summary>
 public static class Failure
 {
-    /// <summary>Parallel work reports its failures wrapped; the first inner failure is the one to explain.</summary>
-    public static Exception Unwrap(Exception exception) =>
-        exception is AggregateException { InnerExceptions.Count: > 0 } aggregate ? Unwrap(aggregate.InnerExceptions[0]) : exception;
+    /// <summary>
+    /// Parallel work reports its failures wrapped (an aggregate, a type initialiser, a reflection call); the first
+    /// inner failure is the one to explain. A cancellation among them explains nothing else, so a real failure in
+    /// another branch wins over it.
+    /// </summary>
+    public static Exception Unwrap(Exception exception) => exception switch
+    {
+        AggregateException { InnerExceptions.Count: > 0 } aggregate =>
+            Unwrap(aggregate.InnerExceptions.Select(Unwrap).FirstOrDefault(e => e is not OperationCanceledException) ?? aggregate.InnerExceptions[0]),
+        TypeInitializationException { InnerException: { } inner } => Unwrap(inner),
+        System.Reflection.TargetInvocationException { InnerException: { } inner } => Unwrap(inner),
+        _ => exception,
+    };
 
     public static FailureKind KindOf(Exception exception) => Unwrap(exception) switch
     {
         OperationCanceledException => FailureKind.Cancelled,
         DesignException or QuantityFormatException or SensorFitException or SensorRangeException or SensorTableException => FailureKind.BadInput,
         FirmwareInputException or TableFormatException or BaselineException or OutputExistsException => FailureKind.BadInput,
+        OutputPathException or InputFileException => FailureKind.BadInput,
         FileNotFoundException or DirectoryNotFoundException or UnauthorizedAccessException => FailureKind.BadInput,
         EngineUnsupportedException => FailureKind.BadInput,
-        SimulationException or CircuitException => FailureKind.SimulationFailed,
+        SimulationException or CircuitException or TimeLimitException => FailureKind.SimulationFailed,
+        OutputRenderException { Failure: RenderFailure.UnwritableText } => FailureKind.BadInput,
+        OutputRenderException => FailureKind.SimulationFailed,
         _ => FailureKind.Internal,
     };
 }

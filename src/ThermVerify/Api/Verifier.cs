@@ -3,6 +3,7 @@ using ThermVerify.Check;
 using ThermVerify.Design;
 using ThermVerify.Firmware;
 using ThermVerify.FrontEnd;
+using ThermVerify.Limits;
 using ThermVerify.Tolerances;
 
 namespace ThermVerify.Api;
@@ -16,7 +17,12 @@ namespace ThermVerify.Api;
 public static class Verifier
 {
     /// <summary>Reads and validates a design file; a <see cref="DesignException"/> names the file, line, key and fix.</summary>
-    public static FrontEndDesign LoadDesign(string path) => DesignLoader.Load(path);
+    /// <param name="limits">Bounds on file sizes and sweep points (docs/design-file.md); the defaults when null.</param>
+    public static FrontEndDesign LoadDesign(string path, WorkLimits? limits = null)
+    {
+        using var scope = limits is null ? null : Work.Scope(CancellationToken.None, limits);
+        return DesignLoader.Load(path);
+    }
 
     /// <summary>
     /// The main job: the design's closed form against simulation over its check range, every error against the
@@ -25,6 +31,7 @@ public static class Verifier
     public static CheckRun Check(FrontEndDesign design, CheckOptions? options = null, string? baselinePath = null)
     {
         var baseline = baselinePath is null ? null : BaselineFile.Read(baselinePath); // a bad baseline is refused before the work
+        using var scope = Work.Scope(options?.Cancel ?? CancellationToken.None);
         var result = FrontEndCheck.Run(design, options);
         var comparison = baseline is null ? null
             : BaselineComparison.Compare(baselinePath!, baseline, BaselineFigures.From(result, Provenance.ToolVersion.Current));
@@ -32,25 +39,40 @@ public static class Verifier
     }
 
     /// <summary>Two designs checked alike (an unbuffered and a buffered one, two op-amps).</summary>
-    public static DesignPair Compare(FrontEndDesign first, FrontEndDesign second, CheckOptions? options = null) =>
-        new(FrontEndCheck.Run(first, options), FrontEndCheck.Run(second, options));
+    public static DesignPair Compare(FrontEndDesign first, FrontEndDesign second, CheckOptions? options = null)
+    {
+        using var scope = Work.Scope(options?.Cancel ?? CancellationToken.None);
+        return new(FrontEndCheck.Run(first, options), FrontEndCheck.Run(second, options));
+    }
 
     /// <summary>Checks the design (remedies off) and returns the key figures a later check compares with.</summary>
     public static (Baseline Baseline, CheckResult Result) MakeBaseline(FrontEndDesign design, CheckOptions? options = null)
     {
+        using var scope = Work.Scope(options?.Cancel ?? CancellationToken.None);
         var result = FrontEndCheck.Run(design, (options ?? new CheckOptions()) with { ComputeRemedies = false });
         return (BaselineFigures.From(result, Provenance.ToolVersion.Current), result);
     }
 
     /// <summary>Extreme values over the tolerance box (each corner verified in full) and root-sum-square.</summary>
-    public static WorstCaseResult WorstCase(FrontEndDesign design, WorstCaseOptions? options = null) => Tolerances.WorstCase.Run(design, options);
+    public static WorstCaseResult WorstCase(FrontEndDesign design, WorstCaseOptions? options = null)
+    {
+        using var scope = Work.Scope(options?.Cancel ?? CancellationToken.None);
+        return Tolerances.WorstCase.Run(design, options);
+    }
 
     /// <summary>Units built with random parts within their tolerances, each verified: envelope, yield, contributors.</summary>
-    public static MonteCarloResult MonteCarlo(FrontEndDesign design, MonteCarloOptions? options = null) => Tolerances.MonteCarlo.Run(design, options);
+    public static MonteCarloResult MonteCarlo(FrontEndDesign design, MonteCarloOptions? options = null)
+    {
+        using var scope = Work.Scope(options?.Cancel ?? CancellationToken.None);
+        return Tolerances.MonteCarlo.Run(design, options);
+    }
 
     /// <summary>The values of an E-series as the divider's fixed resistor, ranked by the objective.</summary>
-    public static IReadOnlyList<FixedResistorCandidate> ChooseFixed(FrontEndDesign design, FixedResistorSearchOptions? options = null) =>
-        FixedResistorSearch.Run(design, options);
+    public static IReadOnlyList<FixedResistorCandidate> ChooseFixed(FrontEndDesign design, FixedResistorSearchOptions? options = null)
+    {
+        using var scope = Work.Scope(options?.Cancel ?? CancellationToken.None);
+        return FixedResistorSearch.Run(design, options);
+    }
 
     /// <summary>The firmware's code-to-temperature table with its error, fault thresholds and C header content.</summary>
     public static FirmwareTableRun Table(FrontEndDesign design, TableRequest? request = null) => FirmwareTableRun.Build(design, request ?? new TableRequest());

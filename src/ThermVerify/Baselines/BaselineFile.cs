@@ -46,7 +46,12 @@ public static class BaselineFile
         JsonNode? root;
         try
         {
-            root = JsonNode.Parse(File.ReadAllText(path));
+            // A regular file of bounded size only: a FIFO or a device named as the baseline is refused, never waited on.
+            root = JsonNode.Parse(InputFile.ReadText(path, Limits.Work.Limits.MaximumFileBytes), documentOptions: new JsonDocumentOptions { MaxDepth = 64 });
+        }
+        catch (InputFileException e)
+        {
+            throw new BaselineException($"{path}: the baseline {e.Problem}. {e.Hint}");
         }
         catch (JsonException e)
         {

@@ -5,8 +5,19 @@ public enum BufferTopology { Follower, NonInverting }
 /// <summary>A closed interval of voltage.</summary>
 public readonly record struct VoltageRange(double MinVolts, double MaxVolts);
 
-/// <summary>A vendor subcircuit for the op-amp, used by SPICE export; <see cref="FullPath"/> is resolved against the design's folder.</summary>
-public sealed record SubcircuitRef(string File, string FullPath, string Name);
+/// <summary>
+/// The user's own op-amp subcircuit: <see cref="File"/> as the design names it, <see cref="FullPath"/> where it really
+/// lies (inside the design's folder), <see cref="Name"/> of the .subckt, and <see cref="Netlist"/>, the file as the
+/// loader read it strictly and wrote it back element by element (docs/ngspice.md); decks carry that, never the file.
+/// </summary>
+public sealed record SubcircuitRef(string File, string FullPath, string Name)
+{
+    /// <summary>The accepted cards of the file (and the files it includes), re-emitted; global names carry a prefix.</summary>
+    public string Netlist { get; init; } = "";
+
+    /// <summary>The .subckt's name in <see cref="Netlist"/>.</summary>
+    public string SpiceName => Subcircuits.SubcircuitLibrary.GlobalName(Name);
+}
 
 /// <summary>
 /// An op-amp buffer between the divider and the filter. Error terms default to zero (ideal); properties that are null

@@ -1,3 +1,4 @@
+using ThermVerify.Design.Subcircuits;
 using ThermVerify.Quantities;
 
 namespace ThermVerify.Design;
@@ -112,7 +113,38 @@ internal static class CircuitReaders
             throw name is null
                 ? s.Missing("subckt_name", "Name the .subckt to use from the file: subckt_name = \"...\".")
                 : s.ErrorAtValue("subckt_name", "empty subcircuit name", "Name the .subckt to use from the file.");
-        return new SubcircuitRef(file, s.ResolvePath("subckt_file", file), name);
+        var (fullPath, text) = s.ReadFile("subckt_file", file);
+        var library = SubcircuitParser.Parse(text, file, s.KeyPath("subckt_file"), (included, at, _) => Include(s, file, included, at));
+        var definition = library.Find(name)
+            ?? throw s.ErrorAtValue("subckt_name", $"the file {file} defines no .subckt {name}" +
+                   (library.Subcircuits.Count == 0 ? "" : $" (it defines {string.Join(", ", library.Subcircuits.Select(d => d.Name))})"),
+                   "Name one of the file's subcircuits.");
+        if (definition.Pins.Count != 5)
+            throw s.ErrorAtValue("subckt_name", $".subckt {name} has {definition.Pins.Count} pins; the buffer needs 5",
+                "The pins in order: non-inverting input, inverting input, positive supply, negative supply, output.");
+        return new SubcircuitRef(file, fullPath, name) { Netlist = library.Spice(file) };
+    }
+
+    /// <summary>A file a subcircuit file includes: resolved like every path of a design, inside the design's folder.</summary>
+    private static (string FileName, string Text) Include(TomlSection s, string file, string included, SpiceToken at)
+    {
+        var errors = new SubcircuitErrors(file, s.KeyPath("subckt_file"));
+        if (included.Length == 0 || included.Any(c => c is '"' or '\'' or '`' or '\\' || char.IsControl(c)) || Path.IsPathRooted(included))
+            throw errors.At(at, $".include \"{included}\": the path must be relative, without quotes or control characters",
+                "Include a file in the design's folder by its path relative to the design file.");
+        try
+        {
+            var (_, text) = Files.InputFile.ReadInside(s.BaseDirectory, included, Limits.Work.Limits.MaximumFileBytes);
+            return (included, text);
+        }
+        catch (Files.InputFileException e)
+        {
+            throw errors.At(at, $".include \"{included}\": the file {e.Problem}", e.Hint);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            throw errors.At(at, $".include \"{included}\": the file cannot be read ({e.Message.TrimEnd('.')})", "Check the name and permissions.");
+        }
     }
 
     private static VoltageRange? VoltageRange(TomlSection s, string key) =>

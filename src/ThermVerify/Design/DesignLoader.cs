@@ -1,3 +1,5 @@
+using ThermVerify.Files;
+using ThermVerify.Limits;
 using ThermVerify.Sensors;
 
 namespace ThermVerify.Design;
@@ -16,15 +18,15 @@ internal static class DesignLoader
         string text;
         try
         {
-            text = File.ReadAllText(full);
+            text = InputFile.ReadText(full, Work.Limits.MaximumFileBytes);
         }
-        catch (IOException e)
+        catch (InputFileException e)
         {
-            throw new DesignException(path, 1, 1, "", $"cannot read the design file ({e.Message})", "Check the path.");
+            throw new DesignException(path, 1, 1, "", $"cannot read the design file: it {e.Problem}", e.Hint);
         }
-        catch (UnauthorizedAccessException e)
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
-            throw new DesignException(path, 1, 1, "", $"cannot read the design file ({e.Message})", "Check the file's permissions.");
+            throw new DesignException(path, 1, 1, "", $"cannot read the design file ({e.Message.TrimEnd('.')})", "Check the path and the file's permissions.");
         }
         return Parse(text, path, Path.GetDirectoryName(full) ?? ".");
     }
@@ -33,6 +35,9 @@ internal static class DesignLoader
     /// <param name="baseDirectory">Folder that relative paths in the design are resolved against (and must stay inside).</param>
     public static FrontEndDesign Parse(string text, string sourceName, string baseDirectory)
     {
+        if (text.Length > Work.Limits.MaximumFileBytes)
+            throw new DesignException(sourceName, 1, 1, "", $"the design is larger than the limit of {Work.Limits.MaximumFileBytes} bytes",
+                "A design file is a few kilobytes; if this one is really meant, raise --max-file-size.");
         var root = TomlSection.Open(text, sourceName, baseDirectory);
         root.AllowOnly(TopKeys);
         var name = root.RequiredString("name", "Give the design a name: name = \"...\" at the top of the file.");
@@ -41,7 +46,7 @@ internal static class DesignLoader
         var sensorSection = root.RequiredSection("sensor", "Add a [sensor] section with model = \"beta\", \"steinhart-hart\", \"table\" or \"rtd\".");
         var sensor = SensorReader.Read(sensorSection);
         var model = Build(sensorSection, sensor);
-        return new FrontEndDesign
+        var design = new FrontEndDesign
         {
             Name = name,
             Description = root.String("description"),
@@ -53,6 +58,22 @@ internal static class DesignLoader
             Check = CheckReader.Read(root.RequiredSection("check", "Add a [check] section (range, budget)."), model.ValidRange),
             Tolerances = root.Section("tolerances") is { } tolerances ? ToleranceReader.Read(tolerances) : ToleranceSpec.Default,
         };
+        CheckWork(root.Section("check")!, design.Check);
+        return design;
+    }
+
+    /// <summary>
+    /// The sweep's size is known before any work: a step of 1e-12 K over the range would ask for 10^14 temperatures,
+    /// which no run can hold, so it is refused here with the limit and the option that raises it.
+    /// </summary>
+    private static void CheckWork(TomlSection check, CheckSpec spec)
+    {
+        var limit = Work.Limits.MaximumSweepPoints;
+        var points = Math.Floor((spec.Range.MaxCelsius - spec.Range.MinCelsius) / spec.StepKelvin) + 1;
+        if (!(points <= limit))
+            throw check.ErrorAtValue(check.Has("step") ? "step" : "range",
+                $"the sweep would take {points:G3} temperatures, more than the limit of {limit}",
+                "Use a coarser step (the check interpolates between points for nothing finer than the ADC resolves), or raise --max-points.");
     }
 
     /// <summary>

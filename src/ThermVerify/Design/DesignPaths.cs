@@ -1,28 +1,42 @@
+using ThermVerify.Files;
+using ThermVerify.Limits;
+
 namespace ThermVerify.Design;
 
 /// <summary>
-/// Files named by a design (R–T table, op-amp subcircuit) are resolved against the design's folder and must
-/// stay inside it, so a design shared with a colleague carries everything it needs and reads nothing else.
+/// Files named by a design (R–T table, op-amp subcircuit) are resolved against the design's folder and must stay
+/// inside it where they really are, so a design shared with a colleague carries everything it needs and reads
+/// nothing else: every link on the path is followed before the check (docs/design-file.md, "Paths"). A path may
+/// not hold quotes or control characters (it must not be able to say anything to a SPICE engine or a terminal), and
+/// the file must be a regular file of one name within the size limit (<see cref="InputFile"/>). The file is read
+/// once, here, so what is checked is what is used.
 /// </summary>
 internal static class DesignPaths
 {
-    public static string Resolve(TomlSection section, string key, string relative)
+    public static (string FullPath, string Text) Read(TomlSection section, string key, string relative)
     {
         if (string.IsNullOrWhiteSpace(relative))
             throw section.ErrorAtValue(key, "empty file name", "Name a file next to the design file, e.g. \"rt.csv\".");
-        var root = Path.GetFullPath(section.BaseDirectory);
-        var full = Path.GetFullPath(Path.Combine(root, relative));
-        var rootWithSeparator = root.EndsWith(Path.DirectorySeparatorChar) ? root : root + Path.DirectorySeparatorChar;
-        if (Path.IsPathRooted(relative) || !full.StartsWith(rootWithSeparator, StringComparison.Ordinal))
-            throw section.ErrorAtValue(key, $"\"{relative}\" points outside the design's folder",
+        if (relative.IndexOfAny(['"', '\'', '`', '\\']) is var quote and >= 0)
+            throw section.ErrorAtValue(key, $"the path holds the character {relative[quote]}",
+                "Rename the file (and its folders) to plain letters, digits, '-', '_', '.' and '/'.");
+        if (Path.IsPathRooted(relative))
+            throw section.ErrorAtValue(key, $"\"{relative}\" points outside the design's folder (it is an absolute path)",
                 "Put the file in the design file's folder (or below it) and give its path relative to the design file.");
-        if (!File.Exists(full))
-            throw section.ErrorAtValue(key, $"file \"{relative}\" not found (looked for {full})", "Check the name; paths are relative to the design file.");
-        // A link inside the folder may still lead out of it: follow it only to check where it ends.
-        if (new FileInfo(full).ResolveLinkTarget(returnFinalTarget: true) is { } target
-            && !Path.GetFullPath(target.FullName).StartsWith(rootWithSeparator, StringComparison.Ordinal))
-            throw section.ErrorAtValue(key, $"\"{relative}\" is a link that leads outside the design's folder",
-                "Copy the file into the design file's folder instead of linking to it.");
-        return full;
+        try
+        {
+            return InputFile.ReadInside(section.BaseDirectory, relative, Work.Limits.MaximumFileBytes);
+        }
+        catch (InputFileException e)
+        {
+            var problem = e.Problem.StartsWith("leads outside", StringComparison.Ordinal)
+                ? $"\"{relative}\" {e.Problem}"
+                : $"file \"{relative}\" {e.Problem}";
+            throw section.ErrorAtValue(key, problem, e.Hint);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            throw section.ErrorAtValue(key, $"file \"{relative}\" cannot be read ({e.Message.TrimEnd('.')})", "Check the name and the file's permissions.");
+        }
     }
 }

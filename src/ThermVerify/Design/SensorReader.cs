@@ -108,10 +108,12 @@ internal static class SensorReader
     private static TableSensorSpec ReadTable(TomlSection s)
     {
         var file = s.RequiredString("file", "Write file = \"rt.csv\" (temperature in degC, resistance in ohm, relative to the design file).");
+        var (fullPath, text) = s.ReadFile("file", file);
         return new TableSensorSpec
         {
             File = file,
-            FullPath = s.ResolvePath("file", file),
+            FullPath = fullPath,
+            Text = text,
             ResistanceTolerance = Tolerance(s, "resistance_tolerance"),
         };
     }

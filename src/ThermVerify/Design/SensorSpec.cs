@@ -58,9 +58,13 @@ internal sealed record TableSensorSpec : SensorSpec
     /// <summary>As written in the design file, relative to it.</summary>
     public required string File { get; init; }
     public required string FullPath { get; init; }
+
+    /// <summary>The table as read once at load time (checked where it lies, how large it is, what it is).</summary>
+    public required string Text { get; init; }
+
     public double ResistanceTolerance { get; init; } = DesignDefaults.Tolerance;
 
-    public override ISensorModel Build() => TableThermistor.Load(FullPath);
+    public override ISensorModel Build() => TableThermistor.Parse(Text, FullPath);
 }
 
 /// <summary>IEC 60751 tolerance classes of platinum RTDs.</summary>

@@ -38,6 +38,7 @@ internal sealed partial class TomlSection
     /// <summary>Parses the whole document; syntax errors and duplicate keys become <see cref="DesignException"/>.</summary>
     public static TomlSection Open(string text, string sourceName, string baseDirectory)
     {
+        TomlBounds.Check(text, sourceName);
         try
         {
             // The syntax parser with validation rejects duplicate keys, which the model deserialiser lets through.
@@ -50,10 +51,37 @@ internal sealed partial class TomlSection
         catch (TomlException e)
         {
             var message = DiagnosticPrefix().Replace(e.Message.Split('\n')[0].Trim(), "");
-            throw new DesignException(sourceName, e.Line ?? 1, e.Column ?? 1, "", $"TOML syntax: {message.Replace('\u2424', ' ')}",
+            throw new DesignException(sourceName, e.Line ?? 1, e.Column ?? 1, "", $"TOML syntax: {Printable(message.Replace('\u2424', ' '))}",
                 "Fix the TOML at this position: strings in double quotes, one key = value per line, [section] headers.");
         }
+        catch (Exception e) when (e is ArgumentException or InvalidOperationException or FormatException or OverflowException
+                                      or IndexOutOfRangeException or NullReferenceException or InvalidCastException or NotSupportedException)
+        {
+            // The TOML library failed on its own (an unterminated string ending in a backslash): the text is still not usable TOML.
+            throw new DesignException(sourceName, 1, 1, "", $"TOML syntax: the TOML reader could not read this file ({Printable(e.Message.Split('\n')[0].TrimEnd('.'))})",
+                "Look for an unclosed string (a line ending in a backslash inside quotes), a stray quote or an invalid escape.");
+        }
     }
+
+    /// <summary>The text with control and direction-override characters shown as U+XXXX, so no message carries them raw.</summary>
+    public static string Printable(string text)
+    {
+        if (FirstUnprintable(text) < 0) return text;
+        var builder = new System.Text.StringBuilder(text.Length + 16);
+        foreach (var c in text)
+            builder.Append(IsUnprintable(c) ? $"U+{(int)c:X4}" : c.ToString());
+        return builder.ToString();
+    }
+
+    /// <summary>The index of the first control character (C0, DEL, C1) or bidirectional override in <paramref name="text"/>, or −1.</summary>
+    public static int FirstUnprintable(string text)
+    {
+        for (var i = 0; i < text.Length; i++)
+            if (IsUnprintable(text[i])) return i;
+        return -1;
+    }
+
+    private static bool IsUnprintable(char c) => char.IsControl(c) || c is >= '\u202A' and <= '\u202E' or >= '\u2066' and <= '\u2069';
 
     [GeneratedRegex(@"^.*?\(\d+,\d+\)\s*:\s*error\s*:\s*")]
     private static partial Regex DiagnosticPrefix();
@@ -72,24 +100,24 @@ internal sealed partial class TomlSection
                 continue;
             var explanation = elsewhere?.Invoke(key);
             if (explanation is not null)
-                throw ErrorAtKey(key, $"unexpected key \"{key}\"", explanation);
+                throw ErrorAtKey(key, $"unexpected key \"{Printable(key)}\"", explanation);
             var near = KeySuggestion.Nearest(key, valid);
             var list = string.Join(", ", valid);
             var hint = near is null ? $"Valid keys here: {list}." : $"Did you mean \"{near}\"? Valid keys here: {list}.";
-            throw ErrorAtKey(key, $"unknown key \"{key}\"", hint);
+            throw ErrorAtKey(key, $"unknown key \"{Printable(key)}\"", hint);
         }
     }
 
     public DesignException ErrorAtKey(string key, string problem, string hint)
     {
         var at = KeyPosition(key);
-        return new DesignException(SourceName, at.Line, at.Column, KeyPath(key), problem, hint);
+        return new DesignException(SourceName, at.Line, at.Column, Printable(KeyPath(key)), problem, hint);
     }
 
     public DesignException ErrorAtValue(string key, string problem, string hint)
     {
         var at = ValuePosition(key);
-        return new DesignException(SourceName, at.Line, at.Column, KeyPath(key), problem, hint);
+        return new DesignException(SourceName, at.Line, at.Column, Printable(KeyPath(key)), problem, hint);
     }
 
     public DesignException Missing(string key, string hint)
@@ -163,7 +191,19 @@ internal sealed partial class TomlSection
     {
         if (!_table.TryGetValue(key, out var value))
             return null;
-        return value as string ?? throw ErrorAtValue(key, $"\"{key}\" must be a string", $"Put the value in double quotes: {key} = \"...\".");
+        return Text(key, value as string ?? throw ErrorAtValue(key, $"\"{key}\" must be a string", $"Put the value in double quotes: {key} = \"...\"."));
+    }
+
+    /// <summary>
+    /// Every text of a design is refused when it holds a control character or a direction override: an escape code in
+    /// a name would reach the terminal, a report or a SPICE deck, and no design needs one.
+    /// </summary>
+    private string Text(string key, string text)
+    {
+        var at = FirstUnprintable(text);
+        if (at < 0) return text;
+        throw ErrorAtValue(key, $"the text holds the control character U+{(int)text[at]:X4} at position {at + 1}",
+            "Remove it: names, descriptions, paths and values are plain printable text.");
     }
 
     public string RequiredString(string key, string hint) => String(key) ?? throw Missing(key, hint);
@@ -193,15 +233,15 @@ internal sealed partial class TomlSection
         switch (value)
         {
             case long l:
-                return l;
+                return CheckPlausible(key, l, UnitKind.Dimensionless);
             case double d when double.IsFinite(d):
-                return d;
+                return CheckPlausible(key, d, UnitKind.Dimensionless);
             case double:
                 throw ErrorAtValue(key, "NaN and infinity are not values", "Write a finite number.");
             case string s:
                 try
                 {
-                    return QuantityParser.Parse(s, UnitKind.Dimensionless).Value;
+                    return CheckPlausible(key, QuantityParser.Parse(Text(key, s), UnitKind.Dimensionless).Value, UnitKind.Dimensionless);
                 }
                 catch (QuantityFormatException e)
                 {
@@ -227,6 +267,8 @@ internal sealed partial class TomlSection
         if (value is long or double)
         {
             var number = Convert.ToDouble(value, CultureInfo.InvariantCulture);
+            if (!double.IsFinite(number))
+                throw ErrorAtValue(key, "NaN and infinity are not values", "Write a finite number.");
             if (kinds.Contains(UnitKind.Dimensionless))
                 return CheckBound(key, new Quantity(number, UnitKind.Dimensionless), bound);
             throw ErrorAtValue(key, "missing unit", $"Write the value with its unit as a string, e.g. {key} = \"{number.ToString(CultureInfo.InvariantCulture)} {ExampleUnit(kinds[0])}\".");
@@ -235,7 +277,7 @@ internal sealed partial class TomlSection
             throw ErrorAtValue(key, $"\"{key}\" must be a value with a unit in double quotes", $"Write e.g. {key} = \"{ExampleUnit(kinds[0])}\".");
         try
         {
-            return CheckBound(key, QuantityParser.Parse(text, kinds), bound);
+            return CheckBound(key, QuantityParser.Parse(Text(key, text), kinds), bound);
         }
         catch (QuantityFormatException e)
         {
@@ -249,7 +291,15 @@ internal sealed partial class TomlSection
             throw ErrorAtValue(key, $"must be greater than zero, got {EngineeringFormat.Format(q.Value, q.Unit)}", "Give a positive value.");
         if (bound == Bound.NonNegative && q.Value < 0)
             throw ErrorAtValue(key, $"cannot be negative, got {EngineeringFormat.Format(q.Value, q.Unit)}", "Give zero or a positive value.");
+        CheckPlausible(key, q.Value, q.Unit);
         return q;
+    }
+
+    private double CheckPlausible(string key, double value, UnitKind kind)
+    {
+        if (Plausibility.Judge(KeyPath(key), value, kind) is { } refusal)
+            throw ErrorAtValue(key, refusal.Problem, refusal.Hint);
+        return value;
     }
 
     public double RequiredValue(string key, Bound bound, string hint, params UnitKind[] kinds) =>
@@ -263,17 +313,22 @@ internal sealed partial class TomlSection
         var text = String(key);
         if (text is null)
             return null;
+        QuantityRange range;
         try
         {
-            return QuantityParser.ParseRange(text, kinds);
+            range = QuantityParser.ParseRange(text, kinds);
         }
         catch (QuantityFormatException e)
         {
             throw ErrorAtValue(key, $"\"{text}\": {e.Problem}", e.Hint);
         }
+        CheckPlausible(key, range.Min, range.Unit);
+        CheckPlausible(key, range.Max, range.Unit);
+        return range;
     }
 
-    public string ResolvePath(string key, string relative) => DesignPaths.Resolve(this, key, relative);
+    /// <summary>The file a key names, resolved inside the design's folder and read once: its real path and its text.</summary>
+    public (string FullPath, string Text) ReadFile(string key, string relative) => DesignPaths.Read(this, key, relative);
 
     private static string ExampleUnit(UnitKind kind) => kind switch
     {

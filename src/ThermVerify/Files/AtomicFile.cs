@@ -1,35 +1,17 @@
 namespace ThermVerify.Files;
 
 /// <summary>
-/// Writes an output file so that readers only ever see the old file or the complete new one: the content goes
-/// to a temporary file in the same folder, which then replaces the target in one rename.
+/// One output file written atomically: readers only ever see the old file or the complete new one (a temporary file
+/// beside it, then one rename). The same checks as <see cref="OutputSet"/>: no folder, link or device is replaced, and
+/// an existing file only when <paramref name="overwrite"/> is set.
 /// </summary>
 internal static class AtomicFile
 {
-    public static void WriteAllText(string path, string content, bool overwrite = true) =>
-        Write(path, overwrite, temporary => File.WriteAllText(temporary, content));
+    public static void WriteAllText(string path, string content, bool overwrite) =>
+        new OutputSet(overwrite).Add(path, () => content).Write();
 
-    public static void WriteAllBytes(string path, byte[] content, bool overwrite = true) =>
-        Write(path, overwrite, temporary => File.WriteAllBytes(temporary, content));
-
-    public static void Write(string path, bool overwrite, Action<string> writeTemporary)
-    {
-        var full = Path.GetFullPath(path);
-        if (!overwrite && File.Exists(full))
-            throw new OutputExistsException($"{path} exists already; pass --force to replace it");
-        var folder = Path.GetDirectoryName(full)!;
-        Directory.CreateDirectory(folder);
-        var temporary = Path.Combine(folder, $".{Path.GetFileName(full)}.{Guid.NewGuid():N}.tmp");
-        try
-        {
-            writeTemporary(temporary);
-            File.Move(temporary, full, overwrite);
-        }
-        finally
-        {
-            if (File.Exists(temporary)) File.Delete(temporary);
-        }
-    }
+    public static void WriteAllBytes(string path, byte[] content, bool overwrite) =>
+        new OutputSet(overwrite).Add(path, () => content).Write();
 }
 
 /// <summary>An output file exists and the user did not ask to replace it.</summary>

@@ -21,7 +21,7 @@ internal static class BufferStage
         var output = buffer.IsolationResistorOhms > 0 ? AmplifierOutput : FrontEndNodes.BufferOutput;
         var inverting = buffer.Topology == BufferTopology.Follower ? output : Feedback;
         elements.Add(buffer.Subcircuit is { } sub
-            ? new ExternalOpAmp("Xbuffer", input, inverting, output, sub.FullPath, sub.Name, buffer.Supply.MinVolts, buffer.Supply.MaxVolts)
+            ? new ExternalOpAmp("Xbuffer", input, inverting, output, sub, buffer.Supply.MinVolts, buffer.Supply.MaxVolts)
             : OpAmpFor(buffer, input, inverting, output, boardCelsius ?? opAmpCelsius));
         if (buffer.Topology == BufferTopology.NonInverting)
         {

@@ -23,6 +23,12 @@ public sealed record DeckOptions
     public double StopHertz { get; init; } = 10e6;
 
     public int PointsPerDecade { get; init; } = 10;
+
+    /// <summary>
+    /// Write the statements that make a batch run print the figures (<c>.print</c>, <c>.meas</c>); false writes the
+    /// bare netlist and its analysis.
+    /// </summary>
+    public bool PrintFigures { get; init; } = true;
 }
 
 /// <summary>
@@ -50,19 +56,25 @@ internal static class FrontEndDecks
                 var drift = BufferStage.DriftFollowsSweep(design)
                     ? "; the op-amp's offset drift is held at 25 °C in this deck (the check drifts it to each swept temperature)" : "";
                 return SpiceDeckWriter.Write(circuit, DcTemperatureSweep.From(temperatures),
-                    Header(design, circuit, $"temperature sweep over the check range, {PrechargeCases.Describe(precharge)}{drift}"));
+                    Header(design, circuit, $"temperature sweep over the check range, {PrechargeCases.Describe(precharge)}{drift}",
+                        $"prints v({pin}) at each temperature: the check's DC pin voltage (with leakage, bias and average sampling currents)"),
+                    Outputs(options, new PrintVectors("dc", [$"v({Divider})", $"v({pin})"])));
             }
             case DeckAnalysis.Tran:
             {
                 var settleVolts = design.Check.SettleLimitLsb * model.Adc.LsbVolts;
-                var (circuit, transient) = SamplingRun.Setup(design, celsius, precharge, settleVolts, options.Conversions);
-                var sweep = new TransientSweep(FrontEndCircuit.SampleTimeSeconds(design, options.Conversions - 1), transient.MaxStepSeconds)
+                // One period more than is measured: ngspice's .meas cannot read at the very end of a run.
+                var (circuit, transient) = SamplingRun.Setup(design, celsius, precharge, settleVolts, options.Conversions + 1);
+                var sweep = new TransientSweep(transient.StopTimeSeconds, transient.MaxStepSeconds)
                 {
                     StepGuards = StepGuard.ForSwitches(circuit),
                 };
                 return SpiceDeckWriter.Write(circuit, sweep, Header(design, circuit,
                     $"sampling transient, {options.Conversions} conversions at {celsius:0.###} °C, {PrechargeCases.Describe(precharge)}; " +
-                    $"conversion k is v({Hold}) at (k+1)/f_s"));
+                    $"conversion k is v({Hold}) at (k+1)/f_s",
+                    $"prints sample_k for k = 0 … {options.Conversions - 1}: the value the converter takes at conversion k (sample_0 is the check's first conversion)"),
+                    Outputs(options, [.. Enumerable.Range(0, options.Conversions)
+                        .Select(k => new MeasureAt($"sample_{k}", Hold, FrontEndCircuit.SampleTimeSeconds(design, k)))]));
             }
             default:
             {
@@ -72,7 +84,13 @@ internal static class FrontEndDecks
                     : new NoiseSweep(pin, AcInputSource, options.StartHertz, options.StopHertz, options.PointsPerDecade);
                 return SpiceDeckWriter.Write(circuit, sweep, Header(design, circuit,
                     $"{(analysis == DeckAnalysis.Ac ? "AC response" : "output noise")} of the DC circuit at {celsius:0.###} °C, " +
-                    $"input {AcInputSource} (1 V AC), output v({pin})"));
+                    $"input {AcInputSource} (1 V AC), output v({pin})",
+                    analysis == DeckAnalysis.Ac
+                        ? $"prints vdb({pin}) and vp({pin}) (dB and radians) at each frequency: the transfer from the excitation to the pin"
+                        : "prints onoise_spectrum at each frequency: the noise density at the pin in V/√Hz"),
+                    Outputs(options, analysis == DeckAnalysis.Ac
+                        ? new PrintVectors("ac", [$"vdb({pin})", $"vp({pin})"])
+                        : new PrintVectors("noise", ["onoise_spectrum"])));
             }
         }
     }
@@ -85,10 +103,13 @@ internal static class FrontEndDecks
         return circuit.Replace(excitation with { AcMagnitude = 1 });
     }
 
-    public static SpiceDeckHeader Header(FrontEndDesign design, Circuit circuit, string what) =>
+    private static IReadOnlyList<SpiceOutput> Outputs(DeckOptions options, params SpiceOutput[] outputs) => options.PrintFigures ? outputs : [];
+
+    public static SpiceDeckHeader Header(FrontEndDesign design, Circuit circuit, string what, string? prints = null) =>
         new($"thermverify: {design.Name}: {what}")
         {
-            Notes = [$"design: {design.Name}" + (design.Description is { } d ? $" ({d})" : ""), what],
+            Notes = [$"design: {design.Name}" + (design.Description is { } d ? $" ({d})" : ""), what,
+                .. prints is null ? Array.Empty<string>() : [$"ngspice -b on this deck {prints}"]],
             NodeDescriptions = new Dictionary<string, string>
             {
                 [Excitation] = "excitation, the top of the divider",

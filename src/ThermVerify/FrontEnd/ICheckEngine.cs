@@ -1,3 +1,4 @@
+using System.Numerics;
 using ThermVerify.Circuits;
 using ThermVerify.Simulation;
 
@@ -19,42 +20,50 @@ public interface ICheckEngine
 
     /// <summary>A transient of <paramref name="circuit"/> from its operating point, read at rising times.</summary>
     internal ISampledTransient StartTransient(Circuit circuit, TransientOptions options);
+
+    /// <summary>
+    /// Small-signal voltages of <paramref name="nodes"/> driven by the circuit's AC sources, logarithmic in frequency
+    /// (as SPICE's <c>.ac dec</c>); the engine says at which frequencies. The buffer checks of a design's own op-amp
+    /// subcircuit measure its loop gain this way.
+    /// </summary>
+    internal (double[] FrequenciesHertz, Complex[][] Volts) AcSweep(Circuit circuit, double startHertz, double stopHertz, int pointsPerDecade,
+        IReadOnlyList<string> nodes);
+
+    /// <summary>The output noise density (V/√Hz) at <paramref name="node"/>, logarithmic in frequency (as SPICE's <c>.noise</c>).</summary>
+    internal (double[] FrequenciesHertz, double[] VoltsPerRootHertz) NoiseSweep(Circuit circuit, string node, string inputSource,
+        double startHertz, double stopHertz, int pointsPerDecade);
 }
 
 /// <summary>A running transient: node voltages at times that never go back.</summary>
 internal interface ISampledTransient
 {
     double VoltageAt(double timeSeconds, string node);
+
+    /// <summary>
+    /// The node's voltage when <paramref name="samplingSwitch"/> opens in the periodic steady state, where the engine
+    /// can compute it directly (exact propagation); false where only conversion after conversion can tell.
+    /// </summary>
+    bool TryPeriodicSteadyState(string samplingSwitch, string node, out double volts)
+    {
+        volts = double.NaN;
+        return false;
+    }
 }
 
-/// <summary>The built-in modified-nodal-analysis engine, the default.</summary>
-public sealed class BuiltInEngine : ICheckEngine
+/// <summary>The engine's simulations called on a concrete engine (its interface members are implemented explicitly).</summary>
+internal static class CheckEngineCalls
 {
-    public static readonly BuiltInEngine Instance = new();
+    public static IReadOnlyList<double[]> TemperatureSweep(this ICheckEngine engine, Circuit circuit, IReadOnlyList<double> temperaturesCelsius,
+        IReadOnlyList<string> nodes) => engine.TemperatureSweep(circuit, temperaturesCelsius, nodes);
 
-    private BuiltInEngine() { }
+    public static ISampledTransient StartTransient(this ICheckEngine engine, Circuit circuit, TransientOptions options) =>
+        engine.StartTransient(circuit, options);
 
-    public string Name => "built-in";
+    public static (double[] FrequenciesHertz, Complex[][] Volts) AcSweep(this ICheckEngine engine, Circuit circuit,
+        double startHertz, double stopHertz, int pointsPerDecade, IReadOnlyList<string> nodes) =>
+        engine.AcSweep(circuit, startHertz, stopHertz, pointsPerDecade, nodes);
 
-    IReadOnlyList<double[]> ICheckEngine.TemperatureSweep(Circuit circuit, IReadOnlyList<double> temperaturesCelsius, IReadOnlyList<string> nodes)
-    {
-        var result = DcSweep.Temperature(circuit, temperaturesCelsius);
-        return [.. nodes.Select(result.Voltage)];
-    }
-
-    ISampledTransient ICheckEngine.StartTransient(Circuit circuit, TransientOptions options) =>
-        new Running(new TransientSimulation(circuit, options));
-
-    private sealed class Running(TransientSimulation simulation) : ISampledTransient
-    {
-        public double VoltageAt(double timeSeconds, string node)
-        {
-            if (timeSeconds > simulation.TimeSeconds)
-            {
-                simulation.AdvanceTo(timeSeconds);
-                simulation.ForgetRecordedPoints(); // only the samples are read: a long run must not keep every point
-            }
-            return simulation.Voltage(node);
-        }
-    }
+    public static (double[] FrequenciesHertz, double[] VoltsPerRootHertz) NoiseSweep(this ICheckEngine engine, Circuit circuit, string node,
+        string inputSource, double startHertz, double stopHertz, int pointsPerDecade) =>
+        engine.NoiseSweep(circuit, node, inputSource, startHertz, stopHertz, pointsPerDecade);
 }

@@ -12,7 +12,11 @@ public sealed record SamplingOutcome(
     double SteadyVolts,
     int ConversionsSimulated,
     bool Extrapolated,
-    IReadOnlyList<double> SampledVolts);
+    IReadOnlyList<double> SampledVolts)
+{
+    /// <summary>The steady sample is the exact periodic steady state (one solve), not the end of a run of conversions.</summary>
+    public bool ExactSteadyState { get; init; }
+}
 
 /// <summary>
 /// Simulates conversion after conversion with the sampling circuit. The sampled value is the sampling capacitor's
@@ -20,10 +24,12 @@ public sealed record SamplingOutcome(
 /// three times running. For a linear front end the samples then approach their limit geometrically (one slow mode,
 /// the reservoir, dominates); when the ratio of successive differences has been steady for three conversions the
 /// limit is extrapolated as s_n + Δ_n·r/(1 − r) (Aitken's Δ² process) instead of simulating hundreds of periods,
-/// and the outcome says so.
+/// and the outcome says so. Where the engine propagates the circuit exactly (the built-in engine on a front end that
+/// is linear between switch edges), the steady sample is the exact periodic steady state instead.
 /// </summary>
 internal static class SamplingRun
 {
+    /// <summary>The default bound on conversions per run; the run's limit (--max-conversions) applies unless a caller gives one.</summary>
     public const int DefaultMaximumConversions = 20000;
 
     /// <summary>The first conversion alone, from the settled front end.</summary>
@@ -35,14 +41,17 @@ internal static class SamplingRun
     }
 
     public static SamplingOutcome Run(FrontEndDesign design, double celsius, double? prechargeVolts, double settleVolts,
-        int maximumConversions = DefaultMaximumConversions, CancellationToken cancel = default, ICheckEngine? engine = null)
+        int? maximumConversions = null, CancellationToken cancel = default, ICheckEngine? engine = null)
     {
-        var simulation = Start(engine, design, celsius, prechargeVolts, settleVolts, maximumConversions);
+        var limit = maximumConversions ?? Limits.Work.Limits.MaximumConversions;
+        var simulation = Start(engine, design, celsius, prechargeVolts, settleVolts, limit);
+        if (simulation.TryPeriodicSteadyState(FrontEndNodes.SamplingSwitch, FrontEndNodes.Hold, out var exactSteady))
+            return ApproachTo(exactSteady);
 
         var samples = new List<double>();
         var stableRuns = 0;
         var steadyRatioRuns = 0;
-        for (var k = 0; k < maximumConversions; k++)
+        for (var k = 0; k < limit; k++)
         {
             cancel.ThrowIfCancellationRequested();
             samples.Add(simulation.VoltageAt(FrontEndCircuit.SampleTimeSeconds(design, k), FrontEndNodes.Hold));
@@ -60,12 +69,31 @@ internal static class SamplingRun
             if (steadyRatioRuns >= 3) return Outcome(samples[k] + delta * ratio / (1 - ratio), extrapolated: true);
         }
         throw new SimulationException(
-            $"Sampling at {celsius:0.##} °C did not settle to {settleVolts * 1e6:G3} µV within {maximumConversions} conversions " +
-            $"(last change {(samples[^1] - samples[^2]) * 1e6:G3} µV); loosen [check] settle_limit or check the front end for oscillation.");
+            $"Sampling at {celsius:0.##} °C did not settle to {settleVolts * 1e6:G3} µV within {limit} conversions " +
+            $"(last change {(samples.Count > 1 ? (samples[^1] - samples[^2]) * 1e6 : double.NaN):G3} µV); loosen [check] settle_limit, raise --max-conversions, " +
+            "or check the front end for oscillation.");
 
         SamplingOutcome Outcome(double steady, bool extrapolated) =>
             new(celsius, prechargeVolts, samples[0], steady, samples.Count, extrapolated, samples);
+
+        // With the limit known exactly, the conversions are read only until they are within the settle limit of it
+        // three times running (at most 64), so that the outcome still shows how the samples approach it.
+        SamplingOutcome ApproachTo(double steady)
+        {
+            var approach = new List<double>();
+            var near = 0;
+            for (var k = 0; k < Math.Min(limit, ApproachConversions) && near < 3; k++)
+            {
+                cancel.ThrowIfCancellationRequested();
+                approach.Add(simulation.VoltageAt(FrontEndCircuit.SampleTimeSeconds(design, k), FrontEndNodes.Hold));
+                near = Math.Abs(approach[k] - steady) < settleVolts ? near + 1 : 0;
+            }
+            return new SamplingOutcome(celsius, prechargeVolts, approach[0], steady, approach.Count, false, approach) { ExactSteadyState = true };
+        }
     }
+
+    /// <summary>Conversions read to show the approach to an exact steady state.</summary>
+    private const int ApproachConversions = 64;
 
     /// <summary>The sampling transient's circuit and options, the same for every engine.</summary>
     public static (Circuit Circuit, TransientOptions Options) Setup(FrontEndDesign design, double celsius, double? prechargeVolts,

@@ -20,6 +20,9 @@ internal static class QuantityParser
 {
     private const string RangeSeparator = "..";
 
+    /// <summary>The smallest normal double (2.2e-308); below it digits are lost.</summary>
+    private const double SmallestNormal = 2.2250738585072014E-308;
+
     public static Quantity Parse(string? text, params UnitKind[] accepted) => Read(text ?? "", accepted);
 
     public static bool TryParse(string? text, out Quantity quantity, params UnitKind[] accepted)
@@ -42,6 +45,9 @@ internal static class QuantityParser
         var whole = text ?? "";
         var at = whole.IndexOf(RangeSeparator, StringComparison.Ordinal);
         var example = accepted.Length > 0 ? ExampleRange(accepted[0]) : "\"-40 degC .. 125 degC\"";
+        // "-40...125" would otherwise read as -40 .. .125: a third dot is refused, never guessed at.
+        if (whole.Contains("...", StringComparison.Ordinal) || (at >= 0 && whole.IndexOf(RangeSeparator, at + RangeSeparator.Length, StringComparison.Ordinal) >= 0))
+            throw new QuantityFormatException(whole, "a range has exactly one \"..\" (two dots) between its ends", $"Write e.g. {example}.");
         if (at < 0)
             throw new QuantityFormatException(whole, "not a range", $"Write the low and high ends separated by \"..\", e.g. {example}.");
         var lowText = whole[..at].Trim();
@@ -88,14 +94,21 @@ internal static class QuantityParser
         var lexed = Lex(text.Trim(), text);
         var (kind, exponent, prefixExponent) = ResolveUnit(text, lexed, accepted);
         var totalExponent = lexed.Exponent + exponent;
+        if (lexed.RkmLetter is { } letter && !RkmCode.Marks(kind, letter))
+            throw new QuantityFormatException(text, $"an RKM code (a letter in place of the decimal point) marks only resistances and capacitances (IEC 60062), not {UnitSymbols.Describe(kind).Split(" (")[0]}",
+                $"Write the number with a decimal point and its unit, e.g. \"{lexed.Digits} {UnitSymbols.PrintedSymbol(kind)}\" if that is what you mean.");
         var magnitude = double.Parse($"{lexed.Digits}e{totalExponent}", NumberStyles.Float, CultureInfo.InvariantCulture);
         if (!double.IsFinite(magnitude))
             throw new QuantityFormatException(text, "the value is too large to represent", "Check the exponent and prefix.");
-        var value = lexed.Negative ? -magnitude : magnitude;
+        // 1e-400 would silently become 0 (and a subnormal loses its digits): refused, never rounded to nothing.
+        if (magnitude < SmallestNormal && lexed.Digits.Any(c => c is >= '1' and <= '9'))
+            throw new QuantityFormatException(text, "the value is too small to represent (it would become 0)", "Check the exponent and prefix.");
         if (kind == UnitKind.Farad && prefixExponent == 6)
             throw new QuantityFormatException(text, "\"M\" would make this megafarads", "M is mega in design files; write millifarads as mF (e.g. \"1 mF\").");
-        if (value < 0 && UnitSymbols.IsNonNegative(kind))
+        // A minus sign on a value that cannot be negative is refused even on zero ("-0 ohm").
+        if (lexed.Negative && UnitSymbols.IsNonNegative(kind))
             throw new QuantityFormatException(text, $"{UnitSymbols.Describe(kind).Split(" (")[0]} cannot be negative", "Remove the minus sign.");
+        var value = lexed.Negative && magnitude != 0 ? -magnitude : magnitude;
         return new Quantity(value, kind);
     }
 

@@ -7,6 +7,18 @@ namespace ThermVerify.Quantities;
 /// </summary>
 internal static class RkmCode
 {
+    /// <summary>
+    /// IEC 60062 codes mark resistors (R, K/k, M, G, T and the SI letters) and capacitors (p, n, µ/u, m); a code is
+    /// accepted only for those two kinds, so "0K5" as a temperature difference is refused, never read as 500 K.
+    /// K is a resistor letter only (a capacitor code never uses it).
+    /// </summary>
+    public static bool Marks(UnitKind kind, char letter) => kind switch
+    {
+        UnitKind.Ohm => true,
+        UnitKind.Farad => letter is not ('K' or 'R'),
+        _ => false,
+    };
+
     public static bool IsLetter(char c) => c == 'R' || c == 'K' || SiPrefixes.TryGetExponent(c, out _);
 
     public static int Exponent(char letter) => letter switch

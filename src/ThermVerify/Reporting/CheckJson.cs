@@ -113,6 +113,7 @@ public static class CheckJson
             steadyVolts = s.SteadyVolts,
             conversions = s.ConversionsSimulated,
             extrapolated = s.Extrapolated,
+            exactSteadyState = s.ExactSteadyState,
         }),
         buffer = BufferJson.Document(r.Buffer),
         faultThresholds = faults is null ? null : new

@@ -25,7 +25,7 @@ public static class FixedResistorJson
                 objective = ObjectiveName(options.Objective),
                 slopeCelsius = options.SlopeCelsius ?? (range.MinCelsius + range.MaxCelsius) / 2,
                 presentOhms = design.Divider.FixedResistorOhms,
-                presentRank = ranked.Select((c, i) => (c, i)).Where(x => Math.Abs(x.c.Ohms / design.Divider.FixedResistorOhms - 1) < 1e-9).Select(x => (int?)(x.i + 1)).FirstOrDefault(),
+                presentRank = ranked.Select((c, i) => (c, i)).Where(x => x.c.IsPresent).Select(x => (int?)(x.i + 1)).FirstOrDefault(),
                 candidates = ranked.Count,
             },
             candidates = ranked.Select((c, i) => new
@@ -38,6 +38,8 @@ public static class FixedResistorJson
                 slopeVoltsPerKelvin = c.SlopeVoltsPerKelvin,
                 maximumSelfHeatingKelvin = N(c.MaximumSelfHeatingKelvin),
                 withinBudget = slopeOnly ? (bool?)null : c.WithinBudget,
+                marginKelvin = slopeOnly ? null : N(c.MarginKelvin),
+                present = c.IsPresent,
             }),
         }, Options);
     }

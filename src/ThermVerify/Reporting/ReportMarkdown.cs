@@ -8,9 +8,9 @@ internal static class ReportMarkdown
 {
     public static void AppendHeader(StringBuilder md, string heading, string? description, string verdict)
     {
-        md.AppendLine($"# {Cell(heading)}");
+        md.AppendLine($"# {UserText(heading)}");
         md.AppendLine();
-        if (description is { } d) md.AppendLine($"{Cell(d)}\n");
+        if (description is { } d) md.AppendLine($"{UserText(d)}\n");
         md.AppendLine($"**{Cell(verdict)}**");
         md.AppendLine();
         md.AppendLine("> **Caution:** simulation does not replace measurement on hardware; a reading that drives a heater, charger or cut-out needs independent protection (see Cautions below).");
@@ -21,7 +21,7 @@ internal static class ReportMarkdown
     {
         md.AppendLine("| | |\n|---|---|");
         foreach (var (label, value) in settings) md.AppendLine($"| {label} | {Cell(value)} |");
-        md.AppendLine($"| design file | `{designFile}` |");
+        md.AppendLine($"| design file | {UserText(designFile)} |");
         md.AppendLine();
     }
 
@@ -59,4 +59,20 @@ internal static class ReportMarkdown
 
     /// <summary>Text safe inside a Markdown table cell and paragraph: pipes escaped, no line breaks.</summary>
     public static string Cell(string text) => text.Replace("|", "\\|").Replace("\n", " ");
+
+    /// <summary>
+    /// Text the user wrote (a design's name and description, a path) as plain Markdown text: every character Markdown
+    /// or HTML gives a meaning is escaped with a backslash, so a name cannot add a link, an image, markup or a table cell.
+    /// </summary>
+    public static string UserText(string text)
+    {
+        var b = new StringBuilder(text.Length + 8);
+        foreach (var c in text)
+        {
+            if (c is '\\' or '`' or '*' or '_' or '{' or '}' or '[' or ']' or '(' or ')' or '<' or '>' or '#' or '+' or '-' or '!' or '|' or '~' or '&' or '=')
+                b.Append('\\');
+            b.Append(c is '\n' or '\r' ? ' ' : c);
+        }
+        return b.ToString();
+    }
 }

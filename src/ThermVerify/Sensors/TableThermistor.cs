@@ -49,7 +49,11 @@ internal sealed class TableThermistor : ISensorModel
         string text;
         try
         {
-            text = File.ReadAllText(csvPath);
+            text = Files.InputFile.ReadText(csvPath, Limits.Work.Limits.MaximumFileBytes);
+        }
+        catch (Files.InputFileException e)
+        {
+            throw new SensorTableException($"Cannot read R–T table '{csvPath}': the file {e.Problem}. {e.Hint}", csvPath, 0);
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {

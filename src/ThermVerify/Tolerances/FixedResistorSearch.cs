@@ -44,7 +44,14 @@ public sealed record FixedResistorCandidate(
     double WorstKelvinPerLsb,
     double SlopeVoltsPerKelvin,
     double MaximumSelfHeatingKelvin,
-    bool WithinBudget);
+    bool WithinBudget)
+{
+    /// <summary>The smallest room left under the budget over the range, budget − |error| (negative: over by that much); NaN for the slope objective.</summary>
+    public double MarginKelvin { get; init; } = double.NaN;
+
+    /// <summary>The design's own fixed resistor, ranked among the series values (and added to them when it is not one).</summary>
+    public bool IsPresent { get; init; }
+}
 
 /// <summary>
 /// Tries every value of an E-series (IEC 60063) between two bounds as the fixed resistor and ranks them. The error
@@ -68,7 +75,10 @@ internal static class FixedResistorSearch
         var high = options.MaximumOhms ?? ends.Max();
         if (!(low > 0 && high >= low))
             throw new ArgumentException($"The fixed-resistor search needs 0 < minimum ≤ maximum; got {low:G4} Ω to {high:G4} Ω.");
+        var present = design.Divider.FixedResistorOhms;
         var candidates = Candidates(options.Series, low, high);
+        // The resistor fitted now is always ranked, so the gain of changing it can be judged.
+        if (!candidates.Any(c => SameValue(c, present))) candidates = [.. candidates.Append(present).Order()];
         var slopeAt = options.SlopeCelsius ?? (range.MinCelsius + range.MaxCelsius) / 2;
         var results = new FixedResistorCandidate[candidates.Count];
         var parallel = new ParallelOptions { MaxDegreeOfParallelism = options.Threads, CancellationToken = options.Cancel };
@@ -76,7 +86,7 @@ internal static class FixedResistorSearch
         Parallel.For(0, candidates.Count, parallel, i =>
         {
             results[i] = Evaluate(design with { Divider = design.Divider with { FixedResistorOhms = candidates[i] } },
-                options.Objective, slopeAt);
+                options.Objective, slopeAt) with { IsPresent = SameValue(candidates[i], present) };
             options.Progress?.Report(new RunProgress(Interlocked.Increment(ref done), candidates.Count));
         });
         return options.Objective switch
@@ -118,9 +128,12 @@ internal static class FixedResistorSearch
         var errors = points.Select(p => p.ErrorKelvin).ToArray();
         var worst = Enumerable.Range(0, errors.Length).MaxBy(i => Key(Math.Abs(errors[i])));
         var within = Enumerable.Range(0, errors.Length).All(i => double.IsFinite(errors[i]) && Math.Abs(errors[i]) <= points[i].BudgetKelvin);
+        var margin = Enumerable.Range(0, errors.Length).Min(i => double.IsFinite(errors[i]) ? points[i].BudgetKelvin - Math.Abs(errors[i]) : double.NegativeInfinity);
         return new FixedResistorCandidate(candidate.Divider.FixedResistorOhms, errors[worst], points[worst].Celsius,
-            points.Max(p => p.KelvinPerLsb), slope, rise.DefaultIfEmpty(0).Max(), within);
+            points.Max(p => p.KelvinPerLsb), slope, rise.DefaultIfEmpty(0).Max(), within) { MarginKelvin = margin };
     }
+
+    private static bool SameValue(double a, double b) => Math.Abs(a / b - 1) < 1e-9;
 
     private static double Key(double v) => double.IsFinite(v) ? v : double.PositiveInfinity;
 }

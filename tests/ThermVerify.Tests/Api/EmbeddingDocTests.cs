@@ -21,8 +21,17 @@ public class EmbeddingDocTests
     public void The_document_shows_what_the_program_prints()
     {
         var output = new StringWriter();
-        var code = EmbeddingExample.Run(Path.Combine(Repository.Netlists, "oven-pt1000.toml"), output);
-        Assert.Equal(0, code);
+        var folder = Directory.CreateTempSubdirectory("tv-embedding-");
+        try
+        {
+            var json = Path.Combine(folder.FullName, "check.json");
+            Assert.Equal(0, EmbeddingExample.Run(Path.Combine(Repository.Netlists, "oven-pt1000.toml"), json, output));
+            Assert.StartsWith("{", File.ReadAllText(json));
+        }
+        finally
+        {
+            folder.Delete(recursive: true);
+        }
         DocBlocks.AssertCurrent(Document, "embedding-output", output.ToString());
     }
 }

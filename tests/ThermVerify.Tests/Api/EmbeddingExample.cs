@@ -4,7 +4,7 @@ namespace ThermVerify.Tests.Api;
 internal static class EmbeddingExample
 {
     // example: begin
-    public static int Run(string designPath, TextWriter output)
+    public static int Run(string designPath, string jsonPath, TextWriter output)
     {
         var design = ThermVerify.Api.Verifier.LoadDesign(designPath);
         var run = ThermVerify.Api.Verifier.Check(design, new ThermVerify.Check.CheckOptions { ComputeRemedies = false });
@@ -15,7 +15,8 @@ internal static class EmbeddingExample
             output.WriteLine($"  {finding.Severity}: {finding.Id} ({finding.SizeKelvin:+0.000;-0.000} K)");
 
         var json = ThermVerify.Reporting.CheckJson.Write(run.Result, Path.GetFileName(designPath)); // the same document as `check --json`
-        output.WriteLine($"JSON: {json.Length} characters");
+        File.WriteAllText(jsonPath, json);
+        output.WriteLine($"{run.Result.Points.Count} temperatures checked; JSON in {Path.GetFileName(jsonPath)}");
         return run.Passed ? 0 : 1;
     }
     // example: end

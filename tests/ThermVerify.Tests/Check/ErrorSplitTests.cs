@@ -49,7 +49,7 @@ public class ErrorSplitTests
             foreach (var (id, column) in Columns.Where(col => col.Key != findingId))
                 Tolerance.AssertClose(0, column(c), 0, 1e-9, $"{id} at {p.Celsius} °C");
             Assert.Equal(0, c.RestKelvin, 12);
-            Tolerance.AssertClose(p.ErrorKelvin, c.QuantisationKelvin + only(c), 0, 1e-12, $"parts add up at {p.Celsius} °C");
+            Tolerance.AssertClose(p.ErrorKelvin, c.Sum, 0, 1e-12, $"parts add up at {p.Celsius} °C");
             Tolerance.AssertClose(expectedKelvin(p), only(c), 0, tolerance, $"{findingId} column at {p.Celsius} °C");
         }
         var finding = Assert.Single(result.Findings, f => f.Id == findingId);

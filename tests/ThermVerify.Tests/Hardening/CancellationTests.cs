@@ -1,39 +1,154 @@
 using System.Diagnostics;
 using ThermVerify.Cli;
+using ThermVerify.Tests.Ngspice;
 
 namespace ThermVerify.Tests.Hardening;
 
-/// <summary>Ctrl+C (SIGINT) on a long run: the command stops, exits 130 and leaves no output file, whole or partial.</summary>
-public class CancellationTests
+/// <summary>
+/// Ctrl+C (SIGINT), SIGTERM, SIGKILL and --timeout on a long run: the command stops, exits 130 (or 3 for the time
+/// limit) and leaves nothing behind, no output file whole or partial, no temporary file, no ngspice folder or
+/// worker. No test here assumes how fast anything is: each waits for the run to show it has started (its progress
+/// line, or its ngspice folder) before it interrupts it. The waits have a guard of several minutes, there only so a
+/// broken build cannot hang CI for ever; it is not a limit on the run.
+/// </summary>
+[Collection(TemporaryFolderCollection.Name)]
+public sealed class CancellationTests : IDisposable
 {
-    [Fact]
-    public async Task Interrupting_a_long_monte_carlo_run_writes_nothing()
+    private static readonly TimeSpan HangGuard = TimeSpan.FromMinutes(10);
+
+    private readonly DirectoryInfo folder = Directory.CreateTempSubdirectory("tv-cancel-");
+
+    public void Dispose() => folder.Delete(recursive: true);
+
+    private static string Example(string name) => Path.Combine(AppContext.BaseDirectory, "..", "..", "..", "..", "..", "netlists", name);
+
+    private static Process Start(params string[] args)
     {
-        if (!OperatingSystem.IsLinux()) return; // SIGINT is sent with kill(1)
-        var folder = Directory.CreateTempSubdirectory("tv-cancel-");
+        var start = new ProcessStartInfo("dotnet", [Path.Combine(AppContext.BaseDirectory, "ThermVerify.Cli.dll"), .. args])
+        {
+            RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false,
+        };
+        return Process.Start(start)!;
+    }
+
+    private static void Signal(Process process, string signal) =>
+        Process.Start("kill", [$"-{signal}", process.Id.ToString()])!.WaitForExit();
+
+    /// <summary>Reads standard error line by line until a line satisfies <paramref name="started"/>; returns everything read.</summary>
+    private static async Task<string> WaitFor(Process process, Func<string, bool> started)
+    {
+        using var guard = new CancellationTokenSource(HangGuard);
+        var seen = new System.Text.StringBuilder();
+        while (await process.StandardError.ReadLineAsync(guard.Token) is { } line)
+        {
+            seen.AppendLine(line);
+            if (started(line)) return seen.ToString();
+        }
+        Assert.Fail($"the run ended before it showed it had started:\n{seen}");
+        return "";
+    }
+
+    private static async Task<(int Code, string Error)> Finish(Process process, string before)
+    {
+        using var guard = new CancellationTokenSource(HangGuard);
+        var rest = await process.StandardError.ReadToEndAsync(guard.Token);
+        await process.WaitForExitAsync(guard.Token);
+        return (process.ExitCode, before + rest);
+    }
+
+    private void AssertNothingWritten() => Assert.Empty(Directory.GetFileSystemEntries(folder.FullName, "*", SearchOption.AllDirectories));
+
+    [Theory]
+    [InlineData("INT")]
+    [InlineData("TERM")]
+    public async Task Interrupting_a_long_monte_carlo_run_writes_nothing(string signal)
+    {
+        if (!OperatingSystem.IsLinux()) return; // signals are sent with kill(1)
+        using var process = Start("montecarlo", Example("oven-pt1000.toml"), "-n", "1000000", "--threads", "1",
+            "--json", Path.Combine(folder.FullName, "mc.json"), "--report", Path.Combine(folder.FullName, "report"),
+            "--csv", Path.Combine(folder.FullName, "envelope.csv"));
+        _ = process.StandardOutput.ReadToEndAsync();
+        var before = await WaitFor(process, line => line.StartsWith("units:", StringComparison.Ordinal)); // the run has begun
+        Signal(process, signal);
+        var (code, error) = await Finish(process, before);
+        Assert.Equal(ExitCodes.Cancelled, code);
+        Assert.Contains("cancelled; no output file was written", error);
+        AssertNothingWritten();
+    }
+
+    [Fact]
+    public async Task A_time_limit_stops_the_run_with_exit_3_and_writes_nothing()
+    {
+        using var process = Start("montecarlo", Example("oven-pt1000.toml"), "-n", "1000000", "--threads", "1", "--timeout", "1",
+            "--json", Path.Combine(folder.FullName, "mc.json"));
+        _ = process.StandardOutput.ReadToEndAsync();
+        var (code, error) = await Finish(process, "");
+        Assert.Equal(ExitCodes.SimulationFailed, code);
+        Assert.Contains("stopped at the time limit of 1 s (--timeout)", error);
+        AssertNothingWritten();
+    }
+
+    private static string[] NgspiceFolders(int pid) =>
+        Directory.GetDirectories(Path.GetTempPath(), $"thermverify-ngspice-{pid}-*");
+
+    /// <summary>Waits until the run has an ngspice folder and a child process (a worker or an ngspice program): the engine is at work.</summary>
+    private static List<Process> WaitForNgspice(Process process)
+    {
+        var guard = Stopwatch.StartNew();
+        while (!process.HasExited && guard.Elapsed < HangGuard)
+        {
+            var children = Process.GetProcesses().Where(p => IsChildOf(p, process.Id)).ToList();
+            if (NgspiceFolders(process.Id).Length > 0 && children.Count > 0) return children;
+            Thread.Sleep(10);
+        }
+        Assert.Fail("the run ended before ngspice started");
+        return [];
+    }
+
+    [NgspiceTheory]
+    [InlineData("library", "INT")]
+    [InlineData("process", "INT")]
+    [InlineData("library", "KILL")]
+    [InlineData("process", "KILL")]
+    public async Task Stopping_a_check_on_ngspice_leaves_no_temporary_folder_and_no_worker(string mode, string signal)
+    {
+        if (!OperatingSystem.IsLinux()) return;
+        string[] engine = mode == "process" ? ["--engine", "ngspice", "--ngspice-process"] : ["--engine", "ngspice"];
+        using var process = Start(["check", Example("cold-storage-logger-reservoir.toml"), "-q", "--threads", "1",
+            "--json", Path.Combine(folder.FullName, "check.json"), .. engine]);
+        _ = process.StandardOutput.ReadToEndAsync();
+        var error = process.StandardError.ReadToEndAsync();
+        var workers = WaitForNgspice(process);
+        var pid = process.Id;
+        Signal(process, signal);
+        using (var guard = new CancellationTokenSource(HangGuard)) await process.WaitForExitAsync(guard.Token);
+        if (signal == "INT")
+        {
+            Assert.Equal(ExitCodes.Cancelled, process.ExitCode);
+            Assert.Contains("cancelled", await error);
+        }
+        // After SIGKILL the worker sees its input end, removes its folder and ends; a child ngspice finishes its deck.
+        foreach (var worker in workers)
+            using (var guard = new CancellationTokenSource(HangGuard)) await worker.WaitForExitAsync(guard.Token);
+        // A process killed outright cannot remove the folder of the ngspice program it had started: the next run
+        // sweeps the folders of processes that no longer exist (the worker of the library mode removes its own).
+        if (signal == "KILL" && mode == "process")
+            ThermVerify.Ngspice.TemporaryFolders.SweepAbandoned();
+        Assert.Empty(NgspiceFolders(pid));
+        AssertNothingWritten();
+    }
+
+    private static bool IsChildOf(Process candidate, int parent)
+    {
         try
         {
-            var example = Path.Combine(AppContext.BaseDirectory, "..", "..", "..", "..", "..", "netlists", "oven-pt1000.toml");
-            var start = new ProcessStartInfo("dotnet",
-                [Path.Combine(AppContext.BaseDirectory, "ThermVerify.Cli.dll"), "montecarlo", example, "-n", "1000000",
-                 "--json", Path.Combine(folder.FullName, "mc.json"), "--report", Path.Combine(folder.FullName, "report")])
-            {
-                RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false,
-            };
-            using var process = Process.Start(start)!;
-            var error = process.StandardError.ReadToEndAsync();
-            _ = process.StandardOutput.ReadToEndAsync();
-            await Task.Delay(TimeSpan.FromSeconds(3)); // well into the run: a million units take minutes
-            await Process.Start("kill", ["-INT", process.Id.ToString()])!.WaitForExitAsync();
-            using var limit = new CancellationTokenSource(TimeSpan.FromSeconds(30)); // the run must stop well within this
-            await process.WaitForExitAsync(limit.Token);
-            Assert.Equal(ExitCodes.Cancelled, process.ExitCode);
-            Assert.Contains("cancelled; no output file was written", await error);
-            Assert.Empty(Directory.GetFileSystemEntries(folder.FullName)); // no result, no report, no temporary file
+            var stat = File.ReadAllText($"/proc/{candidate.Id}/stat");
+            var fields = stat[(stat.LastIndexOf(')') + 2)..].Split(' ');
+            return int.Parse(fields[1]) == parent;
         }
-        finally
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException or FormatException or IndexOutOfRangeException)
         {
-            folder.Delete(recursive: true);
+            return false;
         }
     }
 }

@@ -64,8 +64,8 @@ public class EngineCrossCheckTests
             foreach (var celsius in new[] { range.MinCelsius, range.MaxCelsius })
             {
                 var (circuit, options) = SamplingRun.Setup(design, celsius, pre, settleVolts, Conversions);
-                var ours = ((ICheckEngine)BuiltInEngine.Instance).StartTransient(circuit, options);
-                var theirs = ((ICheckEngine)Ngspice.Value).StartTransient(circuit, options);
+                var ours = BuiltInEngine.Instance.StartTransient(circuit, options);
+                var theirs = Ngspice.Value.StartTransient(circuit, options);
                 for (var k = 0; k < Conversions; k++)
                 {
                     var t = FrontEndCircuit.SampleTimeSeconds(design, k);

@@ -1,3 +1,4 @@
+using ThermVerify.Check.Buffer;
 using ThermVerify.Circuits;
 using ThermVerify.Cli;
 using ThermVerify.Design;
@@ -26,10 +27,25 @@ public sealed class SubcircuitBufferTests : IDisposable
         .ends plainamp
         """;
 
+    // Accepted by the strict reader, but two voltage sources in parallel leave ngspice no solution.
     private const string BrokenAmp = """
         .subckt brokenamp inp inn vcc vee out
-        Q1 out inp vee nosuchtransistormodel
+        V1 out vee dc 1
+        V2 out vee dc 2
+        R1 inp inn 1k
         .ends brokenamp
+        """;
+
+    // The built-in macro-model's small-signal structure in SPICE (docs/ngspice.md): gm = A0/1 kΩ into 1 kΩ ∥ C with
+    // C = A0/(2π·1 kΩ·GBW), a unity buffer and r_o; A0 = 1e5 (100 dB), GBW = 1 MHz and r_o = 100 Ω as the example's figures.
+    private const string SinglePoleAmp = """
+        .subckt onepole inp inn vcc vee out
+        G1 0 pole inp inn 100
+        R1 pole 0 1k
+        C1 pole 0 {100000/(2*3.141592653589793*1000*1000000)}
+        E1 drive 0 pole 0 1
+        Rout drive out 100
+        .ends onepole
         """;
 
     private readonly DirectoryInfo folder = Directory.CreateTempSubdirectory("thermverify-subckt-");
@@ -69,12 +85,55 @@ public sealed class SubcircuitBufferTests : IDisposable
     }
 
     [NgspiceFact]
-    public void A_subcircuit_ngspice_cannot_load_gives_its_error_lines_and_exit_3()
+    public void A_subcircuit_ngspice_cannot_solve_gives_its_error_lines_and_exit_3()
     {
         var run = CliRunner.Run("check", DesignWith(BrokenAmp, "brokenamp"), "-q", "--engine", "ngspice");
         Assert.Equal(ExitCodes.SimulationFailed, run.ExitCode);
         Assert.Contains("ngspice could not run the deck", run.Error);
-        Assert.Contains("nosuchtransistormodel", run.Error, StringComparison.OrdinalIgnoreCase);
+    }
+
+    [Fact]
+    public void A_subcircuit_file_with_elements_outside_the_subset_is_refused_at_load_with_its_position()
+    {
+        var design = DesignWith(".subckt bad inp inn vcc vee out\nQ1 out inp vee npnmodel\n.ends bad\n", "bad");
+        var run = CliRunner.Run("check", design, "-q", "--engine", "ngspice");
+        Assert.Equal(ExitCodes.BadInput, run.ExitCode);
+        Assert.Contains("amp.lib:2:1: buffer.subckt_file: element Q1: a bipolar transistor (Q) is not accepted", run.Error);
+    }
+
+    /// <summary>
+    /// The loop gain of the user's subcircuit, measured by ngspice with Middlebrook's voltage injection, against the
+    /// built-in macro-model of the same figures measured by Bode's return ratio: two methods and two engines on the
+    /// same single-pole amplifier into the same load must give the same crossover and phase margin.
+    /// </summary>
+    [NgspiceFact]
+    public void The_subcircuits_loop_gain_by_injection_in_ngspice_matches_the_macro_models_return_ratio()
+    {
+        var withSubcircuit = DesignLoader.Load(DesignWith(SinglePoleAmp, "onepole"));
+        var builtIn = withSubcircuit with { Buffer = withSubcircuit.Buffer! with { Subcircuit = null, SlewRateVoltsPerSecond = null } };
+        using var engine = new NgspiceEngine();
+        var theirs = BufferStability.Loop(withSubcircuit, 25, engine);
+        var ours = BufferStability.Loop(builtIn, 25);
+        Assert.NotNull(ours.CrossoverHertz);
+        Tolerance.AssertClose(ours.CrossoverHertz!.Value, theirs.CrossoverHertz!.Value, 1e-3, 0, "crossover");
+        Tolerance.AssertClose(ours.PhaseMarginDegrees!.Value, theirs.PhaseMarginDegrees!.Value, 0, 0.1, "phase margin (°)");
+    }
+
+    /// <summary>The whole check through ngspice with the user's subcircuit, every buffer section included (a narrow range keeps it short).</summary>
+    [NgspiceFact]
+    public void Check_with_the_users_subcircuit_runs_end_to_end_through_ngspice_buffer_sections_included()
+    {
+        var design = DesignWith(SinglePoleAmp, "onepole");
+        File.WriteAllText(design, File.ReadAllText(design).Replace("[check]\n", "[check]\nstep = \"10 K\"\n")
+            .Replace("range = \"-20 degC .. 100 degC\"", "range = \"20 degC .. 40 degC\""));
+        var json = Path.Combine(folder.FullName, "check.json");
+        var run = CliRunner.Run("check", design, "--engine", "ngspice", "--no-remedies", "--sampling-points", "2", "--json", json);
+        Assert.True(run.ExitCode is ExitCodes.Success or ExitCodes.CheckFailed, run.Error);
+        foreach (var section in new[] { "Buffer stability", "Buffer headroom", "Buffer static errors", "Buffer recovery after sampling", "Noise at the ADC" })
+            Assert.Contains(section, run.Output);
+        Assert.Contains("Middlebrook", run.Output);
+        var document = System.Text.Json.JsonDocument.Parse(File.ReadAllText(json));
+        Assert.True(document.RootElement.TryGetProperty("buffer", out _));
     }
 
     [Fact]

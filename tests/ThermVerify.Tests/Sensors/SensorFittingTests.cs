@@ -84,3 +84,61 @@ public class SensorFittingTests
         Assert.IsAssignableFrom<ArgumentException>(new SensorFitException("x"));
     }
 }
+
+/// <summary>`fit` reports what a thermistor is sold by, R25 and β25/85, whenever the points allow it.</summary>
+public class RatedValueFitTests
+{
+    private static readonly BetaThermistor Rated3435 = new(10_000, 3435, 25);
+
+    private static TablePoint At(ISensorModel model, double celsius) => new(celsius, model.ResistanceOhms(celsius));
+
+    [Fact]
+    public void Points_at_25_and_85_degC_give_beta_25_85_directly()
+    {
+        // B25/85 = ln(R25/R85)/(1/298.15 − 1/358.15) (REFERENCES: Beta model); a Beta-model sensor gives its own β back.
+        var summary = SensorFitSummary.Fit([At(Rated3435, 0), At(Rated3435, 25), At(Rated3435, 50), At(Rated3435, 85)]);
+        Assert.Equal("the 25 °C and 85 °C points", summary.BetaPoints);
+        Tolerance.AssertClose(3435, summary.Beta.Model.Beta, rel: 1e-12);
+        Tolerance.AssertClose(10_000, summary.Beta.Model.R0Ohms, rel: 1e-12);
+        Assert.NotNull(summary.Rated);
+        Tolerance.AssertClose(3435, summary.Rated!.Beta2585Kelvin, rel: 1e-12);
+        Tolerance.AssertClose(10_000, summary.Rated.R25Ohms, rel: 1e-12);
+    }
+
+    [Fact]
+    public void Without_an_85_degC_point_beta_runs_from_25_degC_to_the_farthest_point_and_no_rated_values_are_invented()
+    {
+        var summary = SensorFitSummary.Fit([At(Rated3435, -20), At(Rated3435, 25), At(Rated3435, 50)]);
+        Assert.Equal("the 25 °C point and the point farthest from it", summary.BetaPoints);
+        Assert.Equal(25, summary.Beta.Model.T0Celsius);
+        Assert.Null(summary.Rated); // 85 °C lies outside the points: not extrapolated
+    }
+
+    [Fact]
+    public void Points_spanning_25_to_85_degC_give_rated_values_from_the_steinhart_hart_fit()
+    {
+        // A Steinhart–Hart sensor (coefficients of the test sensor) measured at 0, 40 and 100 °C: the three-point fit is
+        // the sensor itself, so R25 and β25/85 are the sensor's own, computed here from its resistance at 25 and 85 °C.
+        var sensor = TestSensors.SteinhartHart();
+        var summary = SensorFitSummary.Fit([At(sensor, 0), At(sensor, 40), At(sensor, 100)]);
+        var r25 = sensor.ResistanceOhms(25);
+        var r85 = sensor.ResistanceOhms(85);
+        var beta = Math.Log(r25 / r85) / (1 / 298.15 - 1 / 358.15);
+        Assert.Equal("the outermost points", summary.BetaPoints);
+        Assert.NotNull(summary.Rated);
+        Tolerance.AssertClose(r25, summary.Rated!.R25Ohms, rel: 1e-9);
+        Tolerance.AssertClose(beta, summary.Rated.Beta2585Kelvin, rel: 1e-9);
+    }
+
+    [Fact]
+    public void A_point_outside_the_beta_pair_still_gets_its_residual()
+    {
+        // β from 25/85 °C; the 0 °C point lies outside that pair's span yet its residual is what shows the model's error.
+        var sensor = TestSensors.SteinhartHart();
+        var summary = SensorFitSummary.Fit([At(sensor, 0), At(sensor, 25), At(sensor, 85)]);
+        Assert.All(summary.Beta.ResidualsKelvin, r => Assert.True(double.IsFinite(r)));
+        Assert.Equal(0, summary.Beta.ResidualsKelvin[1], 9);
+        Assert.Equal(0, summary.Beta.ResidualsKelvin[2], 9);
+        Assert.NotEqual(0, summary.Beta.ResidualsKelvin[0], 3);
+    }
+}

@@ -58,4 +58,24 @@ public class FixedResistorSearchTests
             Assert.True(Math.Abs(ranked[i - 1].WorstErrorKelvin) <= Math.Abs(ranked[i].WorstErrorKelvin));
         Assert.All(ranked, c => Assert.True(c.MaximumSelfHeatingKelvin > 0));
     }
+
+    /// <summary>
+    /// The design's own resistor is ranked even when it is no series value (12.5 kΩ is in no E-series), flagged,
+    /// with its margin: budget − |worst error| under a budget that is the same at every temperature.
+    /// </summary>
+    [Fact]
+    public void ThePresentResistorIsRankedWithItsMargin()
+    {
+        var design = TestDesign.Make(("check.range", "\"0 degC .. 50 degC\""), ("divider.fixed_resistor", "\"12.5 kOhm\""));
+        var ranked = FixedResistorSearch.Run(design, new FixedResistorSearchOptions { Series = ESeries.E6, Threads = 2 });
+        var present = Assert.Single(ranked, c => c.IsPresent);
+        Assert.Equal(12.5e3, present.Ohms, 6);
+        Assert.Equal(FixedResistorSearch.Candidates(ESeries.E6, ranked.Where(c => !c.IsPresent).Min(c => c.Ohms), ranked.Max(c => c.Ohms)).Count + 1,
+            ranked.Count);
+        Assert.All(ranked, c => Assert.Equal(design.Check.BudgetKelvin - Math.Abs(c.WorstErrorKelvin), c.MarginKelvin, 12));
+
+        var text = ThermVerify.Reporting.Text.FixedResistorText.Render(design, ESeries.E6, FixedResistorObjective.WorstError, ranked, top: 1);
+        Assert.Contains("12.5 kΩ (now)", text);
+        Assert.Contains("and the present value", text);
+    }
 }

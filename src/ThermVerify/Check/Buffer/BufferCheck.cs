@@ -15,18 +15,18 @@ internal static class BufferCheck
     {
         BufferCircuits.Require(design);
         var temperatures = points.Select(p => p.Celsius).ToArray();
-        var stability = BufferStability.Run(design, options.ComputeRemedies);
+        var stability = BufferStability.Run(design, options.ComputeRemedies, options.Engine);
         var headroom = BufferHeadroom.Run(design, temperatures);
         var statics = BufferStaticErrors.Run(design, temperatures);
         var settling = points.Where(p => p.SamplingSimulated).DefaultIfEmpty(points[0])
             .MaxBy(p => Math.Abs(p.Simulated.WorstSettlingVolts))!;
         RecoveryResult? recovery = headroom.Violations.Any(v => v.Limit == "output swing")
             ? null // a clipped output has no small-signal recovery to speak of; headroom is the finding
-            : BufferRecovery.Run(design, settling.Celsius, settling.PrechargeVolts, options.ComputeRemedies);
+            : BufferRecovery.Run(design, settling.Celsius, settling.PrechargeVolts, options.ComputeRemedies, options.Engine);
         var grid = Enumerable.Range(0, NoiseTemperatures)
             .Select(i => design.Check.Range.MinCelsius + i * (design.Check.Range.MaxCelsius - design.Check.Range.MinCelsius) / (NoiseTemperatures - 1))
             .Distinct().ToArray();
-        var noise = BufferNoise.Run(design, grid);
+        var noise = BufferNoise.Run(design, grid, options.Engine);
         var findings = BufferFindingRules.Evaluate(design, points, stability, headroom, recovery, noise);
         return new BufferReport(stability, headroom, statics, recovery, noise, findings);
     }

@@ -53,7 +53,7 @@ internal static class BufferNoise
     private const int PointsPerDecade = 20;
     private static readonly int[] AveragedConversions = [1, 4, 16, 64, 256];
 
-    public static NoiseReport Run(FrontEndDesign design, IReadOnlyList<double> temperaturesCelsius)
+    public static NoiseReport Run(FrontEndDesign design, IReadOnlyList<double> temperaturesCelsius, ICheckEngine? engine = null)
     {
         var b = BufferCircuits.Require(design);
         var model = new ClosedFormModel(design);
@@ -66,16 +66,28 @@ internal static class BufferNoise
 
         var points = temperaturesCelsius.Select(t =>
         {
-            var noise = NoiseAnalysis.Run(BufferCircuits.Acquiring(design, t), node, sweep);
-            var parts = noise.Generators.Distinct()
-                .Select(g => new NoiseContribution(g.Element, g.Label, noise.GeneratorRmsVolts(g.Element, g.Label)))
-                .Where(c => c.RmsVolts > 0).OrderByDescending(c => c.RmsVolts).ToList();
-            var total = noise.RmsVolts();
-            var sampling = parts.Where(p => p.Element == BufferCircuits.SwitchResistor).Sum(p => p.RmsVolts * p.RmsVolts);
-            var frontEnd = Math.Sqrt(Math.Max(0, total * total - sampling));
             var cf = model.At(t);
             var ktc = adc.SamplingCapacitanceFarads > 0
                 ? Math.Sqrt(PhysicalConstants.BoltzmannJoulesPerKelvin * PhysicalConstants.ToKelvin(t) / adc.SamplingCapacitanceFarads) : 0;
+            List<NoiseContribution> parts;
+            double total, sampling;
+            if (b.Subcircuit is null)
+            {
+                var noise = NoiseAnalysis.Run(BufferCircuits.Acquiring(design, t), node, sweep);
+                parts = noise.Generators.Distinct()
+                    .Select(g => new NoiseContribution(g.Element, g.Label, noise.GeneratorRmsVolts(g.Element, g.Label)))
+                    .Where(c => c.RmsVolts > 0).OrderByDescending(c => c.RmsVolts).ToList();
+                total = noise.RmsVolts();
+                sampling = parts.Where(p => p.Element == BufferCircuits.SwitchResistor).Sum(p => p.RmsVolts * p.RmsVolts);
+            }
+            else
+            {
+                // The design's own subcircuit: the engine's total at the node; the switch's share is its kT/C.
+                total = SubcircuitBuffer.NoiseRmsVolts(BufferCircuits.Acquiring(design, t), node, sweep, engine ?? BuiltInEngine.Instance);
+                sampling = Math.Min(ktc * ktc, total * total);
+                parts = [new NoiseContribution(BufferCircuits.OpAmpName, "total (the engine gives no split by generator)", total)];
+            }
+            var frontEnd = Math.Sqrt(Math.Max(0, total * total - sampling));
             return new NoisePoint(t, total, total / model.Adc.LsbVolts, total / Math.Abs(cf.VoltsPerKelvin), Math.Sqrt(sampling), frontEnd, ktc, parts);
         }).ToList();
 
@@ -88,8 +100,11 @@ internal static class BufferNoise
             var correlated = Math.Sqrt(worst.SamplingRmsVolts * worst.SamplingRmsVolts / n + worst.FrontEndRmsVolts * worst.FrontEndRmsVolts * CorrelatedFactor(n, rho));
             return new AveragingGain(n, worst.RmsVolts / Math.Sqrt(n), correlated, correlated / perKelvin);
         }).ToList();
+        var analysis = b.Subcircuit is null
+            ? "noise analysis (adjoint)"
+            : "noise analysis of your op-amp subcircuit by the check's engine (the total only; the switch's share taken as its kT/C)";
         var method = FormattableString.Invariant(
-            $"noise analysis (adjoint) at the sampling capacitor with the switch closed, {FromHertz:G3} Hz to {to:G3} Hz; averaging: kT/C uncorrelated, front end correlated as e^(−T_s/τ), τ = {tau:G3} s");
+            $"{analysis} at the sampling capacitor with the switch closed, {FromHertz:G3} Hz to {to:G3} Hz; averaging: kT/C uncorrelated, front end correlated as e^(−T_s/τ), τ = {tau:G3} s");
         return new NoiseReport(FromHertz, to, points, tau, rho, averaging, method);
     }
 

@@ -51,13 +51,13 @@ internal static class BufferRecovery
     /// <summary>1000 V/µs: faster than any op-amp a sensor front end would use, so a need above it is reported as none found.</summary>
     public const double SlewRateCeilingVoltsPerSecond = 1e9;
 
-    public static RecoveryResult Run(FrontEndDesign design, double celsius, double? prechargeVolts, bool search)
+    public static RecoveryResult Run(FrontEndDesign design, double celsius, double? prechargeVolts, bool search, ICheckEngine? engine = null)
     {
         var b = BufferCircuits.Require(design);
         var adc = new ClosedFormModel(design).Adc;
         var allowed = adc.LsbVolts / 2;
         var settle = design.Check.SettleLimitLsb * adc.LsbVolts;
-        double Error(BufferSpec spec) => SettlingError.Volts(design with { Buffer = spec }, celsius, prechargeVolts, settle);
+        double Error(BufferSpec spec) => SettlingError.Volts(design with { Buffer = spec }, celsius, prechargeVolts, settle, engine);
         // Far below the need the op-amp stays slewing and the transient may not converge: that candidate does not settle either.
         bool Settles(BufferSpec spec)
         {
@@ -72,7 +72,11 @@ internal static class BufferRecovery
         }
 
         var real = Error(b);
-        var noSlewLimit = b.SlewRateVoltsPerSecond is null ? real : Error(b with { SlewRateVoltsPerSecond = null });
+        // A design's own subcircuit cannot be made faster: the ideal buffer and the searches use the macro-model of its
+        // datasheet figures, and its share is not split into slew rate and bandwidth.
+        var external = b.Subcircuit is not null;
+        b = b with { Subcircuit = null };
+        var noSlewLimit = b.SlewRateVoltsPerSecond is null || external ? real : Error(b with { SlewRateVoltsPerSecond = null });
         var ideal = Error(b with { GainBandwidthHertz = IdealFactor * b.GainBandwidthHertz, SlewRateVoltsPerSecond = null });
         double? gbw = null, slew = null;
         if (search && ideal <= allowed)
@@ -85,6 +89,7 @@ internal static class BufferRecovery
         }
         var method = FormattableString.Invariant(
             $"sampling transients at {celsius:0.##} °C, {PrechargeCases.Describe(prechargeVolts)}: design op-amp against one with {IdealFactor:0}× the gain-bandwidth and no slew limit; ") +
+            (external ? "your subcircuit against the macro-model of the design's datasheet figures, which the searches use too (the share is not split into slew rate and bandwidth); " : "") +
             (search ? $"scan down in half decades, then bisection ({SearchPrecision:P0}) on the simulated sample for ½ LSB; a candidate whose transient does not converge counts as not settling; a need at the search floor (GBW × {GainBandwidthFloorFactor:G2}, {SlewRateFloorVoltsPerSecond:G2} V/s) means any op-amp down to it settles" : "searches skipped (--no-remedies)");
         return new RecoveryResult(celsius, prechargeVolts, real, noSlewLimit, ideal, allowed, gbw, slew, method) { GainBandwidthFloorHertz = b.GainBandwidthHertz * GainBandwidthFloorFactor };
     }

@@ -21,12 +21,15 @@ internal static class BufferStability
 
     private const int PointsPerDecade = 40;
 
-    public static StabilityResult Loop(FrontEndDesign design, double celsius)
+    public static StabilityResult Loop(FrontEndDesign design, double celsius, ICheckEngine? engine = null)
     {
         var buffer = BufferCircuits.Require(design);
         var circuit = BufferCircuits.Acquiring(design, celsius);
         var sweep = FrequencySweep.Logarithmic(Math.Max(1e-3, buffer.GainBandwidthHertz * 1e-7), buffer.GainBandwidthHertz * 1e3, PointsPerDecade);
-        var loop = LoopGain.Run(circuit, BufferCircuits.OpAmpName, sweep);
+        // The design's own subcircuit is a black box only a SPICE engine runs: its loop is measured by injection.
+        var loop = buffer.Subcircuit is null
+            ? LoopGain.Run(circuit, BufferCircuits.OpAmpName, sweep)
+            : SubcircuitBuffer.LoopGain(circuit, sweep, engine ?? BuiltInEngine.Instance);
         var phase = loop.PhaseDegrees;
         var magnitude = loop.MagnitudeDb;
         var (phaseCrossover, gainMargin) = GainMargin([.. loop.FrequenciesHertz], magnitude, phase);
@@ -43,17 +46,17 @@ internal static class BufferStability
     }
 
     /// <summary>The loop at the ends and the middle of the check range, the step response, and the isolation resistor for 60° when the margin is lower.</summary>
-    public static StabilityReport Run(FrontEndDesign design, bool searchRemedy = true)
+    public static StabilityReport Run(FrontEndDesign design, bool searchRemedy = true, ICheckEngine? engine = null)
     {
         var buffer = BufferCircuits.Require(design);
         var range = design.Check.Range;
         double[] temperatures = [range.MinCelsius, 0.5 * (range.MinCelsius + range.MaxCelsius), range.MaxCelsius];
-        var loops = temperatures.Distinct().Select(t => Loop(design, t)).ToList();
+        var loops = temperatures.Distinct().Select(t => Loop(design, t, engine)).ToList();
         var worst = loops.MinBy(l => l.PhaseMarginDegrees ?? double.PositiveInfinity)!;
         double? isolation = null, closedFormIsolation = null;
         if (searchRemedy && worst.PhaseMarginDegrees is { } pm && pm < TargetPhaseMarginDegrees)
         {
-            isolation = IsolationFor(design, TargetPhaseMarginDegrees, worst.Celsius);
+            isolation = IsolationFor(design, TargetPhaseMarginDegrees, worst.Celsius, engine);
             var cf = ClosedForm(design);
             closedFormIsolation = SinglePoleLoop.IsolationFor(TargetPhaseMarginDegrees, cf.GainBandwidthHertz, cf.OutputOhms,
                 design.Filter.SeriesResistorOhms, cf.LoadFarads, cf.FeedbackFactor);
@@ -61,23 +64,24 @@ internal static class BufferStability
         StepResponse? step = null;
         try
         {
-            step = BufferStep.Run(design, worst.CrossoverHertz);
+            step = BufferStep.Run(design, worst.CrossoverHertz, engine);
         }
         catch (SimulationException)
         {
             // An oscillating loop can defeat the transient; the loop gain above already tells the verdict.
         }
-        return new StabilityReport(loops, step, buffer.MinimumPhaseMarginDegrees, TargetPhaseMarginDegrees, isolation, closedFormIsolation, Method);
+        return new StabilityReport(loops, step, buffer.MinimumPhaseMarginDegrees, TargetPhaseMarginDegrees, isolation, closedFormIsolation,
+            buffer.Subcircuit is null ? Method : SubcircuitBuffer.Method);
     }
 
     /// <summary>
     /// The smallest isolation resistor (outside the loop, between the op-amp and the filter) that gives the target
     /// phase margin, by bisection on the simulated loop gain; null when none up to 1 MΩ does (a second pole limits).
     /// </summary>
-    public static double? IsolationFor(FrontEndDesign design, double targetDegrees, double celsius)
+    public static double? IsolationFor(FrontEndDesign design, double targetDegrees, double celsius, ICheckEngine? engine = null)
     {
         double Margin(double ohms) =>
-            Loop(BufferCircuits.WithBuffer(design, b => b with { IsolationResistorOhms = ohms }), celsius).PhaseMarginDegrees ?? 90;
+            Loop(BufferCircuits.WithBuffer(design, b => b with { IsolationResistorOhms = ohms }), celsius, engine).PhaseMarginDegrees ?? 90;
         return MonotoneSearch.SmallestPassing(1e-2, 1e6, r => Margin(r) >= targetDegrees, relativePrecision: 1e-3);
     }
 

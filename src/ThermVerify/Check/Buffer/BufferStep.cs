@@ -14,7 +14,7 @@ internal static class BufferStep
 {
     private const double MaximumStepVolts = 0.01;
 
-    public static StepResponse Run(FrontEndDesign design, double? crossoverHertz)
+    public static StepResponse Run(FrontEndDesign design, double? crossoverHertz, ICheckEngine? engine = null)
     {
         var b = BufferCircuits.Require(design);
         var fc = crossoverHertz ?? b.GainBandwidthHertz / b.Gain;
@@ -30,11 +30,21 @@ internal static class BufferStep
         var start = 2 * period;
         var stop = start + 60 * period;
         var circuit = BufferCircuits.Step(design, from, from + step, start);
-        var result = Transient.Run(circuit, new TransientOptions { StopTimeSeconds = stop, MaxStepSeconds = (stop - start) / 3000, VoltageToleranceVolts = Math.Abs(step) * 1e-6 });
+        var options = new TransientOptions { StopTimeSeconds = stop, MaxStepSeconds = (stop - start) / 3000, VoltageToleranceVolts = Math.Abs(step) * 1e-6 };
         var node = BufferCircuits.AmplifierNode(design);
-        var t = result.TimesSeconds;
-        var v = result.Voltage(node);
-        var initial = result.VoltageAt(node, start);
+        double[] t, v;
+        double initial;
+        if (b.Subcircuit is null)
+        {
+            var result = Transient.Run(circuit, options);
+            (t, v, initial) = (result.TimesSeconds, result.Voltage(node), result.VoltageAt(node, start));
+        }
+        else
+        {
+            // The design's own subcircuit: the check's engine, read on an even grid; the step starts on a grid point.
+            (t, v) = SubcircuitBuffer.Step(circuit, options, node, engine ?? BuiltInEngine.Instance);
+            initial = v[Array.FindLastIndex(t, x => x <= start)];
+        }
         // The end value from the gain, not the last sample: a lightly damped loop may still ring when the run stops.
         var size = step * b.Gain;
         var final = initial + size;

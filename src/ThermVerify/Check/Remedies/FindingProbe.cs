@@ -20,7 +20,7 @@ internal sealed class FindingProbe(string findingId, double celsius, PrechargeCa
     public double Measure(FrontEndDesign design)
     {
         if (FindingId == "buffer-noise")
-            return Buffer.BufferNoise.Run(design, [Celsius]).Worst.RmsVolts;
+            return Buffer.BufferNoise.Run(design, [Celsius], options.Engine).Worst.RmsVolts;
         var sampling = FindingId is "settling" or "converter" or FindingRules.OverBudgetId;
         IReadOnlyList<PrechargeCase>? cases = precharge is null ? null : [precharge];
         SampleKinds? kinds = !sampling ? null : first switch { true => SampleKinds.FirstOnly, false => SampleKinds.SteadyOnly, _ => SampleKinds.Both };

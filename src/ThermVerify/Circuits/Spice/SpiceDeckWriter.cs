@@ -23,7 +23,8 @@ internal static class SpiceDeckWriter
     /// <summary>The deck's TNOM: the temperature resistor tempcos and sensor expressions are referred to.</summary>
     public const double NominalCelsius = 25;
 
-    public static string Write(Circuit circuit, SpiceAnalysis analysis, SpiceDeckHeader? header = null)
+    /// <param name="outputs">Output statements after the analysis; none writes a bare netlist and analysis.</param>
+    public static string Write(Circuit circuit, SpiceAnalysis analysis, SpiceDeckHeader? header = null, IReadOnlyList<SpiceOutput>? outputs = null)
     {
         ArgumentNullException.ThrowIfNull(circuit);
         ArgumentNullException.ThrowIfNull(analysis);
@@ -53,14 +54,14 @@ internal static class SpiceDeckWriter
                 deck.AppendLine($"* node {node}: {OneLine(what)}");
         deck.AppendLine($".options tnom={Format(NominalCelsius)} numdgt=15 {Tolerances(analysis)}");
         deck.AppendLine($".temp {Format(circuit.TemperatureCelsius)}");
-        foreach (var include in lines.Includes)
-            deck.AppendLine($".include \"{include}\"");
         deck.Append(lines.Netlist);
         if (analysis is TransientSweep { StepGuards.Count: > 0 } guarded)
             WriteGuards(deck, guarded.StepGuards);
         foreach (var definition in lines.Definitions)
             deck.AppendLine(definition);
         deck.AppendLine(AnalysisLine(analysis));
+        foreach (var output in outputs ?? [])
+            deck.AppendLine(output.Line());
         deck.AppendLine(".end");
         return deck.ToString();
     }

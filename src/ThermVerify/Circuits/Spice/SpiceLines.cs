@@ -12,7 +12,6 @@ internal sealed class SpiceLines
     private readonly StringBuilder netlist = new();
     private readonly List<string> definitions = [];
     private readonly HashSet<string> definitionKeys = [];
-    private readonly List<string> includes = [];
 
     /// <summary>The simulation stop time of a transient deck (switch controls are written up to it), else null.</summary>
     public double? StopTimeSeconds { get; init; }
@@ -42,13 +41,6 @@ internal sealed class SpiceLines
     {
         if (definitionKeys.Add(key)) definitions.Add(text.TrimEnd());
     }
-
-    public void Include(string path)
-    {
-        if (!includes.Contains(path)) includes.Add(path);
-    }
-
-    public IReadOnlyList<string> Includes => includes;
 
     public string Netlist => netlist.ToString();
 

@@ -21,7 +21,7 @@ internal static class BufferPlots
     {
         var loop = s.Worst;
         var logF = loop.FrequenciesHertz.Select(Math.Log10).ToArray();
-        var plot = PlotStyle.NewPlot($"Buffer loop gain at {loop.Celsius:0.##} °C", "Frequency (log₁₀ of Hz)", "|T| (dB)");
+        var plot = PlotStyle.NewPlot($"Buffer loop gain at {loop.Celsius:0.##} °C", "Frequency", "|T| (dB)");
         PlotStyle.AddLine(plot, logF, [.. loop.MagnitudeDb], "|T| (dB), left axis", PlotStyle.Closed, 3);
         // The phase as margin to −180°: where |T| crosses 0 dB this curve is the phase margin.
         PlotStyle.AddLine(plot, logF, [.. loop.PhaseDegrees.Select(p => 180 + p)], "180° + ∠T (°), right axis", PlotStyle.Simulated, 2, yAxis: plot.Axes.Right);
@@ -34,6 +34,7 @@ internal static class BufferPlots
         minimum.Axes.YAxis = plot.Axes.Right;
         minimum.LegendText = "minimum phase margin (right axis)";
         plot.Axes.Right.Label.Text = "Phase above −180° (°)";
+        PlotStyle.DecadeTicksHertz(plot.Axes.Bottom, loop.FrequenciesHertz[0], loop.FrequenciesHertz[^1]);
         plot.ShowLegend(Edge.Bottom);
         var caption = loop.PhaseMarginDegrees is { } pm
             ? $"Loop gain by Bode's return ratio with the real load; phase margin {pm:0.#}° at {loop.CrossoverHertz:G3} Hz (single-pole estimate {loop.ClosedFormPhaseMarginDegrees:0.#}°)."

@@ -1,4 +1,5 @@
 using ScottPlot;
+using ThermVerify.Quantities;
 
 namespace ThermVerify.Reporting.Plots;
 
@@ -90,6 +91,25 @@ internal static class PlotStyle
         if (ticks.Count < 2) ticks = [low, high];
         axis.SetTicks([.. ticks.Select(Math.Log10)], [.. ticks.Select(label)]);
     }
+
+    /// <summary>
+    /// Tick marks at each power of ten for an axis drawn in log₁₀ of a frequency, labelled in hertz with a prefix
+    /// ("10 Hz", "1 kHz", "1 MHz"): a Bode plot spans many decades, where 1-2-5 marks would crowd.
+    /// </summary>
+    public static void DecadeTicksHertz(IAxis axis, double lowHertz, double highHertz)
+    {
+        var ticks = new List<double>();
+        for (var decade = Math.Ceiling(Math.Log10(lowHertz) - 1e-9); decade <= Math.Floor(Math.Log10(highHertz) + 1e-9); decade++)
+            ticks.Add(decade);
+        if (ticks.Count < 2)
+        {
+            LogTicks(axis, lowHertz, highHertz, Hertz);
+            return;
+        }
+        axis.SetTicks([.. ticks], [.. ticks.Select(d => Hertz(Math.Pow(10, d)))]);
+    }
+
+    public static string Hertz(double hertz) => EngineeringFormat.Format(hertz, UnitKind.Hertz, 3);
 
     public static RenderedPlot Render(Plot plot, string stem, string title, string caption) =>
         new(stem, title, caption, plot.GetImageBytes(WidthPixels, HeightPixels, ImageFormat.Png), plot.GetSvgXml(WidthPixels, HeightPixels));

@@ -11,10 +11,13 @@ internal static class FitText
     public static string Render(SensorFitSummary summary)
     {
         var text = new StringBuilder();
-        text.AppendLine($"Beta (from the outermost points): β = {Format(summary.Beta.Model.Beta, "0.###")} K, " +
+        text.AppendLine($"Beta (from {summary.BetaPoints}): β = {Format(summary.Beta.Model.Beta, "0.###")} K, " +
                         $"R0 = {EngineeringFormat.Format(summary.Beta.Model.R0Ohms, UnitKind.Ohm, 6)} at {Format(summary.Beta.Model.T0Celsius, "0.###")} °C");
         AppendFit(text, "Steinhart–Hart (A + B ln R + C ln³R)", summary.SteinhartHart);
         AppendFit(text, "Steinhart–Hart with squared term (+ D ln²R)", summary.SteinhartHartWithSquaredTerm);
+        text.AppendLine(summary.Rated is { } rated
+            ? $"Rated values (from {rated.Source}): R25 = {EngineeringFormat.Format(rated.R25Ohms, UnitKind.Ohm, 6)}, β25/85 = {Format(rated.Beta2585Kelvin, "0.#")} K"
+            : "Rated values: R25 and β25/85 need points at 25 °C and 85 °C, or points spanning 25 °C to 85 °C");
         text.AppendLine();
 
         var table = new TextTable(["T (°C)", "R", "Beta residual (K)",

@@ -1,4 +1,5 @@
 using System.Numerics;
+using ThermVerify.Limits;
 
 namespace ThermVerify.Simulation.Mna;
 
@@ -7,11 +8,15 @@ internal sealed class ComplexLu(int n)
 {
     private readonly Complex[] lu = new Complex[n * n];
     private readonly int[] rowOfPivot = new int[n];
+    // Per thread, not per matrix: short analyses that build a new matrix each time still count up.
+    [ThreadStatic] private static int factorisations;
     private readonly Complex[] work = new Complex[n];
 
     /// <summary>Factorises the first n² entries; returns −1 or the column whose pivot vanished.</summary>
     public int Factor(Complex[] matrix)
     {
+        // Every analysis passes through here: Ctrl+C and the time limit stop it within a few solver steps.
+        if ((++factorisations & 63) == 0) Work.ThrowIfCancelled();
         Array.Copy(matrix, lu, n * n);
         var scale = 0.0;
         for (var i = 0; i < n * n; i++)

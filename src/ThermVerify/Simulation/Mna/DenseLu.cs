@@ -1,3 +1,4 @@
+using ThermVerify.Limits;
 namespace ThermVerify.Simulation.Mna;
 
 /// <summary>
@@ -12,12 +13,16 @@ internal sealed class DenseLu(int n)
 
     private readonly double[] lu = new double[n * n];
     private readonly int[] rowOfPivot = new int[n];
+    // Per thread, not per matrix: short analyses that build a new matrix each time still count up.
+    [ThreadStatic] private static int factorisations;
     private readonly double[] columnScale = new double[n];
     private readonly double[] work = new double[n];
 
     /// <summary>Factorises the first n² entries of <paramref name="matrix"/>; returns −1 or the failing column.</summary>
     public int Factor(double[] matrix)
     {
+        // Every analysis passes through here: Ctrl+C and the time limit stop it within a few solver steps.
+        if ((++factorisations & 63) == 0) Work.ThrowIfCancelled();
         Span<double> a = lu;
         Span<double> scale = columnScale;
         scale.Clear();

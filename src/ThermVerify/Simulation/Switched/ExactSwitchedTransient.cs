@@ -1,0 +1,223 @@
+using System.Diagnostics.CodeAnalysis;
+using ThermVerify.Circuits;
+using ThermVerify.Simulation.Mna;
+
+namespace ThermVerify.Simulation.Switched;
+
+/// <summary>
+/// Exact transient of a linear switched circuit: between switch edges the circuit is linear and time-invariant, so
+/// the state after an interval h is e^(Ah)·z + ∫₀ʰ e^(As) ds·u (<see cref="IntervalMap"/>), with no time step and no
+/// truncation error; rounding is the only error. All timed switches must follow <see cref="PeriodicSchedule"/>s of one
+/// period, sources must be DC, and the only nonlinear element allowed is the op-amp macro-model, linearised in its
+/// linear region and checked on every interval (<see cref="NotLinearException"/> says where it leaves it, so that the
+/// caller can use <see cref="TransientSimulation"/> there).
+/// <para>
+/// The run starts from the operating point at t = 0 (the engine's DC solver, switches as the schedules have them
+/// at 0), as <see cref="TransientSimulation"/> does. One period's map z_{k+1} = Φ·z_k + c is composed once and reused;
+/// runs of equal periods are jumped with a matrix power; the periodic steady state is one solve of (I − Φ)·z = c.
+/// A value at a switch edge is the limit from before the edge, as the time-stepping engine reports it.
+/// </para>
+/// Objects keep caches and are not thread-safe; make one per thread. Circuit temperature: the circuit's own
+/// (<c>circuit with { TemperatureCelsius = t }</c>).
+/// </summary>
+internal sealed class ExactSwitchedTransient
+{
+    public const string AnalysisName = "Exact switched transient";
+
+    private readonly BoundSystem system;
+    private readonly LinearAssembly assembly;
+    private readonly StateCoordinates coordinates;
+    private readonly PeriodicTimeline timeline;
+    private readonly double[] initialSolution;
+    private readonly double[] initialState;
+    private readonly SwitchedMaps maps;
+    private double[]? steadyState;
+
+    private ExactSwitchedTransient(Circuit circuit, ExactSwitchedOptions options)
+    {
+        options.Validate();
+        TopologyCheck.Run(circuit);
+        system = new BoundSystem(circuit);
+        assembly = new LinearAssembly(system, options.LinearityToleranceVolts);
+        timeline = new PeriodicTimeline(assembly.Switches);
+        coordinates = new StateCoordinates(assembly.Reactive(), system.Size);
+        maps = new SwitchedMaps(assembly, coordinates, timeline);
+
+        // The engine's own operating point at t = 0, started from the linear model's DC solution so that an op-amp
+        // circuit needs one or two Newton iterations instead of a search from zero.
+        var seed = assembly.LinearDcSolution(timeline.MaskAt(0));
+        var c = system.Context;
+        c.Mode = AnalysisMode.Dc;
+        c.TimeSeconds = 0;
+        c.StepSeconds = 0;
+        if (seed is not null)
+            Array.Copy(seed, c.Solution, seed.Length);
+        DcSolver.Solve(system, $"{AnalysisName} initial point", null);
+        initialSolution = c.Solution[..system.Size];
+        initialState = coordinates.StateOf(initialSolution);
+
+        // Reduce the configurations of the first and of a regular period now, so that a circuit exact propagation
+        // cannot handle is refused here rather than at the first read.
+        foreach (var mask in timeline.Pattern(0).Concat(timeline.RegularPattern()).Distinct())
+            maps.ModelOf(mask);
+    }
+
+    /// <exception cref="NotLinearException">The circuit is outside what exact propagation handles (the message says why).</exception>
+    /// <exception cref="TopologyException">The connections make the circuit unsolvable.</exception>
+    /// <exception cref="SimulationException">The operating point at t = 0 failed.</exception>
+    public static ExactSwitchedTransient Start(Circuit circuit, ExactSwitchedOptions? options = null) =>
+        new(circuit, options ?? new ExactSwitchedOptions());
+
+    /// <summary>As <see cref="Start"/>, but a circuit exact propagation cannot handle gives false and the reason.</summary>
+    public static bool TryStart(Circuit circuit, [NotNullWhen(true)] out ExactSwitchedTransient? run,
+        [NotNullWhen(false)] out NotLinearException? reason, ExactSwitchedOptions? options = null)
+    {
+        try
+        {
+            run = Start(circuit, options);
+            reason = null;
+            return true;
+        }
+        catch (NotLinearException e)
+        {
+            run = null;
+            reason = e;
+            return false;
+        }
+    }
+
+    public double PeriodSeconds => timeline.PeriodSeconds;
+
+    /// <summary>The number of independent energy stores (the length of the state vector).</summary>
+    public int StateCount => coordinates.StateCount;
+
+    /// <summary>The node's voltage at each time (rising, from 0: the operating point), from the start of the run.</summary>
+    /// <exception cref="NotLinearException">An op-amp leaves its linear region before the last time.</exception>
+    public double[] VoltagesAt(IReadOnlyList<double> timesSeconds, string node)
+    {
+        var unknown = UnknownOf(node);
+        var cursor = Cursor();
+        var result = new double[timesSeconds.Count];
+        var previous = 0.0;
+        for (var i = 0; i < result.Length; i++)
+        {
+            var t = timesSeconds[i];
+            if (!double.IsFinite(t) || t < previous)
+                throw new ArgumentException($"Read times must be finite, not negative and not falling; time #{i + 1} is {t:G9} s after {previous:G9} s.", nameof(timesSeconds));
+            previous = t;
+            if (t <= timeline.SnapSeconds)
+            {
+                result[i] = unknown == system.Layout.Ground ? 0 : initialSolution[unknown];
+                continue;
+            }
+            var (period, phase) = PeriodAndPhase(t);
+            result[i] = cursor.ReadAt(period, phase, unknown);
+        }
+        return result;
+    }
+
+    /// <summary>
+    /// The node's voltage when <paramref name="samplingSwitch"/> opens for the (<paramref name="conversion"/> + 1)-th
+    /// time: conversion k of an ADC whose sampling capacitor is read as its switch opens. Runs of equal periods are
+    /// jumped with a matrix power (stepped one by one, with every interval checked, when an op-amp is present).
+    /// </summary>
+    public double SampleVoltage(string samplingSwitch, long conversion, string node)
+    {
+        var unknown = UnknownOf(node);
+        var (period, phase) = Opening(samplingSwitch, conversion);
+        return Cursor().ReadAt(period, phase, unknown);
+    }
+
+    /// <summary>Conversions 0 … count − 1 (see <see cref="SampleVoltage"/>), one period map application each.</summary>
+    public double[] SampleVoltages(string samplingSwitch, int count, string node)
+    {
+        ArgumentOutOfRangeException.ThrowIfNegative(count);
+        var unknown = UnknownOf(node);
+        var cursor = Cursor();
+        var result = new double[count];
+        if (count == 0)
+            return result;
+        var (first, phase) = Opening(samplingSwitch, count - 1);
+        first -= count - 1;
+        for (var k = 0; k < count; k++)
+            result[k] = cursor.ReadAt(first + k, phase, unknown);
+        return result;
+    }
+
+    /// <summary>
+    /// The node's voltage when <paramref name="samplingSwitch"/> opens in the periodic steady state: every schedule
+    /// running for ever (counts ignored), after all transients have died out. One solve of (I − Φ)·z = c.
+    /// A <see cref="LinearityViolation"/> raised here gives times from the start of a steady-state period.
+    /// </summary>
+    public double SteadyStateSampleVoltage(string samplingSwitch, string node)
+    {
+        var unknown = UnknownOf(node);
+        var (_, phase) = Opening(samplingSwitch, 0);
+        return SteadyStateCursor().ReadAt(0, phase, unknown);
+    }
+
+    /// <summary>The node's voltage at a phase in (0, T] of a period of the periodic steady state (see <see cref="SteadyStateSampleVoltage"/>).</summary>
+    public double SteadyStateVoltage(double phaseSeconds, string node)
+    {
+        if (!(phaseSeconds > 0 && phaseSeconds <= PeriodSeconds))
+            throw new ArgumentOutOfRangeException(nameof(phaseSeconds), $"The phase {phaseSeconds:G9} s must lie in (0, {PeriodSeconds:G9}] s.");
+        return SteadyStateCursor().ReadAt(0, phaseSeconds, UnknownOf(node));
+    }
+
+    /// <summary>
+    /// A reader of node voltages at rising times, one cursor for the whole run: what a caller that reads sample after
+    /// sample needs (<see cref="VoltagesAt"/> starts from t = 0 on every call).
+    /// </summary>
+    public Func<double, string, double> Reader()
+    {
+        var cursor = Cursor();
+        return (t, node) =>
+        {
+            var unknown = UnknownOf(node);
+            if (!double.IsFinite(t) || t < 0)
+                throw new ArgumentOutOfRangeException(nameof(t), t, "Read times must be finite and not negative.");
+            if (t <= timeline.SnapSeconds)
+                return unknown == system.Layout.Ground ? 0 : initialSolution[unknown];
+            var (period, phase) = PeriodAndPhase(t);
+            return cursor.ReadAt(period, phase, unknown);
+        };
+    }
+
+    private TimelineCursor SteadyStateCursor()
+    {
+        if (steadyState is null)
+        {
+            var fixedPoint = maps.PeriodMapOf(timeline.RegularPattern()).FixedPoint();
+            if (maps.HasChecks)
+                new TimelineCursor(maps, timeline, fixedPoint, regular: true).StepWithin(timeline.PeriodSeconds);
+            steadyState = fixedPoint;
+        }
+        return new TimelineCursor(maps, timeline, steadyState, regular: true);
+    }
+
+    private TimelineCursor Cursor() => new(maps, timeline, initialState, regular: false);
+
+    private int UnknownOf(string node) => system.Layout.IndexOfNode(node);
+
+    /// <summary>t as (period, phase in (0, T]); an instant on a period boundary is the end of the period before it.</summary>
+    private (long Period, double Phase) PeriodAndPhase(double t)
+    {
+        var period = (long)Math.Floor(t / PeriodSeconds);
+        var phase = t - period * PeriodSeconds;
+        if (phase <= timeline.SnapSeconds)
+            return (period - 1, PeriodSeconds);
+        return (period, Math.Min(phase, PeriodSeconds));
+    }
+
+    private (long Period, double Phase) Opening(string switchName, long conversion)
+    {
+        ArgumentOutOfRangeException.ThrowIfNegative(conversion);
+        var sw = assembly.Switches.FirstOrDefault(s => s.Name == switchName)
+            ?? throw new CircuitException($"The circuit has no timed switch named '{switchName}'. Timed switches: {string.Join(", ", assembly.Switches.Select(s => s.Name))}.");
+        var schedule = (PeriodicSchedule)sw.Schedule;
+        if (schedule.Count is { } n && conversion >= n)
+            throw new ArgumentOutOfRangeException(nameof(conversion), $"Switch '{switchName}' opens {n} times; conversion {conversion} (from 0) does not happen.");
+        var (period, phase) = PeriodAndPhase(schedule.DelaySeconds + schedule.ClosedSeconds);
+        return (period + conversion, phase);
+    }
+}

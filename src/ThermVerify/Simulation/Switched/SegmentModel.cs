@@ -1,0 +1,84 @@
+using MathNet.Numerics.LinearAlgebra;
+
+namespace ThermVerify.Simulation.Switched;
+
+/// <summary>
+/// One switch configuration as a state-space model: z' = A·z + u between edges, and every MNA unknown x = P·z + p
+/// (the algebraic ones follow the state instantly, so at an edge they jump while z does not).
+/// </summary>
+internal sealed class SegmentModel
+{
+    private readonly double[] outputRows;
+    private readonly double[] outputOffsets;
+
+    public SegmentModel(Matrix<double> a, Vector<double> u, Matrix<double> p, double[] offset)
+    {
+        A = a;
+        U = u;
+        StateCount = a.RowCount;
+        UnknownCount = p.RowCount;
+        outputRows = p.ToRowMajorArray();
+        outputOffsets = offset;
+    }
+
+    public Matrix<double> A { get; }
+
+    public Vector<double> U { get; }
+
+    public int StateCount { get; }
+
+    public int UnknownCount { get; }
+
+    /// <summary>x[unknown] = P[unknown, ·]·z + p[unknown]; the ground index (one past the last unknown) reads 0.</summary>
+    public double Output(int unknown, ReadOnlySpan<double> z)
+    {
+        if (unknown == UnknownCount)
+            return 0;
+        var r = StateCount;
+        var sum = outputOffsets[unknown];
+        var row = outputRows.AsSpan(unknown * r, r);
+        for (var i = 0; i < r; i++)
+            sum += row[i] * z[i];
+        return sum;
+    }
+
+    /// <summary>The whole solution vector x = P·z + p.</summary>
+    public double[] Solution(ReadOnlySpan<double> z)
+    {
+        var x = new double[UnknownCount];
+        for (var i = 0; i < x.Length; i++)
+            x[i] = Output(i, z);
+        return x;
+    }
+
+    /// <summary>A monitored quantity as a row over z and a constant: q = w·z + w₀.</summary>
+    public (double[] Row, double Constant) Monitor(LinearMonitor monitor)
+    {
+        var r = StateCount;
+        var row = new double[r];
+        var constant = monitor.Constant;
+        for (var k = 0; k < monitor.Indices.Length; k++)
+        {
+            var unknown = monitor.Indices[k];
+            var coefficient = monitor.Coefficients[k];
+            for (var i = 0; i < r; i++)
+                row[i] += coefficient * outputRows[unknown * r + i];
+            constant += coefficient * outputOffsets[unknown];
+        }
+        return (row, constant);
+    }
+
+    /// <summary>
+    /// exp([[A·h, u·h], [0, 0]]) = [[e^(Ah), ∫₀ʰ e^(As) ds·u], [0, 1]] (Van Loan, "Computing integrals involving the
+    /// matrix exponential", IEEE Trans. Automatic Control 23(3), 1978, from memory): the exact step of z' = A·z + u
+    /// over h, without A⁻¹, so a singular A is fine.
+    /// </summary>
+    public Matrix<double> AugmentedExponential(double h)
+    {
+        var r = StateCount;
+        var augmented = Matrix<double>.Build.Dense(r + 1, r + 1);
+        augmented.SetSubMatrix(0, 0, A * h);
+        augmented.SetSubMatrix(0, r, (U * h).ToColumnMatrix());
+        return MatrixExponential.Exp(augmented);
+    }
+}

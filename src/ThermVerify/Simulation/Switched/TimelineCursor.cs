@@ -1,0 +1,132 @@
+namespace ThermVerify.Simulation.Switched;
+
+/// <summary>
+/// A position on the timeline — period, interval, time into the interval — and the state there. Moves forward
+/// only; each step applies an exact interval map (checked first when there are monitors). Unknowns are read as the
+/// limit from the left: at an edge, with the configuration of the interval that ends there.
+/// </summary>
+internal sealed class TimelineCursor
+{
+    private readonly SwitchedMaps maps;
+    private readonly PeriodicTimeline timeline;
+    private readonly bool regular;
+    private double[] z;
+    private double[] next;
+    private long period;
+    private int interval;
+    private double elapsed;
+    private int[] pattern;
+    private int[] previousPattern;
+    private long patternUntil;
+
+    /// <param name="regular">Follow the regular pattern in every period (the periodic steady state) instead of the schedules' own.</param>
+    public TimelineCursor(SwitchedMaps maps, PeriodicTimeline timeline, double[] state, bool regular)
+    {
+        this.maps = maps;
+        this.timeline = timeline;
+        this.regular = regular;
+        z = (double[])state.Clone();
+        next = new double[z.Length];
+        pattern = PatternOf(0);
+        previousPattern = pattern;
+        patternUntil = regular ? long.MaxValue : timeline.NextChange(0);
+    }
+
+    /// <summary>The present period's pattern, recomputed only where the timeline says it may change.</summary>
+    private void NewPeriod(long k)
+    {
+        previousPattern = k == period + 1 ? pattern : PatternOf(k - 1);
+        period = k;
+        if (regular || k < patternUntil)
+            return;
+        pattern = timeline.Pattern(k);
+        patternUntil = timeline.NextChange(k);
+    }
+
+    /// <summary>Moves to (period k, phase in (0, T]) and reads an unknown there (limit from the left).</summary>
+    public double ReadAt(long k, double phase, int unknown)
+    {
+        var snap = timeline.SnapSeconds;
+        var (targetPeriod, targetPhase) = phase >= timeline.PeriodSeconds - snap ? (k + 1, 0.0) : (k, phase);
+        if (targetPeriod < period || targetPeriod == period && targetPhase < timeline.Starts[interval] + elapsed - snap)
+            throw new InvalidOperationException("The exact transient was asked to go back in time.");
+        while (period < k)
+        {
+            if (interval == 0 && elapsed == 0)
+                JumpTowards(k);
+            else
+                StepWithin(timeline.PeriodSeconds);
+        }
+        if (period == k)
+            StepWithin(phase);
+        // The cursor may have rolled over to the next period's start; the value belongs to the interval ending at the phase.
+        var endPattern = period == k ? pattern : previousPattern;
+        return maps.ModelOf(endPattern[timeline.IntervalEndingAt(phase)]).Output(unknown, z);
+    }
+
+    /// <summary>Advances within the present period to a phase in (0, T]; reaching T moves to the next period's start.</summary>
+    public void StepWithin(double phase)
+    {
+        var snap = timeline.SnapSeconds;
+        while (true)
+        {
+            var start = timeline.Starts[interval];
+            var duration = timeline.Durations[interval];
+            var mask = pattern[interval];
+            if (phase >= start + duration - snap)
+            {
+                Apply(elapsed == 0 ? maps.FullMap(mask, interval) : maps.PartialMap(mask, duration - elapsed), duration - elapsed);
+                var last = interval == timeline.IntervalCount - 1;
+                if (last)
+                {
+                    NewPeriod(period + 1);
+                    interval = 0;
+                }
+                else
+                    interval++;
+                elapsed = 0;
+                if (last || phase <= start + duration + snap)
+                    return;
+            }
+            else
+            {
+                var h = phase - start - elapsed;
+                if (h > snap)
+                {
+                    Apply(maps.PartialMap(mask, h), h);
+                    elapsed += h;
+                }
+                return;
+            }
+        }
+    }
+
+    /// <summary>From a period start, towards period k: a run of equal periods in one matrix power, unless intervals must be checked.</summary>
+    private void JumpTowards(long k)
+    {
+        var end = regular ? k : Math.Min(k, timeline.NextChange(period));
+        var count = end - period;
+        if (count < 2 || maps.HasChecks)
+        {
+            StepWithin(timeline.PeriodSeconds);
+            return;
+        }
+        z = maps.PeriodMapOf(pattern).Advance(z, count);
+        next = new double[z.Length];
+        NewPeriod(end);
+    }
+
+    private void Apply(IntervalMap map, double seconds)
+    {
+        if (map.HasChecks)
+        {
+            var from = period * timeline.PeriodSeconds + timeline.Starts[interval] + elapsed;
+            if (map.Check(z, from, seconds) is { } violation)
+                throw NotLinearException.Leaves(violation);
+        }
+        map.Apply(z, next);
+        (z, next) = (next, z);
+    }
+
+    private int[] PatternOf(long k) => regular ? timeline.RegularPattern() : timeline.Pattern(k);
+}
