@@ -62,7 +62,7 @@ internal static class ChooseFixedCommand
                 MinimumOhms = parsed.GetValue(min) is { } lo ? QuantityParser.Parse(lo, UnitKind.Ohm).Value : null,
                 MaximumOhms = parsed.GetValue(max) is { } hi ? QuantityParser.Parse(hi, UnitKind.Ohm).Value : null,
                 Threads = Math.Max(1, parsed.GetValue(threads)),
-                Progress = goal == FixedResistorObjective.SlopeAt ? null : ProgressDisplay.For(parsed.InvocationConfiguration.Error, "candidates"),
+                Progress = goal == FixedResistorObjective.SlopeAt ? null : work.Progress(parsed, "candidates"),
                 Cancel = cancel,
             };
             if (options.MinimumOhms is { } minimum && options.MaximumOhms is { } maximum && !(minimum > 0 && maximum >= minimum))

@@ -49,7 +49,7 @@ internal static class MonteCarloCommand
                 Seed = parsed.GetValue(seed),
                 Threads = parsed.GetValue(threads),
                 SimulateSettling = !parsed.GetValue(noSettling),
-                Progress = ProgressDisplay.For(parsed.InvocationConfiguration.Error, "units"),
+                Progress = work.Progress(parsed, "units"),
                 Cancel = cancel,
             });
             set.Write();

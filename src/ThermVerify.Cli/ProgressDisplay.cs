@@ -5,25 +5,29 @@ namespace ThermVerify.Cli;
 /// <summary>
 /// Progress of a long run: a bar on an interactive terminal, redrawn in place, with the time spent and the time the
 /// rest should take at the rate so far. Nothing at all when standard error goes to a file or a pipe, or with
-/// --quiet: logs and CI output stay exactly the command's results. Safe to call from worker threads.
+/// --quiet: logs and CI output stay exactly the command's results, unless --progress asks for plain lines (one per
+/// tenth of the run). Safe to call from worker threads.
 /// </summary>
-internal sealed class ProgressDisplay(TextWriter terminal, string what, Func<TimeSpan> elapsed) : IProgress<RunProgress>
+internal sealed class ProgressDisplay(TextWriter terminal, string what, Func<TimeSpan> elapsed, bool plainLines = false) : IProgress<RunProgress>
 {
     private const int BarWidth = 30;
     private readonly Lock gate = new();
     private int lastDone = -1;
     private int lastPercent = -1;
+    private int lastTenth = -1;
 
     /// <summary>
     /// A bar when <paramref name="error"/> is the process's own standard error, that is a terminal and the run is not
-    /// quiet; otherwise none (null), so the library does no reporting work either.
+    /// quiet; plain lines on <paramref name="error"/> when <paramref name="linesAsked"/>; otherwise none (null), so the
+    /// library does no reporting work either.
     /// </summary>
-    public static ProgressDisplay? For(TextWriter error, string what, bool quiet = false)
+    public static ProgressDisplay? For(TextWriter error, string what, bool quiet = false, bool linesAsked = false)
     {
         var raw = error is TerminalText text ? text.Raw : error;
-        if (quiet || !ReferenceEquals(raw, Console.Error) || Console.IsErrorRedirected) return null;
+        var terminal = ReferenceEquals(raw, Console.Error) && !Console.IsErrorRedirected;
+        if (quiet || !(terminal || linesAsked)) return null;
         var clock = System.Diagnostics.Stopwatch.StartNew();
-        return new ProgressDisplay(raw, what, () => clock.Elapsed);
+        return terminal ? new ProgressDisplay(raw, what, () => clock.Elapsed) : new ProgressDisplay(error, what, () => clock.Elapsed, plainLines: true);
     }
 
     public void Report(RunProgress value)
@@ -36,6 +40,13 @@ internal sealed class ProgressDisplay(TextWriter terminal, string what, Func<Tim
             var percent = (int)(Fraction(value) * 100);
             if (percent == lastPercent && value.Done != value.Total) return;
             lastPercent = percent;
+            if (plainLines)
+            {
+                if (percent / 10 == lastTenth && value.Done != value.Total) return;
+                lastTenth = percent / 10;
+                terminal.WriteLine($"{what}: {value.Done}/{value.Total} ({percent} %), {Duration(elapsed())}");
+                return;
+            }
             terminal.Write($"\r{Line(value, elapsed())}");
             if (value.Done == value.Total) terminal.WriteLine();
         }

@@ -22,6 +22,10 @@ internal sealed class WorkOptions
         Description = "conversions one sampling run may simulate before it counts as unsettled",
         DefaultValueFactory = _ => WorkLimits.Default.MaximumConversions,
     };
+    private readonly Option<bool> progressLines = new("--progress")
+    {
+        Description = "show progress on standard error even when it is not a terminal: a plain line every tenth of the run (for CI logs)",
+    };
     private readonly Option<long> maxFileSize = new("--max-file-size")
     {
         Description = "largest design, table or subcircuit file read, in bytes",
@@ -35,6 +39,7 @@ internal sealed class WorkOptions
         command.Options.Add(work.maxPoints);
         command.Options.Add(work.maxConversions);
         command.Options.Add(work.maxFileSize);
+        command.Options.Add(work.progressLines);
         work.timeout.Validators.Add(r =>
         {
             if (r.GetValueOrDefault<double?>() is { } s && !(s > 0 && s <= 1e7)) r.AddError("--timeout is a number of seconds, more than 0");
@@ -60,6 +65,10 @@ internal sealed class WorkOptions
         MaximumConversions = parsed.GetValue(maxConversions),
         MaximumFileBytes = parsed.GetValue(maxFileSize),
     };
+
+    /// <summary>The progress display of a long run of <paramref name="what"/>, or none (see <see cref="ProgressDisplay.For"/>).</summary>
+    public ProgressDisplay? Progress(ParseResult parsed, string what, bool quiet = false) =>
+        ProgressDisplay.For(parsed.InvocationConfiguration.Error, what, quiet, parsed.GetValue(progressLines));
 
     /// <summary>
     /// Runs <paramref name="body"/> with the limits and one token that Ctrl+C and the time limit both cancel; a stop

@@ -1,5 +1,6 @@
 using System.Globalization;
 using ThermVerify.Sensors;
+using ThermVerify.Quantities;
 
 namespace ThermVerify.Firmware;
 
@@ -138,7 +139,7 @@ internal static class TableVerifier
             var residual = MaxResidual(WithFixed(fitted), rows);
             if (residual <= budget)
                 yield return new TableCause(TableCauseKind.WrongFixedResistor, Invariant(
-                    $"The table matches a fixed resistor of {fitted:G5} Ω, not the model's {model.FixedOhms:G5} Ω (worst row then {residual:0.###} K off)."),
+                    $"The table matches a fixed resistor of {EngineeringFormat.Format(fitted, UnitKind.Ohm, 5)}, not the model's {EngineeringFormat.Format(model.FixedOhms, UnitKind.Ohm, 5)} (worst row then {residual:0.###} K off)."),
                     fitted, residual, []);
         }
         {

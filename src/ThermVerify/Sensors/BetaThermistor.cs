@@ -1,5 +1,6 @@
 using System.Globalization;
 using static ThermVerify.Quantities.PhysicalConstants;
+using ThermVerify.Quantities;
 
 namespace ThermVerify.Sensors;
 
@@ -53,7 +54,7 @@ public sealed class BetaThermistor : ISensorModel
     public double BetaToCelsius { get; }
 
     public string Description => string.Create(CultureInfo.InvariantCulture,
-        $"NTC Beta model: R0 = {R0Ohms:G6} Ω at {T0Celsius:0.###} °C, β{BetaFromCelsius:0.###}/{BetaToCelsius:0.###} = {Beta:G6} K, valid {ValidRange}");
+        $"NTC Beta model: R0 = {EngineeringFormat.Format(R0Ohms, UnitKind.Ohm, 6)} at {T0Celsius:0.###} °C, β{BetaFromCelsius:0.###}/{BetaToCelsius:0.###} = {Beta:G6} K, valid {ValidRange}");
 
     public TemperatureRange ValidRange { get; }
 

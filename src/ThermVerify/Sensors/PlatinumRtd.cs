@@ -1,4 +1,5 @@
 using System.Globalization;
+using ThermVerify.Quantities;
 
 namespace ThermVerify.Sensors;
 
@@ -45,7 +46,7 @@ internal sealed class PlatinumRtd : ISensorModel
     public bool UsesIecCoefficients => CoefficientA == IecA && CoefficientB == IecB && CoefficientC == IecC;
 
     public string Description => 
-        FormattableString.Invariant($"Platinum RTD, R0 = {R0Ohms:G6} Ω, ") +
+        FormattableString.Invariant($"Platinum RTD, R0 = {EngineeringFormat.Format(R0Ohms, UnitKind.Ohm, 6)}, ") +
         (UsesIecCoefficients ? "IEC 60751 coefficients" : FormattableString.Invariant($"Callendar–Van Dusen A = {CoefficientA:G6}, B = {CoefficientB:G6}, C = {CoefficientC:G6}")) +
         $", valid {ValidRange}";
 

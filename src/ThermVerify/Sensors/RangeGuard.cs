@@ -1,4 +1,5 @@
 using System.Globalization;
+using ThermVerify.Quantities;
 
 namespace ThermVerify.Sensors;
 
@@ -27,7 +28,7 @@ internal static class RangeGuard
     {
         if (ohms >= minOhms * (1 - EdgeSlackRelative) && ohms <= maxOhms * (1 + EdgeSlackRelative)) return;
         throw new SensorRangeException(FormattableString.Invariant(
-            $"Resistance {ohms:G6} Ω is outside the valid range of {model.Description}: {minOhms:G6} Ω to {maxOhms:G6} Ω, which corresponds to {range}; ") +
+            $"Resistance {EngineeringFormat.Format(ohms, UnitKind.Ohm, 6)} is outside the valid range of {model.Description}: {EngineeringFormat.Format(minOhms, UnitKind.Ohm, 6)} to {EngineeringFormat.Format(maxOhms, UnitKind.Ohm, 6)}, which corresponds to {range}; ") +
             "no extrapolation is done: check the reading or widen the model's valid range.");
     }
 

@@ -25,6 +25,17 @@ public class ToleranceCommandTests
     }
 
     [Fact]
+    public void MonteCarloPrintsPlainProgressLinesWhenAsked()
+    {
+        var run = CliRunner.Run("montecarlo", Example("table-sensor-freezer.toml"), "-n", "100", "--threads", "2", "--progress");
+        Assert.Equal(ExitCodes.Success, run.ExitCode);
+        // One line per tenth of the run for a log, never a bar redrawn with carriage returns.
+        Assert.Contains("units: 100/100 (100 %)", run.Error);
+        Assert.InRange(run.Error.Split('\n', StringSplitOptions.RemoveEmptyEntries).Length, 2, 11);
+        Assert.DoesNotContain("\r", run.Error);
+    }
+
+    [Fact]
     public void MinimumYieldAboveTheYieldExitsWithCheckFailed()
     {
         // The oven example's class B Pt1000 leaves some units over its 2 K region budget (see docs/tolerances.md).

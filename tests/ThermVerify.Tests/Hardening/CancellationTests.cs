@@ -64,7 +64,7 @@ public sealed class CancellationTests : IDisposable
     public async Task Interrupting_a_long_monte_carlo_run_writes_nothing(string signal)
     {
         if (!OperatingSystem.IsLinux()) return; // signals are sent with kill(1)
-        using var process = Start("montecarlo", Example("oven-pt1000.toml"), "-n", "1000000", "--threads", "1",
+        using var process = Start("montecarlo", Example("oven-pt1000.toml"), "-n", "1000000", "--threads", "1", "--progress",
             "--json", Path.Combine(folder.FullName, "mc.json"), "--report", Path.Combine(folder.FullName, "report"),
             "--csv", Path.Combine(folder.FullName, "envelope.csv"));
         _ = process.StandardOutput.ReadToEndAsync();

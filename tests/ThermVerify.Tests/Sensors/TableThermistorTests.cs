@@ -52,7 +52,7 @@ public class TableThermistorTests
         Assert.Equal(32_000, table.ResistanceOhms(0), 9);
         Assert.Throws<SensorRangeException>(() => table.ResistanceOhms(100.001));
         var e = Assert.Throws<SensorRangeException>(() => table.TemperatureCelsius(33_000));
-        Assert.Contains("680 Ω to 32000 Ω", e.Message);
+        Assert.Contains("680 Ω to 32 kΩ", e.Message);
     }
 
     [Fact]

@@ -31,7 +31,7 @@ internal static class BufferFindingRules
             var remedies = new List<Remedy>();
             if (stability.IsolationForTargetOhms is { } r)
                 remedies.Add(new Remedy("buffer.isolation_resistor", $"fit an isolation resistor for {stability.TargetPhaseMarginDegrees:0}° of phase margin of at least", r, "Ω",
-                    "bisection on the simulated loop gain" + (stability.ClosedFormIsolationForTargetOhms is { } c ? I($"; single-pole estimate {c:G3} Ω") : "")));
+                    "bisection on the simulated loop gain" + (stability.ClosedFormIsolationForTargetOhms is { } c ? $"; single-pole estimate {EngineeringFormat.Format(c, UnitKind.Ohm, 3)}" : "")));
             findings.Add(new Finding("buffer-stability", Severity.Fail,
                 I($"the buffer's phase margin {worst.PhaseMarginDegrees:0.#}° is below the minimum {stability.MinimumPhaseMarginDegrees:0.#}°"),
                 range.MinCelsius, range.MaxCelsius, worst.Celsius, double.NaN, double.NaN, double.NaN,

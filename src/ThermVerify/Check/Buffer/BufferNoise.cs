@@ -104,7 +104,7 @@ internal static class BufferNoise
             ? "noise analysis (adjoint)"
             : "noise analysis of your op-amp subcircuit by the check's engine (the total only; the switch's share taken as its kT/C)";
         var method = FormattableString.Invariant(
-            $"{analysis} at the sampling capacitor with the switch closed, {FromHertz:G3} Hz to {to:G3} Hz; averaging: kT/C uncorrelated, front end correlated as e^(−T_s/τ), τ = {tau:G3} s");
+            $"{analysis} at the sampling capacitor with the switch closed, {EngineeringFormat.Format(FromHertz, UnitKind.Hertz, 3)} to {EngineeringFormat.Format(to, UnitKind.Hertz, 3)}; averaging: kT/C uncorrelated, front end correlated as e^(−T_s/τ), τ = {EngineeringFormat.Format(tau, UnitKind.Second, 3)}");
         return new NoiseReport(FromHertz, to, points, tau, rho, averaging, method);
     }
 

@@ -1,6 +1,7 @@
 using ThermVerify.Design;
 using ThermVerify.FrontEnd;
 using ThermVerify.Simulation;
+using ThermVerify.Quantities;
 
 namespace ThermVerify.Check.Buffer;
 
@@ -90,7 +91,7 @@ internal static class BufferRecovery
         var method = FormattableString.Invariant(
             $"sampling transients at {celsius:0.##} °C, {PrechargeCases.Describe(prechargeVolts)}: design op-amp against one with {IdealFactor:0}× the gain-bandwidth and no slew limit; ") +
             (external ? "your subcircuit against the macro-model of the design's datasheet figures, which the searches use too (the share is not split into slew rate and bandwidth); " : "") +
-            (search ? $"scan down in half decades, then bisection ({SearchPrecision:P0}) on the simulated sample for ½ LSB; a candidate whose transient does not converge counts as not settling; a need at the search floor (GBW × {GainBandwidthFloorFactor:G2}, {SlewRateFloorVoltsPerSecond:G2} V/s) means any op-amp down to it settles" : "searches skipped (--no-remedies)");
+            (search ? $"scan down in half decades, then bisection ({SearchPrecision:P0}) on the simulated sample for ½ LSB; a candidate whose transient does not converge counts as not settling; a need at the search floor (GBW × {GainBandwidthFloorFactor:G2}, {EngineeringFormat.Format(SlewRateFloorVoltsPerSecond, UnitKind.VoltPerSecond, 2)}) means any op-amp down to it settles" : "searches skipped (--no-remedies)");
         return new RecoveryResult(celsius, prechargeVolts, real, noSlewLimit, ideal, allowed, gbw, slew, method) { GainBandwidthFloorHertz = b.GainBandwidthHertz * GainBandwidthFloorFactor };
     }
 

@@ -37,7 +37,7 @@ internal static class BufferPlots
         PlotStyle.DecadeTicksHertz(plot.Axes.Bottom, loop.FrequenciesHertz[0], loop.FrequenciesHertz[^1]);
         plot.ShowLegend(Edge.Bottom);
         var caption = loop.PhaseMarginDegrees is { } pm
-            ? $"Loop gain by Bode's return ratio with the real load; phase margin {pm:0.#}° at {loop.CrossoverHertz:G3} Hz (single-pole estimate {loop.ClosedFormPhaseMarginDegrees:0.#}°)."
+            ? $"Loop gain by Bode's return ratio with the real load; phase margin {pm:0.#}° at {PlotStyle.Hertz(loop.CrossoverHertz!.Value)} (single-pole estimate {loop.ClosedFormPhaseMarginDegrees:0.#}°)."
             : "Loop gain by Bode's return ratio with the real load; |T| never falls through 0 dB inside the sweep.";
         return PlotStyle.Render(plot, "buffer-loop-gain", "Buffer loop gain", caption);
     }
