@@ -30,7 +30,8 @@ public class RemedyRoundTripTests
     /// The designs where remedies used to go wrong: a reservoir the design already has (a remedy once asked for "at least
     /// 80 fF" beside 4.7 nF), a bias current that dominates the buffer's static error (the remedy once named the offset),
     /// converter errors no single part clears (offset and gain calibrated out, the INL searched), and a large op-amp
-    /// drift (the offset trimmed, the drift searched). Each finding gets a proven remedy or says that none was found,
+    /// drift (the offset trimmed, the drift searched), and an op-amp whose voltage noise makes the codes flicker (its
+/// noise searched on the simulated rms at the sampling capacitor). Each finding gets a proven remedy or says that none was found,
     /// and the findings whose parts add up get a combination.
     /// </summary>
     [Theory]
@@ -38,6 +39,7 @@ public class RemedyRoundTripTests
     [InlineData("bias-current")]
     [InlineData("converter-raised")]
     [InlineData("drift-raised")]
+    [InlineData("noise-raised")]
     public void Remedies_of_the_hard_cases_are_proven_and_combine_where_no_single_change_clears(string name)
     {
         var (design, combined) = name switch
@@ -47,7 +49,9 @@ public class RemedyRoundTripTests
                 ("adc.sampling_capacitance", "\"8 pF\""), ("adc.precharge", "\"discharged\""), ("check.range", "\"0 degC .. 40 degC\""), ("check.step", "\"10 K\"")), null),
             "bias-current" => (Buffered(b => b with { BiasCurrentAmperes = 1e-6 }), "buffer-static"),
             "converter-raised" => (Coarse(Oven() with { Adc = Oven().Adc with { OffsetErrorLsb = 10, InlLsb = 8 } }), "converter"),
-            _ => (Buffered(b => b with { OffsetDriftVoltsPerKelvin = 200e-6 }), "buffer-static"),
+            "drift-raised" => (Buffered(b => b with { OffsetDriftVoltsPerKelvin = 200e-6 }), "buffer-static"),
+            // 1 µV/√Hz through a 1 MHz follower (noise bandwidth π/2·GBW, single pole): about 1.25 mV rms, over ½ LSB.
+            _ => (Buffer.BufferDesigns.Follower(("buffer.noise_voltage", "\"1 uV/rtHz\"")), null),
         };
         var result = AssertRoundTrip(name, design);
         Assert.All(result.Findings, f => Assert.True(f.Remedies.Count > 0 || f.RemedyNote is not null, $"{name}: {f.Id} has neither a remedy nor a note"));
@@ -57,6 +61,8 @@ public class RemedyRoundTripTests
             Assert.Contains("no single change clears it", finding.RemedyNote);
             Assert.NotEmpty(Assert.Single(finding.Remedies).Together);
         }
+        if (name == "noise-raised")
+            Assert.Equal("buffer.noise_voltage", Assert.Single(result.Findings.Single(f => f.Id == "buffer-noise").Remedies).Key);
         if (name == "bias-current")
             Assert.Contains(result.Findings.Single(f => f.Id == "buffer-static").Remedies.SelectMany(r => r.Together.Prepend(r)), r => r.Key == "buffer.bias_current");
     }
