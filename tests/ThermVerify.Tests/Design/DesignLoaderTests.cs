@@ -23,7 +23,11 @@ public class DesignLoaderTests
         Assert.Equal(12, d.Adc.Bits);
         Assert.Equal(3.3, d.Adc.ReferenceVolts);
         Tolerance.AssertClose(2e-6, d.Adc.AcquisitionTimeSeconds, 1e-15);
-        Assert.Equal(PrechargeMode.LastSample, d.Adc.Precharge);
+        // The worst plausible precharge unless the design says which (docs/design-file.md).
+        Assert.Equal(PrechargeMode.Worst, d.Adc.Precharge);
+        Assert.Equal(FirstTransition.HalfLsb, d.Adc.FirstTransition);
+        Assert.Equal(CodeInverse.BinMiddle, d.Adc.FirmwareInverse);
+        Assert.Equal(0, d.Adc.ReferenceTempcoPerKelvin);
         Assert.Equal(DesignDefaults.StepKelvin, d.Check.StepKelvin);
         Assert.Equal(DesignDefaults.SettleLimitLsb, d.Check.SettleLimitLsb);
         Assert.Equal(DesignDefaults.LeakageDoublingKelvin, d.Adc.LeakageDoublingKelvin);
