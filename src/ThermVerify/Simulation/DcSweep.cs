@@ -4,8 +4,10 @@ using ThermVerify.Simulation.Mna;
 namespace ThermVerify.Simulation;
 
 /// <summary>
-/// DC sweeps. Each point starts Newton from the previous point's solution; a linear circuit costs one
-/// LU and one substitution per point, with only the temperature- or value-dependent stamps restamped.
+/// DC sweeps. Each point starts Newton from the previous point's solution (continuation); a linear circuit
+/// costs one LU and one substitution per point, with only the temperature- or value-dependent stamps
+/// restamped. A point Newton cannot reach directly is approached in halved steps, then with gmin and source
+/// stepping; <see cref="DcSweepResult.Notes"/> lists every point that needed an aid.
 /// </summary>
 internal static class DcSweep
 {
@@ -43,26 +45,76 @@ internal static class DcSweep
         var width = system.Layout.VectorLength;
         var data = new double[values.Count * width];
         var warnings = new Warnings(system);
+        var notes = new List<SolverNote>();
+        double? previous = null;
         for (var p = 0; p < values.Count; p++)
         {
-            set(system, values[p]);
-            if (!TryNewton(system))
-                DcSolver.Solve(system, analysis, values[p]);
+            var aid = SolvePoint(system, previous, values[p], analysis, set);
+            if (aid != ConvergenceAid.None)
+                notes.Add(new SolverNote(analysis, $"{analysis} at {values[p]:G6}: converged with {Describe(aid)}", aid, values[p]));
+            previous = values[p];
             Array.Copy(system.Context.Solution, 0, data, p * width, width);
             warnings.Check(sweepValue: values[p]);
         }
-        return new DcSweepResult(system, parameter, [.. values], data, warnings.Found);
+        return new DcSweepResult(system, parameter, [.. values], data, warnings.Found) { Notes = notes };
     }
 
-    private static bool TryNewton(BoundSystem system)
+    internal static string Describe(ConvergenceAid aid) => aid switch
     {
-        try
+        ConvergenceAid.SweepStepHalving => "the sweep step halved (continuation from the previous point)",
+        ConvergenceAid.GminStepping => "gmin stepping",
+        ConvergenceAid.SourceStepping => "source stepping",
+        _ => "plain Newton",
+    };
+
+    /// <summary>Largest number of halvings of the step from the previous point before the full aids take over.</summary>
+    private const int MaxHalvings = 12;
+
+    /// <summary>
+    /// Continuation: Newton from the previous point's solution. If it fails, the sweep walks from the previous value
+    /// towards this one in steps halved until Newton follows (doubled again after each success), at most
+    /// <see cref="MaxHalvings"/> times; a point still out of reach gets gmin and source stepping
+    /// (<see cref="DcSolver"/>). The first point starts with the full DC solver.
+    /// </summary>
+    private static ConvergenceAid SolvePoint(BoundSystem system, double? previous, double target, string analysis,
+        Action<BoundSystem, double> set)
+    {
+        var c = system.Context;
+        set(system, target);
+        if (previous is not { } from)
+            return DcSolver.Solve(system, analysis, target);
+        var saved = (double[])c.Solution.Clone();
+        SingularMatrixException? singular = null;
+        if (DcSolver.Attempt(system, ref singular, out _))
         {
-            return Newton.Iterate(system, NewtonSettings.Default, out _);
+            system.CheckConditioning(analysis, $" at sweep value {target:G6}");
+            return ConvergenceAid.None;
         }
-        catch (SingularMatrixException)
+        var reached = 0.0;
+        var step = 0.5;
+        var halvings = 1;
+        while (halvings <= MaxHalvings)
         {
-            return false;
+            Array.Copy(saved, c.Solution, saved.Length);
+            var fraction = Math.Min(1, reached + step);
+            set(system, fraction >= 1 ? target : from + fraction * (target - from));
+            if (DcSolver.Attempt(system, ref singular, out _))
+            {
+                reached = fraction;
+                Array.Copy(c.Solution, saved, saved.Length);
+                if (reached >= 1)
+                {
+                    system.CheckConditioning(analysis, $" at sweep value {target:G6}");
+                    return ConvergenceAid.SweepStepHalving;
+                }
+                step *= 2;
+                continue;
+            }
+            step /= 2;
+            halvings++;
         }
+        Array.Copy(saved, c.Solution, saved.Length);
+        set(system, target);
+        return DcSolver.Solve(system, analysis, target);
     }
 }

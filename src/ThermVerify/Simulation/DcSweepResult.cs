@@ -27,6 +27,9 @@ internal sealed class DcSweepResult
 
     public IReadOnlyList<SimulationWarning> Warnings { get; }
 
+    /// <summary>The points that needed a convergence aid, with the aid (empty when plain Newton did throughout).</summary>
+    public IReadOnlyList<SolverNote> Notes { get; init; } = [];
+
     public int Count => SweepValues.Count;
 
     /// <summary>Voltage of <paramref name="node"/> at every sweep point.</summary>

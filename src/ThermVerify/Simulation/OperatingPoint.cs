@@ -12,12 +12,13 @@ internal static class OperatingPoint
     /// <exception cref="TopologyException">The connections make the circuit unsolvable.</exception>
     /// <exception cref="ConvergenceException">Newton with gmin and source stepping failed.</exception>
     /// <exception cref="SingularMatrixException">The matrix is singular.</exception>
+    /// <exception cref="IllConditionedMatrixException">The solution would have lost more than half its digits.</exception>
     public static OperatingPointResult Solve(Circuit circuit)
     {
         TopologyCheck.Run(circuit);
         var system = new BoundSystem(circuit);
-        DcSolver.Solve(system, AnalysisName, null);
-        return new OperatingPointResult(system, Warnings.Collect(system));
+        var aid = DcSolver.Solve(system, AnalysisName, null);
+        return new OperatingPointResult(system, Warnings.Collect(system), aid);
     }
 
     /// <summary>As <see cref="Solve"/>, but a failure to solve gives false and the reason instead of an exception.

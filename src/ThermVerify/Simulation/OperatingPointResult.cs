@@ -10,8 +10,9 @@ internal sealed class OperatingPointResult
     private readonly double[] solution;
     private readonly Dictionary<string, Stamp> stamps;
 
-    internal OperatingPointResult(BoundSystem system, IReadOnlyList<SimulationWarning> warnings)
+    internal OperatingPointResult(BoundSystem system, IReadOnlyList<SimulationWarning> warnings, ConvergenceAid aid)
     {
+        Aid = aid;
         layout = system.Layout;
         solution = (double[])system.Context.Solution.Clone();
         stamps = system.Stamps.ToDictionary(s => s.Element.Name);
@@ -22,6 +23,9 @@ internal sealed class OperatingPointResult
     public double TemperatureCelsius { get; }
 
     public IReadOnlyList<SimulationWarning> Warnings { get; }
+
+    /// <summary>The convergence aid the solution needed (<see cref="ConvergenceAid.None"/>: plain Newton).</summary>
+    public ConvergenceAid Aid { get; }
 
     /// <summary>Voltage of <paramref name="node"/> against ground ("0" gives 0).</summary>
     public double Voltage(string node) => solution[layout.IndexOfNode(node)];

@@ -33,3 +33,19 @@ public sealed class SingularMatrixException(string message, string unknown, IRea
 
     public IReadOnlyList<string> Elements { get; } = elements;
 }
+
+/// <summary>
+/// The MNA matrix is so ill-conditioned that the solution has lost more than half its digits: rounding alone can
+/// move some unknown by more than √u ≈ 1e-8 of the circuit's scale (u the unit roundoff). Names those unknowns and
+/// the elements on them.
+/// </summary>
+public sealed class IllConditionedMatrixException(string message, double amplification, IReadOnlyList<string> unknowns,
+    IReadOnlyList<string> elements) : SimulationException(message)
+{
+    /// <summary>Largest componentwise error amplification, in units of the unit roundoff of the circuit's scale.</summary>
+    public double Amplification { get; } = amplification;
+
+    public IReadOnlyList<string> Unknowns { get; } = unknowns;
+
+    public IReadOnlyList<string> Elements { get; } = elements;
+}

@@ -2,9 +2,9 @@ namespace ThermVerify.Simulation;
 
 /// <summary>
 /// The last few accepted values of every integrated state since the last breakpoint, and the local
-/// truncation error estimate built from them: backward Euler h²·x[t_n, t_n−1, t_n−2], trapezoidal
-/// h³/2·x[t_n, …, t_n−3], with x[…] the divided differences (x'' ≈ 2·x[3 points], x''' ≈ 6·x[4 points];
-/// the method's leading error terms h²/2·x'' and h³/12·x''', any numerical-analysis text, from memory).
+/// truncation error estimate built from them: the formula's leading error term (<see cref="StepFormulas.ErrorFactor"/>)
+/// with x'' ≈ 2·x[3 points] and x''' ≈ 6·x[4 points], x[…] the divided differences through the new point
+/// (any numerical-analysis text, from memory).
 /// </summary>
 internal sealed class StateHistory
 {
@@ -28,6 +28,14 @@ internal sealed class StateHistory
     /// <summary>State values at those points, newest first.</summary>
     public double[][] Values { get; }
 
+    /// <summary>Tolerance of state i for a truncation error, at its present size.</summary>
+    public double Tolerance(int i, double value, TransientOptions options) =>
+        options.TruncationErrorFactor * (options.RelativeTolerance * Math.Max(Math.Abs(value), Math.Abs(Values[0][i]))
+            + (isCurrent[i] ? options.CurrentToleranceAmperes : options.VoltageToleranceVolts));
+
+    public int StateCount => stateCount;
+
+
     /// <summary>Accepted points since the last breakpoint, the breakpoint itself counted (at most <see cref="Length"/>).</summary>
     public int SinceBreak { get; set; }
 
@@ -49,12 +57,13 @@ internal sealed class StateHistory
 
     /// <summary>
     /// Largest ratio of estimated local truncation error to tolerance over all states for a step of
-    /// length h and method order 1 or 2 ending at <paramref name="time"/> with <paramref name="states"/>;
+    /// length h by <paramref name="formula"/> ending at <paramref name="time"/> with <paramref name="states"/>;
     /// 0 when there are not yet enough points since the breakpoint.
     /// </summary>
-    public double ErrorRatio(double time, double h, int order, double[] states, TransientOptions options)
+    public double ErrorRatio(double time, double h, StepFormula formula, double[] states, TransientOptions options)
     {
-        var points = order + 2;
+        var points = StepFormulas.Order(formula) + 2;
+        var factor = StepFormulas.ErrorFactor(formula, h, Times[0] - Times[1]);
         if (SinceBreak < points - 1)
             return 0;
         var worst = 0.0;
@@ -70,11 +79,8 @@ internal sealed class StateHistory
             for (var level = 1; level < points; level++)
                 for (var j = 0; j < points - level; j++)
                     ddValues[j] = (ddValues[j] - ddValues[j + 1]) / (ddTimes[j] - ddTimes[j + level]);
-            var error = order == 1 ? h * h * ddValues[0] : h * h * h * ddValues[0] / 2;
-            var scale = Math.Max(Math.Abs(states[2 * i]), Math.Abs(Values[0][i]));
-            var tolerance = options.TruncationErrorFactor * (options.RelativeTolerance * scale
-                + (isCurrent[i] ? options.CurrentToleranceAmperes : options.VoltageToleranceVolts));
-            worst = Math.Max(worst, Math.Abs(error) / tolerance);
+            var error = factor * ddValues[0];
+            worst = Math.Max(worst, Math.Abs(error) / Tolerance(i, states[2 * i], options));
         }
         return worst;
     }

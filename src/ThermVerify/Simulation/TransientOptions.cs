@@ -22,7 +22,8 @@ internal sealed record TransientOptions
     /// <summary>Below this step the run gives up with a <see cref="ConvergenceException"/>.</summary>
     public double MinStepSeconds { get; init; } = 1e-18;
 
-    public IntegrationMethod Method { get; init; } = IntegrationMethod.Trapezoidal;
+    /// <summary>Trapezoidal, switching to Gear-2 if it rings (<see cref="IntegrationMethod.Automatic"/>), unless chosen.</summary>
+    public IntegrationMethod Method { get; init; } = IntegrationMethod.Automatic;
 
     public double RelativeTolerance { get; init; } = 1e-6;
 

@@ -2,7 +2,7 @@ namespace ThermVerify.Simulation;
 
 /// <summary>
 /// Growing storage of accepted time points: the full solution vector, its time derivative by the
-/// integration formula, and whether the step that ended at the point was backward Euler. Grows by
+/// integration formula, the formula of the step that ended at the point and whether that step was a probe. Grows by
 /// doubling, so recording costs no allocation per step on average.
 /// </summary>
 internal sealed class TransientRecord(int width)
@@ -17,21 +17,26 @@ internal sealed class TransientRecord(int width)
 
     public double[] Slopes { get; private set; } = new double[256 * width];
 
-    public bool[] BackwardEuler { get; private set; } = new bool[256];
+    public StepFormula[] Formulas { get; private set; } = new StepFormula[256];
 
-    public void Add(double time, double[] solution, double[] slope, bool backwardEuler)
+    /// <summary>Whether the step that ended at the point was the tiny probe right after a breakpoint.</summary>
+    public bool[] Probes { get; private set; } = new bool[256];
+
+    public void Add(double time, double[] solution, double[] slope, StepFormula formula, bool probe = false)
     {
         if (Count == Times.Length)
         {
             Times = Grow(Times);
             Values = Grow(Values);
             Slopes = Grow(Slopes);
-            BackwardEuler = Grow(BackwardEuler);
+            Formulas = Grow(Formulas);
+            Probes = Grow(Probes);
         }
         Times[Count] = time;
         Array.Copy(solution, 0, Values, Count * Width, Width);
         Array.Copy(slope, 0, Slopes, Count * Width, Width);
-        BackwardEuler[Count] = backwardEuler;
+        Formulas[Count] = formula;
+        Probes[Count] = probe;
         Count++;
     }
 
@@ -45,9 +50,10 @@ internal sealed class TransientRecord(int width)
         Times = new double[256];
         Values = new double[256 * Width];
         Slopes = new double[256 * Width];
-        BackwardEuler = new bool[256];
+        Formulas = new StepFormula[256];
+        Probes = new bool[256];
         Count = 0;
-        Add(time, values, slopes, true);
+        Add(time, values, slopes, StepFormula.BackwardEuler);
     }
 
     private static T[] Grow<T>(T[] a)

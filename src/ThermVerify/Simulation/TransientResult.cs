@@ -4,17 +4,21 @@ using ThermVerify.Simulation.Mna;
 namespace ThermVerify.Simulation;
 
 /// <summary>
-/// Accepted time points of a transient and every unknown at them. Between points,
-/// <see cref="VoltageAt"/> evaluates the integration method's own polynomial: a straight line across a
-/// backward-Euler step; across a trapezoidal step the quadratic whose end slopes are the trapezoidal
-/// derivatives, which passes through both end values.
+/// Accepted time points of a transient and every unknown at them. Between points, <see cref="VoltageAt"/>
+/// interpolates with the integration's own order: the value after the step inside the tiny probe step that follows a
+/// breakpoint (where a switch edge makes nodes jump), a straight line across a backward-Euler step, and across a
+/// trapezoidal or Gear-2 step the quadratic through its two ends and the point before (Gear-2's own polynomial).
+/// The trapezoidal rule's own derivatives are not used there: on a node whose slope jumps without a breakpoint
+/// (an op-amp entering its clamp, a diode turning on) they ring from step to step, ±the jump, for ever, and a
+/// quadratic built on them strays by h·|jump|/4 between points.
 /// </summary>
 internal sealed class TransientResult
 {
     private readonly double[] times;
     private readonly double[] values;
     private readonly double[] slopes;
-    private readonly bool[] backwardEuler;
+    private readonly StepFormula[] formulas;
+    private readonly bool[] probes;
     private readonly int width;
     private readonly MnaLayout layout;
     private readonly BoundSystem system;
@@ -22,7 +26,7 @@ internal sealed class TransientResult
     internal TransientResult(TransientRecord record, BoundSystem system, IReadOnlyList<SimulationWarning> warnings,
         int acceptedSteps, int rejectedSteps)
     {
-        (times, values, slopes, backwardEuler, width) = (record.Times, record.Values, record.Slopes, record.BackwardEuler, record.Width);
+        (times, values, slopes, formulas, probes, width) = (record.Times, record.Values, record.Slopes, record.Formulas, record.Probes, record.Width);
         layout = system.Layout;
         this.system = system;
         Count = record.Count;
@@ -39,6 +43,9 @@ internal sealed class TransientResult
     public int RejectedSteps { get; }
 
     public IReadOnlyList<SimulationWarning> Warnings { get; }
+
+    /// <summary>What the solver had to do beyond its plain course: the initial point's convergence aid, a switch to Gear-2.</summary>
+    public IReadOnlyList<SolverNote> Notes { get; init; } = [];
 
     /// <summary>The time points (a copy made once per result).</summary>
     public double[] TimesSeconds => field ??= times.AsSpan(0, Count).ToArray();
@@ -79,12 +86,33 @@ internal sealed class TransientResult
         var s = timeSeconds - t0;
         var x0 = values[(j - 1) * w + index];
         var x1 = values[j * w + index];
-        if (backwardEuler[j])
+        // Right after a breakpoint the solution may jump (a switch edge moves every node without a capacitor at once),
+        // and the point at the breakpoint holds the value before it: inside the probe step (10⁻⁹ of the span) the value
+        // after it is the right one.
+        if (probes[j])
+            return x1;
+        if (formulas[j] == StepFormula.BackwardEuler)
             return x0 + (x1 - x0) * s / h;
+        if (j >= 2)
+        {
+            // The quadratic through this step's ends and the point before, all after the last breakpoint (an order-2
+            // step comes third after one at the earliest), in Newton's form.
+            var hm = t0 - times[j - 2];
+            var xm = values[(j - 2) * w + index];
+            var second = ((x1 - x0) / h - (x0 - xm) / hm) / (h + hm);
+            return x0 + s * (x1 - x0) / h + s * (s - h) * second;
+        }
+        // The first step kept after ForgetRecordedPoints: the quadratic with the method's end slopes.
         var d0 = slopes[(j - 1) * w + index];
         var d1 = slopes[j * w + index];
         return x0 + d0 * s + (d1 - d0) * s * s / (2 * h);
     }
+
+    /// <summary>The integration formula of the step that ended at point <paramref name="point"/> (for tests).</summary>
+    internal StepFormula FormulaOfStepEndingAt(int point) => formulas[point];
+
+    /// <summary>Whether the step that ended at point <paramref name="point"/> was the probe after a breakpoint (for tests).</summary>
+    internal bool IsProbeStepEndingAt(int point) => probes[point];
 
     private double[] Column(int index)
     {

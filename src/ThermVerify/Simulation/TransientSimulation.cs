@@ -1,16 +1,19 @@
 using ThermVerify.Circuits;
+using ThermVerify.Limits;
 using ThermVerify.Simulation.Mna;
 
 namespace ThermVerify.Simulation;
 
 /// <summary>
-/// A transient run that can be advanced in pieces. Integration is trapezoidal, with backward-Euler
-/// steps after the start and after every breakpoint (source corner, switch edge) so that the
-/// trapezoidal rule's undamped ringing is not excited (Nagel 1975, from memory). The local truncation
+/// A transient run that can be advanced in pieces. Integration is trapezoidal (or Gear-2, see
+/// <see cref="IntegrationMethod"/>), with backward-Euler steps after the start and after every breakpoint
+/// (source corner, switch edge) so that the trapezoidal rule's undamped ringing is not excited (Nagel 1975,
+/// from memory); if it rings anyway (a stiff circuit), <see cref="IntegrationMethod.Automatic"/> continues with
+/// Gear-2, which damps stiff modes, and says so in the result's notes. The local truncation
 /// error of every integrated state is estimated from divided differences of its values since the last
 /// breakpoint (<see cref="StateHistory"/>). So that those never straddle a discontinuity, the first step
-/// after a breakpoint is a tiny backward-Euler probe (10⁻⁹ of the time to the next stop, its own error
-/// far below any tolerance), the second a checked backward-Euler step, and trapezoidal steps follow.
+/// after a breakpoint is a tiny backward-Euler probe (10⁻⁹ of the time to the next stop, but at least a thousand
+/// times the time resolution at t; its own error far below any tolerance), the second a checked backward-Euler step, and trapezoidal steps follow.
 /// A step whose error exceeds its tolerance is redone shorter; the next step is
 /// h·min(2, 0.9·(tol/err)^(1/(k+1))). Breakpoints and requested output times are landed on exactly.
 /// </summary>
@@ -30,13 +33,17 @@ internal sealed class TransientSimulation
     private readonly Warnings warnings;
     private readonly double maxStep;
     private readonly NewtonSettings newton = NewtonSettings.Default with { MaxIterations = 50 };
-    private readonly double[] accepted;
+    private readonly RingingDetector ringing;
+    private readonly List<SolverNote> notes = [];
+    private double[] accepted;
+    private double[] older;
     private double[] slope;
     private double[] newSlope;
     private double proposedStep;
     private double collectedUntil;
     private int acceptedSteps;
     private int rejectedSteps;
+    private bool gear;
 
     public TransientSimulation(Circuit circuit, TransientOptions options, TransientState? initialState = null)
     {
@@ -47,7 +54,10 @@ internal sealed class TransientSimulation
         c = system.Context;
         warnings = new Warnings(system);
         history = new StateHistory(system.StateIsCurrent);
+        ringing = new RingingDetector(history.StateCount);
+        gear = options.Method == IntegrationMethod.Gear2;
         accepted = new double[system.Layout.VectorLength];
+        older = new double[accepted.Length];
         slope = new double[accepted.Length];
         newSlope = new double[accepted.Length];
         record = new TransientRecord(accepted.Length);
@@ -66,7 +76,12 @@ internal sealed class TransientSimulation
     public double TimeSeconds { get; private set; }
 
     /// <summary>Everything recorded so far (since the start or the last <see cref="ForgetRecordedPoints"/>).</summary>
-    public TransientResult Result => new(record, system, [.. warnings.Found], acceptedSteps, rejectedSteps);
+    public TransientResult Result => new(record, system, [.. warnings.Found], acceptedSteps, rejectedSteps) { Notes = [.. notes] };
+
+    /// <summary>The method the run uses now: Gear-2 once <see cref="IntegrationMethod.Automatic"/> has switched.</summary>
+    public IntegrationMethod MethodInUse => options.Method == IntegrationMethod.Automatic
+        ? gear ? IntegrationMethod.Gear2 : IntegrationMethod.Trapezoidal
+        : options.Method;
 
     /// <summary>Present voltage of a node.</summary>
     public double Voltage(string node) => accepted[system.Layout.IndexOfNode(node)];
@@ -84,6 +99,9 @@ internal sealed class TransientSimulation
         CollectBreakpoints(timeSeconds);
         while (TimeSeconds < timeSeconds - StopQueue.Epsilon(timeSeconds))
         {
+            // A linear circuit at a steady step never refactorises (where the LU checks): Ctrl+C and the time limit
+            // must still stop it.
+            Work.ThrowIfCancelled();
             var stop = stops.Next(timeSeconds);
             Step(FirstTry(stop - TimeSeconds, stop), stop);
         }
@@ -94,7 +112,9 @@ internal sealed class TransientSimulation
         TimeSeconds = TimeSeconds,
         Signature = Signature(system),
         Solution = (double[])accepted.Clone(),
+        OlderSolution = (double[])older.Clone(),
         Slopes = (double[])slope.Clone(),
+        UsesGear2 = gear,
         States = (double[])c.PreviousState.Clone(),
         HistoryTimes = (double[])history.Times.Clone(),
         HistoryValues = [.. history.Values.Select(v => (double[])v.Clone())],
@@ -123,7 +143,10 @@ internal sealed class TransientSimulation
         c.StepSeconds = 0;
         try
         {
-            DcSolver.Solve(system, $"{AnalysisName} initial point", null);
+            var aid = DcSolver.Solve(system, $"{AnalysisName} initial point", null);
+            if (aid != ConvergenceAid.None)
+                notes.Add(new SolverNote($"{AnalysisName} initial point",
+                    $"{AnalysisName} initial point: converged with {DcSweep.Describe(aid)}", aid, TimeSeconds: 0));
         }
         finally
         {
@@ -136,7 +159,7 @@ internal sealed class TransientSimulation
         TimeSeconds = 0;
         history.Push(0, c.PreviousState, isBreakpoint: true);
         proposedStep = options.InitialStepSeconds;
-        record.Add(0, accepted, slope, true);
+        record.Add(0, accepted, slope, StepFormula.BackwardEuler);
         warnings.Check(timeSeconds: 0);
     }
 
@@ -145,38 +168,43 @@ internal sealed class TransientSimulation
         if (s.Signature != Signature(system))
             throw new CircuitException("The transient state was captured from a circuit with other nodes or elements; continue only the same circuit.");
         Array.Copy(s.Solution, accepted, accepted.Length);
+        Array.Copy(s.OlderSolution, older, older.Length);
         Array.Copy(s.Solution, c.Solution, accepted.Length);
         Array.Copy(s.Slopes, slope, slope.Length);
+        gear |= s.UsesGear2;
         Array.Copy(s.States, c.PreviousState, s.States.Length);
         history.CopyFrom(s.HistoryTimes, s.HistoryValues, s.SinceBreak);
         proposedStep = s.ProposedStepSeconds;
         TimeSeconds = s.TimeSeconds;
-        record.Add(TimeSeconds, accepted, slope, true);
+        record.Add(TimeSeconds, accepted, slope, StepFormula.BackwardEuler);
     }
 
     private static string Signature(BoundSystem system) =>
         string.Join("|", system.Layout.UnknownNames) + "#" + string.Join("|", system.Circuit.Elements.Select(e => e.GetHashCode()));
 
+    /// <summary>Backward Euler for the first two steps after a breakpoint, then the run's order-2 formula.</summary>
+    private StepFormula Formula() =>
+        history.SinceBreak <= 2 || options.Method == IntegrationMethod.BackwardEuler ? StepFormula.BackwardEuler
+        : gear ? StepFormula.Gear2 : StepFormula.Trapezoidal;
+
     private void Step(double h, double stop)
     {
         var probe = history.SinceBreak == 1 && options.FixedStepSeconds is null;
-        var backwardEuler = history.SinceBreak <= 2 || options.Method == IntegrationMethod.BackwardEuler;
-        var order = backwardEuler ? 1 : 2;
+        var formula = Formula();
+        var order = StepFormulas.Order(formula);
+        var previousStep = TimeSeconds - history.Times[1];
         var retried = false;
         while (true)
         {
             if (retried && h < options.MinStepSeconds)
-                throw new ConvergenceException(
-                    $"{AnalysisName} at t = {TimeSeconds:G9} s: the step fell below {options.MinStepSeconds:G3} s. " +
-                    "Check for ideal steps into capacitors (give sources a rise time) or loosen the tolerances.",
-                    AnalysisName, null, TimeSeconds, FastestUnknown());
+                throw StepCollapsed();
             var tNew = Math.Abs(TimeSeconds + h - stop) <= StopQueue.Epsilon(stop) ? stop : TimeSeconds + h;
             h = tNew - TimeSeconds;
             c.Mode = AnalysisMode.Transient;
             c.TimeSeconds = tNew;
             c.StepSeconds = h;
-            c.Ag0 = order / h;
-            c.Trapezoidal = !backwardEuler;
+            StepFormulas.Apply(c, formula, h, previousStep);
+            c.OlderStateValues = history.Values[1];
             Array.Copy(accepted, c.Solution, accepted.Length);
             if (!Solve(out var worst))
             {
@@ -190,7 +218,7 @@ internal sealed class TransientSimulation
             }
             foreach (var s in system.Reactive)
                 s.Accept(c);
-            var ratio = options.FixedStepSeconds is null && !probe ? history.ErrorRatio(tNew, h, order, c.State, options) : 0;
+            var ratio = options.FixedStepSeconds is null && !probe ? history.ErrorRatio(tNew, h, formula, c.State, options) : 0;
             if (ratio > 1)
             {
                 rejectedSteps++;
@@ -198,18 +226,33 @@ internal sealed class TransientSimulation
                 h *= Math.Max(1e-3, 0.9 * Math.Pow(ratio, -1.0 / (order + 1)));
                 continue;
             }
-            Commit(tNew, h, backwardEuler);
+            Commit(tNew, h, previousStep, formula, probe);
             if (!probe)
                 proposedStep = options.FixedStepSeconds ?? h * (ratio > 0 ? Math.Min(2, 0.9 * Math.Pow(ratio, -1.0 / (order + 1))) : 2);
             return;
         }
     }
 
+    /// <summary>
+    /// The error for a step that fell below the minimum: an ill-conditioned matrix is named as the cause (with the
+    /// nodes it loses digits on), otherwise the unknown changing fastest.
+    /// </summary>
+    private SimulationException StepCollapsed()
+    {
+        var where = $" at t = {TimeSeconds:G9} s, where the step fell below {options.MinStepSeconds:G3} s";
+        if (system.IsIllConditioned)
+            return system.IllConditioned(AnalysisName, where);
+        return new ConvergenceException(
+            $"{AnalysisName}{where}. " +
+            "Check for ideal steps into capacitors (give sources a rise time) or loosen the tolerances.",
+            AnalysisName, null, TimeSeconds, FastestUnknown());
+    }
+
     private bool Solve(out int worst)
     {
         try
         {
-            return Newton.Iterate(system, newton, out worst);
+            return Newton.Solve(system, newton, out worst);
         }
         catch (SingularMatrixException) when (system.IsNonlinear)
         {
@@ -218,17 +261,28 @@ internal sealed class TransientSimulation
         }
     }
 
-    private void Commit(double tNew, double h, bool backwardEuler)
+    private void Commit(double tNew, double h, double previousStep, StepFormula formula, bool probe)
     {
         var x = c.Solution;
         for (var i = 0; i < system.Size; i++)
-            newSlope[i] = backwardEuler ? (x[i] - accepted[i]) / h : 2 * (x[i] - accepted[i]) / h - slope[i];
+            newSlope[i] = StepFormulas.Slope(formula, x[i], accepted[i], older[i], slope[i], h, previousStep);
         (slope, newSlope) = (newSlope, slope);
+        (older, accepted) = (accepted, older);
         Array.Copy(x, accepted, accepted.Length);
+        if (formula == StepFormula.Trapezoidal && options.Method == IntegrationMethod.Automatic && ringing.Observe(c.State, history, options, h))
+        {
+            gear = true;
+            notes.Add(new SolverNote(AnalysisName,
+                $"{AnalysisName}: the trapezoidal rule rang on {system.StateOwners[ringing.RingingState]} at t = {tNew:G6} s " +
+                "(a stiff circuit); continued with Gear-2 (BDF2)", TimeSeconds: tNew));
+        }
         (c.State, c.PreviousState) = (c.PreviousState, c.State);
         TimeSeconds = tNew;
-        history.Push(tNew, c.PreviousState, isBreakpoint: stops.Reach(tNew));
-        record.Add(tNew, accepted, slope, backwardEuler);
+        var isBreakpoint = stops.Reach(tNew);
+        if (isBreakpoint)
+            ringing.Reset();
+        history.Push(tNew, c.PreviousState, isBreakpoint);
+        record.Add(tNew, accepted, slope, formula, probe);
         acceptedSteps++;
         warnings.Check(timeSeconds: tNew);
     }

@@ -13,7 +13,9 @@ internal sealed record TransientState
 
     internal string Signature { get; init; } = null!;
     internal double[] Solution { get; init; } = null!;
+    internal double[] OlderSolution { get; init; } = null!;
     internal double[] Slopes { get; init; } = null!;
+    internal bool UsesGear2 { get; init; }
     internal double[] States { get; init; } = null!;
     internal double[] HistoryTimes { get; init; } = null!;
     internal double[][] HistoryValues { get; init; } = null!;

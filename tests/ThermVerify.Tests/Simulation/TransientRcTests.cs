@@ -95,6 +95,7 @@ public class TransientRcTests
     [Theory]
     [InlineData(IntegrationMethod.BackwardEuler, 1.0)]
     [InlineData(IntegrationMethod.Trapezoidal, 2.0)]
+    [InlineData(IntegrationMethod.Gear2, 2.0)]
     public void Convergence_order_on_an_rc_discharge(IntegrationMethod method, double expectedOrder)
     {
         var circuit = new CircuitBuilder()
@@ -116,8 +117,8 @@ public class TransientRcTests
         var errors = new[] { Tau / 20, Tau / 40, Tau / 80, Tau / 160 }.Select(Error).ToArray();
         for (var i = 1; i < errors.Length; i++)
         {
-            // Order of the method: halving the step divides the global error by 2^p (Euler p = 1, trapezoidal p = 2;
-            // any numerical-analysis text, e.g. Hairer, Nørsett & Wanner, from memory).
+            // Order of the method: halving the step divides the global error by 2^p (Euler p = 1, trapezoidal and
+            // Gear-2/BDF2 p = 2; any numerical-analysis text, e.g. Hairer, Nørsett & Wanner, from memory).
             var order = Math.Log2(errors[i - 1] / errors[i]);
             Tolerance.AssertClose(expectedOrder, order, 0, 0.1, $"observed order between h/{20 << (i - 1)} and h/{20 << i}");
         }

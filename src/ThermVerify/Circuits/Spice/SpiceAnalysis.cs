@@ -26,6 +26,13 @@ internal sealed record DcTemperatureSweep(double StartCelsius, double StepKelvin
     }
 }
 
+/// <summary>
+/// <c>.dc</c> of an independent source's DC value from <see cref="Start"/> in steps of <see cref="Step"/>,
+/// <see cref="Points"/> points; the stop value is written half a step beyond the last point, as for
+/// <see cref="DcTemperatureSweep"/>.
+/// </summary>
+internal sealed record DcSourceSweep(string Source, double Start, double Step, int Points) : SpiceAnalysis;
+
 /// <summary><c>.tran</c> to <see cref="StopSeconds"/> with at most <see cref="MaxStepSeconds"/> per step.</summary>
 internal sealed record TransientSweep(double StopSeconds, double MaxStepSeconds) : SpiceAnalysis
 {

@@ -59,7 +59,7 @@ internal static class SpiceDeckWriter
             WriteGuards(deck, guarded.StepGuards);
         foreach (var definition in lines.Definitions)
             deck.AppendLine(definition);
-        deck.AppendLine(AnalysisLine(analysis));
+        deck.AppendLine(AnalysisLine(analysis, circuit));
         foreach (var output in outputs ?? [])
             deck.AppendLine(output.Line());
         deck.AppendLine(".end");
@@ -74,14 +74,22 @@ internal static class SpiceDeckWriter
         _ => "reltol=1e-9 vntol=1e-12 abstol=1e-12",
     };
 
-    private static string AnalysisLine(SpiceAnalysis analysis) => analysis switch
+    private static string AnalysisLine(SpiceAnalysis analysis, Circuit circuit) => analysis switch
     {
         OperatingPointAnalysis => ".op",
+        DcSourceSweep d => $".dc {SourceName(circuit, d.Source)} {Format(d.Start)} {Format(d.Start + (d.Points - 0.5) * d.Step)} {Format(d.Step)}",
         DcTemperatureSweep d => $".dc temp {Format(d.StartCelsius)} {Format(d.StartCelsius + (d.Points - 0.5) * d.StepKelvin)} {Format(d.StepKelvin)}",
         TransientSweep t => $".tran {Format(t.MaxStepSeconds)} {Format(t.StopSeconds)} 0 {Format(t.MaxStepSeconds)}",
         AcSweep a => $".ac dec {a.PointsPerDecade} {Format(a.StartHertz)} {Format(a.StopHertz)}",
         NoiseSweep n => $".noise v({n.OutputNode}) {SpiceLines.InstanceName('V', n.InputSource)} dec {n.PointsPerDecade} {Format(n.StartHertz)} {Format(n.StopHertz)}",
         _ => throw new ArgumentException($"Unknown analysis {analysis.GetType().Name}."),
+    };
+
+    private static string SourceName(Circuit circuit, string name) => circuit[name] switch
+    {
+        VoltageSource => SpiceLines.InstanceName('V', name),
+        CurrentSource => SpiceLines.InstanceName('I', name),
+        var e => throw new EngineUnsupportedException($"{e.Describe} is not an independent source; a SPICE .dc sweep varies a V or I source."),
     };
 
     private static void WriteGuards(StringBuilder deck, IReadOnlyList<StepGuard> guards)

@@ -12,9 +12,10 @@ internal static class AcAnalysis
 {
     public const string AnalysisName = "AC";
 
-    public static AcResult Run(Circuit circuit, FrequencySweep sweep)
+    /// <param name="start">Where the operating point's Newton starts (see <see cref="SmallSignalSystem"/>).</param>
+    public static AcResult Run(Circuit circuit, FrequencySweep sweep, Action<BoundSystem>? start = null)
     {
-        var system = new SmallSignalSystem(circuit, $"{AnalysisName} operating point");
+        var system = new SmallSignalSystem(circuit, AnalysisName, start);
         var rhs = system.NewVector();
         foreach (var s in system.System.Stamps)
             s.LoadAcExcitation(rhs);

@@ -18,7 +18,7 @@ internal static class LoopGain
 
     public static LoopGainResult Run(Circuit circuit, string opAmpName, FrequencySweep sweep)
     {
-        var system = new SmallSignalSystem(circuit, $"{AnalysisName} operating point");
+        var system = new SmallSignalSystem(circuit, AnalysisName);
         var stamp = system.System.StampOf(opAmpName) as OpAmpStamp
             ?? throw new CircuitException($"'{opAmpName}' is not an op-amp; loop gain is measured at an op-amp's input stage.");
         var conductances = (double[])system.Conductances.Clone();

@@ -17,9 +17,11 @@ internal static class NoiseAnalysis
 {
     public const string AnalysisName = "Noise";
 
-    public static NoiseResult Run(Circuit circuit, string outputNode, FrequencySweep sweep, string referenceNode = Circuit.Ground)
+    /// <param name="start">Where the operating point's Newton starts (see <see cref="SmallSignalSystem"/>).</param>
+    public static NoiseResult Run(Circuit circuit, string outputNode, FrequencySweep sweep, string referenceNode = Circuit.Ground,
+        Action<BoundSystem>? start = null)
     {
-        var system = new SmallSignalSystem(circuit, $"{AnalysisName} operating point");
+        var system = new SmallSignalSystem(circuit, AnalysisName, start);
         var layout = system.System.Layout;
         var noise = new NoiseContext(circuit.TemperatureCelsius, layout.Ground);
         foreach (var s in system.System.Stamps)
@@ -34,8 +36,8 @@ internal static class NoiseAnalysis
         var contributions = new double[generators.Count, f.Count];
         for (var k = 0; k < f.Count; k++)
         {
-            system.Factor(f[k], transpose: true);
-            system.Solve(e, y);
+            system.Factor(f[k]);
+            system.SolveTransposed(e, y);
             for (var g = 0; g < generators.Count; g++)
             {
                 var gen = generators[g];

@@ -4,10 +4,14 @@ namespace ThermVerify.Simulation.Mna;
 internal sealed class BindContext(MnaLayout layout)
 {
     private readonly List<bool> stateIsCurrent = [];
+    private readonly List<string> stateOwners = [];
 
     public MnaLayout Layout => layout;
 
     internal int ExtraStart { get; set; }
+
+    /// <summary>Name of the element binding now, recorded as the owner of the states it reserves.</summary>
+    internal string ElementName { get; set; } = "";
 
     public int Node(string name) => layout.IndexOfNode(name);
 
@@ -24,10 +28,14 @@ internal sealed class BindContext(MnaLayout layout)
     {
         var index = stateIsCurrent.Count * 2;
         stateIsCurrent.Add(isCurrent);
+        stateOwners.Add(ElementName);
         return index;
     }
 
     public int StateCount => stateIsCurrent.Count;
 
     public bool[] StateIsCurrent => [.. stateIsCurrent];
+
+    /// <summary>The element of every state, for messages.</summary>
+    public string[] StateOwners => [.. stateOwners];
 }

@@ -17,11 +17,13 @@ internal sealed class BoundSystem
     private readonly double[] fixedBase;
     private readonly double[] baseMatrix;
     private readonly double[] factoredMatrix;
-    private readonly DenseLu lu;
+    private readonly DenseLu<double> lu;
     private Stamp[] fixedStatic;
     private Stamp[] varyingStatic;
     private double[] next;
     private bool factorValid;
+    private readonly double[] magnitudes;
+    private readonly double[] weights;
 
     public BoundSystem(Circuit circuit)
     {
@@ -32,9 +34,11 @@ internal sealed class BoundSystem
         for (var e = 0; e < Stamps.Length; e++)
         {
             bind.ExtraStart = Layout.ExtraStart[e];
+            bind.ElementName = circuit.Elements[e].Name;
             Stamps[e] = StampCatalog.Bind(circuit.Elements[e], bind);
         }
         StateIsCurrent = bind.StateIsCurrent;
+        StateOwners = bind.StateOwners;
         Context = new LoadContext(Layout, bind.StateCount);
         loaders = [.. Stamps.Where(s => s.HasLoad)];
         Reactive = [.. Stamps.Where(s => s.IsReactive)];
@@ -45,8 +49,10 @@ internal sealed class BoundSystem
         fixedBase = new double[Layout.MatrixLength];
         baseMatrix = new double[Layout.MatrixLength];
         factoredMatrix = new double[Layout.Size * Layout.Size];
-        lu = new DenseLu(Layout.Size);
+        lu = new DenseLu<double>(Layout.Size);
         next = new double[Layout.VectorLength];
+        magnitudes = new double[Layout.Size];
+        weights = new double[Layout.Size];
         SetTemperature(circuit.TemperatureCelsius);
         RebuildFixedBase();
     }
@@ -62,6 +68,9 @@ internal sealed class BoundSystem
     public Stamp[] Reactive { get; }
 
     public bool[] StateIsCurrent { get; }
+
+    /// <summary>The element owning each integrated state.</summary>
+    public string[] StateOwners { get; }
 
     public bool IsNonlinear { get; }
 
@@ -146,13 +155,63 @@ internal sealed class BoundSystem
                 throw Singular(failed);
             factorValid = true;
         }
-        lu.Solve(Context.Rhs, next);
+        lu.Solve(Context.Rhs, next, refine: true);
         next[Size] = 0;
         return next;
     }
 
     /// <summary>Makes the last solved iterate the present one.</summary>
     public void AdoptNext() => (Context.Solution, next) = (next, Context.Solution);
+
+    /// <summary>Estimated 1-norm condition number of the last factorised matrix (after equilibration).</summary>
+    public double ConditionNumber => lu.ConditionNumber;
+
+    /// <summary>
+    /// Whether the present solution has lost more than half its digits to the last factorised matrix
+    /// (<see cref="MatrixCondition"/>); false when the last factorisation failed.
+    /// </summary>
+    public bool IsIllConditioned => factorValid && lu.ErrorAmplification(Context.Solution, Weights()) > MatrixCondition.Limit;
+
+    /// <summary>Throws <see cref="IllConditionedMatrixException"/> when <see cref="IsIllConditioned"/>.</summary>
+    public void CheckConditioning(string analysis, string where)
+    {
+        if (IsIllConditioned)
+            throw IllConditioned(analysis, where);
+    }
+
+    /// <summary>
+    /// How far rounding alone can move each unknown of <paramref name="x"/>, solved with the last factorisation:
+    /// 16·u·(|A⁻¹|·|A|·|x|)_i (a small multiple of the componentwise bound, which real errors rarely reach).
+    /// </summary>
+    public double[] RoundOffNoise(double[] x)
+    {
+        Array.Fill(weights, 1.0);
+        var amplification = lu.ErrorAmplificationPerUnknown(x, weights);
+        for (var i = 0; i < amplification.Length; i++)
+            amplification[i] *= 16 * Math.ScaleB(1.0, -53);
+        return amplification;
+    }
+
+    /// <summary>The exception for the present solution, naming the unknowns that lost their digits.</summary>
+    public IllConditionedMatrixException IllConditioned(string analysis, string where) =>
+        MatrixCondition.Exception(Layout, lu.ErrorAmplificationPerUnknown(Context.Solution, Weights()), analysis, where);
+
+    private double[] Weights()
+    {
+        var x = Context.Solution;
+        for (var i = 0; i < Size; i++)
+            magnitudes[i] = Math.Abs(x[i]);
+        var nodeCurrents = 0.0;
+        for (var i = 0; i < Layout.NodeCount; i++)
+        {
+            var sum = 0.0;
+            for (var j = 0; j < Size; j++)
+                sum += Math.Abs(factoredMatrix[i * Size + j]) * magnitudes[j];
+            nodeCurrents = Math.Max(nodeCurrents, sum);
+        }
+        MatrixCondition.Weights(Layout, magnitudes, nodeCurrents, weights);
+        return weights;
+    }
 
     public SingularMatrixException Singular(int unknown)
     {

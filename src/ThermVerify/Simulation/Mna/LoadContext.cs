@@ -37,15 +37,28 @@ internal sealed class LoadContext(MnaLayout layout, int stateCount)
     /// <summary>Conductance across every junction, as SPICE adds (1e-12 S).</summary>
     public double JunctionGmin { get; set; } = 1e-12;
 
+    /// <summary>Whether op-amps limit their clamp and input-stage steps between Newton iterations (see <see cref="Newton.Solve"/>).</summary>
+    public bool OpAmpLimiting { get; set; } = true;
+
     /// <summary>Set by a nonlinear stamp that limited its step; the iterate is then not converged.</summary>
     public bool Limited { get; set; }
 
     public double TemperatureCelsius { get; set; } = 25;
 
-    /// <summary>ẋ_n = Ag0·x_n + History(s): 1/h (backward Euler), 2/h (trapezoidal), 0 in DC.</summary>
+    /// <summary>
+    /// ẋ_n = Ag0·x_n + Ag1·x_n−1 + Ag2·x_n−2 (− ẋ_n−1 when <see cref="Trapezoidal"/>): the integration formula of the
+    /// step (see <see cref="StepFormulas"/>); all 0 in DC.
+    /// </summary>
     public double Ag0 { get; set; }
 
+    public double Ag1 { get; set; }
+
+    public double Ag2 { get; set; }
+
     public bool Trapezoidal { get; set; }
+
+    /// <summary>State values two accepted points back (x_n−2, one per state), for Gear-2.</summary>
+    public double[] OlderStateValues { get; set; } = new double[stateCount];
 
     /// <summary>Integrated states [value, derivative] at the point being solved.</summary>
     public double[] State { get; set; } = new double[2 * stateCount];
@@ -56,7 +69,8 @@ internal sealed class LoadContext(MnaLayout layout, int stateCount)
     public MnaLayout Layout => layout;
 
     /// <summary>The part of ẋ_n that does not depend on x_n, for the state at <paramref name="s"/>.</summary>
-    public double History(int s) => -Ag0 * PreviousState[s] - (Trapezoidal ? PreviousState[s + 1] : 0);
+    public double History(int s) =>
+        Ag1 * PreviousState[s] + (Ag2 != 0 ? Ag2 * OlderStateValues[s / 2] : 0) - (Trapezoidal ? PreviousState[s + 1] : 0);
 
     /// <summary>Stores a converged state value and its derivative by the present integration formula.</summary>
     public void Integrate(int s, double value)

@@ -9,6 +9,10 @@ namespace ThermVerify.Simulation.Stamps;
 /// drive source's current. The pole node is loaded by R_p = 1 kΩ ∥ C_p with g_m = A0/R_p and
 /// C_p = A0/(2π·R_p·GBW), so A(f) = A0/(1 + j·f·A0/GBW); slewing caps the g_m current at SR·C_p through
 /// a tanh, which leaves the small-signal gain unchanged. In DC the stage is linear (slewing is dynamic).
+/// The clamp's input, and in transients the slewing input stage's differential voltage, are limited between Newton
+/// iterations (<see cref="ClampLimit"/>), as SPICE limits junction voltages: beyond a rail the clamp is flat (beyond
+/// a few I_max/g_m the tanh is), so an unlimited Newton step opens the feedback loop and throws the pole node from
+/// one side to the other for ever.
 /// </summary>
 internal sealed class OpAmpStamp : Stamp
 {
@@ -21,6 +25,8 @@ internal sealed class OpAmpStamp : Stamp
     private readonly double gm, poleConductance, poleCapacitance, secondConductance, secondCapacitance, maxCurrent;
     private readonly int poleState, pole2State;
     private double lastTransconductance;
+    private double lastClampInput;
+    private double lastInputVolts;
 
     public OpAmpStamp(OpAmp amp, BindContext c) : base(amp)
     {
@@ -96,6 +102,13 @@ internal sealed class OpAmpStamp : Stamp
         double current, g;
         if (Slews && c.Mode == AnalysisMode.Transient)
         {
+            // The tanh saturates beyond a few I_max/g_m: limited like the clamp, for the same reason.
+            var knee = maxCurrent / gm;
+            var limited = c.OpAmpLimiting ? ClampLimit.Apply(vd, lastInputVolts, -2 * knee, 2 * knee, knee) : vd;
+            if (limited != vd)
+                c.Limited = true;
+            vd = limited;
+            lastInputVolts = vd;
             var t = Math.Tanh(gm * vd / maxCurrent);
             current = maxCurrent * t;
             g = gm * (1 - t * t);
@@ -108,7 +121,7 @@ internal sealed class OpAmpStamp : Stamp
         lastTransconductance = g;
         m[poleFromPlus] -= g;
         m[poleFromMinus] += g;
-        c.Rhs[pole] += current - g * (x[plus] - x[minus]);
+        c.Rhs[pole] += current - g * (vd - amp.InputOffsetVolts);
 
         // Pole capacitors (companion models; open in DC).
         if (c.Mode == AnalysisMode.Transient)
@@ -122,8 +135,16 @@ internal sealed class OpAmpStamp : Stamp
             }
         }
 
-        // Drive: V(drive) = clamp(V(last)), linearised.
+        // Drive: V(drive) = clamp(V(last)), linearised about the limited clamp input.
         var v = x[last];
+        if (Clamps)
+        {
+            var limited = c.OpAmpLimiting ? ClampLimit.Apply(v, lastClampInput, amp.OutputLowVolts, amp.OutputHighVolts, amp.OutputKneeVolts) : v;
+            if (limited != v)
+                c.Limited = true;
+            v = limited;
+            lastClampInput = v;
+        }
         var slope = SoftClamp.Slope(v, amp.OutputLowVolts, amp.OutputHighVolts, amp.OutputKneeVolts);
         var value = SoftClamp.Value(v, amp.OutputLowVolts, amp.OutputHighVolts, amp.OutputKneeVolts);
         m[rowLast] -= slope;

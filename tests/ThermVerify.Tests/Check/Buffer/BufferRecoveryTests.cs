@@ -45,6 +45,12 @@ public class BufferRecoveryTests
         var slew = Assert.IsType<double>(r.NeededSlewRateVoltsPerSecond);
         var atGbw = Math.Max(gbw, 100e3);
         Assert.True(Error(atGbw, slew) <= HalfLsb, $"slew {slew} V/s");
-        Assert.False(Settles(atGbw, 0.9 * slew), $"slew {0.9 * slew} V/s settles");
+        // A need at the search floor means any op-amp down to it settles (BufferRecovery's contract): nothing below is
+        // searched. Here it is the floor: once the gain-bandwidth suffices, a slow-slewing output barely reacts to the
+        // kickback and recovers through r_o, so every slew rate down to the floor settles.
+        if (slew > BufferRecovery.SlewRateFloorVoltsPerSecond)
+            Assert.False(Settles(atGbw, 0.9 * slew), $"slew {0.9 * slew} V/s settles");
+        else
+            Assert.True(Settles(atGbw, slew) && Settles(atGbw, 10 * slew), "settles at and above the floor");
     }
 }

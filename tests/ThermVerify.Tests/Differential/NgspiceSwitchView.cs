@@ -1,0 +1,90 @@
+using ThermVerify.Circuits;
+using ThermVerify.Simulation;
+using ThermVerify.Simulation.Mna;
+using Complex = System.Numerics.Complex;
+
+namespace ThermVerify.Tests.Differential;
+
+/// <summary>
+/// The built-in engine's AC and noise analyses as ngspice 39 computes them for voltage-controlled switches: ngspice
+/// linearises every switch at its off conductance in .ac and .noise whatever its control says (observed: a switch on
+/// a DC control of 1 V, threshold 0.5 V, conducts as ron at .op but as roff in .ac and .noise), while its operating
+/// point has the switch in the right state. Here the operating point is the circuit's own (or the one nearest a given
+/// start); only the switches'
+/// small-signal conductance (and thermal noise) is set to the off value. Agreement with ngspice in this view
+/// explains a disagreement as ngspice's, not the engine's.
+/// </summary>
+internal static class NgspiceSwitchView
+{
+    public static bool Applies(Circuit circuit) => circuit.Elements.OfType<TimedSwitch>().Any(s => s.Schedule.IsClosed(0));
+
+    /// <param name="start">Where the operating point's Newton starts (<see cref="SmallSignalSystem"/>), e.g. at
+    /// ngspice's operating point (<see cref="OtherSolution.Seed"/>).</param>
+    public static Complex[][] Ac(Circuit circuit, IReadOnlyList<string> nodes, double[] frequencies, Action<BoundSystem>? start = null)
+    {
+        var system = new SmallSignalSystem(circuit, "AC (ngspice's switch view)", start);
+        var conductances = OpenSwitches(system, circuit);
+        var rhs = system.NewVector();
+        foreach (var s in system.System.Stamps)
+            s.LoadAcExcitation(rhs);
+        var x = system.NewVector();
+        var result = nodes.Select(_ => new Complex[frequencies.Length]).ToArray();
+        for (var k = 0; k < frequencies.Length; k++)
+        {
+            system.Factor(frequencies[k], conductances);
+            system.Solve(rhs, x);
+            for (var i = 0; i < nodes.Count; i++)
+                result[i][k] = x[system.System.Layout.IndexOfNode(nodes[i])];
+        }
+        return result;
+    }
+
+    public static double[] NoiseDensity(Circuit circuit, string output, double[] frequencies, Action<BoundSystem>? start = null)
+    {
+        var system = new SmallSignalSystem(circuit, "Noise (ngspice's switch view)", start);
+        var conductances = OpenSwitches(system, circuit);
+        var layout = system.System.Layout;
+        var noise = new NoiseContext(circuit.TemperatureCelsius, layout.Ground);
+        foreach (var s in system.System.Stamps)
+            s.CollectNoise(noise);
+        var generators = noise.Generators.Select(g => circuit[g.Element] is TimedSwitch sw
+            ? g with { WhitePsd = noise.ThermalCurrentPsd(1 / sw.OffResistanceOhms) }
+            : g).ToList();
+        var e = system.NewVector();
+        e[layout.IndexOfNode(output)] = 1;
+        var y = system.NewVector();
+        var density = new double[frequencies.Length];
+        for (var k = 0; k < frequencies.Length; k++)
+        {
+            system.Factor(frequencies[k], conductances);
+            system.SolveTransposed(e, y);
+            var psd = 0.0;
+            foreach (var g in generators)
+            {
+                var transfer = y[g.Into] - y[g.From];
+                psd += (transfer.Real * transfer.Real + transfer.Imaginary * transfer.Imaginary) * g.Psd(frequencies[k]);
+            }
+            density[k] = Math.Sqrt(psd);
+        }
+        return density;
+    }
+
+    /// <summary>The small-signal conductances with every switch closed at t = 0 set to its off conductance.</summary>
+    private static double[] OpenSwitches(SmallSignalSystem system, Circuit circuit)
+    {
+        var g = (double[])system.Conductances.Clone();
+        var layout = system.System.Layout;
+        foreach (var s in circuit.Elements.OfType<TimedSwitch>().Where(s => s.Schedule.IsClosed(0)))
+        {
+            var delta = 1 / s.OffResistanceOhms - 1 / s.OnResistanceOhms;
+            var a = layout.IndexOfNode(s.NodeA);
+            var b = layout.IndexOfNode(s.NodeB);
+            g[layout.Slot(a, a)] += delta;
+            g[layout.Slot(b, b)] += delta;
+            g[layout.Slot(a, b)] -= delta;
+            g[layout.Slot(b, a)] -= delta;
+        }
+        g[layout.Trash] = 0;
+        return g;
+    }
+}
