@@ -33,7 +33,7 @@ internal static class WorstCaseCommand
             if (parsed.GetValue(csv) is { } file)
                 set.Add(file.ToString(), () => WorstCaseText.Csv(result!));
             set.CheckTargets();
-            result = Verifier.WorstCase(loaded, new WorstCaseOptions { Threads = parsed.GetValue(threads), Cancel = cancel });
+            result = Verifier.WorstCase(loaded, new WorstCaseOptions { Threads = parsed.GetValue(threads), Progress = work.Progress(parsed, "units"), Cancel = cancel });
             set.Write();
             parsed.InvocationConfiguration.Output.Write(WorstCaseText.Render(loaded, result));
             outputs.Announce(parsed);

@@ -29,9 +29,10 @@ internal static class BaselineFigures
 
         var lsb = result.Adc.LsbVolts;
         figures.Add(Lsb("settling.worst", "worst settling error at the pin (sample minus DC pin voltage)", result, p => p.Simulated.WorstSettlingVolts, lsb));
-        figures.Add(Lsb("loading.worst", "worst DC loading error at the pin (leakage, bias, fixed-resistor drift)", result, p => p.Simulated.StaticLoadingVolts, lsb));
+        figures.Add(Lsb("loading.worst", "worst DC loading error at the pin (leakage, fixed-resistor drift)", result, p => p.Simulated.DcLoadingVolts, lsb));
         figures.Add(Lsb("sampling-average.worst", "worst error from the average sampling current", result, p => p.Simulated.AverageSamplingVolts, lsb));
-        figures.Add(Lsb("buffer.worst", "worst buffer error (offset, finite gain)", result, p => p.Simulated.BufferVolts, lsb));
+        figures.Add(Lsb("buffer.worst", "worst buffer error (offset and drift, bias currents, finite gain)", result, p => p.Simulated.BufferVolts, lsb));
+        figures.Add(Lsb("converter.worst", "worst code shift from the converter's static errors (offset, gain, INL, reference)", result, p => p.Simulated.ConverterVolts, lsb));
         figures.Add(new BaselineFigure("points.over-budget", "points outside the budget", result.Points.Count(p => !p.WithinBudget), "points", Better.Lower, 0));
         figures.Add(new BaselineFigure("findings.fail", "failing findings", result.Findings.Count(f => f.Severity == Severity.Fail), "findings", Better.Lower, 0));
         return new Baseline(design.Name, Fingerprint(design), toolVersion, figures);

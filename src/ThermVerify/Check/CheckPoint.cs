@@ -1,32 +1,60 @@
+using ThermVerify.FrontEnd;
+
 namespace ThermVerify.Check;
 
 /// <summary>
-/// The temperature error at one point split by cause, in K (reported minus true): each voltage error is mapped
-/// through the exact inverse in turn (buffer, DC loading, settling), then the ADC's rounding of the sample;
-/// <see cref="RestKelvin"/> is what cannot be mapped (a voltage no sensor inside its range produces).
+/// The temperature error at one point split by cause, in K (reported minus true). The voltage is walked from the
+/// closed form to the converted code one cause at a time, each step mapped through the exact inverse: the buffer's
+/// own errors, DC loading, the reservoir's recovery from the average sampling current, the settling of the sample,
+/// the sensor's self-heating, the converter's static errors (offset, gain, INL, reference), then the rounding to a
+/// code. <see cref="RestKelvin"/> is what cannot be mapped (a voltage no sensor inside its range produces). Each
+/// column is the effect of the finding of the same name, so a finding's size is its column at its worst point.
 /// </summary>
 public sealed record ErrorContributions(
     double QuantisationKelvin,
+    double ConverterKelvin,
     double DcLoadingKelvin,
+    double RecoveryKelvin,
     double SettlingKelvin,
     double BufferKelvin,
-    double RestKelvin);
+    double SelfHeatingKelvin,
+    double RestKelvin)
+{
+    /// <summary>The columns in the order the table prints them, with the id of the finding each belongs to.</summary>
+    public IReadOnlyList<(string Column, string FindingId, double Kelvin)> Columns =>
+    [
+        ("quantisation", "resolution", QuantisationKelvin),
+        ("converter", "converter", ConverterKelvin),
+        ("DC loading", "dc-loading", DcLoadingKelvin),
+        ("recovery", "reservoir-recovery", RecoveryKelvin),
+        ("settling", "settling", SettlingKelvin),
+        ("buffer", "buffer-static", BufferKelvin),
+        ("self-heating", "self-heating", SelfHeatingKelvin),
+        ("rest", "", RestKelvin),
+    ];
+
+    public double Sum => QuantisationKelvin + ConverterKelvin + DcLoadingKelvin + RecoveryKelvin + SettlingKelvin + BufferKelvin + SelfHeatingKelvin + RestKelvin;
+}
 
 /// <summary>
-/// The simulated voltage errors at the pin by cause: leakage and bias currents through the source (static loading),
-/// the average sampling current, the buffer's own error (offset, finite gain), and the sample's distance from the
-/// DC pin voltage at the first conversion and in the steady state.
+/// The same walk in volts at the pin, for the reading the check converts: the buffer's own error, DC loading (pin
+/// leakage, fixed-resistor drift), recovery (the average sampling current of a reservoir; zero for a first
+/// conversion), settling (the sample against the level it starts from), self-heating, and the converter's errors as
+/// the voltage their code shift stands for. The first and steady settling offsets of that precharge case are kept
+/// beside it.
 /// </summary>
 public sealed record VoltageErrors(
-    double StaticLoadingVolts,
-    double AverageSamplingVolts,
     double BufferVolts,
+    double DcLoadingVolts,
+    double RecoveryVolts,
+    double SettlingVolts,
+    double SelfHeatingVolts,
+    double ConverterVolts,
     double FirstSettlingVolts,
-    double SteadySettlingVolts)
+    double SteadySettlingVolts,
+    double AverageSamplingVolts)
 {
     public double WorstSettlingVolts => Math.Abs(FirstSettlingVolts) >= Math.Abs(SteadySettlingVolts) ? FirstSettlingVolts : SteadySettlingVolts;
-
-    public bool FirstIsWorse => Math.Abs(FirstSettlingVolts) >= Math.Abs(SteadySettlingVolts);
 }
 
 /// <summary>Closed-form estimates of the effects the ideal model leaves out, in volts at the ADC pin.</summary>
@@ -34,24 +62,37 @@ public sealed record EffectEstimates(
     double SourceOhms,
     double FixedDriftVolts,
     double LeakageVolts,
+    double BufferOffsetVolts,
     double BiasCurrentVolts,
     double AverageSamplingVolts,
     double FirstConversionVolts,
-    double SteadySettlingVolts)
+    double SteadySettlingVolts,
+    double SelfHeatingVolts)
 {
-    public double StaticVolts => FixedDriftVolts + LeakageVolts + BiasCurrentVolts;
+    /// <summary>DC loading: leakage and the fixed resistor's drift.</summary>
+    public double LoadingVolts => FixedDriftVolts + LeakageVolts;
+
+    /// <summary>The buffer: offset with its drift, and the bias current through the divider.</summary>
+    public double BufferVolts => BufferOffsetVolts + BiasCurrentVolts;
 }
 
-/// <summary>Everything known at one temperature of the check.</summary>
+/// <summary>
+/// Everything known at one temperature of the check, for the reading the check converts there: the worst over the
+/// precharge cases, the first or the steady sample, and the converter's INL sign.
+/// </summary>
 public sealed record CheckPoint(
     double Celsius,
     double SensorOhms,
     double IdealVolts,
     double DividerVolts,
+    double StaticPinVolts,
     double DcPinVolts,
     double FirstSampleVolts,
     double SteadySampleVolts,
-    double? PrechargeVolts,
+    double SampleVolts,
+    PrechargeCase Precharge,
+    bool FirstConversion,
+    string Corner,
     bool SamplingSimulated,
     int Code,
     double ReportedCelsius,
@@ -62,11 +103,10 @@ public sealed record CheckPoint(
     VoltageErrors Simulated,
     EffectEstimates Estimates)
 {
-    /// <summary>The pin's DC voltage without the average sampling current.</summary>
-    public double StaticPinVolts => DcPinVolts - Simulated.AverageSamplingVolts;
+    public double? PrechargeVolts => Precharge.Volts;
 
     public bool WithinBudget => double.IsFinite(ErrorKelvin) && Math.Abs(ErrorKelvin) <= BudgetKelvin;
 
-    /// <summary>The sample the firmware converts in the worse case: first conversion or steady state.</summary>
-    public double WorstSampleVolts => Math.Abs(FirstSampleVolts - IdealVolts) >= Math.Abs(SteadySampleVolts - IdealVolts) ? FirstSampleVolts : SteadySampleVolts;
+    /// <summary>Which sample the firmware converts here, in words.</summary>
+    public string SampleKind => FirstConversion ? "first" : "steady";
 }

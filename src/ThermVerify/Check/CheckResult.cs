@@ -13,7 +13,10 @@ public sealed record CheckOptions
 
     public int Threads { get; init; } = Environment.ProcessorCount;
 
-    /// <summary>Search for remedies (extra simulations at the worst temperature) when a finding needs one.</summary>
+    /// <summary>
+    /// Search for remedies when a finding needs one: bisection on the simulated finding at its worst temperature,
+    /// then a check of the design with the change applied, which must clear the finding (the proof).
+    /// </summary>
     public bool ComputeRemedies { get; init; } = true;
 
     public CancellationToken Cancel { get; init; }
@@ -40,6 +43,9 @@ public sealed record CheckResult(
 
     /// <summary>The codes a broken sensor or fixed resistor produce and the thresholds that catch them; null when the tolerances leave no room.</summary>
     public FaultThresholds? Faults { get; init; }
+
+    /// <summary>The precharge cases the check covered (the design's setting; "worst" covers the last sample, 0 V and full scale).</summary>
+    public IReadOnlyList<PrechargeCase> PrechargeCases { get; init; } = [PrechargeCase.LastSample];
 
     public bool Passed => Points.All(p => p.WithinBudget) && Findings.All(f => f.Severity != Severity.Fail);
 

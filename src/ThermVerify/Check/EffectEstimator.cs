@@ -1,17 +1,22 @@
+using ThermVerify.Check.Buffer;
 using ThermVerify.Design;
 using ThermVerify.FrontEnd;
 
 namespace ThermVerify.Check;
 
 /// <summary>
-/// The first-order closed form of each effect the ideal model leaves out, at one temperature: Ohm's law for
-/// leakage and bias currents, the switched-capacitor resistance for the average sampling current (Johns &amp;
-/// Martin), charge sharing with a reservoir, and single-pole settling without one (the dominant pole from the sum
-/// of open-circuit time constants, R_s·(C_sh + C_pin) + R_on·C_sh; exact for C_pin = 0).
+/// The first-order closed form of each effect the ideal model leaves out, at one temperature: Ohm's law for leakage
+/// and bias currents, the fixed resistor's tempco through the divider's slope, the buffer's offset with its drift,
+/// the switched-capacitor resistance for the average sampling current (Johns &amp; Martin), charge sharing with a
+/// reservoir (the first conversion from the settled pin; the steady state from the sawtooth the reservoir settles into,
+/// <see cref="SamplingFormulas.SteadySampleVolts"/>, against the pin with the average sampling current), and
+/// single-pole settling without one (the dominant pole from the sum of open-circuit time constants,
+/// R_s·(C_sh + C_pin) + R_on·C_sh; exact for C_pin = 0).
 /// </summary>
 internal static class EffectEstimator
 {
-    public static EffectEstimates At(FrontEndDesign design, ClosedFormPoint point, double dcPinVolts, double? prechargeVolts)
+    public static EffectEstimates At(FrontEndDesign design, ClosedFormPoint point, double staticPinVolts, double averagePinVolts,
+        double? prechargeVolts, double selfHeatingVolts)
     {
         var adc = design.Adc;
         var source = SourceOhms(design, point);
@@ -21,24 +26,31 @@ internal static class EffectEstimator
         // The divider output depends on R_s/(R_s + R_f) only, so dV/dR_f = −(R_s/R_f)·dV/dR_s.
         var drift = (design.Buffer?.Gain ?? 1) * driftOhms * -(point.SensorOhms / divider.FixedResistorOhms) *
                     DividerFormula.SlopeVoltsPerOhm(divider.SensorSide, divider.ExcitationVolts, point.SensorOhms, divider.FixedResistorOhms);
-        var bias = design.Buffer is { } b ? -b.BiasCurrentAmperes * point.TheveninOhms * b.Gain : 0;
-        var average = DcSweepCase.UsesAverageSamplingCurrent(design, prechargeVolts)
+        var (offset, bias) = design.Buffer is null ? (0.0, 0.0) : BufferStaticErrors.At(design, point) is var s ? (s.OffsetVolts + s.DriftVolts, s.BiasVolts) : default;
+        var average = DcLevels.UsesAverageSamplingCurrent(design, prechargeVolts)
             ? SamplingFormulas.SwitchedCapacitorErrorVolts(prechargeVolts!.Value - point.IdealVolts, source, adc.SampleRateHertz, adc.SamplingCapacitanceFarads)
             : 0;
-        if (prechargeVolts is not { } pre) return new EffectEstimates(source, drift, leakage, bias, average, 0, 0);
+        EffectEstimates Make(double first, double steady) =>
+            new(source, drift, leakage, offset, bias, average, first, steady, selfHeatingVolts);
+        if (prechargeVolts is not { } pre) return Make(0, 0);
 
-        var step = pre - dcPinVolts;
         var reservoir = design.Filter.ReservoirCapacitorFarads;
         if (reservoir > 0)
         {
-            var kick = SamplingFormulas.KickbackStepVolts(step, adc.SamplingCapacitanceFarads, reservoir + adc.PinCapacitanceFarads);
-            return new EffectEstimates(source, drift, leakage, bias, average, kick, kick);
+            var external = reservoir + adc.PinCapacitanceFarads;
+            var steady = SamplingFormulas.SteadySampleVolts(staticPinVolts, pre, adc.SamplingCapacitanceFarads, external,
+                source * external, 1 / adc.SampleRateHertz) - averagePinVolts;
+            return Make(SamplingFormulas.KickbackStepVolts(pre - staticPinVolts, adc.SamplingCapacitanceFarads, external), steady);
         }
-        var shared = SamplingFormulas.KickbackStepVolts(step, adc.SamplingCapacitanceFarads, adc.PinCapacitanceFarads);
-        var tau = source * (adc.SamplingCapacitanceFarads + adc.PinCapacitanceFarads) + adc.SwitchResistanceOhms * adc.SamplingCapacitanceFarads;
-        var residual = SamplingFormulas.SinglePoleResidualVolts(shared, adc.AcquisitionTimeSeconds, tau);
-        return new EffectEstimates(source, drift, leakage, bias, average, residual, residual);
+        var tau = SinglePoleTauSeconds(design, source);
+        double Residual(double from) => SamplingFormulas.SinglePoleResidualVolts(
+            SamplingFormulas.KickbackStepVolts(pre - from, adc.SamplingCapacitanceFarads, adc.PinCapacitanceFarads), adc.AcquisitionTimeSeconds, tau);
+        return Make(Residual(staticPinVolts), Residual(averagePinVolts));
     }
+
+    /// <summary>The dominant time constant of the acquisition without a reservoir: R_s·(C_sh + C_pin) + R_on·C_sh.</summary>
+    public static double SinglePoleTauSeconds(FrontEndDesign design, double sourceOhms) =>
+        sourceOhms * (design.Adc.SamplingCapacitanceFarads + design.Adc.PinCapacitanceFarads) + design.Adc.SwitchResistanceOhms * design.Adc.SamplingCapacitanceFarads;
 
     /// <summary>Resistance the ADC pin sees: the divider's Thevenin resistance (or the buffer, taken as ideal) plus the filter.</summary>
     public static double SourceOhms(FrontEndDesign design, ClosedFormPoint point) =>

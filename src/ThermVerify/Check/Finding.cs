@@ -29,7 +29,21 @@ public sealed record Finding(
     string Cause,
     double? EstimateVolts,
     double? SimulatedVolts,
-    IReadOnlyList<Remedy> Remedies);
+    IReadOnlyList<Remedy> Remedies)
+{
+    /// <summary>What the remedy search concluded when no single change clears the finding (null when one does, or none was searched).</summary>
+    public string? RemedyNote { get; init; }
+}
 
-/// <summary>A computed fix: the quantity to change, the value that brings the error within the target, and how it was found.</summary>
-public sealed record Remedy(string Key, string Action, double? Value, string Unit, string Method);
+/// <summary>
+/// A computed fix: the design key to change, the value that brings the finding within ½ LSB (or the budget), and how
+/// it was found. A remedy is only given once a copy of the design with the change applied has been checked and the
+/// finding was gone with no new failing finding; <see cref="Proof"/> says what that check found. A combination lists
+/// its other changes in <see cref="Together"/>: all of them are applied together.
+/// </summary>
+public sealed record Remedy(string Key, string Action, double? Value, string Unit, string Method)
+{
+    public IReadOnlyList<Remedy> Together { get; init; } = [];
+
+    public string Proof { get; init; } = "";
+}

@@ -1,87 +1,83 @@
+using System.Globalization;
+using ThermVerify.Check.Buffer;
 using ThermVerify.Design;
 using ThermVerify.FrontEnd;
+using ThermVerify.Quantities;
 
 namespace ThermVerify.Check;
 
 /// <summary>
-/// Turns the checked points into findings. Each effect larger than ½ LSB somewhere is a finding; it fails the check
-/// where the budget is broken at a temperature where the effect is that large, and warns otherwise. The budget
-/// itself is a finding of its own when broken.
+/// Turns the checked points into findings, one per column of the error split. The rules (docs/methods.md, section 9):
+/// an effect is a finding where it moves the pin by more than ½ LSB (the converter: where it shifts the code by more
+/// than ½ LSB); it FAILS when its own contribution to the reported temperature exceeds the budget at any temperature
+/// (regions included), and WARNS otherwise, whatever the other effects at the same temperature do. The resolution
+/// fails where ½ LSB alone exceeds the budget (IEEE Std 1241: ±Q/2). The over-budget finding fails wherever the total
+/// is outside the budget and names the cause that dominates at its worst point.
 /// </summary>
 internal static class FindingRules
 {
-    public static IReadOnlyList<Finding> Evaluate(FrontEndDesign design, ClosedFormModel model, IReadOnlyList<CheckPoint> points, CheckOptions options)
+    public const string OverBudgetId = "over-budget";
+
+    public static IReadOnlyList<Finding> Evaluate(FrontEndDesign design, ClosedFormModel model, IReadOnlyList<CheckPoint> points)
     {
-        var halfLsb = model.Adc.LsbVolts / 2;
-        var settleVolts = design.Check.SettleLimitLsb * model.Adc.LsbVolts;
+        var lsb = model.Adc.LsbVolts;
         var findings = new List<Finding>();
-
-        var leakage = Effect(points, p => p.Simulated.StaticLoadingVolts, halfLsb);
-        if (leakage is { } l)
-        {
-            var amps = EffectEstimator.LeakageAmps(design, l.Worst.Celsius);
-            IReadOnlyList<Remedy> remedies = amps != 0 ? [Remedies.LargestSourceResistance(halfLsb, amps)] : [];
-            findings.Add(Make("dc-loading", "DC error at the pin: leakage and bias currents, fixed-resistor drift", l, model, points,
-                "pin leakage and bias currents flow through the resistance the pin sees (Ohm's law), and the fixed resistor " +
-                "drifts with its tempco away from 25 °C",
-                l.Worst.Estimates.StaticVolts, remedies));
-        }
-
-        var average = Effect(points, p => p.Simulated.AverageSamplingVolts, halfLsb);
-        if (average is { } a)
-            findings.Add(Make("reservoir-recovery", "the reservoir does not recover between samples", a, model, points,
-                "each acquisition drags the reservoir towards the precharge level; at this sample rate the source cannot refill it " +
-                "(average current of a capacitor switched at f_s: R_eq = 1/(f_s·C_sh))",
-                a.Worst.Estimates.AverageSamplingVolts,
-                [Remedies.HighestSampleRate(design, a.Worst, halfLsb), Remedies.BufferBandwidth(design, PrechargeStep(a.Worst), halfLsb)]));
-
-        var settling = Effect(points, p => p.Simulated.WorstSettlingVolts, halfLsb);
-        if (settling is { } s)
-        {
-            var firstIsWorse = s.Worst.Simulated.FirstIsWorse;
-            var remedies = new List<Remedy>();
-            if (options.ComputeRemedies)
-            {
-                var estimate = SinglePoleAcquisitionEstimate(design, s.Worst, halfLsb);
-                if (Remedies.ShortestAcquisition(design, s.Worst, halfLsb, settleVolts, estimate, options.Engine) is { } r1) remedies.Add(r1);
-                if (Remedies.SmallestReservoir(design, s.Worst, halfLsb, settleVolts, options.Engine) is { } r2) remedies.Add(r2);
-            }
-            remedies.Add(Remedies.BufferBandwidth(design, PrechargeStep(s.Worst), halfLsb));
-            findings.Add(Make("settling", firstIsWorse ? "the first conversion after a precharge does not settle" : "the sampled value does not settle",
-                s, model, points,
-                design.Filter.ReservoirCapacitorFarads > 0
-                    ? "the sampling capacitor shares its charge with the reservoir (ΔV·C_sh/(C_sh + C_ext))"
-                    : "the acquisition is too short for the source resistance to charge the sampling capacitor (ΔV·e^(−t/τ))",
-                firstIsWorse ? s.Worst.Estimates.FirstConversionVolts : s.Worst.Estimates.SteadySettlingVolts, remedies));
-        }
-
         findings.AddRange(Resolution(design, model, points));
-        if (points.Any(p => !p.WithinBudget)) findings.Insert(0, OverBudget(model, points, findings));
+
+        Add("converter", "the converter's static errors (offset, gain, INL, reference) shift the code by more than ½ LSB",
+            p => p.Simulated.ConverterVolts, p => p.Contributions.ConverterKelvin, p => ConverterCause(design, p, lsb), p => p.Simulated.ConverterVolts, simulated: false);
+        Add("dc-loading", "DC error at the pin: pin leakage, fixed-resistor drift",
+            p => p.Simulated.DcLoadingVolts, p => p.Contributions.DcLoadingKelvin,
+            p => LoadingCause(design, p),
+            p => p.Estimates.LoadingVolts);
+        Add("reservoir-recovery", "the reservoir does not recover between samples",
+            p => p.Simulated.RecoveryVolts, p => p.Contributions.RecoveryKelvin,
+            p => I($"each acquisition drags the reservoir towards the precharge level ({p.Precharge.Name}); at this sample rate the source ") +
+                 "cannot refill it (average current of a capacitor switched at f_s: R_eq = 1/(f_s·C_sh), Johns & Martin)",
+            p => p.Estimates.AverageSamplingVolts);
+        Add("settling", null, p => p.Simulated.SettlingVolts, p => p.Contributions.SettlingKelvin,
+            p => (design.Filter.ReservoirCapacitorFarads > 0
+                    ? "the sampling capacitor shares its charge with the reservoir (ΔV·C_sh/(C_sh + C_ext), from the "
+                    : "the acquisition is too short for the source resistance to charge the sampling capacitor (ΔV·e^(−t/τ), from the ")
+                 + (p.FirstConversion ? "settled pin" : "pin with the average sampling current") + I($"; precharge {p.Precharge.Name}, {p.SampleKind} conversion)"),
+            p => p.FirstConversion ? p.Estimates.FirstConversionVolts : p.Estimates.SteadySettlingVolts);
+        if (design.Buffer is not null)
+            Add("buffer-static", "the buffer's offset, drift and bias currents shift the pin by more than ½ LSB",
+                p => p.Simulated.BufferVolts, p => p.Contributions.BufferKelvin, p => BufferCause(design, p), p => p.Estimates.BufferVolts);
+        Add("self-heating", "the sensor's self-heating moves the reading by more than ½ LSB",
+            p => p.Simulated.SelfHeatingVolts, p => p.Contributions.SelfHeatingKelvin,
+            p => I($"the sensor dissipates its share of the divider's power and warms by P/δ (IEC 60539-1), δ = {design.Sensor.DissipationConstantWattsPerKelvin * 1e3:0.###} mW/K; ") +
+                 I($"{p.Contributions.SelfHeatingKelvin * 1e3:0.#} mK at {p.Celsius:0.##} °C"),
+            p => p.Estimates.SelfHeatingVolts, simulated: false);
         return findings;
+
+        void Add(string id, string? title, Func<CheckPoint, double> volts, Func<CheckPoint, double> kelvin, Func<CheckPoint, string> cause,
+            Func<CheckPoint, double> estimate, bool simulated = true)
+        {
+            if (Effect(points, volts, kelvin, lsb / 2) is not { } span) return;
+            var w = span.Worst;
+            var size = volts(w);
+            findings.Add(new Finding(id, span.Severity,
+                title ?? (w.FirstConversion ? "the first conversion after a precharge does not settle" : "the sampled value does not settle"),
+                span.From, span.To, w.Celsius, size, size / lsb, kelvin(w), cause(w), estimate(w), simulated ? size : null, []));
+        }
     }
 
-    private sealed record EffectSpan(CheckPoint Worst, double From, double To, Func<CheckPoint, double> Volts);
-
-    /// <summary>Where an effect exceeds ½ LSB, and its largest point; null if it never does.</summary>
-    private static EffectSpan? Effect(IReadOnlyList<CheckPoint> points, Func<CheckPoint, double> volts, double halfLsb)
+    /// <summary>
+    /// Where an effect exceeds ½ LSB, its worst point (the largest contribution in K against the budget there) and its
+    /// severity from its own size: FAIL when its contribution exceeds the budget anywhere. Null if it never exceeds ½ LSB.
+    /// </summary>
+    private static EffectSpan? Effect(IReadOnlyList<CheckPoint> points, Func<CheckPoint, double> volts, Func<CheckPoint, double> kelvin, double halfLsb)
     {
         var over = points.Where(p => Math.Abs(volts(p)) > halfLsb).ToList();
-        return over.Count == 0 ? null : new EffectSpan(over.MaxBy(p => Math.Abs(volts(p)))!, over[0].Celsius, over[^1].Celsius, volts);
+        if (over.Count == 0) return null;
+        var worst = over.MaxBy(p => Math.Abs(kelvin(p)) / p.BudgetKelvin is var r && double.IsFinite(r) ? r : 0)!;
+        if (Math.Abs(kelvin(worst)) == 0) worst = over.MaxBy(p => Math.Abs(volts(p)))!;
+        var fails = points.Any(p => Math.Abs(kelvin(p)) > p.BudgetKelvin);
+        return new EffectSpan(worst, over[0].Celsius, over[^1].Celsius, fails ? Severity.Fail : Severity.Warn);
     }
 
-    private static Finding Make(string id, string title, EffectSpan span, ClosedFormModel model, IReadOnlyList<CheckPoint> points,
-        string cause, double estimateVolts, IReadOnlyList<Remedy> remedies)
-    {
-        var halfLsb = model.Adc.LsbVolts / 2;
-        var breaks = points.Any(p => !p.WithinBudget && Math.Abs(span.Volts(p)) > halfLsb);
-        var volts = span.Volts(span.Worst);
-        return new Finding(id, breaks ? Severity.Fail : Severity.Warn, title, span.From, span.To, span.Worst.Celsius,
-            volts, volts / model.Adc.LsbVolts, KelvinOf(model, span.Worst, volts), cause, estimateVolts, volts, remedies);
-    }
-
-    /// <summary>What a voltage error at the pin does to the temperature, through the exact inverse (no linearisation).</summary>
-    private static double KelvinOf(ClosedFormModel model, CheckPoint point, double volts) =>
-        model.CelsiusAtVolts(point.IdealVolts + volts) - point.Celsius;
+    private sealed record EffectSpan(CheckPoint Worst, double From, double To, Severity Severity);
 
     /// <summary>Quantisation alone: a failure where half an LSB is already more than the budget.</summary>
     private static IEnumerable<Finding> Resolution(FrontEndDesign design, ClosedFormModel model, IReadOnlyList<CheckPoint> points)
@@ -89,48 +85,95 @@ internal static class FindingRules
         var over = points.Where(p => p.KelvinPerLsb / 2 > p.BudgetKelvin).ToList();
         if (over.Count == 0) yield break;
         var worst = over.MaxBy(p => p.KelvinPerLsb / 2 / p.BudgetKelvin)!;
-        var extraBits = (int)Math.Ceiling(Math.Log2(worst.KelvinPerLsb / 2 / worst.BudgetKelvin));
         yield return new Finding("resolution", Severity.Fail, "the converter's resolution alone exceeds the budget",
             over[0].Celsius, over[^1].Celsius, worst.Celsius, model.Adc.LsbVolts / 2, 0.5, worst.KelvinPerLsb / 2,
-            $"one LSB is {worst.KelvinPerLsb:0.###} K at {worst.Celsius:0.##} °C, so quantisation alone reaches ±{worst.KelvinPerLsb / 2:0.###} K (IEEE Std 1241: ±Q/2)",
-            null, null,
-            [new Remedy("adc.bits", $"use at least {design.Adc.Bits + extraBits} bits, or a divider with more slope there", design.Adc.Bits + extraBits, "bits",
-                "½ LSB in K against the budget")]);
+            I($"one LSB is {worst.KelvinPerLsb:0.###} K at {worst.Celsius:0.##} °C, so quantisation alone reaches ±{worst.KelvinPerLsb / 2:0.###} K (IEEE Std 1241: ±Q/2)"),
+            null, null, []);
     }
 
-    private static Finding OverBudget(ClosedFormModel model, IReadOnlyList<CheckPoint> points, IReadOnlyList<Finding> causes)
+    /// <summary>The budget broken: where, by how much, and the cause that dominates at the worst point.</summary>
+    public static Finding? OverBudget(ClosedFormModel model, IReadOnlyList<CheckPoint> points, IReadOnlyList<Finding> findings)
     {
         var over = points.Where(p => !p.WithinBudget).ToList();
+        if (over.Count == 0) return null;
         var worst = over.MaxBy(p => double.IsFinite(p.ErrorKelvin) ? Math.Abs(p.ErrorKelvin) : double.PositiveInfinity)!;
-        var volts = worst.WorstSampleVolts - worst.IdealVolts;
+        // The reading as a voltage: what the firmware takes the code to stand for, against the closed form.
+        var volts = model.Adc.VoltsOf(worst.Code) - worst.IdealVolts;
         var cause = double.IsFinite(worst.ErrorKelvin)
-            ? $"the largest contribution at {worst.Celsius:0.##} °C is {Dominant(worst.Contributions)}"
-            : $"at {worst.Celsius:0.##} °C the code {worst.Code} cannot come from a sensor inside its valid range";
-        return new Finding("over-budget", Severity.Fail, $"the reported temperature is outside the budget at {over.Count} of {points.Count} points",
-            over[0].Celsius, over[^1].Celsius, worst.Celsius, volts, volts / model.Adc.LsbVolts, worst.ErrorKelvin, cause, null, volts,
-            [.. causes.Where(f => f.Severity == Severity.Fail).SelectMany(f => f.Remedies).DistinctBy(r => (r.Key, r.Action))]);
+            ? I($"the largest contribution at {worst.Celsius:0.##} °C is {Dominant(worst.Contributions)}") +
+              (findings.Count(f => f.Severity == Severity.Fail) == 0 ? "; no single effect exceeds the budget on its own: they add up" : "")
+            : I($"at {worst.Celsius:0.##} °C the code {worst.Code} cannot come from a sensor inside its valid range");
+        return new Finding(OverBudgetId, Severity.Fail, $"the reported temperature is outside the budget at {over.Count} of {points.Count} points",
+            over[0].Celsius, over[^1].Celsius, worst.Celsius, volts, volts / model.Adc.LsbVolts, worst.ErrorKelvin, cause, null, volts, []);
     }
+
+    /// <summary>The size at the pin of the effect a finding is about, at one point (null for findings that are not a column).</summary>
+    public static double? ColumnVolts(string findingId, CheckPoint p) => findingId switch
+    {
+        "converter" => p.Simulated.ConverterVolts,
+        "dc-loading" => p.Simulated.DcLoadingVolts,
+        "reservoir-recovery" => p.Simulated.RecoveryVolts,
+        "settling" => p.Simulated.SettlingVolts,
+        "buffer-static" => p.Simulated.BufferVolts,
+        "self-heating" => p.Simulated.SelfHeatingVolts,
+        _ => null,
+    };
+
+    /// <summary>The columns of a point ordered by the size of their contribution, largest first (the rest last).</summary>
+    public static IReadOnlyList<(string Column, string FindingId, double Kelvin)> ByContribution(ErrorContributions c) =>
+        [.. c.Columns.Where(x => x.FindingId.Length > 0).OrderByDescending(x => Math.Abs(x.Kelvin))];
 
     private static string Dominant(ErrorContributions c)
     {
-        var parts = new (string Name, double Kelvin)[]
-        {
-            ("quantisation", c.QuantisationKelvin), ("DC loading", c.DcLoadingKelvin), ("settling", c.SettlingKelvin),
-            ("the buffer", c.BufferKelvin), ("the rest", c.RestKelvin),
-        };
-        var top = parts.MaxBy(p => Math.Abs(p.Kelvin));
-        return FormattableString.Invariant($"{top.Name} ({top.Kelvin:+0.###;-0.###} K)");
+        var top = c.Columns.MaxBy(p => Math.Abs(p.Kelvin));
+        return I($"{top.Column} ({top.Kelvin:+0.###;-0.###} K)");
     }
 
-    /// <summary>The step a sampling capacitor brings to the pin: precharge level minus the pin's DC voltage.</summary>
-    private static double PrechargeStep(CheckPoint p) => (p.PrechargeVolts ?? p.DcPinVolts) - p.DcPinVolts;
+    private static string LoadingCause(FrontEndDesign design, CheckPoint p)
+    {
+        var parts = new List<string>();
+        if (design.Adc.PinLeakageAmperes != 0)
+            parts.Add(I($"pin leakage {Bounded(Amps(Math.Abs(EffectEstimator.LeakageAmps(design, p.Celsius))), design.Adc.PinLeakageSigned, design.Adc.PinLeakageAmperes)} ") +
+                      I($"through the {Ohms(p.Estimates.SourceOhms)} the pin sees (Ohm's law) {Volts(p.Estimates.LeakageVolts)}"));
+        if (design.Divider.FixedTempcoPerKelvin != 0)
+            parts.Add(I($"the fixed resistor's tempco of {Bounded(I($"{Math.Abs(design.Divider.FixedTempcoPerKelvin) * 1e6:0.###} ppm/K"), design.Divider.FixedTempcoSigned, design.Divider.FixedTempcoPerKelvin)} ") +
+                      I($"at {(design.Check.BoardCelsius ?? p.Celsius):0.##} °C {Volts(p.Estimates.FixedDriftVolts)}"));
+        return string.Join(", and ", parts) + CornerNote(p);
+    }
 
-    /// <summary>t = τ·ln(|ΔV|/ε) with the single-pole τ of <see cref="EffectEstimator"/>.</summary>
-    private static double SinglePoleAcquisitionEstimate(FrontEndDesign design, CheckPoint worst, double allowedVolts)
+    private static string ConverterCause(FrontEndDesign design, CheckPoint p, double lsb)
     {
         var adc = design.Adc;
-        var tau = worst.Estimates.SourceOhms * (adc.SamplingCapacitanceFarads + adc.PinCapacitanceFarads) + adc.SwitchResistanceOhms * adc.SamplingCapacitanceFarads;
-        var step = (worst.PrechargeVolts ?? worst.DcPinVolts) - worst.DcPinVolts;
-        return SamplingFormulas.AcquisitionSecondsFor(step * adc.SamplingCapacitanceFarads / (adc.SamplingCapacitanceFarads + adc.PinCapacitanceFarads), allowedVolts, tau);
+        var parts = new List<string>();
+        if (adc.OffsetErrorLsb != 0) parts.Add("offset " + Bounded(I($"{Math.Abs(adc.OffsetErrorLsb):0.###} LSB"), adc.OffsetErrorSigned, adc.OffsetErrorLsb));
+        if (adc.GainError != 0) parts.Add("gain error " + Bounded(I($"{Math.Abs(adc.GainError) * 100:0.###} %"), adc.GainErrorSigned, adc.GainError));
+        if (adc.InlLsb != 0) parts.Add(I($"INL ±{adc.InlLsb:0.###} LSB as a bow"));
+        if (adc.ReferenceTempcoPerKelvin != 0) parts.Add("reference tempco " + Bounded(I($"{Math.Abs(adc.ReferenceTempcoPerKelvin) * 1e6:0.###} ppm/K"), adc.ReferenceTempcoSigned, adc.ReferenceTempcoPerKelvin));
+        return string.Join(", ", parts) + I($" (IEEE Std 1241 terms): the code moves by {p.Simulated.ConverterVolts / lsb:+0.##;-0.##} LSB at {p.Celsius:0.##} °C") + CornerNote(p);
     }
+
+    private static string BufferCause(FrontEndDesign design, CheckPoint p)
+    {
+        var b = design.Buffer!;
+        var words = new List<string>();
+        if (b.OffsetVolts != 0) words.Add("offset " + Bounded(Volts(Math.Abs(b.OffsetVolts)), b.OffsetSigned, b.OffsetVolts));
+        if (b.OffsetDriftVoltsPerKelvin != 0) words.Add("drift " + Bounded(EngineeringFormat.Format(Math.Abs(b.OffsetDriftVoltsPerKelvin), UnitKind.VoltPerKelvin, 4), b.OffsetDriftSigned, b.OffsetDriftVoltsPerKelvin) +
+                                                        I($" with the op-amp at {(design.Check.BoardCelsius ?? p.Celsius):0.##} °C"));
+        if (b.BiasCurrentAmperes != 0) words.Add("bias current " + Bounded(Amps(Math.Abs(b.BiasCurrentAmperes)), b.BiasCurrentSigned, b.BiasCurrentAmperes));
+        var thevenin = p.SensorOhms * design.Divider.FixedResistorOhms / (p.SensorOhms + design.Divider.FixedResistorOhms);
+        return string.Join(", ", words) + I($": offset and drift {Volts(p.Estimates.BufferOffsetVolts)} (times the stage gain), bias current through the divider's {Ohms(thevenin)} ") +
+               I($"{Volts(p.Estimates.BiasCurrentVolts)} (Ohm's law), and the finite open-loop gain") + CornerNote(p);
+    }
+
+    /// <summary>A value as the design gives it: "±25 nA (a bound)" or "+25 nA" when written with its sign.</summary>
+    private static string Bounded(string magnitude, bool signed, double value) =>
+        signed ? (value < 0 ? "−" : "+") + magnitude : "±" + magnitude + " (a bound)";
+
+    /// <summary>Which corner of the bounds the point's reading is at.</summary>
+    private static string CornerNote(CheckPoint p) => p.Corner.Length > 0 ? I($"; the bounds at the corner that reads worse here ({p.Corner})") : "";
+
+    private static string Volts(double v) => EngineeringFormat.Format(v, UnitKind.Volt, 4);
+    private static string Amps(double a) => EngineeringFormat.Format(a, UnitKind.Ampere, 4);
+    private static string Ohms(double r) => EngineeringFormat.Format(r, UnitKind.Ohm, 4);
+    private static string I(FormattableString s) => s.ToString(CultureInfo.InvariantCulture);
 }

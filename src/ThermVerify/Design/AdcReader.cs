@@ -10,13 +10,27 @@ internal static class AdcReader
         ["last-sample"] = PrechargeMode.LastSample,
         ["other-channel"] = PrechargeMode.OtherChannel,
         ["discharged"] = PrechargeMode.Discharged,
+        ["worst"] = PrechargeMode.Worst,
+    };
+
+    private static readonly Dictionary<string, FirstTransition> Transitions = new()
+    {
+        ["half-lsb"] = FirstTransition.HalfLsb,
+        ["one-lsb"] = FirstTransition.OneLsb,
+    };
+
+    private static readonly Dictionary<string, CodeInverse> Inverses = new()
+    {
+        ["bin-middle"] = CodeInverse.BinMiddle,
+        ["bin-edge"] = CodeInverse.BinEdge,
     };
 
     private static readonly string[] Keys =
     [
         "bits", "reference", "reference_tolerance", "sample_rate", "acquisition_time", "sampling_capacitance",
         "switch_resistance", "pin_capacitance", "pin_leakage", "pin_leakage_temperature", "leakage_doubling",
-        "offset_error", "gain_error", "inl", "precharge", "precharge_voltage",
+        "offset_error", "gain_error", "inl", "precharge", "precharge_voltage", "reference_tempco", "first_transition",
+        "firmware_inverse",
     ];
 
     public static AdcSpec Read(TomlSection s)
@@ -32,10 +46,14 @@ internal static class AdcReader
         if (acquisition >= 1 / sampleRate)
             throw s.ErrorAtValue("acquisition_time", $"{EngineeringFormat.Format(acquisition, UnitKind.Second)} is not shorter than the sample period {EngineeringFormat.Format(1 / sampleRate, UnitKind.Second)}",
                 "The acquisition window must fit inside one sample period: shorten it or lower sample_rate.");
-        var precharge = s.Choice("precharge", Precharges) ?? PrechargeMode.LastSample;
+        var precharge = s.Choice("precharge", Precharges) ?? PrechargeMode.Worst;
         var prechargeVolts = s.Quantity("precharge_voltage", Bound.Any, UnitKind.Volt)?.Value;
         if (prechargeVolts is not null && precharge != PrechargeMode.OtherChannel)
             throw s.ErrorAtKey("precharge_voltage", "precharge_voltage applies only to precharge = \"other-channel\"", "Remove it, or set precharge = \"other-channel\".");
+        var referenceTempco = s.ValueOr("reference_tempco", 0, Bound.Any, UnitKind.PpmPerKelvin);
+        if (referenceTempco != 0 && referenceVolts is null)
+            throw s.ErrorAtKey("reference_tempco", "reference_tempco applies only to a fixed reference; a ratiometric converter's reference is the excitation itself",
+                "Remove it, or give reference as a voltage.");
         return new AdcSpec
         {
             Bits = (int)bits,
@@ -54,6 +72,13 @@ internal static class AdcReader
             InlLsb = s.ValueOr("inl", 0, Bound.NonNegative, UnitKind.Lsb),
             Precharge = precharge,
             PrechargeVolts = prechargeVolts,
+            ReferenceTempcoPerKelvin = referenceTempco,
+            OffsetErrorSigned = SignWritten.Of(s, "offset_error"),
+            GainErrorSigned = SignWritten.Of(s, "gain_error"),
+            PinLeakageSigned = SignWritten.Of(s, "pin_leakage"),
+            ReferenceTempcoSigned = SignWritten.Of(s, "reference_tempco"),
+            FirstTransition = s.Choice("first_transition", Transitions) ?? FirstTransition.HalfLsb,
+            FirmwareInverse = s.Choice("firmware_inverse", Inverses) ?? CodeInverse.BinMiddle,
         };
     }
 }

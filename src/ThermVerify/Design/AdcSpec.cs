@@ -9,6 +9,28 @@ public enum PrechargeMode
     OtherChannel,
     /// <summary>0 V: the converter discharges the capacitor between samples.</summary>
     Discharged,
+    /// <summary>Not known: every case above (last sample, 0 V, full scale) is checked and the worst reported at each temperature.</summary>
+    Worst,
+}
+
+/// <summary>Where the converter's first code transition lies (IEEE Std 1241 code transition levels).</summary>
+public enum FirstTransition
+{
+    /// <summary>At ½ LSB: code = round(V/Q), every bin but the ends is centred on code·Q (the IEEE Std 1241 ideal converter).</summary>
+    HalfLsb,
+
+    /// <summary>At 1 LSB: code = floor(V/Q), bin k spans k·Q to (k+1)·Q (a truncating converter; common practice, no source).</summary>
+    OneLsb,
+}
+
+/// <summary>Which voltage of a code's bin the firmware takes the code to stand for.</summary>
+public enum CodeInverse
+{
+    /// <summary>The middle of the bin: the quantisation error is centred on zero, ±Q/2.</summary>
+    BinMiddle,
+
+    /// <summary>The lower edge of the bin: the reading is biased by half a bin (error 0 to −Q in voltage).</summary>
+    BinEdge,
 }
 
 /// <summary>A successive-approximation ADC input as seen from the pin.</summary>
@@ -38,7 +60,21 @@ public sealed record AdcSpec
     /// <summary>Fraction of full scale.</summary>
     public double GainError { get; init; }
     public double InlLsb { get; init; }
-    public PrechargeMode Precharge { get; init; } = PrechargeMode.LastSample;
+    /// <summary>Reference tempco, fraction per kelvin, at the sign written; the reference sits at the board temperature (fixed reference only).</summary>
+    public double ReferenceTempcoPerKelvin { get; init; }
+    public PrechargeMode Precharge { get; init; } = PrechargeMode.Worst;
     /// <summary>Voltage left by the other channel; null: analyses take the worse of 0 V and full scale.</summary>
     public double? PrechargeVolts { get; init; }
+    /// <summary>
+    /// Whether each static error was written with a sign: without one it is a bound the check takes at the worse sign
+    /// at each temperature; with one, at that sign (<see cref="SignWritten"/>). INL is always a bound.
+    /// </summary>
+    public bool OffsetErrorSigned { get; init; }
+    public bool GainErrorSigned { get; init; }
+    public bool PinLeakageSigned { get; init; }
+    public bool ReferenceTempcoSigned { get; init; }
+    /// <summary>The converter's transfer convention: the first code transition at ½ LSB (round) or 1 LSB (floor).</summary>
+    public FirstTransition FirstTransition { get; init; } = FirstTransition.HalfLsb;
+    /// <summary>The firmware's inverse: a code stands for the middle of its bin or its lower edge.</summary>
+    public CodeInverse FirmwareInverse { get; init; } = CodeInverse.BinMiddle;
 }

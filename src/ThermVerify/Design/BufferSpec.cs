@@ -36,6 +36,10 @@ public sealed record BufferSpec
     /// <summary>Positive flows into the input pin.</summary>
     public double BiasCurrentAmperes { get; init; }
     public double OffsetCurrentAmperes { get; init; }
+    /// <summary>Written with a sign: taken at that sign; without one each is a bound (<see cref="SignWritten"/>). The offset current is always as written.</summary>
+    public bool OffsetSigned { get; init; }
+    public bool OffsetDriftSigned { get; init; }
+    public bool BiasCurrentSigned { get; init; }
     public required VoltageRange Supply { get; init; }
     /// <summary>How close the output gets to each rail.</summary>
     public double OutputSwingVolts { get; init; }

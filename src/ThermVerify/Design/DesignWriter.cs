@@ -89,7 +89,7 @@ internal static class DesignWriter
         w.Text("sensor_side", d.SensorSide == SensorSide.High ? "high" : "low");
         w.Value("fixed_resistor", d.FixedResistorOhms, UnitKind.Ohm);
         w.Value("fixed_tolerance", d.FixedTolerance, UnitKind.Percent);
-        w.Value("fixed_tempco", d.FixedTempcoPerKelvin, UnitKind.PpmPerKelvin);
+        w.Value("fixed_tempco", d.FixedTempcoPerKelvin, UnitKind.PpmPerKelvin, d.FixedTempcoSigned);
         w.Value("excitation", d.ExcitationVolts, UnitKind.Volt);
         w.Value("excitation_tolerance", d.ExcitationTolerance, UnitKind.Percent);
         if (d.SwitchOnLeadSeconds is { } lead)
@@ -107,9 +107,9 @@ internal static class DesignWriter
         if (b.DcGainDecibels is { } dc)
             w.Value("dc_gain", dc, UnitKind.Decibel);
         w.Value("output_resistance", b.OutputResistanceOhms, UnitKind.Ohm);
-        w.Value("offset_voltage", b.OffsetVolts, UnitKind.Volt);
-        w.Value("offset_drift", b.OffsetDriftVoltsPerKelvin, UnitKind.VoltPerKelvin);
-        w.Value("bias_current", b.BiasCurrentAmperes, UnitKind.Ampere);
+        w.Value("offset_voltage", b.OffsetVolts, UnitKind.Volt, b.OffsetSigned);
+        w.Value("offset_drift", b.OffsetDriftVoltsPerKelvin, UnitKind.VoltPerKelvin, b.OffsetDriftSigned);
+        w.Value("bias_current", b.BiasCurrentAmperes, UnitKind.Ampere, b.BiasCurrentSigned);
         w.Value("offset_current", b.OffsetCurrentAmperes, UnitKind.Ampere);
         w.Range("supply", b.Supply.MinVolts, b.Supply.MaxVolts, UnitKind.Volt);
         w.Value("output_swing", b.OutputSwingVolts, UnitKind.Volt);
@@ -139,25 +139,30 @@ internal static class DesignWriter
         else
             w.Text("reference", "ratiometric");
         w.Value("reference_tolerance", a.ReferenceTolerance, UnitKind.Percent);
+        if (a.ReferenceVolts is not null)
+            w.Value("reference_tempco", a.ReferenceTempcoPerKelvin, UnitKind.PpmPerKelvin, a.ReferenceTempcoSigned);
         w.Value("sample_rate", a.SampleRateHertz, UnitKind.Hertz);
         w.Value("acquisition_time", a.AcquisitionTimeSeconds, UnitKind.Second);
         w.Value("sampling_capacitance", a.SamplingCapacitanceFarads, UnitKind.Farad);
         w.Value("switch_resistance", a.SwitchResistanceOhms, UnitKind.Ohm);
         w.Value("pin_capacitance", a.PinCapacitanceFarads, UnitKind.Farad);
-        w.Value("pin_leakage", a.PinLeakageAmperes, UnitKind.Ampere);
+        w.Value("pin_leakage", a.PinLeakageAmperes, UnitKind.Ampere, a.PinLeakageSigned);
         w.Value("pin_leakage_temperature", a.PinLeakageCelsius, UnitKind.Celsius);
         w.Value("leakage_doubling", a.LeakageDoublingKelvin, UnitKind.Kelvin);
-        w.Value("offset_error", a.OffsetErrorLsb, UnitKind.Lsb);
-        w.Value("gain_error", a.GainError, UnitKind.Percent);
+        w.Value("offset_error", a.OffsetErrorLsb, UnitKind.Lsb, a.OffsetErrorSigned);
+        w.Value("gain_error", a.GainError, UnitKind.Percent, a.GainErrorSigned);
         w.Value("inl", a.InlLsb, UnitKind.Lsb);
         w.Text("precharge", a.Precharge switch
         {
             PrechargeMode.LastSample => "last-sample",
             PrechargeMode.OtherChannel => "other-channel",
-            _ => "discharged",
+            PrechargeMode.Discharged => "discharged",
+            _ => "worst",
         });
         if (a.PrechargeVolts is { } pv)
             w.Value("precharge_voltage", pv, UnitKind.Volt);
+        w.Text("first_transition", a.FirstTransition == FirstTransition.HalfLsb ? "half-lsb" : "one-lsb");
+        w.Text("firmware_inverse", a.FirmwareInverse == CodeInverse.BinMiddle ? "bin-middle" : "bin-edge");
     }
 
     private static void WriteCheck(Writer w, CheckSpec c)
@@ -195,6 +200,10 @@ internal static class DesignWriter
         public void Text(string key, string value) => Line(key, Quote(value));
 
         public void Value(string key, double value, UnitKind unit) => Line(key, Quote(EngineeringFormat.FormatExact(value, unit)));
+
+        /// <summary>A static error: a value written with its sign keeps it ("+1 mV"), a bound is written without one.</summary>
+        public void Value(string key, double value, UnitKind unit, bool signed) =>
+            Line(key, Quote((signed && value >= 0 ? "+" : "") + EngineeringFormat.FormatExact(value, unit)));
 
         public void Range(string key, double min, double max, UnitKind unit) =>
             Line(key, Quote($"{EngineeringFormat.FormatExact(min, unit)} .. {EngineeringFormat.FormatExact(max, unit)}"));

@@ -12,6 +12,8 @@ public sealed record DividerSpec
     public double FixedTolerance { get; init; } = DesignDefaults.Tolerance;
     /// <summary>Fraction per kelvin, e.g. 25e-6 for 25 ppm/K.</summary>
     public double FixedTempcoPerKelvin { get; init; } = DesignDefaults.Tolerance;
+    /// <summary>Written with a sign: taken at that sign; without one the tempco is a bound (<see cref="SignWritten"/>).</summary>
+    public bool FixedTempcoSigned { get; init; }
     public required double ExcitationVolts { get; init; }
     public double ExcitationTolerance { get; init; } = DesignDefaults.Tolerance;
     /// <summary>

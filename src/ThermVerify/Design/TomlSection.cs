@@ -73,6 +73,16 @@ internal sealed partial class TomlSection
         return builder.ToString();
     }
 
+    /// <summary>
+    /// A key as a message shows it: printable, and cut to its first <see cref="ShownKeyCharacters"/> characters with
+    /// its length stated when longer, so a mistyped or hostile key of a megabyte does not fill the terminal.
+    /// </summary>
+    public static string Shown(string key) => Printable(key.Length <= ShownKeyCharacters + 16
+        ? key
+        : string.Create(CultureInfo.InvariantCulture, $"{key[..ShownKeyCharacters]}… ({key.Length:N0} characters)"));
+
+    private const int ShownKeyCharacters = 48;
+
     /// <summary>The index of the first control character (C0, DEL, C1) or bidirectional override in <paramref name="text"/>, or −1.</summary>
     public static int FirstUnprintable(string text)
     {
@@ -100,24 +110,24 @@ internal sealed partial class TomlSection
                 continue;
             var explanation = elsewhere?.Invoke(key);
             if (explanation is not null)
-                throw ErrorAtKey(key, $"unexpected key \"{Printable(key)}\"", explanation);
+                throw ErrorAtKey(key, $"unexpected key \"{Shown(key)}\"", explanation);
             var near = KeySuggestion.Nearest(key, valid);
             var list = string.Join(", ", valid);
             var hint = near is null ? $"Valid keys here: {list}." : $"Did you mean \"{near}\"? Valid keys here: {list}.";
-            throw ErrorAtKey(key, $"unknown key \"{Printable(key)}\"", hint);
+            throw ErrorAtKey(key, $"unknown key \"{Shown(key)}\"", hint);
         }
     }
 
     public DesignException ErrorAtKey(string key, string problem, string hint)
     {
         var at = KeyPosition(key);
-        return new DesignException(SourceName, at.Line, at.Column, Printable(KeyPath(key)), problem, hint);
+        return new DesignException(SourceName, at.Line, at.Column, Shown(KeyPath(key)), problem, hint);
     }
 
     public DesignException ErrorAtValue(string key, string problem, string hint)
     {
         var at = ValuePosition(key);
-        return new DesignException(SourceName, at.Line, at.Column, Printable(KeyPath(key)), problem, hint);
+        return new DesignException(SourceName, at.Line, at.Column, Shown(KeyPath(key)), problem, hint);
     }
 
     public DesignException Missing(string key, string hint)

@@ -27,7 +27,8 @@ public static class CHeaderRenderer
         Line($" *");
         Line($" * Sensor:  {Ascii(m.Sensor.Description)}");
         Line($" * Divider: sensor on the {(m.Side == SensorSide.Low ? "low side (to ground)" : "high side (to the excitation)")}, fixed resistor {m.FixedOhms:G6} ohm, excitation {m.ExcitationVolts:G6} V");
-        Line($" * ADC:     {m.Adc.Bits} bits, reference {m.Adc.ReferenceVolts:G6} V, LSB {m.Adc.LsbVolts:G6} V; code = round(V / LSB), read back as V = code * LSB");
+        Line($" * ADC:     {m.Adc.Bits} bits, reference {m.Adc.ReferenceVolts:G6} V, LSB {m.Adc.LsbVolts:G6} V");
+        Line($" * Codes:   {m.Adc.Describe()}");
         Line($" * Range:   {m.Range.MinCelsius:0.###} to {m.Range.MaxCelsius:0.###} degC, codes {t.Span.FirstCode} to {t.Span.LastCode}; temperature {(t.Span.TemperatureRisesWithCode ? "rises" : "falls")} with code");
         Line($" * Unit:    {t.Scale.Name}: a value is the temperature in degC times {P}_UNITS_PER_KELVIN, signed");
         Line($" * Table:   {(t.IsDense ? "one value per code, read by index" : $"{t.Codes.Count} breakpoints, linear interpolation between them")}");

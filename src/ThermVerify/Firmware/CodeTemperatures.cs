@@ -5,15 +5,19 @@ using ThermVerify.Sensors;
 namespace ThermVerify.Firmware;
 
 /// <summary>
-/// The true temperature behind each ADC code: the temperature whose divider voltage is the centre of the code's
-/// bin, V = code·Q (the firmware's inverse of the ideal converter), found by inverting the divider and the sensor.
+/// The true temperature behind each ADC code: the temperature whose divider voltage is the voltage the firmware takes
+/// the code to stand for (<see cref="AdcTransfer.VoltsOf"/>: the middle of the code's bin, or its lower edge, as the
+/// design's convention says), found by inverting the divider and the sensor.
 /// </summary>
 internal static class CodeTemperatures
 {
     /// <summary>True temperature at <paramref name="code"/> (fractional codes allowed), or NaN outside the sensor's valid range.</summary>
-    public static double TrueCelsius(FirmwareModel model, double code)
+    public static double TrueCelsius(FirmwareModel model, double code) => TrueCelsiusAtVolts(model, model.Adc.VoltsOf(code));
+
+    /// <summary>True temperature whose node voltage is <paramref name="volts"/>, or NaN outside the sensor's valid range.</summary>
+    public static double TrueCelsiusAtVolts(FirmwareModel model, double volts)
     {
-        var unloaded = UnloadedVolts(model, model.Adc.VoltsOf(code));
+        var unloaded = UnloadedVolts(model, volts);
         var ohms = DividerFormula.SensorOhms(model.Side, model.ExcitationVolts, unloaded, model.FixedOhms);
         if (!double.IsFinite(ohms)) return double.NaN;
         try
@@ -33,8 +37,8 @@ internal static class CodeTemperatures
     public static CodeSpan Span(FirmwareModel model)
     {
         model.Validated();
-        var atMin = model.Adc.IdealCode(model.NodeVolts(model.Range.MinCelsius));
-        var atMax = model.Adc.IdealCode(model.NodeVolts(model.Range.MaxCelsius));
+        var atMin = model.Adc.CodeReadAs(model.NodeVolts(model.Range.MinCelsius));
+        var atMax = model.Adc.CodeReadAs(model.NodeVolts(model.Range.MaxCelsius));
         var first = Math.Max(1, (int)Math.Ceiling(Math.Min(atMin, atMax)));
         var last = Math.Min(model.Adc.MaxCode - 1, (int)Math.Floor(Math.Max(atMin, atMax)));
         // The ideal codes come from the forward model; rounding in the inverse can put an end code a hair outside.

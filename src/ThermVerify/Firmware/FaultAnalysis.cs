@@ -54,6 +54,6 @@ internal static class FaultAnalysis
                         model.FixedOhms * (1 + sf * t.FixedResistorFraction));
     }
 
-    private static int Code(FirmwareModel model, Corner c, double volts) =>
-        (int)Math.Clamp(Math.Round(volts / c.LsbVolts, MidpointRounding.AwayFromZero), 0, model.Adc.MaxCode);
+    /// <summary>The code at a corner: the voltage over the corner's LSB, quantised by the design's transfer convention.</summary>
+    private static int Code(FirmwareModel model, Corner c, double volts) => model.Adc.Quantise(volts / c.LsbVolts);
 }

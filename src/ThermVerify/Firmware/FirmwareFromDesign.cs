@@ -21,11 +21,12 @@ internal static class FirmwareFromDesign
         if (!correctForLoading) return model.Validated();
 
         var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToArray();
-        var precharge = PrechargeCases.For(design, closedForm.Adc.ReferenceVolts) is [var only] ? only : null;
-        var dc = DcSweepCase.Run(design, precharge, temperatures);
+        // One known precharge level makes the average sampling current steady; with several (or "worst") there is no one correction.
+        IReadOnlyList<PrechargeCase> cases = PrechargeCases.For(design, closedForm.Adc.ReferenceVolts) is [var only] ? [only] : [PrechargeCase.LastSample];
+        var dc = DcLevels.Run(design, cases, temperatures);
         var gain = closedForm.BufferGain;
         var points = temperatures
-            .Select((t, i) => (Unloaded: closedForm.At(t).IdealVolts / gain, Offset: (dc.PinVolts[i] - closedForm.At(t).IdealVolts) / gain))
+            .Select((t, i) => (Unloaded: closedForm.At(t).IdealVolts / gain, Offset: (dc.AveragePinVolts[0][i] - closedForm.At(t).IdealVolts) / gain))
             .OrderBy(p => p.Unloaded).ToArray();
         return (model with { LoadingCorrectionVolts = v => Interpolate(points, v) }).Validated();
     }

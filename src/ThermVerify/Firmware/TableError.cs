@@ -3,7 +3,8 @@ namespace ThermVerify.Firmware;
 /// <summary>
 /// How far a table's output (as the C routine computes it) is from the true temperature at every code of its span.
 /// Error = table − true, in K. <see cref="HalfCodeKelvin"/> is the converter's own quantisation for comparison:
-/// the largest distance, in K, from a code's centre temperature to either edge of its bin (IEEE Std 1241 ±Q/2).
+/// the largest distance, in K, from the temperature a code is read as to either edge of its bin (IEEE Std 1241 ±Q/2
+/// when the firmware reads the bin's middle).
 /// </summary>
 public sealed record TableError(
     double MaxErrorKelvin, int MaxErrorCode, double MaxErrorAtCelsius,
@@ -36,11 +37,12 @@ internal static class TableErrorAnalysis
         return new TableError(max, maxCode, maxAt, min, minCode, minAt, half, halfCode);
     }
 
-    /// <summary>Largest |T(edge) − T(centre)| over the two bin edges code ± ½ that the sensor model can still invert.</summary>
+    /// <summary>Largest |T(edge) − T(read)| over the two edges of the code's bin that the sensor model can still invert.</summary>
     public static double HalfBinKelvin(FirmwareModel model, int code, double centreCelsius)
     {
-        var below = CodeTemperatures.TrueCelsius(model, code - 0.5);
-        var above = CodeTemperatures.TrueCelsius(model, code + 0.5);
+        var (low, high) = model.Adc.BinVolts(code);
+        var below = CodeTemperatures.TrueCelsiusAtVolts(model, low);
+        var above = CodeTemperatures.TrueCelsiusAtVolts(model, high);
         var worst = 0.0;
         if (!double.IsNaN(below)) worst = Math.Abs(below - centreCelsius);
         if (!double.IsNaN(above)) worst = Math.Max(worst, Math.Abs(above - centreCelsius));

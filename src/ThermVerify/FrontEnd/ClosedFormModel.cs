@@ -22,7 +22,7 @@ internal sealed class ClosedFormModel
     {
         Design = design;
         Sensor = design.Sensor.Build();
-        Adc = new AdcTransfer(design.Adc.Bits, design.Adc.ReferenceVolts ?? design.Divider.ExcitationVolts);
+        Adc = AdcTransfer.Of(design);
     }
 
     public FrontEndDesign Design { get; }

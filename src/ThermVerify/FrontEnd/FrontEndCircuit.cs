@@ -28,15 +28,19 @@ internal static class FrontEndCircuit
     /// current, a resistor R_eq = 1/(f_s·C_sh) from the pin to the precharge level (Johns &amp; Martin). With
     /// "last-sample" precharge the average current is zero in the steady state, so no resistor is added.
     /// </summary>
-    public static Circuit Dc(FrontEndDesign design, double? prechargeVolts)
+    /// <param name="celsius">
+    /// The temperature the circuit is built for, when it is built for one (the op-amp's offset drifts to it when the
+    /// design gives no board temperature); null for a circuit swept over temperature.
+    /// </param>
+    public static Circuit Dc(FrontEndDesign design, double? prechargeVolts, double? celsius = null)
     {
-        var elements = Front(design);
+        var elements = Front(design, celsius);
         if (prechargeVolts is { } pre)
         {
             elements.Add(new VoltageSource("Vprecharge", Precharge, Circuit.Ground, new DcWaveform(pre)));
             elements.Add(new Resistor("Rsampling", PinNode(design), Precharge, 1 / (design.Adc.SampleRateHertz * design.Adc.SamplingCapacitanceFarads)));
         }
-        return new Circuit(elements);
+        return new Circuit(elements, celsius ?? 25);
     }
 
     /// <summary>
@@ -45,11 +49,11 @@ internal static class FrontEndCircuit
     /// given, a second switch holds the capacitor at it from k·T until a short gap before each acquisition
     /// (the multiplexer has just converted another channel, or the converter discharges the capacitor).
     /// </summary>
-    public static Circuit Sampling(FrontEndDesign design, double? prechargeVolts, int conversions)
+    public static Circuit Sampling(FrontEndDesign design, double? prechargeVolts, int conversions, double? celsius = null)
     {
         var adc = design.Adc;
         var period = 1 / adc.SampleRateHertz;
-        var elements = Front(design);
+        var elements = Front(design, celsius);
         elements.Add(new Capacitor("Csample", Hold, Circuit.Ground, adc.SamplingCapacitanceFarads));
         elements.Add(new TimedSwitch(SamplingSwitch, PinNode(design), Hold, Math.Max(adc.SwitchResistanceOhms, MinimumSwitchOhms), SwitchOffOhms,
             new PeriodicSchedule(period - adc.AcquisitionTimeSeconds, period, adc.AcquisitionTimeSeconds, conversions)));
@@ -61,18 +65,29 @@ internal static class FrontEndCircuit
             elements.Add(new TimedSwitch(PrechargeSwitch, Precharge, Hold, onOhms, SwitchOffOhms,
                 new PeriodicSchedule(0, period, window, conversions)));
         }
-        return new Circuit(elements);
+        return new Circuit(elements, celsius ?? 25);
     }
 
     /// <summary>Time between the precharge switch opening and the sampling switch closing.</summary>
     public static double PrechargeGapSeconds(FrontEndDesign design) =>
         0.01 * (1 / design.Adc.SampleRateHertz - design.Adc.AcquisitionTimeSeconds);
 
-    /// <summary>The time at which conversion k (from 0) is taken: the end of its acquisition.</summary>
-    public static double SampleTimeSeconds(FrontEndDesign design, int conversion) => (conversion + 1) / design.Adc.SampleRateHertz;
+    /// <summary>
+    /// The time at which conversion k (from 0) is taken: the sampling switch's own opening edge, computed exactly as its
+    /// schedule computes it (close = delay + k·period with delay = period − t_acq, open = close + t_acq). A sample time
+    /// written another way, (k + 1)/f_s, can differ from the edge in the last bit, and a read or a run's end placed by
+    /// one formula then fell a rounding outside what the other had simulated; every sample instant, stop time and
+    /// recorded window end comes from here.
+    /// </summary>
+    public static double SampleTimeSeconds(FrontEndDesign design, int conversion)
+    {
+        var period = 1 / design.Adc.SampleRateHertz;
+        var acquisition = design.Adc.AcquisitionTimeSeconds;
+        return period - acquisition + conversion * period + acquisition;
+    }
 
     /// <summary>Excitation, divider, buffer, filter and the static part of the ADC input.</summary>
-    private static List<Element> Front(FrontEndDesign design)
+    private static List<Element> Front(FrontEndDesign design, double? celsius)
     {
         var divider = design.Divider;
         var board = design.Check.BoardCelsius;
@@ -87,7 +102,7 @@ internal static class FrontEndCircuit
         };
 
         if (design.Buffer is { } buffer)
-            BufferStage.Add(elements, buffer, Divider, board);
+            BufferStage.Add(elements, buffer, Divider, board, celsius);
         var pin = PinNode(design);
         if (design.Filter.SeriesResistorOhms > 0)
             elements.Add(new Resistor("Rfilter", DriveNode(design), Pin, design.Filter.SeriesResistorOhms));

@@ -44,7 +44,7 @@ internal static class FrontEndDecks
     {
         options ??= new DeckOptions();
         var model = new ClosedFormModel(design);
-        var precharge = PrechargeCases.For(design, model.Adc.ReferenceVolts)[0];
+        var precharge = PrechargeCases.For(design, model.Adc.ReferenceVolts)[0].Volts;
         var celsius = options.TemperatureCelsius ?? (design.Check.Range.MinCelsius + design.Check.Range.MaxCelsius) / 2;
         var pin = FrontEndCircuit.PinNode(design);
         switch (analysis)
@@ -52,9 +52,11 @@ internal static class FrontEndDecks
             case DeckAnalysis.Dc:
             {
                 var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToList();
-                var circuit = FrontEndCircuit.Dc(design, DcSweepCase.UsesAverageSamplingCurrent(design, precharge) ? precharge : null);
+                var circuit = FrontEndCircuit.Dc(design, DcLevels.UsesAverageSamplingCurrent(design, precharge) ? precharge : null);
+                var drift = BufferStage.DriftFollowsSweep(design)
+                    ? "; the op-amp's offset drift is held at 25 °C in this deck (the check drifts it to each swept temperature)" : "";
                 return SpiceDeckWriter.Write(circuit, DcTemperatureSweep.From(temperatures),
-                    Header(design, circuit, $"temperature sweep over the check range, {PrechargeCases.Describe(precharge)}",
+                    Header(design, circuit, $"temperature sweep over the check range, {PrechargeCases.Describe(precharge)}{drift}",
                         $"prints v({pin}) at each temperature: the check's DC pin voltage (with leakage, bias and average sampling currents)"),
                     Outputs(options, new PrintVectors("dc", [$"v({Divider})", $"v({pin})"])));
             }
@@ -96,7 +98,7 @@ internal static class FrontEndDecks
     /// <summary>The DC circuit at <paramref name="celsius"/> with the excitation as a 1 V AC input.</summary>
     public static Circuit AcCircuit(FrontEndDesign design, double celsius)
     {
-        var circuit = FrontEndCircuit.Dc(design, null) with { TemperatureCelsius = celsius };
+        var circuit = FrontEndCircuit.Dc(design, null, celsius);
         var excitation = (VoltageSource)circuit[AcInputSource];
         return circuit.Replace(excitation with { AcMagnitude = 1 });
     }

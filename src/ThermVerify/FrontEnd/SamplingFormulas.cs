@@ -18,6 +18,22 @@ internal static class SamplingFormulas
     public static double KickbackStepVolts(double differenceVolts, double samplingFarads, double reservoirFarads) =>
         differenceVolts * samplingFarads / (samplingFarads + reservoirFarads);
 
+    /// <summary>
+    /// The steady sample of a reservoir that shares its charge with a capacitor precharged to V_pre at every conversion
+    /// and recovers towards the source V_s through R_s between them (charge conservation, then first-order recovery,
+    /// elementary): with α = C_sh/(C_sh + C_ext) and a = e^(−T/τ), τ = R_s·C_ext, the pin just before a sample settles
+    /// to V_b = (V_s·(1 − a) + α·a·V_pre)/(1 − (1 − α)·a), and the sample is (1 − α)·V_b + α·V_pre. It holds when the
+    /// switch settles within the acquisition and the source barely refills the reservoir during it (t_acq ≪ τ).
+    /// </summary>
+    public static double SteadySampleVolts(double sourceVolts, double prechargeVolts, double samplingFarads, double reservoirFarads,
+        double tauSeconds, double periodSeconds)
+    {
+        var alpha = samplingFarads / (samplingFarads + reservoirFarads);
+        var a = tauSeconds > 0 ? Math.Exp(-periodSeconds / tauSeconds) : 0;
+        var before = (sourceVolts * (1 - a) + alpha * a * prechargeVolts) / (1 - (1 - alpha) * a);
+        return (1 - alpha) * before + alpha * prechargeVolts;
+    }
+
     /// <summary>Smallest reservoir that keeps the charge-sharing step within ε: C_sh·(|ΔV|/ε − 1).</summary>
     public static double MinimumReservoirFarads(double differenceVolts, double allowedVolts, double samplingFarads) =>
         Math.Max(0, samplingFarads * (Math.Abs(differenceVolts) / allowedVolts - 1));

@@ -100,7 +100,7 @@ internal static class SamplingRun
         double settleVolts, int conversions)
     {
         var period = 1 / design.Adc.SampleRateHertz;
-        var circuit = FrontEndCircuit.Sampling(design, prechargeVolts, conversions) with { TemperatureCelsius = celsius };
+        var circuit = FrontEndCircuit.Sampling(design, prechargeVolts, conversions, celsius);
         return (circuit, new TransientOptions
         {
             // The last sample instant itself, computed as every sample time is, so a read there is never past the end.

@@ -60,11 +60,17 @@ internal static class CheckHtml
             html.Append($"<p>{E(C(f.FromCelsius))} to {E(C(f.ToCelsius))}, worst at {E(C(f.WorstCelsius))}: {E(V(f.SizeVolts, Quantities.UnitKind.Volt))} = {E(N(f.SizeLsb, "+0.##;-0.##"))} LSB = {E(K(f.SizeKelvin))}</p>\n");
             html.Append($"<p><em>Cause:</em> {E(f.Cause)}" + (f.EstimateVolts is { } e && f.SimulatedVolts is { } s
                 ? $"; closed form {E(V(e, Quantities.UnitKind.Volt))}, simulated {E(V(s, Quantities.UnitKind.Volt))}" : "") + "</p>\n");
+            if (f.RemedyNote is { } note) html.Append($"<p><em>Remedies:</em> {E(note)}</p>\n");
             if (f.Remedies.Count > 0)
             {
                 html.Append("<ul class=\"remedies\">\n");
                 foreach (var m in f.Remedies)
-                    html.Append($"<li><strong>{E(m.Action)}{(m.Value is null ? "" : " " + E(RemedyValue(m)))}</strong> <code>{E(m.Key)}</code><br><span class=\"method\">{E(m.Method)}</span></li>\n");
+                {
+                    html.Append($"<li><strong>{E(m.Action)}{(m.Value is null ? "" : " " + E(RemedyValue(m)))}</strong> <code>{E(m.Key)}</code>");
+                    foreach (var t in m.Together)
+                        html.Append($"<br>together with <strong>{E(t.Action)}{(t.Value is null ? "" : " " + E(RemedyValue(t)))}</strong> <code>{E(t.Key)}</code>");
+                    html.Append($"<br><span class=\"method\">{E(m.Method)}. {E(m.Proof)}.</span></li>\n");
+                }
                 html.Append("</ul>\n");
             }
             html.Append("</article>\n");
@@ -74,23 +80,23 @@ internal static class CheckHtml
 
     private static void AppendPoints(StringBuilder html, CheckResult r)
     {
-        html.Append("<section id=\"points\"><h2>Points</h2>\n<p>The error split by cause, in K (reported minus true). Selected points below; every point in the table that follows.</p>\n");
-        AppendPointTable(html, [.. Selected(r.Points, r.Worst, 9)], r.Worst);
+        html.Append("<section id=\"points\"><h2>Points</h2>\n<p>The error split by cause, in K (reported minus true): the columns add up to the error, and an effect the design does not have is left out. <em>reading</em> is the precharge case, the sample (first conversion or steady state) and the INL sign of the worst reading at that temperature. Selected points below; every point in the table that follows.</p>\n");
+        AppendPointTable(html, [.. Selected(r.Points, r.Worst, 9)], r.Points, r.Worst);
         html.Append($"<details><summary>All {r.Points.Count} points</summary>\n");
-        AppendPointTable(html, r.Points, r.Worst);
+        AppendPointTable(html, r.Points, r.Points, r.Worst);
         html.Append("</details></section>\n");
     }
 
-    private static void AppendPointTable(StringBuilder html, IReadOnlyList<CheckPoint> points, CheckPoint worst)
+    private static void AppendPointTable(StringBuilder html, IReadOnlyList<CheckPoint> rows, IReadOnlyList<CheckPoint> points, CheckPoint worst)
     {
         html.Append("<table class=\"points\"><thead><tr>");
-        foreach (var h in PointHeaders) html.Append($"<th>{E(h)}</th>");
+        foreach (var h in PointHeaders(points)) html.Append($"<th>{E(h)}</th>");
         html.Append("</tr></thead><tbody>\n");
-        foreach (var p in points)
+        foreach (var p in rows)
         {
             var cls = (p == worst ? "worst " : "") + (p.WithinBudget ? "" : "over");
             html.Append($"<tr{(cls.Trim().Length > 0 ? $" class=\"{cls.Trim()}\"" : "")}>");
-            foreach (var c in PointCells(p)) html.Append($"<td class=\"num\">{E(c)}</td>");
+            foreach (var c in PointCells(p, points)) html.Append($"<td class=\"num\">{E(c)}</td>");
             html.Append("</tr>\n");
         }
         html.Append("</tbody></table>\n");

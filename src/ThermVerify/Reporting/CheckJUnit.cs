@@ -59,7 +59,8 @@ public static class CheckJUnit
     {
         var test = Case("finding", $"{f.Id}: {f.Title}");
         var text = $"{C(f.FromCelsius)} to {C(f.ToCelsius)}, worst at {C(f.WorstCelsius)}: {N(f.SizeLsb, "+0.##;-0.##")} LSB = {K(f.SizeKelvin)}. Cause: {f.Cause}" +
-                   string.Concat(f.Remedies.Select(m => $"\nremedy: {m.Action}{(m.Value is null ? "" : " " + RemedyValue(m))} [{m.Key}]"));
+                   (f.RemedyNote is { } note ? $"\nremedies: {note}" : "") +
+                   string.Concat(f.Remedies.Select(m => $"\nremedy: {RemedyLine(m)} ({m.Proof})"));
         test.Add(f.Severity == Severity.Fail
             ? new XElement("failure", new XAttribute("message", $"{f.Id}: {f.Title}"), new XAttribute("type", "finding"), text)
             : new XElement("system-out", $"{f.Severity.ToString().ToUpperInvariant()}: {text}"));

@@ -12,7 +12,7 @@ namespace ThermVerify.Reporting;
 /// </summary>
 public static class CheckJson
 {
-    public const string Schema = "thermverify.check/1";
+    public const string Schema = "thermverify.check/2";
 
     public static string Write(CheckResult result, string? designPath = null) =>
         JsonSerializer.Serialize(ToDocument(result, designPath, result.Faults), ReportJson.Options);
@@ -34,9 +34,17 @@ public static class CheckJson
         },
         conventions = new
         {
-            adcTransfer = "Q = Vref/2^N; code = round(V/Q) clamped to 0..2^N-1; firmware maps code to V = code*Q (IEEE Std 1241 ideal converter)",
+            adcTransfer = r.Adc.Describe(),
+            firstTransitionLsb = r.Adc.FirstTransitionLsb,
+            firmwareInverse = r.Adc.Inverse == Design.CodeInverse.BinMiddle ? "bin-middle" : "bin-edge",
             error = "reported minus true temperature, in K",
-            sample = "the worse of the first conversion (from the settled pin) and the steady state",
+            sample = "the worst reading over the precharge cases, the first conversion (from the settled pin) and the steady state, and the INL sign",
+            contributions = "walked from the closed form to the code one cause at a time, each step through the exact inverse; they add up to the error",
+        },
+        precharge = new
+        {
+            mode = ReportFormat.PrechargeText(r.Design.Adc.Precharge),
+            cases = r.PrechargeCases.Select(c => new { name = c.Name, volts = c.Volts }),
         },
         adc = new { bits = r.Adc.Bits, referenceVolts = r.Adc.ReferenceVolts, lsbVolts = r.Adc.LsbVolts },
         points = r.Points.Select(p => new
@@ -49,7 +57,11 @@ public static class CheckJson
             dcPinVolts = p.DcPinVolts,
             firstSampleVolts = p.FirstSampleVolts,
             steadySampleVolts = p.SteadySampleVolts,
+            sampleVolts = p.SampleVolts,
+            precharge = p.Precharge.Name,
             prechargeVolts = p.PrechargeVolts,
+            sample = p.SampleKind,
+            corner = p.Corner.Length > 0 ? p.Corner : null,
             samplingSimulated = p.SamplingSimulated,
             code = p.Code,
             reportedCelsius = N(p.ReportedCelsius),
@@ -60,28 +72,37 @@ public static class CheckJson
             contributionsKelvin = new
             {
                 quantisation = N(p.Contributions.QuantisationKelvin),
+                converter = N(p.Contributions.ConverterKelvin),
                 dcLoading = N(p.Contributions.DcLoadingKelvin),
+                recovery = N(p.Contributions.RecoveryKelvin),
                 settling = N(p.Contributions.SettlingKelvin),
                 buffer = N(p.Contributions.BufferKelvin),
+                selfHeating = N(p.Contributions.SelfHeatingKelvin),
                 rest = N(p.Contributions.RestKelvin),
             },
             simulatedVolts = new
             {
-                staticLoading = p.Simulated.StaticLoadingVolts,
-                averageSampling = p.Simulated.AverageSamplingVolts,
                 buffer = p.Simulated.BufferVolts,
+                dcLoading = p.Simulated.DcLoadingVolts,
+                recovery = p.Simulated.RecoveryVolts,
+                settling = p.Simulated.SettlingVolts,
+                selfHeating = p.Simulated.SelfHeatingVolts,
+                converter = p.Simulated.ConverterVolts,
                 firstSettling = p.Simulated.FirstSettlingVolts,
                 steadySettling = p.Simulated.SteadySettlingVolts,
+                averageSampling = p.Simulated.AverageSamplingVolts,
             },
             estimatedVolts = new
             {
                 sourceOhms = p.Estimates.SourceOhms,
                 fixedDrift = p.Estimates.FixedDriftVolts,
                 leakage = p.Estimates.LeakageVolts,
+                bufferOffset = p.Estimates.BufferOffsetVolts,
                 biasCurrent = p.Estimates.BiasCurrentVolts,
                 averageSampling = p.Estimates.AverageSamplingVolts,
                 firstConversion = p.Estimates.FirstConversionVolts,
                 steadySettling = p.Estimates.SteadySettlingVolts,
+                selfHeating = p.Estimates.SelfHeatingVolts,
             },
         }),
         sampling = r.Sampling.Select(s => new
@@ -117,7 +138,12 @@ public static class CheckJson
             cause = f.Cause,
             estimateVolts = N(f.EstimateVolts),
             simulatedVolts = N(f.SimulatedVolts),
-            remedies = f.Remedies.Select(m => new { key = m.Key, action = m.Action, value = N(m.Value), unit = m.Unit, method = m.Method }),
+            remedyNote = f.RemedyNote,
+            remedies = f.Remedies.Select(m => new
+            {
+                key = m.Key, action = m.Action, value = N(m.Value), unit = m.Unit, method = m.Method, proof = m.Proof,
+                together = m.Together.Select(t => new { key = t.Key, action = t.Action, value = N(t.Value), unit = t.Unit, method = t.Method }),
+            }),
         }),
     };
 

@@ -45,19 +45,29 @@ internal static class CheckMarkdown
             md.AppendLine($"Cause: {Cell(f.Cause)}" + (f.EstimateVolts is { } e && f.SimulatedVolts is { } s
                 ? $"; closed form {V(e, Quantities.UnitKind.Volt)}, simulated {V(s, Quantities.UnitKind.Volt)}." : "."));
             md.AppendLine();
+            if (f.RemedyNote is { } note)
+            {
+                md.AppendLine($"Remedies: {Cell(note)}");
+                md.AppendLine();
+            }
             foreach (var m in f.Remedies)
-                md.AppendLine($"- **{Cell(m.Action)}{(m.Value is null ? "" : " " + RemedyValue(m))}** (`{m.Key}`): {Cell(m.Method)}");
+            {
+                md.AppendLine($"- **{Cell(m.Action)}{(m.Value is null ? "" : " " + RemedyValue(m))}** (`{m.Key}`): {Cell(m.Method)}. {Cell(m.Proof)}.");
+                foreach (var t in m.Together)
+                    md.AppendLine($"  - together with **{Cell(t.Action)}{(t.Value is null ? "" : " " + RemedyValue(t))}** (`{t.Key}`): {Cell(t.Method)}");
+            }
             if (f.Remedies.Count > 0) md.AppendLine();
         }
 
         md.AppendLine("## Points");
         md.AppendLine();
-        md.AppendLine("The error split by cause, in K (reported minus true), at selected points; the HTML report and `--json` have every point.");
+        md.AppendLine("The error split by cause, in K (reported minus true), at selected points; the columns add up to the error, and an effect the design does not have is left out. \"reading\" is the precharge case, the sample (first conversion or steady state) and the INL sign the worst reading at that temperature has. The HTML report and `--json` have every point.");
         md.AppendLine();
-        md.AppendLine("| " + string.Join(" | ", PointHeaders) + " |");
-        md.AppendLine("|" + string.Concat(PointHeaders.Select(_ => "--:|")));
+        var headers = PointHeaders(r.Points);
+        md.AppendLine("| " + string.Join(" | ", headers) + " |");
+        md.AppendLine("|" + string.Concat(headers.Select(_ => "--:|")));
         foreach (var p in Selected(r.Points, r.Worst, 9))
-            md.AppendLine("| " + string.Join(" | ", PointCells(p)) + " |");
+            md.AppendLine("| " + string.Join(" | ", PointCells(p, r.Points)) + " |");
         md.AppendLine();
 
         ReportMarkdown.AppendDesignAndCautions(md, report.DesignToml, report.ToolVersion);

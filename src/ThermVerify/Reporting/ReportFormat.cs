@@ -33,9 +33,58 @@ internal static class ReportFormat
         "Hz" => V(v, UnitKind.Hertz),
         "Ω" => V(v, UnitKind.Ohm),
         "V" => V(v, UnitKind.Volt),
+        "A" => V(v, UnitKind.Ampere),
         "V/s" => V(v, UnitKind.VoltPerSecond),
+        "V/K" => V(v, UnitKind.VoltPerKelvin),
+        "W/K" => V(v, UnitKind.WattPerKelvin),
+        "V/√Hz" => V(v, UnitKind.VoltPerRootHertz),
+        "ppm/K" => $"{N(v * 1e6, "0.###")} ppm/K",
+        "fraction" => $"{N(v * 100, "0.####")} %",
         _ => $"{N(v, "0.###")} {r.Unit}",
     };
+
+    /// <summary>A remedy in one line: the action and value with its key, and the other changes of a combination.</summary>
+    public static string RemedyLine(Remedy r) =>
+        $"{r.Action}{(r.Value is null ? "" : " " + RemedyValue(r))} [{r.Key}]" +
+        string.Concat(r.Together.Select(t => $" together with: {t.Action}{(t.Value is null ? "" : " " + RemedyValue(t))} [{t.Key}]"));
+
+    /// <summary>
+    /// The contribution columns of a result: those that are not zero at every point (an effect the design does not
+    /// have is left out; the columns shown still add up to the error). A contribution below a nanokelvin is rounding
+    /// of the differences the split is made of (1e-16 K), not an effect.
+    /// </summary>
+    private const double RoundingKelvin = 1e-9;
+
+    public static IReadOnlyList<(string Header, Func<CheckPoint, double> Kelvin)> ContributionColumns(IReadOnlyList<CheckPoint> points)
+    {
+        var all = new (string Header, Func<CheckPoint, double> Kelvin)[]
+        {
+            ("quantisation", p => p.Contributions.QuantisationKelvin),
+            ("converter", p => p.Contributions.ConverterKelvin),
+            ("DC loading", p => p.Contributions.DcLoadingKelvin),
+            ("recovery", p => p.Contributions.RecoveryKelvin),
+            ("settling", p => p.Contributions.SettlingKelvin),
+            ("buffer", p => p.Contributions.BufferKelvin),
+            ("self-heating", p => p.Contributions.SelfHeatingKelvin),
+            ("rest", p => p.Contributions.RestKelvin),
+        };
+        return [.. all.Where((c, i) => i == 0 || points.Any(p => Math.Abs(c.Kelvin(p)) > RoundingKelvin))];
+    }
+
+    /// <summary>Which reading a point converts: the precharge case, the first or steady sample, the INL sign where INL is a bound.</summary>
+    public static string ReadingCell(CheckPoint p) =>
+        $"{p.Precharge.Name}, {p.SampleKind}" + (p.Corner.Length > 0 ? $", {p.Corner}" : "");
+
+    /// <summary>The precharge setting and the cases it covers, for headers.</summary>
+    public static string PrechargeLine(CheckResult r) =>
+        r.PrechargeCases.Count == 1
+            ? $"{PrechargeText(r.Design.Adc.Precharge)} ({r.PrechargeCases[0].Describe()})"
+            : $"{PrechargeText(r.Design.Adc.Precharge)}: every case is checked ({string.Join(", ", r.PrechargeCases.Select(CaseText))}); the worst at each temperature is reported (column \"reading\")";
+
+    private static string CaseText(PrechargeCase c) =>
+        c.Volts is { } v && !c.Name.EndsWith(" V", StringComparison.Ordinal) ? $"{c.Name} {V(v, UnitKind.Volt)}" : c.Name;
+
+    public static string PrechargeText(Design.PrechargeMode mode) => Precharge(mode);
 
     public static string Figure(double? value, string unit) => value is { } v ? $"{N(v, "0.####")} {unit}" : "none (unreadable code)";
 
@@ -56,28 +105,30 @@ internal static class ReportFormat
             .Select(i => points[(int)Math.Round(i * (points.Count - 1) / (double)Math.Max(rows - 2, 1))])
             .Append(worst).Distinct().OrderBy(p => p.Celsius);
 
-    public static string[] PointHeaders => ["T (°C)", "ideal", "DC pin", "sample", "code", "reported (°C)", "error (K)", "quantisation", "DC loading", "settling", "buffer", "rest", "budget (K)", "K/LSB"];
+    public static string[] PointHeaders(IReadOnlyList<CheckPoint> points) =>
+        ["T (°C)", "ideal", "DC pin", "sample", "code", "reported (°C)", "error (K)", .. ContributionColumns(points).Select(c => c.Header), "budget (K)", "K/LSB", "reading"];
 
-    public static string[] PointCells(CheckPoint p) =>
+    public static string[] PointCells(CheckPoint p, IReadOnlyList<CheckPoint> points) =>
     [
-        N(p.Celsius, "0.##"), V(p.IdealVolts, UnitKind.Volt), V(p.DcPinVolts, UnitKind.Volt), V(p.WorstSampleVolts, UnitKind.Volt),
+        N(p.Celsius, "0.##"), V(p.IdealVolts, UnitKind.Volt), V(p.DcPinVolts, UnitKind.Volt), V(p.SampleVolts, UnitKind.Volt),
         p.Code.ToString(CultureInfo.InvariantCulture), double.IsFinite(p.ReportedCelsius) ? N(p.ReportedCelsius, "0.000") : "none",
-        Signed(p.ErrorKelvin), Signed(p.Contributions.QuantisationKelvin), Signed(p.Contributions.DcLoadingKelvin),
-        Signed(p.Contributions.SettlingKelvin), Signed(p.Contributions.BufferKelvin), Signed(p.Contributions.RestKelvin),
-        N(p.BudgetKelvin, "0.###"), N(p.KelvinPerLsb, "0.0000"),
+        Signed(p.ErrorKelvin), .. ContributionColumns(points).Select(c => Signed(c.Kelvin(p))),
+        N(p.BudgetKelvin, "0.###"), N(p.KelvinPerLsb, "0.0000"), ReadingCell(p),
     ];
 
     private static string Precharge(Design.PrechargeMode mode) => mode switch
     {
         Design.PrechargeMode.LastSample => "last-sample",
         Design.PrechargeMode.OtherChannel => "other-channel",
-        _ => "discharged",
+        Design.PrechargeMode.Discharged => "discharged",
+        _ => "worst",
     };
 
     private static string Signed(double kelvin) => N(kelvin, "+0.000;-0.000;0.000");
 
+    /// <summary>The design's settings and the precharge cases the check covered (the worst of them is each point's "reading").</summary>
     public static IEnumerable<(string Label, string Value)> Settings(CheckResult result) =>
-        Settings(result.Design, result.SensorDescription, result.Adc);
+        Settings(result.Design, result.SensorDescription, result.Adc).Append(("precharge", PrechargeLine(result)));
 
     /// <summary>The design in a few lines, for any report on it: sensor, divider, buffer, filter, ADC and the check's range and budget.</summary>
     public static IEnumerable<(string Label, string Value)> Settings(Design.FrontEndDesign d, string sensorDescription, AdcTransfer adc)
@@ -90,6 +141,7 @@ internal static class ReportFormat
         yield return ("ADC", $"{d.Adc.Bits} bits, reference {(d.Adc.IsRatiometric ? "ratiometric" : V(adc.ReferenceVolts, UnitKind.Volt))}, " +
                              $"1 LSB = {V(adc.LsbVolts, UnitKind.Volt)}, {V(d.Adc.SampleRateHertz, UnitKind.Hertz)}, acquisition {V(d.Adc.AcquisitionTimeSeconds, UnitKind.Second)}, " +
                              $"C_sh {V(d.Adc.SamplingCapacitanceFarads, UnitKind.Farad)}, precharge {Precharge(d.Adc.Precharge)}");
+        yield return ("conventions", adc.Describe());
         yield return ("check", $"{V(d.Check.Range.MinCelsius, UnitKind.Celsius)} to {V(d.Check.Range.MaxCelsius, UnitKind.Celsius)} in {V(d.Check.StepKelvin, UnitKind.Kelvin)} steps, budget {V(d.Check.BudgetKelvin, UnitKind.Kelvin)}" +
                                string.Concat(d.Check.Regions.Select(r => $"; {C(r.Range.MinCelsius)} to {C(r.Range.MaxCelsius)}: {V(r.BudgetKelvin, UnitKind.Kelvin)}")));
     }

@@ -1,14 +1,15 @@
 using ThermVerify.Design;
+using ThermVerify.FrontEnd;
 using ThermVerify.Sensors;
 
 namespace ThermVerify.Tolerances;
 
 /// <summary>
-/// One built unit: the design with this unit's parts (its circuits are built from <see cref="Design"/>), the
-/// converter's static errors, and the reference its LSB is a fraction of (the unit's excitation when ratiometric,
-/// so that the excitation's tolerance cancels).
+/// One built unit: the design with this unit's parts (its circuits are built from <see cref="Design"/>) and its
+/// converter: the reference its LSB is a fraction of (the unit's excitation when ratiometric, so that the excitation's
+/// tolerance cancels), the reference's tempco and the converter's own offset, gain error and signed INL bow.
 /// </summary>
-internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, AdcErrors Adc, double ReferenceVolts)
+internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Converter Converter)
 {
     /// <param name="nominalSensor">The nominal design's sensor model, built once (a table is read from its file).</param>
     public static BuiltUnit Build(FrontEndDesign nominal, ISensorModel nominalSensor, ToleranceSet set, ReadOnlySpan<double> deviations)
@@ -19,20 +20,32 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Adc
             var i = set.IndexOf(kind);
             return i < 0 ? 0 : values[i];
         }
+        // A bound spread about zero: the unit's value is its deviation; a value that is not spread stays as written.
+        double Bound(ToleranceKind kind, double written) => set.IndexOf(kind) < 0 ? written : Dev(kind);
 
         var sensor = SensorOf(nominal.Sensor, nominalSensor, Dev(ToleranceKind.SensorResistance), Dev(ToleranceKind.SensorBeta), Dev(ToleranceKind.RtdClass));
+        // A built unit has every value at its own sign: nothing of it is a bound any more.
         var divider = nominal.Divider with
         {
             FixedResistorOhms = nominal.Divider.FixedResistorOhms * (1 + Dev(ToleranceKind.FixedResistance)),
-            FixedTempcoPerKelvin = set.IndexOf(ToleranceKind.FixedTempco) < 0 ? nominal.Divider.FixedTempcoPerKelvin : Dev(ToleranceKind.FixedTempco),
+            FixedTempcoPerKelvin = Bound(ToleranceKind.FixedTempco, nominal.Divider.FixedTempcoPerKelvin),
+            FixedTempcoSigned = true,
             ExcitationVolts = nominal.Divider.ExcitationVolts * (1 + Dev(ToleranceKind.Excitation)),
         };
-        var adc = nominal.Adc with { PinLeakageAmperes = nominal.Adc.PinLeakageAmperes * (1 + Dev(ToleranceKind.Leakage)) };
+        var adc = nominal.Adc with
+        {
+            PinLeakageAmperes = nominal.Adc.PinLeakageAmperes * (1 + Dev(ToleranceKind.Leakage)),
+            PinLeakageSigned = true,
+        };
         var buffer = nominal.Buffer is { } b
             ? b with
             {
-                OffsetVolts = set.IndexOf(ToleranceKind.BufferOffset) < 0 ? b.OffsetVolts : Dev(ToleranceKind.BufferOffset),
-                BiasCurrentAmperes = set.IndexOf(ToleranceKind.BufferBias) < 0 ? b.BiasCurrentAmperes : Dev(ToleranceKind.BufferBias),
+                OffsetVolts = Bound(ToleranceKind.BufferOffset, b.OffsetVolts),
+                OffsetDriftVoltsPerKelvin = Bound(ToleranceKind.BufferDrift, b.OffsetDriftVoltsPerKelvin),
+                BiasCurrentAmperes = Bound(ToleranceKind.BufferBias, b.BiasCurrentAmperes),
+                OffsetSigned = true,
+                OffsetDriftSigned = true,
+                BiasCurrentSigned = true,
             }
             : null;
         var design = nominal with
@@ -43,8 +56,10 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Adc
             Buffer = buffer,
         };
         var reference = nominal.Adc.ReferenceVolts is { } v ? v * (1 + Dev(ToleranceKind.Reference)) : divider.ExcitationVolts;
-        var errors = new AdcErrors(Dev(ToleranceKind.AdcOffset), Dev(ToleranceKind.AdcGain), Dev(ToleranceKind.AdcInl));
-        return new BuiltUnit(design, sensor, errors, reference);
+        var tempco = nominal.Adc.IsRatiometric ? 0 : Bound(ToleranceKind.ReferenceTempco, nominal.Adc.ReferenceTempcoPerKelvin);
+        var errors = new ConverterErrors(Bound(ToleranceKind.AdcOffset, nominal.Adc.OffsetErrorLsb),
+            Bound(ToleranceKind.AdcGain, nominal.Adc.GainError), Dev(ToleranceKind.AdcInl));
+        return new BuiltUnit(design, sensor, new Converter(nominal.Adc.Bits, reference, tempco, [errors], TempcoIsBound: false));
     }
 
     /// <summary>The unit's sensor model: R0 and β scaled (Beta), the whole curve scaled (Steinhart–Hart, table), or shifted in its class band (RTD).</summary>

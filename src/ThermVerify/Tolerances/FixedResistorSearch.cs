@@ -122,10 +122,10 @@ internal static class FixedResistorSearch
             MaximumSamplingPoints = SamplingPointsPerCandidate, Threads = 1, ComputeRemedies = false,
         });
         var points = check.Points;
+        // The check's error includes the sensor's self-heating (one error model); the rise is shown beside it.
         var rise = SelfHeating.RiseKelvin(candidate, SelfHeating.PowerWatts(candidate, model.Sensor,
             [.. points.Select(p => p.Celsius)], [.. points.Select(p => p.DividerVolts)]));
-        // The warmer sensor reads high by its warming (to first order, the firmware reads the sensor's own temperature).
-        var errors = points.Select((p, i) => p.ErrorKelvin + rise[i]).ToArray();
+        var errors = points.Select(p => p.ErrorKelvin).ToArray();
         var worst = Enumerable.Range(0, errors.Length).MaxBy(i => Key(Math.Abs(errors[i])));
         var within = Enumerable.Range(0, errors.Length).All(i => double.IsFinite(errors[i]) && Math.Abs(errors[i]) <= points[i].BudgetKelvin);
         var margin = Enumerable.Range(0, errors.Length).Min(i => double.IsFinite(errors[i]) ? points[i].BudgetKelvin - Math.Abs(errors[i]) : double.NegativeInfinity);

@@ -22,7 +22,11 @@ public enum ToleranceKind
     /// <summary>IEEE Std 1241 integral nonlinearity, LSB, as a bow between the end points.</summary>
     AdcInl,
     BufferOffset,
+    /// <summary>The op-amp's offset drift, spread over ±|drift| (V/K).</summary>
+    BufferDrift,
     BufferBias,
+    /// <summary>The reference's tempco, spread over ±|tempco| (a fixed reference only).</summary>
+    ReferenceTempco,
     /// <summary>ADC pin leakage, as a fraction of its nominal value.</summary>
     Leakage,
 }

@@ -5,7 +5,8 @@ namespace ThermVerify.Tolerances;
 /// <summary>
 /// Every nonzero tolerance of a design, in a fixed order. A unit is a vector of deviations, one per parameter,
 /// in the parameter's own unit. Values the design gives as bounds without a nominal (fixed-resistor tempco, op-amp
-/// offset and bias, ADC offset, gain error and INL) are spread over ±|bound| around zero.
+/// offset, drift and bias, ADC offset, gain error and INL, reference tempco) are spread over ±|bound| around zero, so
+/// the unit with every deviation zero has them at zero: <see cref="UnitEvaluator.NominalUnitDesign"/>.
 /// </summary>
 internal sealed class ToleranceSet
 {
@@ -27,9 +28,10 @@ internal sealed class ToleranceSet
     {
         var d = ToleranceDistribution.Of(design.Tolerances);
         var list = new List<ToleranceParameter>();
-        void Add(ToleranceKind kind, string key, double halfWidth, string unit)
+        void Add(ToleranceKind kind, string key, double halfWidth, string unit, bool signed = false)
         {
-            if (halfWidth != 0) list.Add(new ToleranceParameter(kind, key, Math.Abs(halfWidth), unit, d));
+            // A value written with its sign is known, not spread: every unit has it as written.
+            if (halfWidth != 0 && !signed) list.Add(new ToleranceParameter(kind, key, Math.Abs(halfWidth), unit, d));
         }
 
         switch (design.Sensor)
@@ -50,18 +52,22 @@ internal sealed class ToleranceSet
         }
         var divider = design.Divider;
         Add(ToleranceKind.FixedResistance, "divider.fixed_tolerance", divider.FixedTolerance, "");
-        Add(ToleranceKind.FixedTempco, "divider.fixed_tempco", divider.FixedTempcoPerKelvin, "1/K");
+        Add(ToleranceKind.FixedTempco, "divider.fixed_tempco", divider.FixedTempcoPerKelvin, "1/K", divider.FixedTempcoSigned);
         Add(ToleranceKind.Excitation, "divider.excitation_tolerance", divider.ExcitationTolerance, "");
         var adc = design.Adc;
         if (!adc.IsRatiometric)
+        {
             Add(ToleranceKind.Reference, "adc.reference_tolerance", adc.ReferenceTolerance, "");
-        Add(ToleranceKind.AdcOffset, "adc.offset_error", adc.OffsetErrorLsb, "LSB");
-        Add(ToleranceKind.AdcGain, "adc.gain_error", adc.GainError, "");
+            Add(ToleranceKind.ReferenceTempco, "adc.reference_tempco", adc.ReferenceTempcoPerKelvin, "1/K", adc.ReferenceTempcoSigned);
+        }
+        Add(ToleranceKind.AdcOffset, "adc.offset_error", adc.OffsetErrorLsb, "LSB", adc.OffsetErrorSigned);
+        Add(ToleranceKind.AdcGain, "adc.gain_error", adc.GainError, "", adc.GainErrorSigned);
         Add(ToleranceKind.AdcInl, "adc.inl", adc.InlLsb, "LSB");
         if (design.Buffer is { } buffer)
         {
-            Add(ToleranceKind.BufferOffset, "buffer.offset_voltage", buffer.OffsetVolts, "V");
-            Add(ToleranceKind.BufferBias, "buffer.bias_current", buffer.BiasCurrentAmperes, "A");
+            Add(ToleranceKind.BufferOffset, "buffer.offset_voltage", buffer.OffsetVolts, "V", buffer.OffsetSigned);
+            Add(ToleranceKind.BufferDrift, "buffer.offset_drift", buffer.OffsetDriftVoltsPerKelvin, "V/K", buffer.OffsetDriftSigned);
+            Add(ToleranceKind.BufferBias, "buffer.bias_current", buffer.BiasCurrentAmperes, "A", buffer.BiasCurrentSigned);
         }
         if (adc.PinLeakageAmperes != 0)
             Add(ToleranceKind.Leakage, "tolerances.leakage_spread", design.Tolerances.LeakageSpread, "");

@@ -11,6 +11,9 @@ public sealed record WorstCaseOptions
 
     public int Threads { get; init; } = Environment.ProcessorCount;
 
+    /// <summary>Called from worker threads as units (the nominal, the sensitivities' ±tolerance units, the corners) complete.</summary>
+    public IProgress<RunProgress>? Progress { get; init; }
+
     public CancellationToken Cancel { get; init; }
 }
 
@@ -71,7 +74,18 @@ internal static class WorstCase
         var t = evaluator.Temperatures;
         var parallel = new ParallelOptions { MaxDegreeOfParallelism = options.Threads, CancellationToken = options.Cancel };
 
+        var enumerated = n >= 1 && n <= options.MaximumEnumeratedParameters ? 1 << n : 0;
+        // The corners the sensitivities pick are known only after them: two until then, the real count afterwards.
+        var total = 1 + 2 * n + 2 + enumerated;
+        var done = 0;
+        void Completed(int units = 1)
+        {
+            var now = Interlocked.Add(ref done, units);
+            options.Progress?.Report(new RunProgress(now, Volatile.Read(ref total)));
+        }
+
         var nominal = evaluator.Evaluate(new double[n]);
+        Completed();
         var sensitivities = new Sensitivity[n];
         Parallel.For(0, n, parallel, i =>
         {
@@ -81,13 +95,19 @@ internal static class WorstCase
             (plus[i], minus[i]) = (a, -a);
             var up = evaluator.Evaluate(plus, simulateSettling: false).UnquantisedErrorKelvin;
             var down = evaluator.Evaluate(minus, simulateSettling: false).UnquantisedErrorKelvin;
+            Completed(2);
             sensitivities[i] = new Sensitivity(set.Parameters[i], [.. t.Select((_, k) => Finite((up[k] - down[k]) / (2 * a)))]);
         });
 
         var highSigns = t.Select((_, k) => sensitivities.Select(s => s.KelvinPerUnit[k] >= 0 ? 1 : -1).ToArray()).ToArray();
         var patterns = highSigns.Concat(highSigns.Select(Negate)).Select(Key).Distinct().ToArray();
+        Volatile.Write(ref total, 1 + 2 * n + patterns.Length + enumerated);
         var corners = new ConcurrentDictionary<string, UnitOutcome>();
-        Parallel.ForEach(patterns, parallel, key => corners[key] = evaluator.Evaluate(set.Corner(Signs(key))));
+        Parallel.ForEach(patterns, parallel, key =>
+        {
+            corners[key] = evaluator.Evaluate(set.Corner(Signs(key)));
+            Completed();
+        });
 
         var points = new WorstCasePoint[t.Length];
         for (var k = 0; k < t.Length; k++)
@@ -100,13 +120,13 @@ internal static class WorstCase
         }
 
         CornerEnumeration? enumeration = null;
-        if (n >= 1 && n <= options.MaximumEnumeratedParameters)
-            enumeration = Enumerate(evaluator, highSigns, parallel);
+        if (enumerated > 0)
+            enumeration = Enumerate(evaluator, highSigns, parallel, () => Completed());
         return new WorstCaseResult(set.Parameters, points, sensitivities, patterns.Length, enumeration);
     }
 
     /// <summary>Every corner, unquantised with the nominal settling offsets, against the sensitivities' corners evaluated the same way.</summary>
-    private static CornerEnumeration Enumerate(UnitEvaluator evaluator, int[][] highSigns, ParallelOptions parallel)
+    private static CornerEnumeration Enumerate(UnitEvaluator evaluator, int[][] highSigns, ParallelOptions parallel, Action completed)
     {
         var n = evaluator.Set.Count;
         var count = 1 << n;
@@ -115,6 +135,7 @@ internal static class WorstCase
         {
             var signs = Enumerable.Range(0, n).Select(i => (c >> i & 1) == 1 ? 1 : -1).ToArray();
             outcomes[c] = evaluator.Evaluate(evaluator.Set.Corner(signs), simulateSettling: false).UnquantisedErrorKelvin;
+            completed();
         });
         int Index(int[] signs) => Enumerable.Range(0, n).Sum(i => signs[i] > 0 ? 1 << i : 0);
         var (shortfall, at) = (0.0, evaluator.Temperatures[0]);

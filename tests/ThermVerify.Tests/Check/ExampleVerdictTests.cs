@@ -1,3 +1,4 @@
+using System.Collections.Concurrent;
 using ThermVerify.Check;
 using ThermVerify.Design;
 
@@ -12,6 +13,12 @@ public class ExampleVerdictTests
     private static string Example(string name) =>
         Path.Combine(AppContext.BaseDirectory, "..", "..", "..", "..", "..", "netlists", name);
 
+    private static readonly ConcurrentDictionary<string, Lazy<CheckResult>> Results = new();
+
+    /// <summary>The example's check as `check --no-remedies` runs it, made once for this class and the README's table.</summary>
+    internal static CheckResult Checked(string example) =>
+        Results.GetOrAdd(example, e => new Lazy<CheckResult>(() => FrontEndCheck.Run(DesignLoader.Load(Example(e)), new CheckOptions { ComputeRemedies = false }))).Value;
+
     [Theory]
     [InlineData("buffered-cable-probe.toml", true, null)]
     [InlineData("oven-pt1000.toml", true, null)]
@@ -24,7 +31,7 @@ public class ExampleVerdictTests
     [InlineData("cold-storage-logger-bare-opamp.toml", false, "buffer-stability")]
     public void Example_shows_its_verdict(string example, bool passes, string? failingFinding)
     {
-        var result = FrontEndCheck.Run(DesignLoader.Load(Example(example)), new CheckOptions { ComputeRemedies = false });
+        var result = Checked(example);
         Assert.Equal(passes, result.Passed);
         if (failingFinding is not null)
             Assert.Contains(result.Findings, f => f.Id == failingFinding && f.Severity == Severity.Fail);

@@ -1,4 +1,5 @@
 using ThermVerify.Check;
+using ThermVerify.Check.Remedies;
 using ThermVerify.Components;
 using ThermVerify.Design;
 using ThermVerify.FrontEnd;
@@ -30,12 +31,12 @@ public class FrontEndCheckTests
     {
         // Ohm's law: a constant leakage I into the pin moves it by −I·R_th, R_th = R_sensor ∥ R_fixed.
         const double leakage = 200e-9;
-        var design = TestDesign.Make(("adc.pin_leakage", "\"200 nA\""), ("check.board_temperature", "\"25 degC\""));
+        var design = TestDesign.Make(("adc.pin_leakage", "\"+200 nA\""), ("check.board_temperature", "\"25 degC\""));
         var result = FrontEndCheck.Run(design);
         foreach (var p in result.Points)
         {
             var thevenin = p.SensorOhms * 10e3 / (p.SensorOhms + 10e3);
-            Tolerance.AssertClose(-leakage * thevenin, p.Simulated.StaticLoadingVolts, rel: 1e-3, what: $"leakage error at {p.Celsius} °C");
+            Tolerance.AssertClose(-leakage * thevenin, p.Simulated.DcLoadingVolts, rel: 1e-3, what: $"leakage error at {p.Celsius} °C");
         }
     }
 
@@ -91,12 +92,15 @@ public class FrontEndCheckTests
     {
         var design = TestDesign.Make(("adc.precharge", "\"discharged\""), ("adc.acquisition_time", "\"100 ns\""),
             ("check.range", "\"20 degC .. 30 degC\""));
-        var remedy = RemedyFor(design, "adc.acquisition_time");
+        var remedy = RemedyFor(design, "settling", "adc.acquisition_time");
         var halfLsb = 3.3 / 4096 / 2;
+        // The proof: the check of the design with the remedy applied has no settling finding.
+        Assert.DoesNotContain(FrontEndCheck.Run(Knobs.AcquisitionTime.Apply(design, remedy), new CheckOptions { ComputeRemedies = false }).Findings,
+            f => f.Id == "settling");
+        // The shortest: 90 % of it leaves more than ½ LSB at the worst point.
         var worst = FrontEndCheck.Run(design, new CheckOptions { ComputeRemedies = false }).Points.MaxBy(p => Math.Abs(p.Simulated.FirstSettlingVolts))!;
-        double Error(double t) => Remedies.SettlingErrorVolts(Remedies.WithAcquisition(design, t), worst.Celsius, worst.PrechargeVolts, 1e-7);
-        Assert.True(Error(remedy) <= halfLsb, $"the remedy {remedy} s leaves {Error(remedy)} V");
-        Assert.True(Error(0.9 * remedy) > halfLsb, $"90 % of the remedy also settles: not the shortest");
+        var shorter = SettlingError.Volts(Knobs.AcquisitionTime.Apply(design, 0.9 * remedy), worst.Celsius, worst.PrechargeVolts, 1e-7);
+        Assert.True(shorter > halfLsb, $"90 % of the remedy also settles ({shorter} V): not the shortest");
         // Common practice: ½ LSB of 12 bits needs (N+1)·ln2 = 9.01 time constants for a full-scale step; our step is
         // the pin voltage, so the remedy sits just below that.
         var tau = (worst.Estimates.SourceOhms + 1e3) * 10e-12;
@@ -108,12 +112,16 @@ public class FrontEndCheckTests
     {
         var design = TestDesign.Make(("adc.precharge", "\"discharged\""), ("adc.acquisition_time", "\"100 ns\""),
             ("check.range", "\"20 degC .. 30 degC\""));
-        var remedy = RemedyFor(design, "filter.reservoir_capacitor");
-        var halfLsb = 3.3 / 4096 / 2;
+        var remedy = RemedyFor(design, "settling", "filter.reservoir_capacitor");
+        // The proof, and the E12 value below it (IEC 60063) does not clear the finding.
+        Assert.True(ESeries.E12.Contains(remedy));
+        Assert.DoesNotContain(FrontEndCheck.Run(Knobs.Reservoir.Apply(design, remedy), new CheckOptions { ComputeRemedies = false }).Findings,
+            f => f.Id == "settling");
+        // The search is on the first conversion's step at the worst point: with the E12 value below, it exceeds ½ LSB.
         var worst = FrontEndCheck.Run(design, new CheckOptions { ComputeRemedies = false }).Points.MaxBy(p => Math.Abs(p.Simulated.FirstSettlingVolts))!;
-        double Step(double c) => Remedies.FirstConversionStepVolts(Remedies.WithReservoir(design, c), worst.Celsius, worst.PrechargeVolts, 1e-7);
-        Assert.True(Step(remedy) <= halfLsb);
-        Assert.True(Step(0.9 * remedy) > halfLsb);
+        var probe = new FindingProbe("settling", worst.Celsius, worst.Precharge, first: true, new CheckOptions());
+        var below = ESeries.E12.NextLower(remedy);
+        Assert.True(probe.Measure(Knobs.Reservoir.Apply(design, below)) > 3.3 / 4096 / 2, $"{below} F also keeps the step within ½ LSB");
     }
 
     [Fact]
@@ -124,17 +132,18 @@ public class FrontEndCheckTests
         Tolerance.AssertClose(8191 * 10e-12, closedForm, rel: 1e-12);
         Assert.Equal(82e-9, ThermVerify.Components.ESeries.E12.NextHigher(closedForm), 12);
 
-        // The simulated remedy for a pin near full scale and a discharged capacitor agrees with the rule for that step.
+        // The simulated search for a pin near full scale and a discharged capacitor agrees with the rule for that step.
         // A short acquisition through a fast switch, so the reservoir alone must hold the pin.
         var design = TestDesign.Make(("adc.precharge", "\"discharged\""), ("divider.sensor_side", "\"high\""),
             ("divider.fixed_resistor", "\"1 Mohm\""), ("check.range", "\"20 degC .. 30 degC\""),
             ("adc.acquisition_time", "\"100 ns\""), ("adc.switch_resistance", "\"100 ohm\""));
         var worst = FrontEndCheck.Run(design, new CheckOptions { ComputeRemedies = false }).Points.Single(p => p.Celsius == 25);
-        var remedy = Remedies.SmallestReservoir(design, worst, 3.3 / 4096 / 2, 1e-7)!.Value!.Value;
+        var probe = new FindingProbe("settling", 25, worst.Precharge, worst.FirstConversion, new CheckOptions());
+        var found = KnobSearch.Find(Knobs.Reservoir, design, d => probe.Measure(d) <= 3.3 / 4096 / 2)!.Value;
         var rule = SamplingFormulas.MinimumReservoirFarads(worst.StaticPinVolts, 3.3 / 4096 / 2, 10e-12);
-        Tolerance.AssertClose(rule, remedy, rel: 0.01, what: "simulated smallest reservoir against the charge-sharing rule");
+        Tolerance.AssertClose(rule, found, rel: 0.01, what: "simulated smallest reservoir against the charge-sharing rule");
     }
 
-    private static double RemedyFor(ThermVerify.Design.FrontEndDesign design, string key) =>
-        FrontEndCheck.Run(design).Findings.SelectMany(f => f.Remedies).First(r => r.Key == key).Value!.Value;
+    private static double RemedyFor(ThermVerify.Design.FrontEndDesign design, string finding, string key) =>
+        FrontEndCheck.Run(design).Findings.Single(f => f.Id == finding).Remedies.First(r => r.Key == key).Value!.Value;
 }

@@ -23,7 +23,11 @@ public class DesignLoaderTests
         Assert.Equal(12, d.Adc.Bits);
         Assert.Equal(3.3, d.Adc.ReferenceVolts);
         Tolerance.AssertClose(2e-6, d.Adc.AcquisitionTimeSeconds, 1e-15);
-        Assert.Equal(PrechargeMode.LastSample, d.Adc.Precharge);
+        // The worst plausible precharge unless the design says which (docs/design-file.md).
+        Assert.Equal(PrechargeMode.Worst, d.Adc.Precharge);
+        Assert.Equal(FirstTransition.HalfLsb, d.Adc.FirstTransition);
+        Assert.Equal(CodeInverse.BinMiddle, d.Adc.FirmwareInverse);
+        Assert.Equal(0, d.Adc.ReferenceTempcoPerKelvin);
         Assert.Equal(DesignDefaults.StepKelvin, d.Check.StepKelvin);
         Assert.Equal(DesignDefaults.SettleLimitLsb, d.Check.SettleLimitLsb);
         Assert.Equal(DesignDefaults.LeakageDoublingKelvin, d.Adc.LeakageDoublingKelvin);
@@ -47,6 +51,17 @@ public class DesignLoaderTests
         var e = Fails(DesignText.With(7, "beta = 3950"));
         Assert.Equal(7, e.Line);
         Assert.Contains("already defined", e.Message);
+    }
+
+    [Fact]
+    public void A_very_long_unknown_key_is_shown_cut_with_its_length()
+    {
+        var key = new string('q', 1_000_000);
+        var e = Fails(DesignText.With(10, $"  {key} = 1"));
+        Assert.Equal(10, e.Line);
+        Assert.Contains("unknown key", e.Problem);
+        Assert.Contains("(1,000,000 characters)", e.Message);
+        Assert.True(e.Message.Length < 1000, $"the message is {e.Message.Length} characters long");
     }
 
     [Fact]

@@ -1,3 +1,4 @@
+using ThermVerify.FrontEnd;
 using ThermVerify.Sensors;
 using ThermVerify.Tolerances;
 
@@ -28,9 +29,9 @@ public class PartModelTests
     [Fact]
     public void ConverterErrorsFollowTheirDefinitions()
     {
-        var offsetAndGain = new AdcErrors(OffsetLsb: 2, GainError: 0.001, InlLsb: 0);
+        var offsetAndGain = new ConverterErrors(OffsetLsb: 2, GainError: 0.001, InlBowLsb: 0);
         Tolerance.AssertClose(1000 * 1.001 + 2, offsetAndGain.Code(1000, 12), 1e-15);
-        var inl = new AdcErrors(0, 0, 1.5);
+        var inl = new ConverterErrors(0, 0, 1.5);
         Tolerance.AssertClose(0, inl.Code(0, 12), 0, 1e-12);
         Tolerance.AssertClose(4096, inl.Code(4096, 12), 1e-15);
         Tolerance.AssertClose(2048 + 1.5, inl.Code(2048, 12), 1e-15);

@@ -1,3 +1,4 @@
+using ThermVerify.FrontEnd;
 using ThermVerify.Tests.Check;
 using ThermVerify.Tolerances;
 

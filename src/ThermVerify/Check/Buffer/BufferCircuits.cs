@@ -29,7 +29,7 @@ internal static class BufferCircuits
     public static Circuit Acquiring(FrontEndDesign design, double celsius)
     {
         Require(design);
-        var elements = FrontEndCircuit.Dc(design, null).Elements.ToList();
+        var elements = FrontEndCircuit.Dc(design, null, celsius).Elements.ToList();
         AddSampling(elements, design);
         return new Circuit(elements, celsius);
     }

@@ -9,16 +9,18 @@ namespace ThermVerify.Check.Buffer;
 
 /// <summary>
 /// The buffer's findings. Failures: a phase margin below the design's minimum (buffer.minimum_phase_margin, 45° by
-/// default) and any stretch where the input leaves its common-mode range or the output its swing. Warnings: static
-/// errors, the buffer's share of the settling error and the sampled noise where each exceeds ½ LSB. Stability has no
+/// default) and any stretch where the input leaves its common-mode range or the output its swing. Warnings:
+/// the buffer's share of the settling error and the sampled noise where each exceeds ½ LSB, failing when its own size
+/// exceeds the budget (the static errors are the check's buffer column, FindingRules). Stability has no
 /// voltage size, so its sizes are NaN (null in JSON).
 /// </summary>
 internal static class BufferFindingRules
 {
     public static IReadOnlyList<Finding> Evaluate(FrontEndDesign design, IReadOnlyList<CheckPoint> points, StabilityReport stability,
-        HeadroomResult headroom, IReadOnlyList<StaticErrorPoint> statics, RecoveryResult? recovery, NoiseReport noise)
+        HeadroomResult headroom, RecoveryResult? recovery, NoiseReport noise)
     {
         var model = new ClosedFormModel(design);
+        var b = BufferCircuits.Require(design);
         var lsb = model.Adc.LsbVolts;
         var range = design.Check.Range;
         var findings = new List<Finding>();
@@ -46,11 +48,12 @@ internal static class BufferFindingRules
             // The pin reads the limit instead of the closed form's value (an input limit scaled by the stage gain).
             var sizeVolts = (v.LimitVolts - v.WorstVolts) * (isOutput ? 1 : model.BufferGain);
             var kelvin = model.CelsiusAtVolts(at.IdealVolts + sizeVolts) - at.Celsius;
-            var remedy = isOutput
-                ? new Remedy("buffer.output_swing", $"use an op-amp whose output reaches {(v.Side == "high" ? "up" : "down")} to", v.WorstVolts, "V",
-                    "the largest closed-form output over the range (or rescale the divider or the gain)")
-                : new Remedy("buffer.input_common_mode", $"use an op-amp whose input common-mode range reaches {(v.Side == "high" ? "up" : "down")} to", v.WorstVolts, "V",
-                    "the extreme closed-form input over the range (or rescale the divider)");
+            // The swing that would let the output reach the closed form's extreme (the proof re-checks it with that swing).
+            var swing = v.Side == "high" ? b.Supply.MaxVolts - v.WorstVolts : v.WorstVolts - b.Supply.MinVolts;
+            IReadOnlyList<Remedy> remedy = isOutput && swing >= 0
+                ? [new Remedy("buffer.output_swing", "use an op-amp whose output swings to within, of each rail,", swing, "V",
+                    "the largest closed-form output over the range (or rescale the divider or the gain)")]
+                : [];
             findings.Add(new Finding(isOutput ? "buffer-output-clipped" : "buffer-input-range", Severity.Fail,
                 isOutput
                     ? I($"the buffer's output leaves its swing ({v.Side} limit {v.LimitVolts:0.###} V): codes clip at {v.ClippedCode}")
@@ -59,19 +62,7 @@ internal static class BufferFindingRules
                 I($"closed form crosses the limit at {v.FromCelsius:0.###} °C") + (v.ToCelsius < range.MaxCelsius && v.FromCelsius > range.MinCelsius ? I($" and {v.ToCelsius:0.###} °C") : "") +
                 (isOutput ? "; beyond it the output stays at the limit whatever the temperature"
                           : "; beyond it the op-amp is outside its linear range (size: the reading taken to stop at the limit)"),
-                v.WorstVolts, null, [remedy]));
-        }
-
-        var overStatic = statics.Where(s => Math.Abs(s.TotalVolts) > lsb / 2).ToList();
-        if (overStatic.Count > 0)
-        {
-            var s = overStatic.MaxBy(p => Math.Abs(p.TotalVolts))!;
-            findings.Add(new Finding("buffer-static", Severity.Warn, "the buffer's offset and bias currents shift the pin by more than ½ LSB",
-                overStatic[0].Celsius, overStatic[^1].Celsius, s.Celsius, s.TotalVolts, s.TotalLsb, s.TotalKelvin,
-                I($"offset {s.OffsetVolts * 1e3:0.###} mV, drift {s.DriftVolts * 1e3:0.###} mV, bias current through {s.SourceOhms:0} Ω {s.BiasVolts * 1e6:0.###} µV (Ohm's law)"),
-                s.TotalVolts, null,
-                [new Remedy("buffer.offset_voltage", "use an op-amp with offset (including drift over the range) of at most", lsb / 2 / model.BufferGain, "V",
-                    "½ LSB at the pin divided by the stage gain")]));
+                v.WorstVolts, null, remedy));
         }
 
         if (recovery is { } rec && Math.Abs(rec.BufferShareVolts) > rec.AllowedVolts)
@@ -81,8 +72,10 @@ internal static class BufferFindingRules
                 remedies.Add(new Remedy("buffer.gain_bandwidth", "use an op-amp with gain-bandwidth of at least", g, "Hz", rec.Method));
             if (rec.NeededSlewRateVoltsPerSecond is { } sr)
                 remedies.Add(new Remedy("buffer.slew_rate", "and slew rate of at least", sr, "V/s", rec.Method));
-            findings.Add(new Finding("buffer-recovery", Severity.Warn, "the buffer does not recover from the sampling kick in time",
-                rec.Celsius, rec.Celsius, rec.Celsius, rec.BufferShareVolts, rec.BufferShareVolts / lsb, double.NaN,
+            var at = points.MinBy(p => Math.Abs(p.Celsius - rec.Celsius))!;
+            var kelvin = model.CelsiusAtVolts(at.IdealVolts + rec.BufferShareVolts) - at.Celsius;
+            findings.Add(new Finding("buffer-recovery", OwnSize(kelvin, at.BudgetKelvin), "the buffer does not recover from the sampling kick in time",
+                rec.Celsius, rec.Celsius, rec.Celsius, rec.BufferShareVolts, rec.BufferShareVolts / lsb, kelvin,
                 I($"settling error {rec.SettlingErrorVolts * 1e6:0.#} µV with the design's op-amp, {rec.IdealBufferSettlingErrorVolts * 1e6:0.#} µV with an ideal one"),
                 null, rec.BufferShareVolts, remedies));
         }
@@ -92,14 +85,19 @@ internal static class BufferFindingRules
         {
             var p = noise.Worst;
             var n = (int)Math.Ceiling(Math.Pow(p.RmsVolts / (lsb / 2), 2));
-            findings.Add(new Finding("buffer-noise", Severity.Warn, "the sampled noise exceeds ½ LSB rms: codes flicker",
+            findings.Add(new Finding("buffer-noise", noisy.Any(q => q.RmsKelvin > design.Check.BudgetAt(q.Celsius)) ? Severity.Fail : Severity.Warn,
+                "the sampled noise exceeds ½ LSB rms: codes flicker",
                 noisy[0].Celsius, noisy[^1].Celsius, p.Celsius, p.RmsVolts, p.RmsLsb, p.RmsKelvin,
-                I($"largest contributor {p.Contributions[0].Element} ({p.Contributions[0].Label}) {p.Contributions[0].RmsVolts * 1e6:0.#} µV rms"),
-                null, p.RmsVolts,
-                [new Remedy("firmware averaging", "average at least this many conversions (white noise, σ/√N)", n, "conversions", noise.Method)]));
+                I($"largest contributor {p.Contributions[0].Element} ({p.Contributions[0].Label}) {p.Contributions[0].RmsVolts * 1e6:0.#} µV rms; ") +
+                I($"averaging {n} conversions in firmware would bring it within ½ LSB (white noise, σ/√N; a firmware change the check does not model)"),
+                null, p.RmsVolts, []));
         }
         return findings;
     }
+
+    /// <summary>The rule every finding follows: it fails when its own size exceeds the budget there (docs/methods.md).</summary>
+    private static Severity OwnSize(double kelvin, double budgetKelvin) =>
+        double.IsFinite(kelvin) && Math.Abs(kelvin) > budgetKelvin ? Severity.Fail : Severity.Warn;
 
     private static string Hertz(double? f) => f is { } v ? Quantities.EngineeringFormat.Format(v, Quantities.UnitKind.Hertz, 4) : "none";
 

@@ -38,7 +38,8 @@ public sealed record HeadroomResult(
 
 /// <summary>
 /// Headroom from the closed form: the buffer's input is the unloaded divider, v_in(T); its output is
-/// G·(v_in(T) + V_os) with the offset at the board temperature (as the simulation holds it). The input must stay
+/// G·(v_in(T) + V_os) with the offset drifted to the board temperature, or to the swept temperature when the design
+/// gives none (as the simulation holds it). The input must stay
 /// inside the common-mode range and the output inside the supply less the output swing. Every crossing of a limit is
 /// located by bisection on T between the grid points that bracket it, so the reported range starts and ends where
 /// the closed form meets the limit, not at the nearest grid point. While the output is clipped the ADC reads the
@@ -50,23 +51,23 @@ internal static class BufferHeadroom
     {
         var b = BufferCircuits.Require(design);
         var model = new ClosedFormModel(design);
-        var offset = b.OffsetVolts + b.OffsetDriftVoltsPerKelvin * ((design.Check.BoardCelsius ?? 25) - 25);
+        double Offset(double t) => b.OffsetVolts + b.OffsetDriftVoltsPerKelvin * ((design.Check.BoardCelsius ?? t) - 25);
         double Input(double t) => model.At(t).IdealVolts / model.BufferGain;
-        double Output(double t) => b.Gain * (Input(t) + offset);
+        double Output(double t) => b.Gain * (Input(t) + Offset(t));
 
         var inLow = b.InputCommonMode?.MinVolts ?? double.NegativeInfinity;
         var inHigh = b.InputCommonMode?.MaxVolts ?? double.PositiveInfinity;
         var outLow = b.Supply.MinVolts + b.OutputSwingVolts;
         var outHigh = b.Supply.MaxVolts - b.OutputSwingVolts;
         var violations = new List<HeadroomViolation>();
-        violations.AddRange(Crossings("input common-mode range", Input, inLow, inHigh, temperaturesCelsius, model, b.Gain, offset));
-        violations.AddRange(Crossings("output swing", Output, outLow, outHigh, temperaturesCelsius, model, 1, 0));
+        violations.AddRange(Crossings("input common-mode range", Input, inLow, inHigh, temperaturesCelsius, model, b.Gain, Offset));
+        violations.AddRange(Crossings("output swing", Output, outLow, outHigh, temperaturesCelsius, model, 1, _ => 0));
         return new HeadroomResult(inLow, inHigh, outLow, outHigh, temperaturesCelsius,
             [.. temperaturesCelsius.Select(Input)], [.. temperaturesCelsius.Select(Output)], violations);
     }
 
     private static IEnumerable<HeadroomViolation> Crossings(string limit, Func<double, double> volts, double low, double high,
-        IReadOnlyList<double> t, ClosedFormModel model, double gain, double offset)
+        IReadOnlyList<double> t, ClosedFormModel model, double gain, Func<double, double> offset)
     {
         foreach (var (side, bound, outside) in new (string, double, Func<double, bool>)[]
                  { ("low", low, v => v < low), ("high", high, v => v > high) })
@@ -82,7 +83,7 @@ internal static class BufferHeadroom
                 var to = i == t.Count ? t[^1] : Crossing(volts, bound, t[i - 1], t[i]);
                 var worst = Enumerable.Range(start, i - start).MaxBy(k => Math.Abs(volts(t[k]) - bound));
                 // The ADC sees the clamped output (times the stage gain for an input limit).
-                var code = model.Adc.Code(gain * (bound + offset));
+                var code = model.Adc.Code(gain * (bound + offset(t[worst])));
                 yield return new HeadroomViolation(limit, side, bound, from, to, t[worst], volts(t[worst]), code);
                 start = -1;
             }

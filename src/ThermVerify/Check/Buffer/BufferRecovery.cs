@@ -58,7 +58,7 @@ internal static class BufferRecovery
         var adc = new ClosedFormModel(design).Adc;
         var allowed = adc.LsbVolts / 2;
         var settle = design.Check.SettleLimitLsb * adc.LsbVolts;
-        double Error(BufferSpec spec) => Remedies.SettlingErrorVolts(design with { Buffer = spec }, celsius, prechargeVolts, settle, engine);
+        double Error(BufferSpec spec) => SettlingError.Volts(design with { Buffer = spec }, celsius, prechargeVolts, settle, engine);
         // Far below the need the op-amp stays slewing and the transient may not converge: that candidate does not settle either.
         bool Settles(BufferSpec spec)
         {

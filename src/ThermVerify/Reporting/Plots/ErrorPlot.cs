@@ -19,20 +19,13 @@ internal static class ErrorPlot
 
         // The total goes first, so that a contribution equal to it stays visible on top.
         PlotStyle.AddLine(plot, t, [.. points.Select(p => p.ErrorKelvin)], "total error", PlotStyle.Total, 3);
-        var parts = new (string Label, Func<CheckPoint, double> Kelvin)[]
+        var parts = ReportFormat.ContributionColumns(points);
+        for (var i = 0; i < parts.Count; i++)
         {
-            ("quantisation", p => p.Contributions.QuantisationKelvin),
-            ("DC loading", p => p.Contributions.DcLoadingKelvin),
-            ("settling", p => p.Contributions.SettlingKelvin),
-            ("buffer", p => p.Contributions.BufferKelvin),
-            ("rest (unmappable)", p => p.Contributions.RestKelvin),
-        };
-        for (var i = 0; i < parts.Length; i++)
-        {
-            var ys = points.Select(parts[i].Kelvin).ToArray();
+            var ys = points.Select(p => parts[i].Kelvin(p)).ToArray();
             // A contribution that is zero everywhere would only hide the others; the table still lists it.
             if (ys.All(y => y == 0)) continue;
-            PlotStyle.AddLine(plot, t, ys, parts[i].Label, PlotStyle.Series[i], 1.5f);
+            PlotStyle.AddLine(plot, t, ys, parts[i].Header == "rest" ? "rest (unmappable)" : parts[i].Header, PlotStyle.Series[i % PlotStyle.Series.Length], 1.5f);
         }
         var zero = plot.Add.HorizontalLine(0);
         zero.Color = Colors.Gray;

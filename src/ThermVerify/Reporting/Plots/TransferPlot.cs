@@ -17,7 +17,7 @@ internal static class TransferPlot
         var plot = PlotStyle.NewPlot($"Divider voltage and ADC code: {result.Design.Name}", "Temperature (°C)", "Voltage at the ADC pin (V)");
         PlotStyle.AddLine(plot, t, [.. points.Select(p => p.IdealVolts)], "closed form (unloaded divider)", PlotStyle.Closed, 3);
         PlotStyle.AddLine(plot, t, [.. points.Select(p => p.DcPinVolts)], "simulated DC pin voltage", PlotStyle.Pin, 2, LinePattern.Dashed);
-        PlotStyle.AddLine(plot, t, [.. points.Select(p => p.WorstSampleVolts)], "simulated sample (worse of first and steady)", PlotStyle.Simulated, 2);
+        PlotStyle.AddLine(plot, t, [.. points.Select(p => p.SampleVolts)], "simulated sample (the worst reading)", PlotStyle.Simulated, 2);
 
         var codes = plot.Add.ScatterPoints(t, [.. points.Select(p => (double)p.Code)]);
         codes.Color = PlotStyle.Code;

@@ -22,6 +22,8 @@ public static class CheckSummaryText
         text.AppendLine($"  divider  sensor on the {(d.Divider.SensorSide == SensorSide.High ? "high" : "low")} side, fixed {V(d.Divider.FixedResistorOhms, UnitKind.Ohm)}, excitation {V(d.Divider.ExcitationVolts, UnitKind.Volt)}");
         text.AppendLine($"  ADC      {d.Adc.Bits} bits, reference {(d.Adc.IsRatiometric ? "ratiometric" : V(result.Adc.ReferenceVolts, UnitKind.Volt))}, " +
                         $"1 LSB = {V(result.Adc.LsbVolts, UnitKind.Volt)}, {V(d.Adc.SampleRateHertz, UnitKind.Hertz)}, acquisition {V(d.Adc.AcquisitionTimeSeconds, UnitKind.Second)}");
+        text.AppendLine($"  codes    {result.Adc.Describe()}");
+        text.AppendLine($"  precharge {ReportFormat.PrechargeLine(result)}");
         text.AppendLine($"  check    {V(d.Check.Range.MinCelsius, UnitKind.Celsius)} to {V(d.Check.Range.MaxCelsius, UnitKind.Celsius)} in {V(d.Check.StepKelvin, UnitKind.Kelvin)} steps, budget {V(d.Check.BudgetKelvin, UnitKind.Kelvin)}" +
                         string.Concat(d.Check.Regions.Select(r => $" ({r.Range}: {V(r.BudgetKelvin, UnitKind.Kelvin)})")));
         text.AppendLine();
@@ -30,13 +32,13 @@ public static class CheckSummaryText
         text.Append(VerdictLine(result));
         text.AppendLine();
 
-        text.AppendLine("Reported-temperature error and its causes (K):");
-        var table = new TextTable("T (°C)", "ideal", "sample", "code", "reported (°C)", "error", "quantisation", "DC loading", "settling", "buffer", "rest", "budget");
+        text.AppendLine("Reported-temperature error and its causes (K; the columns add up to the error, effects the design does not have are left out):");
+        var columns = ReportFormat.ContributionColumns(result.Points);
+        var table = new TextTable(["T (°C)", "ideal", "sample", "code", "reported (°C)", "error", .. columns.Select(c => c.Header), "budget", "reading"]);
         foreach (var p in Selected(result.Points, worst, tableRows))
-            table.AddRow(N(p.Celsius, "0.##"), V(p.IdealVolts, UnitKind.Volt), V(p.WorstSampleVolts, UnitKind.Volt), p.Code.ToString(CultureInfo.InvariantCulture),
+            table.AddRow([N(p.Celsius, "0.##"), V(p.IdealVolts, UnitKind.Volt), V(p.SampleVolts, UnitKind.Volt), p.Code.ToString(CultureInfo.InvariantCulture),
                 double.IsFinite(p.ReportedCelsius) ? N(p.ReportedCelsius, "0.000") : "none", K(p.ErrorKelvin, unit: false),
-                K(p.Contributions.QuantisationKelvin, unit: false), K(p.Contributions.DcLoadingKelvin, unit: false), K(p.Contributions.SettlingKelvin, unit: false),
-                K(p.Contributions.BufferKelvin, unit: false), K(p.Contributions.RestKelvin, unit: false), N(p.BudgetKelvin, "0.###"));
+                .. columns.Select(c => K(c.Kelvin(p), unit: false)), N(p.BudgetKelvin, "0.###"), ReportFormat.ReadingCell(p)]);
         text.Append(table);
         text.AppendLine();
 
@@ -72,20 +74,17 @@ public static class CheckSummaryText
                         $"{V(f.SizeVolts, UnitKind.Volt)} = {N(f.SizeLsb, "+0.##;-0.##")} LSB = {K(f.SizeKelvin)}");
         text.AppendLine($"       cause: {f.Cause}" + (f.EstimateVolts is { } e && f.SimulatedVolts is { } s
             ? $"; closed form {V(e, UnitKind.Volt)}, simulated {V(s, UnitKind.Volt)}" : ""));
+        if (f.RemedyNote is { } note)
+            text.AppendLine($"       remedies: {note}");
         foreach (var r in f.Remedies)
-            text.AppendLine($"       remedy: {r.Action}{(r.Value is { } v ? " " + RemedyValue(v, r.Unit) : "")} [{r.Key}]");
+        {
+            text.AppendLine($"       remedy: {r.Action}{(r.Value is null ? "" : " " + ReportFormat.RemedyValue(r))} [{r.Key}]");
+            foreach (var t in r.Together)
+                text.AppendLine($"         together with: {t.Action}{(t.Value is null ? "" : " " + ReportFormat.RemedyValue(t))} [{t.Key}]");
+            if (r.Proof.Length > 0)
+                text.AppendLine($"         ({r.Proof})");
+        }
     }
-
-    private static string RemedyValue(double value, string unit) => unit switch
-    {
-        "s" => V(value, UnitKind.Second),
-        "F" => V(value, UnitKind.Farad),
-        "Hz" => V(value, UnitKind.Hertz),
-        "Ω" => V(value, UnitKind.Ohm),
-        "V" => V(value, UnitKind.Volt),
-        "V/s" => V(value, UnitKind.VoltPerSecond),
-        _ => $"{N(value, "0.###")} {unit}",
-    };
 
     /// <summary>Both ends, the worst point and evenly spread points between, in temperature order.</summary>
     private static IEnumerable<CheckPoint> Selected(IReadOnlyList<CheckPoint> points, CheckPoint worst, int rows) =>

@@ -14,7 +14,7 @@ public class BufferRecoveryTests
     private const double HalfLsb = 3.3 / 4096 / 2;
 
     private static double Error(double gbw, double? slew) =>
-        Remedies.SettlingErrorVolts(Design with { Buffer = Design.Buffer! with { GainBandwidthHertz = gbw, SlewRateVoltsPerSecond = slew } }, 25, 0.0, 0.01 * 2 * HalfLsb);
+        SettlingError.Volts(Design with { Buffer = Design.Buffer! with { GainBandwidthHertz = gbw, SlewRateVoltsPerSecond = slew } }, 25, 0.0, 0.01 * 2 * HalfLsb);
 
     /// <summary>As the search counts it: a transient that cannot complete (an op-amp stuck slewing) does not settle.</summary>
     private static bool Settles(double gbw, double? slew)

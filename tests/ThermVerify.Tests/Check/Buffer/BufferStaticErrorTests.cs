@@ -23,12 +23,16 @@ public class BufferStaticErrorTests
         Tolerance.AssertClose(5e-6 * (celsius - 25), point.DriftVolts, 1e-12, 1e-18);
         Tolerance.AssertClose(-11e-9 * rth, point.BiasVolts, 1e-12);
 
-        // The engine's operating point agrees (offset held at 25 °C there), with the follower's finite-gain factor
-        // A0/(1 + A0) for A0 = 120 dB (negative feedback, elementary).
-        var op = OperatingPoint.Solve(FrontEndCircuit.Dc(design, null) with { TemperatureCelsius = celsius });
+        // The engine's operating point of the circuit built for this temperature agrees (the op-amp there, without a
+        // board temperature, so its offset drifted to it), with the follower's finite-gain factor A0/(1 + A0) for
+        // A0 = 120 dB (negative feedback, elementary).
+        var op = OperatingPoint.Solve(FrontEndCircuit.Dc(design, null, celsius));
         var ideal = 3.3 * SensorOhms(celsius) / (SensorOhms(celsius) + 10e3);
         const double a0 = 1e6;
-        Tolerance.AssertClose(a0 / (1 + a0) * (ideal + point.OffsetVolts + point.BiasVolts), op.Voltage(FrontEndNodes.BufferOutput), 0, 1e-9, "simulated output (V)");
+        Tolerance.AssertClose(a0 / (1 + a0) * (ideal + point.OffsetVolts + point.DriftVolts + point.BiasVolts), op.Voltage(FrontEndNodes.BufferOutput), 0, 1e-9, "simulated output (V)");
+        // The temperature sweep adds the drift by superposition through the simulated offset sensitivity: the same pin.
+        var swept = DcLevels.Run(design, [PrechargeCase.LastSample], [celsius]);
+        Tolerance.AssertClose(op.Voltage(FrontEndNodes.BufferOutput), swept.StaticPinVolts[0], 0, 1e-9, "swept pin (V)");
     }
 
     [Fact]

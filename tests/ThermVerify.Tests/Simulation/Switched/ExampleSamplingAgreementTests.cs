@@ -29,8 +29,8 @@ public class ExampleSamplingAgreementTests
         foreach (var pre in PrechargeCases.For(design, model.Adc.ReferenceVolts))
             foreach (var celsius in new[] { range.MinCelsius, range.MaxCelsius })
             {
-                var at = $"{file} at {celsius} °C, {PrechargeCases.Describe(pre)}";
-                var (circuit, options) = SamplingRun.Setup(design, celsius, pre, settleVolts, Conversions);
+                var at = $"{file} at {celsius} °C, {pre.Describe()}";
+                var (circuit, options) = SamplingRun.Setup(design, celsius, pre.Volts, settleVolts, Conversions);
                 Assert.True(ExactSwitchedTransient.TryStart(circuit, out var run, out var refused), $"{at}: {refused?.Message}");
                 var tight = options with { RelativeTolerance = 1e-10, VoltageToleranceVolts = 1e-12 };
                 double[] exact;

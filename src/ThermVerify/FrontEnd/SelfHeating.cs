@@ -1,8 +1,7 @@
 using ThermVerify.Design;
-using ThermVerify.FrontEnd;
 using ThermVerify.Sensors;
 
-namespace ThermVerify.Tolerances;
+namespace ThermVerify.FrontEnd;
 
 /// <summary>The sensor's own heating over the check range.</summary>
 internal sealed record SelfHeatingProfile(
@@ -52,11 +51,30 @@ internal static class SelfHeating
         return rise;
     }
 
+    /// <summary>
+    /// What the warming does at the pin: ΔT·dV/dT of the divider (times the buffer gain), first order; the warmer
+    /// sensor reads high. The second-order term, ½·ΔT·|d ln(dV/dT)/dT|, is 0.2 % of a 0.1 K rise on a 10 kΩ NTC divider.
+    /// </summary>
+    public static double[] PinVolts(FrontEndDesign design, ISensorModel sensor, IReadOnlyList<double> celsius, IReadOnlyList<double> dividerVolts)
+    {
+        var rise = RiseKelvin(design, PowerWatts(design, sensor, celsius, dividerVolts));
+        var volts = new double[rise.Length];
+        var d = design.Divider;
+        for (var i = 0; i < volts.Length; i++)
+        {
+            if (rise[i] == 0) continue;
+            var r = sensor.ResistanceOhms(celsius[i]);
+            volts[i] = rise[i] * (design.Buffer?.Gain ?? 1) * DividerFormula.SlopeVoltsPerOhm(d.SensorSide, d.ExcitationVolts, r, d.FixedResistorOhms)
+                       * sensor.SlopeOhmsPerKelvin(celsius[i]);
+        }
+        return volts;
+    }
+
     /// <summary>The nominal design's profile over its check grid, from the simulated DC sweep.</summary>
     public static SelfHeatingProfile Profile(FrontEndDesign design)
     {
         var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToArray();
-        var divider = DcSweepCase.Run(design, null, temperatures).DividerVolts;
+        var divider = DcLevels.Run(design, [], temperatures).DividerVolts;
         var power = PowerWatts(design, design.Sensor.Build(), temperatures, divider);
         return new SelfHeatingProfile(temperatures, power, RiseKelvin(design, power), DutyCycle(design), design.Sensor.DissipationConstantWattsPerKelvin);
     }

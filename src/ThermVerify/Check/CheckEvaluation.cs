@@ -1,0 +1,129 @@
+using ThermVerify.Design;
+using ThermVerify.FrontEnd;
+
+namespace ThermVerify.Check;
+
+/// <summary>
+/// The points of a check over a set of temperatures: the DC levels, the sampling offsets on a grid of them, the one
+/// error model (<see cref="ErrorModel"/>) that picks the worst reading at each temperature, and the split of its error
+/// by cause. <see cref="Refined"/> adds a sampling transient at the worst temperature when the grid missed it, as every
+/// unit of the tolerance analyses does. The whole check runs it over its range; a remedy search over one temperature.
+/// </summary>
+internal sealed class CheckEvaluation
+{
+    private CheckEvaluation(FrontEndDesign design, ClosedFormModel model, FirmwareReading reading, IReadOnlyList<double> temperatures,
+        IReadOnlyList<PrechargeCase> cases, DcCorners dc, SamplingOffsets offsets, Converter converter, double settleVolts, SampleKinds kinds)
+    {
+        Design = design;
+        Model = model;
+        Reading = reading;
+        Temperatures = temperatures;
+        ClosedForm = [.. temperatures.Select(model.At)];
+        Cases = cases;
+        Dc = dc;
+        Offsets = offsets;
+        Converter = converter;
+        SettleVolts = settleVolts;
+        Kinds = kinds;
+        Inputs = ErrorModel.Inputs(design, model.Sensor, temperatures, dc, offsets.FirstVolts, offsets.SteadyVolts, converter) with { Kinds = kinds };
+        Points = [.. Enumerable.Range(0, temperatures.Count).Select(PointAt)];
+    }
+
+    public FrontEndDesign Design { get; }
+    public ClosedFormModel Model { get; }
+    public FirmwareReading Reading { get; }
+    public IReadOnlyList<double> Temperatures { get; }
+    public ClosedFormPoint[] ClosedForm { get; }
+    public IReadOnlyList<PrechargeCase> Cases { get; }
+    /// <summary>The DC levels at the corners of the design's bounds; sampling runs on <see cref="DcCorners.Base"/>.</summary>
+    public DcCorners Dc { get; }
+    public SamplingOffsets Offsets { get; }
+    public Converter Converter { get; }
+    public double SettleVolts { get; }
+    public SampleKinds Kinds { get; }
+    public ErrorInputs Inputs { get; }
+    public IReadOnlyList<CheckPoint> Points { get; }
+
+    /// <param name="cases">The precharge cases to cover; null: the design's own (<see cref="PrechargeCases.For"/>).</param>
+    /// <param name="kinds">
+    /// The readings to cover: both samples (the check), or one of them (a remedy search on the reading a finding was
+    /// worst at; the first alone needs one conversion per run). Null: no sampling transients, every sampling offset zero
+    /// (for questions about DC effects alone).
+    /// </param>
+    public static CheckEvaluation Run(FrontEndDesign design, IReadOnlyList<double> temperatures, CheckOptions options,
+        IReadOnlyList<PrechargeCase>? cases = null, SampleKinds? kinds = SampleKinds.Both)
+    {
+        var model = new ClosedFormModel(design);
+        var reading = new FirmwareReading(model);
+        cases ??= PrechargeCases.For(design, model.Adc.ReferenceVolts);
+        var settleVolts = design.Check.SettleLimitLsb * model.Adc.LsbVolts;
+        var indices = SettlingGrid.Indices(temperatures.Count, options.MaximumSamplingPoints);
+        var dc = DcCorners.Run(design, cases, temperatures, options.Engine);
+        // Sampling offsets (sample minus the level it starts from) of the design with its bounds at zero: the bounds
+        // move the levels, which the corners carry, and a larger bound can only move them further.
+        var sampled = StaticBounds.Zeroed(design);
+        var offsets = kinds switch
+        {
+            null => SamplingOffsets.None(cases, temperatures.Count),
+            SampleKinds.FirstOnly => SamplingOffsets.FirstOnly(sampled, cases, temperatures, dc.Base, settleVolts, options.Engine),
+            _ => SamplingOffsets.Run(sampled, cases, temperatures, indices, dc.Base, settleVolts, options.Threads, options.Cancel, options.Engine),
+        };
+        return new CheckEvaluation(design, model, reading, temperatures, cases, dc, offsets, Converter.Of(design), settleVolts, kinds ?? SampleKinds.Both);
+    }
+
+    /// <summary>
+    /// The same evaluation with a sampling transient at the worst temperature, for its worst reading's precharge case
+    /// and sample, when the grid did not simulate it there (as every unit of the tolerance analyses does).
+    /// </summary>
+    public CheckEvaluation Refined(CheckOptions options)
+    {
+        var worst = ErrorModel.WorstIndex([.. Points.Select(p => p.ErrorKelvin)]);
+        var (choice, _) = ErrorModel.WorstAt(Inputs, worst, Reading);
+        var offsets = Offsets.WithPoint(StaticBounds.Zeroed(Design), Temperatures, worst, Dc.Base, SettleVolts, options.Cancel, options.Engine,
+            choice.Case, choice.First);
+        return ReferenceEquals(offsets, Offsets) ? this
+            : new CheckEvaluation(Design, Model, Reading, Temperatures, Cases, Dc, offsets, Converter, SettleVolts, Kinds);
+    }
+
+    private CheckPoint PointAt(int i)
+    {
+        var cf = ClosedForm[i];
+        var (choice, _) = ErrorModel.WorstAt(Inputs, i, Reading);
+        var c = choice.Case;
+        var corner = Dc.Corners[choice.Corner];
+        var first = Offsets.FirstVolts[c][i];
+        var steady = Offsets.SteadyVolts[c][i];
+        var staticPin = corner.StaticPinVolts[i];
+        var averagePin = corner.AveragePinVolts[c][i];
+        var heat = Inputs.SelfHeatingVolts[i];
+
+        // The walk from the closed form to the code, one cause at a time.
+        var ideal = cf.IdealVolts;
+        var afterBuffer = corner.AfterBufferVolts?[i] ?? ideal;
+        var level = choice.First ? staticPin : averagePin;
+        var sample = level + (choice.First ? first : steady);
+        var warmed = choice.SampleVolts;
+        var converted = choice.UnroundedCode * Model.Adc.LsbVolts;
+        double T(double volts) => Model.CelsiusAtVolts(volts);
+        double[] parts =
+        [
+            Reading.Celsius(choice.Code) - T(converted),   // quantisation
+            T(converted) - T(warmed),                       // converter
+            T(staticPin) - T(afterBuffer),                  // DC loading
+            T(level) - T(staticPin),                        // recovery
+            T(sample) - T(level),                           // settling
+            T(afterBuffer) - T(ideal),                      // buffer
+            T(warmed) - T(sample),                          // self-heating
+        ];
+        for (var k = 0; k < parts.Length; k++) if (!double.IsFinite(parts[k])) parts[k] = 0;
+        var error = choice.ErrorKelvin;
+        var contributions = new ErrorContributions(parts[0], parts[1], parts[2], parts[3], parts[4], parts[5], parts[6], error - parts.Sum());
+        var volts = new VoltageErrors(afterBuffer - ideal, staticPin - afterBuffer, level - staticPin, sample - level, warmed - sample,
+            converted - warmed, first, steady, averagePin - staticPin);
+        var cornerName = Dc.Corners.Count > 1 ? (choice.Corner == 0 ? "bounds up" : "bounds down") : "";
+        return new CheckPoint(cf.Celsius, cf.SensorOhms, ideal, Dc.Base.DividerVolts[i], staticPin, averagePin, staticPin + first, averagePin + steady,
+            warmed, Cases[c], choice.First, cornerName, Offsets.SimulatedIndices.Contains(i), choice.Code, Reading.Celsius(choice.Code), error,
+            Design.Check.BudgetAt(cf.Celsius), Model.Adc.LsbVolts / Math.Abs(cf.VoltsPerKelvin), contributions, volts,
+            EffectEstimator.At(Dc.DesignAt(Design, choice.Corner, i), cf, staticPin, averagePin, Cases[c].Volts, heat));
+    }
+}

@@ -1,0 +1,213 @@
+using ThermVerify.Components;
+using ThermVerify.Design;
+
+namespace ThermVerify.Check.Remedies;
+
+/// <summary>
+/// The design values remedies change, and which of them can shrink each finding, in the order the search tries them:
+/// for an effect with parts (the converter's offset, gain and INL; the buffer's offset, drift and bias; leakage and
+/// drift), the part that dominates at the finding's worst point comes first.
+/// </summary>
+internal static class Knobs
+{
+    // Declared first: static fields initialise in the order they are written, and the knobs below read it.
+    private static readonly Dictionary<string, string> Removals = new()
+    {
+        ["filter.series_resistor"] = "remove the filter's series resistor",
+        ["adc.pin_leakage"] = "choose a converter with negligible pin leakage",
+        ["divider.fixed_tempco"] = "use a fixed resistor with a negligible tempco",
+        ["buffer.offset_voltage"] = "trim (or calibrate) the op-amp's offset out",
+        ["buffer.offset_drift"] = "use an op-amp with negligible offset drift (chopper-stabilised)",
+        ["buffer.bias_current"] = "use an op-amp with negligible bias current",
+        ["buffer.noise_voltage"] = "use an op-amp with negligible voltage noise",
+        ["buffer.output_swing"] = "use an op-amp with a rail-to-rail output",
+        ["adc.offset_error"] = "calibrate the converter's offset error out in firmware",
+        ["adc.gain_error"] = "calibrate the converter's gain error out in firmware",
+        ["adc.inl"] = "correct the converter's INL code by code in firmware",
+        ["adc.reference_tempco"] = "use a reference with a negligible tempco",
+    };
+
+    public static readonly Knob AcquisitionTime = new("adc.acquisition_time", "s", Better.Higher,
+        d => (double?)d.Adc.AcquisitionTimeSeconds, (d, v) => d with { Adc = d.Adc with { AcquisitionTimeSeconds = v } },
+        d => 0.95 / d.Adc.SampleRateHertz, "lengthen the acquisition time to at least");
+
+    /// <summary>
+    /// The reservoir's search ends at 4·2^N·C_sh, twice the charge-sharing rule for a full-scale step
+    /// ((2^(N+1) − 1)·C_sh, common practice): no kick needs more.
+    /// </summary>
+    public static readonly Knob Reservoir = new("filter.reservoir_capacitor", "F", Better.Higher,
+        d => d.Filter.ReservoirCapacitorFarads > 0 ? d.Filter.ReservoirCapacitorFarads : null,
+        (d, v) => d with { Filter = d.Filter with { ReservoirCapacitorFarads = v } },
+        d => d.Adc.SamplingCapacitanceFarads * 4.0 * (1 << d.Adc.Bits), "fit a reservoir capacitor at the pin (E12 value) of at least")
+    {
+        Floor = d => d.Adc.SamplingCapacitanceFarads,
+        Standard = v => ESeries.E12.Contains(v) ? v : ESeries.E12.NextHigher(v),
+    };
+
+    public static readonly Knob SampleRate = new("adc.sample_rate", "Hz", Better.Lower,
+        d => (double?)d.Adc.SampleRateHertz, (d, v) => d with { Adc = d.Adc with { SampleRateHertz = v } },
+        d => Math.Max(d.Adc.SampleRateHertz * 1e-4, 1e-3), "lower this channel's sample rate to at most");
+
+    public static readonly Knob SeriesResistor = Magnitude("filter.series_resistor", "Ω", d => d.Filter.SeriesResistorOhms,
+        (d, v) => d with { Filter = d.Filter with { SeriesResistorOhms = v } }, "lower the filter's series resistor to at most");
+
+    public static readonly Knob PinLeakage = Magnitude("adc.pin_leakage", "A", d => d.Adc.PinLeakageAmperes,
+        (d, v) => d with { Adc = d.Adc with { PinLeakageAmperes = v } }, "choose a converter whose pin leakage (at pin_leakage_temperature) is at most");
+
+    public static readonly Knob FixedTempco = Magnitude("divider.fixed_tempco", "ppm/K", d => d.Divider.FixedTempcoPerKelvin,
+        (d, v) => d with { Divider = d.Divider with { FixedTempcoPerKelvin = v } }, "use a fixed resistor with a tempco of at most");
+
+    /// <summary>The open-loop output resistance the added follower is given: a typical CMOS op-amp's (common practice, no source).</summary>
+    public const double AddedBufferOutputOhms = 100;
+
+    /// <summary>
+    /// A follower added where the design has none: rail-to-rail, offset and bias currents taken as zero, 100 Ω open-loop
+    /// output resistance; the search is on its gain-bandwidth, from the single-pole closed form for settling a full-scale
+    /// step within the acquisition (τ = 1/(2π·GBW), op-amp textbook result, from memory) up to a thousand times that.
+    /// </summary>
+    public static readonly Knob AddBuffer = new("buffer.gain_bandwidth", "Hz", Better.Higher,
+        d => null,
+        (d, v) => d with
+        {
+            Buffer = new BufferSpec
+            {
+                GainBandwidthHertz = v,
+                OutputResistanceOhms = AddedBufferOutputOhms,
+                Supply = new VoltageRange(0, Math.Max(d.Divider.ExcitationVolts, d.Adc.ReferenceVolts ?? 0)),
+            },
+        },
+        d => FullScaleFollower(d) * 1e3,
+        "buffer the divider with a rail-to-rail op-amp follower (offset and bias currents zero, 100 Ω open-loop output resistance) of gain-bandwidth at least")
+    {
+        Floor = FullScaleFollower,
+    };
+
+    private static double FullScaleFollower(FrontEndDesign d) =>
+        FrontEnd.SamplingFormulas.FollowerGainBandwidthFor(d.Adc.ReferenceVolts ?? d.Divider.ExcitationVolts,
+            (d.Adc.ReferenceVolts ?? d.Divider.ExcitationVolts) / (1 << d.Adc.Bits) / 2, d.Adc.AcquisitionTimeSeconds);
+
+    public static readonly Knob BufferGainBandwidth = new("buffer.gain_bandwidth", "Hz", Better.Higher,
+        d => (double?)d.Buffer!.GainBandwidthHertz, (d, v) => d with { Buffer = d.Buffer! with { GainBandwidthHertz = v } },
+        d => d.Buffer!.GainBandwidthHertz * 1e3, "use an op-amp with gain-bandwidth of at least");
+
+    public static readonly Knob BufferSlewRate = new("buffer.slew_rate", "V/s", Better.Higher,
+        d => d.Buffer!.SlewRateVoltsPerSecond, (d, v) => d with { Buffer = d.Buffer! with { SlewRateVoltsPerSecond = v } },
+        d => 1e9, "use an op-amp with a slew rate of at least");
+
+    public static readonly Knob BufferOffset = Magnitude("buffer.offset_voltage", "V", d => d.Buffer!.OffsetVolts,
+        (d, v) => d with { Buffer = d.Buffer! with { OffsetVolts = v } }, "use an op-amp with an offset of at most") with { Calibrated = true };
+
+    public static readonly Knob BufferDrift = Magnitude("buffer.offset_drift", "V/K", d => d.Buffer!.OffsetDriftVoltsPerKelvin,
+        (d, v) => d with { Buffer = d.Buffer! with { OffsetDriftVoltsPerKelvin = v } }, "use an op-amp with an offset drift of at most");
+
+    public static readonly Knob BufferBias = Magnitude("buffer.bias_current", "A", d => d.Buffer!.BiasCurrentAmperes,
+        (d, v) => d with { Buffer = d.Buffer! with { BiasCurrentAmperes = v } }, "use an op-amp with a bias current of at most");
+
+    public static readonly Knob BufferNoise = Magnitude("buffer.noise_voltage", "V/√Hz", d => d.Buffer!.NoiseVoltsPerRootHertz,
+        (d, v) => d with { Buffer = d.Buffer! with { NoiseVoltsPerRootHertz = v } }, "use an op-amp with a voltage noise of at most");
+
+    public static readonly Knob Isolation = new("buffer.isolation_resistor", "Ω", Better.Higher,
+        d => d.Buffer!.IsolationResistorOhms > 0 ? d.Buffer.IsolationResistorOhms : null,
+        (d, v) => d with { Buffer = d.Buffer! with { IsolationResistorOhms = v } }, d => 1e6, "fit an isolation resistor of at least")
+    {
+        Floor = _ => 1e-2,
+    };
+
+    public static readonly Knob OutputSwing = Magnitude("buffer.output_swing", "V", d => d.Buffer!.OutputSwingVolts,
+        (d, v) => d with { Buffer = d.Buffer! with { OutputSwingVolts = v } }, "use an op-amp whose output swings to within, of each rail,");
+
+    public static readonly Knob AdcOffset = Magnitude("adc.offset_error", "LSB", d => d.Adc.OffsetErrorLsb,
+        (d, v) => d with { Adc = d.Adc with { OffsetErrorLsb = v } }, "choose a converter (or calibrate) with an offset error of at most") with { Calibrated = true };
+
+    public static readonly Knob AdcGain = Magnitude("adc.gain_error", "fraction", d => d.Adc.GainError,
+        (d, v) => d with { Adc = d.Adc with { GainError = v } }, "choose a converter (or calibrate) with a gain error of at most") with { Calibrated = true };
+
+    public static readonly Knob AdcInl = Magnitude("adc.inl", "LSB", d => d.Adc.InlLsb,
+        (d, v) => d with { Adc = d.Adc with { InlLsb = v } }, "choose a converter with an INL of at most");
+
+    public static readonly Knob ReferenceTempco = Magnitude("adc.reference_tempco", "ppm/K", d => d.Adc.ReferenceTempcoPerKelvin,
+        (d, v) => d with { Adc = d.Adc with { ReferenceTempcoPerKelvin = v } }, "use a reference with a tempco of at most");
+
+    public static readonly Knob Bits = new("adc.bits", "bits", Better.Higher, d => (double)d.Adc.Bits,
+        (d, v) => d with { Adc = d.Adc with { Bits = (int)Math.Round(v) } }, d => DesignDefaultsMaxBits, "use a converter of at least")
+    {
+        Integer = true,
+    };
+
+    public static readonly Knob Dissipation = new("sensor.dissipation_constant", "W/K", Better.Higher,
+        d => d.Sensor.DissipationConstantWattsPerKelvin, (d, v) => d with { Sensor = d.Sensor with { DissipationConstantWattsPerKelvin = v } },
+        d => (d.Sensor.DissipationConstantWattsPerKelvin ?? 0) * 1e3, "mount the sensor (or choose one) for a dissipation constant of at least");
+
+    private const int DesignDefaultsMaxBits = 24;
+
+    /// <summary>A value that has a sign (or none) and helps by shrinking: searched by magnitude towards zero, sign kept.</summary>
+    private static Knob Magnitude(string key, string unit, Func<FrontEndDesign, double> get, Func<FrontEndDesign, double, FrontEndDesign> set, string action) =>
+        new(key, unit, Better.Lower, d => (double?)Math.Abs(get(d)), (d, v) => set(d, (get(d) < 0 ? -1 : 1) * v), _ => 0, action)
+        {
+            Removal = Removals.GetValueOrDefault(key),
+        };
+
+
+    /// <summary>
+    /// The knobs that can shrink a finding, in the order to try them. <paramref name="worst"/> is the finding's worst
+    /// point; parts of an effect are ordered by their own size there.
+    /// </summary>
+    public static IReadOnlyList<Knob> For(string findingId, FrontEndDesign design, CheckPoint worst)
+    {
+        var buffered = design.Buffer is not null;
+        var buffer = buffered ? BufferGainBandwidth : AddBuffer;
+        switch (findingId)
+        {
+            case "settling":
+                return [AcquisitionTime, Reservoir, buffer];
+            case "reservoir-recovery":
+                return design.Filter.SeriesResistorOhms > 0 ? [SampleRate, SeriesResistor, buffer] : [SampleRate, buffer];
+            case "dc-loading":
+            {
+                var parts = new List<(Knob, double)>
+                {
+                    (PinLeakage, design.Adc.PinLeakageAmperes != 0 ? Math.Abs(worst.Estimates.LeakageVolts) : -1),
+                    (FixedTempco, design.Divider.FixedTempcoPerKelvin != 0 ? Math.Abs(worst.Estimates.FixedDriftVolts) : -1),
+                };
+                var knobs = Ordered(parts);
+                if (design.Adc.PinLeakageAmperes != 0) knobs.Add(buffered ? SeriesResistor : AddBuffer);
+                return knobs;
+            }
+            case "buffer-static" when buffered:
+            {
+                var s = Buffer.BufferStaticErrors.At(design, new FrontEnd.ClosedFormModel(design).At(worst.Celsius));
+                return Ordered([(BufferOffset, Present(design.Buffer!.OffsetVolts, s.OffsetVolts)),
+                    (BufferDrift, Present(design.Buffer.OffsetDriftVoltsPerKelvin, s.DriftVolts)),
+                    (BufferBias, Present(design.Buffer.BiasCurrentAmperes, s.BiasVolts))]);
+            }
+            case "converter":
+            {
+                var adc = design.Adc;
+                var x = worst.SampleVolts / (adc.ReferenceVolts ?? design.Divider.ExcitationVolts);
+                return Ordered([(AdcOffset, Present(adc.OffsetErrorLsb, adc.OffsetErrorLsb)),
+                    (AdcGain, Present(adc.GainError, adc.GainError * x * (1 << adc.Bits))),
+                    (AdcInl, Present(adc.InlLsb, adc.InlLsb * 4 * x * (1 - x))),
+                    (ReferenceTempco, Present(adc.ReferenceTempcoPerKelvin, adc.ReferenceTempcoPerKelvin * ((design.Check.BoardCelsius ?? worst.Celsius) - 25) * x * (1 << adc.Bits)))]);
+            }
+            case "self-heating":
+                return design.Sensor.DissipationConstantWattsPerKelvin is > 0 ? [Dissipation] : [];
+            case "resolution":
+                return [Bits];
+            case "buffer-recovery" when buffered:
+                return design.Buffer!.SlewRateVoltsPerSecond is null ? [BufferGainBandwidth] : [BufferGainBandwidth, BufferSlewRate];
+            case "buffer-noise" when buffered:
+                return design.Buffer!.NoiseVoltsPerRootHertz > 0 ? [BufferNoise] : [];
+            case "buffer-stability" when buffered:
+                return [Isolation];
+            case "buffer-output-clipped" when buffered:
+                return design.Buffer!.OutputSwingVolts > 0 ? [OutputSwing] : [];
+            default:
+                return [];
+        }
+    }
+
+    private static double Present(double value, double size) => value != 0 ? Math.Abs(size) : -1;
+
+    private static List<Knob> Ordered(IEnumerable<(Knob Knob, double Size)> parts) =>
+        [.. parts.Where(p => p.Size >= 0).OrderByDescending(p => p.Size).Select(p => p.Knob)];
+}

@@ -1,0 +1,42 @@
+using ThermVerify.Design;
+
+namespace ThermVerify.FrontEnd;
+
+/// <summary>One static error that enters the circuit and is given as a bound: its key, its size, and how to set it.</summary>
+internal sealed record CircuitBound(string Key, double Magnitude, Func<FrontEndDesign, double, FrontEndDesign> Set);
+
+/// <summary>
+/// The design's static errors written without a sign, which the check takes as bounds (docs/methods.md): pin leakage,
+/// the fixed resistor's tempco, and the op-amp's offset, drift and bias current enter the circuit; the converter's
+/// offset and gain errors and the reference's tempco are converter properties, and INL is always a bound. Errors
+/// written with a sign are part of the design as it stands.
+/// </summary>
+internal static class StaticBounds
+{
+    public static IReadOnlyList<CircuitBound> InCircuit(FrontEndDesign d)
+    {
+        var list = new List<CircuitBound>();
+        void Add(string key, double value, bool signed, Func<FrontEndDesign, double, FrontEndDesign> set)
+        {
+            if (value != 0 && !signed) list.Add(new CircuitBound(key, Math.Abs(value), set));
+        }
+        Add("adc.pin_leakage", d.Adc.PinLeakageAmperes, d.Adc.PinLeakageSigned, (x, v) => x with { Adc = x.Adc with { PinLeakageAmperes = v } });
+        Add("divider.fixed_tempco", d.Divider.FixedTempcoPerKelvin, d.Divider.FixedTempcoSigned, (x, v) => x with { Divider = x.Divider with { FixedTempcoPerKelvin = v } });
+        if (d.Buffer is { Subcircuit: null } b)
+        {
+            Add("buffer.offset_voltage", b.OffsetVolts, b.OffsetSigned, (x, v) => x with { Buffer = x.Buffer! with { OffsetVolts = v } });
+            Add("buffer.offset_drift", b.OffsetDriftVoltsPerKelvin, b.OffsetDriftSigned, (x, v) => x with { Buffer = x.Buffer! with { OffsetDriftVoltsPerKelvin = v } });
+            Add("buffer.bias_current", b.BiasCurrentAmperes, b.BiasCurrentSigned, (x, v) => x with { Buffer = x.Buffer! with { BiasCurrentAmperes = v } });
+        }
+        return list;
+    }
+
+    /// <summary>The design with every bound in the circuit at zero: what the bounds are added to.</summary>
+    public static FrontEndDesign Zeroed(FrontEndDesign d) => InCircuit(d).Aggregate(d, (x, b) => b.Set(x, 0));
+
+    /// <summary>Whether the check has two corners to take (any bound, in the circuit or the converter).</summary>
+    public static bool Any(FrontEndDesign d) =>
+        InCircuit(d).Count > 0 || d.Adc.InlLsb != 0
+        || (d.Adc.OffsetErrorLsb != 0 && !d.Adc.OffsetErrorSigned) || (d.Adc.GainError != 0 && !d.Adc.GainErrorSigned)
+        || (!d.Adc.IsRatiometric && d.Adc.ReferenceTempcoPerKelvin != 0 && !d.Adc.ReferenceTempcoSigned);
+}
