@@ -55,11 +55,11 @@ internal static class CheckCommand
             CheckRun? run = null;
             var outputs = new OutputSet(parsed.GetValue(force));
             if (parsed.GetValue(json) is { } jsonFile)
-                outputs.Add(jsonFile.ToString(), () => CheckJson.Write(run!.Result, designPath));
+                outputs.Add(jsonFile.ToString(), () => CheckJson.Write(run!.Result, run.Provenance, designPath));
             if (parsed.GetValue(junit) is { } junitFile)
-                outputs.Add(junitFile.ToString(), () => CheckJUnit.Write(run!.Result, run.Baseline));
+                outputs.Add(junitFile.ToString(), () => CheckJUnit.Write(run!.Result, run.Provenance, run.Baseline));
             if (parsed.GetValue(report) is { } reportFolder)
-                outputs.AddFolder(reportFolder.ToString(), () => ReportDirectory.Files(CheckReport.Build(run!.Result, designPath, run.Baseline)),
+                outputs.AddFolder(reportFolder.ToString(), () => ReportDirectory.Files(CheckReport.Build(run!.Result, run.Provenance, designPath, run.Baseline)),
                     ReportDirectory.ExpectedFiles);
             outputs.CheckTargets();
             using var chosen = EngineChoice.Create(parsed.GetValue(engine)!, parsed.GetValue(process));
@@ -74,7 +74,7 @@ internal static class CheckCommand
             outputs.Write();
 
             var output = parsed.InvocationConfiguration.Output;
-            output.Write(parsed.GetValue(quiet) ? CheckSummaryText.VerdictLine(run.Result) : CheckSummaryText.Render(run.Result));
+            output.Write(parsed.GetValue(quiet) ? CheckSummaryText.VerdictLine(run.Result) : CheckSummaryText.Render(run.Result, run.Provenance));
             if (run.Baseline is { } comparison)
                 output.Write(parsed.GetValue(quiet) ? BaselineTable.Headline(comparison) + "\n" : "\n" + BaselineTable.Render(comparison));
             if (parsed.GetValue(report) is { } written)

@@ -38,7 +38,7 @@ public class CHeaderCompileTests
             var faults = FaultAnalysis.Thresholds(model, FaultTolerances.None);
             var header = CHeaderRenderer.Render(new FirmwareHeaderContent($"Test front end {name}", "tv_test", model, table,
                 TableErrorAnalysis.Evaluate(model, table), faults,
-                model.Sensor is ThermVerify.Sensors.BetaThermistor ? ComputedCoefficients.Fit(model) : null));
+                model.Sensor is ThermVerify.Sensors.BetaThermistor ? ComputedCoefficients.Fit(model) : null), TestRun.Provenance);
             var output = CompileAndRun(header, model.Adc.MaxCode);
             var lines = output.Split('\n', StringSplitOptions.RemoveEmptyEntries);
             Assert.Equal(model.Adc.MaxCode + 1, lines.Length);
