@@ -14,13 +14,30 @@ public class NgspiceCheckTests
         var design = ExampleDesigns.Load(file);
         var options = new CheckOptions { MaximumSamplingPoints = 3, ComputeRemedies = false };
         var ours = FrontEndCheck.Run(design, options);
-        var theirs = FrontEndCheck.Run(design, options with { Engine = new NgspiceEngine(mode) });
+        using var engine = new NgspiceEngine(mode);
+        var theirs = FrontEndCheck.Run(design, options with { Engine = engine });
         Assert.Equal(ours.Passed, theirs.Passed);
+        // The provenance names ngspice and the version its own program reports (`ngspice -v`, the same build as the library here).
+        var stamp = ThermVerify.Api.RunStamp.Check(design, options with { Engine = engine });
+        Assert.Equal(mode == NgspiceMode.SharedLibrary ? "ngspice" : "ngspice (child process)", stamp.Engine);
+        Assert.Equal(VersionFromProgram(), stamp.EngineVersion);
         for (var i = 0; i < ours.Points.Count; i++)
         {
             // A sample within 0.01 LSB of a code boundary could round differently; none of these designs has one.
             Assert.Equal(ours.Points[i].Code, theirs.Points[i].Code);
             Tolerance.AssertClose(theirs.Points[i].ErrorKelvin, ours.Points[i].ErrorKelvin, 0, 1e-9, $"{file} at {ours.Points[i].Celsius} °C");
         }
+    }
+
+    private static string VersionFromProgram()
+    {
+        var start = new System.Diagnostics.ProcessStartInfo("ngspice", ["-v"]) { RedirectStandardOutput = true, RedirectStandardInput = true };
+        using var process = System.Diagnostics.Process.Start(start)!;
+        process.StandardInput.Close();
+        var text = process.StandardOutput.ReadToEnd();
+        process.WaitForExit();
+        var match = System.Text.RegularExpressions.Regex.Match(text, @"ngspice-(\S+)");
+        Assert.True(match.Success, $"ngspice -v printed no version: {text}");
+        return match.Groups[1].Value;
     }
 }
