@@ -42,6 +42,7 @@ internal static class BaselineCommand
                 Threads = parsed.GetValue(threads),
                 MaximumSamplingPoints = simulation.SamplingPoints(parsed),
                 Engine = chosen.Engine,
+                Progress = work.Progress(parsed, "sampling runs"),
                 Cancel = cancel,
             });
             outputs.Write();

@@ -53,6 +53,8 @@ internal static class CheckCommand
                 Threads = parsed.GetValue(threads),
                 ComputeRemedies = !parsed.GetValue(noRemedies),
                 MaximumSamplingPoints = simulation.SamplingPoints(parsed),
+                Progress = work.Progress(parsed, "sampling runs", parsed.GetValue(quiet)),
+                RemedyProgress = parsed.GetValue(noRemedies) ? null : work.Progress(parsed, "remedy searches", parsed.GetValue(quiet)),
                 Cancel = cancel,
                 Engine = chosen.Engine,
             }, parsed.GetValue(baseline)?.FullName);

@@ -1,5 +1,6 @@
 using ThermVerify.Design;
 using ThermVerify.FrontEnd;
+using ThermVerify.Limits;
 
 namespace ThermVerify.Check;
 
@@ -66,9 +67,19 @@ internal sealed class CheckEvaluation
         {
             null => SamplingOffsets.None(cases, temperatures.Count),
             SampleKinds.FirstOnly => SamplingOffsets.FirstOnly(sampled, cases, temperatures, dc.Base, settleVolts, options.Engine),
-            _ => SamplingOffsets.Run(sampled, cases, temperatures, indices, dc.Base, settleVolts, options.Threads, options.Cancel, options.Engine),
+            _ => SamplingOffsets.Run(sampled, cases, temperatures, indices, dc.Base, settleVolts, options.Threads, options.Cancel, options.Engine,
+                Counter(options.Progress, cases.Count * indices.Length)),
         };
         return new CheckEvaluation(design, model, reading, temperatures, cases, dc, offsets, Converter.Of(design), settleVolts, kinds ?? SampleKinds.Both);
+    }
+
+    /// <summary>Reports 0 of <paramref name="total"/> at once, then one more at every call (from worker threads); null without a listener.</summary>
+    private static Action? Counter(IProgress<RunProgress>? progress, int total)
+    {
+        if (progress is null) return null;
+        progress.Report(new RunProgress(0, total));
+        var done = 0;
+        return () => progress.Report(new RunProgress(Interlocked.Increment(ref done), total));
     }
 
     /// <summary>

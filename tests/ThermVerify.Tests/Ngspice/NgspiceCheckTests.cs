@@ -15,7 +15,10 @@ public class NgspiceCheckTests
         var options = new CheckOptions { MaximumSamplingPoints = 3, ComputeRemedies = false };
         var ours = FrontEndCheck.Run(design, options);
         using var engine = new NgspiceEngine(mode);
-        var theirs = FrontEndCheck.Run(design, options with { Engine = engine });
+        var progress = new List<ThermVerify.Limits.RunProgress>();
+        var theirs = FrontEndCheck.Run(design, options with { Engine = engine, Progress = new Progress(progress) });
+        // Every sampling transient through ngspice was reported: three grid temperatures for each precharge case.
+        Assert.Equal(new ThermVerify.Limits.RunProgress(3 * theirs.PrechargeCases.Count, 3 * theirs.PrechargeCases.Count), progress.MaxBy(p => p.Done));
         Assert.Equal(ours.Passed, theirs.Passed);
         // The provenance names ngspice and the version its own program reports (`ngspice -v`, the same build as the library here).
         var stamp = ThermVerify.Api.RunStamp.Check(design, options with { Engine = engine });
@@ -39,5 +42,14 @@ public class NgspiceCheckTests
         var match = System.Text.RegularExpressions.Regex.Match(text, @"ngspice-(\S+)");
         Assert.True(match.Success, $"ngspice -v printed no version: {text}");
         return match.Groups[1].Value;
+    }
+
+    /// <summary>Keeps the reports (they come from worker threads).</summary>
+    private sealed class Progress(List<ThermVerify.Limits.RunProgress> reports) : IProgress<ThermVerify.Limits.RunProgress>
+    {
+        public void Report(ThermVerify.Limits.RunProgress value)
+        {
+            lock (reports) reports.Add(value);
+        }
     }
 }
