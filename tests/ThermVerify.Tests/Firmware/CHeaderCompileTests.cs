@@ -1,4 +1,3 @@
-using System.Diagnostics;
 using System.Globalization;
 using ThermVerify.Design;
 using ThermVerify.Firmware;
@@ -71,28 +70,12 @@ public class CHeaderCompileTests
                 }
                 """);
             var exe = Path.Combine(folder.FullName, "table");
-            Run("gcc", $"-std=c99 -Wall -Wextra -Werror -pedantic -O2 -o \"{exe}\" main.c", folder.FullName);
-            return Run(exe, "", folder.FullName);
+            ExternalProgram.Run("gcc", ["-std=c99", "-Wall", "-Wextra", "-Werror", "-pedantic", "-O2", "-o", exe, "main.c"], folder.FullName);
+            return ExternalProgram.Run(exe, [], folder.FullName);
         }
         finally
         {
             folder.Delete(recursive: true);
         }
-    }
-
-    private static string Run(string file, string arguments, string workingDirectory)
-    {
-        var info = new ProcessStartInfo(file, arguments)
-        {
-            WorkingDirectory = workingDirectory,
-            RedirectStandardOutput = true,
-            RedirectStandardError = true,
-        };
-        using var process = Process.Start(info)!;
-        var stderr = process.StandardError.ReadToEndAsync();
-        var stdout = process.StandardOutput.ReadToEnd();
-        process.WaitForExit();
-        Assert.True(process.ExitCode == 0, $"{file} {arguments} failed with {process.ExitCode}:\n{stderr.Result}");
-        return stdout;
     }
 }

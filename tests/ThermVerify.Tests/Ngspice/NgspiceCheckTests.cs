@@ -34,11 +34,7 @@ public class NgspiceCheckTests
 
     private static string VersionFromProgram()
     {
-        var start = new System.Diagnostics.ProcessStartInfo("ngspice", ["-v"]) { RedirectStandardOutput = true, RedirectStandardInput = true };
-        using var process = System.Diagnostics.Process.Start(start)!;
-        process.StandardInput.Close();
-        var text = process.StandardOutput.ReadToEnd();
-        process.WaitForExit();
+        var text = ExternalProgram.Run("ngspice", ["-v"], Path.GetTempPath());
         var match = System.Text.RegularExpressions.Regex.Match(text, @"ngspice-(\S+)");
         Assert.True(match.Success, $"ngspice -v printed no version: {text}");
         return match.Groups[1].Value;
