@@ -1,6 +1,6 @@
-using ThermVerify.Provenance;
 using System.Text;
 using ThermVerify.Design;
+using ThermVerify.Provenance;
 using ThermVerify.Tolerances;
 using static ThermVerify.Reporting.Text.TextNumbers;
 

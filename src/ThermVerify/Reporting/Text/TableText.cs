@@ -1,6 +1,6 @@
-using ThermVerify.Provenance;
 using System.Text;
 using ThermVerify.Firmware;
+using ThermVerify.Provenance;
 using static ThermVerify.Reporting.Text.TextNumbers;
 
 namespace ThermVerify.Reporting.Text;
