@@ -26,6 +26,7 @@ internal static class BaselineCommand
         {
             design, outFile, force, threads,
         };
+        var simulation = SimulationOptions.AddTo(command);
         var work = WorkOptions.AddTo(command);
         command.SetAction((parsed, interrupt) => work.Run(parsed, interrupt, cancel =>
         {
@@ -35,7 +36,15 @@ internal static class BaselineCommand
             // Refuse before the simulations run rather than after.
             var outputs = new OutputSet(parsed.GetValue(force)).Add(target, () => BaselineFile.ToJson(baseline!));
             outputs.CheckTargets();
-            (baseline, var result) = Verifier.MakeBaseline(Verifier.LoadDesign(path), new CheckOptions { Threads = parsed.GetValue(threads), Cancel = cancel });
+            using var chosen = simulation.Engine(parsed);
+            (baseline, var result) = Verifier.MakeBaseline(Verifier.LoadDesign(path), new CheckOptions
+            {
+                Threads = parsed.GetValue(threads),
+                MaximumSamplingPoints = simulation.SamplingPoints(parsed),
+                Engine = chosen.Engine,
+                Progress = work.Progress(parsed, "sampling runs"),
+                Cancel = cancel,
+            });
             outputs.Write();
             parsed.InvocationConfiguration.Output.Write(BaselineText.Render(target, baseline, result.Passed));
             return ExitCodes.Success;

@@ -22,30 +22,15 @@ internal static class CheckCommand
         var junit = new Option<FileInfo?>("--junit") { Description = "also write JUnit XML: one test case per check and per finding" };
         var baseline = new Option<FileInfo?>("--baseline") { Description = "compare with a baseline (thermverify baseline); exit 1 when a figure got worse than its tolerance" };
         var force = new Option<bool>("--force") { Description = "replace existing output files (--json, --junit, the --report folder's report)" };
-        var samplingPoints = new Option<int>("--sampling-points")
-        {
-            Description = "simulate sampling at this many temperatures at most (every point of the sweep when it has fewer)",
-            DefaultValueFactory = _ => new CheckOptions().MaximumSamplingPoints,
-        };
-        var engine = new Option<string>("--engine")
-        {
-            Description = "simulation engine: built-in, or ngspice (needs the ngspice shared library; a design's own subcircuit needs ngspice)",
-            DefaultValueFactory = _ => EngineChoice.BuiltIn,
-        };
-        engine.AcceptOnlyFromAmong(EngineChoice.BuiltIn, EngineChoice.Ngspice);
-        var process = new Option<bool>("--ngspice-process") { Description = "with --engine ngspice: run every deck in a child 'ngspice -b' process instead of the shared library" };
         var command = new Command("check", "Verify a front end: closed form against simulation, every error in mV, LSB and K against the budget.")
         {
-            design, json, threads, noRemedies, quiet, report, junit, baseline, force, samplingPoints, engine, process,
+            design, json, threads, noRemedies, quiet, report, junit, baseline, force,
         };
+        var simulation = SimulationOptions.AddTo(command);
         var work = WorkOptions.AddTo(command);
         threads.Validators.Add(r =>
         {
             if (r.GetValueOrDefault<int>() is < 1 or > 1024) r.AddError("--threads must be between 1 and 1024");
-        });
-        samplingPoints.Validators.Add(r =>
-        {
-            if (r.GetValueOrDefault<int>() < 2) r.AddError("--sampling-points must be at least 2 (both ends of the range)");
         });
         command.SetAction((parsed, interrupt) => work.Run(parsed, interrupt, cancel =>
         {
@@ -55,26 +40,28 @@ internal static class CheckCommand
             CheckRun? run = null;
             var outputs = new OutputSet(parsed.GetValue(force));
             if (parsed.GetValue(json) is { } jsonFile)
-                outputs.Add(jsonFile.ToString(), () => CheckJson.Write(run!.Result, designPath));
+                outputs.Add(jsonFile.ToString(), () => CheckJson.Write(run!.Result, run.Provenance, designPath));
             if (parsed.GetValue(junit) is { } junitFile)
-                outputs.Add(junitFile.ToString(), () => CheckJUnit.Write(run!.Result, run.Baseline));
+                outputs.Add(junitFile.ToString(), () => CheckJUnit.Write(run!.Result, run.Provenance, run.Baseline));
             if (parsed.GetValue(report) is { } reportFolder)
-                outputs.AddFolder(reportFolder.ToString(), () => ReportDirectory.Files(CheckReport.Build(run!.Result, designPath, run.Baseline)),
+                outputs.AddFolder(reportFolder.ToString(), () => ReportDirectory.Files(CheckReport.Build(run!.Result, run.Provenance, designPath, run.Baseline)),
                     ReportDirectory.ExpectedFiles);
             outputs.CheckTargets();
-            using var chosen = EngineChoice.Create(parsed.GetValue(engine)!, parsed.GetValue(process));
+            using var chosen = simulation.Engine(parsed);
             run = Verifier.Check(loaded, new CheckOptions
             {
                 Threads = parsed.GetValue(threads),
                 ComputeRemedies = !parsed.GetValue(noRemedies),
-                MaximumSamplingPoints = parsed.GetValue(samplingPoints),
+                MaximumSamplingPoints = simulation.SamplingPoints(parsed),
+                Progress = work.Progress(parsed, "sampling runs", parsed.GetValue(quiet)),
+                RemedyProgress = parsed.GetValue(noRemedies) ? null : work.Progress(parsed, "remedy searches", parsed.GetValue(quiet)),
                 Cancel = cancel,
                 Engine = chosen.Engine,
             }, parsed.GetValue(baseline)?.FullName);
             outputs.Write();
 
             var output = parsed.InvocationConfiguration.Output;
-            output.Write(parsed.GetValue(quiet) ? CheckSummaryText.VerdictLine(run.Result) : CheckSummaryText.Render(run.Result));
+            output.Write(parsed.GetValue(quiet) ? CheckSummaryText.VerdictLine(run.Result) : CheckSummaryText.Render(run.Result, run.Provenance));
             if (run.Baseline is { } comparison)
                 output.Write(parsed.GetValue(quiet) ? BaselineTable.Headline(comparison) + "\n" : "\n" + BaselineTable.Render(comparison));
             if (parsed.GetValue(report) is { } written)

@@ -2,6 +2,7 @@ using System.CommandLine;
 using ThermVerify.Api;
 using ThermVerify.Components;
 using ThermVerify.Design;
+using ThermVerify.Provenance;
 using ThermVerify.Quantities;
 using ThermVerify.Reporting;
 using ThermVerify.Reporting.Text;
@@ -50,8 +51,9 @@ internal static class ChooseFixedCommand
             FixedResistorSearchOptions? options = null;
             var designPath = parsed.GetValue(design)!.ToString();
             var set = outputs.NewSet(parsed);
-            outputs.Declare(parsed, set, () => FixedResistorJson.Write(ranked!, loaded, options!, designPath),
-                () => FixedResistorReport.Build(ranked!, loaded, options!, designPath, parsed.GetValue(top)));
+            RunProvenance? provenance = null;
+            outputs.Declare(parsed, set, () => FixedResistorJson.Write(ranked!, loaded, options!, provenance!, designPath),
+                () => FixedResistorReport.Build(ranked!, loaded, options!, provenance!, designPath, parsed.GetValue(top)));
             set.CheckTargets();
             var goal = Objectives[parsed.GetValue(objective)!];
             options = new FixedResistorSearchOptions
@@ -68,10 +70,11 @@ internal static class ChooseFixedCommand
             if (options.MinimumOhms is { } minimum && options.MaximumOhms is { } maximum && !(minimum > 0 && maximum >= minimum))
                 throw new UsageException($"--min {parsed.GetValue(min)} and --max {parsed.GetValue(max)}: give a positive range with --min not above --max.");
             ranked = Verifier.ChooseFixed(loaded, options);
+            provenance = RunStamp.ChooseFixed(loaded, options);
             if (ranked.Count == 0)
                 throw new UsageException($"No {chosen} value lies between the bounds; widen --min/--max or choose a finer series.");
             set.Write();
-            parsed.InvocationConfiguration.Output.Write(FixedResistorText.Render(loaded, chosen, goal, ranked, parsed.GetValue(top)));
+            parsed.InvocationConfiguration.Output.Write(FixedResistorText.Render(loaded, chosen, goal, ranked, parsed.GetValue(top), provenance));
             outputs.Announce(parsed);
             return ExitCodes.Success;
         }));

@@ -2,6 +2,7 @@ using System.CommandLine;
 using ThermVerify.Api;
 using ThermVerify.Design;
 using ThermVerify.Files;
+using ThermVerify.Provenance;
 using ThermVerify.Reporting;
 using ThermVerify.Reporting.Text;
 using ThermVerify.Tolerances;
@@ -34,16 +35,17 @@ internal static class MonteCarloCommand
             var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
             var designPath = parsed.GetValue(design)!.ToString();
             MonteCarloResult? result = null;
+            RunProvenance? provenance = null;
             var set = outputs.NewSet(parsed);
-            outputs.Declare(parsed, set, () => MonteCarloJson.Write(result!, loaded, designPath, !parsed.GetValue(noSettling)),
-                () => MonteCarloReport.Build(result!, loaded, designPath, parsed.GetValue(minimumYield)));
+            outputs.Declare(parsed, set, () => MonteCarloJson.Write(result!, loaded, provenance!, designPath, !parsed.GetValue(noSettling)),
+                () => MonteCarloReport.Build(result!, loaded, provenance!, designPath, parsed.GetValue(minimumYield)));
             if (parsed.GetValue(csv) is { } envelopeFile)
                 set.Add(envelopeFile.ToString(), () => MonteCarloText.EnvelopeCsv(result!));
             if (parsed.GetValue(unitsCsv) is { } unitFile)
                 set.Add(unitFile.ToString(), () => MonteCarloText.UnitsCsv(result!));
             set.CheckTargets();
             var output = parsed.InvocationConfiguration.Output;
-            result = Verifier.MonteCarlo(loaded, new MonteCarloOptions
+            var options = new MonteCarloOptions
             {
                 Units = parsed.GetValue(units),
                 Seed = parsed.GetValue(seed),
@@ -51,9 +53,11 @@ internal static class MonteCarloCommand
                 SimulateSettling = !parsed.GetValue(noSettling),
                 Progress = work.Progress(parsed, "units"),
                 Cancel = cancel,
-            });
+            };
+            result = Verifier.MonteCarlo(loaded, options);
+            provenance = RunStamp.MonteCarlo(loaded, options);
             set.Write();
-            output.Write(MonteCarloText.Render(loaded, result));
+            output.Write(MonteCarloText.Render(loaded, result, provenance));
             outputs.Announce(parsed);
             var passed = parsed.GetValue(minimumYield) is not { } wanted || 100 * result.Yield >= wanted;
             return passed ? ExitCodes.Success : ExitCodes.CheckFailed;

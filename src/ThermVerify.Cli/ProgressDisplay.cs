@@ -1,3 +1,4 @@
+using ThermVerify.Limits;
 using ThermVerify.Tolerances;
 
 namespace ThermVerify.Cli;

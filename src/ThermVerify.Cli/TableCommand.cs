@@ -4,6 +4,7 @@ using ThermVerify.Api;
 using ThermVerify.Design;
 using ThermVerify.Files;
 using ThermVerify.Firmware;
+using ThermVerify.Provenance;
 using ThermVerify.Quantities;
 using ThermVerify.Reporting.Text;
 
@@ -38,22 +39,25 @@ internal static class TableCommand
         {
             var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
             FirmwareTableRun? run = null;
+            RunProvenance? provenance = null;
             var outputs = new OutputSet(parsed.GetValue(force));
             if (parsed.GetValue(header) is { } h)
-                outputs.Add(h.ToString(), () => CHeaderRenderer.Render(run!.Header));
+                outputs.Add(h.ToString(), () => CHeaderRenderer.Render(run!.Header, provenance!));
             if (parsed.GetValue(csv) is { } c)
                 outputs.Add(c.ToString(), () => TableCsvRenderer.Render(run!.Table, breakpointsOnly: !run.Table.IsDense));
             outputs.CheckTargets();
-            run = Verifier.Table(loaded, new TableRequest
+            var request = new TableRequest
             {
                 Scale = FixedPointUnit(parsed.GetValue(unit)!),
                 BoundKelvin = parsed.GetValue(bound) is { } b ? QuantityParser.Parse(b, UnitKind.Kelvin).Value : null,
                 Breakpoints = parsed.GetValue(breakpoints),
                 CorrectForLoading = parsed.GetValue(corrected),
                 Prefix = parsed.GetValue(prefix),
-            });
+            };
+            run = Verifier.Table(loaded, request);
+            provenance = RunStamp.Table(loaded, request);
             outputs.Write();
-            parsed.InvocationConfiguration.Output.Write(TableText.Render(run));
+            parsed.InvocationConfiguration.Output.Write(TableText.Render(run, provenance));
             return ExitCodes.Success;
         }));
         return command;

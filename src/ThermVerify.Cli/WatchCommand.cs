@@ -58,11 +58,12 @@ internal static class WatchCommand
                     {
                         var loaded = Verifier.LoadDesign(path);
                         files = new FileSet(DesignFiles.Of(path, loaded));
-                        var result = Verifier.Check(loaded, options).Result;
+                        var run = Verifier.Check(loaded, options);
+                        var result = run.Result;
                         output.Write($"[{DateTime.Now:HH:mm:ss}] {CheckSummaryText.VerdictLine(result)}");
                         if (previous is not null) output.Write(ChangeText.Render(previous, result));
                         if (parsed.GetValue(report) is { } folder)
-                            LiveReport.Write(CheckReport.Build(result, parsed.GetValue(design)!.ToString()), folder.FullName, ++stamp);
+                            LiveReport.Write(CheckReport.Build(result, run.Provenance, parsed.GetValue(design)!.ToString()), folder.FullName, ++stamp);
                         previous = result;
                     }
                     catch (Exception e) when (ExitCodeOf(e) is ExitCodes.BadInput or ExitCodes.SimulationFailed)

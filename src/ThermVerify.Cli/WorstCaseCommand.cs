@@ -28,14 +28,15 @@ internal static class WorstCaseCommand
             var loaded = DesignLoader.Load(parsed.GetValue(design)!.FullName);
             var designPath = parsed.GetValue(design)!.ToString();
             WorstCaseResult? result = null;
+            var provenance = RunStamp.WorstCase(loaded);
             var set = outputs.NewSet(parsed);
-            outputs.Declare(parsed, set, () => WorstCaseJson.Write(result!, loaded, designPath), () => WorstCaseReport.Build(result!, loaded, designPath));
+            outputs.Declare(parsed, set, () => WorstCaseJson.Write(result!, loaded, provenance, designPath), () => WorstCaseReport.Build(result!, loaded, provenance, designPath));
             if (parsed.GetValue(csv) is { } file)
                 set.Add(file.ToString(), () => WorstCaseText.Csv(result!));
             set.CheckTargets();
             result = Verifier.WorstCase(loaded, new WorstCaseOptions { Threads = parsed.GetValue(threads), Progress = work.Progress(parsed, "units"), Cancel = cancel });
             set.Write();
-            parsed.InvocationConfiguration.Output.Write(WorstCaseText.Render(loaded, result));
+            parsed.InvocationConfiguration.Output.Write(WorstCaseText.Render(loaded, result, provenance));
             outputs.Announce(parsed);
             return result.WithinBudget ? ExitCodes.Success : ExitCodes.CheckFailed;
         }));

@@ -58,6 +58,15 @@ public sealed class NgspiceEngine : ICheckEngine, IDisposable
 
     public string Name => Mode == NgspiceMode.SharedLibrary ? "ngspice" : "ngspice (child process)";
 
+    /// <summary>
+    /// ngspice's version: the shared library states it when it starts (so it is known once a deck has run in a worker);
+    /// the program is asked once with <c>ngspice -v</c>.
+    /// </summary>
+    public string? Version => Mode == NgspiceMode.ChildProcess ? programVersion.Value : libraryVersion;
+
+    private readonly Lazy<string?> programVersion = new(NgspiceProcess.Version);
+    private volatile string? libraryVersion;
+
     IReadOnlyList<double[]> ICheckEngine.TemperatureSweep(Circuit circuit, IReadOnlyList<double> temperaturesCelsius, IReadOnlyList<string> nodes)
     {
         var sweep = DcTemperatureSweep.From(temperaturesCelsius);
@@ -103,7 +112,9 @@ public sealed class NgspiceEngine : ICheckEngine, IDisposable
             var worker = idle.TryTake(out var ready) ? ready : NgspiceWorker.Start(workerLibrary);
             try
             {
-                return worker.Run(deck, deckTimeLimit);
+                var result = worker.Run(deck, deckTimeLimit);
+                libraryVersion ??= NgspiceBanner.Version(result.Output);
+                return result;
             }
             finally
             {

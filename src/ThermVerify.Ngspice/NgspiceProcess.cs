@@ -89,6 +89,23 @@ internal static class NgspiceProcess
         }
     }
 
+    /// <summary>The version <c>ngspice -v</c> reports ("39"), or null when it reports none.</summary>
+    public static string? Version()
+    {
+        if (FindExecutable() is not { } executable) return null;
+        var start = new ProcessStartInfo(executable, ["-v"])
+        {
+            RedirectStandardOutput = true, RedirectStandardError = true, RedirectStandardInput = true, UseShellExecute = false,
+        };
+        using var process = Process.Start(start);
+        if (process is null) return null;
+        process.StandardInput.Close();
+        var stdout = process.StandardOutput.ReadToEndAsync();
+        _ = process.StandardError.ReadToEndAsync();
+        WaitOrKill(process, TimeSpan.FromSeconds(30));
+        return NgspiceBanner.Version(stdout.Result.Split('\n'));
+    }
+
     private static string? FindExecutable()
     {
         var path = Environment.GetEnvironmentVariable("PATH") ?? "";

@@ -20,6 +20,9 @@ internal static unsafe class NgspiceSession
     private static readonly NativeMethods.ControlledExit OnExit = (status, _, _, _, _) => { _exitStatus = status; return 0; };
     private static readonly NativeMethods.BackgroundThreadRunning OnBackground = (_, _, _) => 0;
 
+    /// <summary>What the library printed when it started (its version among it); every result carries it.</summary>
+    private static List<string> _banner = [];
+
     private static bool _initialised;
     private static int? _exitStatus;
 
@@ -42,7 +45,7 @@ internal static unsafe class NgspiceSession
                 ThrowOnErrors("ngspice could not load the deck");
                 NativeMethods.Command("run");
                 ThrowOnErrors("ngspice could not run the deck");
-                return new NgspiceResult(ReadPlots(), [.. Output]);
+                return new NgspiceResult(ReadPlots(), [.. _banner, .. Output]);
             }
             finally
             {
@@ -56,6 +59,7 @@ internal static unsafe class NgspiceSession
     {
         if (_initialised) return;
         NativeMethods.Init(OnText, OnStatus, OnExit, null, null, OnBackground, IntPtr.Zero);
+        _banner = [.. Output.Where(line => NgspiceBanner.Version([line]) is not null)];
         _initialised = true;
     }
 

@@ -33,9 +33,10 @@ public static class Verifier
         var baseline = baselinePath is null ? null : BaselineFile.Read(baselinePath); // a bad baseline is refused before the work
         using var scope = Work.Scope(options?.Cancel ?? CancellationToken.None);
         var result = FrontEndCheck.Run(design, options);
+        var provenance = RunStamp.Check(design, options);
         var comparison = baseline is null ? null
-            : BaselineComparison.Compare(baselinePath!, baseline, BaselineFigures.From(result, Provenance.ToolVersion.Current));
-        return new CheckRun(result, comparison);
+            : BaselineComparison.Compare(baselinePath!, baseline, BaselineFigures.From(result, provenance));
+        return new CheckRun(result, provenance, comparison);
     }
 
     /// <summary>Two designs checked alike (an unbuffered and a buffered one, two op-amps).</summary>
@@ -45,12 +46,13 @@ public static class Verifier
         return new(FrontEndCheck.Run(first, options), FrontEndCheck.Run(second, options));
     }
 
-    /// <summary>Checks the design (remedies off) and returns the key figures a later check compares with.</summary>
+    /// <summary>Checks the design (remedies off) and returns the key figures a later check compares with, with the run's provenance.</summary>
     public static (Baseline Baseline, CheckResult Result) MakeBaseline(FrontEndDesign design, CheckOptions? options = null)
     {
         using var scope = Work.Scope(options?.Cancel ?? CancellationToken.None);
-        var result = FrontEndCheck.Run(design, (options ?? new CheckOptions()) with { ComputeRemedies = false });
-        return (BaselineFigures.From(result, Provenance.ToolVersion.Current), result);
+        var checkOptions = (options ?? new CheckOptions()) with { ComputeRemedies = false };
+        var result = FrontEndCheck.Run(design, checkOptions);
+        return (BaselineFigures.From(result, RunStamp.Check(design, checkOptions)), result);
     }
 
     /// <summary>Extreme values over the tolerance box (each corner verified in full) and root-sum-square.</summary>

@@ -21,10 +21,15 @@ public sealed record FigureChange(string Id, string Description, string Unit, do
 /// <summary>
 /// A check compared with its baseline. A figure is worse when it moves the wrong way by more than its tolerance
 /// (|now − before| &gt; tolerance); a value that no longer exists (an unreadable code) is worse than any number.
-/// New and gone figures are listed but do not fail the comparison.
+/// New and gone figures are listed but do not fail the comparison. <see cref="RunDifferences"/> says how the run that
+/// made the baseline differs from this one (another engine, other settings, another version, other files), because
+/// a figure may then move for that reason alone.
 /// </summary>
 public sealed record BaselineComparison(string BaselinePath, bool DesignChanged, IReadOnlyList<FigureChange> Figures)
 {
+    /// <summary>One sentence per difference; empty when the runs agree.</summary>
+    public IReadOnlyList<string> RunDifferences { get; init; } = [];
+
     public bool Passed => Figures.All(f => f.Change != Change.Worse);
 
     public static BaselineComparison Compare(string baselinePath, Baseline before, Baseline now)
@@ -39,7 +44,13 @@ public sealed record BaselineComparison(string BaselinePath, bool DesignChanged,
         }
         rows.AddRange(before.Figures.Where(b => now.Figures.All(n => n.Id != b.Id))
             .Select(b => new FigureChange(b.Id, b.Description, b.Unit, b.Value, null, b.Tolerance, b.Better, Change.Gone)));
-        return new BaselineComparison(baselinePath, before.DesignSha256 != now.DesignSha256, rows);
+        IReadOnlyList<string> differences = (before.Provenance, now.Provenance) switch
+        {
+            ({ } then, { } current) => current.DifferencesFrom(then),
+            (null, _) => [$"the baseline does not say which engine and settings made it (written by thermverify {before.ToolVersion}); write it again to record them"],
+            _ => [],
+        };
+        return new BaselineComparison(baselinePath, before.DesignSha256 != now.DesignSha256, rows) { RunDifferences = differences };
     }
 
     private static Change Classify(double? before, double? now, double tolerance, Better better)

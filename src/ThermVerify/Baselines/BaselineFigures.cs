@@ -19,7 +19,7 @@ internal static class BaselineFigures
     public const double KelvinTolerance = 0.01;
     public const double LsbTolerance = 0.05;
 
-    public static Baseline From(CheckResult result, string toolVersion)
+    public static Baseline From(CheckResult result, Provenance.RunProvenance provenance)
     {
         var design = result.Design;
         var figures = new List<BaselineFigure>();
@@ -35,7 +35,7 @@ internal static class BaselineFigures
         figures.Add(Lsb("converter.worst", "worst code shift from the converter's static errors (offset, gain, INL, reference)", result, p => p.Simulated.ConverterVolts, lsb));
         figures.Add(new BaselineFigure("points.over-budget", "points outside the budget", result.Points.Count(p => !p.WithinBudget), "points", Better.Lower, 0));
         figures.Add(new BaselineFigure("findings.fail", "failing findings", result.Findings.Count(f => f.Severity == Severity.Fail), "findings", Better.Lower, 0));
-        return new Baseline(design.Name, Fingerprint(design), toolVersion, figures);
+        return new Baseline(design.Name, Fingerprint(design), provenance.ToolVersion, figures) { Provenance = provenance };
     }
 
     public static string Fingerprint(FrontEndDesign design) =>

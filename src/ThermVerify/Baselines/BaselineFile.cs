@@ -1,11 +1,12 @@
 using System.Text.Json;
 using System.Text.Json.Nodes;
 using ThermVerify.Files;
+using ThermVerify.Provenance;
 
 namespace ThermVerify.Baselines;
 
 /// <summary>
-/// A baseline on disk: JSON, schema "thermverify.baseline/1". Written atomically and never over an existing file
+/// A baseline on disk: JSON, schema "thermverify.baseline/1", with the provenance of the run that made it. Written atomically and never over an existing file
 /// unless asked; read strictly, so a hand-edited file with a missing or mistyped field is refused with its name.
 /// </summary>
 public static class BaselineFile
@@ -32,6 +33,7 @@ public static class BaselineFile
             ["schema"] = Schema,
             ["tool"] = baseline.ToolVersion,
             ["design"] = new JsonObject { ["name"] = baseline.DesignName, ["sha256"] = baseline.DesignSha256 },
+            ["provenance"] = baseline.Provenance is { } p ? ProvenanceJson.ToJson(p) : null,
             ["figures"] = figures,
         };
         return root.ToJsonString(Indented) + "\n";
@@ -66,7 +68,16 @@ public static class BaselineFile
         var figures = list.Select((node, i) => Figure(node, path, $"figures[{i}]")).ToList();
         var duplicate = figures.GroupBy(f => f.Id).FirstOrDefault(g => g.Count() > 1);
         if (duplicate is not null) throw new BaselineException($"{path}: figure \"{duplicate.Key}\" appears twice; keep one");
-        return new Baseline(Text(design, "name", path, "design"), Text(design, "sha256", path, "design"), Text(doc, "tool", path, "the top level"), figures);
+        var provenance = doc["provenance"] switch
+        {
+            null => null, // written before baselines carried it
+            JsonObject o => ProvenanceJson.FromJson(o, (field, expected) => Bad(path, $"provenance.{field}", expected)),
+            _ => throw Bad(path, "provenance", "an object"),
+        };
+        return new Baseline(Text(design, "name", path, "design"), Text(design, "sha256", path, "design"), Text(doc, "tool", path, "the top level"), figures)
+        {
+            Provenance = provenance,
+        };
     }
 
     private static BaselineFigure Figure(JsonNode? node, string path, string where)

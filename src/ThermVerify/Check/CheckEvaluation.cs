@@ -1,5 +1,6 @@
 using ThermVerify.Design;
 using ThermVerify.FrontEnd;
+using ThermVerify.Limits;
 
 namespace ThermVerify.Check;
 
@@ -66,9 +67,19 @@ internal sealed class CheckEvaluation
         {
             null => SamplingOffsets.None(cases, temperatures.Count),
             SampleKinds.FirstOnly => SamplingOffsets.FirstOnly(sampled, cases, temperatures, dc.Base, settleVolts, options.Engine),
-            _ => SamplingOffsets.Run(sampled, cases, temperatures, indices, dc.Base, settleVolts, options.Threads, options.Cancel, options.Engine),
+            _ => SamplingOffsets.Run(sampled, cases, temperatures, indices, dc.Base, settleVolts, options.Threads, options.Cancel, options.Engine,
+                Counter(options.Progress, cases.Count * indices.Length)),
         };
         return new CheckEvaluation(design, model, reading, temperatures, cases, dc, offsets, Converter.Of(design), settleVolts, kinds ?? SampleKinds.Both);
+    }
+
+    /// <summary>Reports 0 of <paramref name="total"/> at once, then one more at every call (from worker threads); null without a listener.</summary>
+    private static Action? Counter(IProgress<RunProgress>? progress, int total)
+    {
+        if (progress is null) return null;
+        progress.Report(new RunProgress(0, total));
+        var done = 0;
+        return () => progress.Report(new RunProgress(Interlocked.Increment(ref done), total));
     }
 
     /// <summary>
@@ -84,6 +95,9 @@ internal sealed class CheckEvaluation
         return ReferenceEquals(offsets, Offsets) ? this
             : new CheckEvaluation(Design, Model, Reading, Temperatures, Cases, Dc, offsets, Converter, SettleVolts, Kinds);
     }
+
+    /// <summary>No offset, gain or INL at any corner and no reference drift: the code is the sample over the nominal LSB.</summary>
+    private bool ConverterIsIdeal => Converter.Cases.All(c => c == ConverterErrors.None) && Converter.ReferenceTempcoPerKelvin == 0;
 
     private CheckPoint PointAt(int i)
     {
@@ -103,7 +117,9 @@ internal sealed class CheckEvaluation
         var level = choice.First ? staticPin : averagePin;
         var sample = level + (choice.First ? first : steady);
         var warmed = choice.SampleVolts;
-        var converted = choice.UnroundedCode * Model.Adc.LsbVolts;
+        // A converter without errors converts the sample itself: taken as it is, the converter's part is exactly zero
+        // (through code × LSB it would be the rounding of that product, 1e-13 K, shown as an effect the design lacks).
+        var converted = ConverterIsIdeal ? warmed : choice.UnroundedCode * Model.Adc.LsbVolts;
         double T(double volts) => Model.CelsiusAtVolts(volts);
         double[] parts =
         [
@@ -115,9 +131,14 @@ internal sealed class CheckEvaluation
             T(afterBuffer) - T(ideal),                      // buffer
             T(warmed) - T(sample),                          // self-heating
         ];
+        var unmappable = parts.Any(p => !double.IsFinite(p));
         for (var k = 0; k < parts.Length; k++) if (!double.IsFinite(parts[k])) parts[k] = 0;
         var error = choice.ErrorKelvin;
-        var contributions = new ErrorContributions(parts[0], parts[1], parts[2], parts[3], parts[4], parts[5], parts[6], error - parts.Sum());
+        // The parts telescope from T(ideal), the true temperature, to the reported one, so they add up to the error but
+        // for the rounding of the differences (1e-13 K); the rest is what no part could carry (a voltage outside the
+        // sensor's range, whose temperature does not exist), and exactly zero otherwise rather than that rounding.
+        var rest = unmappable ? error - parts.Sum() : 0;
+        var contributions = new ErrorContributions(parts[0], parts[1], parts[2], parts[3], parts[4], parts[5], parts[6], rest);
         var volts = new VoltageErrors(afterBuffer - ideal, staticPin - afterBuffer, level - staticPin, sample - level, warmed - sample,
             converted - warmed, first, steady, averagePin - staticPin);
         var cornerName = Dc.Corners.Count > 1 ? (choice.Corner == 0 ? "bounds up" : "bounds down") : "";

@@ -2,6 +2,7 @@ using ThermVerify.Check.Buffer;
 using ThermVerify.Design;
 using ThermVerify.Firmware;
 using ThermVerify.FrontEnd;
+using ThermVerify.Limits;
 
 namespace ThermVerify.Check;
 
@@ -23,6 +24,12 @@ public sealed record CheckOptions
 
     /// <summary>The engine that runs the temperature sweeps and sampling transients (remedy searches included).</summary>
     public ICheckEngine Engine { get; init; } = BuiltInEngine.Instance;
+
+    /// <summary>Told of every sampling transient of the check grid as it completes (from worker threads): the long part of a check, through ngspice above all.</summary>
+    public IProgress<RunProgress>? Progress { get; init; }
+
+    /// <summary>Told of every finding whose remedy search has ended (each search checks the design again, several times).</summary>
+    public IProgress<RunProgress>? RemedyProgress { get; init; }
 }
 
 /// <summary>

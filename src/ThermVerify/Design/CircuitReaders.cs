@@ -134,8 +134,9 @@ internal static class CircuitReaders
                 "Include a file in the design's folder by its path relative to the design file.");
         try
         {
-            var (_, text) = Files.InputFile.ReadInside(s.BaseDirectory, included, Limits.Work.Limits.MaximumFileBytes);
-            return (included, text);
+            var (_, content) = Files.InputFile.ReadInside(s.BaseDirectory, included, Limits.Work.Limits.MaximumFileBytes);
+            s.NoteFileRead(included, content.Sha256);
+            return (included, content.Text);
         }
         catch (Files.InputFileException e)
         {

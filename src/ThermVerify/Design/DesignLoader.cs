@@ -1,5 +1,6 @@
 using ThermVerify.Files;
 using ThermVerify.Limits;
+using ThermVerify.Provenance;
 using ThermVerify.Sensors;
 
 namespace ThermVerify.Design;
@@ -15,10 +16,10 @@ internal static class DesignLoader
     public static FrontEndDesign Load(string path)
     {
         var full = Path.GetFullPath(path);
-        string text;
+        InputText read;
         try
         {
-            text = InputFile.ReadText(full, Work.Limits.MaximumFileBytes);
+            read = InputFile.Read(full, Work.Limits.MaximumFileBytes);
         }
         catch (InputFileException e)
         {
@@ -28,12 +29,13 @@ internal static class DesignLoader
         {
             throw new DesignException(path, 1, 1, "", $"cannot read the design file ({e.Message.TrimEnd('.')})", "Check the path and the file's permissions.");
         }
-        return Parse(text, path, Path.GetDirectoryName(full) ?? ".");
+        return Parse(read.Text, path, Path.GetDirectoryName(full) ?? ".", read.Sha256);
     }
 
     /// <param name="sourceName">Name used in error messages, usually the path as the user gave it.</param>
     /// <param name="baseDirectory">Folder that relative paths in the design are resolved against (and must stay inside).</param>
-    public static FrontEndDesign Parse(string text, string sourceName, string baseDirectory)
+    /// <param name="sha256">SHA-256 of the design file's bytes as read; of the text's UTF-8 bytes when not given.</param>
+    public static FrontEndDesign Parse(string text, string sourceName, string baseDirectory, string? sha256 = null)
     {
         if (text.Length > Work.Limits.MaximumFileBytes)
             throw new DesignException(sourceName, 1, 1, "", $"the design is larger than the limit of {Work.Limits.MaximumFileBytes} bytes",
@@ -58,6 +60,8 @@ internal static class DesignLoader
             Check = CheckReader.Read(root.RequiredSection("check", "Add a [check] section (range, budget)."), model.ValidRange),
             Tolerances = root.Section("tolerances") is { } tolerances ? ToleranceReader.Read(tolerances) : ToleranceSpec.Default,
         };
+        var designFile = new SourceFile(Path.GetFileName(sourceName), sha256 ?? DesignDigest.OfText(sourceName, text).Sha256);
+        design = design with { Source = new DesignDigest([designFile, .. root.FilesRead]) };
         CheckWork(root.Section("check")!, design.Check);
         return design;
     }

@@ -13,7 +13,7 @@ namespace ThermVerify.Design;
 /// </summary>
 internal static class DesignPaths
 {
-    public static (string FullPath, string Text) Read(TomlSection section, string key, string relative)
+    public static (string FullPath, InputText Content) Read(TomlSection section, string key, string relative)
     {
         if (string.IsNullOrWhiteSpace(relative))
             throw section.ErrorAtValue(key, "empty file name", "Name a file next to the design file, e.g. \"rt.csv\".");

@@ -17,4 +17,10 @@ public sealed record FrontEndDesign
     public required CheckSpec Check { get; init; }
     /// <summary>How tolerances are spread for the worst-case and Monte Carlo analyses.</summary>
     public ToleranceSpec Tolerances { get; init; } = ToleranceSpec.Default;
+
+    /// <summary>
+    /// The files the design was read from, with their SHA-256 (every output names the design by it); null for a
+    /// design built in code. A changed copy (a remedy, a built unit) keeps it: it still comes from those files.
+    /// </summary>
+    public Provenance.DesignDigest? Source { get; init; }
 }

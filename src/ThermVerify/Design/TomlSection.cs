@@ -33,7 +33,19 @@ internal sealed partial class TomlSection
 
     public string BaseDirectory => _context.BaseDirectory;
 
-    private sealed record Context(string SourceName, string Text, string BaseDirectory, TomlMetadataStore Store);
+    /// <summary>The files this design has read so far (beyond the design file itself), in order, for its digest.</summary>
+    public IReadOnlyList<Provenance.SourceFile> FilesRead => _context.FilesRead;
+
+    private sealed record Context(string SourceName, string Text, string BaseDirectory, TomlMetadataStore Store)
+    {
+        public List<Provenance.SourceFile> FilesRead { get; } = [];
+    }
+
+    /// <summary>Notes a file the design read (by its path relative to the design's folder), once, for the design's digest.</summary>
+    public void NoteFileRead(string relative, string sha256)
+    {
+        if (_context.FilesRead.All(f => f.Name != relative)) _context.FilesRead.Add(new Provenance.SourceFile(relative, sha256));
+    }
 
     /// <summary>Parses the whole document; syntax errors and duplicate keys become <see cref="DesignException"/>.</summary>
     public static TomlSection Open(string text, string sourceName, string baseDirectory)
@@ -338,7 +350,12 @@ internal sealed partial class TomlSection
     }
 
     /// <summary>The file a key names, resolved inside the design's folder and read once: its real path and its text.</summary>
-    public (string FullPath, string Text) ReadFile(string key, string relative) => DesignPaths.Read(this, key, relative);
+    public (string FullPath, string Text) ReadFile(string key, string relative)
+    {
+        var (fullPath, content) = DesignPaths.Read(this, key, relative);
+        NoteFileRead(relative, content.Sha256);
+        return (fullPath, content.Text);
+    }
 
     private static string ExampleUnit(UnitKind kind) => kind switch
     {

@@ -18,7 +18,10 @@ internal static class InputFile
     private const int MaximumLinkHops = 40;
 
     /// <summary>A file the user names directly (the design itself): any path, links allowed, but only a regular file of bounded size.</summary>
-    public static string ReadText(string path, long maximumBytes)
+    public static string ReadText(string path, long maximumBytes) => Read(path, maximumBytes).Text;
+
+    /// <summary>As <see cref="ReadText"/>, with the SHA-256 of the bytes read (what every output names the design by).</summary>
+    public static InputText Read(string path, long maximumBytes)
     {
         var full = Path.GetFullPath(path);
         if (!UnixFileStatus.Supported)
@@ -29,9 +32,9 @@ internal static class InputFile
 
     /// <summary>
     /// A file a design names, relative to <paramref name="folder"/>: resolved to its real location, refused unless
-    /// that lies inside the real <paramref name="folder"/>; returns the real path and the text.
+    /// that lies inside the real <paramref name="folder"/>; returns the real path and the text with its SHA-256.
     /// </summary>
-    public static (string RealPath, string Text) ReadInside(string folder, string relative, long maximumBytes)
+    public static (string RealPath, InputText Content) ReadInside(string folder, string relative, long maximumBytes)
     {
         var (real, _) = ResolveInside(folder, relative);
         if (!UnixFileStatus.Supported)
@@ -107,7 +110,7 @@ internal static class InputFile
         }
     }
 
-    private static string ReadOpened(string real, long maximumBytes, bool requireSingleName, string? expectedRealPath)
+    private static InputText ReadOpened(string real, long maximumBytes, bool requireSingleName, string? expectedRealPath)
     {
         var before = UnixFileStatus.OfPath(real) ?? throw new InputFileException("was not found", "Check the name; paths are relative to the design file.");
         RequireRegular(before.Kind);
@@ -127,7 +130,7 @@ internal static class InputFile
         return Decode(stream, maximumBytes);
     }
 
-    private static string ReadPortable(string path, long maximumBytes, bool checkLinks)
+    private static InputText ReadPortable(string path, long maximumBytes, bool checkLinks)
     {
         var info = new FileInfo(path);
         if (!info.Exists)
@@ -141,7 +144,7 @@ internal static class InputFile
     }
 
     /// <summary>Reads at most the limit (a file that grows while it is read is caught too) and decodes UTF-8, a byte-order mark allowed.</summary>
-    private static string Decode(Stream stream, long maximumBytes)
+    private static InputText Decode(Stream stream, long maximumBytes)
     {
         var buffer = new MemoryStream();
         var chunk = new byte[81920];
@@ -151,8 +154,10 @@ internal static class InputFile
             buffer.Write(chunk, 0, read);
             if (buffer.Length > maximumBytes) throw TooLarge(buffer.Length, maximumBytes);
         }
+        var bytes = buffer.GetBuffer().AsSpan(0, (int)buffer.Length);
+        var sha256 = Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(bytes));
         using var reader = new StreamReader(new MemoryStream(buffer.GetBuffer(), 0, (int)buffer.Length), new UTF8Encoding(false), detectEncodingFromByteOrderMarks: true);
-        return reader.ReadToEnd();
+        return new InputText(reader.ReadToEnd(), sha256);
     }
 
     private static void RequireRegular(FileKind kind)
@@ -173,3 +178,6 @@ internal static class InputFile
         new($"is larger than the limit of {maximumBytes} bytes (at least {bytes} bytes)",
             "A design file, table or subcircuit of this size is not plausible; if it is really meant, raise --max-file-size.");
 }
+
+/// <summary>A file's text and the SHA-256 of its bytes as read (before decoding), in lower-case hex.</summary>
+internal readonly record struct InputText(string Text, string Sha256);

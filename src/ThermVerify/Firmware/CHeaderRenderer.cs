@@ -2,17 +2,20 @@ using System.Globalization;
 using System.Text;
 using ThermVerify.Design;
 using ThermVerify.FrontEnd;
+using ThermVerify.Provenance;
 using ThermVerify.Quantities;
 
 namespace ThermVerify.Firmware;
 
 /// <summary>
 /// Renders a self-contained C99 header: the table as const arrays, macros for the unit, span and fault thresholds,
-/// and a static inline routine whose integer arithmetic <see cref="FirmwareTable.Evaluate"/> reproduces exactly.
+/// and a static inline routine whose integer arithmetic <see cref="FirmwareTable.Evaluate"/> reproduces exactly. The
+/// comment block names where the header came from (tool, design files by SHA-256, settings), so a header found in a
+/// firmware tree can be traced to the design that made it.
 /// </summary>
 public static class CHeaderRenderer
 {
-    public static string Render(FirmwareHeaderContent content)
+    public static string Render(FirmwareHeaderContent content, RunProvenance provenance)
     {
         content.Validated();
         var (p, m, t) = (content.Prefix, content.Model, content.Table);
@@ -35,6 +38,8 @@ public static class CHeaderRenderer
         Line($" * Error:   table minus true temperature from {content.Error.MinErrorKelvin:+0.0000;-0.0000} K (code {content.Error.MinErrorCode}) to {content.Error.MaxErrorKelvin:+0.0000;-0.0000} K (code {content.Error.MaxErrorCode});");
         Line($" *          the converter's own quantisation is up to +/-{content.Error.HalfCodeKelvin:0.0000} K (code {content.Error.HalfCodeAtCode}).");
         Line($" * Faults:  a code below {P}_FAULT_BELOW_CODE or above {P}_FAULT_ABOVE_CODE is an open or shorted sensor or fixed resistor.");
+        Line($" * Made by: thermverify {Ascii(provenance.ToolVersion)} ({Ascii(provenance.EngineText)}; {Ascii(provenance.SettingsText)})");
+        Line($" * Design:  {Ascii(provenance.DesignText())}");
         Line($" * Caution: simulation does not replace measurement on hardware; a safety function needs independent protection.");
         Line($" */");
         Line($"#ifndef {P}_H");

@@ -15,6 +15,9 @@ public interface ICheckEngine
     /// <summary>A short name for reports ("built-in", "ngspice").</summary>
     string Name { get; }
 
+    /// <summary>The engine's own version where it reports one (ngspice's, once it has run a deck), for every output's provenance.</summary>
+    string? Version => null;
+
     /// <summary>The voltage of each of <paramref name="nodes"/> at every temperature, as SPICE's <c>.dc temp</c>.</summary>
     internal IReadOnlyList<double[]> TemperatureSweep(Circuit circuit, IReadOnlyList<double> temperaturesCelsius, IReadOnlyList<string> nodes);
 

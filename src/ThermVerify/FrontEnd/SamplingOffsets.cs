@@ -17,7 +17,7 @@ internal sealed record SamplingOffsets(
     IReadOnlyList<double[]> SteadyVolts)
 {
     public static SamplingOffsets Run(FrontEndDesign design, IReadOnlyList<PrechargeCase> cases, IReadOnlyList<double> temperatures,
-        int[] indices, DcLevels dc, double settleVolts, int threads, CancellationToken cancel, ICheckEngine engine)
+        int[] indices, DcLevels dc, double settleVolts, int threads, CancellationToken cancel, ICheckEngine engine, Action? runDone = null)
     {
         var outcomes = new List<SamplingOutcome>();
         var first = new double[cases.Count][];
@@ -25,7 +25,7 @@ internal sealed record SamplingOffsets(
         for (var c = 0; c < cases.Count; c++)
         {
             var pre = cases[c].Volts;
-            var sampling = SettlingGrid.Run(design, pre, temperatures, indices, settleVolts, threads, cancel, engine);
+            var sampling = SettlingGrid.Run(design, pre, temperatures, indices, settleVolts, threads, cancel, engine, runDone);
             outcomes.AddRange(sampling);
             var firstAtGrid = FirstSamples(design, pre, temperatures, indices, sampling, settleVolts, threads, cancel, engine);
             first[c] = SettlingGrid.Interpolate(temperatures, indices, g => firstAtGrid[g] - dc.StaticPinVolts[indices[g]]);

@@ -19,11 +19,14 @@ internal static class SettlingGrid
     }
 
     public static SamplingOutcome[] Run(FrontEndDesign design, double? prechargeVolts, IReadOnlyList<double> temperatures,
-        int[] indices, double settleVolts, int threads, CancellationToken cancel, ICheckEngine? engine = null)
+        int[] indices, double settleVolts, int threads, CancellationToken cancel, ICheckEngine? engine = null, Action? runDone = null)
     {
         var outcomes = new SamplingOutcome[indices.Length];
-        Parallel.For(0, indices.Length, new ParallelOptions { MaxDegreeOfParallelism = threads, CancellationToken = cancel },
-            i => outcomes[i] = SamplingRun.Run(design, temperatures[indices[i]], prechargeVolts, settleVolts, cancel: cancel, engine: engine));
+        Parallel.For(0, indices.Length, new ParallelOptions { MaxDegreeOfParallelism = threads, CancellationToken = cancel }, i =>
+        {
+            outcomes[i] = SamplingRun.Run(design, temperatures[indices[i]], prechargeVolts, settleVolts, cancel: cancel, engine: engine);
+            runDone?.Invoke();
+        });
         return outcomes;
     }
 

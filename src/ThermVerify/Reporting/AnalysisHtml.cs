@@ -10,13 +10,13 @@ internal static class AnalysisHtml
     public static string Render(AnalysisReport report)
     {
         var html = new StringBuilder();
-        AppendHead(html, report.Heading, report.ToolVersion);
+        AppendHead(html, report.Heading, report.Provenance.ToolVersion);
         AppendHeader(html, report.Heading, report.Description, report.Verdict, report.Passed,
         [
             ("settings", "Design summary"), ("figures", "Figures"), .. report.Sections.Select(s => (s.Id, s.Heading)),
             ("design", "Design file"), ("cautions", "Cautions"),
         ]);
-        AppendSettings(html, report.Settings, report.DesignFile);
+        AppendSettings(html, report.Settings, report.DesignFile, report.Provenance);
         AppendFigures(html, report.Plots);
         foreach (var section in report.Sections)
         {
@@ -26,7 +26,7 @@ internal static class AnalysisHtml
             html.Append("</section>\n");
         }
         AppendDesignAndCautions(html, report.DesignToml);
-        AppendFooter(html, report.ToolVersion, report.JsonSchema);
+        AppendFooter(html, report.Provenance.ToolVersion, report.JsonSchema);
         return html.ToString();
     }
 

@@ -12,7 +12,7 @@ internal static class AnalysisMarkdown
     {
         var md = new StringBuilder();
         AppendHeader(md, report.Heading, report.Description, report.Verdict);
-        AppendSettings(md, report.Settings, report.DesignFile);
+        AppendSettings(md, report.Settings, report.DesignFile, report.Provenance);
         AppendFigures(md, report.Plots, plotFolder);
         foreach (var section in report.Sections)
         {
@@ -29,7 +29,7 @@ internal static class AnalysisMarkdown
                 md.AppendLine();
             }
         }
-        AppendDesignAndCautions(md, report.DesignToml, report.ToolVersion);
+        AppendDesignAndCautions(md, report.DesignToml, report.Provenance.ToolVersion);
         return md.ToString();
     }
 }

@@ -23,5 +23,5 @@ public sealed record AnalysisReport(
     IReadOnlyList<RenderedPlot> Plots,
     IReadOnlyList<ReportSection> Sections,
     string DesignToml,
-    string ToolVersion,
+    Provenance.RunProvenance Provenance,
     string JsonSchema);

@@ -16,13 +16,13 @@ internal static class CheckHtml
     {
         var r = report.Result;
         var html = new StringBuilder();
-        ReportHtml.AppendHead(html, $"thermverify check: {r.Design.Name}", report.ToolVersion);
+        ReportHtml.AppendHead(html, $"thermverify check: {r.Design.Name}", report.Provenance.ToolVersion);
         ReportHtml.AppendHeader(html, $"thermverify check: {r.Design.Name}", r.Design.Description, Verdict(r), r.Passed,
         [
             ("settings", "Design summary"), .. report.Baseline is null ? Array.Empty<(string, string)>() : [("baseline", "Baseline")],
             ("figures", "Figures"), ("findings", "Findings"), ("points", "Points"), ("design", "Design file"), ("cautions", "Cautions"),
         ]);
-        ReportHtml.AppendSettings(html, Settings(r), report.DesignFile);
+        ReportHtml.AppendSettings(html, Settings(r), report.DesignFile, report.Provenance);
 
         if (report.Baseline is { } baseline) AppendBaseline(html, baseline);
 
@@ -33,7 +33,7 @@ internal static class CheckHtml
         AppendPoints(html, r);
 
         ReportHtml.AppendDesignAndCautions(html, report.DesignToml);
-        ReportHtml.AppendFooter(html, report.ToolVersion, CheckJson.Schema);
+        ReportHtml.AppendFooter(html, report.Provenance.ToolVersion, CheckJson.Schema);
         return html.ToString();
     }
 
@@ -42,6 +42,8 @@ internal static class CheckHtml
         html.Append($"<section id=\"baseline\"><h2>Baseline comparison</h2>\n<p class=\"verdict {(b.Passed ? "pass" : "fail")}\">" +
                     $"{(b.Passed ? "No figure got worse than its tolerance" : $"{b.Figures.Count(f => f.Change == Change.Worse)} figure(s) got worse than their tolerance")} " +
                     $"against <code>{E(b.BaselinePath)}</code>{(b.DesignChanged ? " (the design has changed since the baseline was written)" : "")}.</p>\n");
+        if (b.RunDifferences.Count > 0)
+            html.Append($"<p>The baseline was made differently, which alone may move figures:</p>\n<ul>{string.Concat(b.RunDifferences.Select(d => $"<li>{E(d)}</li>"))}</ul>\n");
         html.Append("<table><thead><tr><th>figure</th><th>baseline</th><th>now</th><th>change</th><th>tolerance</th><th>verdict</th></tr></thead><tbody>\n");
         foreach (var f in b.Figures)
             html.Append($"<tr class=\"{f.Change.ToString().ToLowerInvariant()}\"><td>{E(f.Description)}<br><code>{E(f.Id)}</code></td><td class=\"num\">{E(Figure(f.Before, f.Unit))}</td>" +

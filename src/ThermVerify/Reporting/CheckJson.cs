@@ -2,6 +2,7 @@ using System.Text.Json;
 using ThermVerify.Reporting.Text;
 using ThermVerify.Check;
 using ThermVerify.Firmware;
+using ThermVerify.Provenance;
 
 namespace ThermVerify.Reporting;
 
@@ -14,13 +15,14 @@ public static class CheckJson
 {
     public const string Schema = "thermverify.check/2";
 
-    public static string Write(CheckResult result, string? designPath = null) =>
-        JsonSerializer.Serialize(ToDocument(result, designPath, result.Faults), ReportJson.Options);
+    public static string Write(CheckResult result, RunProvenance provenance, string? designPath = null) =>
+        JsonSerializer.Serialize(ToDocument(result, provenance, designPath, result.Faults), ReportJson.Options);
 
-    private static object ToDocument(CheckResult r, string? designPath, FaultThresholds? faults) => new
+    private static object ToDocument(CheckResult r, RunProvenance provenance, string? designPath, FaultThresholds? faults) => new
     {
         schema = Schema,
-        tool = new { name = "thermverify", version = Provenance.ToolVersion.Current },
+        tool = ReportJson.Tool(provenance),
+        provenance = ProvenanceJson.ToJson(provenance),
         design = new { name = r.Design.Name, file = designPath, sensor = r.SensorDescription },
         verdict = new
         {

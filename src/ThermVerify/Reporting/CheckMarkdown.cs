@@ -15,7 +15,7 @@ internal static class CheckMarkdown
         var r = report.Result;
         var md = new StringBuilder();
         ReportMarkdown.AppendHeader(md, $"thermverify check: {r.Design.Name}", r.Design.Description, Verdict(r));
-        ReportMarkdown.AppendSettings(md, Settings(r), report.DesignFile);
+        ReportMarkdown.AppendSettings(md, Settings(r), report.DesignFile, report.Provenance);
 
         if (report.Baseline is { } b)
         {
@@ -24,6 +24,13 @@ internal static class CheckMarkdown
             md.AppendLine($"{(b.Passed ? "No figure got worse than its tolerance" : $"**{b.Figures.Count(f => f.Change == Change.Worse)} figure(s) got worse than their tolerance**")} against `{b.BaselinePath}`" +
                           $"{(b.DesignChanged ? " (the design has changed since the baseline was written)" : "")}.");
             md.AppendLine();
+            if (b.RunDifferences.Count > 0)
+            {
+                md.AppendLine("The baseline was made differently, which alone may move figures:");
+                md.AppendLine();
+                foreach (var d in b.RunDifferences) md.AppendLine($"- {ReportMarkdown.UserText(d)}");
+                md.AppendLine();
+            }
             md.AppendLine("| figure | baseline | now | change | tolerance | verdict |\n|---|--:|--:|--:|--:|---|");
             foreach (var f in b.Figures)
                 md.AppendLine($"| {Cell(f.Description)} (`{f.Id}`) | {Figure(f.Before, f.Unit)} | {Figure(f.Now, f.Unit)} | {Delta(f)} | ±{N(f.Tolerance, "0.####")} {f.Unit} | {ChangeText(f.Change)} |");
@@ -70,7 +77,7 @@ internal static class CheckMarkdown
             md.AppendLine("| " + string.Join(" | ", PointCells(p, r.Points)) + " |");
         md.AppendLine();
 
-        ReportMarkdown.AppendDesignAndCautions(md, report.DesignToml, report.ToolVersion);
+        ReportMarkdown.AppendDesignAndCautions(md, report.DesignToml, report.Provenance.ToolVersion);
         return md.ToString();
     }
 

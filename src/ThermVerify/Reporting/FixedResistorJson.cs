@@ -1,5 +1,6 @@
 using System.Text.Json;
 using ThermVerify.Design;
+using ThermVerify.Provenance;
 using ThermVerify.Tolerances;
 using static ThermVerify.Reporting.ReportJson;
 
@@ -10,14 +11,15 @@ public static class FixedResistorJson
 {
     public const string Schema = "thermverify.fixed/1";
 
-    public static string Write(IReadOnlyList<FixedResistorCandidate> ranked, FrontEndDesign design, FixedResistorSearchOptions options, string? designPath = null)
+    public static string Write(IReadOnlyList<FixedResistorCandidate> ranked, FrontEndDesign design, FixedResistorSearchOptions options, RunProvenance provenance, string? designPath = null)
     {
         var slopeOnly = options.Objective == FixedResistorObjective.SlopeAt;
         var range = design.Check.Range;
         return JsonSerializer.Serialize(new
         {
             schema = Schema,
-            tool = Tool(),
+            tool = Tool(provenance),
+            provenance = ProvenanceJson.ToJson(provenance),
             design = DesignDocument(design, designPath),
             search = new
             {

@@ -2,6 +2,7 @@ using System.Globalization;
 using ThermVerify.Reporting.Text;
 using ThermVerify.Design;
 using ThermVerify.FrontEnd;
+using ThermVerify.Provenance;
 using ThermVerify.Quantities;
 using ThermVerify.Reporting.Plots;
 using ThermVerify.Tolerances;
@@ -11,7 +12,8 @@ namespace ThermVerify.Reporting;
 /// <summary>The report page of a fixed-resistor search: the ranking figure and the ranked candidates.</summary>
 public static class FixedResistorReport
 {
-    public static AnalysisReport Build(IReadOnlyList<FixedResistorCandidate> ranked, FrontEndDesign design, FixedResistorSearchOptions options, string designFile, int top = 15)
+    public static AnalysisReport Build(IReadOnlyList<FixedResistorCandidate> ranked, FrontEndDesign design, FixedResistorSearchOptions options, RunProvenance provenance,
+        string designFile, int top = 15)
     {
         if (ranked.Count == 0) throw new ArgumentException("A fixed-resistor report needs at least one candidate.", nameof(ranked));
         var model = new ClosedFormModel(design);
@@ -38,7 +40,7 @@ public static class FixedResistorReport
         return new AnalysisReport($"thermverify choose-fixed: {design.Name}", design.Description, verdict, null,
             [.. ReportFormat.Settings(design, model.Sensor.Description, model.Adc)], designFile,
             [FixedResistorPlot.Render(ranked, options.Objective, present, design.Check.BudgetKelvin, design.Name)], sections,
-            DesignWriter.ToToml(design), Provenance.ToolVersion.Current, FixedResistorJson.Schema);
+            DesignWriter.ToToml(design), provenance, FixedResistorJson.Schema);
     }
 
     public static string Describe(FixedResistorObjective goal) => goal switch

@@ -1,5 +1,6 @@
 using System.Text.Json;
 using ThermVerify.Design;
+using ThermVerify.Provenance;
 using ThermVerify.Tolerances;
 using static ThermVerify.Reporting.ReportJson;
 
@@ -10,11 +11,12 @@ public static class MonteCarloJson
 {
     public const string Schema = "thermverify.montecarlo/1";
 
-    public static string Write(MonteCarloResult r, FrontEndDesign design, string? designPath = null, bool simulatedUnitSettling = true) =>
+    public static string Write(MonteCarloResult r, FrontEndDesign design, RunProvenance provenance, string? designPath = null, bool simulatedUnitSettling = true) =>
         JsonSerializer.Serialize(new
         {
             schema = Schema,
-            tool = Tool(),
+            tool = Tool(provenance),
+            provenance = ProvenanceJson.ToJson(provenance),
             design = DesignDocument(design, designPath),
             run = new { units = r.Units, seed = r.Seed, unitSettlingSimulated = simulatedUnitSettling },
             parameters = r.Parameters.Select(Parameter),

@@ -1,6 +1,7 @@
 using System.Globalization;
 using ThermVerify.Design;
 using ThermVerify.FrontEnd;
+using ThermVerify.Provenance;
 using ThermVerify.Reporting.Plots;
 using ThermVerify.Tolerances;
 using static ThermVerify.Reporting.Text.ToleranceText;
@@ -11,7 +12,7 @@ namespace ThermVerify.Reporting;
 public static class MonteCarloReport
 {
     /// <param name="minimumYieldPercent">When given, the verdict passes or fails against it; otherwise it only states the yield.</param>
-    public static AnalysisReport Build(MonteCarloResult r, FrontEndDesign design, string designFile, double? minimumYieldPercent = null)
+    public static AnalysisReport Build(MonteCarloResult r, FrontEndDesign design, RunProvenance provenance, string designFile, double? minimumYieldPercent = null)
     {
         var model = new ClosedFormModel(design);
         var yield = I($"{100 * r.Yield:0.00} % ± {100 * r.YieldStandardError:0.00} %");
@@ -42,7 +43,7 @@ public static class MonteCarloReport
         ];
         return new AnalysisReport($"thermverify montecarlo: {design.Name}", design.Description, verdict, passed,
             [.. ReportFormat.Settings(design, model.Sensor.Description, model.Adc)], designFile, plots, sections,
-            DesignWriter.ToToml(design), Provenance.ToolVersion.Current, MonteCarloJson.Schema);
+            DesignWriter.ToToml(design), provenance, MonteCarloJson.Schema);
     }
 
     private static ReportTable EnvelopeTable(MonteCarloResult r)

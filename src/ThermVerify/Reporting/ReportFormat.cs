@@ -50,10 +50,11 @@ internal static class ReportFormat
 
     /// <summary>
     /// The contribution columns of a result: those that are not zero at every point (an effect the design does not
-    /// have is left out; the columns shown still add up to the error). A contribution below a nanokelvin is rounding
-    /// of the differences the split is made of (1e-16 K), not an effect.
+    /// have is left out; the columns shown still add up to the error). The split gives exactly zero for an effect the
+    /// design does not have (no converter errors, nothing unmappable); a simulated effect below a nanokelvin is the
+    /// residual of a transient (a follower's pin settles to 1e-14 V, 1e-11 K), not an effect worth a column.
     /// </summary>
-    private const double RoundingKelvin = 1e-9;
+    private const double ResidualKelvin = 1e-9;
 
     public static IReadOnlyList<(string Header, Func<CheckPoint, double> Kelvin)> ContributionColumns(IReadOnlyList<CheckPoint> points)
     {
@@ -68,7 +69,7 @@ internal static class ReportFormat
             ("self-heating", p => p.Contributions.SelfHeatingKelvin),
             ("rest", p => p.Contributions.RestKelvin),
         };
-        return [.. all.Where((c, i) => i == 0 || points.Any(p => Math.Abs(c.Kelvin(p)) > RoundingKelvin))];
+        return [.. all.Where((c, i) => i == 0 || points.Any(p => Math.Abs(c.Kelvin(p)) > ResidualKelvin))];
     }
 
     /// <summary>Which reading a point converts: the precharge case, the first or steady sample, the INL sign where INL is a bound.</summary>

@@ -1,6 +1,7 @@
 using System.Net;
 using System.Text;
 using System.Text.RegularExpressions;
+using ThermVerify.Provenance;
 using ThermVerify.Reporting.Plots;
 
 namespace ThermVerify.Reporting;
@@ -41,11 +42,14 @@ internal static partial class ReportHtml
             """);
     }
 
-    public static void AppendSettings(StringBuilder html, IEnumerable<(string Label, string Value)> settings, string designFile)
+    /// <summary>The design summary, then where the report came from (<see cref="RunProvenance.Lines"/>).</summary>
+    public static void AppendSettings(StringBuilder html, IEnumerable<(string Label, string Value)> settings, string designFile, RunProvenance provenance)
     {
         html.Append("<section id=\"settings\"><h2>Design summary</h2>\n<table class=\"settings\">\n");
         foreach (var (label, value) in settings) html.Append($"<tr><th scope=\"row\">{E(label)}</th><td>{E(value)}</td></tr>\n");
-        html.Append($"<tr><th scope=\"row\">design file</th><td><code>{E(designFile)}</code></td></tr>\n</table></section>\n");
+        html.Append($"<tr><th scope=\"row\">design file</th><td><code>{E(designFile)}</code></td></tr>\n");
+        foreach (var (label, value) in provenance.Lines()) html.Append($"<tr class=\"provenance\"><th scope=\"row\">{E(label)}</th><td>{E(value)}</td></tr>\n");
+        html.Append("</table></section>\n");
     }
 
     public static void AppendFigures(StringBuilder html, IEnumerable<RenderedPlot> plots)

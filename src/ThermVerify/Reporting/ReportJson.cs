@@ -3,6 +3,7 @@ using System.Text.Json;
 using System.Text.Json.Serialization;
 using ThermVerify.Design;
 using ThermVerify.FrontEnd;
+using ThermVerify.Provenance;
 using ThermVerify.Tolerances;
 
 namespace ThermVerify.Reporting;
@@ -23,7 +24,8 @@ internal static class ReportJson
     /// <summary>A number, or null when it does not exist (NaN from an unreadable code, infinity from an unbounded search).</summary>
     public static double? N(double? value) => value is { } v && double.IsFinite(v) ? v : null;
 
-    public static object Tool() => new { name = "thermverify", version = Provenance.ToolVersion.Current };
+    /// <summary>The tool as every document named it before the provenance object held it too (kept: field names never change within a schema).</summary>
+    public static object Tool(RunProvenance provenance) => new { name = "thermverify", version = provenance.ToolVersion };
 
     public static object DesignDocument(FrontEndDesign design, string? designPath) =>
         new { name = design.Name, file = designPath, sensor = new ClosedFormModel(design).Sensor.Description };

@@ -1,4 +1,5 @@
 using System.Text;
+using ThermVerify.Provenance;
 using ThermVerify.Reporting.Plots;
 
 namespace ThermVerify.Reporting;
@@ -17,11 +18,12 @@ internal static class ReportMarkdown
         md.AppendLine();
     }
 
-    public static void AppendSettings(StringBuilder md, IEnumerable<(string Label, string Value)> settings, string designFile)
+    public static void AppendSettings(StringBuilder md, IEnumerable<(string Label, string Value)> settings, string designFile, RunProvenance provenance)
     {
         md.AppendLine("| | |\n|---|---|");
         foreach (var (label, value) in settings) md.AppendLine($"| {label} | {Cell(value)} |");
         md.AppendLine($"| design file | {UserText(designFile)} |");
+        foreach (var (label, value) in provenance.Lines()) md.AppendLine($"| {label} | {UserText(value)} |");
         md.AppendLine();
     }
 

@@ -1,5 +1,6 @@
 using System.Text.Json;
 using ThermVerify.Design;
+using ThermVerify.Provenance;
 using ThermVerify.Tolerances;
 using static ThermVerify.Reporting.ReportJson;
 
@@ -10,13 +11,14 @@ public static class WorstCaseJson
 {
     public const string Schema = "thermverify.worstcase/1";
 
-    public static string Write(WorstCaseResult r, FrontEndDesign design, string? designPath = null)
+    public static string Write(WorstCaseResult r, FrontEndDesign design, RunProvenance provenance, string? designPath = null)
     {
         var worst = r.Worst;
         return JsonSerializer.Serialize(new
         {
             schema = Schema,
-            tool = Tool(),
+            tool = Tool(provenance),
+            provenance = ProvenanceJson.ToJson(provenance),
             design = DesignDocument(design, designPath),
             verdict = new
             {

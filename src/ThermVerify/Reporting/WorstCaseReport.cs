@@ -1,6 +1,7 @@
 using System.Globalization;
 using ThermVerify.Design;
 using ThermVerify.FrontEnd;
+using ThermVerify.Provenance;
 using ThermVerify.Reporting.Plots;
 using ThermVerify.Tolerances;
 using static ThermVerify.Reporting.Text.ToleranceText;
@@ -10,7 +11,7 @@ namespace ThermVerify.Reporting;
 /// <summary>The report page of a worst-case analysis: the band, the enumeration check, the sensitivities at the worst point, the tolerances.</summary>
 public static class WorstCaseReport
 {
-    public static AnalysisReport Build(WorstCaseResult r, FrontEndDesign design, string designFile)
+    public static AnalysisReport Build(WorstCaseResult r, FrontEndDesign design, RunProvenance provenance, string designFile)
     {
         var model = new ClosedFormModel(design);
         var worst = r.Worst;
@@ -34,7 +35,7 @@ public static class WorstCaseReport
         ];
         return new AnalysisReport($"thermverify worstcase: {design.Name}", design.Description, verdict, r.WithinBudget,
             [.. ReportFormat.Settings(design, model.Sensor.Description, model.Adc)], designFile, [WorstCasePlot.Render(r, design.Name)], sections,
-            DesignWriter.ToToml(design), Provenance.ToolVersion.Current, WorstCaseJson.Schema);
+            DesignWriter.ToToml(design), provenance, WorstCaseJson.Schema);
     }
 
     private static ReportTable BandTable(WorstCaseResult r)

@@ -2,6 +2,7 @@ using ThermVerify.Check;
 using ThermVerify.Components;
 using ThermVerify.Design;
 using ThermVerify.FrontEnd;
+using ThermVerify.Limits;
 
 namespace ThermVerify.Tolerances;
 

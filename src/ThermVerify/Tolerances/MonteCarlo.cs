@@ -1,4 +1,5 @@
 using ThermVerify.Design;
+using ThermVerify.Limits;
 
 namespace ThermVerify.Tolerances;
 

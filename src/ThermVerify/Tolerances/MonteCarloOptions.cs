@@ -1,3 +1,5 @@
+using ThermVerify.Limits;
+
 namespace ThermVerify.Tolerances;
 
 /// <summary>How a Monte Carlo run is made. The result depends on the design, <see cref="Units"/> and <see cref="Seed"/> only.</summary>
@@ -20,6 +22,3 @@ public sealed record MonteCarloOptions
 
     public CancellationToken Cancel { get; init; }
 }
-
-/// <summary>Units (or candidates) done so far out of the total.</summary>
-public readonly record struct RunProgress(int Done, int Total);

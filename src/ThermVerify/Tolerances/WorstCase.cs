@@ -1,5 +1,6 @@
 using System.Collections.Concurrent;
 using ThermVerify.Design;
+using ThermVerify.Limits;
 
 namespace ThermVerify.Tolerances;
 

@@ -14,7 +14,7 @@ internal static class EmbeddingExample
         foreach (var finding in run.Result.Findings)
             output.WriteLine($"  {finding.Severity}: {finding.Id} ({finding.SizeKelvin:+0.000;-0.000} K)");
 
-        var json = ThermVerify.Reporting.CheckJson.Write(run.Result, Path.GetFileName(designPath)); // the same document as `check --json`
+        var json = ThermVerify.Reporting.CheckJson.Write(run.Result, run.Provenance, Path.GetFileName(designPath)); // the same document as `check --json`
         File.WriteAllText(jsonPath, json);
         output.WriteLine($"{run.Result.Points.Count} temperatures checked; JSON in {Path.GetFileName(jsonPath)}");
         return run.Passed ? 0 : 1;

@@ -1,3 +1,4 @@
+using ThermVerify.Api;
 using System.Text.Json;
 using ThermVerify.Check;
 using ThermVerify.Reporting;
@@ -46,11 +47,11 @@ public class PrechargeWorstTests
     public void Header_json_and_table_state_the_case_used_and_which_was_worst()
     {
         var worst = Run(null);
-        var text = CheckSummaryText.Render(worst);
+        var text = CheckSummaryText.Render(worst, RunStamp.Check(worst.Design));
         Assert.Contains("precharge worst: every case is checked (last-sample, 0 V, full scale 3.3 V)", text);
         Assert.Contains($"{worst.Worst.Precharge.Name}, {worst.Worst.SampleKind}", text);
 
-        using var json = JsonDocument.Parse(CheckJson.Write(worst));
+        using var json = JsonDocument.Parse(CheckJson.Write(worst, RunStamp.Check(worst.Design)));
         var root = json.RootElement;
         Assert.Equal("worst", root.GetProperty("precharge").GetProperty("mode").GetString());
         Assert.Equal(3, root.GetProperty("precharge").GetProperty("cases").GetArrayLength());
@@ -59,11 +60,11 @@ public class PrechargeWorstTests
             Assert.Equal(worst.Points[i].Precharge.Name, points[i].GetProperty("precharge").GetString());
 
         // The report's settings say the same, and its points table names each temperature's reading.
-        var report = new CheckReport(worst, "test.toml", "", [], null, "test");
+        var report = new CheckReport(worst, "test.toml", "", [], null, RunStamp.Check(worst.Design));
         Assert.Contains("| precharge | worst: every case is checked (last-sample, 0 V, full scale 3.3 V)", CheckMarkdown.Render(report));
         Assert.Contains("worst: every case is checked (last-sample, 0 V, full scale 3.3 V)", System.Net.WebUtility.HtmlDecode(CheckHtml.Render(report)));
 
         var single = Run("\"last-sample\"");
-        Assert.Contains("precharge last-sample (last-sample: holding this channel's last sample)", CheckSummaryText.Render(single));
+        Assert.Contains("precharge last-sample (last-sample: holding this channel's last sample)", CheckSummaryText.Render(single, RunStamp.Check(single.Design)));
     }
 }

@@ -1,4 +1,5 @@
 using ThermVerify.Cli;
+using ThermVerify.Limits;
 using ThermVerify.Tolerances;
 
 namespace ThermVerify.Tests.Cli;

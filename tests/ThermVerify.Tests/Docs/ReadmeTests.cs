@@ -43,4 +43,15 @@ public class ReadmeTests
         });
         DocBlocks.AssertCurrentTable(Readme, "examples", "| design | what it is | `check` |\n|---|---|---|\n" + string.Join("\n", rows));
     }
+
+    /// <summary>The list of documents at the end names each document of docs/ once, and no document that does not exist.</summary>
+    [Fact]
+    public void The_readme_links_every_document_once()
+    {
+        var more = File.ReadAllText(Readme).Replace("\r\n", "\n").Split("## More")[^1];
+        var linked = System.Text.RegularExpressions.Regex.Matches(more, @"\]\((docs/[^)]+\.md)\)").Select(m => m.Groups[1].Value).ToList();
+        Assert.Equal(linked.Distinct().Count(), linked.Count);
+        var documents = Directory.GetFiles(Repository.Docs, "*.md").Select(f => "docs/" + Path.GetFileName(f)).Order(StringComparer.Ordinal);
+        Assert.Equal(documents, linked.Order(StringComparer.Ordinal));
+    }
 }

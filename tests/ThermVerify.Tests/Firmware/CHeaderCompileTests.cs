@@ -1,4 +1,3 @@
-using System.Diagnostics;
 using System.Globalization;
 using ThermVerify.Design;
 using ThermVerify.Firmware;
@@ -38,7 +37,7 @@ public class CHeaderCompileTests
             var faults = FaultAnalysis.Thresholds(model, FaultTolerances.None);
             var header = CHeaderRenderer.Render(new FirmwareHeaderContent($"Test front end {name}", "tv_test", model, table,
                 TableErrorAnalysis.Evaluate(model, table), faults,
-                model.Sensor is ThermVerify.Sensors.BetaThermistor ? ComputedCoefficients.Fit(model) : null));
+                model.Sensor is ThermVerify.Sensors.BetaThermistor ? ComputedCoefficients.Fit(model) : null), TestRun.Provenance);
             var output = CompileAndRun(header, model.Adc.MaxCode);
             var lines = output.Split('\n', StringSplitOptions.RemoveEmptyEntries);
             Assert.Equal(model.Adc.MaxCode + 1, lines.Length);
@@ -71,28 +70,12 @@ public class CHeaderCompileTests
                 }
                 """);
             var exe = Path.Combine(folder.FullName, "table");
-            Run("gcc", $"-std=c99 -Wall -Wextra -Werror -pedantic -O2 -o \"{exe}\" main.c", folder.FullName);
-            return Run(exe, "", folder.FullName);
+            ExternalProgram.Run("gcc", ["-std=c99", "-Wall", "-Wextra", "-Werror", "-pedantic", "-O2", "-o", exe, "main.c"], folder.FullName);
+            return ExternalProgram.Run(exe, [], folder.FullName);
         }
         finally
         {
             folder.Delete(recursive: true);
         }
-    }
-
-    private static string Run(string file, string arguments, string workingDirectory)
-    {
-        var info = new ProcessStartInfo(file, arguments)
-        {
-            WorkingDirectory = workingDirectory,
-            RedirectStandardOutput = true,
-            RedirectStandardError = true,
-        };
-        using var process = Process.Start(info)!;
-        var stderr = process.StandardError.ReadToEndAsync();
-        var stdout = process.StandardOutput.ReadToEnd();
-        process.WaitForExit();
-        Assert.True(process.ExitCode == 0, $"{file} {arguments} failed with {process.ExitCode}:\n{stderr.Result}");
-        return stdout;
     }
 }

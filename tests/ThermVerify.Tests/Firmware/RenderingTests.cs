@@ -8,7 +8,7 @@ public class RenderingTests
 
     private static string Header(FirmwareTable table, string prefix = "fw_ntc", string name = "Bench rig") =>
         CHeaderRenderer.Render(new FirmwareHeaderContent(name, prefix, Model, table, TableErrorAnalysis.Evaluate(Model, table),
-            FaultAnalysis.Thresholds(Model, FaultTolerances.None)));
+            FaultAnalysis.Thresholds(Model, FaultTolerances.None)), TestRun.Provenance);
 
     [Fact]
     public void Csv_reads_back_to_the_values_the_routine_returns()

@@ -16,7 +16,7 @@ public class DeterminismTests
     {
         // Each temperature is simulated on its own, so the thread count must not change a single bit of the result.
         var design = DesignLoader.Load(Example(example));
-        string Run(int threads) => CheckJson.Write(FrontEndCheck.Run(design, new CheckOptions { Threads = threads, ComputeRemedies = false }));
+        string Run(int threads) => CheckJson.Write(FrontEndCheck.Run(design, new CheckOptions { Threads = threads, ComputeRemedies = false }), TestRun.Provenance);
         var one = Run(1);
         Assert.Equal(one, Run(2));
         Assert.Equal(one, Run(8));

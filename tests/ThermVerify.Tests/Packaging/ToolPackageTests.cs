@@ -1,4 +1,3 @@
-using System.Diagnostics;
 using ThermVerify.Tests.Cli;
 
 namespace ThermVerify.Tests.Packaging;
@@ -18,13 +17,13 @@ public sealed class ToolPackageTests
         {
             var packages = Path.Combine(work.FullName, "packages");
             var tools = Path.Combine(work.FullName, "tools");
-            Run("dotnet", ["pack", Repository.PathOf("src", "ThermVerify.Cli"), "-c", "Release", "-o", packages,
+            ExternalProgram.Run("dotnet", ["pack", Repository.PathOf("src", "ThermVerify.Cli"), "-c", "Release", "-o", packages,
                 "--artifacts-path", Path.Combine(work.FullName, "build")], work.FullName);
             Assert.Single(Directory.GetFiles(packages, "ThermVerify.Cli.*.nupkg"));
-            Run("dotnet", ["tool", "install", "--tool-path", tools, "--add-source", packages, "ThermVerify.Cli"], work.FullName);
+            ExternalProgram.Run("dotnet", ["tool", "install", "--tool-path", tools, "--add-source", packages, "ThermVerify.Cli"], work.FullName);
 
             var example = Path.Combine(Repository.Netlists, "oven-pt1000.toml");
-            var installed = Run(Path.Combine(tools, "thermverify"), ["check", example, "-q"], work.FullName);
+            var installed = ExternalProgram.Run(Path.Combine(tools, "thermverify"), ["check", example, "-q"], work.FullName);
             Assert.StartsWith("PASS", installed);
             Assert.Equal(CliRunner.Run("check", example, "-q").Output, installed);
         }
@@ -32,17 +31,5 @@ public sealed class ToolPackageTests
         {
             work.Delete(recursive: true);
         }
-    }
-
-    private static string Run(string file, string[] arguments, string workingDirectory)
-    {
-        var info = new ProcessStartInfo(file) { WorkingDirectory = workingDirectory, RedirectStandardOutput = true, RedirectStandardError = true };
-        foreach (var argument in arguments) info.ArgumentList.Add(argument);
-        using var process = Process.Start(info)!;
-        var error = process.StandardError.ReadToEndAsync();
-        var output = process.StandardOutput.ReadToEnd();
-        process.WaitForExit();
-        Assert.True(process.ExitCode == 0, $"{file} {string.Join(' ', arguments)} failed with {process.ExitCode}:\n{output}\n{error.Result}");
-        return output;
     }
 }

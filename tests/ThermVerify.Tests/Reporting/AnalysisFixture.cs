@@ -22,9 +22,9 @@ public sealed class AnalysisFixture
         Fixed = FixedResistorSearch.Run(Design, FixedOptions);
         Reports =
         [
-            MonteCarloReport.Build(MonteCarlo, Design, "test.toml"),
-            WorstCaseReport.Build(WorstCase, Design, "test.toml"),
-            FixedResistorReport.Build(Fixed, Design, FixedOptions, "test.toml"),
+            MonteCarloReport.Build(MonteCarlo, Design, TestRun.Provenance, "test.toml"),
+            WorstCaseReport.Build(WorstCase, Design, TestRun.Provenance, "test.toml"),
+            FixedResistorReport.Build(Fixed, Design, FixedOptions, TestRun.Provenance, "test.toml"),
         ];
     }
 

@@ -6,7 +6,7 @@ namespace ThermVerify.Tests.Reporting;
 /// <summary>The JSON of the tolerance analyses against the results they come from (docs/json-output.md).</summary>
 public class AnalysisJsonTests(AnalysisFixture fixture) : IClassFixture<AnalysisFixture>
 {
-    private JsonElement MonteCarlo() => JsonDocument.Parse(MonteCarloJson.Write(fixture.MonteCarlo, fixture.Design, "test.toml")).RootElement;
+    private JsonElement MonteCarlo() => JsonDocument.Parse(MonteCarloJson.Write(fixture.MonteCarlo, fixture.Design, TestRun.Provenance, "test.toml")).RootElement;
 
     [Fact]
     public void Monte_carlo_yield_is_the_fraction_of_units_within_budget_in_the_unit_data()
@@ -72,7 +72,7 @@ public class AnalysisJsonTests(AnalysisFixture fixture) : IClassFixture<Analysis
     [Fact]
     public void Worst_case_json_holds_the_band_and_rss_never_exceeds_the_linear_sum()
     {
-        var root = JsonDocument.Parse(WorstCaseJson.Write(fixture.WorstCase, fixture.Design)).RootElement;
+        var root = JsonDocument.Parse(WorstCaseJson.Write(fixture.WorstCase, fixture.Design, TestRun.Provenance)).RootElement;
         Assert.Equal("thermverify.worstcase/1", root.GetProperty("schema").GetString());
         var points = root.GetProperty("points").EnumerateArray().ToList();
         Assert.Equal(fixture.WorstCase.Points.Count, points.Count);
@@ -91,7 +91,7 @@ public class AnalysisJsonTests(AnalysisFixture fixture) : IClassFixture<Analysis
     [Fact]
     public void Fixed_json_ranks_by_the_worst_error()
     {
-        var root = JsonDocument.Parse(FixedResistorJson.Write(fixture.Fixed, fixture.Design, fixture.FixedOptions)).RootElement;
+        var root = JsonDocument.Parse(FixedResistorJson.Write(fixture.Fixed, fixture.Design, fixture.FixedOptions, TestRun.Provenance)).RootElement;
         Assert.Equal("thermverify.fixed/1", root.GetProperty("schema").GetString());
         Assert.Equal("E12", root.GetProperty("search").GetProperty("series").GetString());
         var candidates = root.GetProperty("candidates").EnumerateArray().ToList();
@@ -107,8 +107,8 @@ public class AnalysisJsonTests(AnalysisFixture fixture) : IClassFixture<Analysis
     [Fact]
     public void No_document_holds_nan_or_infinity()
     {
-        foreach (var text in new[] { MonteCarloJson.Write(fixture.MonteCarlo, fixture.Design), WorstCaseJson.Write(fixture.WorstCase, fixture.Design),
-                     FixedResistorJson.Write(fixture.Fixed, fixture.Design, fixture.FixedOptions) })
+        foreach (var text in new[] { MonteCarloJson.Write(fixture.MonteCarlo, fixture.Design, TestRun.Provenance), WorstCaseJson.Write(fixture.WorstCase, fixture.Design, TestRun.Provenance),
+                     FixedResistorJson.Write(fixture.Fixed, fixture.Design, fixture.FixedOptions, TestRun.Provenance) })
         {
             Assert.DoesNotContain("NaN", text);
             Assert.DoesNotContain("Infinity", text);

@@ -44,7 +44,7 @@ public class BaselineTests(ReportFixture fixture) : IClassFixture<ReportFixture>
     [Fact]
     public void Figures_follow_the_points_and_round_trip_through_the_file()
     {
-        var baseline = BaselineFigures.From(fixture.Result, "test");
+        var baseline = BaselineFigures.From(fixture.Result, TestRun.Provenance);
         var worst = baseline.Figures.Single(f => f.Id == "error.worst").Value;
         Assert.Equal(fixture.Result.Points.Max(p => Math.Abs(p.ErrorKelvin)), worst);
         Assert.Equal(fixture.Result.Points.Count(p => !p.WithinBudget), baseline.Figures.Single(f => f.Id == "points.over-budget").Value);

@@ -16,7 +16,7 @@ public class JUnitTests(ReportFixture fixture) : IClassFixture<ReportFixture>
     public void One_case_per_check_and_per_finding_with_failures_counted()
     {
         var result = fixture.Result;
-        var doc = XDocument.Parse(CheckJUnit.Write(result));
+        var doc = XDocument.Parse(CheckJUnit.Write(result, TestRun.Provenance));
         var suite = doc.Root!.Element("testsuite")!;
         var cases = suite.Elements("testcase").ToList();
 
@@ -34,10 +34,10 @@ public class JUnitTests(ReportFixture fixture) : IClassFixture<ReportFixture>
     [Fact]
     public void Baseline_figures_become_cases_and_a_worse_one_fails()
     {
-        var now = BaselineFigures.From(fixture.Result, "test");
+        var now = BaselineFigures.From(fixture.Result, TestRun.Provenance);
         var before = now with { Figures = [.. now.Figures.Select(f => f.Id == "loading.worst" ? f with { Value = -1 } : f)] };
         var comparison = BaselineComparison.Compare("b.json", before, now);
-        var cases = XDocument.Parse(CheckJUnit.Write(fixture.Result, comparison)).Descendants("testcase")
+        var cases = XDocument.Parse(CheckJUnit.Write(fixture.Result, TestRun.Provenance, comparison)).Descendants("testcase")
             .Where(c => (string)c.Attribute("classname")! == "thermverify.baseline").ToList();
 
         Assert.Equal(now.Figures.Count, cases.Count);

@@ -9,7 +9,7 @@ public class LiveReportTests
 {
     private static CheckReport ReportOf(params (string Key, string Value)[] overrides) =>
         CheckReport.Build(FrontEndCheck.Run(TestDesign.Make([("check.step", "\"10 K\""), .. overrides]),
-            new CheckOptions { ComputeRemedies = false, MaximumSamplingPoints = 3 }), "test.toml");
+            new CheckOptions { ComputeRemedies = false, MaximumSamplingPoints = 3 }), TestRun.Provenance, "test.toml");
 
     [Fact]
     public void The_page_names_its_stamp_and_live_js_the_newest()

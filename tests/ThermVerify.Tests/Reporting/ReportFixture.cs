@@ -14,7 +14,7 @@ public sealed class ReportFixture
     {
         Result = FrontEndCheck.Run(TestDesign.Make(("adc.precharge", "\"discharged\""), ("adc.acquisition_time", "\"100 ns\""),
             ("adc.sample_rate", "\"50 kHz\""), ("check.step", "\"10 K\"")), new CheckOptions { Threads = 2, ComputeRemedies = false });
-        Report = CheckReport.Build(Result, "test.toml");
+        Report = CheckReport.Build(Result, TestRun.Provenance, "test.toml");
     }
 
     public CheckResult Result { get; }

@@ -74,7 +74,7 @@ public class FixedResistorSearchTests
             ranked.Count);
         Assert.All(ranked, c => Assert.Equal(design.Check.BudgetKelvin - Math.Abs(c.WorstErrorKelvin), c.MarginKelvin, 12));
 
-        var text = ThermVerify.Reporting.Text.FixedResistorText.Render(design, ESeries.E6, FixedResistorObjective.WorstError, ranked, top: 1);
+        var text = ThermVerify.Reporting.Text.FixedResistorText.Render(design, ESeries.E6, FixedResistorObjective.WorstError, ranked, top: 1, TestRun.Provenance);
         Assert.Contains("12.5 kΩ (now)", text);
         Assert.Contains("and the present value", text);
     }

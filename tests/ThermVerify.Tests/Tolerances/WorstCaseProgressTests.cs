@@ -1,4 +1,5 @@
 using System.Collections.Concurrent;
+using ThermVerify.Limits;
 using ThermVerify.Tolerances;
 
 namespace ThermVerify.Tests.Tolerances;

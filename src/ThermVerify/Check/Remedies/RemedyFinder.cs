@@ -1,5 +1,6 @@
 using System.Globalization;
 using ThermVerify.Design;
+using ThermVerify.Limits;
 using ThermVerify.Quantities;
 
 namespace ThermVerify.Check.Remedies;
@@ -31,7 +32,8 @@ internal sealed class RemedyFinder
     private RemedyFinder(CheckResult original, CheckOptions options)
     {
         this.original = original;
-        this.options = options with { ComputeRemedies = false };
+        // The checks a search makes are its own business: they report no progress of the check they serve.
+        this.options = options with { ComputeRemedies = false, Progress = null, RemedyProgress = null };
     }
 
     private FrontEndDesign Design => original.Design;
@@ -41,10 +43,12 @@ internal sealed class RemedyFinder
     {
         var finder = new RemedyFinder(result, options);
         var done = new Dictionary<Finding, Finding>();
-        foreach (var f in result.Findings.Where(f => f.Id != FindingRules.OverBudgetId))
+        options.RemedyProgress?.Report(new RunProgress(0, result.Findings.Count));
+        foreach (var f in result.Findings.Where(f => f.Id != FindingRules.OverBudgetId).Concat(result.Findings.Where(f => f.Id == FindingRules.OverBudgetId)))
+        {
             done[f] = finder.Solve(f);
-        foreach (var f in result.Findings.Where(f => f.Id == FindingRules.OverBudgetId))
-            done[f] = finder.Solve(f);
+            options.RemedyProgress?.Report(new RunProgress(done.Count, result.Findings.Count));
+        }
         return result with { Findings = [.. result.Findings.Select(f => done[f])] };
     }
 

@@ -22,6 +22,8 @@ public static class BaselineTable
         var head = worse == 0
             ? $"BASELINE PASS: no figure got worse than its tolerance against {comparison.BaselinePath}"
             : $"BASELINE FAIL: {worse} figure(s) got worse than their tolerance against {comparison.BaselinePath}";
-        return comparison.DesignChanged ? head + " (the design has changed since the baseline)" : head;
+        if (comparison.DesignChanged) head += " (the design has changed since the baseline)";
+        if (comparison.RunDifferences.Count > 0) head += $" (the baseline was made differently, which alone may move figures: {string.Join("; ", comparison.RunDifferences)})";
+        return head;
     }
 }

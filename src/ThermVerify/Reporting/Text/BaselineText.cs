@@ -11,6 +11,7 @@ public static class BaselineText
     {
         var text = new StringBuilder();
         text.AppendLine($"baseline written: {path} ({baseline.Figures.Count} figures; the check itself {(checkPassed ? "passes" : "fails")})");
+        if (baseline.Provenance is { } provenance) ProvenanceText.Append(text, provenance);
         var table = new TextTable("figure", "value", "better", "tolerance");
         foreach (var f in baseline.Figures)
             table.AddRow(f.Id, f.Value is { } v ? Invariant($"{v:0.####} {f.Unit}") : "none", f.Better == Better.Lower ? "lower" : "higher",

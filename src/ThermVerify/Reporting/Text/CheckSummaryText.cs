@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Text;
 using ThermVerify.Check;
 using ThermVerify.Design;
+using ThermVerify.Provenance;
 using ThermVerify.Quantities;
 
 namespace ThermVerify.Reporting.Text;
@@ -13,7 +14,7 @@ public static class CheckSummaryText
         "Caution: simulation does not replace measurement on hardware. A reading that drives a heater, charger or cut-out " +
         "needs independent protection and must follow the applicable standards, local codes and licensed practice.";
 
-    public static string Render(CheckResult result, int tableRows = 7)
+    public static string Render(CheckResult result, RunProvenance provenance, int tableRows = 7)
     {
         var text = new StringBuilder();
         var d = result.Design;
@@ -26,6 +27,7 @@ public static class CheckSummaryText
         text.AppendLine($"  precharge {ReportFormat.PrechargeLine(result)}");
         text.AppendLine($"  check    {V(d.Check.Range.MinCelsius, UnitKind.Celsius)} to {V(d.Check.Range.MaxCelsius, UnitKind.Celsius)} in {V(d.Check.StepKelvin, UnitKind.Kelvin)} steps, budget {V(d.Check.BudgetKelvin, UnitKind.Kelvin)}" +
                         string.Concat(d.Check.Regions.Select(r => $" ({r.Range}: {V(r.BudgetKelvin, UnitKind.Kelvin)})")));
+        ProvenanceText.Append(text, provenance);
         text.AppendLine();
 
         var worst = result.Worst;

@@ -1,6 +1,7 @@
 using System.Text;
 using ThermVerify.Components;
 using ThermVerify.Design;
+using ThermVerify.Provenance;
 using ThermVerify.Quantities;
 using ThermVerify.Tolerances;
 using static ThermVerify.Reporting.Text.TextNumbers;
@@ -10,25 +11,30 @@ namespace ThermVerify.Reporting.Text;
 /// <summary>The terminal ranking of fixed-resistor candidates.</summary>
 public static class FixedResistorText
 {
-    public static string Render(FrontEndDesign design, ESeries series, FixedResistorObjective goal, IReadOnlyList<FixedResistorCandidate> ranked, int top)
+    public static string Render(FrontEndDesign design, ESeries series, FixedResistorObjective goal, IReadOnlyList<FixedResistorCandidate> ranked, int top,
+        RunProvenance provenance)
     {
         var text = new StringBuilder();
         var seriesValues = ranked.Count(c => !c.IsPresent || series.Contains(c.Ohms));
         var presentApart = seriesValues < ranked.Count ? " and the present value" : "";
         text.AppendLine(Invariant($"{design.Name}: {seriesValues} {series} candidates{presentApart}, ranked by {FixedResistorReport.Describe(goal)}; now {Ohms(design.Divider.FixedResistorOhms)}"));
+        ProvenanceText.Append(text, provenance);
         var table = new TextTable("rank", "R_fixed", "worst error (K)", "at (°C)", "worst K/LSB", "|dV/dT| (mV/K)", "self-heating (mK)", "margin (K)", "budget");
         var shown = Math.Max(1, top);
         // The design's own resistor is always listed, below the top ones when it ranks lower, so its gain can be judged.
-        var rows = ranked.Select((c, i) => (c, i)).Where(x => x.i < shown || x.c.IsPresent).ToList();
+        var presentRank = ranked.Select((c, i) => (c, i)).Where(x => x.c.IsPresent).Select(x => x.i).DefaultIfEmpty(-1).First();
+        var rows = ranked.Select((c, i) => (c, i)).Where(x => x.i < shown || x.i == presentRank);
         foreach (var (c, i) in rows)
             table.AddRow(Integer(i + 1), Ohms(c.Ohms) + (c.IsPresent ? " (now)" : ""), Format(c.WorstErrorKelvin, "0.000"), Format(c.WorstErrorCelsius, "0.##"),
                 Format(c.WorstKelvinPerLsb, "0.0000"), Format(c.SlopeVoltsPerKelvin * 1e3, "0.000"), Format(c.MaximumSelfHeatingKelvin * 1e3, "0.0"),
                 goal == FixedResistorObjective.SlopeAt ? "-" : Format(c.MarginKelvin, "+0.000;-0.000"),
                 goal == FixedResistorObjective.SlopeAt ? "-" : c.WithinBudget ? "within" : "over");
         text.Append(table);
-        if (ranked.Select((c, i) => (c, i)).FirstOrDefault(x => x.c.IsPresent) is { c: not null } now && ranked[0] is var best && !best.IsPresent
-            && goal == FixedResistorObjective.WorstError)
-            text.AppendLine(Invariant($"best {Ohms(best.Ohms)} against {Ohms(now.c.Ohms)} now: worst error {Format(Math.Abs(best.WorstErrorKelvin), "0.000")} K instead of {Format(Math.Abs(now.c.WorstErrorKelvin), "0.000")} K (rank {now.i + 1} of {ranked.Count})"));
+        if (presentRank > 0 && goal == FixedResistorObjective.WorstError)
+        {
+            var (best, now) = (ranked[0], ranked[presentRank]);
+            text.AppendLine(Invariant($"best {Ohms(best.Ohms)} against {Ohms(now.Ohms)} now: worst error {Format(Math.Abs(best.WorstErrorKelvin), "0.000")} K instead of {Format(Math.Abs(now.WorstErrorKelvin), "0.000")} K (rank {presentRank + 1} of {ranked.Count})"));
+        }
         return text.ToString();
     }
 

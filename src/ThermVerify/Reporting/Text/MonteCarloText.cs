@@ -1,5 +1,6 @@
 using System.Text;
 using ThermVerify.Design;
+using ThermVerify.Provenance;
 using ThermVerify.Tolerances;
 using static ThermVerify.Reporting.Text.TextNumbers;
 
@@ -8,11 +9,12 @@ namespace ThermVerify.Reporting.Text;
 /// <summary>The terminal summary of a Monte Carlo run: yield, the error envelope at up to 20 temperatures, the contributors.</summary>
 public static class MonteCarloText
 {
-    public static string Render(FrontEndDesign design, MonteCarloResult r)
+    public static string Render(FrontEndDesign design, MonteCarloResult r, RunProvenance provenance)
     {
         var text = new StringBuilder();
         var distribution = r.Parameters.Count > 0 ? r.Parameters[0].Distribution.ToString() : "none";
         text.AppendLine(Invariant($"{design.Name}: {r.Units} units, seed {r.Seed}, tolerances {distribution}"));
+        ProvenanceText.Append(text, provenance);
         text.AppendLine(Invariant($"yield: {100 * r.Yield:0.00} % within budget ({r.UnitsWithinBudget} of {r.Units}; ±{100 * r.YieldStandardError:0.00} % standard error)"));
         text.AppendLine(Invariant($"largest self-heating in any unit: {r.MaximumSelfHeatingKelvin * 1e3:0.###} mK"));
         text.AppendLine();

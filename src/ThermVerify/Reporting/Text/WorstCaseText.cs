@@ -1,5 +1,6 @@
 using System.Text;
 using ThermVerify.Design;
+using ThermVerify.Provenance;
 using ThermVerify.Tolerances;
 using static ThermVerify.Reporting.Text.TextNumbers;
 
@@ -8,11 +9,12 @@ namespace ThermVerify.Reporting.Text;
 /// <summary>The terminal summary of a worst-case run: verdict, the band at up to 20 temperatures, sensitivities at the worst point.</summary>
 public static class WorstCaseText
 {
-    public static string Render(FrontEndDesign design, WorstCaseResult r)
+    public static string Render(FrontEndDesign design, WorstCaseResult r, RunProvenance provenance)
     {
         var text = new StringBuilder();
         var worst = r.Worst;
         text.AppendLine(Invariant($"{(r.WithinBudget ? "PASS" : "FAIL")} {design.Name}: worst case {Kelvin(worst.LowKelvin)} .. {Kelvin(worst.HighKelvin)} K at {worst.Celsius:0.##} °C (budget ±{worst.BudgetKelvin:0.###} K)"));
+        ProvenanceText.Append(text, provenance);
         text.AppendLine(Invariant($"{r.Parameters.Count} tolerances, {r.CornersEvaluated} corners verified in full"));
         if (r.Enumeration is { } e)
             text.AppendLine(e.LargestShortfallKelvin <= 1e-9

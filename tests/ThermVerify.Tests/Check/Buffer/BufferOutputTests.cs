@@ -53,7 +53,7 @@ public class BufferOutputTests
     {
         var buffered = ThermVerify.Check.FrontEndCheck.Run(BufferDesigns.Follower(("filter.reservoir_capacitor", "\"10 nF\""), ("buffer.isolation_resistor", "\"47 ohm\"")),
             new ThermVerify.Check.CheckOptions { ComputeRemedies = false, MaximumSamplingPoints = 3 });
-        var report = new ThermVerify.Reporting.CheckReport(buffered, "test.toml", "", [], null, "test");
+        var report = new ThermVerify.Reporting.CheckReport(buffered, "test.toml", "", [], null, ThermVerify.Api.RunStamp.Check(buffered.Design));
         var html = ThermVerify.Reporting.CheckHtml.Render(report);
         var md = ThermVerify.Reporting.CheckMarkdown.Render(report);
         foreach (var id in new[] { "buffer-stability", "buffer-headroom", "buffer-static", "buffer-recovery", "buffer-noise" })
@@ -63,8 +63,8 @@ public class BufferOutputTests
 
         var plain = ThermVerify.Check.FrontEndCheck.Run(Check.TestDesign.Make(), new ThermVerify.Check.CheckOptions { ComputeRemedies = false, MaximumSamplingPoints = 3 });
         Assert.Null(plain.Buffer);
-        Assert.DoesNotContain("buffer-stability", ThermVerify.Reporting.CheckHtml.Render(new ThermVerify.Reporting.CheckReport(plain, "t.toml", "", [], null, "test")));
-        Assert.Contains("\"buffer\": null", ThermVerify.Reporting.CheckJson.Write(plain));
+        Assert.DoesNotContain("buffer-stability", ThermVerify.Reporting.CheckHtml.Render(new ThermVerify.Reporting.CheckReport(plain, "t.toml", "", [], null, ThermVerify.Api.RunStamp.Check(plain.Design))));
+        Assert.Contains("\"buffer\": null", ThermVerify.Reporting.CheckJson.Write(plain, ThermVerify.Api.RunStamp.Check(plain.Design)));
     }
 
     [Fact]
