@@ -1,3 +1,5 @@
+using ThermVerify.Limits;
+
 namespace ThermVerify.Simulation.Switched;
 
 /// <summary>
@@ -43,6 +45,8 @@ internal sealed class TimelineCursor
     /// <summary>The present period's pattern, recomputed only where the timeline says it may change.</summary>
     private void NewPeriod(long k)
     {
+        // A run of many checked periods never factorises a matrix (where the engine observes the run's cancellation).
+        Work.ThrowIfCancelled();
         previousPattern = k == period + 1 ? pattern : PatternOf(k - 1);
         period = k;
         if (regular || k < patternUntil)
