@@ -48,46 +48,74 @@ public sealed class BuiltInEngine : ICheckEngine
     /// <summary>Time stepping; only the samples are read, so a long run keeps no recorded waveform.</summary>
     private sealed class Stepped(TransientSimulation simulation) : ISampledTransient
     {
+        public double TimeSeconds => simulation.TimeSeconds;
+
         public double VoltageAt(double timeSeconds, string node)
         {
-            if (timeSeconds > simulation.TimeSeconds)
-            {
-                simulation.AdvanceTo(timeSeconds);
-                simulation.ForgetRecordedPoints();
-            }
+            AdvanceTo(timeSeconds);
             return simulation.Voltage(node);
         }
+
+        public void AdvanceTo(double timeSeconds)
+        {
+            if (timeSeconds <= simulation.TimeSeconds) return;
+            simulation.AdvanceTo(timeSeconds);
+            simulation.ForgetRecordedPoints();
+        }
+
+        public double[] Solution() => simulation.CaptureState().Solution;
     }
 
     /// <summary>
-    /// Exact propagation; when an op-amp leaves its linear region the run is time-stepped from the start instead (reads
-    /// rise, so the stepped run simply catches up to the time asked for).
+    /// Exact propagation, with time stepping where an op-amp leaves its linear region: the time-stepping run (from
+    /// t = 0, the same operating point) is carried past the instant the exact run failed at, and exact propagation
+    /// continues from its state there. A further failure on the same interval doubles the stretch stepped (from 1/16 of
+    /// the interval), so a slow recovery (an amplifier leaving its rail) costs a few attempts, and a run whose op-amp
+    /// leaves its region in every period is time stepping with a failed exact interval between steps. Reads rise, so
+    /// the stepped run only ever catches up.
     /// </summary>
     private sealed class Exact(ExactSwitchedTransient exact, Func<Stepped> fallBack) : ISampledTransient
     {
-        private readonly Func<double, string, double> read = exact.Reader();
+        private Func<double, string, double>? read = exact.Reader();
         private Stepped? stepped;
+        private double resumeSeconds = double.NaN;
 
         public double VoltageAt(double timeSeconds, string node)
         {
-            if (stepped is null)
+            while (true)
             {
-                try
+                if (read is not null)
                 {
-                    return read(timeSeconds, node);
+                    try
+                    {
+                        return read(timeSeconds, node);
+                    }
+                    catch (NotLinearException e)
+                    {
+                        stepped ??= fallBack();
+                        read = null;
+                        resumeSeconds = e.Violation is { } v ? ResumeAfter(v) : double.PositiveInfinity;
+                    }
                 }
-                catch (NotLinearException)
-                {
-                    stepped = fallBack();
-                }
+                if (timeSeconds <= resumeSeconds)
+                    return stepped!.VoltageAt(timeSeconds, node);
+                stepped!.AdvanceTo(resumeSeconds);
+                read = exact.ReaderFrom(resumeSeconds, stepped.Solution());
             }
-            return stepped.VoltageAt(timeSeconds, node);
+        }
+
+        /// <summary>Where to try exact propagation again after it failed on the interval [From, To].</summary>
+        private double ResumeAfter(LinearityViolation v)
+        {
+            // Failed again at once after resuming: step the rest of the interval.
+            var resume = v.FromSeconds == resumeSeconds ? v.ToSeconds
+                : Math.Min(v.ToSeconds, Math.Max(stepped!.TimeSeconds, v.AtSeconds) + (v.ToSeconds - v.FromSeconds) / 16);
+            return resume;
         }
 
         public bool TryPeriodicSteadyState(string samplingSwitch, string node, out double volts)
         {
             volts = double.NaN;
-            if (stepped is not null) return false;
             try
             {
                 volts = exact.SteadyStateSampleVoltage(samplingSwitch, node);

@@ -6,6 +6,9 @@ internal static class FrontEndNodes
     /// <summary>Excitation: the top of the divider.</summary>
     public const string Excitation = "exc";
 
+    /// <summary>The supply a switched divider's excitation switch connects to the divider.</summary>
+    public const string Supply = "supply";
+
     /// <summary>The divider's midpoint, where the sensor meets the fixed resistor.</summary>
     public const string Divider = "div";
 
@@ -25,4 +28,5 @@ internal static class FrontEndNodes
     public const string FixedElement = "Rfixed";
     public const string SamplingSwitch = "Ssample";
     public const string PrechargeSwitch = "Sprecharge";
+    public const string ExcitationSwitch = "Sexcitation";
 }

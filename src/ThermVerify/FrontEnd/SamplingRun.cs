@@ -106,12 +106,24 @@ internal static class SamplingRun
             // The last sample instant itself, computed as every sample time is, so a read there is never past the end.
             StopTimeSeconds = FrontEndCircuit.SampleTimeSeconds(design, conversions - 1),
             MaxStepSeconds = period / 4,
-            // The global error of a sample grows as the local tolerance to the power 2/3 (second-order steps) and the
-            // relative part dominates at volt levels: 1e-5 left 0.2 mV (0.2 LSB of 12 bits) after a charge-sharing step,
-            // against ngspice and the two-capacitor closed form; 1e-8 leaves about 2 µV.
-            RelativeTolerance = 1e-8,
+            RelativeTolerance = RelativeToleranceFor(AdcTransfer.Of(design)),
             VoltageToleranceVolts = Math.Max(settleVolts / 1000, 1e-12),
         });
+    }
+
+    /// <summary>
+    /// The time-stepping engine's relative tolerance for the accuracy the check needs: a sample within 0.01 LSB, with
+    /// a factor 2 to spare. The global error of a sample grows as the local tolerance to the power 2/3 (second-order
+    /// steps) and the relative part dominates at volt levels; on the worst case measured, a charge-sharing step onto
+    /// an unbuffered 100 kΩ divider, relative 1e-8 left about 2 µV against ngspice and the two-capacitor closed form
+    /// (1e-5 left 0.2 mV). Scaled from there: 2.9e-8 for 12 bits on 3.3 V, 2.3e-7 for 10 bits, 4.5e-10 for 16 bits.
+    /// Exact propagation, where the circuit allows it, has no such error and ignores the setting.
+    /// </summary>
+    internal static double RelativeToleranceFor(AdcTransfer adc)
+    {
+        const double MeasuredErrorVolts = 2e-6, AtTolerance = 1e-8;
+        var wantedVolts = 0.005 * adc.LsbVolts;
+        return Math.Clamp(AtTolerance * Math.Pow(wantedVolts / MeasuredErrorVolts, 1.5), 1e-11, 1e-5);
     }
 
     private static ISampledTransient Start(ICheckEngine? engine, FrontEndDesign design, double celsius, double? prechargeVolts,

@@ -183,6 +183,40 @@ internal sealed class ExactSwitchedTransient
         };
     }
 
+    /// <summary>
+    /// A reader as <see cref="Reader"/>, continuing from another engine's solution at <paramref name="startSeconds"/>:
+    /// where the time-stepping engine has carried the run across a stretch in which an op-amp left its linear region,
+    /// exact propagation takes over again (and raises <see cref="NotLinearException"/> again where the op-amp leaves it
+    /// anew). Only the integrated states of <paramref name="solution"/> are taken (capacitor voltages, inductor
+    /// currents): the rest follows from them in each configuration.
+    /// </summary>
+    /// <param name="solution">The full solution vector of the same circuit at that time, as the time-stepping engine holds it.</param>
+    public Func<double, string, double> ReaderFrom(double startSeconds, double[] solution)
+    {
+        if (!(startSeconds > 0 && double.IsFinite(startSeconds)))
+            throw new ArgumentOutOfRangeException(nameof(startSeconds), startSeconds, "A continued run starts at a positive, finite time.");
+        if (solution.Length < system.Size)
+            throw new ArgumentException($"The solution has {solution.Length} values; the circuit has {system.Size} unknowns.", nameof(solution));
+        // The position: the interval the start lies in (one starting within the snap of it counts as started), and
+        // how far into it; an instant within the snap of the period's end is the next period's start.
+        var period = (long)Math.Floor(startSeconds / PeriodSeconds);
+        var phase = startSeconds - period * PeriodSeconds;
+        if (phase >= PeriodSeconds - timeline.SnapSeconds)
+            (period, phase) = (period + 1, 0);
+        var interval = timeline.IntervalEndingAt(phase + 2 * timeline.SnapSeconds);
+        var elapsed = Math.Max(0, phase - timeline.Starts[interval]);
+        if (elapsed <= timeline.SnapSeconds)
+            elapsed = 0;
+        var cursor = new TimelineCursor(maps, timeline, coordinates.StateOf(solution), regular: false, period, interval, elapsed);
+        return (t, node) =>
+        {
+            if (!double.IsFinite(t) || t <= startSeconds)
+                throw new ArgumentOutOfRangeException(nameof(t), t, $"Read times must be finite and after the start of the continued run ({startSeconds:G9} s).");
+            var (k, p) = PeriodAndPhase(t);
+            return cursor.ReadAt(k, p, UnknownOf(node));
+        };
+    }
+
     private TimelineCursor SteadyStateCursor()
     {
         if (steadyState is null)

@@ -1,3 +1,5 @@
+using ThermVerify.Limits;
+
 namespace ThermVerify.Simulation.Switched;
 
 /// <summary>
@@ -20,21 +22,31 @@ internal sealed class TimelineCursor
     private long patternUntil;
 
     /// <param name="regular">Follow the regular pattern in every period (the periodic steady state) instead of the schedules' own.</param>
-    public TimelineCursor(SwitchedMaps maps, PeriodicTimeline timeline, double[] state, bool regular)
+    /// <param name="startPeriod">The period in which <paramref name="state"/> is (0: the start of the run).</param>
+    /// <param name="startInterval">The interval of that period in which the state is.</param>
+    /// <param name="startElapsed">How far into that interval the state is, in seconds.</param>
+    public TimelineCursor(SwitchedMaps maps, PeriodicTimeline timeline, double[] state, bool regular, long startPeriod = 0,
+        int startInterval = 0, double startElapsed = 0)
     {
+        ArgumentOutOfRangeException.ThrowIfNegative(startPeriod);
+        interval = startInterval;
+        elapsed = startElapsed;
         this.maps = maps;
         this.timeline = timeline;
         this.regular = regular;
         z = (double[])state.Clone();
         next = new double[z.Length];
-        pattern = PatternOf(0);
-        previousPattern = pattern;
-        patternUntil = regular ? long.MaxValue : timeline.NextChange(0);
+        period = startPeriod;
+        pattern = PatternOf(startPeriod);
+        previousPattern = startPeriod == 0 ? pattern : PatternOf(startPeriod - 1);
+        patternUntil = regular ? long.MaxValue : timeline.NextChange(startPeriod);
     }
 
     /// <summary>The present period's pattern, recomputed only where the timeline says it may change.</summary>
     private void NewPeriod(long k)
     {
+        // A run of many checked periods never factorises a matrix (where the engine observes the run's cancellation).
+        Work.ThrowIfCancelled();
         previousPattern = k == period + 1 ? pattern : PatternOf(k - 1);
         period = k;
         if (regular || k < patternUntil)
