@@ -72,7 +72,6 @@ internal static class Newton
             previousRatio = ratio;
             system.AdoptNext();
             system.NoteLostDigits();
-            if (Environment.GetEnvironmentVariable("SCRATCH_TRACE") is not null) Console.Error.WriteLine($"it {iteration} ratio {ratio:G3} worst {(worstUnknown>=0?system.Layout.UnknownNames[worstUnknown]:"-")} limited {limited} val {(worstUnknown>=0?next[worstUnknown]:0):G6} gmin {system.Context.DiagonalGmin} src {system.Context.SourceFactor}");
             if (ratio <= 1 && !limited)
                 return true;
         }
