@@ -86,10 +86,10 @@ internal sealed class TransientResult
         var s = timeSeconds - t0;
         var x0 = values[(j - 1) * w + index];
         var x1 = values[j * w + index];
-        // Right after a breakpoint the solution may jump (a switch edge moves every node without a capacitor at once),
-        // and the point at the breakpoint holds the value before it: inside the probe step (10⁻⁹ of the span) the value
-        // after it is the right one.
-        if (probes[j])
+        // Right after a switch edge the solution jumps (every node without a capacitor moves at once), and the point at
+        // the breakpoint holds the value before it: inside the probe step (10⁻⁹ of the span) the value after it is the
+        // right one. After a source's corner nothing jumps, and the probe interpolates like any backward-Euler step.
+        if (probes[j] && SwitchFlipsAt(j - 1))
             return x1;
         if (formulas[j] == StepFormula.BackwardEuler)
             return x0 + (x1 - x0) * s / h;
@@ -106,6 +106,18 @@ internal sealed class TransientResult
         var d0 = slopes[(j - 1) * w + index];
         var d1 = slopes[j * w + index];
         return x0 + d0 * s + (d1 - d0) * s * s / (2 * h);
+    }
+
+    /// <summary>Whether a switch changes state at point <paramref name="point"/>: its state in the step before (the
+    /// operating point's at the start) differs from its state in the step after, as the switch stamp reads it (mid-step).</summary>
+    private bool SwitchFlipsAt(int point)
+    {
+        var before = point >= 1 ? 0.5 * (times[point - 1] + times[point]) : times[point];
+        var after = 0.5 * (times[point] + times[point + 1]);
+        foreach (var element in system.Circuit.Elements)
+            if (element is TimedSwitch sw && sw.Schedule.IsClosed(before) != sw.Schedule.IsClosed(after))
+                return true;
+        return false;
     }
 
     /// <summary>The integration formula of the step that ended at point <paramref name="point"/> (for tests).</summary>

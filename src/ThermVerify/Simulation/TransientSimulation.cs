@@ -12,7 +12,7 @@ namespace ThermVerify.Simulation;
 /// Gear-2, which damps stiff modes, and says so in the result's notes. The local truncation
 /// error of every integrated state is estimated from divided differences of its values since the last
 /// breakpoint (<see cref="StateHistory"/>). So that those never straddle a discontinuity, the first step
-/// after a breakpoint is a tiny backward-Euler probe (10⁻⁹ of the time to the next stop, but at least a thousand
+/// after a breakpoint is a tiny backward-Euler probe (10⁻⁹ of the time to the next stop, but at least four
 /// times the time resolution at t; its own error far below any tolerance), the second a checked backward-Euler step, and trapezoidal steps follow.
 /// A step whose error exceeds its tolerance is redone shorter; the next step is
 /// h·min(2, 0.9·(tol/err)^(1/(k+1))). Breakpoints and requested output times are landed on exactly.
@@ -127,8 +127,11 @@ internal sealed class TransientSimulation
         if (options.FixedStepSeconds is { } fixedStep)
             return fixedStep >= span - StopQueue.Epsilon(stop) ? span : fixedStep;
         if (history.SinceBreak == 1)
+            // The floor only keeps the probe's end distinct from the breakpoint (the stop queue merges times closer than
+            // Epsilon). A thousand times Epsilon, as before, made the probe 1 ps long at small t, a fortieth of a 43 ps
+            // source ramp (differential seed 128).
             return Math.Min(span, Math.Max(ProbeFraction * Math.Min(span, maxStep),
-                Math.Max(1e3 * StopQueue.Epsilon(TimeSeconds), options.MinStepSeconds)));
+                Math.Max(4 * StopQueue.Epsilon(TimeSeconds), options.MinStepSeconds)));
         var h = Math.Min(proposedStep > 0 ? proposedStep : span * 1e-3, maxStep);
         if (h >= span - StopQueue.Epsilon(stop))
             return span;

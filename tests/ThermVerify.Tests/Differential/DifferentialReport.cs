@@ -33,6 +33,26 @@ internal sealed class DifferentialReport(IReadOnlyList<CaseResult> cases)
         return values[Math.Clamp(rank, 0, values.Count - 1)];
     }
 
+    /// <summary>
+    /// One tab-separated line per comparison of every case (seed, class, stable, analysis, ngspice failed, built-in
+    /// failed, declined, difference, explained, above the limit), so that the reports of a run made in chunks can be
+    /// combined into one set of figures.
+    /// </summary>
+    public string Table(IReadOnlyDictionary<DifferentialAnalysis, double> limits)
+    {
+        var s = new StringBuilder("seed\tclass\tstable\tanalysis\tngspice_failed\tours_failed\tdeclined\tdifference\texplained\tabove_limit\n");
+        foreach (var c in cases)
+        {
+            if (c.Comparisons.Count == 0)
+                s.AppendLine(CultureInfo.InvariantCulture, $"{c.Circuit.Seed}\t{c.Circuit.Class}\t{c.Stable}\t-\t\t\t\t\t\t");
+            foreach (var x in c.Comparisons)
+                s.AppendLine(CultureInfo.InvariantCulture,
+                    $"{c.Circuit.Seed}\t{c.Circuit.Class}\t{c.Stable}\t{x.Analysis}\t{x.NgspiceFailure is not null}\t{x.OursFailure is not null}\t" +
+                    $"{x.OursDeclined}\t{x.Difference:R}\t{x.Explanation is not null}\t{x.Difference > limits.GetValueOrDefault(x.Analysis, double.PositiveInfinity)}");
+        }
+        return s.ToString();
+    }
+
     public string Render(IReadOnlyDictionary<DifferentialAnalysis, double> limits)
     {
         var s = new StringBuilder();

@@ -38,7 +38,8 @@ public class DifferentialTests(ITestOutputHelper output)
     /// <summary>
     /// The large run, on request only: <c>THERMVERIFY_DIFFERENTIAL=3000 dotnet test tests/ThermVerify.Tests --filter
     /// FullyQualifiedName~Large_run</c>, optionally <c>THERMVERIFY_DIFFERENTIAL_FIRST</c> (first seed, default 1) and
-    /// <c>THERMVERIFY_DIFFERENTIAL_REPORT</c> (a file for the report, which docs/engine.md quotes).
+    /// <c>THERMVERIFY_DIFFERENTIAL_REPORT</c> (a file for the report, which docs/engine.md quotes, and beside it the same
+    /// path with <c>.tsv</c> added: every comparison on a line, to combine the chunks of a long run).
     /// </summary>
     [DifferentialLargeRunFact]
     public void Large_run_of_random_circuits_completes_and_agrees_with_ngspice()
@@ -49,7 +50,10 @@ public class DifferentialTests(ITestOutputHelper output)
         var text = report.Render(DifferentialCase.Limits);
         output.WriteLine(text);
         if (Environment.GetEnvironmentVariable("THERMVERIFY_DIFFERENTIAL_REPORT") is { Length: > 0 } path)
+        {
             File.WriteAllText(path, text);
+            File.WriteAllText(path + ".tsv", report.Table(DifferentialCase.Limits));
+        }
         Judge(report);
     }
 

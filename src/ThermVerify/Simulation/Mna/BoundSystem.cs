@@ -176,6 +176,23 @@ internal sealed class BoundSystem
     public bool IsIllConditioned => factorValid && lu.ErrorAmplification(Context.Solution, Weights()) > MatrixCondition.Limit
         && MatrixCondition.Exceeds(lu.ErrorAmplificationPerUnknown(Context.Solution, Weights()));
 
+    /// <summary>
+    /// The per-unknown amplification of the first Newton iterate since <see cref="ForgetLostDigits"/> whose matrix had
+    /// a pivot vanish to rounding (<see cref="DenseLu{T}.ReplacedPivot"/>), or null. Newton cannot converge where rounding
+    /// moves the iterate by more than its tolerance (a diode forced far forward by a voltage-defined branch conducts
+    /// 1e117 A, and its conductance swallows every other on its nodes): if every aid fails, this is why.
+    /// </summary>
+    public double[]? LostDigits { get; private set; }
+
+    public void ForgetLostDigits() => LostDigits = null;
+
+    /// <summary>Records <see cref="LostDigits"/> for the present solution, if it is the first such.</summary>
+    public void NoteLostDigits()
+    {
+        if (LostDigits is null && factorValid && lu.ReplacedPivot)
+            LostDigits = lu.ErrorAmplificationPerUnknown(Context.Solution, Weights());
+    }
+
     /// <summary>Throws <see cref="IllConditionedMatrixException"/> when <see cref="IsIllConditioned"/>.</summary>
     public void CheckConditioning(string analysis, string where)
     {

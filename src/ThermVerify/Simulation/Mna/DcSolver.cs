@@ -11,7 +11,9 @@ namespace ThermVerify.Simulation.Mna;
 /// <item>source stepping: every independent source ramped from 0 to its value, the ramp step doubled after a success
 /// and halved after a failure.</item>
 /// </list>
-/// The last solution must also keep at least half its digits (<see cref="MatrixCondition"/>).
+/// The last solution must also keep at least half its digits (<see cref="MatrixCondition"/>). When every aid fails
+/// after a pivot of some iterate had vanished to rounding, the lost digits are the error reported
+/// (<see cref="BoundSystem.LostDigits"/>), rather than a singular matrix: no aid settles an iterate rounding moves at will.
 /// </summary>
 internal static class DcSolver
 {
@@ -26,6 +28,7 @@ internal static class DcSolver
         var guess = (double[])c.Solution.Clone();
         SingularMatrixException? singular = null;
         var where = sweepValue is { } v ? $" at sweep value {v:G6}" : "";
+        system.ForgetLostDigits();
 
         if (Attempt(system, ref singular, out var worst))
             return Checked(system, analysis, where, ConvergenceAid.None);
@@ -42,6 +45,8 @@ internal static class DcSolver
             return Checked(system, analysis, where, ConvergenceAid.SourceStepping);
         worst = w2 >= 0 ? w2 : worst;
 
+        if (system.LostDigits is { } lost)
+            throw MatrixCondition.Exception(system.Layout, lost, analysis, where, "did not converge, since an iterate's matrix lost its digits");
         if (singular is not null)
             throw singular;
         var node = worst >= 0 ? system.Layout.UnknownNames[worst] : "(unknown)";

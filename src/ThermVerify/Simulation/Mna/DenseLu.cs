@@ -40,6 +40,9 @@ internal sealed class DenseLu<T> where T : struct, INumberBase<T>
     private readonly OneNormEstimator<T> estimator;
     private readonly Action<T[]> inverse, inverseTransposed;
     private double equilibratedNorm;
+    // Whether some row's entries span more than 1/u, so that summing the stamps into it may have lost whole terms.
+    private bool absorbs;
+    private static readonly double UnitRoundoffInverse = Math.ScaleB(1.0, 53);
     private double? condition;
     // Per thread, not per matrix: short analyses that build a new matrix each time still count up.
     [ThreadStatic] private static int factorisations;
@@ -71,15 +74,21 @@ internal sealed class DenseLu<T> where T : struct, INumberBase<T>
 
     public int Size => n;
 
+    /// <summary>Whether the last factorisation replaced a vanished pivot (a matrix whose rows span more than 1/u, whose
+    /// smaller terms rounding may have lost): the solve then has no digits there, and the matrix is not singular.</summary>
+    public bool ReplacedPivot { get; private set; }
+
     /// <summary>
     /// Factorises the first n² entries of <paramref name="matrix"/>; returns −1, or the unknown (column) whose
-    /// pivot vanished, or whose row or column is empty.
+    /// pivot vanished, or whose row or column is empty. A pivot that vanished in a matrix whose rows span more than
+    /// 1/u (u = 2⁻⁵³) is replaced by a tiny one instead (see below): rounding, not the circuit, may have made it zero.
     /// </summary>
     public int Factor(T[] matrix)
     {
         // Every analysis passes through here: Ctrl+C and the time limit stop it within a few solver steps.
         if ((++factorisations & 63) == 0) Work.ThrowIfCancelled();
         condition = null;
+        ReplacedPivot = false;
         var a = lu.AsSpan();
         matrix.AsSpan(0, n * n).CopyTo(a);
         var failed = Equilibrate(a);
@@ -104,8 +113,21 @@ internal sealed class DenseLu<T> where T : struct, INumberBase<T>
             // Only an exactly vanishing pivot makes the matrix singular here. A tiny one may still give a usable answer (a
             // diode conducting 1e19 A beside unit entries leaves pivots of 1e-21 after scaling); whether the answer kept
             // its digits is the componentwise check's to say (MatrixCondition), with the unknowns named.
-            if (!(best > 0) || !double.IsFinite(best))
+            if (!double.IsFinite(best))
                 return k;
+            if (best == 0)
+            {
+                if (!absorbs)
+                    return k;
+                // A row whose entries span more than 1/u lost its small terms when the stamps were summed (a diode forced
+                // to 7 V by a source conducts 1e117 A, and its 1e119 S swallows every other conductance on its nodes), so
+                // this zero may be rounding's, not the circuit's: the matrix is then not singular but has lost every
+                // digit. The pivot is replaced by u times its row's scale (static pivoting, X. S. Li and J. W. Demmel,
+                // ACM TOMS 29 (2003) 110–140, from memory), so the solve goes on and the componentwise check reports the
+                // unknowns that lost their digits, where a singular matrix would name only the column that ran out.
+                a[k * n + k] = Scalar<T>.From(Math.ScaleB(1.0, -53));
+                ReplacedPivot = true;
+            }
             if (p != k)
             {
                 var rowP = a.Slice(p * n, n);
@@ -137,14 +159,22 @@ internal sealed class DenseLu<T> where T : struct, INumberBase<T>
     /// </summary>
     private int Equilibrate(Span<T> a)
     {
+        absorbs = false;
         for (var i = 0; i < n; i++)
         {
             var largest = 0.0;
+            var smallest = double.PositiveInfinity;
             var row = a.Slice(i * n, n);
             for (var j = 0; j < n; j++)
-                largest = Math.Max(largest, Scalar<T>.Magnitude(row[j]));
+            {
+                var m = Scalar<T>.Magnitude(row[j]);
+                largest = Math.Max(largest, m);
+                if (m > 0)
+                    smallest = Math.Min(smallest, m);
+            }
             if (!(largest > 0) || !double.IsFinite(largest))
                 return i;
+            absorbs |= largest > UnitRoundoffInverse * smallest;
             var s = PowerOfTwoBelowInverse(largest);
             rowScale[i] = Scalar<T>.From(s);
             for (var j = 0; j < n; j++)

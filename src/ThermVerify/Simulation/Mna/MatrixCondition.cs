@@ -45,7 +45,9 @@ internal static class MatrixCondition
     /// <summary>Whether some unknown's amplification is above <see cref="Limit"/> (or not a number).</summary>
     public static bool Exceeds(double[] amplification) => amplification.Any(a => !(a <= Limit));
 
-    public static IllConditionedMatrixException Exception(MnaLayout layout, double[] amplification, string analysis, string where)
+    /// <param name="failure">What went wrong before the matrix was judged (e.g. "did not converge, since …"), or null.</param>
+    public static IllConditionedMatrixException Exception(MnaLayout layout, double[] amplification, string analysis, string where,
+        string? failure = null)
     {
         var worst = amplification.Max();
         var bad = Enumerable.Range(0, layout.Size).Where(i => amplification[i] > Limit).OrderByDescending(i => amplification[i]).Take(6).ToList();
@@ -53,11 +55,12 @@ internal static class MatrixCondition
         var elements = bad.SelectMany(i => layout.Touching[i]).Distinct().ToList();
         var digits = Math.Max(0, Math.Floor(-Math.Log10(worst * Math.ScaleB(1.0, -53))));
         return new IllConditionedMatrixException(
-            $"{analysis}{where}: the circuit matrix is ill-conditioned: rounding alone can move {string.Join(", ", unknowns.Select(u => $"'{u}'"))} " +
+            $"{analysis}{where}{(failure is null ? "" : " " + failure)}: the circuit matrix is ill-conditioned: rounding alone can move {string.Join(", ", unknowns.Select(u => $"'{u}'"))} " +
             $"by {worst:G2} units in the last place of the circuit's scale, so the result keeps only about {digits:0} of its 16 digits there " +
             $"(elements: {string.Join(", ", elements)}). Typical causes: a group of nodes tied to each other by small resistances " +
             "but to the rest of the circuit only through a very large one (an open switch, a reverse-biased diode, a leakage path), " +
-            "or element values many decades apart on the same node; give such nodes a realistic path to ground or bring the values closer.",
+            "or element values many decades apart on the same node, or a diode held forward by volts by a source or controlled source " +
+            "(nothing then limits its current); give such nodes a realistic path to ground, bring the values closer, or put a resistance in series with the diode.",
             worst, unknowns, elements);
     }
 }

@@ -71,6 +71,7 @@ internal static class Newton
             }
             previousRatio = ratio;
             system.AdoptNext();
+            system.NoteLostDigits();
             if (ratio <= 1 && !limited)
                 return true;
         }
