@@ -148,8 +148,23 @@ internal static class FindingRules
         if (adc.OffsetErrorLsb != 0) parts.Add("offset " + Bounded(I($"{Math.Abs(adc.OffsetErrorLsb):0.###} LSB"), adc.OffsetErrorSigned, adc.OffsetErrorLsb));
         if (adc.GainError != 0) parts.Add("gain error " + Bounded(I($"{Math.Abs(adc.GainError) * 100:0.###} %"), adc.GainErrorSigned, adc.GainError));
         if (adc.InlLsb != 0) parts.Add(I($"INL ±{adc.InlLsb:0.###} LSB as a bow"));
-        if (adc.ReferenceTempcoPerKelvin != 0) parts.Add("reference tempco " + Bounded(I($"{Math.Abs(adc.ReferenceTempcoPerKelvin) * 1e6:0.###} ppm/K"), adc.ReferenceTempcoSigned, adc.ReferenceTempcoPerKelvin));
+        if (adc.ReferenceTempcoPerKelvin != 0 && !adc.IsRatiometric)
+            parts.Add("reference tempco " + Bounded(I($"{Math.Abs(adc.ReferenceTempcoPerKelvin) * 1e6:0.###} ppm/K"), adc.ReferenceTempcoSigned, adc.ReferenceTempcoPerKelvin)
+                      + ReferenceDrift(design, p, lsb));
         return string.Join(", ", parts) + I($" (IEEE Std 1241 terms): the code moves by {p.Simulated.ConverterVolts / lsb:+0.##;-0.##} LSB at {p.Celsius:0.##} °C") + CornerNote(p);
+    }
+
+    /// <summary>
+    /// The reference's own part, closed form: at the board temperature it is V_ref·(1 + δ) with δ = tc·(T − 25 °C), so a
+    /// sample V reads as the code V/(Q·(1 + δ)) and moves by V/Q·(1/(1 + δ) − 1) LSB (code = V/Q, IEEE Std 1241). A bound
+    /// takes the sign of the point's corner: the upper corner lowers the reference.
+    /// </summary>
+    private static string ReferenceDrift(FrontEndDesign design, CheckPoint p, double lsb)
+    {
+        var board = design.Check.BoardCelsius ?? p.Celsius;
+        var tempco = design.Adc.ReferenceTempcoPerKelvin;
+        var drift = design.Adc.ReferenceTempcoSigned ? tempco * (board - 25) : (p.Corner == "bounds down" ? 1 : -1) * Math.Abs(tempco * (board - 25));
+        return I($" (the reference at {board:0.##} °C is {drift * 100:+0.####;-0.####} % off, V/Q·(1/(1 + δ) − 1) = {p.SampleVolts / lsb * (1 / (1 + drift) - 1):+0.##;-0.##} LSB)");
     }
 
     private static string BufferCause(FrontEndDesign design, CheckPoint p)

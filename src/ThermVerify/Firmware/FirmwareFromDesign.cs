@@ -33,9 +33,24 @@ internal static class FirmwareFromDesign
 
     public static FaultTolerances Tolerances(FrontEndDesign design) => new(
         ExcitationFraction: design.Divider.ExcitationTolerance,
-        ReferenceFraction: design.Adc.ReferenceTolerance,
+        ReferenceFraction: design.Adc.ReferenceTolerance + ReferenceDriftFraction(design),
         FixedResistorFraction: design.Divider.FixedTolerance,
         ExcitationTracksReference: design.Adc.IsRatiometric);
+
+    /// <summary>
+    /// The largest relative drift of a fixed reference from 25 °C where it sits: at the board temperature, or over the
+    /// whole check range when the board follows the sweep. A tempco with a sign drifts one way only, but the other corner
+    /// is still its tolerance, so the drift widens the band by its size (a thresholds' margin, not a reading).
+    /// </summary>
+    public static double ReferenceDriftFraction(FrontEndDesign design)
+    {
+        if (design.Adc.IsRatiometric) return 0;
+        var range = design.Check.Range;
+        var farthest = design.Check.BoardCelsius is { } board
+            ? Math.Abs(board - 25)
+            : Math.Max(Math.Abs(range.MinCelsius - 25), Math.Abs(range.MaxCelsius - 25));
+        return Math.Abs(design.Adc.ReferenceTempcoPerKelvin) * farthest;
+    }
 
     private static double Interpolate((double Unloaded, double Offset)[] points, double volts)
     {
