@@ -97,12 +97,17 @@ internal sealed class CheckEvaluation
         var averagePin = corner.AveragePinVolts[c][i];
         var heat = Inputs.SelfHeatingVolts[i];
 
-        // The walk from the closed form to the code, one cause at a time.
+        // The walk from the closed form to the code, one cause at a time. Where the circuit makes the reference (a
+        // reference resistor) the walk is on the converter's own scale, every voltage over the simulated reference
+        // times the nominal one, so that a current error, which moves pin and reference together, shows as nothing.
+        var scale = corner.ReferenceVolts is { } reference ? Model.Adc.ReferenceVolts / reference[i] : 1;
         var ideal = cf.IdealVolts;
         var afterBuffer = corner.AfterBufferVolts?[i] ?? ideal;
-        var level = choice.First ? staticPin : averagePin;
-        var sample = level + (choice.First ? first : steady);
-        var warmed = choice.SampleVolts;
+        var level = scale * (choice.First ? staticPin : averagePin);
+        var sample = level + scale * (choice.First ? first : steady);
+        var warmed = scale * choice.SampleVolts;
+        staticPin *= scale;
+        averagePin *= scale;
         var converted = choice.UnroundedCode * Model.Adc.LsbVolts;
         double T(double volts) => Model.CelsiusAtVolts(volts);
         double[] parts =

@@ -69,8 +69,14 @@ public sealed record EffectEstimates(
     double SteadySettlingVolts,
     double SelfHeatingVolts)
 {
-    /// <summary>DC loading: leakage and the fixed resistor's drift.</summary>
-    public double LoadingVolts => FixedDriftVolts + LeakageVolts;
+    /// <summary>
+    /// A current excitation's own error at the pin on the converter's scale: the source's drift and output resistance,
+    /// and with a reference resistor that resistor's drift and the reference input's loading (the current cancels).
+    /// </summary>
+    public double ExcitationVolts { get; init; }
+
+    /// <summary>DC loading: leakage, the fixed resistor's drift and a current excitation's own error.</summary>
+    public double LoadingVolts => FixedDriftVolts + LeakageVolts + ExcitationVolts;
 
     /// <summary>The buffer: offset with its drift, and the bias current through the divider.</summary>
     public double BufferVolts => BufferOffsetVolts + BiasCurrentVolts;

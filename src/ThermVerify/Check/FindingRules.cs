@@ -26,7 +26,8 @@ internal static class FindingRules
 
         Add("converter", "the converter's static errors (offset, gain, INL, reference) shift the code by more than ½ LSB",
             p => p.Simulated.ConverterVolts, p => p.Contributions.ConverterKelvin, p => ConverterCause(design, p, lsb), p => p.Simulated.ConverterVolts, simulated: false);
-        Add("dc-loading", "DC error at the pin: pin leakage, fixed-resistor drift",
+        Add("dc-loading", design.CurrentSource is null ? "DC error at the pin: pin leakage, fixed-resistor drift"
+                : "DC error at the pin: pin leakage, the current source's drift and output resistance, the reference resistor's drift and loading",
             p => p.Simulated.DcLoadingVolts, p => p.Contributions.DcLoadingKelvin,
             p => LoadingCause(design, p),
             p => p.Estimates.LoadingVolts);
@@ -135,9 +136,11 @@ internal static class FindingRules
         if (design.Adc.PinLeakageAmperes != 0)
             parts.Add(I($"pin leakage {Bounded(Amps(Math.Abs(EffectEstimator.LeakageAmps(design, p.Celsius))), design.Adc.PinLeakageSigned, design.Adc.PinLeakageAmperes)} ") +
                       I($"through the {Ohms(p.Estimates.SourceOhms)} the pin sees (Ohm's law) {Volts(p.Estimates.LeakageVolts)}"));
-        if (design.Divider.FixedTempcoPerKelvin != 0)
-            parts.Add(I($"the fixed resistor's tempco of {Bounded(I($"{Math.Abs(design.Divider.FixedTempcoPerKelvin) * 1e6:0.###} ppm/K"), design.Divider.FixedTempcoSigned, design.Divider.FixedTempcoPerKelvin)} ") +
+        if (design.Divider is { FixedTempcoPerKelvin: not 0 } divider)
+            parts.Add(I($"the fixed resistor's tempco of {Bounded(I($"{Math.Abs(divider.FixedTempcoPerKelvin) * 1e6:0.###} ppm/K"), divider.FixedTempcoSigned, divider.FixedTempcoPerKelvin)} ") +
                       I($"at {(design.Check.BoardCelsius ?? p.Celsius):0.##} °C {Volts(p.Estimates.FixedDriftVolts)}"));
+        if (design.CurrentSource is { } source)
+            parts.Add(CurrentWords.Loading(design, source, p));
         return string.Join(", and ", parts) + CornerNote(p);
     }
 
@@ -175,19 +178,19 @@ internal static class FindingRules
         if (b.OffsetDriftVoltsPerKelvin != 0) words.Add("drift " + Bounded(EngineeringFormat.Format(Math.Abs(b.OffsetDriftVoltsPerKelvin), UnitKind.VoltPerKelvin, 4), b.OffsetDriftSigned, b.OffsetDriftVoltsPerKelvin) +
                                                         I($" with the op-amp at {(design.Check.BoardCelsius ?? p.Celsius):0.##} °C"));
         if (b.BiasCurrentAmperes != 0) words.Add("bias current " + Bounded(Amps(Math.Abs(b.BiasCurrentAmperes)), b.BiasCurrentSigned, b.BiasCurrentAmperes));
-        var thevenin = p.SensorOhms * design.Divider.FixedResistorOhms / (p.SensorOhms + design.Divider.FixedResistorOhms);
+        var thevenin = p.SensorOhms * design.VoltageDivider.FixedResistorOhms / (p.SensorOhms + design.VoltageDivider.FixedResistorOhms);
         return string.Join(", ", words) + I($": offset and drift {Volts(p.Estimates.BufferOffsetVolts)} (times the stage gain), bias current through the divider's {Ohms(thevenin)} ") +
                I($"{Volts(p.Estimates.BiasCurrentVolts)} (Ohm's law), and the finite open-loop gain") + CornerNote(p);
     }
 
     /// <summary>A value as the design gives it: "±25 nA (a bound)" or "+25 nA" when written with its sign.</summary>
-    private static string Bounded(string magnitude, bool signed, double value) =>
+    internal static string Bounded(string magnitude, bool signed, double value) =>
         signed ? (value < 0 ? "−" : "+") + magnitude : "±" + magnitude + " (a bound)";
 
     /// <summary>Which corner of the bounds the point's reading is at.</summary>
-    private static string CornerNote(CheckPoint p) => p.Corner.Length > 0 ? I($"; the bounds at the corner that reads worse here ({p.Corner})") : "";
+    internal static string CornerNote(CheckPoint p) => p.Corner.Length > 0 ? I($"; the bounds at the corner that reads worse here ({p.Corner})") : "";
 
-    private static string Volts(double v) => EngineeringFormat.Format(v, UnitKind.Volt, 4);
+    internal static string Volts(double v) => EngineeringFormat.Format(v, UnitKind.Volt, 4);
     private static string Amps(double a) => EngineeringFormat.Format(a, UnitKind.Ampere, 4);
     private static string Ohms(double r) => EngineeringFormat.Format(r, UnitKind.Ohm, 4);
     private static string I(FormattableString s) => s.ToString(CultureInfo.InvariantCulture);

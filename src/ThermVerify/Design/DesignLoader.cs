@@ -10,7 +10,7 @@ namespace ThermVerify.Design;
 /// </summary>
 internal static class DesignLoader
 {
-    private static readonly string[] TopKeys = ["name", "description", "sensor", "divider", "buffer", "filter", "adc", "check", "tolerances"];
+    private static readonly string[] TopKeys = ["name", "description", "sensor", "divider", "current_source", "buffer", "filter", "adc", "check", "tolerances"];
 
     public static FrontEndDesign Load(string path)
     {
@@ -51,7 +51,8 @@ internal static class DesignLoader
             Name = name,
             Description = root.String("description"),
             Sensor = sensor,
-            Divider = CircuitReaders.ReadDivider(root.RequiredSection("divider", "Add a [divider] section (sensor_side, fixed_resistor, excitation).")),
+            Divider = root.Section("divider") is { } divider ? CircuitReaders.ReadDivider(divider) : null,
+            CurrentSource = root.Section("current_source") is { } source ? CurrentSourceReader.Read(source) : null,
             Buffer = root.Section("buffer") is { } buffer ? CircuitReaders.ReadBuffer(buffer) : null,
             Filter = root.Section("filter") is { } filter ? CircuitReaders.ReadFilter(filter) : FilterSpec.None,
             Adc = AdcReader.Read(root.RequiredSection("adc", "Add an [adc] section (bits, reference, sample_rate, acquisition_time, ...).")),
@@ -59,6 +60,7 @@ internal static class DesignLoader
             Tolerances = root.Section("tolerances") is { } tolerances ? ToleranceReader.Read(tolerances) : ToleranceSpec.Default,
         };
         CheckWork(root.Section("check")!, design.Check);
+        ExcitationRules.Check(root, design);
         return design;
     }
 

@@ -15,9 +15,12 @@ internal static class FirmwareFromDesign
     /// </summary>
     public static FirmwareModel Model(FrontEndDesign design, bool correctForLoading)
     {
+        var divider = design.Divider ?? throw new FirmwareInputException(
+            "Firmware tables are made for a divider; this design excites its sensor with a current source, whose table (R_s = V/I, " +
+            "or R_ref·code/2^N with a reference resistor) is not made yet. Run check, worstcase or montecarlo on it instead.");
         var closedForm = new ClosedFormModel(design);
-        var model = new FirmwareModel(closedForm.Sensor, design.Divider.SensorSide, design.Divider.FixedResistorOhms,
-            design.Divider.ExcitationVolts, closedForm.Adc, design.Check.Range);
+        var model = new FirmwareModel(closedForm.Sensor, divider.SensorSide, divider.FixedResistorOhms,
+            divider.ExcitationVolts, closedForm.Adc, design.Check.Range);
         if (!correctForLoading) return model.Validated();
 
         var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToArray();
@@ -32,9 +35,9 @@ internal static class FirmwareFromDesign
     }
 
     public static FaultTolerances Tolerances(FrontEndDesign design) => new(
-        ExcitationFraction: design.Divider.ExcitationTolerance,
+        ExcitationFraction: design.Divider?.ExcitationTolerance ?? 0,
         ReferenceFraction: design.Adc.ReferenceTolerance + ReferenceDriftFraction(design),
-        FixedResistorFraction: design.Divider.FixedTolerance,
+        FixedResistorFraction: design.Divider?.FixedTolerance ?? 0,
         ExcitationTracksReference: design.Adc.IsRatiometric);
 
     /// <summary>

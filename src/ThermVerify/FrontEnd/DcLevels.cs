@@ -18,6 +18,18 @@ internal sealed record DcLevels(
     IReadOnlyList<double[]> AveragePinVolts)
 {
     /// <summary>
+    /// The converter's reference where the circuit makes it, the reference resistor's voltage v(exc) − v(div) from the
+    /// sweep with everything static; null for a fixed reference or a ratiometric divider (the converter knows those).
+    /// </summary>
+    public double[]? ReferenceVolts { get; init; }
+
+    /// <summary>A current source's output voltage (for its compliance); null for a divider.</summary>
+    public double[]? SourceVolts { get; init; }
+
+    /// <summary>The settled pin voltage over the reference, the converter's own scale (the pin itself without a simulated reference).</summary>
+    public double StaticRatio(int i) => ReferenceVolts is { } r ? StaticPinVolts[i] / r[i] : StaticPinVolts[i];
+
+    /// <summary>
     /// The average sampling current is modelled where a reservoir holds the pin between samples; without one the pin
     /// follows the source between samples and the transient alone tells the sampling error.
     /// </summary>
@@ -28,7 +40,7 @@ internal sealed record DcLevels(
     public static FrontEndDesign WithoutLoading(FrontEndDesign design) => design with
     {
         Adc = design.Adc with { PinLeakageAmperes = 0 },
-        Divider = design.Divider with { FixedTempcoPerKelvin = 0 },
+        Divider = design.Divider is { } d ? d with { FixedTempcoPerKelvin = 0 } : null,
     };
 
     public static DcLevels Run(FrontEndDesign design, IReadOnlyList<PrechargeCase> cases, IReadOnlyList<double> temperaturesCelsius,
@@ -36,13 +48,16 @@ internal sealed record DcLevels(
     {
         engine ??= BuiltInEngine.Instance;
         var pinNode = FrontEndCircuit.PinNode(design);
-        var plain = Sweep(engine, design, null, temperaturesCelsius, [Divider, pinNode]);
+        var source = design.CurrentSource;
+        var output = source is null ? null : CurrentSourceCircuit.OutputNode(source);
+        var plain = Sweep(engine, design, null, temperaturesCelsius, output is null ? [Divider, pinNode] : [Divider, pinNode, output]);
         var staticPin = plain[1];
+        double[]? reference = source?.ReferenceResistorOhms is null ? null : [.. plain[2].Select((v, i) => v - plain[0][i])];
         var afterBuffer = design.Buffer is null ? null : Sweep(engine, WithoutLoading(design), null, temperaturesCelsius, [pinNode])[0];
         var average = cases.Select(c => UsesAverageSamplingCurrent(design, c.Volts)
             ? Sweep(engine, design, c.Volts, temperaturesCelsius, [pinNode])[0]
             : staticPin).ToArray();
-        return new DcLevels(plain[0], afterBuffer, staticPin, average);
+        return new DcLevels(plain[0], afterBuffer, staticPin, average) { ReferenceVolts = reference, SourceVolts = output is null ? null : plain[2] };
     }
 
     /// <summary>

@@ -3,7 +3,7 @@ namespace ThermVerify.FrontEnd;
 /// <summary>Node and element names of the circuits built from a design (also used in SPICE decks and reports).</summary>
 internal static class FrontEndNodes
 {
-    /// <summary>Excitation: the top of the divider.</summary>
+    /// <summary>Excitation: the top of the divider, or the current source's output above the reference resistor.</summary>
     public const string Excitation = "exc";
 
     /// <summary>The divider's midpoint, where the sensor meets the fixed resistor.</summary>
@@ -21,7 +21,12 @@ internal static class FrontEndNodes
     /// <summary>What the sampling capacitor is precharged to before each acquisition.</summary>
     public const string Precharge = "pre";
 
+    /// <summary>The current source's tempco stage (a 1 Ω resistor carrying 1 A), in a sweep without a board temperature.</summary>
+    public const string SourceTempco = "itc";
+
     public const string SensorElement = "Rsensor";
+    public const string CurrentSourceElement = "Iexc";
+    public const string ReferenceResistorElement = "Rref";
     public const string FixedElement = "Rfixed";
     public const string SamplingSwitch = "Ssample";
     public const string PrechargeSwitch = "Sprecharge";

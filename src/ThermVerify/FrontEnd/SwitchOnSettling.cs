@@ -18,13 +18,13 @@ internal static class SwitchOnSettling
     public static double FirstSampleVolts(FrontEndDesign design, double celsius, double? prechargeVolts, double settleVolts,
         ICheckEngine? engine = null)
     {
-        var lead = design.Divider.SwitchOnLeadSeconds
+        var lead = design.Divider?.SwitchOnLeadSeconds
             ?? throw new ArgumentException("The design has no switched excitation ([divider] switch_on_lead).", nameof(design));
         var adc = design.Adc;
         var period = 1 / adc.SampleRateHertz;
         var (circuit, options) = SamplingRun.Setup(design, celsius, prechargeVolts, settleVolts, 1);
         circuit = circuit.Replace(new VoltageSource("Vexc", FrontEndNodes.Excitation, Circuit.Ground,
-            new PiecewiseLinearWaveform((0, 0), (EdgeSeconds, design.Divider.ExcitationVolts))));
+            new PiecewiseLinearWaveform((0, 0), (EdgeSeconds, design.VoltageDivider.ExcitationVolts))));
         var sampling = (TimedSwitch)circuit[FrontEndNodes.SamplingSwitch];
         var sampleAt = lead + adc.AcquisitionTimeSeconds;
         circuit = circuit.Replace(sampling with { Schedule = new IntervalSchedule((lead, sampleAt)) });
