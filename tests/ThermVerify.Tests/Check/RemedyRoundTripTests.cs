@@ -122,6 +122,8 @@ public class RemedyRoundTripTests
         "filter.reservoir_capacitor" => d.Filter.ReservoirCapacitorFarads > 0 ? d.Filter.ReservoirCapacitorFarads : null,
         "filter.series_resistor" => d.Filter.SeriesResistorOhms,
         "divider.fixed_tempco" => d.VoltageDivider.FixedTempcoPerKelvin,
+        "current_source.current_tempco" => d.CurrentSource!.CurrentTempcoPerKelvin,
+        "current_source.reference_resistor_tempco" => d.CurrentSource!.ReferenceResistorTempcoPerKelvin,
         "sensor.dissipation_constant" => d.Sensor.DissipationConstantWattsPerKelvin,
         "buffer.gain_bandwidth" => d.Buffer?.GainBandwidthHertz,
         "buffer.offset_voltage" => d.Buffer?.OffsetVolts,
