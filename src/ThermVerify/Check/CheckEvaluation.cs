@@ -93,8 +93,9 @@ internal sealed class CheckEvaluation
         var corner = Dc.Corners[choice.Corner];
         var first = Offsets.FirstVolts[c][i];
         var steady = Offsets.SteadyVolts[c][i];
-        var staticPin = corner.StaticPinVolts[i];
-        var averagePin = corner.AveragePinVolts[c][i];
+        // What the converter converts: the pin against its negative input (ground, or a lead's near end).
+        var staticPin = corner.StaticPinVolts[i] - corner.NegativeAt(i);
+        var averagePin = corner.AveragePinVolts[c][i] - corner.NegativeAt(i);
         var heat = Inputs.SelfHeatingVolts[i];
 
         // The walk from the closed form to the code, one cause at a time. Where the circuit makes the reference (a

@@ -75,8 +75,14 @@ public sealed record EffectEstimates(
     /// </summary>
     public double ExcitationVolts { get; init; }
 
-    /// <summary>DC loading: leakage, the fixed resistor's drift and a current excitation's own error.</summary>
-    public double LoadingVolts => FixedDriftVolts + LeakageVolts + ExcitationVolts;
+    /// <summary>
+    /// The sensor's leads (with a current source): 2 wires add 2·I·R_L, 3 wires leave the mismatch term −m·I·R_L, 4 wires
+    /// the input current times the sense lead, −I_in·R_L (each lead at the leads' temperature).
+    /// </summary>
+    public double LeadVolts { get; init; }
+
+    /// <summary>DC loading: leakage, the fixed resistor's drift, a current excitation's own error and its leads.</summary>
+    public double LoadingVolts => FixedDriftVolts + LeakageVolts + ExcitationVolts + LeadVolts;
 
     /// <summary>The buffer: offset with its drift, and the bias current through the divider.</summary>
     public double BufferVolts => BufferOffsetVolts + BiasCurrentVolts;

@@ -10,7 +10,7 @@ namespace ThermVerify.Check;
 /// output voltage (every corner of the bounds) is held against the range at every temperature of the check: the
 /// sensor's resistance is monotonic, so the coldest or the hottest point is where it leaves first. The finding fails,
 /// since beyond the range the current, and with it every reading, is no longer what the design says. The closed form
-/// beside it is Ohm's law, V = I·(R_ref + R_s).
+/// beside it is Ohm's law, V = I·(R_ref + R_s) and the leads (<see cref="CurrentFormula.Network"/>).
 /// </summary>
 internal static class ComplianceRule
 {
@@ -32,12 +32,12 @@ internal static class ComplianceRule
         if (outside.Count == 0) yield break;
         var worst = outside.MaxBy(o => Math.Abs(o.Beyond));
         var t = temperatures[worst.Index];
-        var closedForm = source.CurrentAmperes * ((source.ReferenceResistorOhms ?? 0) + points[worst.Index].SensorOhms);
+        var closedForm = CurrentFormula.Network(design, points[worst.Index].SensorOhms, EffectEstimator.LeakageAmps(design, t), design.Check.BoardCelsius ?? t).SourceVolts;
         yield return new Finding(Id, Severity.Fail,
             I($"the current source's output leaves its compliance range {V(range.MinVolts)} .. {V(range.MaxVolts)}"),
             temperatures[outside.Min(o => o.Index)], temperatures[outside.Max(o => o.Index)], t,
             worst.Beyond, worst.Beyond / lsbVolts, double.NaN,
-            I($"at {t:0.##} °C the source's output is {V(worst.Volts)} (closed form I·(R_ref + R_s) = {V(closedForm)}), {V(Math.Abs(worst.Beyond))} ") +
+            I($"at {t:0.##} °C the source's output is {V(worst.Volts)} (closed form I·(R_ref + R_s + leads) = {V(closedForm)}), {V(Math.Abs(worst.Beyond))} ") +
             (worst.Beyond > 0 ? "above" : "below") + " the range: the source cannot hold its current there, and the readings are not what the design says",
             closedForm, worst.Volts, []);
     }

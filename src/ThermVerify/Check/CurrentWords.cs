@@ -22,9 +22,14 @@ internal static class CurrentWords
         if (source.ReferenceInputOhms is { } input)
             words.Add("the reference input's " + EngineeringFormat.Format(input, UnitKind.Ohm, 4) + " across the reference resistor");
         var scale = source.ReferenceResistorOhms is null ? "" : ", read over the reference I·R_ref";
+        var leads = design.Wiring is { } w
+            ? I($"; the {w.Wires}-wire leads of {EngineeringFormat.Format(w.LeadOhms, UnitKind.Ohm, 4)} each at {(w.LeadCelsius ?? board):0.##} °C ") +
+              (w.Wires switch { 2 => "(2·I·R_L)", 3 => "(the mismatch term −m·I·R_L)", _ => "(the input current times the sense lead)" }) +
+              I($" {FindingRules.Volts(p.Estimates.LeadVolts)}")
+            : "";
         return I($"the current source of {EngineeringFormat.Format(source.CurrentAmperes, UnitKind.Ampere, 4)} at {board:0.##} °C") +
                (words.Count == 0 ? "" : " (" + string.Join(", ", words) + ")") +
-               I($": the network by Kirchhoff's laws{scale} puts the pin {FindingRules.Volts(p.Estimates.ExcitationVolts)} from I·R_s");
+               I($": the network by Kirchhoff's laws{scale} puts the pin {FindingRules.Volts(p.Estimates.ExcitationVolts)} from I·R_s") + leads;
     }
 
     private static string I(FormattableString s) => s.ToString(CultureInfo.InvariantCulture);

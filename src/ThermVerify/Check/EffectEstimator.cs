@@ -21,7 +21,7 @@ internal static class EffectEstimator
         var adc = design.Adc;
         var source = SourceOhms(design, point);
         var leakage = -LeakageAmps(design, point.Celsius) * source;
-        var (drift, excitation) = (0.0, 0.0);
+        var (drift, excitation, leads) = (0.0, 0.0, 0.0);
         if (design.Divider is { } divider)
         {
             var driftOhms = divider.FixedResistorOhms * divider.FixedTempcoPerKelvin * ((design.Check.BoardCelsius ?? point.Celsius) - 25);
@@ -30,13 +30,13 @@ internal static class EffectEstimator
                     DividerFormula.SlopeVoltsPerOhm(divider.SensorSide, divider.ExcitationVolts, point.SensorOhms, divider.FixedResistorOhms);
         }
         else
-            (leakage, excitation) = CurrentLoading(design, point);
+            (leakage, excitation, leads) = CurrentLoading(design, point);
         var (offset, bias) = design.Buffer is null ? (0.0, 0.0) : BufferStaticErrors.At(design, point) is var s ? (s.OffsetVolts + s.DriftVolts, s.BiasVolts) : default;
         var average = DcLevels.UsesAverageSamplingCurrent(design, prechargeVolts)
             ? SamplingFormulas.SwitchedCapacitorErrorVolts(prechargeVolts!.Value - point.IdealVolts, source, adc.SampleRateHertz, adc.SamplingCapacitanceFarads)
             : 0;
         EffectEstimates Make(double first, double steady) =>
-            new(source, drift, leakage, offset, bias, average, first, steady, selfHeatingVolts) { ExcitationVolts = excitation };
+            new(source, drift, leakage, offset, bias, average, first, steady, selfHeatingVolts) { ExcitationVolts = excitation, LeadVolts = leads };
         if (prechargeVolts is not { } pre) return Make(0, 0);
 
         var reservoir = design.Filter.ReservoirCapacitorFarads;
@@ -55,23 +55,23 @@ internal static class EffectEstimator
 
     /// <summary>
     /// A current excitation's pin error on the converter's scale, from the network solved by hand
-    /// (<see cref="CurrentFormula.Network"/>): the pin is the sensor's node less the leakage through the series resistor,
-    /// over the reference where a reference resistor makes it (times the nominal I·R_ref). The excitation's part is the
-    /// network without leakage against I·R_s; the leakage's part is what the leakage adds to that.
+    /// (<see cref="CurrentFormula.Network"/>), over the reference where a reference resistor makes it (times the nominal
+    /// I·R_ref). Split in three that add up exactly: the excitation's own part (no leads, no leakage, against I·R_s), what
+    /// the leakage adds to it, and what the leads add to that.
     /// </summary>
-    private static (double LeakageVolts, double ExcitationVolts) CurrentLoading(FrontEndDesign design, ClosedFormPoint point)
+    private static (double LeakageVolts, double ExcitationVolts, double LeadVolts) CurrentLoading(FrontEndDesign design, ClosedFormPoint point)
     {
-        var source = design.CurrentSource!;
+        var nominal = design.CurrentSource!.NominalReferenceVolts;
         var board = design.Check.BoardCelsius ?? point.Celsius;
         var drawn = LeakageAmps(design, point.Celsius);
-        double Pin(double amperes)
+        double Read(double amperes, bool leads)
         {
-            var n = CurrentFormula.Network(source, point.SensorOhms, amperes, board);
-            var pin = n.SensorVolts - amperes * design.Filter.SeriesResistorOhms;
-            return source.NominalReferenceVolts is { } nominal ? pin * nominal / n.ReferenceVolts : pin;
+            var n = CurrentFormula.Network(design, point.SensorOhms, amperes, board, leads);
+            return nominal is { } v ? n.PinVolts * v / n.ReferenceVolts : n.PinVolts;
         }
-        var unloaded = Pin(0);
-        return (Pin(drawn) - unloaded, unloaded - point.IdealVolts);
+        var bare = Read(0, false);
+        var leaking = Read(drawn, false);
+        return (leaking - bare, bare - point.IdealVolts, Read(drawn, true) - leaking);
     }
 
     /// <summary>The dominant time constant of the acquisition without a reservoir: R_s·(C_sh + C_pin) + R_on·C_sh.</summary>

@@ -10,7 +10,7 @@ namespace ThermVerify.Design;
 /// </summary>
 internal static class DesignLoader
 {
-    private static readonly string[] TopKeys = ["name", "description", "sensor", "divider", "current_source", "buffer", "filter", "adc", "check", "tolerances"];
+    private static readonly string[] TopKeys = ["name", "description", "sensor", "divider", "current_source", "wiring", "buffer", "filter", "adc", "check", "tolerances"];
 
     public static FrontEndDesign Load(string path)
     {
@@ -53,6 +53,7 @@ internal static class DesignLoader
             Sensor = sensor,
             Divider = root.Section("divider") is { } divider ? CircuitReaders.ReadDivider(divider) : null,
             CurrentSource = root.Section("current_source") is { } source ? CurrentSourceReader.Read(source) : null,
+            Wiring = root.Section("wiring") is { } wiring ? WiringReader.Read(wiring) : null,
             Buffer = root.Section("buffer") is { } buffer ? CircuitReaders.ReadBuffer(buffer) : null,
             Filter = root.Section("filter") is { } filter ? CircuitReaders.ReadFilter(filter) : FilterSpec.None,
             Adc = AdcReader.Read(root.RequiredSection("adc", "Add an [adc] section (bits, reference, sample_rate, acquisition_time, ...).")),

@@ -22,6 +22,8 @@ internal static class DesignWriter
             WriteDivider(w, divider);
         if (design.CurrentSource is { } source)
             WriteCurrentSource(w, source);
+        if (design.Wiring is { } wiring)
+            WriteWiring(w, wiring);
         if (design.Buffer is not null)
             WriteBuffer(w, design.Buffer);
         w.Section("filter");
@@ -117,6 +119,18 @@ internal static class DesignWriter
         w.Value("reference_resistor_tempco", c.ReferenceResistorTempcoPerKelvin, UnitKind.PpmPerKelvin, c.ReferenceResistorTempcoSigned);
         if (c.ReferenceInputOhms is { } input)
             w.Value("reference_input_resistance", input, UnitKind.Ohm);
+    }
+
+    private static void WriteWiring(Writer w, WiringSpec x)
+    {
+        w.Section("wiring");
+        w.Integer("wires", x.Wires);
+        w.Value("lead_resistance", x.LeadOhms, UnitKind.Ohm);
+        w.Value("lead_tempco", x.LeadTempcoPerKelvin, UnitKind.PpmPerKelvin);
+        if (x.LeadCelsius is { } t)
+            w.Value("lead_temperature", t, UnitKind.Celsius);
+        if (x.Wires == 3)
+            w.Value("current_mismatch", x.CurrentMismatch, UnitKind.Percent, x.CurrentMismatchSigned);
     }
 
     private static void WriteBuffer(Writer w, BufferSpec b)

@@ -15,6 +15,9 @@ internal static class ExcitationRules
         if (design.Divider is not null && design.CurrentSource is not null)
             throw root.ErrorAtKey("current_source", "both [divider] and [current_source]",
                 "A sensor is excited one way: keep [divider] (a voltage and a fixed resistor) or [current_source] (a current through the sensor).");
+        if (design.Wiring is not null && design.CurrentSource is null)
+            throw root.ErrorAtKey("wiring", "leads are modelled with a current source only",
+                "Remove [wiring], or excite the sensor with a [current_source] (the leads of a divider are not modelled yet).");
         if (design.CurrentSource is not { } source) return;
         if (design.Buffer is not null)
             throw root.ErrorAtKey("buffer", "a buffer behind a current-excited sensor is not modelled",

@@ -13,6 +13,8 @@ public sealed record FrontEndDesign
     public DividerSpec? Divider { get; init; }
     /// <summary>The current source through the sensor; null for a divider. A design has exactly one of the two.</summary>
     public CurrentSourceSpec? CurrentSource { get; init; }
+    /// <summary>The sensor's leads (with a current source); null: no leads modelled.</summary>
+    public WiringSpec? Wiring { get; init; }
     /// <summary>Null when the divider drives the filter and ADC directly.</summary>
     public BufferSpec? Buffer { get; init; }
     public required FilterSpec Filter { get; init; }

@@ -2,8 +2,8 @@ using ThermVerify.Design;
 
 namespace ThermVerify.FrontEnd;
 
-/// <summary>What a current-excited sensor's network gives at one temperature (volts, against ground).</summary>
-internal readonly record struct CurrentNetworkVolts(double SensorVolts, double ReferenceVolts, double SourceVolts);
+/// <summary>What a current-excited design's network gives at one temperature: what the converter converts (its positive input less its negative), its reference, and the source's output.</summary>
+internal readonly record struct CurrentNetworkVolts(double PinVolts, double ReferenceVolts, double SourceVolts);
 
 /// <summary>
 /// A current through the sensor, by Ohm's law: the firmware's model V = I·R_s (so R_s = V/I, and with a reference
@@ -40,16 +40,42 @@ internal static class CurrentFormula
     public static double Amperes(CurrentSourceSpec source, double boardCelsius) =>
         source.CurrentAmperes * (1 + source.CurrentTempcoPerKelvin * (boardCelsius - 25));
 
-    /// <summary>The network solved by superposition, with <paramref name="drawnAmperes"/> drawn from the sensor's node.</summary>
-    public static CurrentNetworkVolts Network(CurrentSourceSpec source, double sensorOhms, double drawnAmperes, double boardCelsius)
+    /// <summary>
+    /// The network solved by hand (Kirchhoff's laws), with <paramref name="drawnAmperes"/> drawn by the converter's
+    /// positive input (through the filter's series resistor) and the leads of <paramref name="withLeads"/>. The source's
+    /// current I_s splits between its output resistance and the chain (reference resistor R_r, then the chain R_t from its
+    /// top to ground: lead, sensor, return lead); the chain current is I_r = (I_s·R_out + I_l·R_x − I₂·R_ret)/(R_t + R_r + R_out)
+    /// (I_s for an ideal source), R_x being what the drawn current sees of the chain (all of it with 2 or 3 wires, the
+    /// sensor and the return lead with 4) and I₂ the second current of 3 wires. The converter converts
+    /// 2 wires: (I_r − I_l)·(R_s + 2·R_L); 3 wires: (I_r − I_l)·(R_L + R_s) − I₂·R_L; 4 wires: (I_r − I_l)·R_s − I_l·R_L;
+    /// less I_l times the series resistor; its reference is I_r·R_r.
+    /// </summary>
+    public static CurrentNetworkVolts Network(FrontEndDesign design, double sensorOhms, double drawnAmperes, double boardCelsius, bool withLeads = true)
     {
+        var source = design.CurrentSource!;
         var current = Amperes(source, boardCelsius);
         var reference = ReferenceOhms(source, boardCelsius);
         var output = source.OutputResistanceOhms ?? double.PositiveInfinity;
-        var chain = double.IsInfinity(output) ? current : current * output / (output + reference + sensorOhms);
-        var share = double.IsInfinity(output) ? 0 : sensorOhms / (sensorOhms + reference + output);
-        var sensor = chain * sensorOhms - drawnAmperes * TheveninOhms(source, sensorOhms, boardCelsius);
-        var across = chain * reference + drawnAmperes * share * reference;
-        return new CurrentNetworkVolts(sensor, across, sensor + across);
+        var wiring = withLeads ? design.Wiring : null;
+        var wires = wiring?.Wires ?? 2;
+        var lead = wiring is null ? 0 : wiring.LeadOhms * (1 + wiring.LeadTempcoPerKelvin * ((wiring.LeadCelsius ?? boardCelsius) - 25));
+        var second = wires == 3 ? current * (1 + wiring!.CurrentMismatch) : 0;
+        var chain = lead + sensorOhms + lead;
+        var seen = wires == 4 ? sensorOhms + lead : chain;
+        var (s, l) = (current, drawnAmperes);
+        var through = double.IsInfinity(output) ? s : (s * output + l * seen - second * lead) / (chain + reference + output);
+        double pin, top;
+        if (wires == 4)
+        {
+            pin = (through - l) * sensorOhms - l * lead;
+            top = through * chain - l * seen;
+        }
+        else
+        {
+            top = (through - l) * chain + second * lead;
+            var negative = wires == 3 ? second * lead + (through - l + second) * lead : 0;
+            pin = top - negative;
+        }
+        return new CurrentNetworkVolts(pin - l * design.Filter.SeriesResistorOhms, through * reference, top + through * reference);
     }
 }

@@ -91,10 +91,9 @@ internal static class FrontEndCircuit
     {
         var board = design.Check.BoardCelsius;
         var elements = new List<Element>();
-        if (design.CurrentSource is { } source)
+        if (design.CurrentSource is not null)
         {
-            elements.Add(new SensorResistor(SensorElement, Divider, Circuit.Ground, design.Sensor.Build()));
-            CurrentSourceCircuit.Add(elements, source, board, celsius);
+            CurrentSourceCircuit.Add(elements, design, board, celsius);
         }
         else
         {

@@ -24,6 +24,17 @@ internal static class FrontEndNodes
     /// <summary>The current source's tempco stage (a 1 Ω resistor carrying 1 A), in a sweep without a board temperature.</summary>
     public const string SourceTempco = "itc";
 
+    /// <summary>The sensor's own terminals at the far end of its leads.</summary>
+    public const string SensorTop = "sp";
+    public const string SensorBottom = "sn";
+
+    /// <summary>3 wires: the near end of the compensating lead, the converter's negative input.</summary>
+    public const string Compensation = "cmp";
+
+    /// <summary>4 wires: the near end of the force lead (the current's way in) and of the negative sense lead.</summary>
+    public const string Force = "frc";
+    public const string SenseNegative = "sns";
+
     public const string SensorElement = "Rsensor";
     public const string CurrentSourceElement = "Iexc";
     public const string ReferenceResistorElement = "Rref";

@@ -23,8 +23,8 @@ internal static class SensorTransfer
         ? c.CurrentAmperes
         : DividerFormula.SlopeVoltsPerOhm(design.VoltageDivider.SensorSide, design.VoltageDivider.ExcitationVolts, sensorOhms, design.VoltageDivider.FixedResistorOhms);
 
-    /// <summary>The resistance the sensor's node sees (nominal parts at 25 °C).</summary>
+    /// <summary>The resistance the sensor's node sees (nominal parts at 25 °C; with leads, two of them in series with the sensor).</summary>
     public static double TheveninOhms(FrontEndDesign design, double sensorOhms) => design.CurrentSource is { } c
-        ? CurrentFormula.TheveninOhms(c, sensorOhms, 25)
+        ? CurrentFormula.TheveninOhms(c, sensorOhms + 2 * (design.Wiring?.LeadOhms ?? 0), 25)
         : DividerFormula.TheveninOhms(sensorOhms, design.VoltageDivider.FixedResistorOhms);
 }

@@ -30,6 +30,8 @@ internal static class StaticBounds
             Add("current_source.reference_resistor_tempco", source.ReferenceResistorTempcoPerKelvin, source.ReferenceResistorTempcoSigned,
                 (x, v) => x with { CurrentSource = x.CurrentSource! with { ReferenceResistorTempcoPerKelvin = v } });
         }
+        if (d.Wiring is { Wires: 3 } wiring)
+            Add("wiring.current_mismatch", wiring.CurrentMismatch, wiring.CurrentMismatchSigned, (x, v) => x with { Wiring = x.Wiring! with { CurrentMismatch = v } });
         if (d.Buffer is { Subcircuit: null } b)
         {
             Add("buffer.offset_voltage", b.OffsetVolts, b.OffsetSigned, (x, v) => x with { Buffer = x.Buffer! with { OffsetVolts = v } });

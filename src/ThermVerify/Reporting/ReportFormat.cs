@@ -135,7 +135,8 @@ internal static class ReportFormat
         var c = d.CurrentSource!;
         return ("current", $"{V(c.CurrentAmperes, UnitKind.Ampere)} through the sensor" +
                            (c.ReferenceResistorOhms is { } r ? $", reference resistor {V(r, UnitKind.Ohm)}" : "") +
-                           (c.Compliance is { } range ? $", compliance {V(range.MinVolts, UnitKind.Volt)} to {V(range.MaxVolts, UnitKind.Volt)}" : ""));
+                           (c.Compliance is { } range ? $", compliance {V(range.MinVolts, UnitKind.Volt)} to {V(range.MaxVolts, UnitKind.Volt)}" : "") +
+                           (d.Wiring is { } w ? $", {w.Wires} wires of {V(w.LeadOhms, UnitKind.Ohm)}" : ""));
     }
 
     /// <summary>The converter's reference in words: a voltage, the divider's excitation, or the reference resistor's I·R_ref.</summary>

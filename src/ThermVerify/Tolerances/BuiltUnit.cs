@@ -63,8 +63,12 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
                 BiasCurrentSigned = true,
             }
             : null;
+        var wiring = nominal.Wiring is { } w
+            ? w with { CurrentMismatch = Bound(ToleranceKind.CurrentMismatch, w.CurrentMismatch), CurrentMismatchSigned = true }
+            : null;
         var design = nominal with
         {
+            Wiring = wiring,
             Sensor = new PerturbedSensorSpec(nominal.Sensor, sensor),
             Divider = divider,
             CurrentSource = source,

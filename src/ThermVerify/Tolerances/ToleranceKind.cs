@@ -37,4 +37,6 @@ public enum ToleranceKind
     ReferenceResistance,
     /// <summary>The reference resistor's tempco, spread over ±|tempco|.</summary>
     ReferenceResistorTempco,
+    /// <summary>3 wires: the mismatch of the second current against the first, spread over ±|mismatch|.</summary>
+    CurrentMismatch,
 }

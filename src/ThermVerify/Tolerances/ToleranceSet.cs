@@ -64,6 +64,8 @@ internal sealed class ToleranceSet
             Add(ToleranceKind.ReferenceResistorTempco, "current_source.reference_resistor_tempco", source.ReferenceResistorTempcoPerKelvin, "1/K",
                 source.ReferenceResistorTempcoSigned);
         }
+        if (design.Wiring is { Wires: 3 } wiring)
+            Add(ToleranceKind.CurrentMismatch, "wiring.current_mismatch", wiring.CurrentMismatch, "", wiring.CurrentMismatchSigned);
         var adc = design.Adc;
         if (!adc.IsRatiometric)
         {

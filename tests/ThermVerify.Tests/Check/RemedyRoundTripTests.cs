@@ -124,6 +124,7 @@ public class RemedyRoundTripTests
         "divider.fixed_tempco" => d.VoltageDivider.FixedTempcoPerKelvin,
         "current_source.current_tempco" => d.CurrentSource!.CurrentTempcoPerKelvin,
         "current_source.reference_resistor_tempco" => d.CurrentSource!.ReferenceResistorTempcoPerKelvin,
+        "wiring.current_mismatch" => d.Wiring!.CurrentMismatch,
         "sensor.dissipation_constant" => d.Sensor.DissipationConstantWattsPerKelvin,
         "buffer.gain_bandwidth" => d.Buffer?.GainBandwidthHertz,
         "buffer.offset_voltage" => d.Buffer?.OffsetVolts,

@@ -18,6 +18,7 @@ internal static class Knobs
         ["divider.fixed_tempco"] = "use a fixed resistor with a negligible tempco",
         ["current_source.current_tempco"] = "use a current source with a negligible tempco",
         ["current_source.reference_resistor_tempco"] = "use a reference resistor with a negligible tempco",
+        ["wiring.current_mismatch"] = "match the two currents (or calibrate their mismatch out)",
         ["buffer.offset_voltage"] = "trim (or calibrate) the op-amp's offset out",
         ["buffer.offset_drift"] = "use an op-amp with negligible offset drift (chopper-stabilised)",
         ["buffer.bias_current"] = "use an op-amp with negligible bias current",
@@ -61,6 +62,9 @@ internal static class Knobs
 
     public static readonly Knob CurrentTempco = Magnitude("current_source.current_tempco", "ppm/K", d => d.CurrentSource!.CurrentTempcoPerKelvin,
         (d, v) => d with { CurrentSource = d.CurrentSource! with { CurrentTempcoPerKelvin = v } }, "use a current source with a tempco of at most");
+
+    public static readonly Knob CurrentMismatch = Magnitude("wiring.current_mismatch", "fraction", d => d.Wiring!.CurrentMismatch,
+        (d, v) => d with { Wiring = d.Wiring! with { CurrentMismatch = v } }, "match the two currents of the 3-wire connection to within");
 
     public static readonly Knob ReferenceResistorTempco = Magnitude("current_source.reference_resistor_tempco", "ppm/K",
         d => d.CurrentSource!.ReferenceResistorTempcoPerKelvin,
@@ -180,6 +184,7 @@ internal static class Knobs
                     (FixedTempco, design.Divider?.FixedTempcoPerKelvin is not (null or 0) ? Math.Abs(worst.Estimates.FixedDriftVolts) : -1),
                     (ReferenceResistorTempco, design.CurrentSource?.ReferenceResistorTempcoPerKelvin is not (null or 0) ? Math.Abs(worst.Estimates.ExcitationVolts) : -1),
                     (CurrentTempco, design.CurrentSource is { ReferenceResistorOhms: null, CurrentTempcoPerKelvin: not 0 } ? Math.Abs(worst.Estimates.ExcitationVolts) : -1),
+                    (CurrentMismatch, design.Wiring is { Wires: 3, CurrentMismatch: not 0 } ? Math.Abs(worst.Estimates.LeadVolts) : -1),
                 };
                 var knobs = Ordered(parts);
                 if (design.Adc.PinLeakageAmperes != 0) knobs.AddRange(buffered ? [SeriesResistor] : buffer);
