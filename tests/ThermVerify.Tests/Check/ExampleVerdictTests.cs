@@ -23,6 +23,7 @@ public class ExampleVerdictTests
     [InlineData("buffered-cable-probe.toml", true, null)]
     [InlineData("oven-pt1000.toml", true, null)]
     [InlineData("mash-tun-pt100-current.toml", true, null)]
+    [InlineData("greenhouse-pt1000-4wire.toml", true, null)]
     [InlineData("table-sensor-freezer.toml", true, null)]
     [InlineData("cold-storage-logger-buffered.toml", true, null)]
     [InlineData("soil-probe-switched.toml", true, null)]

@@ -114,6 +114,24 @@ public class WiringTests
             Assert.Equal((int)Math.Round(65536 * CurrentDesigns.Ohms(p.Celsius) / 2000), p.Code);
     }
 
+    [Fact]
+    public void The_greenhouse_logger_passes_on_four_wires_and_would_fail_on_two()
+    {
+        // Its 6 Ω leads at 5 °C read 2·I·R_L = 2·200 µA·5.53 Ω = 2.2 mV high on 2 wires, about 2.9 K on a Pt1000
+        // (3.85 Ω/K): the same design on 4 wires crosses the sense leads with the converter's input current alone.
+        var design = ExampleDesigns.Load("greenhouse-pt1000-4wire.toml");
+        var four = FrontEndCheck.Run(design, Options);
+        Assert.True(four.Passed);
+        var two = FrontEndCheck.Run(design with { Wiring = design.Wiring! with { Wires = 2 } }, Options);
+        Assert.False(two.Passed);
+        var loading = Assert.Single(two.Findings, f => f.Id == "dc-loading");
+        Assert.Equal(Severity.Fail, loading.Severity);
+        // 2e-4: the current is 20 ppm/K × 5 K = 1e-4 above 200 µA at the board, and the ±7 nA leakage bound crosses the leads too.
+        foreach (var p in two.Points)
+            Tolerance.AssertClose(200e-6 * 2 * Lead(6, 5), p.Estimates.LeadVolts, 2e-4, 0, $"2·I·R_L at {p.Celsius} °C");
+        Tolerance.AssertClose(loading.EstimateVolts!.Value, loading.SimulatedVolts!.Value, 1e-3, 1e-7, "closed form beside the simulated value");
+    }
+
     /// <summary>ngspice, the trade's reference engine, on the 3- and 4-wire circuits the check sweeps.</summary>
     [NgspiceTheory]
     [InlineData(3)]
