@@ -107,16 +107,22 @@ internal sealed class CheckEvaluation
         var corner = Dc.Corners[choice.Corner];
         var first = Offsets.FirstVolts[c][i];
         var steady = Offsets.SteadyVolts[c][i];
-        var staticPin = corner.StaticPinVolts[i];
-        var averagePin = corner.AveragePinVolts[c][i];
+        // What the converter converts: the pin against its negative input (ground, or a lead's near end).
+        var staticPin = corner.StaticPinVolts[i] - corner.NegativeAt(i);
+        var averagePin = corner.AveragePinVolts[c][i] - corner.NegativeAt(i);
         var heat = Inputs.SelfHeatingVolts[i];
 
-        // The walk from the closed form to the code, one cause at a time.
+        // The walk from the closed form to the code, one cause at a time. Where the circuit makes the reference (a
+        // reference resistor) the walk is on the converter's own scale, every voltage over the simulated reference
+        // times the nominal one, so that a current error, which moves pin and reference together, shows as nothing.
+        var scale = corner.ReferenceVolts is { } reference ? Model.Adc.ReferenceVolts / reference[i] : 1;
         var ideal = cf.IdealVolts;
         var afterBuffer = corner.AfterBufferVolts?[i] ?? ideal;
-        var level = choice.First ? staticPin : averagePin;
-        var sample = level + (choice.First ? first : steady);
-        var warmed = choice.SampleVolts;
+        var level = scale * (choice.First ? staticPin : averagePin);
+        var sample = level + scale * (choice.First ? first : steady);
+        var warmed = scale * choice.SampleVolts;
+        staticPin *= scale;
+        averagePin *= scale;
         // A converter without errors converts the sample itself: taken as it is, the converter's part is exactly zero
         // (through code × LSB it would be the rounding of that product, 1e-13 K, shown as an effect the design lacks).
         var converted = ConverterIsIdeal ? warmed : choice.UnroundedCode * Model.Adc.LsbVolts;

@@ -69,8 +69,20 @@ public sealed record EffectEstimates(
     double SteadySettlingVolts,
     double SelfHeatingVolts)
 {
-    /// <summary>DC loading: leakage and the fixed resistor's drift.</summary>
-    public double LoadingVolts => FixedDriftVolts + LeakageVolts;
+    /// <summary>
+    /// A current excitation's own error at the pin on the converter's scale: the source's drift and output resistance,
+    /// and with a reference resistor that resistor's drift and the reference input's loading (the current cancels).
+    /// </summary>
+    public double ExcitationVolts { get; init; }
+
+    /// <summary>
+    /// The sensor's leads (with a current source): 2 wires add 2·I·R_L, 3 wires leave the mismatch term −m·I·R_L, 4 wires
+    /// the input current times the sense lead, −I_in·R_L (each lead at the leads' temperature).
+    /// </summary>
+    public double LeadVolts { get; init; }
+
+    /// <summary>DC loading: leakage, the fixed resistor's drift, a current excitation's own error and its leads.</summary>
+    public double LoadingVolts => FixedDriftVolts + LeakageVolts + ExcitationVolts + LeadVolts;
 
     /// <summary>The buffer: offset with its drift, and the bias current through the divider.</summary>
     public double BufferVolts => BufferOffsetVolts + BiasCurrentVolts;

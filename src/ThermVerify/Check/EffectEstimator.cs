@@ -21,17 +21,22 @@ internal static class EffectEstimator
         var adc = design.Adc;
         var source = SourceOhms(design, point);
         var leakage = -LeakageAmps(design, point.Celsius) * source;
-        var divider = design.Divider;
-        var driftOhms = divider.FixedResistorOhms * divider.FixedTempcoPerKelvin * ((design.Check.BoardCelsius ?? point.Celsius) - 25);
-        // The divider output depends on R_s/(R_s + R_f) only, so dV/dR_f = −(R_s/R_f)·dV/dR_s.
-        var drift = (design.Buffer?.Gain ?? 1) * driftOhms * -(point.SensorOhms / divider.FixedResistorOhms) *
+        var (drift, excitation, leads) = (0.0, 0.0, 0.0);
+        if (design.Divider is { } divider)
+        {
+            var driftOhms = divider.FixedResistorOhms * divider.FixedTempcoPerKelvin * ((design.Check.BoardCelsius ?? point.Celsius) - 25);
+            // The divider output depends on R_s/(R_s + R_f) only, so dV/dR_f = −(R_s/R_f)·dV/dR_s.
+            drift = (design.Buffer?.Gain ?? 1) * driftOhms * -(point.SensorOhms / divider.FixedResistorOhms) *
                     DividerFormula.SlopeVoltsPerOhm(divider.SensorSide, divider.ExcitationVolts, point.SensorOhms, divider.FixedResistorOhms);
+        }
+        else
+            (leakage, excitation, leads) = CurrentLoading(design, point);
         var (offset, bias) = design.Buffer is null ? (0.0, 0.0) : BufferStaticErrors.At(design, point) is var s ? (s.OffsetVolts + s.DriftVolts, s.BiasVolts) : default;
         var average = DcLevels.UsesAverageSamplingCurrent(design, prechargeVolts)
             ? SamplingFormulas.SwitchedCapacitorErrorVolts(prechargeVolts!.Value - point.IdealVolts, source, adc.SampleRateHertz, adc.SamplingCapacitanceFarads)
             : 0;
         EffectEstimates Make(double first, double steady) =>
-            new(source, drift, leakage, offset, bias, average, first, steady, selfHeatingVolts);
+            new(source, drift, leakage, offset, bias, average, first, steady, selfHeatingVolts) { ExcitationVolts = excitation, LeadVolts = leads };
         if (prechargeVolts is not { } pre) return Make(0, 0);
 
         var reservoir = design.Filter.ReservoirCapacitorFarads;
@@ -46,6 +51,27 @@ internal static class EffectEstimator
         double Residual(double from) => SamplingFormulas.SinglePoleResidualVolts(
             SamplingFormulas.KickbackStepVolts(pre - from, adc.SamplingCapacitanceFarads, adc.PinCapacitanceFarads), adc.AcquisitionTimeSeconds, tau);
         return Make(Residual(staticPinVolts), Residual(averagePinVolts));
+    }
+
+    /// <summary>
+    /// A current excitation's pin error on the converter's scale, from the network solved by hand
+    /// (<see cref="CurrentFormula.Network"/>), over the reference where a reference resistor makes it (times the nominal
+    /// I·R_ref). Split in three that add up exactly: the excitation's own part (no leads, no leakage, against I·R_s), what
+    /// the leakage adds to it, and what the leads add to that.
+    /// </summary>
+    private static (double LeakageVolts, double ExcitationVolts, double LeadVolts) CurrentLoading(FrontEndDesign design, ClosedFormPoint point)
+    {
+        var nominal = design.CurrentSource!.NominalReferenceVolts;
+        var board = design.Check.BoardCelsius ?? point.Celsius;
+        var drawn = LeakageAmps(design, point.Celsius);
+        double Read(double amperes, bool leads)
+        {
+            var n = CurrentFormula.Network(design, point.SensorOhms, amperes, board, leads);
+            return nominal is { } v ? n.PinVolts * v / n.ReferenceVolts : n.PinVolts;
+        }
+        var bare = Read(0, false);
+        var leaking = Read(drawn, false);
+        return (leaking - bare, bare - point.IdealVolts, Read(drawn, true) - leaking);
     }
 
     /// <summary>The dominant time constant of the acquisition without a reservoir: R_s·(C_sh + C_pin) + R_on·C_sh.</summary>

@@ -26,7 +26,8 @@ internal static class FindingRules
 
         Add("converter", "the converter's static errors (offset, gain, INL, reference) shift the code by more than ½ LSB",
             p => p.Simulated.ConverterVolts, p => p.Contributions.ConverterKelvin, p => ConverterCause(design, p, lsb), p => p.Simulated.ConverterVolts, simulated: false);
-        Add("dc-loading", "DC error at the pin: pin leakage, fixed-resistor drift",
+        Add("dc-loading", design.CurrentSource is null ? "DC error at the pin: pin leakage, fixed-resistor drift"
+                : "DC error at the pin: pin leakage, the current source's drift and output resistance, the reference resistor's drift and loading",
             p => p.Simulated.DcLoadingVolts, p => p.Contributions.DcLoadingKelvin,
             p => LoadingCause(design, p),
             p => p.Estimates.LoadingVolts);
@@ -135,9 +136,11 @@ internal static class FindingRules
         if (design.Adc.PinLeakageAmperes != 0)
             parts.Add(I($"pin leakage {Bounded(Amps(Math.Abs(EffectEstimator.LeakageAmps(design, p.Celsius))), design.Adc.PinLeakageSigned, design.Adc.PinLeakageAmperes)} ") +
                       I($"through the {Ohms(p.Estimates.SourceOhms)} the pin sees (Ohm's law) {Volts(p.Estimates.LeakageVolts)}"));
-        if (design.Divider.FixedTempcoPerKelvin != 0)
-            parts.Add(I($"the fixed resistor's tempco of {Bounded(I($"{Math.Abs(design.Divider.FixedTempcoPerKelvin) * 1e6:0.###} ppm/K"), design.Divider.FixedTempcoSigned, design.Divider.FixedTempcoPerKelvin)} ") +
+        if (design.Divider is { FixedTempcoPerKelvin: not 0 } divider)
+            parts.Add(I($"the fixed resistor's tempco of {Bounded(I($"{Math.Abs(divider.FixedTempcoPerKelvin) * 1e6:0.###} ppm/K"), divider.FixedTempcoSigned, divider.FixedTempcoPerKelvin)} ") +
                       I($"at {(design.Check.BoardCelsius ?? p.Celsius):0.##} °C {Volts(p.Estimates.FixedDriftVolts)}"));
+        if (design.CurrentSource is { } source)
+            parts.Add(CurrentWords.Loading(design, source, p));
         return string.Join(", and ", parts) + CornerNote(p);
     }
 
@@ -148,8 +151,23 @@ internal static class FindingRules
         if (adc.OffsetErrorLsb != 0) parts.Add("offset " + Bounded(I($"{Math.Abs(adc.OffsetErrorLsb):0.###} LSB"), adc.OffsetErrorSigned, adc.OffsetErrorLsb));
         if (adc.GainError != 0) parts.Add("gain error " + Bounded(I($"{Math.Abs(adc.GainError) * 100:0.###} %"), adc.GainErrorSigned, adc.GainError));
         if (adc.InlLsb != 0) parts.Add(I($"INL ±{adc.InlLsb:0.###} LSB as a bow"));
-        if (adc.ReferenceTempcoPerKelvin != 0) parts.Add("reference tempco " + Bounded(I($"{Math.Abs(adc.ReferenceTempcoPerKelvin) * 1e6:0.###} ppm/K"), adc.ReferenceTempcoSigned, adc.ReferenceTempcoPerKelvin));
+        if (adc.ReferenceTempcoPerKelvin != 0 && !adc.IsRatiometric)
+            parts.Add("reference tempco " + Bounded(I($"{Math.Abs(adc.ReferenceTempcoPerKelvin) * 1e6:0.###} ppm/K"), adc.ReferenceTempcoSigned, adc.ReferenceTempcoPerKelvin)
+                      + ReferenceDrift(design, p, lsb));
         return string.Join(", ", parts) + I($" (IEEE Std 1241 terms): the code moves by {p.Simulated.ConverterVolts / lsb:+0.##;-0.##} LSB at {p.Celsius:0.##} °C") + CornerNote(p);
+    }
+
+    /// <summary>
+    /// The reference's own part, closed form: at the board temperature it is V_ref·(1 + δ) with δ = tc·(T − 25 °C), so a
+    /// sample V reads as the code V/(Q·(1 + δ)) and moves by V/Q·(1/(1 + δ) − 1) LSB (code = V/Q, IEEE Std 1241). A bound
+    /// takes the sign of the point's corner: the upper corner lowers the reference.
+    /// </summary>
+    private static string ReferenceDrift(FrontEndDesign design, CheckPoint p, double lsb)
+    {
+        var board = design.Check.BoardCelsius ?? p.Celsius;
+        var tempco = design.Adc.ReferenceTempcoPerKelvin;
+        var drift = design.Adc.ReferenceTempcoSigned ? tempco * (board - 25) : (p.Corner == "bounds down" ? 1 : -1) * Math.Abs(tempco * (board - 25));
+        return I($" (the reference at {board:0.##} °C is {drift * 100:+0.####;-0.####} % off, V/Q·(1/(1 + δ) − 1) = {p.SampleVolts / lsb * (1 / (1 + drift) - 1):+0.##;-0.##} LSB)");
     }
 
     private static string BufferCause(FrontEndDesign design, CheckPoint p)
@@ -160,19 +178,19 @@ internal static class FindingRules
         if (b.OffsetDriftVoltsPerKelvin != 0) words.Add("drift " + Bounded(EngineeringFormat.Format(Math.Abs(b.OffsetDriftVoltsPerKelvin), UnitKind.VoltPerKelvin, 4), b.OffsetDriftSigned, b.OffsetDriftVoltsPerKelvin) +
                                                         I($" with the op-amp at {(design.Check.BoardCelsius ?? p.Celsius):0.##} °C"));
         if (b.BiasCurrentAmperes != 0) words.Add("bias current " + Bounded(Amps(Math.Abs(b.BiasCurrentAmperes)), b.BiasCurrentSigned, b.BiasCurrentAmperes));
-        var thevenin = p.SensorOhms * design.Divider.FixedResistorOhms / (p.SensorOhms + design.Divider.FixedResistorOhms);
+        var thevenin = p.SensorOhms * design.VoltageDivider.FixedResistorOhms / (p.SensorOhms + design.VoltageDivider.FixedResistorOhms);
         return string.Join(", ", words) + I($": offset and drift {Volts(p.Estimates.BufferOffsetVolts)} (times the stage gain), bias current through the divider's {Ohms(thevenin)} ") +
                I($"{Volts(p.Estimates.BiasCurrentVolts)} (Ohm's law), and the finite open-loop gain") + CornerNote(p);
     }
 
     /// <summary>A value as the design gives it: "±25 nA (a bound)" or "+25 nA" when written with its sign.</summary>
-    private static string Bounded(string magnitude, bool signed, double value) =>
+    internal static string Bounded(string magnitude, bool signed, double value) =>
         signed ? (value < 0 ? "−" : "+") + magnitude : "±" + magnitude + " (a bound)";
 
     /// <summary>Which corner of the bounds the point's reading is at.</summary>
-    private static string CornerNote(CheckPoint p) => p.Corner.Length > 0 ? I($"; the bounds at the corner that reads worse here ({p.Corner})") : "";
+    internal static string CornerNote(CheckPoint p) => p.Corner.Length > 0 ? I($"; the bounds at the corner that reads worse here ({p.Corner})") : "";
 
-    private static string Volts(double v) => EngineeringFormat.Format(v, UnitKind.Volt, 4);
+    internal static string Volts(double v) => EngineeringFormat.Format(v, UnitKind.Volt, 4);
     private static string Amps(double a) => EngineeringFormat.Format(a, UnitKind.Ampere, 4);
     private static string Ohms(double r) => EngineeringFormat.Format(r, UnitKind.Ohm, 4);
     private static string I(FormattableString s) => s.ToString(CultureInfo.InvariantCulture);

@@ -54,11 +54,15 @@ internal static class AdcReader
         if (referenceTempco != 0 && referenceVolts is null)
             throw s.ErrorAtKey("reference_tempco", "reference_tempco applies only to a fixed reference; a ratiometric converter's reference is the excitation itself",
                 "Remove it, or give reference as a voltage.");
+        var referenceTolerance = SensorReader.Tolerance(s, "reference_tolerance");
+        if (referenceTolerance != 0 && referenceVolts is null)
+            throw s.ErrorAtKey("reference_tolerance", "reference_tolerance applies only to a fixed reference; a ratiometric converter's reference is the excitation itself, whose tolerance cancels",
+                "Remove it (the excitation's own tolerance is divider.excitation_tolerance), or give reference as a voltage.");
         return new AdcSpec
         {
             Bits = (int)bits,
             ReferenceVolts = referenceVolts,
-            ReferenceTolerance = SensorReader.Tolerance(s, "reference_tolerance"),
+            ReferenceTolerance = referenceTolerance,
             SampleRateHertz = sampleRate,
             AcquisitionTimeSeconds = acquisition,
             SamplingCapacitanceFarads = s.RequiredValue("sampling_capacitance", Bound.Positive, "Write sampling_capacitance = \"5 pF\".", UnitKind.Farad),

@@ -15,6 +15,8 @@ internal static class DesignDefaults
     public const double MinimumPhaseMarginDegrees = 45;
     /// <summary>A normal tolerance is at 3σ unless the design says otherwise.</summary>
     public const double CoverageFactor = 3;
+    /// <summary>Copper's resistance tempco, 0.393 %/K (IEC 60028, annealed copper, at 20 °C; from memory), taken at 25 °C.</summary>
+    public const double CopperTempcoPerKelvin = 3.93e-3;
     public const int MinBits = 6;
     public const int MaxBits = 24;
 }

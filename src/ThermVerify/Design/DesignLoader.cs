@@ -11,7 +11,7 @@ namespace ThermVerify.Design;
 /// </summary>
 internal static class DesignLoader
 {
-    private static readonly string[] TopKeys = ["name", "description", "sensor", "divider", "buffer", "filter", "adc", "check", "tolerances"];
+    private static readonly string[] TopKeys = ["name", "description", "sensor", "divider", "current_source", "wiring", "buffer", "filter", "adc", "check", "tolerances"];
 
     public static FrontEndDesign Load(string path)
     {
@@ -53,7 +53,9 @@ internal static class DesignLoader
             Name = name,
             Description = root.String("description"),
             Sensor = sensor,
-            Divider = CircuitReaders.ReadDivider(root.RequiredSection("divider", "Add a [divider] section (sensor_side, fixed_resistor, excitation).")),
+            Divider = root.Section("divider") is { } divider ? CircuitReaders.ReadDivider(divider) : null,
+            CurrentSource = root.Section("current_source") is { } source ? CurrentSourceReader.Read(source) : null,
+            Wiring = root.Section("wiring") is { } wiring ? WiringReader.Read(wiring) : null,
             Buffer = root.Section("buffer") is { } buffer ? CircuitReaders.ReadBuffer(buffer) : null,
             Filter = root.Section("filter") is { } filter ? CircuitReaders.ReadFilter(filter) : FilterSpec.None,
             Adc = AdcReader.Read(root.RequiredSection("adc", "Add an [adc] section (bits, reference, sample_rate, acquisition_time, ...).")),
@@ -63,6 +65,7 @@ internal static class DesignLoader
         var designFile = new SourceFile(Path.GetFileName(sourceName), sha256 ?? DesignDigest.OfText(sourceName, text).Sha256);
         design = design with { Source = new DesignDigest([designFile, .. root.FilesRead]) };
         CheckWork(root.Section("check")!, design.Check);
+        ExcitationRules.Check(root, design);
         return design;
     }
 

@@ -18,7 +18,12 @@ internal static class DesignWriter
         if (design.Description is not null)
             w.Text("description", design.Description);
         WriteSensor(w, design.Sensor);
-        WriteDivider(w, design.Divider);
+        if (design.Divider is { } divider)
+            WriteDivider(w, divider);
+        if (design.CurrentSource is { } source)
+            WriteCurrentSource(w, source);
+        if (design.Wiring is { } wiring)
+            WriteWiring(w, wiring);
         if (design.Buffer is not null)
             WriteBuffer(w, design.Buffer);
         w.Section("filter");
@@ -96,6 +101,36 @@ internal static class DesignWriter
             w.Value("switch_on_lead", lead, UnitKind.Second);
         if (d.ReadingIntervalSeconds is { } interval)
             w.Value("reading_interval", interval, UnitKind.Second);
+    }
+
+    private static void WriteCurrentSource(Writer w, CurrentSourceSpec c)
+    {
+        w.Section("current_source");
+        w.Value("current", c.CurrentAmperes, UnitKind.Ampere);
+        w.Value("current_tolerance", c.CurrentTolerance, UnitKind.Percent);
+        w.Value("current_tempco", c.CurrentTempcoPerKelvin, UnitKind.PpmPerKelvin, c.CurrentTempcoSigned);
+        if (c.Compliance is { } compliance)
+            w.Range("compliance", compliance.MinVolts, compliance.MaxVolts, UnitKind.Volt);
+        if (c.OutputResistanceOhms is { } output)
+            w.Value("output_resistance", output, UnitKind.Ohm);
+        if (c.ReferenceResistorOhms is not { } reference) return;
+        w.Value("reference_resistor", reference, UnitKind.Ohm);
+        w.Value("reference_resistor_tolerance", c.ReferenceResistorTolerance, UnitKind.Percent);
+        w.Value("reference_resistor_tempco", c.ReferenceResistorTempcoPerKelvin, UnitKind.PpmPerKelvin, c.ReferenceResistorTempcoSigned);
+        if (c.ReferenceInputOhms is { } input)
+            w.Value("reference_input_resistance", input, UnitKind.Ohm);
+    }
+
+    private static void WriteWiring(Writer w, WiringSpec x)
+    {
+        w.Section("wiring");
+        w.Integer("wires", x.Wires);
+        w.Value("lead_resistance", x.LeadOhms, UnitKind.Ohm);
+        w.Value("lead_tempco", x.LeadTempcoPerKelvin, UnitKind.PpmPerKelvin);
+        if (x.LeadCelsius is { } t)
+            w.Value("lead_temperature", t, UnitKind.Celsius);
+        if (x.Wires == 3)
+            w.Value("current_mismatch", x.CurrentMismatch, UnitKind.Percent, x.CurrentMismatchSigned);
     }
 
     private static void WriteBuffer(Writer w, BufferSpec b)

@@ -9,7 +9,12 @@ public sealed record FrontEndDesign
     public required string Name { get; init; }
     public string? Description { get; init; }
     public required SensorSpec Sensor { get; init; }
-    public required DividerSpec Divider { get; init; }
+    /// <summary>The voltage-excited divider; null when a current source excites the sensor (<see cref="CurrentSource"/>).</summary>
+    public DividerSpec? Divider { get; init; }
+    /// <summary>The current source through the sensor; null for a divider. A design has exactly one of the two.</summary>
+    public CurrentSourceSpec? CurrentSource { get; init; }
+    /// <summary>The sensor's leads (with a current source); null: no leads modelled.</summary>
+    public WiringSpec? Wiring { get; init; }
     /// <summary>Null when the divider drives the filter and ADC directly.</summary>
     public BufferSpec? Buffer { get; init; }
     public required FilterSpec Filter { get; init; }
@@ -23,4 +28,12 @@ public sealed record FrontEndDesign
     /// design built in code. A changed copy (a remedy, a built unit) keeps it: it still comes from those files.
     /// </summary>
     public Provenance.DesignDigest? Source { get; init; }
+
+    /// <summary>The divider of a voltage-excited design (every divider-only analysis asks through here).</summary>
+    public DividerSpec VoltageDivider => Divider ?? throw new InvalidOperationException($"{Name} is excited by a current source, not a divider.");
+
+    /// <summary>The converter's reference as the firmware takes it: a fixed one, the excitation (ratiometric divider) or I·R_ref.</summary>
+    public double NominalReferenceVolts =>
+        Adc.ReferenceVolts ?? CurrentSource?.NominalReferenceVolts ?? Divider?.ExcitationVolts
+        ?? throw new InvalidOperationException($"{Name} has no reference.");
 }

@@ -43,6 +43,8 @@ internal static partial class Plausibility
     {
         ["divider.excitation"] = new(1e-3, 1e3),
         ["adc.reference"] = new(1e-3, 1e3),
+        ["current_source.current"] = new(1e-9, 0.1),
+        ["current_source.reference_resistor"] = new(1e-3, 1e9),
         ["adc.sample_rate"] = new(1e-3, 1e10),
         ["adc.leakage_doubling"] = new(1, 1e3),
         ["buffer.gain_bandwidth"] = new(1, 1e11),

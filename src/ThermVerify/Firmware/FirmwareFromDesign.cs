@@ -15,9 +15,12 @@ internal static class FirmwareFromDesign
     /// </summary>
     public static FirmwareModel Model(FrontEndDesign design, bool correctForLoading)
     {
+        var divider = design.Divider ?? throw new FirmwareInputException(
+            "Firmware tables are made for a divider; this design excites its sensor with a current source, whose table (R_s = V/I, " +
+            "or R_ref·code/2^N with a reference resistor) is not made yet. Run check, worstcase or montecarlo on it instead.");
         var closedForm = new ClosedFormModel(design);
-        var model = new FirmwareModel(closedForm.Sensor, design.Divider.SensorSide, design.Divider.FixedResistorOhms,
-            design.Divider.ExcitationVolts, closedForm.Adc, design.Check.Range);
+        var model = new FirmwareModel(closedForm.Sensor, divider.SensorSide, divider.FixedResistorOhms,
+            divider.ExcitationVolts, closedForm.Adc, design.Check.Range);
         if (!correctForLoading) return model.Validated();
 
         var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToArray();
@@ -32,10 +35,25 @@ internal static class FirmwareFromDesign
     }
 
     public static FaultTolerances Tolerances(FrontEndDesign design) => new(
-        ExcitationFraction: design.Divider.ExcitationTolerance,
-        ReferenceFraction: design.Adc.ReferenceTolerance,
-        FixedResistorFraction: design.Divider.FixedTolerance,
+        ExcitationFraction: design.Divider?.ExcitationTolerance ?? 0,
+        ReferenceFraction: design.Adc.ReferenceTolerance + ReferenceDriftFraction(design),
+        FixedResistorFraction: design.Divider?.FixedTolerance ?? 0,
         ExcitationTracksReference: design.Adc.IsRatiometric);
+
+    /// <summary>
+    /// The largest relative drift of a fixed reference from 25 °C where it sits: at the board temperature, or over the
+    /// whole check range when the board follows the sweep. A tempco with a sign drifts one way only, but the other corner
+    /// is still its tolerance, so the drift widens the band by its size (a thresholds' margin, not a reading).
+    /// </summary>
+    public static double ReferenceDriftFraction(FrontEndDesign design)
+    {
+        if (design.Adc.IsRatiometric) return 0;
+        var range = design.Check.Range;
+        var farthest = design.Check.BoardCelsius is { } board
+            ? Math.Abs(board - 25)
+            : Math.Max(Math.Abs(range.MinCelsius - 25), Math.Abs(range.MaxCelsius - 25));
+        return Math.Abs(design.Adc.ReferenceTempcoPerKelvin) * farthest;
+    }
 
     private static double Interpolate((double Unloaded, double Offset)[] points, double volts)
     {

@@ -12,9 +12,9 @@ namespace ThermVerify.FrontEnd;
 /// </summary>
 public readonly record struct AdcTransfer(int Bits, double ReferenceVolts)
 {
-    /// <summary>The nominal converter of a design as its firmware sees it (reference: the excitation when ratiometric).</summary>
+    /// <summary>The nominal converter of a design as its firmware sees it (reference: the excitation of a ratiometric divider, I·R_ref with a reference resistor).</summary>
     public static AdcTransfer Of(FrontEndDesign design) =>
-        new(design.Adc.Bits, design.Adc.ReferenceVolts ?? design.Divider.ExcitationVolts)
+        new(design.Adc.Bits, design.NominalReferenceVolts)
         {
             FirstTransition = design.Adc.FirstTransition,
             Inverse = design.Adc.FirmwareInverse,

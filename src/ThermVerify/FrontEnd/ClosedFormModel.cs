@@ -13,7 +13,7 @@ internal readonly record struct ClosedFormPoint(
     double TheveninOhms);
 
 /// <summary>
-/// The model hand calculations and firmware use: an unloaded divider, an ideal ADC (see <see cref="AdcTransfer"/>)
+/// The model hand calculations and firmware use: an unloaded divider (or an ideal current through the sensor, V = I·R_s), an ideal ADC (see <see cref="AdcTransfer"/>)
 /// and the firmware's inverse, code → voltage → sensor resistance → temperature with the nominal sensor model.
 /// </summary>
 internal sealed class ClosedFormModel
@@ -29,18 +29,15 @@ internal sealed class ClosedFormModel
     public ISensorModel Sensor { get; }
     public AdcTransfer Adc { get; }
 
-    private DividerSpec Divider => Design.Divider;
-
     /// <summary>Gain from the divider to the ADC pin: 1 without a buffer or with a follower.</summary>
     public double BufferGain => Design.Buffer?.Gain ?? 1;
 
     public ClosedFormPoint At(double celsius)
     {
         var r = Sensor.ResistanceOhms(celsius);
-        var volts = BufferGain * DividerFormula.OutputVolts(Divider.SensorSide, Divider.ExcitationVolts, r, Divider.FixedResistorOhms);
-        var slope = BufferGain * DividerFormula.SlopeVoltsPerOhm(Divider.SensorSide, Divider.ExcitationVolts, r, Divider.FixedResistorOhms)
-                    * Sensor.SlopeOhmsPerKelvin(celsius);
-        return new ClosedFormPoint(celsius, r, volts, Adc.IdealCode(volts), slope, DividerFormula.TheveninOhms(r, Divider.FixedResistorOhms));
+        var volts = BufferGain * SensorTransfer.OutputVolts(Design, r);
+        var slope = BufferGain * SensorTransfer.SlopeVoltsPerOhm(Design, r) * Sensor.SlopeOhmsPerKelvin(celsius);
+        return new ClosedFormPoint(celsius, r, volts, Adc.IdealCode(volts), slope, SensorTransfer.TheveninOhms(Design, r));
     }
 
     /// <summary>
@@ -55,7 +52,7 @@ internal sealed class ClosedFormModel
     /// <summary>The temperature whose ideal pin voltage this is (no quantisation); NaN outside the sensor's range.</summary>
     public double CelsiusAtVolts(double volts)
     {
-        var ohms = DividerFormula.SensorOhms(Divider.SensorSide, Divider.ExcitationVolts, volts / BufferGain, Divider.FixedResistorOhms);
+        var ohms = SensorTransfer.SensorOhms(Design, volts / BufferGain);
         if (double.IsNaN(ohms)) return double.NaN;
         try
         {

@@ -46,7 +46,7 @@ internal readonly record struct ConverterErrors(double OffsetLsb, double GainErr
 internal sealed record Converter(int Bits, double ReferenceVolts, double ReferenceTempcoPerKelvin, IReadOnlyList<ConverterErrors> Cases, bool TempcoIsBound = false)
 {
     public static Converter Of(FrontEndDesign design) =>
-        new(design.Adc.Bits, design.Adc.ReferenceVolts ?? design.Divider.ExcitationVolts,
+        new(design.Adc.Bits, design.NominalReferenceVolts,
             design.Adc.IsRatiometric ? 0 : design.Adc.ReferenceTempcoPerKelvin, ConverterErrors.CornersOf(design),
             !design.Adc.IsRatiometric && !design.Adc.ReferenceTempcoSigned);
 

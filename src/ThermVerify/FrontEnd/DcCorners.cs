@@ -5,7 +5,7 @@ namespace ThermVerify.FrontEnd;
 /// <summary>
 /// The DC levels at the two corners of the design's bounds. Each static error given as a bound (<see cref="StaticBounds"/>)
 /// is simulated on its own, at its size, on the design with every bound at zero (<see cref="Base"/>); at each
-/// temperature the signs that raise the settled pin voltage make the upper corner and the opposite signs the lower one,
+/// temperature the signs that raise the settled pin voltage (over the reference, where the circuit makes it) make the upper corner and the opposite signs the lower one,
 /// and the levels there are the base plus or minus each error's simulated shift: superposition, exact for the linear DC
 /// circuit (the op-amp's output clamp aside). A design with no bound has one corner, the design itself; a design whose
 /// only bounds are the converter's has two corners with the same DC levels.
@@ -21,7 +21,8 @@ internal sealed record DcCorners(DcLevels Base, IReadOnlyList<DcLevels> Corners,
             return new DcCorners(baseLevels, StaticBounds.Any(design) ? [baseLevels, baseLevels] : [baseLevels], bounds, []);
 
         var shifted = bounds.Select(b => DcLevels.Run(b.Set(zeroed, b.Magnitude), cases, temperatures, engine)).ToArray();
-        var signs = shifted.Select(s => temperatures.Select((_, i) => s.StaticPinVolts[i] >= baseLevels.StaticPinVolts[i] ? 1.0 : -1.0).ToArray()).ToArray();
+        // The upper corner raises the code: the pin over the reference where the circuit makes the reference.
+        var signs = shifted.Select(s => temperatures.Select((_, i) => s.StaticRatio(i) >= baseLevels.StaticRatio(i) ? 1.0 : -1.0).ToArray()).ToArray();
         DcLevels Corner(double direction)
         {
             double[] Add(Func<DcLevels, double[]> array) =>
@@ -30,7 +31,12 @@ internal sealed record DcCorners(DcLevels Base, IReadOnlyList<DcLevels> Corners,
             return new DcLevels(baseLevels.DividerVolts,
                 baseLevels.AfterBufferVolts is null ? null : Add(l => l.AfterBufferVolts!),
                 Add(l => l.StaticPinVolts),
-                [.. cases.Select((_, c) => Add(l => l.AveragePinVolts[c]))]);
+                [.. cases.Select((_, c) => Add(l => l.AveragePinVolts[c]))])
+            {
+                ReferenceVolts = baseLevels.ReferenceVolts is null ? null : Add(l => l.ReferenceVolts!),
+                SourceVolts = baseLevels.SourceVolts is null ? null : Add(l => l.SourceVolts!),
+                NegativeInputVolts = baseLevels.NegativeInputVolts is null ? null : Add(l => l.NegativeInputVolts!),
+            };
         }
         return new DcCorners(baseLevels, [Corner(1), Corner(-1)], bounds, signs);
     }

@@ -1,3 +1,4 @@
+using ThermVerify.Circuits;
 using ThermVerify.Design;
 using static ThermVerify.FrontEnd.FrontEndNodes;
 
@@ -18,6 +19,24 @@ internal sealed record DcLevels(
     IReadOnlyList<double[]> AveragePinVolts)
 {
     /// <summary>
+    /// The converter's reference where the circuit makes it, the reference resistor's voltage v(exc) − v(div) from the
+    /// sweep with everything static; null for a fixed reference or a ratiometric divider (the converter knows those).
+    /// </summary>
+    public double[]? ReferenceVolts { get; init; }
+
+    /// <summary>A current source's output voltage (for its compliance); null for a divider.</summary>
+    public double[]? SourceVolts { get; init; }
+
+    /// <summary>The converter's negative input where the wiring puts it on a lead (3 or 4 wires); null: ground.</summary>
+    public double[]? NegativeInputVolts { get; init; }
+
+    /// <summary>The converter's negative input at point <paramref name="i"/>.</summary>
+    public double NegativeAt(int i) => NegativeInputVolts?[i] ?? 0;
+
+    /// <summary>What the converter converts, over the reference where the circuit makes it: its own scale.</summary>
+    public double StaticRatio(int i) => (StaticPinVolts[i] - NegativeAt(i)) / (ReferenceVolts?[i] ?? 1);
+
+    /// <summary>
     /// The average sampling current is modelled where a reservoir holds the pin between samples; without one the pin
     /// follows the source between samples and the transient alone tells the sampling error.
     /// </summary>
@@ -28,7 +47,7 @@ internal sealed record DcLevels(
     public static FrontEndDesign WithoutLoading(FrontEndDesign design) => design with
     {
         Adc = design.Adc with { PinLeakageAmperes = 0 },
-        Divider = design.Divider with { FixedTempcoPerKelvin = 0 },
+        Divider = design.Divider is { } d ? d with { FixedTempcoPerKelvin = 0 } : null,
     };
 
     public static DcLevels Run(FrontEndDesign design, IReadOnlyList<PrechargeCase> cases, IReadOnlyList<double> temperaturesCelsius,
@@ -36,6 +55,8 @@ internal sealed record DcLevels(
     {
         engine ??= BuiltInEngine.Instance;
         var pinNode = FrontEndCircuit.PinNode(design);
+        var source = design.CurrentSource;
+        if (source is not null) return RunCurrent(design, cases, temperaturesCelsius, engine, pinNode);
         var plain = Sweep(engine, design, null, temperaturesCelsius, [Divider, pinNode]);
         var staticPin = plain[1];
         var afterBuffer = design.Buffer is null ? null : Sweep(engine, WithoutLoading(design), null, temperaturesCelsius, [pinNode])[0];
@@ -43,6 +64,32 @@ internal sealed record DcLevels(
             ? Sweep(engine, design, c.Volts, temperaturesCelsius, [pinNode])[0]
             : staticPin).ToArray();
         return new DcLevels(plain[0], afterBuffer, staticPin, average);
+    }
+
+    /// <summary>
+    /// A current-excited design: besides the pin, the source's output (compliance), the reference resistor's two ends
+    /// (the converter's reference), the converter's negative input (3 or 4 wires) and the sensor's own terminals (its
+    /// voltage, for self-heating).
+    /// </summary>
+    private static DcLevels RunCurrent(FrontEndDesign design, IReadOnlyList<PrechargeCase> cases, IReadOnlyList<double> temperatures,
+        ICheckEngine engine, string pinNode)
+    {
+        var output = CurrentSourceCircuit.OutputNode(design);
+        var negative = CurrentSourceCircuit.NegativeInput(design);
+        var wired = design.Wiring is not null;
+        var nodes = new List<string> { wired ? SensorTop : Divider, wired ? SensorBottom : Circuit.Ground, pinNode, output, CurrentSourceCircuit.ChainTop(design), negative ?? Circuit.Ground };
+        var v = Sweep(engine, design, null, temperatures, nodes);
+        double[] Difference(int a, int b) => [.. v[a].Select((x, i) => x - v[b][i])];
+        double[]? reference = design.CurrentSource!.ReferenceResistorOhms is null ? null : Difference(3, 4);
+        var average = cases.Select(c => UsesAverageSamplingCurrent(design, c.Volts)
+            ? Sweep(engine, design, c.Volts, temperatures, [pinNode])[0]
+            : v[2]).ToArray();
+        return new DcLevels(Difference(0, 1), null, v[2], average)
+        {
+            ReferenceVolts = reference,
+            SourceVolts = v[3],
+            NegativeInputVolts = negative is null ? null : v[5],
+        };
     }
 
     /// <summary>

@@ -33,10 +33,16 @@ internal sealed record ErrorInputs(
 
     public int CaseCount => FirstOffsetVolts.Count;
 
-    /// <summary>The voltage the converter samples: the DC level it starts from, the sampling offset and the sensor's warming.</summary>
+    /// <summary>The converter's negative input per corner where the wiring puts it on a lead; null: ground.</summary>
+    public IReadOnlyList<double[]>? NegativeInputVolts { get; init; }
+
+    /// <summary>
+    /// The voltage the converter samples: the DC level it starts from, the sampling offset and the sensor's warming, less
+    /// its negative input (read at its DC level).
+    /// </summary>
     public double SampleVolts(int i, int corner, int precharge, bool first) =>
         (first ? StaticPinVolts[corner][i] + FirstOffsetVolts[precharge][i] : AveragePinVolts[corner][precharge][i] + SteadyOffsetVolts[precharge][i])
-        + SelfHeatingVolts[i];
+        + SelfHeatingVolts[i] - (NegativeInputVolts?[corner][i] ?? 0);
 
     /// <summary>The converter's unrounded code for a sample: V over its own LSB, bent by its static errors at that corner.</summary>
     public double UnroundedCode(int i, double sampleVolts, int corner) =>
@@ -57,9 +63,15 @@ internal static class ErrorModel
         var board = design.Check.BoardCelsius;
         var heat = SelfHeating.PinVolts(design, sensor, temperatures, dc.Base.DividerVolts);
         var corners = dc.Corners.Count;
-        var lsb = Enumerable.Range(0, corners).Select(k => temperatures.Select(t => converter.LsbVoltsAt(board ?? t, k)).ToArray()).ToArray();
+        // A reference the circuit makes (a reference resistor) is read from the corner's own sweep.
+        var lsb = Enumerable.Range(0, corners).Select(k => dc.Corners[k].ReferenceVolts is { } reference
+            ? reference.Select(v => v / (1 << converter.Bits)).ToArray()
+            : temperatures.Select(t => converter.LsbVoltsAt(board ?? t, k)).ToArray()).ToArray();
         return new ErrorInputs(temperatures, [.. dc.Corners.Select(c => c.StaticPinVolts)], [.. dc.Corners.Select(c => c.AveragePinVolts)],
-            firstOffsets, steadyOffsets, heat, lsb, [.. Enumerable.Range(0, corners).Select(k => converter.Cases[Math.Min(k, converter.Cases.Count - 1)])], converter.Bits);
+            firstOffsets, steadyOffsets, heat, lsb, [.. Enumerable.Range(0, corners).Select(k => converter.Cases[Math.Min(k, converter.Cases.Count - 1)])], converter.Bits)
+        {
+            NegativeInputVolts = dc.Base.NegativeInputVolts is null ? null : [.. dc.Corners.Select(c => c.NegativeInputVolts!)],
+        };
     }
 
     /// <summary>The worst reading at point <paramref name="i"/>, and the worst unquantised error there (for sensitivities).</summary>

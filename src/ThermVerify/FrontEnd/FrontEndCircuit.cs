@@ -89,17 +89,21 @@ internal static class FrontEndCircuit
     /// <summary>Excitation, divider, buffer, filter and the static part of the ADC input.</summary>
     private static List<Element> Front(FrontEndDesign design, double? celsius)
     {
-        var divider = design.Divider;
         var board = design.Check.BoardCelsius;
-        var sensor = new SensorResistor(SensorElement, divider.SensorSide == SensorSide.High ? Excitation : Divider,
-            divider.SensorSide == SensorSide.High ? Divider : Circuit.Ground, design.Sensor.Build());
-        var fixedNodes = divider.SensorSide == SensorSide.High ? (Divider, Circuit.Ground) : (Excitation, Divider);
-        var elements = new List<Element>
+        var elements = new List<Element>();
+        if (design.CurrentSource is not null)
         {
-            new VoltageSource("Vexc", Excitation, Circuit.Ground, new DcWaveform(divider.ExcitationVolts)),
-            sensor,
-            FixedResistor(FixedElement, fixedNodes.Item1, fixedNodes.Item2, divider.FixedResistorOhms, divider.FixedTempcoPerKelvin, board),
-        };
+            CurrentSourceCircuit.Add(elements, design, board, celsius);
+        }
+        else
+        {
+            var divider = design.VoltageDivider;
+            var high = divider.SensorSide == SensorSide.High;
+            var fixedNodes = high ? (Divider, Circuit.Ground) : (Excitation, Divider);
+            elements.Add(new VoltageSource("Vexc", Excitation, Circuit.Ground, new DcWaveform(divider.ExcitationVolts)));
+            elements.Add(new SensorResistor(SensorElement, high ? Excitation : Divider, high ? Divider : Circuit.Ground, design.Sensor.Build()));
+            elements.Add(FixedResistor(FixedElement, fixedNodes.Item1, fixedNodes.Item2, divider.FixedResistorOhms, divider.FixedTempcoPerKelvin, board));
+        }
 
         if (design.Buffer is { } buffer)
             BufferStage.Add(elements, buffer, Divider, board, celsius);
@@ -125,8 +129,8 @@ internal static class FrontEndCircuit
     /// <summary>The ADC pin: its own node behind a series resistor, else the drive node itself.</summary>
     public static string PinNode(FrontEndDesign design) => design.Filter.SeriesResistorOhms > 0 ? Pin : DriveNode(design);
 
-    /// <summary>The fixed resistor: its tempco follows the sweep, or is taken once at the board temperature.</summary>
-    private static Resistor FixedResistor(string name, string a, string b, double ohms, double tempco, double? boardCelsius) =>
+    /// <summary>A resistor on the board (the fixed or the reference resistor): its tempco follows the sweep, or is taken once at the board temperature.</summary>
+    internal static Resistor FixedResistor(string name, string a, string b, double ohms, double tempco, double? boardCelsius) =>
         boardCelsius is { } board
             ? new Resistor(name, a, b, ohms * (1 + tempco * (board - 25)))
             : new Resistor(name, a, b, ohms, tempco);

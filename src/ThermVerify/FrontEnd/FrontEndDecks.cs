@@ -38,7 +38,8 @@ public sealed record DeckOptions
 /// </summary>
 internal static class FrontEndDecks
 {
-    public const string AcInputSource = "Vexc";
+    /// <summary>The AC input: the divider's excitation, or the current source.</summary>
+    public static string AcInputSource(FrontEndDesign design) => design.CurrentSource is null ? "Vexc" : CurrentSourceElement;
 
     public static string Write(FrontEndDesign design, DeckAnalysis analysis, DeckOptions? options = null)
     {
@@ -81,12 +82,12 @@ internal static class FrontEndDecks
                 var circuit = AcCircuit(design, celsius);
                 SpiceAnalysis sweep = analysis == DeckAnalysis.Ac
                     ? new AcSweep(options.StartHertz, options.StopHertz, options.PointsPerDecade)
-                    : new NoiseSweep(pin, AcInputSource, options.StartHertz, options.StopHertz, options.PointsPerDecade);
+                    : new NoiseSweep(pin, AcInputSource(design), options.StartHertz, options.StopHertz, options.PointsPerDecade);
                 return SpiceDeckWriter.Write(circuit, sweep, Header(design, circuit,
                     $"{(analysis == DeckAnalysis.Ac ? "AC response" : "output noise")} of the DC circuit at {celsius:0.###} °C, " +
-                    $"input {AcInputSource} (1 V AC), output v({pin})",
+                    $"input {AcInputSource(design)} (1 {(design.CurrentSource is null ? "V" : "A")} AC), output v({pin})",
                     analysis == DeckAnalysis.Ac
-                        ? $"prints vdb({pin}) and vp({pin}) (dB and radians) at each frequency: the transfer from the excitation to the pin"
+                        ? $"prints vdb({pin}) and vp({pin}) (dB and radians) at each frequency: the transfer from the excitation to the pin (V/A for a current source)"
                         : "prints onoise_spectrum at each frequency: the noise density at the pin in V/√Hz"),
                     Outputs(options, analysis == DeckAnalysis.Ac
                         ? new PrintVectors("ac", [$"vdb({pin})", $"vp({pin})"])
@@ -99,8 +100,12 @@ internal static class FrontEndDecks
     public static Circuit AcCircuit(FrontEndDesign design, double celsius)
     {
         var circuit = FrontEndCircuit.Dc(design, null, celsius);
-        var excitation = (VoltageSource)circuit[AcInputSource];
-        return circuit.Replace(excitation with { AcMagnitude = 1 });
+        return circuit[AcInputSource(design)] switch
+        {
+            VoltageSource v => circuit.Replace(v with { AcMagnitude = 1 }),
+            CurrentSource i => circuit.Replace(i with { AcMagnitude = 1 }),
+            var other => throw new InvalidOperationException($"{other.Name} is not an independent source."),
+        };
     }
 
     private static IReadOnlyList<SpiceOutput> Outputs(DeckOptions options, params SpiceOutput[] outputs) => options.PrintFigures ? outputs : [];
@@ -112,8 +117,9 @@ internal static class FrontEndDecks
                 .. prints is null ? Array.Empty<string>() : [$"ngspice -b on this deck {prints}"]],
             NodeDescriptions = new Dictionary<string, string>
             {
-                [Excitation] = "excitation, the top of the divider",
-                [Divider] = "divider midpoint, where the sensor meets the fixed resistor",
+                [Excitation] = design.CurrentSource is null ? "excitation, the top of the divider" : "current source output, above the reference resistor",
+                [Divider] = design.CurrentSource is null ? "divider midpoint, where the sensor meets the fixed resistor" : "the sensor's node, read by the converter",
+                [SourceTempco] = "the current source's tempco stage: 1 V times (1 + tempco·(T − 25 °C))",
                 [BufferStage.AmplifierOutput] = "op-amp output, before the isolation resistor",
                 [BufferStage.Feedback] = "op-amp feedback divider",
                 [BufferOutput] = "buffer output, drives the filter",

@@ -3,7 +3,7 @@ namespace ThermVerify.FrontEnd;
 /// <summary>Node and element names of the circuits built from a design (also used in SPICE decks and reports).</summary>
 internal static class FrontEndNodes
 {
-    /// <summary>Excitation: the top of the divider.</summary>
+    /// <summary>Excitation: the top of the divider, or the current source's output above the reference resistor.</summary>
     public const string Excitation = "exc";
 
     /// <summary>The supply a switched divider's excitation switch connects to the divider.</summary>
@@ -24,7 +24,23 @@ internal static class FrontEndNodes
     /// <summary>What the sampling capacitor is precharged to before each acquisition.</summary>
     public const string Precharge = "pre";
 
+    /// <summary>The current source's tempco stage (a 1 Ω resistor carrying 1 A), in a sweep without a board temperature.</summary>
+    public const string SourceTempco = "itc";
+
+    /// <summary>The sensor's own terminals at the far end of its leads.</summary>
+    public const string SensorTop = "sp";
+    public const string SensorBottom = "sn";
+
+    /// <summary>3 wires: the near end of the compensating lead, the converter's negative input.</summary>
+    public const string Compensation = "cmp";
+
+    /// <summary>4 wires: the near end of the force lead (the current's way in) and of the negative sense lead.</summary>
+    public const string Force = "frc";
+    public const string SenseNegative = "sns";
+
     public const string SensorElement = "Rsensor";
+    public const string CurrentSourceElement = "Iexc";
+    public const string ReferenceResistorElement = "Rref";
     public const string FixedElement = "Rfixed";
     public const string SamplingSwitch = "Ssample";
     public const string PrechargeSwitch = "Sprecharge";

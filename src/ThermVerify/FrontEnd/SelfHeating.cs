@@ -23,7 +23,7 @@ internal static class SelfHeating
     public static double DutyCycle(FrontEndDesign design)
     {
         var d = design.Divider;
-        if (d.SwitchOnLeadSeconds is not { } lead || d.ReadingIntervalSeconds is not { } interval) return 1;
+        if (d?.SwitchOnLeadSeconds is not { } lead || d.ReadingIntervalSeconds is not { } interval) return 1;
         return Math.Min(1, (lead + 1 / design.Adc.SampleRateHertz) / interval);
     }
 
@@ -31,10 +31,11 @@ internal static class SelfHeating
     public static double[] PowerWatts(FrontEndDesign design, ISensorModel sensor, IReadOnlyList<double> celsius, IReadOnlyList<double> dividerVolts)
     {
         var power = new double[celsius.Count];
-        var high = design.Divider.SensorSide == SensorSide.High;
+        // A current source drives the sensor from its node to ground, as the low side of a divider.
+        var high = design.Divider?.SensorSide == SensorSide.High;
         for (var i = 0; i < power.Length; i++)
         {
-            var across = high ? design.Divider.ExcitationVolts - dividerVolts[i] : dividerVolts[i];
+            var across = high ? design.VoltageDivider.ExcitationVolts - dividerVolts[i] : dividerVolts[i];
             power[i] = across * across / sensor.ResistanceOhms(celsius[i]);
         }
         return power;
@@ -59,12 +60,11 @@ internal static class SelfHeating
     {
         var rise = RiseKelvin(design, PowerWatts(design, sensor, celsius, dividerVolts));
         var volts = new double[rise.Length];
-        var d = design.Divider;
         for (var i = 0; i < volts.Length; i++)
         {
             if (rise[i] == 0) continue;
             var r = sensor.ResistanceOhms(celsius[i]);
-            volts[i] = rise[i] * (design.Buffer?.Gain ?? 1) * DividerFormula.SlopeVoltsPerOhm(d.SensorSide, d.ExcitationVolts, r, d.FixedResistorOhms)
+            volts[i] = rise[i] * (design.Buffer?.Gain ?? 1) * SensorTransfer.SlopeVoltsPerOhm(design, r)
                        * sensor.SlopeOhmsPerKelvin(celsius[i]);
         }
         return volts;

@@ -21,7 +21,17 @@ internal static class StaticBounds
             if (value != 0 && !signed) list.Add(new CircuitBound(key, Math.Abs(value), set));
         }
         Add("adc.pin_leakage", d.Adc.PinLeakageAmperes, d.Adc.PinLeakageSigned, (x, v) => x with { Adc = x.Adc with { PinLeakageAmperes = v } });
-        Add("divider.fixed_tempco", d.Divider.FixedTempcoPerKelvin, d.Divider.FixedTempcoSigned, (x, v) => x with { Divider = x.Divider with { FixedTempcoPerKelvin = v } });
+        if (d.Divider is { } divider)
+            Add("divider.fixed_tempco", divider.FixedTempcoPerKelvin, divider.FixedTempcoSigned, (x, v) => x with { Divider = x.Divider! with { FixedTempcoPerKelvin = v } });
+        if (d.CurrentSource is { } source)
+        {
+            Add("current_source.current_tempco", source.CurrentTempcoPerKelvin, source.CurrentTempcoSigned,
+                (x, v) => x with { CurrentSource = x.CurrentSource! with { CurrentTempcoPerKelvin = v } });
+            Add("current_source.reference_resistor_tempco", source.ReferenceResistorTempcoPerKelvin, source.ReferenceResistorTempcoSigned,
+                (x, v) => x with { CurrentSource = x.CurrentSource! with { ReferenceResistorTempcoPerKelvin = v } });
+        }
+        if (d.Wiring is { Wires: 3 } wiring)
+            Add("wiring.current_mismatch", wiring.CurrentMismatch, wiring.CurrentMismatchSigned, (x, v) => x with { Wiring = x.Wiring! with { CurrentMismatch = v } });
         if (d.Buffer is { Subcircuit: null } b)
         {
             Add("buffer.offset_voltage", b.OffsetVolts, b.OffsetSigned, (x, v) => x with { Buffer = x.Buffer! with { OffsetVolts = v } });

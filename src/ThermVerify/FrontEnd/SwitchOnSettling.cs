@@ -35,7 +35,7 @@ internal static class SwitchOnSettling
     /// <summary>The switch-on circuit and its transient's options, for every engine; the run stops at the sample.</summary>
     internal static (Circuit Circuit, TransientOptions Options) Setup(FrontEndDesign design, double celsius, double? prechargeVolts, double settleVolts)
     {
-        var lead = design.Divider.SwitchOnLeadSeconds
+        var lead = design.Divider?.SwitchOnLeadSeconds
             ?? throw new ArgumentException("The design has no switched excitation ([divider] switch_on_lead).", nameof(design));
         var adc = design.Adc;
         var period = 1 / adc.SampleRateHertz;

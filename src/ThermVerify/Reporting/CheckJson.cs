@@ -99,6 +99,7 @@ public static class CheckJson
                 sourceOhms = p.Estimates.SourceOhms,
                 fixedDrift = p.Estimates.FixedDriftVolts,
                 leakage = p.Estimates.LeakageVolts,
+                excitation = p.Estimates.ExcitationVolts,
                 bufferOffset = p.Estimates.BufferOffsetVolts,
                 biasCurrent = p.Estimates.BiasCurrentVolts,
                 averageSampling = p.Estimates.AverageSamplingVolts,

@@ -128,6 +128,23 @@ internal static class ReportFormat
     private static string Signed(double kelvin) => N(kelvin, "+0.000;-0.000;0.000");
 
     /// <summary>The design's settings and the precharge cases the check covered (the worst of them is each point's "reading").</summary>
+    /// <summary>The excitation in a line: the divider, or the current source with its reference resistor.</summary>
+    public static (string Label, string Value) Excitation(Design.FrontEndDesign d)
+    {
+        if (d.Divider is { } divider)
+            return ("divider", $"sensor on the {(divider.SensorSide == Design.SensorSide.High ? "high" : "low")} side, fixed {V(divider.FixedResistorOhms, UnitKind.Ohm)}, excitation {V(divider.ExcitationVolts, UnitKind.Volt)}");
+        var c = d.CurrentSource!;
+        return ("current", $"{V(c.CurrentAmperes, UnitKind.Ampere)} through the sensor" +
+                           (c.ReferenceResistorOhms is { } r ? $", reference resistor {V(r, UnitKind.Ohm)}" : "") +
+                           (c.Compliance is { } range ? $", compliance {V(range.MinVolts, UnitKind.Volt)} to {V(range.MaxVolts, UnitKind.Volt)}" : "") +
+                           (d.Wiring is { } w ? $", {w.Wires} wires of {V(w.LeadOhms, UnitKind.Ohm)}" : ""));
+    }
+
+    /// <summary>The converter's reference in words: a voltage, the divider's excitation, or the reference resistor's I·R_ref.</summary>
+    public static string Reference(Design.FrontEndDesign d, AdcTransfer adc) =>
+        !d.Adc.IsRatiometric ? V(adc.ReferenceVolts, UnitKind.Volt)
+        : d.CurrentSource is null ? "ratiometric" : $"ratiometric, I·R_ref = {V(adc.ReferenceVolts, UnitKind.Volt)}";
+
     public static IEnumerable<(string Label, string Value)> Settings(CheckResult result) =>
         Settings(result.Design, result.SensorDescription, result.Adc).Append(("precharge", PrechargeLine(result)));
 
@@ -135,11 +152,11 @@ internal static class ReportFormat
     public static IEnumerable<(string Label, string Value)> Settings(Design.FrontEndDesign d, string sensorDescription, AdcTransfer adc)
     {
         yield return ("sensor", sensorDescription);
-        yield return ("divider", $"sensor on the {(d.Divider.SensorSide == Design.SensorSide.High ? "high" : "low")} side, fixed {V(d.Divider.FixedResistorOhms, UnitKind.Ohm)}, excitation {V(d.Divider.ExcitationVolts, UnitKind.Volt)}");
+        yield return Excitation(d);
         if (d.Buffer is { } b) yield return ("buffer", $"gain {N(b.Gain, "0.###")}, isolation {V(b.IsolationResistorOhms, UnitKind.Ohm)}");
         yield return ("filter", d.Filter.SeriesResistorOhms == 0 && d.Filter.ReservoirCapacitorFarads == 0 ? "none"
             : $"series {V(d.Filter.SeriesResistorOhms, UnitKind.Ohm)}, reservoir {V(d.Filter.ReservoirCapacitorFarads, UnitKind.Farad)}");
-        yield return ("ADC", $"{d.Adc.Bits} bits, reference {(d.Adc.IsRatiometric ? "ratiometric" : V(adc.ReferenceVolts, UnitKind.Volt))}, " +
+        yield return ("ADC", $"{d.Adc.Bits} bits, reference {Reference(d, adc)}, " +
                              $"1 LSB = {V(adc.LsbVolts, UnitKind.Volt)}, {V(d.Adc.SampleRateHertz, UnitKind.Hertz)}, acquisition {V(d.Adc.AcquisitionTimeSeconds, UnitKind.Second)}, " +
                              $"C_sh {V(d.Adc.SamplingCapacitanceFarads, UnitKind.Farad)}, precharge {Precharge(d.Adc.Precharge)}");
         yield return ("conventions", adc.Describe());

@@ -25,13 +25,28 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
 
         var sensor = SensorOf(nominal.Sensor, nominalSensor, Dev(ToleranceKind.SensorResistance), Dev(ToleranceKind.SensorBeta), Dev(ToleranceKind.RtdClass));
         // A built unit has every value at its own sign: nothing of it is a bound any more.
-        var divider = nominal.Divider with
-        {
-            FixedResistorOhms = nominal.Divider.FixedResistorOhms * (1 + Dev(ToleranceKind.FixedResistance)),
-            FixedTempcoPerKelvin = Bound(ToleranceKind.FixedTempco, nominal.Divider.FixedTempcoPerKelvin),
-            FixedTempcoSigned = true,
-            ExcitationVolts = nominal.Divider.ExcitationVolts * (1 + Dev(ToleranceKind.Excitation)),
-        };
+        var divider = nominal.Divider is { } d
+            ? d with
+            {
+                FixedResistorOhms = d.FixedResistorOhms * (1 + Dev(ToleranceKind.FixedResistance)),
+                FixedTempcoPerKelvin = Bound(ToleranceKind.FixedTempco, d.FixedTempcoPerKelvin),
+                FixedTempcoSigned = true,
+                ExcitationVolts = d.ExcitationVolts * (1 + Dev(ToleranceKind.Excitation)),
+            }
+            : null;
+        // The unit's current and reference resistor are in its circuit: the reference the converter divides by is the
+        // unit's own I·R_ref, simulated, so the current's deviation cancels there as in the part.
+        var source = nominal.CurrentSource is { } c
+            ? c with
+            {
+                CurrentAmperes = c.CurrentAmperes * (1 + Dev(ToleranceKind.Current)),
+                CurrentTempcoPerKelvin = Bound(ToleranceKind.CurrentTempco, c.CurrentTempcoPerKelvin),
+                CurrentTempcoSigned = true,
+                ReferenceResistorOhms = c.ReferenceResistorOhms * (1 + Dev(ToleranceKind.ReferenceResistance)),
+                ReferenceResistorTempcoPerKelvin = Bound(ToleranceKind.ReferenceResistorTempco, c.ReferenceResistorTempcoPerKelvin),
+                ReferenceResistorTempcoSigned = true,
+            }
+            : null;
         var adc = nominal.Adc with
         {
             PinLeakageAmperes = nominal.Adc.PinLeakageAmperes * (1 + Dev(ToleranceKind.Leakage)),
@@ -48,14 +63,19 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
                 BiasCurrentSigned = true,
             }
             : null;
+        var wiring = nominal.Wiring is { } w
+            ? w with { CurrentMismatch = Bound(ToleranceKind.CurrentMismatch, w.CurrentMismatch), CurrentMismatchSigned = true }
+            : null;
         var design = nominal with
         {
+            Wiring = wiring,
             Sensor = new PerturbedSensorSpec(nominal.Sensor, sensor),
             Divider = divider,
+            CurrentSource = source,
             Adc = adc,
             Buffer = buffer,
         };
-        var reference = nominal.Adc.ReferenceVolts is { } v ? v * (1 + Dev(ToleranceKind.Reference)) : divider.ExcitationVolts;
+        var reference = nominal.Adc.ReferenceVolts is { } v ? v * (1 + Dev(ToleranceKind.Reference)) : design.NominalReferenceVolts;
         var tempco = nominal.Adc.IsRatiometric ? 0 : Bound(ToleranceKind.ReferenceTempco, nominal.Adc.ReferenceTempcoPerKelvin);
         var errors = new ConverterErrors(Bound(ToleranceKind.AdcOffset, nominal.Adc.OffsetErrorLsb),
             Bound(ToleranceKind.AdcGain, nominal.Adc.GainError), Dev(ToleranceKind.AdcInl));

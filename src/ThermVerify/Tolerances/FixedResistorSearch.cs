@@ -68,6 +68,9 @@ internal static class FixedResistorSearch
     public static IReadOnlyList<FixedResistorCandidate> Run(FrontEndDesign design, FixedResistorSearchOptions? options = null)
     {
         options ??= new FixedResistorSearchOptions();
+        var divider = design.Divider ?? throw new DesignException(design.Name, 1, 1, "current_source",
+            "choose-fixed chooses a divider's fixed resistor, and this design has none: a current source excites its sensor",
+            "Run check, worstcase or montecarlo on it; check's remedies give the reference resistor's tempco needed.");
         var sensor = design.Sensor.Build();
         var range = design.Check.Range;
         var ends = new[] { sensor.ResistanceOhms(range.MinCelsius), sensor.ResistanceOhms(range.MaxCelsius) };
@@ -76,7 +79,7 @@ internal static class FixedResistorSearch
         var high = options.MaximumOhms ?? ends.Max();
         if (!(low > 0 && high >= low))
             throw new ArgumentException($"The fixed-resistor search needs 0 < minimum ≤ maximum; got {low:G4} Ω to {high:G4} Ω.");
-        var present = design.Divider.FixedResistorOhms;
+        var present = divider.FixedResistorOhms;
         var candidates = Candidates(options.Series, low, high);
         // The resistor fitted now is always ranked, so the gain of changing it can be judged.
         if (!candidates.Any(c => SameValue(c, present))) candidates = [.. candidates.Append(present).Order()];
@@ -86,7 +89,7 @@ internal static class FixedResistorSearch
         var done = 0;
         Parallel.For(0, candidates.Count, parallel, i =>
         {
-            results[i] = Evaluate(design with { Divider = design.Divider with { FixedResistorOhms = candidates[i] } },
+            results[i] = Evaluate(design with { Divider = divider with { FixedResistorOhms = candidates[i] } },
                 options.Objective, slopeAt) with { IsPresent = SameValue(candidates[i], present) };
             options.Progress?.Report(new RunProgress(Interlocked.Increment(ref done), candidates.Count));
         });
@@ -116,7 +119,7 @@ internal static class FixedResistorSearch
         var model = new ClosedFormModel(candidate);
         var slope = Math.Abs(model.At(slopeAt).VoltsPerKelvin);
         if (objective == FixedResistorObjective.SlopeAt)
-            return new FixedResistorCandidate(candidate.Divider.FixedResistorOhms, double.NaN, double.NaN, double.NaN, slope, double.NaN, false);
+            return new FixedResistorCandidate(candidate.VoltageDivider.FixedResistorOhms, double.NaN, double.NaN, double.NaN, slope, double.NaN, false);
 
         var check = FrontEndCheck.Run(candidate, new CheckOptions
         {
@@ -130,7 +133,7 @@ internal static class FixedResistorSearch
         var worst = Enumerable.Range(0, errors.Length).MaxBy(i => Key(Math.Abs(errors[i])));
         var within = Enumerable.Range(0, errors.Length).All(i => double.IsFinite(errors[i]) && Math.Abs(errors[i]) <= points[i].BudgetKelvin);
         var margin = Enumerable.Range(0, errors.Length).Min(i => double.IsFinite(errors[i]) ? points[i].BudgetKelvin - Math.Abs(errors[i]) : double.NegativeInfinity);
-        return new FixedResistorCandidate(candidate.Divider.FixedResistorOhms, errors[worst], points[worst].Celsius,
+        return new FixedResistorCandidate(candidate.VoltageDivider.FixedResistorOhms, errors[worst], points[worst].Celsius,
             points.Max(p => p.KelvinPerLsb), slope, rise.DefaultIfEmpty(0).Max(), within) { MarginKelvin = margin };
     }
 

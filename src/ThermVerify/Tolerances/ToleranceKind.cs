@@ -29,4 +29,14 @@ public enum ToleranceKind
     ReferenceTempco,
     /// <summary>ADC pin leakage, as a fraction of its nominal value.</summary>
     Leakage,
+    /// <summary>A current source's current, as a fraction (cancels with a reference resistor).</summary>
+    Current,
+    /// <summary>A current source's tempco, spread over ±|tempco|.</summary>
+    CurrentTempco,
+    /// <summary>The ratiometric reference resistor, as a fraction.</summary>
+    ReferenceResistance,
+    /// <summary>The reference resistor's tempco, spread over ±|tempco|.</summary>
+    ReferenceResistorTempco,
+    /// <summary>3 wires: the mismatch of the second current against the first, spread over ±|mismatch|.</summary>
+    CurrentMismatch,
 }

@@ -50,10 +50,22 @@ internal sealed class ToleranceSet
                 Add(ToleranceKind.RtdClass, "sensor.class", 1, "class band");
                 break;
         }
-        var divider = design.Divider;
-        Add(ToleranceKind.FixedResistance, "divider.fixed_tolerance", divider.FixedTolerance, "");
-        Add(ToleranceKind.FixedTempco, "divider.fixed_tempco", divider.FixedTempcoPerKelvin, "1/K", divider.FixedTempcoSigned);
-        Add(ToleranceKind.Excitation, "divider.excitation_tolerance", divider.ExcitationTolerance, "");
+        if (design.Divider is { } divider)
+        {
+            Add(ToleranceKind.FixedResistance, "divider.fixed_tolerance", divider.FixedTolerance, "");
+            Add(ToleranceKind.FixedTempco, "divider.fixed_tempco", divider.FixedTempcoPerKelvin, "1/K", divider.FixedTempcoSigned);
+            Add(ToleranceKind.Excitation, "divider.excitation_tolerance", divider.ExcitationTolerance, "");
+        }
+        if (design.CurrentSource is { } source)
+        {
+            Add(ToleranceKind.Current, "current_source.current_tolerance", source.CurrentTolerance, "");
+            Add(ToleranceKind.CurrentTempco, "current_source.current_tempco", source.CurrentTempcoPerKelvin, "1/K", source.CurrentTempcoSigned);
+            Add(ToleranceKind.ReferenceResistance, "current_source.reference_resistor_tolerance", source.ReferenceResistorTolerance, "");
+            Add(ToleranceKind.ReferenceResistorTempco, "current_source.reference_resistor_tempco", source.ReferenceResistorTempcoPerKelvin, "1/K",
+                source.ReferenceResistorTempcoSigned);
+        }
+        if (design.Wiring is { Wires: 3 } wiring)
+            Add(ToleranceKind.CurrentMismatch, "wiring.current_mismatch", wiring.CurrentMismatch, "", wiring.CurrentMismatchSigned);
         var adc = design.Adc;
         if (!adc.IsRatiometric)
         {

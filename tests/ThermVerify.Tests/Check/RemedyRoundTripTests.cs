@@ -121,7 +121,10 @@ public class RemedyRoundTripTests
         "adc.reference_tempco" => d.Adc.ReferenceTempcoPerKelvin,
         "filter.reservoir_capacitor" => d.Filter.ReservoirCapacitorFarads > 0 ? d.Filter.ReservoirCapacitorFarads : null,
         "filter.series_resistor" => d.Filter.SeriesResistorOhms,
-        "divider.fixed_tempco" => d.Divider.FixedTempcoPerKelvin,
+        "divider.fixed_tempco" => d.VoltageDivider.FixedTempcoPerKelvin,
+        "current_source.current_tempco" => d.CurrentSource!.CurrentTempcoPerKelvin,
+        "current_source.reference_resistor_tempco" => d.CurrentSource!.ReferenceResistorTempcoPerKelvin,
+        "wiring.current_mismatch" => d.Wiring!.CurrentMismatch,
         "sensor.dissipation_constant" => d.Sensor.DissipationConstantWattsPerKelvin,
         "buffer.gain_bandwidth" => d.Buffer?.GainBandwidthHertz,
         "buffer.offset_voltage" => d.Buffer?.OffsetVolts,
@@ -146,7 +149,7 @@ public class RemedyRoundTripTests
             if (section == "buffer" && !text.Contains("\n[buffer]\n", StringComparison.Ordinal))
             {
                 // The follower the remedy describes: rail-to-rail on the excitation (or reference), 100 Ω open-loop output resistance.
-                var top = Math.Max(design.Divider.ExcitationVolts, design.Adc.ReferenceVolts ?? 0).ToString("R", CultureInfo.InvariantCulture);
+                var top = Math.Max(design.VoltageDivider.ExcitationVolts, design.Adc.ReferenceVolts ?? 0).ToString("R", CultureInfo.InvariantCulture);
                 text = text.Replace("\n[filter]\n", $"\n[buffer]\n{key} = {value}\nsupply = \"0 V .. {top} V\"\noutput_resistance = \"100 ohm\"\n\n[filter]\n", StringComparison.Ordinal);
                 continue;
             }

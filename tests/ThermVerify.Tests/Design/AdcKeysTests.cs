@@ -28,6 +28,19 @@ public class AdcKeysTests
         Assert.Contains("give reference as a voltage", e.Message);
     }
 
+    [Fact]
+    public void A_reference_tolerance_on_a_ratiometric_converter_is_refused_at_its_line_with_the_fix()
+    {
+        // A ratiometric converter's reference is the excitation: a tolerance of its own would be silently ignored.
+        var e = Assert.Throws<DesignException>(() => TestDesign.Make(("adc.reference_tolerance", "\"0.5 %\"")));
+        Assert.Equal("adc.reference_tolerance", e.KeyPath);
+        Assert.True(e.Line > 1, $"line {e.Line}");
+        Assert.Contains("cancels", e.Message);
+        Assert.Contains("divider.excitation_tolerance", e.Message);
+        // Zero (what the normal form writes for a ratiometric converter) is no error.
+        Assert.Equal(0, TestDesign.Make(("adc.reference_tolerance", "\"0 %\"")).Adc.ReferenceTolerance);
+    }
+
     [Theory]
     [InlineData("first_transition", "\"third-lsb\"", "half-lsb")]
     [InlineData("firmware_inverse", "\"centre\"", "bin-middle")]

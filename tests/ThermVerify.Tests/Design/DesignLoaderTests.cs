@@ -16,8 +16,8 @@ public class DesignLoaderTests
         Assert.Equal(10e3, beta.R0Ohms);
         Assert.Equal(25, beta.ReferenceCelsius);
         Assert.Equal(3435, beta.BetaKelvin);
-        Assert.Equal(SensorSide.Low, d.Divider.SensorSide);
-        Assert.Equal(10e3, d.Divider.FixedResistorOhms);
+        Assert.Equal(SensorSide.Low, d.VoltageDivider.SensorSide);
+        Assert.Equal(10e3, d.VoltageDivider.FixedResistorOhms);
         Assert.Null(d.Buffer);
         Assert.Equal(FilterSpec.None, d.Filter);
         Assert.Equal(12, d.Adc.Bits);

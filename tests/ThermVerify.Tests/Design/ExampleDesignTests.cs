@@ -60,7 +60,7 @@ public class ExampleDesignTests
         Assert.Equal(4190, beta.BetaKelvin);
         Tolerance.AssertClose(0.01, beta.ResistanceTolerance, 1e-12);
         Tolerance.AssertClose(1.5e-3, beta.DissipationConstantWattsPerKelvin!.Value, 1e-12);
-        Tolerance.AssertClose(25e-6, d.Divider.FixedTempcoPerKelvin, 1e-12);
+        Tolerance.AssertClose(25e-6, d.VoltageDivider.FixedTempcoPerKelvin, 1e-12);
         Assert.True(d.Adc.IsRatiometric);
         Assert.Equal(PrechargeMode.OtherChannel, d.Adc.Precharge);
         Assert.Equal(0, d.Filter.ReservoirCapacitorFarads);
@@ -102,7 +102,7 @@ public class ExampleDesignTests
         Assert.Equal(3.9083e-3, rtd.A);
         Assert.Equal(-5.775e-7, rtd.B);
         Assert.Equal(-4.183e-12, rtd.C);
-        Assert.Equal(4700, d.Divider.FixedResistorOhms);
+        Assert.Equal(4700, d.VoltageDivider.FixedResistorOhms);
     }
 
     [Fact]

@@ -15,8 +15,8 @@ public class ToleranceKeysTests
         var d = Parse(DesignText.Valid);
         Assert.Equal(ToleranceShape.Uniform, d.Tolerances.Distribution);
         Assert.Equal(0, d.Tolerances.LeakageSpread);
-        Assert.Null(d.Divider.SwitchOnLeadSeconds);
-        Assert.Null(d.Divider.ReadingIntervalSeconds);
+        Assert.Null(d.VoltageDivider.SwitchOnLeadSeconds);
+        Assert.Null(d.VoltageDivider.ReadingIntervalSeconds);
     }
 
     [Fact]
@@ -40,8 +40,8 @@ public class ToleranceKeysTests
     public void SwitchedExcitationKeysAreRead()
     {
         var d = Parse(WithDivider("switch_on_lead = \"500 us\"\nreading_interval = \"1 s\""));
-        Tolerance.AssertClose(500e-6, d.Divider.SwitchOnLeadSeconds!.Value, 1e-12);
-        Assert.Equal(1, d.Divider.ReadingIntervalSeconds);
+        Tolerance.AssertClose(500e-6, d.VoltageDivider.SwitchOnLeadSeconds!.Value, 1e-12);
+        Assert.Equal(1, d.VoltageDivider.ReadingIntervalSeconds);
     }
 
     [Fact]

@@ -19,7 +19,7 @@ public class OneModelTests
     /// </summary>
     private static FrontEndDesign NominalUnit(FrontEndDesign d) => d with
     {
-        Divider = d.Divider with { FixedTempcoPerKelvin = d.Divider.FixedTempcoSigned ? d.Divider.FixedTempcoPerKelvin : 0 },
+        Divider = d.VoltageDivider with { FixedTempcoPerKelvin = d.VoltageDivider.FixedTempcoSigned ? d.VoltageDivider.FixedTempcoPerKelvin : 0 },
         Adc = d.Adc with
         {
             OffsetErrorLsb = d.Adc.OffsetErrorSigned ? d.Adc.OffsetErrorLsb : 0,

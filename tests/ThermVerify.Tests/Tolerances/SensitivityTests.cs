@@ -40,7 +40,7 @@ public class SensitivityTests
     public void ReadingSensitivitiesMatchTheRatiometricClosedForm()
     {
         var design = ToleranceTestDesigns.TwoResistors();
-        design = design with { Divider = design.Divider with { ExcitationTolerance = 0.01 } };
+        design = design with { Divider = design.VoltageDivider with { ExcitationTolerance = 0.01 } };
         var result = WorstCase.Run(design, new WorstCaseOptions { Threads = 1 });
         var sensor = design.Sensor.Build();
         var byKind = result.Sensitivities.ToDictionary(s => s.Parameter.Kind);

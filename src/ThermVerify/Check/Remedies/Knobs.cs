@@ -16,6 +16,9 @@ internal static class Knobs
         ["filter.series_resistor"] = "remove the filter's series resistor",
         ["adc.pin_leakage"] = "choose a converter with negligible pin leakage",
         ["divider.fixed_tempco"] = "use a fixed resistor with a negligible tempco",
+        ["current_source.current_tempco"] = "use a current source with a negligible tempco",
+        ["current_source.reference_resistor_tempco"] = "use a reference resistor with a negligible tempco",
+        ["wiring.current_mismatch"] = "match the two currents (or calibrate their mismatch out)",
         ["buffer.offset_voltage"] = "trim (or calibrate) the op-amp's offset out",
         ["buffer.offset_drift"] = "use an op-amp with negligible offset drift (chopper-stabilised)",
         ["buffer.bias_current"] = "use an op-amp with negligible bias current",
@@ -54,8 +57,18 @@ internal static class Knobs
     public static readonly Knob PinLeakage = Magnitude("adc.pin_leakage", "A", d => d.Adc.PinLeakageAmperes,
         (d, v) => d with { Adc = d.Adc with { PinLeakageAmperes = v } }, "choose a converter whose pin leakage (at pin_leakage_temperature) is at most");
 
-    public static readonly Knob FixedTempco = Magnitude("divider.fixed_tempco", "ppm/K", d => d.Divider.FixedTempcoPerKelvin,
-        (d, v) => d with { Divider = d.Divider with { FixedTempcoPerKelvin = v } }, "use a fixed resistor with a tempco of at most");
+    public static readonly Knob FixedTempco = Magnitude("divider.fixed_tempco", "ppm/K", d => d.VoltageDivider.FixedTempcoPerKelvin,
+        (d, v) => d with { Divider = d.VoltageDivider with { FixedTempcoPerKelvin = v } }, "use a fixed resistor with a tempco of at most");
+
+    public static readonly Knob CurrentTempco = Magnitude("current_source.current_tempco", "ppm/K", d => d.CurrentSource!.CurrentTempcoPerKelvin,
+        (d, v) => d with { CurrentSource = d.CurrentSource! with { CurrentTempcoPerKelvin = v } }, "use a current source with a tempco of at most");
+
+    public static readonly Knob CurrentMismatch = Magnitude("wiring.current_mismatch", "fraction", d => d.Wiring!.CurrentMismatch,
+        (d, v) => d with { Wiring = d.Wiring! with { CurrentMismatch = v } }, "match the two currents of the 3-wire connection to within");
+
+    public static readonly Knob ReferenceResistorTempco = Magnitude("current_source.reference_resistor_tempco", "ppm/K",
+        d => d.CurrentSource!.ReferenceResistorTempcoPerKelvin,
+        (d, v) => d with { CurrentSource = d.CurrentSource! with { ReferenceResistorTempcoPerKelvin = v } }, "use a reference resistor with a tempco of at most");
 
     /// <summary>The open-loop output resistance the added follower is given: a typical CMOS op-amp's (common practice, no source).</summary>
     public const double AddedBufferOutputOhms = 100;
@@ -73,7 +86,7 @@ internal static class Knobs
             {
                 GainBandwidthHertz = v,
                 OutputResistanceOhms = AddedBufferOutputOhms,
-                Supply = new VoltageRange(0, Math.Max(d.Divider.ExcitationVolts, d.Adc.ReferenceVolts ?? 0)),
+                Supply = new VoltageRange(0, Math.Max(d.VoltageDivider.ExcitationVolts, d.Adc.ReferenceVolts ?? 0)),
             },
         },
         d => FullScaleFollower(d) * 1e3,
@@ -83,8 +96,8 @@ internal static class Knobs
     };
 
     private static double FullScaleFollower(FrontEndDesign d) =>
-        FrontEnd.SamplingFormulas.FollowerGainBandwidthFor(d.Adc.ReferenceVolts ?? d.Divider.ExcitationVolts,
-            (d.Adc.ReferenceVolts ?? d.Divider.ExcitationVolts) / (1 << d.Adc.Bits) / 2, d.Adc.AcquisitionTimeSeconds);
+        FrontEnd.SamplingFormulas.FollowerGainBandwidthFor(d.NominalReferenceVolts, d.NominalReferenceVolts / (1 << d.Adc.Bits) / 2,
+            d.Adc.AcquisitionTimeSeconds);
 
     public static readonly Knob BufferGainBandwidth = new("buffer.gain_bandwidth", "Hz", Better.Higher,
         d => (double?)d.Buffer!.GainBandwidthHertz, (d, v) => d with { Buffer = d.Buffer! with { GainBandwidthHertz = v } },
@@ -155,22 +168,26 @@ internal static class Knobs
     public static IReadOnlyList<Knob> For(string findingId, FrontEndDesign design, CheckPoint worst)
     {
         var buffered = design.Buffer is not null;
-        var buffer = buffered ? BufferGainBandwidth : AddBuffer;
+        // A buffer behind a current-excited sensor is not modelled, so none is offered there.
+        Knob[] buffer = buffered ? [BufferGainBandwidth] : design.CurrentSource is null ? [AddBuffer] : [];
         switch (findingId)
         {
             case "settling":
-                return [AcquisitionTime, Reservoir, buffer];
+                return [AcquisitionTime, Reservoir, .. buffer];
             case "reservoir-recovery":
-                return design.Filter.SeriesResistorOhms > 0 ? [SampleRate, SeriesResistor, buffer] : [SampleRate, buffer];
+                return design.Filter.SeriesResistorOhms > 0 ? [SampleRate, SeriesResistor, .. buffer] : [SampleRate, .. buffer];
             case "dc-loading":
             {
                 var parts = new List<(Knob, double)>
                 {
                     (PinLeakage, design.Adc.PinLeakageAmperes != 0 ? Math.Abs(worst.Estimates.LeakageVolts) : -1),
-                    (FixedTempco, design.Divider.FixedTempcoPerKelvin != 0 ? Math.Abs(worst.Estimates.FixedDriftVolts) : -1),
+                    (FixedTempco, design.Divider?.FixedTempcoPerKelvin is not (null or 0) ? Math.Abs(worst.Estimates.FixedDriftVolts) : -1),
+                    (ReferenceResistorTempco, design.CurrentSource?.ReferenceResistorTempcoPerKelvin is not (null or 0) ? Math.Abs(worst.Estimates.ExcitationVolts) : -1),
+                    (CurrentTempco, design.CurrentSource is { ReferenceResistorOhms: null, CurrentTempcoPerKelvin: not 0 } ? Math.Abs(worst.Estimates.ExcitationVolts) : -1),
+                    (CurrentMismatch, design.Wiring is { Wires: 3, CurrentMismatch: not 0 } ? Math.Abs(worst.Estimates.LeadVolts) : -1),
                 };
                 var knobs = Ordered(parts);
-                if (design.Adc.PinLeakageAmperes != 0) knobs.Add(buffered ? SeriesResistor : AddBuffer);
+                if (design.Adc.PinLeakageAmperes != 0) knobs.AddRange(buffered ? [SeriesResistor] : buffer);
                 return knobs;
             }
             case "buffer-static" when buffered:
@@ -183,7 +200,7 @@ internal static class Knobs
             case "converter":
             {
                 var adc = design.Adc;
-                var x = worst.SampleVolts / (adc.ReferenceVolts ?? design.Divider.ExcitationVolts);
+                var x = worst.SampleVolts / design.NominalReferenceVolts;
                 return Ordered([(AdcOffset, Present(adc.OffsetErrorLsb, adc.OffsetErrorLsb)),
                     (AdcGain, Present(adc.GainError, adc.GainError * x * (1 << adc.Bits))),
                     (AdcInl, Present(adc.InlLsb, adc.InlLsb * 4 * x * (1 - x))),

@@ -81,7 +81,7 @@ internal static class SpiceDeckWriter
         DcTemperatureSweep d => $".dc temp {Format(d.StartCelsius)} {Format(d.StartCelsius + (d.Points - 0.5) * d.StepKelvin)} {Format(d.StepKelvin)}",
         TransientSweep t => $".tran {Format(t.MaxStepSeconds)} {Format(t.StopSeconds)} 0 {Format(t.MaxStepSeconds)}",
         AcSweep a => $".ac dec {a.PointsPerDecade} {Format(a.StartHertz)} {Format(a.StopHertz)}",
-        NoiseSweep n => $".noise v({n.OutputNode}) {SpiceLines.InstanceName('V', n.InputSource)} dec {n.PointsPerDecade} {Format(n.StartHertz)} {Format(n.StopHertz)}",
+        NoiseSweep n => $".noise v({n.OutputNode}) {SourceName(circuit, n.InputSource)} dec {n.PointsPerDecade} {Format(n.StartHertz)} {Format(n.StopHertz)}",
         _ => throw new ArgumentException($"Unknown analysis {analysis.GetType().Name}."),
     };
 

@@ -20,8 +20,9 @@ public static class CheckSummaryText
         var d = result.Design;
         text.AppendLine($"thermverify check: {d.Name}");
         text.AppendLine($"  sensor   {result.SensorDescription}");
-        text.AppendLine($"  divider  sensor on the {(d.Divider.SensorSide == SensorSide.High ? "high" : "low")} side, fixed {V(d.Divider.FixedResistorOhms, UnitKind.Ohm)}, excitation {V(d.Divider.ExcitationVolts, UnitKind.Volt)}");
-        text.AppendLine($"  ADC      {d.Adc.Bits} bits, reference {(d.Adc.IsRatiometric ? "ratiometric" : V(result.Adc.ReferenceVolts, UnitKind.Volt))}, " +
+        var (label, excitation) = ReportFormat.Excitation(d);
+        text.AppendLine($"  {label,-8} {excitation}");
+        text.AppendLine($"  ADC      {d.Adc.Bits} bits, reference {ReportFormat.Reference(d, result.Adc)}, " +
                         $"1 LSB = {V(result.Adc.LsbVolts, UnitKind.Volt)}, {V(d.Adc.SampleRateHertz, UnitKind.Hertz)}, acquisition {V(d.Adc.AcquisitionTimeSeconds, UnitKind.Second)}");
         text.AppendLine($"  codes    {result.Adc.Describe()}");
         text.AppendLine($"  precharge {ReportFormat.PrechargeLine(result)}");

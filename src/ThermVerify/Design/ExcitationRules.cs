@@ -1,0 +1,33 @@
+namespace ThermVerify.Design;
+
+/// <summary>
+/// What the excitation asks of the rest of the design: exactly one of [divider] and [current_source]; a current source
+/// reads against a fixed reference, or ratiometrically through its reference resistor, never against itself; and the
+/// parts not yet modelled with a current source (a buffer) are refused rather than guessed.
+/// </summary>
+internal static class ExcitationRules
+{
+    public static void Check(TomlSection root, FrontEndDesign design)
+    {
+        if (design.Divider is null && design.CurrentSource is null)
+            throw new DesignException(root.SourceName, 1, 1, "divider", "missing section [divider] or [current_source]",
+                "Add a [divider] section (sensor_side, fixed_resistor, excitation) for a voltage-excited divider, or a [current_source] section (current) for a current through the sensor.");
+        if (design.Divider is not null && design.CurrentSource is not null)
+            throw root.ErrorAtKey("current_source", "both [divider] and [current_source]",
+                "A sensor is excited one way: keep [divider] (a voltage and a fixed resistor) or [current_source] (a current through the sensor).");
+        if (design.Wiring is not null && design.CurrentSource is null)
+            throw root.ErrorAtKey("wiring", "leads are modelled with a current source only",
+                "Remove [wiring], or excite the sensor with a [current_source] (the leads of a divider are not modelled yet).");
+        if (design.CurrentSource is not { } source) return;
+        if (design.Buffer is not null)
+            throw root.ErrorAtKey("buffer", "a buffer behind a current-excited sensor is not modelled",
+                "Remove [buffer]: the converter reads the sensor's voltage directly (add a series resistor and reservoir in [filter] if the converter needs one).");
+        var adc = root.Section("adc")!;
+        if (source.ReferenceResistorOhms is null && design.Adc.IsRatiometric)
+            throw adc.ErrorAtValue("reference", "a current source has no voltage for the converter to be ratiometric to",
+                "Give the converter's reference as a voltage, or add reference_resistor to [current_source] (its voltage is then the reference).");
+        if (source.ReferenceResistorOhms is not null && !design.Adc.IsRatiometric)
+            throw adc.ErrorAtValue("reference", "with a reference resistor the converter's reference is that resistor's voltage",
+                "Write reference = \"ratiometric\", or remove reference_resistor from [current_source] to read against this fixed reference.");
+    }
+}
