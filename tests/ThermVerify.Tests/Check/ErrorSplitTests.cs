@@ -26,15 +26,8 @@ public class ErrorSplitTests
 
     private static double Volts(double celsius) => 3.3 * Ohms(celsius) / (Ohms(celsius) + 10e3);
 
-    private static readonly Dictionary<string, Func<ErrorContributions, double>> Columns = new()
-    {
-        ["converter"] = c => c.ConverterKelvin,
-        ["dc-loading"] = c => c.DcLoadingKelvin,
-        ["reservoir-recovery"] = c => c.RecoveryKelvin,
-        ["settling"] = c => c.SettlingKelvin,
-        ["buffer-static"] = c => c.BufferKelvin,
-        ["self-heating"] = c => c.SelfHeatingKelvin,
-    };
+    // The columns by their finding names, as the severity rule reads them.
+    private static Dictionary<string, Func<ErrorContributions, double>> Columns => SeverityRuleTests.Columns;
 
     /// <summary>
     /// Every column but the finding's own (and quantisation) is zero, to 1e-9 K (the first sample meets the settled pin

@@ -10,7 +10,8 @@ namespace ThermVerify.Tests.Check;
 /// </summary>
 public class SeverityRuleTests
 {
-    private static readonly Dictionary<string, Func<ErrorContributions, double>> Columns = new()
+    /// <summary>Each error column by the name of the finding it belongs to (shared with the error-split tests).</summary>
+    internal static readonly Dictionary<string, Func<ErrorContributions, double>> Columns = new()
     {
         ["converter"] = c => c.ConverterKelvin,
         ["dc-loading"] = c => c.DcLoadingKelvin,
