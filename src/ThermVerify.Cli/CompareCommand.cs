@@ -26,7 +26,7 @@ internal static class CompareCommand
         {
             var options = new CheckOptions { Threads = parsed.GetValue(threads), ComputeRemedies = !parsed.GetValue(noRemedies), Cancel = cancel };
             var pair = Verifier.Compare(Verifier.LoadDesign(parsed.GetValue(first)!.FullName), Verifier.LoadDesign(parsed.GetValue(second)!.FullName), options);
-            parsed.InvocationConfiguration.Output.Write(ComparisonText.Render(pair.First, pair.Second));
+            parsed.InvocationConfiguration.Output.Write(ComparisonText.Render(pair.First, pair.Second, pair.FirstProvenance, pair.SecondProvenance));
             return pair.BothPass ? ExitCodes.Success : ExitCodes.CheckFailed;
         }));
         return command;

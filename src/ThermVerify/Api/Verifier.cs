@@ -43,7 +43,8 @@ public static class Verifier
     public static DesignPair Compare(FrontEndDesign first, FrontEndDesign second, CheckOptions? options = null)
     {
         using var scope = Work.Scope(options?.Cancel ?? CancellationToken.None);
-        return new(FrontEndCheck.Run(first, options), FrontEndCheck.Run(second, options));
+        var (a, b) = (FrontEndCheck.Run(first, options), FrontEndCheck.Run(second, options));
+        return new(a, b, RunStamp.Check(first, options), RunStamp.Check(second, options));
     }
 
     /// <summary>Checks the design (remedies off) and returns the key figures a later check compares with, with the run's provenance.</summary>

@@ -1,6 +1,7 @@
 using ThermVerify.Circuits;
 using ThermVerify.Circuits.Spice;
 using ThermVerify.Design;
+using ThermVerify.Provenance;
 using ThermVerify.Sensors;
 using static ThermVerify.FrontEnd.FrontEndNodes;
 
@@ -110,10 +111,17 @@ internal static class FrontEndDecks
 
     private static IReadOnlyList<SpiceOutput> Outputs(DeckOptions options, params SpiceOutput[] outputs) => options.PrintFigures ? outputs : [];
 
+    /// <summary>
+    /// Which tool wrote the deck and from which files, so a deck found later can be traced to its design; the
+    /// analysis' own choices (temperature, conversions) are in the line that describes it.
+    /// </summary>
+    private static string Provenance(FrontEndDesign design) =>
+        $"made by thermverify {ToolVersion.Current}; design files: {DesignDigest.Describe(design.Source)}";
+
     public static SpiceDeckHeader Header(FrontEndDesign design, Circuit circuit, string what, string? prints = null) =>
         new($"thermverify: {design.Name}: {what}")
         {
-            Notes = [$"design: {design.Name}" + (design.Description is { } d ? $" ({d})" : ""), what,
+            Notes = [$"design: {design.Name}" + (design.Description is { } d ? $" ({d})" : ""), Provenance(design), what,
                 .. prints is null ? Array.Empty<string>() : [$"ngspice -b on this deck {prints}"]],
             NodeDescriptions = new Dictionary<string, string>
             {

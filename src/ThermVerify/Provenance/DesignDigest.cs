@@ -24,6 +24,11 @@ public sealed record DesignDigest(IReadOnlyList<SourceFile> Files)
     /// <summary>The digest of a design given as text rather than read from a file: of its UTF-8 bytes.</summary>
     public static DesignDigest OfText(string name, string text) => new([new SourceFile(name, Of(Encoding.UTF8.GetBytes(text)))]);
 
+    /// <summary>"sha256 HASH (design.toml, rt.csv)", or why there is none.</summary>
+    public static string Describe(DesignDigest? digest, bool shortHash = false) => digest is null
+        ? "built in code, not read from a file"
+        : $"sha256 {(shortHash ? digest.Sha256[..16] + "…" : digest.Sha256)} ({string.Join(", ", digest.Files.Select(f => f.Name))})";
+
     public bool Equals(DesignDigest? other) => other is not null && other.Sha256 == Sha256;
 
     public override int GetHashCode() => Sha256.GetHashCode(StringComparison.Ordinal);

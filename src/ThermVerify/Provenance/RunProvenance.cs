@@ -21,10 +21,7 @@ public sealed record RunProvenance(string ToolVersion, string Engine, string? En
 
     public string EngineText => EngineVersion is null ? Engine : $"{Engine}, version {EngineVersion}";
 
-    /// <summary>"sha256 HASH (design.toml, rt.csv)", or why there is none.</summary>
-    public string DesignText(bool shortHash = false) => Design is null
-        ? "built in code, not read from a file"
-        : $"sha256 {(shortHash ? Design.Sha256[..16] + "…" : Design.Sha256)} ({string.Join(", ", Design.Files.Select(f => f.Name))})";
+    public string DesignText(bool shortHash = false) => DesignDigest.Describe(Design, shortHash);
 
     public string SettingsText => Settings.Count == 0 ? "defaults" : string.Join(", ", Settings.Select(s => $"{s.Name} {s.Value}"));
 

@@ -24,8 +24,16 @@ public class CheckProgressTests
             var lines = run.Error.Split('\n', StringSplitOptions.RemoveEmptyEntries);
             Assert.StartsWith($"sampling runs: 0/{runs} (0 %)", lines[0]);
             Assert.Contains(lines, l => l.StartsWith($"sampling runs: {runs}/{runs} (100 %)", StringComparison.Ordinal));
-            Assert.StartsWith($"remedy searches: {findings}/{findings} (100 %)", lines[^1]);
             Assert.True(findings > 0, "the example fails and has findings to search remedies for");
+            // Remedy progress counts the changes searched (at least one step a finding), each step in order up to the total.
+            var remedySteps = lines.Where(l => l.StartsWith("remedy searches: ", StringComparison.Ordinal))
+                .Select(l => l["remedy searches: ".Length..l.IndexOf(' ', "remedy searches: ".Length)].Split('/').Select(int.Parse).ToArray()).ToList();
+            var total = remedySteps[0][1];
+            Assert.True(total > findings, $"{total} changes to search for {findings} findings: more than one change for some finding");
+            Assert.Equal([0, total], remedySteps[0]);
+            Assert.Equal([total, total], remedySteps[^1]);
+            Assert.All(remedySteps.Zip(remedySteps.Skip(1)), p => Assert.InRange(p.Second[0] - p.First[0], 0, total));
+            Assert.StartsWith($"remedy searches: {total}/{total} (100 %)", lines[^1]);
         }
         finally
         {

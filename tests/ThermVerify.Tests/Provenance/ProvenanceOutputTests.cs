@@ -122,4 +122,28 @@ public sealed class ProvenanceOutputTests : IDisposable
         Assert.Equal("resolution", doc.GetProperty("settings").GetProperty("objective").GetString());
         Assert.Equal("10000 ohm", doc.GetProperty("settings").GetProperty("min").GetString());
     }
+
+    [Fact]
+    public void Compare_names_each_design_by_its_files()
+    {
+        var other = In("freezer-copy.toml");
+        File.WriteAllText(other, File.ReadAllText(Design).Replace("budget", "# a changed copy\nbudget", StringComparison.Ordinal));
+        var run = CliRunner.Run("compare", Design, other, "--no-remedies");
+        Assert.Contains($"  run      thermverify {ToolVersion.Current}, engine built-in; sampling-points 25, max-conversions 20000\n", run.Output);
+        Assert.Contains($"  files A  sha256 {Digest.Sha256[..16]}… (table-sensor-freezer.toml, table-47k-rt.csv)\n", run.Output);
+        var copy = DesignLoader.Load(other).Source!;
+        Assert.NotEqual(Digest.Sha256, copy.Sha256);
+        Assert.Contains($"  files B  sha256 {copy.Sha256[..16]}… (freezer-copy.toml, table-47k-rt.csv)\n", run.Output);
+    }
+
+    [Theory]
+    [InlineData("dc")]
+    [InlineData("tran")]
+    [InlineData("ac")]
+    public void A_deck_names_the_tool_and_the_design_files_it_was_made_from(string analysis)
+    {
+        var run = CliRunner.Run("deck", Design, "--analysis", analysis);
+        Assert.Equal(0, run.ExitCode);
+        Assert.Contains($"\n* made by thermverify {ToolVersion.Current}; design files: sha256 {Digest.Sha256} (table-sensor-freezer.toml, table-47k-rt.csv)\n", run.Output);
+    }
 }

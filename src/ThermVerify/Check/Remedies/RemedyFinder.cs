@@ -43,13 +43,27 @@ internal sealed class RemedyFinder
     {
         var finder = new RemedyFinder(result, options);
         var done = new Dictionary<Finding, Finding>();
-        options.RemedyProgress?.Report(new RunProgress(0, result.Findings.Count));
-        foreach (var f in result.Findings.Where(f => f.Id != FindingRules.OverBudgetId).Concat(result.Findings.Where(f => f.Id == FindingRules.OverBudgetId)))
+        // Progress counts the changes to search (each is at least one check of the changed design), not the findings:
+        // one finding may have six changes and another none, so the count of findings says little of the time left.
+        var plan = result.Findings.Where(f => f.Id != FindingRules.OverBudgetId).Concat(result.Findings.Where(f => f.Id == FindingRules.OverBudgetId))
+            .Select(f => (Finding: f, Knobs: finder.KnobsFor(f))).ToList();
+        var total = plan.Sum(p => Math.Max(p.Knobs.Count, 1));
+        var searched = 0;
+        options.RemedyProgress?.Report(new RunProgress(0, total));
+        foreach (var (finding, knobs) in plan)
         {
-            done[f] = finder.Solve(f);
-            options.RemedyProgress?.Report(new RunProgress(done.Count, result.Findings.Count));
+            var before = searched;
+            done[finding] = finder.Solve(finding, knobs, () => options.RemedyProgress?.Report(new RunProgress(++searched, total)));
+            searched = before + Math.Max(knobs.Count, 1);
+            options.RemedyProgress?.Report(new RunProgress(searched, total));
         }
         return result with { Findings = [.. result.Findings.Select(f => done[f])] };
+    }
+
+    private IReadOnlyList<Knob> KnobsFor(Finding finding)
+    {
+        var worst = SearchPoint(original, finding);
+        return finding.Id == FindingRules.OverBudgetId ? OverBudgetKnobs(worst) : Knobs.For(finding.Id, Design, worst);
     }
 
     /// <summary>One change tried for a finding: the value and what the check of the changed design found.</summary>
@@ -58,18 +72,19 @@ internal sealed class RemedyFinder
     /// <summary>A combination proven for a finding: its changes (with how each was found) and the check of all of them applied.</summary>
     private sealed record Combination(string FindingId, IReadOnlyList<(Knob Knob, double Value, string Method)> Changes, CheckResult Check);
 
-    private Finding Solve(Finding finding)
+    /// <summary>The finding with its remedies; <paramref name="searched"/> is called after each of <paramref name="knobs"/>.</summary>
+    private Finding Solve(Finding finding, IReadOnlyList<Knob> knobs, Action searched)
     {
         var worst = SearchPoint(original, finding);
-        var knobs = finding.Id == FindingRules.OverBudgetId ? OverBudgetKnobs(worst) : Knobs.For(finding.Id, Design, worst);
         if (knobs.Count == 0) return finding with { Remedies = [] };
         var tried = attempts[finding.Id] = [];
         var remedies = new List<Remedy>();
         foreach (var knob in knobs)
         {
             options.Cancel.ThrowIfCancellationRequested();
-            if (Reused(finding, knob) is { } reused) { remedies.Add(reused); continue; }
-            if (Single(finding, worst, knob, tried) is { } remedy) remedies.Add(remedy);
+            if (Reused(finding, knob) is { } reused) remedies.Add(reused);
+            else if (Single(finding, worst, knob, tried) is { } remedy) remedies.Add(remedy);
+            searched();
         }
         if (remedies.Count > 0) return finding with { Remedies = remedies };
         if ((Pair(finding, tried) ?? ReusedCombination(finding)) is { } pair)

@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Text;
 using ThermVerify.Check;
 using ThermVerify.Check.Buffer;
+using ThermVerify.Provenance;
 using ThermVerify.Quantities;
 
 namespace ThermVerify.Reporting.Text;
@@ -12,10 +13,14 @@ namespace ThermVerify.Reporting.Text;
 /// </summary>
 public static class ComparisonText
 {
-    public static string Render(CheckResult a, CheckResult b, int tableRows = 9)
+    public static string Render(CheckResult a, CheckResult b, RunProvenance runA, RunProvenance runB, int tableRows = 9)
     {
         var text = new StringBuilder();
         text.AppendLine($"thermverify compare: A = {a.Design.Name}, B = {b.Design.Name}");
+        // Both ran with the same options, so one run line serves; the files line tells the designs apart.
+        text.AppendLine($"  run      thermverify {runA.ToolVersion}, engine {runA.EngineText}; {runA.SettingsText}");
+        text.AppendLine($"  files A  {runA.DesignText(shortHash: true)}");
+        text.AppendLine($"  files B  {runB.DesignText(shortHash: true)}");
         text.AppendLine($"  A  {ReportFormat.Verdict(a)}");
         text.AppendLine($"  B  {ReportFormat.Verdict(b)}");
         text.AppendLine();
