@@ -47,7 +47,8 @@ internal static class FindingRules
                 p => p.Simulated.BufferVolts, p => p.Contributions.BufferKelvin, p => BufferCause(design, p), p => p.Estimates.BufferVolts);
         Add("self-heating", "the sensor's self-heating moves the reading by more than ½ LSB",
             p => p.Simulated.SelfHeatingVolts, p => p.Contributions.SelfHeatingKelvin,
-            p => I($"the sensor dissipates its share of the divider's power and warms by P/δ (IEC 60539-1), δ = {design.Sensor.DissipationConstantWattsPerKelvin * 1e3:0.###} mW/K; ") +
+            p => (design.CurrentSource is null ? "the sensor dissipates its share of the divider's power" : "the sensor dissipates I²R of the excitation current") +
+                 I($" and warms by P/δ (IEC 60539-1), δ = {design.Sensor.DissipationConstantWattsPerKelvin * 1e3:0.###} mW/K; ") +
                  I($"{p.Contributions.SelfHeatingKelvin * 1e3:0.#} mK at {p.Celsius:0.##} °C"),
             p => p.Estimates.SelfHeatingVolts, simulated: false);
         return findings;

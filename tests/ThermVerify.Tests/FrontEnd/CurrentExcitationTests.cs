@@ -152,6 +152,16 @@ public class CurrentExcitationTests
     }
 
     [Fact]
+    public void Self_heating_cause_names_the_excitation_current_not_a_divider()
+    {
+        // P = I²·R_s (Joule's law) with no divider to share the power: the cause says so.
+        var result = FrontEndCheck.Run(CurrentDesigns.Pt100(("sensor.dissipation_constant", "\"0.1 mW/K\"")), Options);
+        var f = Assert.Single(result.Findings, x => x.Id == "self-heating");
+        Assert.StartsWith("the sensor dissipates I²R of the excitation current and warms by P/δ", f.Cause);
+        Assert.DoesNotContain("divider", f.Cause);
+    }
+
+    [Fact]
     public void Choose_fixed_and_table_refuse_a_current_source_with_what_to_run_instead()
     {
         var design = CurrentDesigns.Pt100();
