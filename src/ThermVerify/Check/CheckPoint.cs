@@ -81,8 +81,14 @@ public sealed record EffectEstimates(
     /// </summary>
     public double LeadVolts { get; init; }
 
-    /// <summary>DC loading: leakage, the fixed resistor's drift, a current excitation's own error and its leads.</summary>
-    public double LoadingVolts => FixedDriftVolts + LeakageVolts + ExcitationVolts + LeadVolts;
+    /// <summary>The leaking clamp diode's reverse current through the resistance the pin sees (protection.clamp_leakage).</summary>
+    public double ClampVolts { get; init; }
+
+    /// <summary>The insulation resistance pulling the sensor's node towards its potential (protection.insulation_resistance).</summary>
+    public double InsulationVolts { get; init; }
+
+    /// <summary>DC loading: leakage, the fixed resistor's drift, a current excitation's own error and its leads, the protection parts.</summary>
+    public double LoadingVolts => FixedDriftVolts + LeakageVolts + ExcitationVolts + LeadVolts + ClampVolts + InsulationVolts;
 
     /// <summary>The buffer: offset with its drift, and the bias current through the divider.</summary>
     public double BufferVolts => BufferOffsetVolts + BiasCurrentVolts;

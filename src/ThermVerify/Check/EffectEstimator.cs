@@ -36,7 +36,12 @@ internal static class EffectEstimator
             ? SamplingFormulas.SwitchedCapacitorErrorVolts(prechargeVolts!.Value - point.IdealVolts, source, adc.SampleRateHertz, adc.SamplingCapacitanceFarads)
             : 0;
         EffectEstimates Make(double first, double steady) =>
-            new(source, drift, leakage, offset, bias, average, first, steady, selfHeatingVolts) { ExcitationVolts = excitation, LeadVolts = leads };
+            new(source, drift, leakage, offset, bias, average, first, steady, selfHeatingVolts)
+            {
+                ExcitationVolts = excitation, LeadVolts = leads,
+                ClampVolts = ProtectionEstimate.ClampVolts(design, point, staticPinVolts, source),
+                InsulationVolts = ProtectionEstimate.InsulationVolts(design, point),
+            };
         if (prechargeVolts is not { } pre) return Make(0, 0);
 
         var reservoir = design.Filter.ReservoirCapacitorFarads;

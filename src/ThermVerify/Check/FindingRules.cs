@@ -26,8 +26,9 @@ internal static class FindingRules
 
         Add("converter", "the converter's static errors (offset, gain, INL, reference) shift the code by more than ½ LSB",
             p => p.Simulated.ConverterVolts, p => p.Contributions.ConverterKelvin, p => ConverterCause(design, p, lsb), p => p.Simulated.ConverterVolts, simulated: false);
-        Add("dc-loading", design.CurrentSource is null ? "DC error at the pin: pin leakage, fixed-resistor drift"
-                : "DC error at the pin: pin leakage, the current source's drift and output resistance, the reference resistor's drift and loading",
+        Add("dc-loading", (design.CurrentSource is null ? "DC error at the pin: pin leakage, fixed-resistor drift"
+                : "DC error at the pin: pin leakage, the current source's drift and output resistance, the reference resistor's drift and loading")
+                + (design.Protection is { HasClamps: true } ? ", clamp-diode leakage" : "") + (design.Protection?.InsulationOhms is null ? "" : ", insulation leakage"),
             p => p.Simulated.DcLoadingVolts, p => p.Contributions.DcLoadingKelvin,
             p => LoadingCause(design, p),
             p => p.Estimates.LoadingVolts);
@@ -142,6 +143,8 @@ internal static class FindingRules
                       I($"at {(design.Check.BoardCelsius ?? p.Celsius):0.##} °C {Volts(p.Estimates.FixedDriftVolts)}"));
         if (design.CurrentSource is { } source)
             parts.Add(CurrentWords.Loading(design, source, p));
+        if (design.Protection is { } protection)
+            parts.AddRange(ProtectionWords.Loading(design, protection, p));
         return string.Join(", and ", parts) + CornerNote(p);
     }
 

@@ -19,6 +19,12 @@ internal sealed record Diode(string Name, string Anode, string Cathode, double S
     /// <summary>Temperature at which <see cref="SaturationCurrentAmperes"/> holds; null: no temperature scaling.</summary>
     public double? SaturationReferenceCelsius { get; init; }
 
+    /// <summary>
+    /// When given (with <see cref="SaturationReferenceCelsius"/>), Is doubles every this many kelvin instead of following
+    /// the SPICE law: how a datasheet states a protection diode's reverse leakage (common practice, no source).
+    /// </summary>
+    public double? LeakageDoublingKelvin { get; init; }
+
     /// <summary>Band gap EG in eV for the temperature law (silicon 1.11, SPICE's default).</summary>
     public double BandGapElectronVolts { get; init; } = 1.11;
 
@@ -33,6 +39,8 @@ internal sealed record Diode(string Name, string Anode, string Cathode, double S
     {
         if (SaturationReferenceCelsius is not { } reference)
             return SaturationCurrentAmperes;
+        if (LeakageDoublingKelvin is { } doubling)
+            return SaturationCurrentAmperes * Math.Pow(2, (temperatureCelsius - reference) / doubling);
         var t = Quantities.PhysicalConstants.ToKelvin(temperatureCelsius);
         var ratio = t / Quantities.PhysicalConstants.ToKelvin(reference);
         var vt = Quantities.PhysicalConstants.BoltzmannJoulesPerKelvin * t / Quantities.PhysicalConstants.ElementaryChargeCoulombs;
@@ -54,11 +62,29 @@ internal sealed record Diode(string Name, string Anode, string Cathode, double S
             throw new CircuitException($"{Describe}: saturation reference temperature {reference} °C is not a physical temperature.");
         ElementChecks.Positive(this, BandGapElectronVolts, "band gap");
         ElementChecks.Finite(this, SaturationExponent, "saturation exponent");
+        if (LeakageDoublingKelvin is { } doubling)
+        {
+            ElementChecks.Positive(this, doubling, "leakage doubling interval");
+            if (SaturationReferenceCelsius is null || SeriesResistanceOhms != 0)
+                throw new CircuitException($"{Describe}: a leakage doubling law needs a reference temperature and no series resistance.");
+        }
     }
 
-    /// <summary>xti = 0 and eg = 0 keep Is fixed with temperature, as in the built-in model.</summary>
+    /// <summary>
+    /// xti = 0 and eg = 0 keep Is fixed with temperature, as in the built-in model. A doubling law has no SPICE model
+    /// parameter, so that diode is written as a behavioural current source with the same Shockley equation and law,
+    /// Vt = (k/q)·T at ngspice's circuit temperature.
+    /// </summary>
     internal override void WriteSpice(SpiceLines deck)
     {
+        if (LeakageDoublingKelvin is { } doubling && SaturationReferenceCelsius is { } reference && SeriesResistanceOhms == 0)
+        {
+            var kOverQ = Quantities.PhysicalConstants.BoltzmannJoulesPerKelvin / Quantities.PhysicalConstants.ElementaryChargeCoulombs;
+            deck.Line($"{SpiceLines.InstanceName('B', Name)} {Anode} {Cathode} I={SpiceNumber.Format(SaturationCurrentAmperes)}" +
+                      $"*pow(2,(temper-{SpiceNumber.Format(reference)})/{SpiceNumber.Format(doubling)})" +
+                      $"*(exp(v({Anode},{Cathode})/({SpiceNumber.Format(EmissionCoefficient)}*{SpiceNumber.Format(kOverQ)}*(temper+{SpiceNumber.Format(Quantities.PhysicalConstants.ZeroCelsiusInKelvin)})))-1)");
+            return;
+        }
         var model = $"{Name}_model";
         deck.Line($"{SpiceLines.InstanceName('D', Name)} {Anode} {Cathode} {model}");
         deck.Definition(model, $".model {model} d is={SpiceNumber.Format(SaturationCurrentAmperes)} n={SpiceNumber.Format(EmissionCoefficient)} " +

@@ -11,7 +11,7 @@ namespace ThermVerify.Design;
 /// </summary>
 internal static class DesignLoader
 {
-    private static readonly string[] TopKeys = ["name", "description", "sensor", "divider", "current_source", "wiring", "buffer", "filter", "adc", "check", "tolerances"];
+    private static readonly string[] TopKeys = ["name", "description", "sensor", "divider", "current_source", "wiring", "buffer", "filter", "protection", "adc", "check", "tolerances"];
 
     public static FrontEndDesign Load(string path)
     {
@@ -58,6 +58,7 @@ internal static class DesignLoader
             Wiring = root.Section("wiring") is { } wiring ? WiringReader.Read(wiring) : null,
             Buffer = root.Section("buffer") is { } buffer ? CircuitReaders.ReadBuffer(buffer) : null,
             Filter = root.Section("filter") is { } filter ? CircuitReaders.ReadFilter(filter) : FilterSpec.None,
+            Protection = root.Section("protection") is { } protection ? ProtectionReader.Read(protection) : null,
             Adc = AdcReader.Read(root.RequiredSection("adc", "Add an [adc] section (bits, reference, sample_rate, acquisition_time, ...).")),
             Check = CheckReader.Read(root.RequiredSection("check", "Add a [check] section (range, budget)."), model.ValidRange),
             Tolerances = root.Section("tolerances") is { } tolerances ? ToleranceReader.Read(tolerances) : ToleranceSpec.Default,

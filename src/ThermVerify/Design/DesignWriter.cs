@@ -29,6 +29,8 @@ internal static class DesignWriter
         w.Section("filter");
         w.Value("series_resistor", design.Filter.SeriesResistorOhms, UnitKind.Ohm);
         w.Value("reservoir_capacitor", design.Filter.ReservoirCapacitorFarads, UnitKind.Farad);
+        if (design.Protection is { } protection)
+            WriteProtection(w, protection);
         WriteAdc(w, design.Adc);
         WriteCheck(w, design.Check);
         WriteTolerances(w, design.Tolerances);
@@ -119,6 +121,26 @@ internal static class DesignWriter
         w.Value("reference_resistor_tempco", c.ReferenceResistorTempcoPerKelvin, UnitKind.PpmPerKelvin, c.ReferenceResistorTempcoSigned);
         if (c.ReferenceInputOhms is { } input)
             w.Value("reference_input_resistance", input, UnitKind.Ohm);
+    }
+
+    private static void WriteProtection(Writer w, ProtectionSpec x)
+    {
+        w.Section("protection");
+        if (x.HasClamps)
+        {
+            w.Value("clamp_leakage", x.ClampLeakageAmperes, UnitKind.Ampere, x.ClampLeakageSigned);
+            w.Value("clamp_leakage_temperature", x.ClampLeakageCelsius, UnitKind.Celsius);
+            w.Value("clamp_leakage_doubling", x.ClampDoublingKelvin, UnitKind.Kelvin);
+            if (x.ClampRailVolts is { } rail)
+                w.Value("clamp_rail", rail, UnitKind.Volt);
+            if (x.ClampCelsius is { } t)
+                w.Value("clamp_temperature", t, UnitKind.Celsius);
+        }
+        if (x.InsulationOhms is { } insulation)
+        {
+            w.Value("insulation_resistance", insulation, UnitKind.Ohm);
+            w.Value("insulation_to", x.InsulationToVolts, UnitKind.Volt);
+        }
     }
 
     private static void WriteWiring(Writer w, WiringSpec x)

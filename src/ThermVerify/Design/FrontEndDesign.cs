@@ -18,6 +18,8 @@ public sealed record FrontEndDesign
     /// <summary>Null when the divider drives the filter and ADC directly.</summary>
     public BufferSpec? Buffer { get; init; }
     public required FilterSpec Filter { get; init; }
+    /// <summary>Clamp diodes at the pin and the insulation's leakage; null: none.</summary>
+    public ProtectionSpec? Protection { get; init; }
     public required AdcSpec Adc { get; init; }
     public required CheckSpec Check { get; init; }
     /// <summary>How tolerances are spread for the worst-case and Monte Carlo analyses.</summary>

@@ -43,10 +43,11 @@ internal sealed record DcLevels(
     public static bool UsesAverageSamplingCurrent(FrontEndDesign design, double? prechargeVolts) =>
         prechargeVolts is not null && design.Filter.ReservoirCapacitorFarads > 0;
 
-    /// <summary>The design with no DC loading: no pin leakage, a fixed resistor without tempco.</summary>
+    /// <summary>The design with no DC loading: no pin or clamp leakage, no insulation leakage, a fixed resistor without tempco.</summary>
     public static FrontEndDesign WithoutLoading(FrontEndDesign design) => design with
     {
         Adc = design.Adc with { PinLeakageAmperes = 0 },
+        Protection = null,
         Divider = design.Divider is { } d ? d with { FixedTempcoPerKelvin = 0 } : null,
     };
 

@@ -116,6 +116,11 @@ internal static class FrontEndCircuit
             elements.Add(new Capacitor("Cpin", pin, Circuit.Ground, design.Adc.PinCapacitanceFarads));
         if (design.Adc.PinLeakageAmperes != 0)
             elements.Add(Leakage(pin, design.Adc, board));
+        ProtectionCircuit.Add(elements, design, pin);
+        // With nothing else at the pin, the series resistor alone would leave it floating in the DC circuit: the
+        // converter's input is there, with its sampling switch open (the sampling circuit's off resistance).
+        if (pin == Pin && elements.Count(e => e.Nodes.Contains(Pin)) == 1)
+            elements.Add(new Resistor("Rinput", Pin, Circuit.Ground, SwitchOffOhms));
         return elements;
     }
 

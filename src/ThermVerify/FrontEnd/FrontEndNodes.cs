@@ -38,6 +38,11 @@ internal static class FrontEndNodes
     public const string Force = "frc";
     public const string SenseNegative = "sns";
 
+    /// <summary>The rail the upper clamp diode goes to.</summary>
+    public const string ClampRail = "clamp";
+    /// <summary>The potential the insulation leaks to, when it is not ground.</summary>
+    public const string InsulationPotential = "ins";
+
     public const string SensorElement = "Rsensor";
     public const string CurrentSourceElement = "Iexc";
     public const string ReferenceResistorElement = "Rref";

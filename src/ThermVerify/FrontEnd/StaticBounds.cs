@@ -6,7 +6,7 @@ namespace ThermVerify.FrontEnd;
 internal sealed record CircuitBound(string Key, double Magnitude, Func<FrontEndDesign, double, FrontEndDesign> Set);
 
 /// <summary>
-/// The design's static errors written without a sign, which the check takes as bounds (docs/methods.md): pin leakage,
+/// The design's static errors written without a sign, which the check takes as bounds (docs/methods.md): pin leakage, the clamp diodes' leakage,
 /// the fixed resistor's tempco, and the op-amp's offset, drift and bias current enter the circuit; the converter's
 /// offset and gain errors and the reference's tempco are converter properties, and INL is always a bound. Errors
 /// written with a sign are part of the design as it stands.
@@ -30,6 +30,9 @@ internal static class StaticBounds
             Add("current_source.reference_resistor_tempco", source.ReferenceResistorTempcoPerKelvin, source.ReferenceResistorTempcoSigned,
                 (x, v) => x with { CurrentSource = x.CurrentSource! with { ReferenceResistorTempcoPerKelvin = v } });
         }
+        if (d.Protection is { } protection)
+            Add("protection.clamp_leakage", protection.ClampLeakageAmperes, protection.ClampLeakageSigned,
+                (x, v) => x with { Protection = x.Protection! with { ClampLeakageAmperes = v } });
         if (d.Wiring is { Wires: 3 } wiring)
             Add("wiring.current_mismatch", wiring.CurrentMismatch, wiring.CurrentMismatchSigned, (x, v) => x with { Wiring = x.Wiring! with { CurrentMismatch = v } });
         if (d.Buffer is { Subcircuit: null } b)

@@ -66,9 +66,13 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
         var wiring = nominal.Wiring is { } w
             ? w with { CurrentMismatch = Bound(ToleranceKind.CurrentMismatch, w.CurrentMismatch), CurrentMismatchSigned = true }
             : null;
+        var protection = nominal.Protection is { } pr
+            ? pr with { ClampLeakageAmperes = Bound(ToleranceKind.ClampLeakage, pr.ClampLeakageAmperes), ClampLeakageSigned = true }
+            : null;
         var design = nominal with
         {
             Wiring = wiring,
+            Protection = protection,
             Sensor = new PerturbedSensorSpec(nominal.Sensor, sensor),
             Divider = divider,
             CurrentSource = source,

@@ -39,4 +39,6 @@ public enum ToleranceKind
     ReferenceResistorTempco,
     /// <summary>3 wires: the mismatch of the second current against the first, spread over ±|mismatch|.</summary>
     CurrentMismatch,
+    /// <summary>The clamp diodes' net reverse leakage, spread over ±|leakage| (one diode or the other leaking).</summary>
+    ClampLeakage,
 }

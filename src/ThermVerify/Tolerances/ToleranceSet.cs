@@ -81,6 +81,8 @@ internal sealed class ToleranceSet
             Add(ToleranceKind.BufferDrift, "buffer.offset_drift", buffer.OffsetDriftVoltsPerKelvin, "V/K", buffer.OffsetDriftSigned);
             Add(ToleranceKind.BufferBias, "buffer.bias_current", buffer.BiasCurrentAmperes, "A", buffer.BiasCurrentSigned);
         }
+        if (design.Protection is { HasClamps: true } protection)
+            Add(ToleranceKind.ClampLeakage, "protection.clamp_leakage", protection.ClampLeakageAmperes, "A", protection.ClampLeakageSigned);
         if (adc.PinLeakageAmperes != 0)
             Add(ToleranceKind.Leakage, "tolerances.leakage_spread", design.Tolerances.LeakageSpread, "");
         return new ToleranceSet(list);

@@ -28,6 +28,7 @@ public class ExampleVerdictTests
     [InlineData("cold-storage-logger-buffered.toml", true, null)]
     [InlineData("soil-probe-switched.toml", true, null)]
     [InlineData("attic-fan-leaky-pin.toml", false, "dc-loading")]
+    [InlineData("collector-pump-clamped.toml", false, "dc-loading")]
     [InlineData("cold-storage-logger.toml", false, "settling")]
     [InlineData("cold-storage-logger-reservoir.toml", false, "reservoir-recovery")]
     [InlineData("cold-storage-logger-bare-opamp.toml", false, "buffer-stability")]

@@ -15,6 +15,7 @@ internal static class Knobs
     {
         ["filter.series_resistor"] = "remove the filter's series resistor",
         ["adc.pin_leakage"] = "choose a converter with negligible pin leakage",
+        ["protection.clamp_leakage"] = "use clamp diodes with negligible reverse leakage (or none)",
         ["divider.fixed_tempco"] = "use a fixed resistor with a negligible tempco",
         ["current_source.current_tempco"] = "use a current source with a negligible tempco",
         ["current_source.reference_resistor_tempco"] = "use a reference resistor with a negligible tempco",
@@ -56,6 +57,15 @@ internal static class Knobs
 
     public static readonly Knob PinLeakage = Magnitude("adc.pin_leakage", "A", d => d.Adc.PinLeakageAmperes,
         (d, v) => d with { Adc = d.Adc with { PinLeakageAmperes = v } }, "choose a converter whose pin leakage (at pin_leakage_temperature) is at most");
+
+    public static readonly Knob ClampLeakage = Magnitude("protection.clamp_leakage", "A", d => d.Protection!.ClampLeakageAmperes,
+        (d, v) => d with { Protection = d.Protection! with { ClampLeakageAmperes = v } },
+        "choose clamp diodes whose reverse leakage (at clamp_leakage_temperature) is at most");
+
+    /// <summary>The insulation's search ends at 10 TΩ: a clean, dry board and cable do not do better (common practice).</summary>
+    public static readonly Knob Insulation = new("protection.insulation_resistance", "Ω", Better.Higher,
+        d => d.Protection!.InsulationOhms, (d, v) => d with { Protection = d.Protection! with { InsulationOhms = v } },
+        _ => 1e13, "keep the insulation from the sensor's wire (cable, connector and board, wet and hot) at no less than");
 
     public static readonly Knob FixedTempco = Magnitude("divider.fixed_tempco", "ppm/K", d => d.VoltageDivider.FixedTempcoPerKelvin,
         (d, v) => d with { Divider = d.VoltageDivider with { FixedTempcoPerKelvin = v } }, "use a fixed resistor with a tempco of at most");
@@ -185,9 +195,14 @@ internal static class Knobs
                     (ReferenceResistorTempco, design.CurrentSource?.ReferenceResistorTempcoPerKelvin is not (null or 0) ? Math.Abs(worst.Estimates.ExcitationVolts) : -1),
                     (CurrentTempco, design.CurrentSource is { ReferenceResistorOhms: null, CurrentTempcoPerKelvin: not 0 } ? Math.Abs(worst.Estimates.ExcitationVolts) : -1),
                     (CurrentMismatch, design.Wiring is { Wires: 3, CurrentMismatch: not 0 } ? Math.Abs(worst.Estimates.LeadVolts) : -1),
+                    (ClampLeakage, design.Protection is { HasClamps: true } ? Math.Abs(worst.Estimates.ClampVolts) : -1),
+                    (Insulation, design.Protection?.InsulationOhms is not null ? Math.Abs(worst.Estimates.InsulationVolts) : -1),
                 };
                 var knobs = Ordered(parts);
-                if (design.Adc.PinLeakageAmperes != 0) knobs.AddRange(buffered ? [SeriesResistor] : buffer);
+                var leaks = design.Adc.PinLeakageAmperes != 0 || design.Protection is { HasClamps: true };
+                // A leakage current at the pin drops across the series resistor: its largest value that keeps the budget.
+                if (leaks && design.Filter.SeriesResistorOhms > 0) knobs.Add(SeriesResistor);
+                if (leaks && !buffered) knobs.AddRange(buffer);
                 return knobs;
             }
             case "buffer-static" when buffered:

@@ -1,15 +1,19 @@
 using System.Globalization;
+using ThermVerify.Quantities;
 using ThermVerify.Tolerances;
 
 namespace ThermVerify.Reporting.Text;
 
-/// <summary>Tolerances in the words and units a designer writes them in: fractions in %, tempcos in ppm/K.</summary>
+/// <summary>Tolerances in the words and units a designer writes them in: fractions in %, tempcos in ppm/K, volts and amperes with their SI prefix.</summary>
 internal static class ToleranceText
 {
     public static string HalfWidth(ToleranceParameter p) => p.Unit switch
     {
         "" => FormattableString.Invariant($"{100 * p.HalfWidth:G3} %"),
         "1/K" => FormattableString.Invariant($"{1e6 * p.HalfWidth:G3} ppm/K"),
+        "V" => EngineeringFormat.Format(p.HalfWidth, UnitKind.Volt, 3),
+        "A" => EngineeringFormat.Format(p.HalfWidth, UnitKind.Ampere, 3),
+        "V/K" => EngineeringFormat.Format(p.HalfWidth, UnitKind.VoltPerKelvin, 3),
         _ => FormattableString.Invariant($"{p.HalfWidth:G3} {p.Unit}"),
     };
 
