@@ -10,7 +10,8 @@ internal static class ProtectionReader
         s.AllowOnly(["clamp_leakage", "clamp_leakage_temperature", "clamp_leakage_doubling", "clamp_rail", "clamp_temperature",
             "insulation_resistance", "insulation_to"]);
         var leakage = s.ValueOr("clamp_leakage", 0, Bound.Any, UnitKind.Ampere);
-        if (leakage == 0)
+        // Written as 0 (no clamps, or a remedy that removes them) the other clamp keys may stay; left out, they say nothing.
+        if (!s.Has("clamp_leakage"))
             foreach (var key in new[] { "clamp_leakage_temperature", "clamp_leakage_doubling", "clamp_rail", "clamp_temperature" })
                 if (s.Has(key))
                     throw s.ErrorAtKey(key, $"{key} without clamp diodes", "Give each diode's reverse leakage, e.g. clamp_leakage = \"5 nA\", or remove the key.");

@@ -125,6 +125,8 @@ public class RemedyRoundTripTests
         "current_source.current_tempco" => d.CurrentSource!.CurrentTempcoPerKelvin,
         "current_source.reference_resistor_tempco" => d.CurrentSource!.ReferenceResistorTempcoPerKelvin,
         "wiring.current_mismatch" => d.Wiring!.CurrentMismatch,
+        "protection.clamp_leakage" => d.Protection!.ClampLeakageAmperes,
+        "protection.insulation_resistance" => d.Protection!.InsulationOhms,
         "sensor.dissipation_constant" => d.Sensor.DissipationConstantWattsPerKelvin,
         "buffer.gain_bandwidth" => d.Buffer?.GainBandwidthHertz,
         "buffer.offset_voltage" => d.Buffer?.OffsetVolts,
