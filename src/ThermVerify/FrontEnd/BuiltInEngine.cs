@@ -27,7 +27,8 @@ public sealed class BuiltInEngine : ICheckEngine
     }
 
     ISampledTransient ICheckEngine.StartTransient(Circuit circuit, TransientOptions options) =>
-        ExactSwitchedTransient.TryStart(circuit, out var exact, out _)
+        ExactSwitchedTransient.TryStart(circuit, out var exact, out _,
+            options.AccuracyVolts is { } accuracy ? new ExactSwitchedOptions { LinearityToleranceVolts = accuracy } : null)
             ? new Exact(exact, () => new Stepped(new TransientSimulation(circuit, options)))
             : new Stepped(new TransientSimulation(circuit, options));
 
