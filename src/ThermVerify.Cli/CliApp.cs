@@ -42,11 +42,11 @@ public static class CliApp
             return ExitCodes.BadInput;
         }
 
-        // Ctrl+C and SIGTERM cancel the run's token; every analysis observes it and cleans up (no temporary file, no
-        // ngspice folder or worker left), which takes far less than this generous wait before the process is ended anyway.
+        // Ctrl+C and SIGTERM are the process's own (Interruption, linked into every command's token by WorkOptions):
+        // System.CommandLine's handling is off, since it let a second Ctrl+C kill the process during the clean-up.
         var configuration = new InvocationConfiguration
         {
-            Output = output, Error = error, EnableDefaultExceptionHandler = false, ProcessTerminationTimeout = TimeSpan.FromSeconds(60),
+            Output = output, Error = error, EnableDefaultExceptionHandler = false, ProcessTerminationTimeout = null,
         };
         try
         {

@@ -31,8 +31,10 @@ internal static class WatchCommand
             design, report, noRemedies, threads, engine, force,
         };
         threads.Validators.Add(r => { if (r.GetValueOrDefault<int>() < 1) r.AddError("--threads must be at least 1"); });
-        command.SetAction(async (parsed, cancel) =>
+        command.SetAction(async (parsed, invocation) =>
         {
+            using var interrupted = CancellationTokenSource.CreateLinkedTokenSource(invocation, Interruption.Token);
+            var cancel = interrupted.Token;
             var path = parsed.GetValue(design)!.FullName;
             if (parsed.GetValue(report) is { } reportFolder)
                 ReportDirectory.EnsureWritable(reportFolder.FullName, parsed.GetValue(force));

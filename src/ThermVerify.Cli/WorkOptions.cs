@@ -71,12 +71,14 @@ internal sealed class WorkOptions
         ProgressDisplay.For(parsed.InvocationConfiguration.Error, what, quiet, parsed.GetValue(progressLines));
 
     /// <summary>
-    /// Runs <paramref name="body"/> with the limits and one token that Ctrl+C and the time limit both cancel; a stop
+    /// Runs <paramref name="body"/> with the limits and one token that Ctrl+C (<see cref="Interruption"/>) and the time limit both cancel; a stop
     /// by the time limit becomes <see cref="TimeLimitException"/> (exit code 3), a stop by Ctrl+C stays a cancellation (130).
     /// </summary>
     public Task<int> Run(ParseResult parsed, CancellationToken interrupt, Func<CancellationToken, int> body)
     {
         var seconds = parsed.GetValue(timeout);
+        using var interrupted = CancellationTokenSource.CreateLinkedTokenSource(interrupt, Interruption.Token);
+        interrupt = interrupted.Token;
         using var limit = new CancellationTokenSource();
         if (seconds is { } s) limit.CancelAfter(TimeSpan.FromSeconds(s));
         using var either = CancellationTokenSource.CreateLinkedTokenSource(interrupt, limit.Token);

@@ -27,7 +27,8 @@ public sealed class BuiltInEngine : ICheckEngine
     }
 
     ISampledTransient ICheckEngine.StartTransient(Circuit circuit, TransientOptions options) =>
-        ExactSwitchedTransient.TryStart(circuit, out var exact, out _)
+        ExactSwitchedTransient.TryStart(circuit, out var exact, out _,
+            options.AccuracyVolts is { } accuracy ? new ExactSwitchedOptions { LinearityToleranceVolts = accuracy } : null)
             ? new Exact(exact, () => new Stepped(new TransientSimulation(circuit, options)))
             : new Stepped(new TransientSimulation(circuit, options));
 
@@ -69,8 +70,8 @@ public sealed class BuiltInEngine : ICheckEngine
     /// <summary>
     /// Exact propagation, with time stepping where an op-amp leaves its linear region: the time-stepping run (from
     /// t = 0, the same operating point) is carried past the instant the exact run failed at, and exact propagation
-    /// continues from its state there. A further failure on the same interval doubles the stretch stepped (from 1/16 of
-    /// the interval), so a slow recovery (an amplifier leaving its rail) costs a few attempts, and a run whose op-amp
+    /// continues from its state there. A further failure on the same interval doubles the stretch stepped (see
+    /// <see cref="ResumeAfter"/>), so a slow recovery (an amplifier leaving its rail) costs a few attempts, and a run whose op-amp
     /// leaves its region in every period is time stepping with a failed exact interval between steps. Reads rise, so
     /// the stepped run only ever catches up.
     /// </summary>
@@ -79,6 +80,7 @@ public sealed class BuiltInEngine : ICheckEngine
         private Func<double, string, double>? read = exact.Reader();
         private Stepped? stepped;
         private double resumeSeconds = double.NaN;
+        private double stretch, failedIntervalEnd = double.NaN;
 
         public double VoltageAt(double timeSeconds, string node)
         {
@@ -104,12 +106,19 @@ public sealed class BuiltInEngine : ICheckEngine
             }
         }
 
-        /// <summary>Where to try exact propagation again after it failed on the interval [From, To].</summary>
+        /// <summary>
+        /// Where to try exact propagation again after it failed on the interval [From, To]: a stretch as long as the
+        /// interval had run linearly before it failed (at least 1/256 of the interval), doubled on every further
+        /// failure within the same interval. An excursion is usually short against its interval (an added follower
+        /// switched on at its rail, charging a 100 nF reservoir, recovers in tens of microseconds of a 10 ms interval),
+        /// and a fixed 1/16 of the interval stepped 600 µs there.
+        /// </summary>
         private double ResumeAfter(LinearityViolation v)
         {
-            // Failed again at once after resuming: step the rest of the interval.
-            var resume = v.FromSeconds == resumeSeconds ? v.ToSeconds
-                : Math.Min(v.ToSeconds, Math.Max(stepped!.TimeSeconds, v.AtSeconds) + (v.ToSeconds - v.FromSeconds) / 16);
+            stretch = v.ToSeconds == failedIntervalEnd ? 2 * stretch
+                : Math.Max((v.ToSeconds - v.FromSeconds) / 256, v.AtSeconds - v.FromSeconds);
+            failedIntervalEnd = v.ToSeconds;
+            var resume = Math.Min(v.ToSeconds, Math.Max(stepped!.TimeSeconds, v.AtSeconds) + stretch);
             return resume;
         }
 

@@ -23,7 +23,15 @@ internal sealed class ClosedFormModel
         Design = design;
         Sensor = design.Sensor.Build();
         Adc = AdcTransfer.Of(design);
+        var (atLow, atHigh) = (Sensor.ResistanceOhms(Sensor.ValidRange.MinCelsius), Sensor.ResistanceOhms(Sensor.ValidRange.MaxCelsius));
+        (readableLowOhms, readableHighOhms) = (Math.Min(atLow, atHigh) * (1 - ReadableMargin), Math.Max(atLow, atHigh) * (1 + ReadableMargin));
     }
+
+    // Resistances the sensor model can read, widened by a margin far above its own edge slack: a code clearly outside
+    // reads NaN without asking the model, whose range exception (with its formatted message) cost about 20 µs a code,
+    // most of the time of a 16-bit firmware table, where most codes are out of range. Near the edges the model decides.
+    private const double ReadableMargin = 1e-9;
+    private readonly double readableLowOhms, readableHighOhms;
 
     public FrontEndDesign Design { get; }
     public ISensorModel Sensor { get; }
@@ -53,7 +61,7 @@ internal sealed class ClosedFormModel
     public double CelsiusAtVolts(double volts)
     {
         var ohms = SensorTransfer.SensorOhms(Design, volts / BufferGain);
-        if (double.IsNaN(ohms)) return double.NaN;
+        if (!(ohms >= readableLowOhms && ohms <= readableHighOhms)) return double.NaN;
         try
         {
             return Sensor.TemperatureCelsius(ohms);

@@ -108,8 +108,21 @@ internal static class SamplingRun
             MaxStepSeconds = period / 4,
             RelativeTolerance = RelativeToleranceFor(AdcTransfer.Of(design)),
             VoltageToleranceVolts = Math.Max(settleVolts / 1000, 1e-12),
+            AccuracyVolts = LinearityToleranceFor(design),
         });
     }
+
+    /// <summary>
+    /// How far a buffer's op-amp may depart from linear and still be propagated exactly, referred to its input:
+    /// 0.01 LSB at the pin, divided by the buffer's gain. A departure δ at the input of the slew stage (or at the
+    /// clamp's output) disturbs a single-pole loop's output by at most about δ (the loop feeds the error back at the
+    /// loop's own rate), and that disturbance then decays with the loop's time constant, far shorter than an
+    /// acquisition; so the sample moves by less than 0.01 LSB, the accuracy every check figure is held to. A fixed
+    /// 1 µV (a thousandth of an LSB at 12 bits) sent the buffered logger's follower, kicked 5 mV on every acquisition
+    /// by the other channel's precharge, to time stepping in every period.
+    /// </summary>
+    internal static double LinearityToleranceFor(FrontEndDesign design) =>
+        0.01 * AdcTransfer.Of(design).LsbVolts / Math.Max(1, Math.Abs(design.Buffer?.Gain ?? 1));
 
     /// <summary>
     /// The time-stepping engine's relative tolerance for the accuracy the check needs: a sample within 0.01 LSB, with

@@ -30,6 +30,9 @@ internal sealed class DcSweepResult
     /// <summary>The points that needed a convergence aid, with the aid (empty when plain Newton did throughout).</summary>
     public IReadOnlyList<SolverNote> Notes { get; init; } = [];
 
+    /// <summary>Linear solves the sweep took (Newton iterations over every point, the aids' included).</summary>
+    public long Solves => system.Solves;
+
     public int Count => SweepValues.Count;
 
     /// <summary>Voltage of <paramref name="node"/> at every sweep point.</summary>

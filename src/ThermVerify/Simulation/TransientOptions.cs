@@ -40,6 +40,13 @@ internal sealed record TransientOptions
     /// <summary>Fixed step without error control (still shortened to land on breakpoints); for convergence-order studies.</summary>
     public double? FixedStepSeconds { get; init; }
 
+    /// <summary>
+    /// The accuracy the caller needs of the voltages it reads, where an engine approximates a nonlinearity instead of
+    /// stepping through it (the built-in engine's exact propagation takes an op-amp as linear while its departure from
+    /// linear stays within this); null for the engine's own default. Time stepping ignores it.
+    /// </summary>
+    public double? AccuracyVolts { get; init; }
+
     /// <summary>Times that must be exact solution points (e.g. the end of each acquisition); not discontinuities.</summary>
     public IReadOnlyList<double> OutputTimesSeconds { get; init; } = [];
 
@@ -55,6 +62,7 @@ internal sealed record TransientOptions
         Check(MinStepSeconds > 0, "Transient minimum step must be positive.");
         Check(RelativeTolerance > 0 && VoltageToleranceVolts > 0 && CurrentToleranceAmperes > 0 && TruncationErrorFactor > 0,
             "Transient tolerances must be positive.");
+        Check(AccuracyVolts is null || (AccuracyVolts > 0 && double.IsFinite(AccuracyVolts.Value)), "The transient's accuracy must be positive and finite.");
         Check(FixedStepSeconds is null or > 0, "A fixed transient step must be positive.");
         Check(OutputTimesSeconds.All(double.IsFinite), "Transient output times must be finite.");
     }

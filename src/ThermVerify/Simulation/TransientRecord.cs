@@ -40,21 +40,42 @@ internal sealed class TransientRecord(int width)
         Count++;
     }
 
-    /// <summary>Starts new storage holding only the newest point; results already handed out keep the old arrays.</summary>
+    /// <summary>
+    /// Keeps only the newest point. The arrays are reused unless a result was made from them since they were last
+    /// cleared (a result keeps the arrays it was given): a run read conversion by conversion drops its points after
+    /// every conversion, and new arrays each time cost about 29 MB over 64 conversions and 10–18 % of the run in
+    /// collection (issue 17).
+    /// </summary>
     public void KeepLast()
     {
         if (Count <= 1)
             return;
         var last = Count - 1;
-        var (time, values, slopes) = (Times[last], Values.AsSpan(last * Width, Width).ToArray(), Slopes.AsSpan(last * Width, Width).ToArray());
-        Times = new double[256];
-        Values = new double[256 * Width];
-        Slopes = new double[256 * Width];
-        Formulas = new StepFormula[256];
-        Probes = new bool[256];
-        Count = 0;
-        Add(time, values, slopes, StepFormula.BackwardEuler);
+        if (handedOut)
+        {
+            var (time, values, slopes) = (Times[last], Values.AsSpan(last * Width, Width).ToArray(), Slopes.AsSpan(last * Width, Width).ToArray());
+            Times = new double[256];
+            Values = new double[256 * Width];
+            Slopes = new double[256 * Width];
+            Formulas = new StepFormula[256];
+            Probes = new bool[256];
+            handedOut = false;
+            Count = 0;
+            Add(time, values, slopes, StepFormula.BackwardEuler);
+            return;
+        }
+        Times[0] = Times[last];
+        Array.Copy(Values, last * Width, Values, 0, Width);
+        Array.Copy(Slopes, last * Width, Slopes, 0, Width);
+        Formulas[0] = StepFormula.BackwardEuler;
+        Probes[0] = false;
+        Count = 1;
     }
+
+    private bool handedOut;
+
+    /// <summary>A result now holds the arrays: they must not be overwritten.</summary>
+    public void HandOut() => handedOut = true;
 
     private static T[] Grow<T>(T[] a)
     {

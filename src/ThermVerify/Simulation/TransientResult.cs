@@ -27,6 +27,7 @@ internal sealed class TransientResult
         int acceptedSteps, int rejectedSteps)
     {
         (times, values, slopes, formulas, probes, width) = (record.Times, record.Values, record.Slopes, record.Formulas, record.Probes, record.Width);
+        record.HandOut();
         layout = system.Layout;
         this.system = system;
         Count = record.Count;

@@ -90,7 +90,7 @@ internal static class FixedResistorSearch
         Parallel.For(0, candidates.Count, parallel, i =>
         {
             results[i] = Evaluate(design with { Divider = divider with { FixedResistorOhms = candidates[i] } },
-                options.Objective, slopeAt) with { IsPresent = SameValue(candidates[i], present) };
+                options.Objective, slopeAt, options.Cancel) with { IsPresent = SameValue(candidates[i], present) };
             options.Progress?.Report(new RunProgress(Interlocked.Increment(ref done), candidates.Count));
         });
         return options.Objective switch
@@ -114,7 +114,8 @@ internal static class FixedResistorSearch
         return list;
     }
 
-    private static FixedResistorCandidate Evaluate(FrontEndDesign candidate, FixedResistorObjective objective, double slopeAt)
+    private static FixedResistorCandidate Evaluate(FrontEndDesign candidate, FixedResistorObjective objective, double slopeAt,
+        CancellationToken cancel)
     {
         var model = new ClosedFormModel(candidate);
         var slope = Math.Abs(model.At(slopeAt).VoltsPerKelvin);
@@ -123,7 +124,7 @@ internal static class FixedResistorSearch
 
         var check = FrontEndCheck.Run(candidate, new CheckOptions
         {
-            MaximumSamplingPoints = SamplingPointsPerCandidate, Threads = 1, ComputeRemedies = false,
+            MaximumSamplingPoints = SamplingPointsPerCandidate, Threads = 1, ComputeRemedies = false, Cancel = cancel,
         });
         var points = check.Points;
         // The check's error includes the sensor's self-heating (one error model); the rise is shown beside it.

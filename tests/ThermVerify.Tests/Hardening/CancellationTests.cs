@@ -76,6 +76,27 @@ public sealed class CancellationTests : IDisposable
         AssertNothingWritten();
     }
 
+    /// <summary>
+    /// Ctrl+C pressed again and again while the run stops: the process still ends by itself with 130 and writes nothing.
+    /// Before the process handled the signals itself, a second one arriving after the command had returned (in the
+    /// clean-up) killed the process by SIGINT.
+    /// </summary>
+    [Fact]
+    public async Task Ctrl_c_pressed_again_while_stopping_never_kills_the_process()
+    {
+        if (!OperatingSystem.IsLinux()) return;
+        using var process = Start("montecarlo", Example("oven-pt1000.toml"), "-n", "1000000", "--threads", "1", "--progress",
+            "--json", Path.Combine(folder.FullName, "mc.json"));
+        _ = process.StandardOutput.ReadToEndAsync();
+        var before = await WaitFor(process, line => line.StartsWith("units:", StringComparison.Ordinal));
+        for (var k = 0; k < 20 && !process.HasExited; k++)
+            Signal(process, "INT");
+        var (code, error) = await Finish(process, before);
+        Assert.Equal(ExitCodes.Cancelled, code);
+        Assert.Contains("cancelled; no output file was written", error);
+        AssertNothingWritten();
+    }
+
     [Fact]
     public async Task A_time_limit_stops_the_run_with_exit_3_and_writes_nothing()
     {

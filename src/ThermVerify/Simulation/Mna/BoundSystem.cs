@@ -143,6 +143,7 @@ internal sealed class BoundSystem
     /// <summary>Assembles, factorises if the matrix changed, and solves into the next iterate (not yet adopted).</summary>
     public double[] SolveNext()
     {
+        Solves++;
         Assemble();
         var n2 = Size * Size;
         var m = Context.Matrix;
@@ -159,6 +160,9 @@ internal sealed class BoundSystem
         next[Size] = 0;
         return next;
     }
+
+    /// <summary>Linear solves so far (Newton iterations, aids included): what a sweep's start and aids cost.</summary>
+    public long Solves { get; private set; }
 
     /// <summary>Makes the last solved iterate the present one.</summary>
     public void AdoptNext() => (Context.Solution, next) = (next, Context.Solution);
