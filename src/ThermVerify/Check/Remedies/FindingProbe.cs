@@ -21,6 +21,8 @@ internal sealed class FindingProbe(string findingId, double celsius, PrechargeCa
     {
         if (FindingId == "buffer-noise")
             return Buffer.BufferNoise.Run(design, [Celsius], options.Engine).Worst.RmsVolts;
+        if (FindingId == Noise.NoiseFindingRules.NoiseId)
+            return Noise.ReadingNoiseAnalysis.At(design, new ClosedFormModel(design), Celsius, options.Engine).CoveredVolts;
         var sampling = FindingId is "settling" or "converter" or FindingRules.OverBudgetId;
         IReadOnlyList<PrechargeCase>? cases = precharge is null ? null : [precharge];
         SampleKinds? kinds = !sampling ? null : first switch { true => SampleKinds.FirstOnly, false => SampleKinds.SteadyOnly, _ => SampleKinds.Both };
@@ -28,7 +30,7 @@ internal sealed class FindingProbe(string findingId, double celsius, PrechargeCa
         var p = e.Points[0];
         return FindingId switch
         {
-            FindingRules.OverBudgetId => double.IsFinite(p.ErrorKelvin) ? Math.Abs(p.ErrorKelvin) : double.PositiveInfinity,
+            FindingRules.OverBudgetId => double.IsFinite(p.ErrorKelvin) ? Math.Abs(p.ErrorKelvin) + p.NoiseKelvin + p.RampLagKelvin : double.PositiveInfinity,
             "settling" => first switch
             {
                 true => Math.Abs(e.Offsets.FirstVolts[0][0]),
@@ -61,5 +63,5 @@ internal sealed class FindingProbe(string findingId, double celsius, PrechargeCa
     /// <summary>Whether a finding has a probe at all (the buffer's loop, headroom and recovery are searched by their own analyses).</summary>
     public static bool Supports(string findingId) =>
         findingId is FindingRules.OverBudgetId or "settling" or "reservoir-recovery" or "dc-loading" or "buffer-static" or "self-heating" or "converter"
-            or "buffer-noise";
+            or "buffer-noise" or Noise.NoiseFindingRules.NoiseId;
 }

@@ -1,0 +1,150 @@
+using System.Globalization;
+using ThermVerify.Check.Buffer;
+using ThermVerify.Design;
+using ThermVerify.FrontEnd;
+using ThermVerify.Quantities;
+using ThermVerify.Simulation;
+
+namespace ThermVerify.Check.Noise;
+
+/// <summary>
+/// The noise of a reading, for every design. The engine's noise analysis (adjoint method) at the sampling capacitor with
+/// the switch closed gives each generator's density: every resistor's Johnson–Nyquist noise 4kTR at its own temperature,
+/// the op-amp's voltage and current noise; integrated from 0.1 Hz to 1000× the network's fastest pole (the switch's
+/// R·C_sh, the op-amp's gain-bandwidth), so the band is what the sampling network passes, not a chosen one. For a
+/// passive network at one temperature the total is kT/C_sh whatever the resistances (equipartition), which the tests
+/// check. The switch's share is new at every acquisition; the rest passes the filter and correlates between conversions
+/// T_s apart as ρ = e^(−T_s/τ), τ = R_source·(C_res + C_pin) (single pole). The converter's own noise (declared, or
+/// 0.5 LSB assumed) is independent per conversion. The mean of N consecutive conversions then has the variance
+/// σ_fast²/N + σ_conv²/N + σ_slow²·[1 + 2Σ(1 − k/N)ρ^k]/N. Averaging and the filter lag a ramp: the mean of N is
+/// (N − 1)·T_s/2 old, the filter adds τ (a first-order lag follows a ramp τ behind).
+/// </summary>
+internal static class ReadingNoiseAnalysis
+{
+    public const double FromHertz = 0.1;
+    private const int PointsPerDecade = 20;
+
+    /// <summary>The stated frequencies of the density at the pin: three decades and the sample rate's Nyquist frequency.</summary>
+    public static double[] DensityHertz(FrontEndDesign design) =>
+        [.. new[] { 10.0, 1e3, 1e5, design.Adc.SampleRateHertz / 2 }.Distinct().Order()];
+
+    public static double ToHertz(FrontEndDesign design)
+    {
+        var adc = design.Adc;
+        var fastest = Math.Max(design.Buffer?.GainBandwidthHertz ?? 0,
+            1 / (2 * Math.PI * Math.Max(adc.SwitchResistanceOhms, 1) * adc.SamplingCapacitanceFarads));
+        return 1000 * fastest;
+    }
+
+    /// <summary>The converter's own rms noise per conversion in volts: declared (LSB or V) or the assumed default.</summary>
+    public static double ConverterVolts(FrontEndDesign design, double lsbVolts) =>
+        design.Adc.NoiseVolts ?? (design.Adc.NoiseLsb ?? DesignDefaults.ConverterNoiseLsb) * lsbVolts;
+
+    /// <summary>The correlation time of the noise the filter carries between conversions: R_source·(C_res + C_pin).</summary>
+    public static double CorrelationSeconds(FrontEndDesign design, ClosedFormPoint cf) =>
+        EffectEstimator.SourceOhms(design, cf) * (design.Filter.ReservoirCapacitorFarads + design.Adc.PinCapacitanceFarads);
+
+    /// <summary>The reading's noise at one temperature; the density at the pin only when asked (the report's rows).</summary>
+    public static ReadingNoise At(FrontEndDesign design, ClosedFormModel model, double celsius, ICheckEngine engine, bool density = false)
+    {
+        var cf = model.At(celsius);
+        var lsb = model.Adc.LsbVolts;
+        var circuit = SamplingNoiseCircuit.Acquiring(design, celsius);
+        var own = SamplingNoiseCircuit.OwnTemperatures(design, circuit);
+        var hold = FrontEndNodes.Hold;
+        var sweep = FrequencySweep.Logarithmic(FromHertz, ToHertz(design), PointsPerDecade);
+        var switchKelvin = PhysicalConstants.ToKelvin(design.Check.BoardCelsius ?? celsius);
+        var ktc = Math.Sqrt(PhysicalConstants.BoltzmannJoulesPerKelvin * switchKelvin / design.Adc.SamplingCapacitanceFarads);
+        double total, fast;
+        List<NoiseShare> shares;
+        IReadOnlyList<NoiseDensity> pin = [];
+        if (design.Buffer?.Subcircuit is null)
+        {
+            var noise = NoiseAnalysis.Run(circuit, hold, sweep, elementCelsius: own);
+            shares = [.. noise.Generators.Distinct()
+                .Select(g => new NoiseShare(g.Element, g.Label, noise.GeneratorRmsVolts(g.Element, g.Label)))
+                .Where(s => s.RmsVolts > 0)];
+            total = noise.RmsVolts();
+            fast = Math.Sqrt(shares.Where(s => s.Source == SamplingNoiseCircuit.SwitchResistor).Sum(s => s.RmsVolts * s.RmsVolts));
+            if (density)
+            {
+                var at = DensityHertz(design);
+                var d = NoiseAnalysis.Run(circuit, FrontEndCircuit.PinNode(design), FrequencySweep.At(at), elementCelsius: own).OutputDensity;
+                pin = [.. at.Select((f, k) => new NoiseDensity(f, d[k]))];
+            }
+        }
+        else
+        {
+            // The design's own op-amp subcircuit: the engine gives the total at the node; the switch's share is its kT/C.
+            total = SubcircuitBuffer.NoiseRmsVolts(circuit, hold, sweep, engine);
+            fast = Math.Min(ktc, total);
+            shares = [new NoiseShare(BufferCircuits.OpAmpName, "total (the engine gives no split by generator)", total)];
+        }
+        var converter = ConverterVolts(design, lsb);
+        shares.Add(new NoiseShare("converter", design.Adc.NoiseDeclared ? "declared" : "assumed", converter));
+        shares = [.. shares.OrderByDescending(s => s.RmsVolts)];
+        var slow = Math.Sqrt(Math.Max(0, total * total - fast * fast));
+        var tau = CorrelationSeconds(design, cf);
+        var rho = tau > 0 ? Math.Exp(-1 / (design.Adc.SampleRateHertz * tau)) : 0;
+        var n = design.Noise.ReadingsAveraged;
+        var averaged = Math.Sqrt((fast * fast + converter * converter) / n + slow * slow * CorrelatedFactor(n, rho));
+        var lag = LagSeconds(design, tau);
+        var rampLag = design.Noise.RampKelvinPerSecond is { } rate ? rate * lag : 0;
+        return new ReadingNoise(celsius, total, fast, slow, ktc, converter, Math.Sqrt(total * total + converter * converter), averaged, rho,
+            cf.VoltsPerKelvin, lsb, design.Noise.Coverage, rampLag, shares, pin);
+    }
+
+    /// <summary>How far behind a ramp the reading is: the mean of N conversions is (N − 1)·T_s/2 old; the filter adds τ.</summary>
+    public static double LagSeconds(FrontEndDesign design, double tauSeconds) =>
+        (design.Noise.ReadingsAveraged - 1) / (2 * design.Adc.SampleRateHertz) + tauSeconds;
+
+    /// <summary>The summary the reports show, over the given temperatures (the density at the pin at each).</summary>
+    public static NoiseSummary Summary(FrontEndDesign design, IReadOnlyList<double> temperatures, ICheckEngine engine)
+    {
+        var model = new ClosedFormModel(design);
+        var points = temperatures.Select(t => At(design, model, t, engine, density: true)).ToList();
+        var worst = points.MaxBy(p => p.CoveredKelvin)!;
+        var tau = CorrelationSeconds(design, model.At(worst.Celsius));
+        var n = design.Noise.ReadingsAveraged;
+        // White density at the bottom of the band, against the total: the band of a brick-wall filter that passes the same noise.
+        var bandwidth = EquivalentBandwidth(design, worst.Celsius, engine);
+        var converter = design.Adc.NoiseDeclared
+            ? (design.Adc.NoiseLsb is { } l ? I($"{l:0.###} LSB rms (declared)") : EngineeringFormat.Format(design.Adc.NoiseVolts!.Value, UnitKind.Volt, 3) + " rms (declared)")
+            : I($"{DesignDefaults.ConverterNoiseLsb:0.###} LSB rms assumed (the design declares no adc.noise; an effective resolution one bit short of {design.Adc.Bits} bits)");
+        var method = I($"noise analysis (adjoint) at the sampling capacitor with the switch closed, each resistor at its own temperature, ") +
+                     I($"{Hz(FromHertz)} to {Hz(ToHertz(design))}; the converter's noise {converter}; ") +
+                     (n > 1 ? I($"the mean of {n} conversions: kT/C and the converter's noise fall as 1/√N, the filtered part correlates as e^(−T_s/τ), τ = {Sec(tau)}; ") : "one conversion per reading; ") +
+                     I($"counted in the budget as ±{design.Noise.Coverage:0.##}σ");
+        return new NoiseSummary(points, FromHertz, ToHertz(design), bandwidth, converter, !design.Adc.NoiseDeclared, n, n / design.Adc.SampleRateHertz,
+            tau, 1 / CorrelatedFactor(n, worst.Correlation), design.Noise.RampKelvinPerSecond, LagSeconds(design, tau), method);
+    }
+
+    /// <summary>Variance of the mean of N samples of a process with correlation ρ^k at lag k, over the variance of one (AR(1), from memory).</summary>
+    public static double CorrelatedFactor(int n, double rho)
+    {
+        var sum = 1.0;
+        var power = 1.0;
+        for (var k = 1; k < n; k++)
+        {
+            power *= rho;
+            if (power < 1e-18) break;
+            sum += 2 * (1 - (double)k / n) * power;
+        }
+        return sum / n;
+    }
+
+    /// <summary>σ²/S(f_low): the bandwidth of an ideal filter passing the front end's density at the bottom of the band, giving the same noise.</summary>
+    private static double EquivalentBandwidth(FrontEndDesign design, double celsius, ICheckEngine engine)
+    {
+        if (design.Buffer?.Subcircuit is not null) return double.NaN;
+        var circuit = SamplingNoiseCircuit.Acquiring(design, celsius);
+        var noise = NoiseAnalysis.Run(circuit, FrontEndNodes.Hold, FrequencySweep.Logarithmic(FromHertz, ToHertz(design), PointsPerDecade),
+            elementCelsius: SamplingNoiseCircuit.OwnTemperatures(design, circuit));
+        var total = noise.RmsVolts();
+        return total * total / noise.OutputPsd[0];
+    }
+
+    private static string Hz(double f) => EngineeringFormat.Format(f, UnitKind.Hertz, 3);
+    private static string Sec(double s) => EngineeringFormat.Format(s, UnitKind.Second, 3);
+    private static string I(FormattableString s) => s.ToString(CultureInfo.InvariantCulture);
+}
