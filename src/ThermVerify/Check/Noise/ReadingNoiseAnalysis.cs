@@ -119,6 +119,10 @@ internal static class ReadingNoiseAnalysis
             tau, 1 / CorrelatedFactor(n, worst.Correlation), design.Noise.RampKelvinPerSecond, LagSeconds(design, tau), method);
     }
 
+    /// <summary>The temperatures the report's noise table shows: five across the range.</summary>
+    public static double[] ReportTemperatures(Sensors.TemperatureRange range) =>
+        [.. Enumerable.Range(0, 5).Select(i => range.MinCelsius + i * (range.MaxCelsius - range.MinCelsius) / 4).Distinct()];
+
     /// <summary>Variance of the mean of N samples of a process with correlation ρ^k at lag k, over the variance of one (AR(1), from memory).</summary>
     public static double CorrelatedFactor(int n, double rho)
     {

@@ -46,6 +46,7 @@ public static class CheckSummaryText
         text.AppendLine();
 
         text.Append(BufferSectionRender.Text(result.Buffer));
+        text.Append(BufferSectionRender.Text(NoiseSections.Build(result.Noise)));
         if (result.Findings.Count == 0) text.AppendLine("Findings: none; every effect is within ½ LSB.");
         else text.AppendLine("Findings:");
         foreach (var f in result.Findings) AppendFinding(text, f);
