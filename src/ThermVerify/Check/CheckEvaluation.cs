@@ -75,7 +75,7 @@ internal sealed class CheckEvaluation
             _ => SamplingOffsets.Run(sampled, cases, temperatures, indices, dc.Base, settleVolts, options.Threads, options.Cancel, options.Engine,
                 Counter(options.Progress, cases.Count * indices.Length)),
         };
-        var noise = temperatures.Select(t => ReadingNoiseAnalysis.At(design, model, t, options.Engine)).ToList();
+        var noise = ReadingNoiseAnalysis.Over(design, model, temperatures, options.MaximumSamplingPoints, options.Engine);
         return new CheckEvaluation(design, model, reading, temperatures, cases, dc, offsets, Converter.Of(design), settleVolts, kinds ?? SampleKinds.Both, noise);
     }
 

@@ -119,6 +119,7 @@ internal static class FindingRules
         "buffer-static" => p.Simulated.BufferVolts,
         "self-heating" => p.Simulated.SelfHeatingVolts,
         Noise.NoiseFindingRules.NoiseId => p.Noise?.CoveredVolts ?? 0,
+        Noise.NoiseFindingRules.RampLagId => p.Noise?.RampLagVolts ?? 0,
         _ => null,
     };
 

@@ -35,10 +35,10 @@ internal static class NoiseFindingRules
                 n.CoveredVolts, n.CoveredVolts, []);
         }
         if (design.Noise.RampKelvinPerSecond is not { } rate) yield break;
-        var lagging = points.Where(p => p.Noise is { } n && p.RampLagKelvin * Math.Abs(n.VoltsPerKelvin) > half).ToList();
+        var lagging = points.Where(p => p.Noise is { } n && n.RampLagVolts > half).ToList();
         if (lagging.Count == 0) yield break;
         var worst = lagging.MaxBy(p => p.RampLagKelvin / p.BudgetKelvin)!;
-        var volts = worst.RampLagKelvin * Math.Abs(worst.Noise!.VoltsPerKelvin);
+        var volts = worst.Noise!.RampLagVolts;
         var lag = worst.RampLagKelvin / rate;
         yield return new Finding(RampLagId, points.Any(p => p.RampLagKelvin > p.BudgetKelvin) ? Severity.Fail : Severity.Warn,
             I($"on a ramp of {rate:0.###} K/s the reading lags by more than ½ LSB"),

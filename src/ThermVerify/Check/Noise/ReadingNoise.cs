@@ -42,6 +42,9 @@ public sealed record ReadingNoise(
     /// <summary>What the budget counts: ±k·σ of the reading, in K.</summary>
     public double CoveredKelvin => Coverage * AveragedRmsKelvin;
 
+    /// <summary>The lag on the declared ramp as a voltage at the pin (the closed form's slope times the lag in K).</summary>
+    public double RampLagVolts => RampLagKelvin * Math.Abs(VoltsPerKelvin);
+
     /// <summary>One LSB in K at this temperature.</summary>
     public double LsbKelvin => LsbVolts / Math.Abs(VoltsPerKelvin);
 

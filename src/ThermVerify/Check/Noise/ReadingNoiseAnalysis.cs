@@ -45,53 +45,81 @@ internal static class ReadingNoiseAnalysis
         EffectEstimator.SourceOhms(design, cf) * (design.Filter.ReservoirCapacitorFarads + design.Adc.PinCapacitanceFarads);
 
     /// <summary>The reading's noise at one temperature; the density at the pin only when asked (the report's rows).</summary>
-    public static ReadingNoise At(FrontEndDesign design, ClosedFormModel model, double celsius, ICheckEngine engine, bool density = false)
+    public static ReadingNoise At(FrontEndDesign design, ClosedFormModel model, double celsius, ICheckEngine engine, bool density = false) =>
+        Reading(design, model, celsius, Sample(design, celsius, engine, density));
+
+    /// <summary>
+    /// The reading's noise at every temperature of a check: the front end's noise analysed on the sampling grid (every
+    /// point when there are few, else evenly spread with both ends, as the sampling transients), its variances
+    /// interpolated linearly in temperature between grid points (they follow the resistances smoothly); the converter's
+    /// noise, the correlation and the slope are each point's own.
+    /// </summary>
+    public static IReadOnlyList<ReadingNoise> Over(FrontEndDesign design, ClosedFormModel model, IReadOnlyList<double> temperatures, int maximumPoints, ICheckEngine engine)
     {
-        var cf = model.At(celsius);
-        var lsb = model.Adc.LsbVolts;
+        var grid = FrontEnd.SettlingGrid.Indices(temperatures.Count, maximumPoints);
+        var sampled = grid.Select(i => Sample(design, temperatures[i], engine, density: false)).ToArray();
+        var fast = FrontEnd.SettlingGrid.Interpolate(temperatures, grid, g => sampled[g].FastVariance);
+        var slow = FrontEnd.SettlingGrid.Interpolate(temperatures, grid, g => sampled[g].SlowVariance);
+        return [.. temperatures.Select((t, i) =>
+        {
+            var nearest = Enumerable.Range(0, grid.Length).MinBy(g => Math.Abs(grid[g] - i));
+            return Reading(design, model, t, sampled[nearest] with { FastVariance = fast[i], SlowVariance = slow[i] });
+        })];
+    }
+
+    /// <summary>What a conversion samples of the front end at one temperature: the switch's share (new every time), the rest, by generator.</summary>
+    private sealed record SampledNoise(double FastVariance, double SlowVariance, IReadOnlyList<NoiseShare> Shares, IReadOnlyList<NoiseDensity> PinDensity);
+
+    /// <summary>√(kT/C_sh) with the switch at the board temperature (the swept one without it), the closed form printed beside the analysis.</summary>
+    private static double KtcVolts(FrontEndDesign design, double celsius) =>
+        Math.Sqrt(PhysicalConstants.BoltzmannJoulesPerKelvin * PhysicalConstants.ToKelvin(design.Check.BoardCelsius ?? celsius) / design.Adc.SamplingCapacitanceFarads);
+
+    private static SampledNoise Sample(FrontEndDesign design, double celsius, ICheckEngine engine, bool density)
+    {
         var circuit = SamplingNoiseCircuit.Acquiring(design, celsius);
         var own = SamplingNoiseCircuit.OwnTemperatures(design, circuit);
         var hold = FrontEndNodes.Hold;
         var sweep = FrequencySweep.Logarithmic(FromHertz, ToHertz(design), PointsPerDecade);
-        var switchKelvin = PhysicalConstants.ToKelvin(design.Check.BoardCelsius ?? celsius);
-        var ktc = Math.Sqrt(PhysicalConstants.BoltzmannJoulesPerKelvin * switchKelvin / design.Adc.SamplingCapacitanceFarads);
-        double total, fast;
-        List<NoiseShare> shares;
-        IReadOnlyList<NoiseDensity> pin = [];
-        if (design.Buffer?.Subcircuit is null)
-        {
-            var noise = NoiseAnalysis.Run(circuit, hold, sweep, elementCelsius: own);
-            shares = [.. noise.Generators.Distinct()
-                .Select(g => new NoiseShare(g.Element, g.Label, noise.GeneratorRmsVolts(g.Element, g.Label)))
-                .Where(s => s.RmsVolts > 0)];
-            total = noise.RmsVolts();
-            fast = Math.Sqrt(shares.Where(s => s.Source == SamplingNoiseCircuit.SwitchResistor).Sum(s => s.RmsVolts * s.RmsVolts));
-            if (density)
-            {
-                var at = DensityHertz(design);
-                var d = NoiseAnalysis.Run(circuit, FrontEndCircuit.PinNode(design), FrequencySweep.At(at), elementCelsius: own).OutputDensity;
-                pin = [.. at.Select((f, k) => new NoiseDensity(f, d[k]))];
-            }
-        }
-        else
+        if (design.Buffer?.Subcircuit is not null)
         {
             // The design's own op-amp subcircuit: the engine gives the total at the node; the switch's share is its kT/C.
-            total = SubcircuitBuffer.NoiseRmsVolts(circuit, hold, sweep, engine);
-            fast = Math.Min(ktc, total);
-            shares = [new NoiseShare(BufferCircuits.OpAmpName, "total (the engine gives no split by generator)", total)];
+            var total = SubcircuitBuffer.NoiseRmsVolts(circuit, hold, sweep, engine);
+            var ktc = KtcVolts(design, celsius);
+            var fast = Math.Min(ktc * ktc, total * total);
+            return new SampledNoise(fast, total * total - fast,
+                [new NoiseShare(BufferCircuits.OpAmpName, "total (the engine gives no split by generator)", total)], []);
         }
+        var noise = NoiseAnalysis.Run(circuit, hold, sweep, elementCelsius: own);
+        List<NoiseShare> shares = [.. noise.Generators.Distinct()
+            .Select(g => new NoiseShare(g.Element, g.Label, noise.GeneratorRmsVolts(g.Element, g.Label)))
+            .Where(x => x.RmsVolts > 0)];
+        var all = noise.RmsVolts();
+        var switchShare = shares.Where(x => x.Source == SamplingNoiseCircuit.SwitchResistor).Sum(x => x.RmsVolts * x.RmsVolts);
+        IReadOnlyList<NoiseDensity> pin = [];
+        if (density)
+        {
+            var at = DensityHertz(design);
+            var d = NoiseAnalysis.Run(circuit, FrontEndCircuit.PinNode(design), FrequencySweep.At(at), elementCelsius: own).OutputDensity;
+            pin = [.. at.Select((f, k) => new NoiseDensity(f, d[k]))];
+        }
+        return new SampledNoise(switchShare, Math.Max(0, all * all - switchShare), shares, pin);
+    }
+
+    private static ReadingNoise Reading(FrontEndDesign design, ClosedFormModel model, double celsius, SampledNoise s)
+    {
+        var cf = model.At(celsius);
+        var lsb = model.Adc.LsbVolts;
         var converter = ConverterVolts(design, lsb);
-        shares.Add(new NoiseShare("converter", design.Adc.NoiseDeclared ? "declared" : "assumed", converter));
-        shares = [.. shares.OrderByDescending(s => s.RmsVolts)];
-        var slow = Math.Sqrt(Math.Max(0, total * total - fast * fast));
+        List<NoiseShare> shares = [.. s.Shares, new NoiseShare("converter", design.Adc.NoiseDeclared ? "declared" : "assumed", converter)];
         var tau = CorrelationSeconds(design, cf);
         var rho = tau > 0 ? Math.Exp(-1 / (design.Adc.SampleRateHertz * tau)) : 0;
         var n = design.Noise.ReadingsAveraged;
-        var averaged = Math.Sqrt((fast * fast + converter * converter) / n + slow * slow * CorrelatedFactor(n, rho));
-        var lag = LagSeconds(design, tau);
-        var rampLag = design.Noise.RampKelvinPerSecond is { } rate ? rate * lag : 0;
-        return new ReadingNoise(celsius, total, fast, slow, ktc, converter, Math.Sqrt(total * total + converter * converter), averaged, rho,
-            cf.VoltsPerKelvin, lsb, design.Noise.Coverage, rampLag, shares, pin);
+        var averaged = Math.Sqrt((s.FastVariance + converter * converter) / n + s.SlowVariance * CorrelatedFactor(n, rho));
+        var analog = Math.Sqrt(s.FastVariance + s.SlowVariance);
+        var rampLag = design.Noise.RampKelvinPerSecond is { } rate ? rate * LagSeconds(design, tau) : 0;
+        return new ReadingNoise(celsius, analog, Math.Sqrt(s.FastVariance), Math.Sqrt(s.SlowVariance), KtcVolts(design, celsius), converter,
+            Math.Sqrt(analog * analog + converter * converter), averaged, rho, cf.VoltsPerKelvin, lsb, design.Noise.Coverage, rampLag,
+            [.. shares.OrderByDescending(x => x.RmsVolts)], s.PinDensity);
     }
 
     /// <summary>How far behind a ramp the reading is: the mean of N conversions is (N − 1)·T_s/2 old; the filter adds τ.</summary>

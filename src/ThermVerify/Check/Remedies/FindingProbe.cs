@@ -21,8 +21,11 @@ internal sealed class FindingProbe(string findingId, double celsius, PrechargeCa
     {
         if (FindingId == "buffer-noise")
             return Buffer.BufferNoise.Run(design, [Celsius], options.Engine).Worst.RmsVolts;
-        if (FindingId == Noise.NoiseFindingRules.NoiseId)
-            return Noise.ReadingNoiseAnalysis.At(design, new ClosedFormModel(design), Celsius, options.Engine).CoveredVolts;
+        if (FindingId is Noise.NoiseFindingRules.NoiseId or Noise.NoiseFindingRules.RampLagId)
+        {
+            var n = Noise.ReadingNoiseAnalysis.At(design, new ClosedFormModel(design), Celsius, options.Engine);
+            return FindingId == Noise.NoiseFindingRules.NoiseId ? n.CoveredVolts : n.RampLagVolts;
+        }
         var sampling = FindingId is "settling" or "converter" or FindingRules.OverBudgetId;
         IReadOnlyList<PrechargeCase>? cases = precharge is null ? null : [precharge];
         SampleKinds? kinds = !sampling ? null : first switch { true => SampleKinds.FirstOnly, false => SampleKinds.SteadyOnly, _ => SampleKinds.Both };
@@ -63,5 +66,5 @@ internal sealed class FindingProbe(string findingId, double celsius, PrechargeCa
     /// <summary>Whether a finding has a probe at all (the buffer's loop, headroom and recovery are searched by their own analyses).</summary>
     public static bool Supports(string findingId) =>
         findingId is FindingRules.OverBudgetId or "settling" or "reservoir-recovery" or "dc-loading" or "buffer-static" or "self-heating" or "converter"
-            or "buffer-noise" or Noise.NoiseFindingRules.NoiseId;
+            or "buffer-noise" or Noise.NoiseFindingRules.NoiseId or Noise.NoiseFindingRules.RampLagId;
 }

@@ -163,6 +163,14 @@ internal static class Knobs
         Integer = true,
     };
 
+    /// <summary>Fewer conversions per reading: the mean is younger, so it lags a ramp less (at the cost of noise).</summary>
+    public static readonly Knob FewerReadings = new("noise.readings_averaged", "conversions", Better.Lower,
+        d => d.Noise.ReadingsAveraged, (d, v) => d with { Noise = d.Noise with { ReadingsAveraged = (int)Math.Round(v) } },
+        _ => 1, "average in firmware, per reading, a mean of at most")
+    {
+        Integer = true,
+    };
+
     /// <summary>The converter's own noise, searched as a voltage (the design may have declared it in LSB, or not at all).</summary>
     public static readonly Knob ConverterNoise = new("adc.noise", "V", Better.Lower,
         d => Noise.ReadingNoiseAnalysis.ConverterVolts(d, new FrontEnd.ClosedFormModel(d).Adc.LsbVolts),
@@ -232,6 +240,8 @@ internal static class Knobs
                 return worst.Noise?.Shares.FirstOrDefault()?.Source == Buffer.BufferCircuits.OpAmpName && design.Buffer!.NoiseVoltsPerRootHertz > 0
                     ? [BufferNoise, ReadingsAveraged, Reservoir, ConverterNoise]
                     : [ReadingsAveraged, Reservoir, ConverterNoise];
+            case Noise.NoiseFindingRules.RampLagId:
+                return [.. design.Noise.ReadingsAveraged > 1 ? [FewerReadings] : Array.Empty<Knob>(), .. design.Filter.SeriesResistorOhms > 0 ? [SeriesResistor] : Array.Empty<Knob>()];
             case "buffer-noise" when buffered:
                 return design.Buffer!.NoiseVoltsPerRootHertz > 0 ? [BufferNoise] : [];
             case "buffer-stability" when buffered:

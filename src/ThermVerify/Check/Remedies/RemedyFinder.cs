@@ -242,9 +242,11 @@ internal sealed class RemedyFinder
     {
         var knobs = new List<Knob>();
         var noise = worst.NoiseKelvin + worst.RampLagKelvin;
-        // The noise first where it alone breaks the budget (the static error is within it with room left).
+        // The noise (or the lag on the ramp) first where it breaks the budget that the static error leaves.
         if (worst.NoiseKelvin > 0 && double.IsFinite(worst.ErrorKelvin) && Math.Abs(worst.ErrorKelvin) + worst.RampLagKelvin <= worst.BudgetKelvin)
             knobs.AddRange(Knobs.For(Noise.NoiseFindingRules.NoiseId, Design, worst));
+        if (worst.RampLagKelvin > 0 && double.IsFinite(worst.ErrorKelvin) && Math.Abs(worst.ErrorKelvin) + worst.NoiseKelvin <= worst.BudgetKelvin)
+            knobs.AddRange(Knobs.For(Noise.NoiseFindingRules.RampLagId, Design, worst));
         foreach (var (_, id, kelvin) in FindingRules.ByContribution(worst.Contributions))
             if (kelvin != 0 && (!double.IsFinite(worst.ErrorKelvin) || Math.Abs(worst.ErrorKelvin - kelvin) + noise <= worst.BudgetKelvin))
                 knobs.AddRange(Knobs.For(id, Design, worst));
