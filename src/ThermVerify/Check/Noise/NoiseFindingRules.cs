@@ -32,7 +32,7 @@ internal static class NoiseFindingRules
                 I($"±{n.Coverage:0.##}σ = {n.CoveredKelvin * 1e3:0.#} mK at {w.Celsius:0.##} °C; largest source: {Source(top)} {top.RmsVolts * 1e6:0.##} µV rms per conversion") +
                 (design.Adc.NoiseDeclared ? "" : I($" (converter noise assumed {DesignDefaults.ConverterNoiseLsb:0.##} LSB rms: declare adc.noise)")) +
                 I($"; independent conversions would need a mean of {needed} for ±{n.Coverage:0.##}σ within ½ LSB (σ/√N)"),
-                n.CoveredVolts, n.CoveredVolts, []);
+                n.Coverage * ClosedFormRms(n, averaging), n.CoveredVolts, []);
         }
         if (design.Noise.RampKelvinPerSecond is not { } rate) yield break;
         var lagging = points.Where(p => p.Noise is { } n && n.RampLagVolts > half).ToList();
@@ -47,6 +47,13 @@ internal static class NoiseFindingRules
             I($"{worst.RampLagKelvin * 1e3:0.#} mK (the sensor's own thermal lag comes on top and is not modelled)"),
             volts, null, []);
     }
+
+    /// <summary>
+    /// The hand calculation beside the analysis: a passive network at one temperature leaves kT/C_sh on the sampling
+    /// capacitor (equipartition), the converter adds its own, and N independent conversions average to σ/√N.
+    /// </summary>
+    private static double ClosedFormRms(ReadingNoise n, int averaged) =>
+        Math.Sqrt((n.KtcRmsVolts * n.KtcRmsVolts + n.ConverterRmsVolts * n.ConverterRmsVolts) / averaged);
 
     private static string Source(NoiseShare s) => s.Source switch
     {
