@@ -74,6 +74,7 @@ public static class CheckJson
             kelvinPerLsb = p.KelvinPerLsb,
             noiseKelvin = p.NoiseKelvin,
             rampLagKelvin = p.RampLagKelvin,
+            noiseFreeResolutionKelvin = p.Noise?.NoiseFreeResolutionKelvin,
             contributionsKelvin = new
             {
                 quantisation = N(p.Contributions.QuantisationKelvin),
