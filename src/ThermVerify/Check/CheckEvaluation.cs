@@ -15,7 +15,7 @@ internal sealed class CheckEvaluation
 {
     private CheckEvaluation(FrontEndDesign design, ClosedFormModel model, FirmwareReading reading, IReadOnlyList<double> temperatures,
         IReadOnlyList<PrechargeCase> cases, DcCorners dc, SamplingOffsets offsets, Converter converter, double settleVolts, SampleKinds kinds,
-        IReadOnlyList<ReadingNoise> noise)
+        IReadOnlyList<ReadingNoise?> noise)
     {
         Noise = noise;
         Design = design;
@@ -47,8 +47,8 @@ internal sealed class CheckEvaluation
     public SampleKinds Kinds { get; }
     public ErrorInputs Inputs { get; }
     public IReadOnlyList<CheckPoint> Points { get; }
-    /// <summary>The noise of the reading at each temperature (counted in the budget at its coverage).</summary>
-    public IReadOnlyList<ReadingNoise> Noise { get; }
+    /// <summary>The noise of the reading at each temperature (counted in the budget at its coverage); null where not asked for.</summary>
+    public IReadOnlyList<ReadingNoise?> Noise { get; }
 
     /// <param name="cases">The precharge cases to cover; null: the design's own (<see cref="PrechargeCases.For"/>).</param>
     /// <param name="kinds">
@@ -56,8 +56,12 @@ internal sealed class CheckEvaluation
     /// worst at; the first alone needs one conversion per run). Null: no sampling transients, every sampling offset zero
     /// (for questions about DC effects alone).
     /// </param>
+    /// <param name="noise">
+    /// Whether to analyse the reading's noise (the check, and a search on the total, which counts it); a search on one
+    /// effect's own size does not need it.
+    /// </param>
     public static CheckEvaluation Run(FrontEndDesign design, IReadOnlyList<double> temperatures, CheckOptions options,
-        IReadOnlyList<PrechargeCase>? cases = null, SampleKinds? kinds = SampleKinds.Both)
+        IReadOnlyList<PrechargeCase>? cases = null, SampleKinds? kinds = SampleKinds.Both, bool noise = true)
     {
         var model = new ClosedFormModel(design);
         var reading = new FirmwareReading(model);
@@ -75,8 +79,10 @@ internal sealed class CheckEvaluation
             _ => SamplingOffsets.Run(sampled, cases, temperatures, indices, dc.Base, settleVolts, options.Threads, options.Cancel, options.Engine,
                 Counter(options.Progress, cases.Count * indices.Length)),
         };
-        var noise = ReadingNoiseAnalysis.Over(design, model, temperatures, options.MaximumSamplingPoints, options.Engine);
-        return new CheckEvaluation(design, model, reading, temperatures, cases, dc, offsets, Converter.Of(design), settleVolts, kinds ?? SampleKinds.Both, noise);
+        var readings = noise
+            ? [.. ReadingNoiseAnalysis.Over(design, model, temperatures, options.MaximumSamplingPoints, options.Engine)]
+            : new ReadingNoise?[temperatures.Count];
+        return new CheckEvaluation(design, model, reading, temperatures, cases, dc, offsets, Converter.Of(design), settleVolts, kinds ?? SampleKinds.Both, readings);
     }
 
     /// <summary>Reports 0 of <paramref name="total"/> at once, then one more at every call (from worker threads); null without a listener.</summary>

@@ -22,7 +22,7 @@ namespace ThermVerify.Check.Noise;
 internal static class ReadingNoiseAnalysis
 {
     public const double FromHertz = 0.1;
-    private const int PointsPerDecade = 20;
+    private const int PointsPerDecade = 10;
 
     /// <summary>The stated frequencies of the density at the pin: three decades and the sample rate's Nyquist frequency.</summary>
     public static double[] DensityHertz(FrontEndDesign design) =>
@@ -68,13 +68,13 @@ internal static class ReadingNoiseAnalysis
     }
 
     /// <summary>What a conversion samples of the front end at one temperature: the switch's share (new every time), the rest, by generator.</summary>
-    private sealed record SampledNoise(double FastVariance, double SlowVariance, IReadOnlyList<NoiseShare> Shares, IReadOnlyList<NoiseDensity> PinDensity);
+    internal sealed record SampledNoise(double FastVariance, double SlowVariance, IReadOnlyList<NoiseShare> Shares, IReadOnlyList<NoiseDensity> PinDensity);
 
     /// <summary>√(kT/C_sh) with the switch at the board temperature (the swept one without it), the closed form printed beside the analysis.</summary>
     private static double KtcVolts(FrontEndDesign design, double celsius) =>
         Math.Sqrt(PhysicalConstants.BoltzmannJoulesPerKelvin * PhysicalConstants.ToKelvin(design.Check.BoardCelsius ?? celsius) / design.Adc.SamplingCapacitanceFarads);
 
-    private static SampledNoise Sample(FrontEndDesign design, double celsius, ICheckEngine engine, bool density)
+    internal static SampledNoise Sample(FrontEndDesign design, double celsius, ICheckEngine engine, bool density)
     {
         var circuit = SamplingNoiseCircuit.Acquiring(design, celsius);
         var own = SamplingNoiseCircuit.OwnTemperatures(design, circuit);
@@ -105,7 +105,7 @@ internal static class ReadingNoiseAnalysis
         return new SampledNoise(switchShare, Math.Max(0, all * all - switchShare), shares, pin);
     }
 
-    private static ReadingNoise Reading(FrontEndDesign design, ClosedFormModel model, double celsius, SampledNoise s)
+    internal static ReadingNoise Reading(FrontEndDesign design, ClosedFormModel model, double celsius, SampledNoise s)
     {
         var cf = model.At(celsius);
         var lsb = model.Adc.LsbVolts;
@@ -121,6 +121,13 @@ internal static class ReadingNoiseAnalysis
             Math.Sqrt(analog * analog + converter * converter), averaged, rho, cf.VoltsPerKelvin, lsb, design.Noise.Coverage, rampLag,
             [.. shares.OrderByDescending(x => x.RmsVolts)], s.PinDensity);
     }
+
+    /// <summary>
+    /// The design as far as the front end's sampled noise depends on it: the converter's own noise and the firmware's
+    /// averaging set to their defaults (they act after the sampling), so that a search over them analyses the front end once.
+    /// </summary>
+    internal static FrontEndDesign FrontEndOnly(FrontEndDesign design) =>
+        design with { Noise = NoiseSpec.Default, Adc = design.Adc with { NoiseLsb = null, NoiseVolts = null } };
 
     /// <summary>How far behind a ramp the reading is: the mean of N conversions is (N − 1)·T_s/2 old; the filter adds τ.</summary>
     public static double LagSeconds(FrontEndDesign design, double tauSeconds) =>
