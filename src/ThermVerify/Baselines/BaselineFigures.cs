@@ -9,8 +9,9 @@ namespace ThermVerify.Baselines;
 
 /// <summary>
 /// Extracts the key figures from a check: the worst reported error and the smallest margin to the budget over the
-/// whole range and in each budget region, the worst settling, DC-loading, average-sampling and buffer errors at the
-/// pin in LSB, and the counts of points over budget and of failing findings.
+/// whole range and in each budget region (the margin after the noise and the ramp lag), the worst settling,
+/// DC-loading, average-sampling and buffer errors and the noise at its coverage at the pin in LSB, and the counts of
+/// points over budget and of failing findings.
 /// </summary>
 internal static class BaselineFigures
 {
@@ -33,6 +34,7 @@ internal static class BaselineFigures
         figures.Add(Lsb("sampling-average.worst", "worst error from the average sampling current", result, p => p.Simulated.AverageSamplingVolts, lsb));
         figures.Add(Lsb("buffer.worst", "worst buffer error (offset and drift, bias currents, finite gain)", result, p => p.Simulated.BufferVolts, lsb));
         figures.Add(Lsb("converter.worst", "worst code shift from the converter's static errors (offset, gain, INL, reference)", result, p => p.Simulated.ConverterVolts, lsb));
+        figures.Add(Lsb("noise.worst", "worst noise of a reading at its coverage (±k·σ at the pin)", result, p => p.Noise?.CoveredVolts ?? 0, lsb));
         figures.Add(new BaselineFigure("points.over-budget", "points outside the budget", result.Points.Count(p => !p.WithinBudget), "points", Better.Lower, 0));
         figures.Add(new BaselineFigure("findings.fail", "failing findings", result.Findings.Count(f => f.Severity == Severity.Fail), "findings", Better.Lower, 0));
         return new Baseline(design.Name, Fingerprint(design), provenance.ToolVersion, figures) { Provenance = provenance };
@@ -45,9 +47,9 @@ internal static class BaselineFigures
     {
         if (points.Count == 0) return;
         double? worst = points.Any(p => !double.IsFinite(p.ErrorKelvin)) ? null : points.Max(p => Math.Abs(p.ErrorKelvin));
-        double? margin = worst is null ? null : points.Min(p => p.BudgetKelvin - Math.Abs(p.ErrorKelvin));
+        double? margin = worst is null ? null : points.Min(p => p.BudgetKelvin - Math.Abs(p.ErrorKelvin) - p.NoiseKelvin - p.RampLagKelvin);
         figures.Add(new BaselineFigure("error.worst" + suffix, $"worst |reported − true| {where}", worst, "K", Better.Lower, KelvinTolerance));
-        figures.Add(new BaselineFigure("margin.smallest" + suffix, $"smallest margin (budget − |error|) {where}", margin, "K", Better.Higher, KelvinTolerance));
+        figures.Add(new BaselineFigure("margin.smallest" + suffix, $"smallest margin (budget − |error| − noise − ramp lag) {where}", margin, "K", Better.Higher, KelvinTolerance));
     }
 
     private static BaselineFigure Lsb(string id, string description, CheckResult result, Func<CheckPoint, double> volts, double lsb) =>

@@ -1,3 +1,4 @@
+using ThermVerify.Check.Noise;
 using ThermVerify.Design;
 using ThermVerify.FrontEnd;
 using ThermVerify.Limits;
@@ -13,8 +14,10 @@ namespace ThermVerify.Check;
 internal sealed class CheckEvaluation
 {
     private CheckEvaluation(FrontEndDesign design, ClosedFormModel model, FirmwareReading reading, IReadOnlyList<double> temperatures,
-        IReadOnlyList<PrechargeCase> cases, DcCorners dc, SamplingOffsets offsets, Converter converter, double settleVolts, SampleKinds kinds)
+        IReadOnlyList<PrechargeCase> cases, DcCorners dc, SamplingOffsets offsets, Converter converter, double settleVolts, SampleKinds kinds,
+        IReadOnlyList<ReadingNoise?> noise)
     {
+        Noise = noise;
         Design = design;
         Model = model;
         Reading = reading;
@@ -44,6 +47,8 @@ internal sealed class CheckEvaluation
     public SampleKinds Kinds { get; }
     public ErrorInputs Inputs { get; }
     public IReadOnlyList<CheckPoint> Points { get; }
+    /// <summary>The noise of the reading at each temperature (counted in the budget at its coverage); null where not asked for.</summary>
+    public IReadOnlyList<ReadingNoise?> Noise { get; }
 
     /// <param name="cases">The precharge cases to cover; null: the design's own (<see cref="PrechargeCases.For"/>).</param>
     /// <param name="kinds">
@@ -51,8 +56,12 @@ internal sealed class CheckEvaluation
     /// worst at; the first alone needs one conversion per run). Null: no sampling transients, every sampling offset zero
     /// (for questions about DC effects alone).
     /// </param>
+    /// <param name="noise">
+    /// Whether to analyse the reading's noise (the check, and a search on the total, which counts it); a search on one
+    /// effect's own size does not need it.
+    /// </param>
     public static CheckEvaluation Run(FrontEndDesign design, IReadOnlyList<double> temperatures, CheckOptions options,
-        IReadOnlyList<PrechargeCase>? cases = null, SampleKinds? kinds = SampleKinds.Both)
+        IReadOnlyList<PrechargeCase>? cases = null, SampleKinds? kinds = SampleKinds.Both, bool noise = true)
     {
         var model = new ClosedFormModel(design);
         var reading = new FirmwareReading(model);
@@ -70,7 +79,10 @@ internal sealed class CheckEvaluation
             _ => SamplingOffsets.Run(sampled, cases, temperatures, indices, dc.Base, settleVolts, options.Threads, options.Cancel, options.Engine,
                 Counter(options.Progress, cases.Count * indices.Length)),
         };
-        return new CheckEvaluation(design, model, reading, temperatures, cases, dc, offsets, Converter.Of(design), settleVolts, kinds ?? SampleKinds.Both);
+        var readings = noise
+            ? [.. ReadingNoiseAnalysis.Over(design, model, temperatures, options.MaximumSamplingPoints, options.Engine)]
+            : new ReadingNoise?[temperatures.Count];
+        return new CheckEvaluation(design, model, reading, temperatures, cases, dc, offsets, Converter.Of(design), settleVolts, kinds ?? SampleKinds.Both, readings);
     }
 
     /// <summary>Reports 0 of <paramref name="total"/> at once, then one more at every call (from worker threads); null without a listener.</summary>
@@ -93,7 +105,7 @@ internal sealed class CheckEvaluation
         var offsets = Offsets.WithPoint(StaticBounds.Zeroed(Design), Temperatures, worst, Dc.Base, SettleVolts, options.Cancel, options.Engine,
             choice.Case, choice.First);
         return ReferenceEquals(offsets, Offsets) ? this
-            : new CheckEvaluation(Design, Model, Reading, Temperatures, Cases, Dc, offsets, Converter, SettleVolts, Kinds);
+            : new CheckEvaluation(Design, Model, Reading, Temperatures, Cases, Dc, offsets, Converter, SettleVolts, Kinds, Noise);
     }
 
     /// <summary>No offset, gain or INL at any corner and no reference drift: the code is the sample over the nominal LSB.</summary>
@@ -151,6 +163,6 @@ internal sealed class CheckEvaluation
         return new CheckPoint(cf.Celsius, cf.SensorOhms, ideal, Dc.Base.DividerVolts[i], staticPin, averagePin, staticPin + first, averagePin + steady,
             warmed, Cases[c], choice.First, cornerName, Offsets.SimulatedIndices.Contains(i), choice.Code, Reading.Celsius(choice.Code), error,
             Design.Check.BudgetAt(cf.Celsius), Model.Adc.LsbVolts / Math.Abs(cf.VoltsPerKelvin), contributions, volts,
-            EffectEstimator.At(Dc.DesignAt(Design, choice.Corner, i), cf, staticPin, averagePin, Cases[c].Volts, heat));
+            EffectEstimator.At(Dc.DesignAt(Design, choice.Corner, i), cf, staticPin, averagePin, Cases[c].Volts, heat)) { Noise = Noise[i] };
     }
 }

@@ -123,7 +123,20 @@ public sealed record CheckPoint(
 {
     public double? PrechargeVolts => Precharge.Volts;
 
-    public bool WithinBudget => double.IsFinite(ErrorKelvin) && Math.Abs(ErrorKelvin) <= BudgetKelvin;
+    /// <summary>The noise of the reading here (null only for a point made without a noise analysis).</summary>
+    public Noise.ReadingNoise? Noise { get; init; }
+
+    /// <summary>What noise takes of the budget here: ±k·σ of the reading in K (k: noise.coverage).</summary>
+    public double NoiseKelvin => Noise?.CoveredKelvin ?? 0;
+
+    /// <summary>What the averaging and the filter's lag take of the budget on the declared ramp (zero without noise.ramp_rate).</summary>
+    public double RampLagKelvin => Noise?.RampLagKelvin ?? 0;
+
+    /// <summary>
+    /// Within the budget when the static error, the noise at its coverage and the lag on the declared ramp add up to no
+    /// more than the budget (linear addition: each can reach its size in the same reading).
+    /// </summary>
+    public bool WithinBudget => double.IsFinite(ErrorKelvin) && Math.Abs(ErrorKelvin) + NoiseKelvin + RampLagKelvin <= BudgetKelvin;
 
     /// <summary>Which sample the firmware converts here, in words.</summary>
     public string SampleKind => FirstConversion ? "first" : "steady";

@@ -51,6 +51,9 @@ public sealed record CheckResult(
     /// <summary>The codes a broken sensor or fixed resistor produce and the thresholds that catch them; null when the tolerances leave no room.</summary>
     public FaultThresholds? Faults { get; init; }
 
+    /// <summary>The reading's noise over the range (five temperatures): what the budget counts at each point, for the reports.</summary>
+    public Noise.NoiseSummary? Noise { get; init; }
+
     /// <summary>The precharge cases the check covered (the design's setting; "worst" covers the last sample, 0 V and full scale).</summary>
     public IReadOnlyList<PrechargeCase> PrechargeCases { get; init; } = [PrechargeCase.LastSample];
 

@@ -52,6 +52,7 @@ internal static class FindingRules
                  I($" and warms by P/δ (IEC 60539-1), δ = {design.Sensor.DissipationConstantWattsPerKelvin * 1e3:0.###} mW/K; ") +
                  I($"{p.Contributions.SelfHeatingKelvin * 1e3:0.#} mK at {p.Celsius:0.##} °C"),
             p => p.Estimates.SelfHeatingVolts, simulated: false);
+        findings.AddRange(Noise.NoiseFindingRules.Evaluate(design, lsb, points));
         return findings;
 
         void Add(string id, string? title, Func<CheckPoint, double> volts, Func<CheckPoint, double> kelvin, Func<CheckPoint, string> cause,
@@ -103,7 +104,7 @@ internal static class FindingRules
         // The reading as a voltage: what the firmware takes the code to stand for, against the closed form.
         var volts = model.Adc.VoltsOf(worst.Code) - worst.IdealVolts;
         var cause = double.IsFinite(worst.ErrorKelvin)
-            ? I($"the largest contribution at {worst.Celsius:0.##} °C is {Dominant(worst.Contributions)}") +
+            ? I($"the largest contribution at {worst.Celsius:0.##} °C is {Dominant(worst.Contributions)}") + NoiseNote(worst) +
               (findings.Count(f => f.Severity == Severity.Fail) == 0 ? "; no single effect exceeds the budget on its own: they add up" : "")
             : I($"at {worst.Celsius:0.##} °C the code {worst.Code} cannot come from a sensor inside its valid range");
         return new Finding(OverBudgetId, Severity.Fail, $"the reported temperature is outside the budget at {over.Count} of {points.Count} points",
@@ -119,12 +120,20 @@ internal static class FindingRules
         "settling" => p.Simulated.SettlingVolts,
         "buffer-static" => p.Simulated.BufferVolts,
         "self-heating" => p.Simulated.SelfHeatingVolts,
+        Noise.NoiseFindingRules.NoiseId => p.Noise?.CoveredVolts ?? 0,
+        Noise.NoiseFindingRules.RampLagId => p.Noise?.RampLagVolts ?? 0,
         _ => null,
     };
 
     /// <summary>The columns of a point ordered by the size of their contribution, largest first (the rest last).</summary>
     public static IReadOnlyList<(string Column, string FindingId, double Kelvin)> ByContribution(ErrorContributions c) =>
         [.. c.Columns.Where(x => x.FindingId.Length > 0).OrderByDescending(x => Math.Abs(x.Kelvin))];
+
+    /// <summary>What noise and the ramp's lag add to the static error at the point (they count in the budget beside it).</summary>
+    private static string NoiseNote(CheckPoint p) =>
+        (p.NoiseKelvin > 0 ? I($"; noise adds ±{p.NoiseKelvin:0.###} K (±{p.Noise!.Coverage:0.##}σ)") : "") +
+        (p.RampLagKelvin > 0 ? I($" and the lag on the ramp {p.RampLagKelvin:0.###} K") : "") +
+        (p.NoiseKelvin + p.RampLagKelvin > 0 ? I($" to the static {p.ErrorKelvin:+0.###;-0.###} K, against the budget ±{p.BudgetKelvin:0.###} K") : "");
 
     private static string Dominant(ErrorContributions c)
     {

@@ -36,6 +36,7 @@ internal static class FrontEndCheck
             Buffer = buffer,
             Faults = FaultThresholdsOrNull(design),
             PrechargeCases = evaluation.Cases,
+            Noise = Noise.ReadingNoiseAnalysis.Summary(design, Noise.ReadingNoiseAnalysis.ReportTemperatures(design.Check.Range), options.Engine),
         };
         // A remedy is only ever shown proven: without the search, the buffer analyses' own figures are not shown as remedies either.
         return options.ComputeRemedies ? RemedyFinder.Attach(result, options)

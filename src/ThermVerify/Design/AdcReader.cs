@@ -30,7 +30,7 @@ internal static class AdcReader
         "bits", "reference", "reference_tolerance", "sample_rate", "acquisition_time", "sampling_capacitance",
         "switch_resistance", "pin_capacitance", "pin_leakage", "pin_leakage_temperature", "leakage_doubling",
         "offset_error", "gain_error", "inl", "precharge", "precharge_voltage", "reference_tempco", "first_transition",
-        "firmware_inverse",
+        "firmware_inverse", "noise",
     ];
 
     public static AdcSpec Read(TomlSection s)
@@ -58,8 +58,12 @@ internal static class AdcReader
         if (referenceTolerance != 0 && referenceVolts is null)
             throw s.ErrorAtKey("reference_tolerance", "reference_tolerance applies only to a fixed reference; a ratiometric converter's reference is the excitation itself, whose tolerance cancels",
                 "Remove it (the excitation's own tolerance is divider.excitation_tolerance), or give reference as a voltage.");
+        // The converter's own noise: in LSB (as converter data gives it for a code histogram) or as a voltage at the input.
+        var noise = s.Quantity("noise", Bound.NonNegative, UnitKind.Lsb, UnitKind.Volt);
         return new AdcSpec
         {
+            NoiseLsb = noise is { Unit: UnitKind.Lsb } lsb ? lsb.Value : null,
+            NoiseVolts = noise is { Unit: UnitKind.Volt } volts ? volts.Value : null,
             Bits = (int)bits,
             ReferenceVolts = referenceVolts,
             ReferenceTolerance = referenceTolerance,

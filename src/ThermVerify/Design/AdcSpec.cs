@@ -77,4 +77,10 @@ public sealed record AdcSpec
     public FirstTransition FirstTransition { get; init; } = FirstTransition.HalfLsb;
     /// <summary>The firmware's inverse: a code stands for the middle of its bin or its lower edge.</summary>
     public CodeInverse FirmwareInverse { get; init; } = CodeInverse.BinMiddle;
+    /// <summary>The converter's own input-referred rms noise per conversion, as declared in LSB (null: not declared this way).</summary>
+    public double? NoiseLsb { get; init; }
+    /// <summary>The same as a voltage at the input (null: not declared this way). At most one of the two is set.</summary>
+    public double? NoiseVolts { get; init; }
+    /// <summary>Whether the design declares the converter's noise; otherwise <see cref="DesignDefaults.ConverterNoiseLsb"/> is assumed.</summary>
+    public bool NoiseDeclared => NoiseLsb is not null || NoiseVolts is not null;
 }

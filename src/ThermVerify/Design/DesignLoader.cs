@@ -11,7 +11,7 @@ namespace ThermVerify.Design;
 /// </summary>
 internal static class DesignLoader
 {
-    private static readonly string[] TopKeys = ["name", "description", "sensor", "divider", "current_source", "wiring", "buffer", "filter", "protection", "adc", "check", "tolerances"];
+    private static readonly string[] TopKeys = ["name", "description", "sensor", "divider", "current_source", "wiring", "buffer", "filter", "protection", "adc", "check", "noise", "tolerances"];
 
     public static FrontEndDesign Load(string path)
     {
@@ -61,6 +61,7 @@ internal static class DesignLoader
             Protection = root.Section("protection") is { } protection ? ProtectionReader.Read(protection) : null,
             Adc = AdcReader.Read(root.RequiredSection("adc", "Add an [adc] section (bits, reference, sample_rate, acquisition_time, ...).")),
             Check = CheckReader.Read(root.RequiredSection("check", "Add a [check] section (range, budget)."), model.ValidRange),
+            Noise = root.Section("noise") is { } noise ? NoiseReader.Read(noise) : NoiseSpec.Default,
             Tolerances = root.Section("tolerances") is { } tolerances ? ToleranceReader.Read(tolerances) : ToleranceSpec.Default,
         };
         var designFile = new SourceFile(Path.GetFileName(sourceName), sha256 ?? DesignDigest.OfText(sourceName, text).Sha256);

@@ -33,6 +33,7 @@ internal static class DesignWriter
             WriteProtection(w, protection);
         WriteAdc(w, design.Adc);
         WriteCheck(w, design.Check);
+        WriteNoise(w, design.Noise);
         WriteTolerances(w, design.Tolerances);
         return w.ToString();
     }
@@ -220,6 +221,19 @@ internal static class DesignWriter
             w.Value("precharge_voltage", pv, UnitKind.Volt);
         w.Text("first_transition", a.FirstTransition == FirstTransition.HalfLsb ? "half-lsb" : "one-lsb");
         w.Text("firmware_inverse", a.FirmwareInverse == CodeInverse.BinMiddle ? "bin-middle" : "bin-edge");
+        if (a.NoiseLsb is { } lsb)
+            w.Value("noise", lsb, UnitKind.Lsb);
+        else if (a.NoiseVolts is { } volts)
+            w.Value("noise", volts, UnitKind.Volt);
+    }
+
+    private static void WriteNoise(Writer w, NoiseSpec n)
+    {
+        w.Section("noise");
+        w.Number("coverage", n.Coverage);
+        w.Integer("readings_averaged", n.ReadingsAveraged);
+        if (n.RampKelvinPerSecond is { } ramp)
+            w.Value("ramp_rate", ramp, UnitKind.KelvinPerSecond);
     }
 
     private static void WriteCheck(Writer w, CheckSpec c)

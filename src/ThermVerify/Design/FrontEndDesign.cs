@@ -22,6 +22,8 @@ public sealed record FrontEndDesign
     public ProtectionSpec? Protection { get; init; }
     public required AdcSpec Adc { get; init; }
     public required CheckSpec Check { get; init; }
+    /// <summary>How noise counts in the verdict: coverage, firmware averaging, the ramp to follow ([noise]).</summary>
+    public NoiseSpec Noise { get; init; } = NoiseSpec.Default;
     /// <summary>How tolerances are spread for the worst-case and Monte Carlo analyses.</summary>
     public ToleranceSpec Tolerances { get; init; } = ToleranceSpec.Default;
 

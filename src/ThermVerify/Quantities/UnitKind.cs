@@ -38,4 +38,6 @@ public enum UnitKind
     VoltPerKelvin,
     /// <summary>An angle in degrees (not radians), e.g. a phase margin.</summary>
     Degree,
+    /// <summary>A rate of temperature change, e.g. a ramp the reading must follow (K/s, K/min).</summary>
+    KelvinPerSecond,
 }

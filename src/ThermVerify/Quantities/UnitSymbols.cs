@@ -40,6 +40,7 @@ internal static class UnitSymbols
         ["V"] = UnitKind.Volt,
         ["A"] = UnitKind.Ampere,
         ["W"] = UnitKind.WattPerKelvin,
+        ["K"] = UnitKind.Kelvin,
     };
 
     private static readonly Dictionary<string, UnitKind> SecondsDenominator = new(StringComparer.Ordinal) { ["s"] = UnitKind.Second };
@@ -109,6 +110,11 @@ internal static class UnitSymbols
             kind = top == UnitKind.Volt ? UnitKind.VoltPerRootHertz : UnitKind.AmperePerRootHertz;
             return true;
         }
+        if (top == UnitKind.Kelvin && denominator == "s")
+        {
+            kind = UnitKind.KelvinPerSecond;
+            return true;
+        }
         if (top == UnitKind.Volt && KelvinDenominator.Contains(denominator))
         {
             kind = UnitKind.VoltPerKelvin;
@@ -140,7 +146,8 @@ internal static class UnitSymbols
     /// <summary>Whether a unit kind is printed with an SI prefix.</summary>
     public static bool TakesPrefix(UnitKind kind) => kind is UnitKind.Ohm or UnitKind.Volt or UnitKind.Ampere
         or UnitKind.Farad or UnitKind.Second or UnitKind.Hertz or UnitKind.Kelvin or UnitKind.WattPerKelvin
-        or UnitKind.VoltPerSecond or UnitKind.VoltPerRootHertz or UnitKind.AmperePerRootHertz or UnitKind.VoltPerKelvin;
+        or UnitKind.VoltPerSecond or UnitKind.VoltPerRootHertz or UnitKind.AmperePerRootHertz or UnitKind.VoltPerKelvin
+        or UnitKind.KelvinPerSecond;
 
     /// <summary>The symbol printed after the (prefixed) number.</summary>
     public static string PrintedSymbol(UnitKind kind) => kind switch
@@ -165,6 +172,7 @@ internal static class UnitSymbols
         UnitKind.Lsb => "LSB",
         UnitKind.VoltPerKelvin => "V/K",
         UnitKind.Degree => "\u00B0",
+        UnitKind.KelvinPerSecond => "K/s",
         _ => throw new ArgumentOutOfRangeException(nameof(kind)),
     };
 
@@ -191,6 +199,7 @@ internal static class UnitSymbols
         UnitKind.Lsb => "an error in LSB (e.g. \"1 LSB\", \"0.5 LSB\")",
         UnitKind.VoltPerKelvin => "a voltage drift (e.g. \"5 uV/K\")",
         UnitKind.Degree => "an angle in degrees (e.g. \"45 deg\")",
+        UnitKind.KelvinPerSecond => "a rate of temperature change (e.g. \"0.5 K/s\", \"20 mK/s\")",
         _ => throw new ArgumentOutOfRangeException(nameof(kind)),
     };
 

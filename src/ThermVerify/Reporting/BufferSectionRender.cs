@@ -5,14 +5,15 @@ using ThermVerify.Check.Buffer;
 
 namespace ThermVerify.Reporting;
 
-/// <summary>The buffer sections as terminal text, Markdown and HTML fragments.</summary>
+/// <summary>The buffer sections (and the noise section, built the same way) as terminal text, Markdown and HTML fragments.</summary>
 internal static class BufferSectionRender
 {
-    public static string Text(BufferReport? buffer)
+    public static string Text(BufferReport? buffer) => buffer is null ? "" : Text(BufferSections.Build(buffer));
+
+    public static string Text(IReadOnlyList<BufferSection> sections)
     {
-        if (buffer is null) return "";
         var text = new StringBuilder();
-        foreach (var s in BufferSections.Build(buffer))
+        foreach (var s in sections)
         {
             text.AppendLine($"{s.Title}:");
             foreach (var n in s.Notes) text.AppendLine($"  {n}");
@@ -27,11 +28,12 @@ internal static class BufferSectionRender
         return text.ToString();
     }
 
-    public static string Markdown(BufferReport? buffer)
+    public static string Markdown(BufferReport? buffer) => buffer is null ? "" : Markdown(BufferSections.Build(buffer, staticRows: 9));
+
+    public static string Markdown(IReadOnlyList<BufferSection> sections)
     {
-        if (buffer is null) return "";
         var md = new StringBuilder();
-        foreach (var s in BufferSections.Build(buffer, staticRows: 9))
+        foreach (var s in sections)
         {
             md.AppendLine($"## {s.Title}");
             md.AppendLine();
@@ -47,11 +49,12 @@ internal static class BufferSectionRender
         return md.ToString();
     }
 
-    public static string Html(BufferReport? buffer)
+    public static string Html(BufferReport? buffer) => buffer is null ? "" : Html(BufferSections.Build(buffer, staticRows: 13));
+
+    public static string Html(IReadOnlyList<BufferSection> sections)
     {
-        if (buffer is null) return "";
         var html = new StringBuilder();
-        foreach (var s in BufferSections.Build(buffer, staticRows: 13))
+        foreach (var s in sections)
         {
             html.Append($"<section id=\"{s.Id}\"><h2>{E(s.Title)}</h2>\n");
             foreach (var n in s.Notes) html.Append($"<p>{E(n)}</p>\n");

@@ -29,6 +29,7 @@ internal static class CheckHtml
         ReportHtml.AppendFigures(html, report.Plots);
 
         html.Append(BufferSectionRender.Html(r.Buffer));
+        html.Append(BufferSectionRender.Html(NoiseSections.Build(r.Noise)));
         AppendFindings(html, r);
         AppendPoints(html, r);
 

@@ -49,6 +49,7 @@ public static class CheckJson
             cases = r.PrechargeCases.Select(c => new { name = c.Name, volts = c.Volts }),
         },
         adc = new { bits = r.Adc.Bits, referenceVolts = r.Adc.ReferenceVolts, lsbVolts = r.Adc.LsbVolts },
+        noise = NoiseJson.ToJson(r.Noise),
         points = r.Points.Select(p => new
         {
             celsius = p.Celsius,
@@ -71,6 +72,9 @@ public static class CheckJson
             budgetKelvin = p.BudgetKelvin,
             withinBudget = p.WithinBudget,
             kelvinPerLsb = p.KelvinPerLsb,
+            noiseKelvin = p.NoiseKelvin,
+            rampLagKelvin = p.RampLagKelvin,
+            noiseFreeResolutionKelvin = p.Noise?.NoiseFreeResolutionKelvin,
             contributionsKelvin = new
             {
                 quantisation = N(p.Contributions.QuantisationKelvin),

@@ -40,6 +40,7 @@ internal static class CheckMarkdown
         ReportMarkdown.AppendFigures(md, report.Plots, plotFolder);
 
         md.Append(BufferSectionRender.Markdown(r.Buffer));
+        md.Append(BufferSectionRender.Markdown(NoiseSections.Build(r.Noise)));
         md.AppendLine("## Findings");
         md.AppendLine();
         if (r.Findings.Count == 0) md.AppendLine("None: every effect is within ½ LSB.\n");

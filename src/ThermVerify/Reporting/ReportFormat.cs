@@ -107,15 +107,24 @@ internal static class ReportFormat
             .Append(worst).Distinct().OrderBy(p => p.Celsius);
 
     public static string[] PointHeaders(IReadOnlyList<CheckPoint> points) =>
-        ["T (°C)", "ideal", "DC pin", "sample", "code", "reported (°C)", "error (K)", .. ContributionColumns(points).Select(c => c.Header), "budget (K)", "K/LSB", "reading"];
+        ["T (°C)", "ideal", "DC pin", "sample", "code", "reported (°C)", "error (K)", .. ContributionColumns(points).Select(c => c.Header),
+            NoiseHeader(points) + " (K)", "budget (K)", "K/LSB", "noise-free (K)", "reading"];
 
     public static string[] PointCells(CheckPoint p, IReadOnlyList<CheckPoint> points) =>
     [
         N(p.Celsius, "0.##"), V(p.IdealVolts, UnitKind.Volt), V(p.DcPinVolts, UnitKind.Volt), V(p.SampleVolts, UnitKind.Volt),
         p.Code.ToString(CultureInfo.InvariantCulture), double.IsFinite(p.ReportedCelsius) ? N(p.ReportedCelsius, "0.000") : "none",
         Signed(p.ErrorKelvin), .. ContributionColumns(points).Select(c => Signed(c.Kelvin(p))),
-        N(p.BudgetKelvin, "0.###"), N(p.KelvinPerLsb, "0.0000"), ReadingCell(p),
+        NoiseCell(p), N(p.BudgetKelvin, "0.###"), N(p.KelvinPerLsb, "0.0000"), p.Noise is { } n ? N(n.NoiseFreeResolutionKelvin, "0.0000") : "none", ReadingCell(p),
     ];
+
+    /// <summary>The header of the noise column: what the budget counts beside the error, at the design's coverage.</summary>
+    public static string NoiseHeader(IReadOnlyList<CheckPoint> points) =>
+        "noise ±" + N(points.Select(p => p.Noise?.Coverage).FirstOrDefault(c => c is not null) ?? Design.DesignDefaults.NoiseCoverage, "0.##") + "σ";
+
+    /// <summary>±k·σ of the reading in K, with the ramp lag after a plus where the design declares a ramp.</summary>
+    public static string NoiseCell(CheckPoint p) =>
+        N(p.NoiseKelvin, "0.000") + (p.RampLagKelvin > 0 ? " + " + N(p.RampLagKelvin, "0.000") + " lag" : "");
 
     private static string Precharge(Design.PrechargeMode mode) => mode switch
     {

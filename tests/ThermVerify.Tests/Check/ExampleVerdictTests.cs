@@ -27,6 +27,7 @@ public class ExampleVerdictTests
     [InlineData("table-sensor-freezer.toml", true, null)]
     [InlineData("cold-storage-logger-buffered.toml", true, null)]
     [InlineData("soil-probe-switched.toml", true, null)]
+    [InlineData("dosing-pump-ntc-rc.toml", true, null)]
     [InlineData("attic-fan-leaky-pin.toml", false, "dc-loading")]
     [InlineData("collector-pump-clamped.toml", false, "dc-loading")]
     [InlineData("cold-storage-logger.toml", false, "settling")]

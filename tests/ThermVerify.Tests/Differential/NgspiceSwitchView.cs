@@ -48,7 +48,7 @@ internal static class NgspiceSwitchView
         foreach (var s in system.System.Stamps)
             s.CollectNoise(noise);
         var generators = noise.Generators.Select(g => circuit[g.Element] is TimedSwitch sw
-            ? g with { WhitePsd = noise.ThermalCurrentPsd(1 / sw.OffResistanceOhms) }
+            ? g with { WhitePsd = noise.ThermalCurrentPsd(sw.Name, 1 / sw.OffResistanceOhms) }
             : g).ToList();
         var e = system.NewVector();
         e[layout.IndexOfNode(output)] = 1;

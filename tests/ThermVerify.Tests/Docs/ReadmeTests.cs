@@ -21,7 +21,9 @@ public class ReadmeTests
         var from = output.IndexOf("Buffer stability:", StringComparison.Ordinal);
         var to = output.IndexOf("Findings:", StringComparison.Ordinal);
         Assert.True(from > 0 && to > from, "the check prints the buffer's sections before the findings");
-        var shown = output[..from] + "[... sections on the buffer: stability, headroom, static errors, recovery after sampling, noise ...]\n\n" + output[to..];
+        Assert.Contains("Noise of a reading:", output[from..to]);
+        var shown = output[..from] + "[... sections on the buffer: stability, headroom, static errors, recovery after sampling, noise; " +
+                    "then the noise of a reading, as docs/user-guide.md shows it ...]\n\n" + output[to..];
         DocBlocks.AssertCurrent(Readme, "readme-check", shown);
     }
 

@@ -44,11 +44,15 @@ public sealed class UserGuideTests : IDisposable
             Shown(["check", Copy("cold-storage-logger.toml"), "--report", "report", "--junit", "junit.xml", "--json", "check.json"]));
     }
 
-    /// <summary>The logger with the guide's edit: the acquisition time its first remedy asks for, rounded up.</summary>
+    /// <summary>
+    /// The logger with the guide's edits: the acquisition time the settling finding's first remedy asks for, rounded up,
+    /// and the firmware averaging the noise finding's remedy asks for, rounded up to a power of two.
+    /// </summary>
     private string FixedLogger() => Copy("cold-storage-logger.toml", text =>
     {
         Assert.Contains("acquisition_time = \"2 us\"", text);
-        return text.Replace("acquisition_time = \"2 us\"", "acquisition_time = \"12 us\"");
+        Assert.DoesNotContain("[noise]", text);
+        return text.Replace("acquisition_time = \"2 us\"", "acquisition_time = \"12 us\"") + "\n[noise]\nreadings_averaged = 16\n";
     });
 
     [Fact]

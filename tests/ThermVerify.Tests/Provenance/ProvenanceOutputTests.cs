@@ -127,7 +127,7 @@ public sealed class ProvenanceOutputTests : IDisposable
     public void Compare_names_each_design_by_its_files()
     {
         var other = In("freezer-copy.toml");
-        File.WriteAllText(other, File.ReadAllText(Design).Replace("budget", "# a changed copy\nbudget", StringComparison.Ordinal));
+        File.WriteAllText(other, File.ReadAllText(Design).Replace("\nbudget = ", "\n# a changed copy\nbudget = ", StringComparison.Ordinal));
         var run = CliRunner.Run("compare", Design, other, "--no-remedies");
         Assert.Contains($"  run      thermverify {ToolVersion.Current}, engine built-in; sampling-points 25, max-conversions 20000\n", run.Output);
         Assert.Contains($"  files A  sha256 {Digest.Sha256[..16]}… (table-sensor-freezer.toml, table-47k-rt.csv)\n", run.Output);

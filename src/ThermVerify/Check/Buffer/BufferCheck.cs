@@ -27,7 +27,7 @@ internal static class BufferCheck
             .Select(i => design.Check.Range.MinCelsius + i * (design.Check.Range.MaxCelsius - design.Check.Range.MinCelsius) / (NoiseTemperatures - 1))
             .Distinct().ToArray();
         var noise = BufferNoise.Run(design, grid, options.Engine);
-        var findings = BufferFindingRules.Evaluate(design, points, stability, headroom, recovery, noise);
+        var findings = BufferFindingRules.Evaluate(design, points, stability, headroom, recovery);
         return new BufferReport(stability, headroom, statics, recovery, noise, findings);
     }
 }

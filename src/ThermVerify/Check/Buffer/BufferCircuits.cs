@@ -16,22 +16,18 @@ internal static class BufferCircuits
     public const string OpAmpName = "Xbuffer";
 
     /// <summary>The closed sampling switch, as a resistor; its noise is what leaves kT/C on the sampling capacitor.</summary>
-    public const string SwitchResistor = "Rswitch";
+    public const string SwitchResistor = Noise.SamplingNoiseCircuit.SwitchResistor;
 
-    public const string SamplingCapacitor = "Csample";
+    public const string SamplingCapacitor = Noise.SamplingNoiseCircuit.SamplingCapacitor;
 
     /// <summary>Where the step of the second stability view is applied: the buffer's input.</summary>
     public const string StepSource = "Vstep";
-
-    private const double MinimumSwitchOhms = 1e-3;
 
     /// <summary>The front end during an acquisition at one temperature (no average sampling current: the switch is closed).</summary>
     public static Circuit Acquiring(FrontEndDesign design, double celsius)
     {
         Require(design);
-        var elements = FrontEndCircuit.Dc(design, null, celsius).Elements.ToList();
-        AddSampling(elements, design);
-        return new Circuit(elements, celsius);
+        return Noise.SamplingNoiseCircuit.Acquiring(design, celsius);
     }
 
     /// <summary>
@@ -45,7 +41,7 @@ internal static class BufferCircuits
         var elements = FrontEndCircuit.Dc(design, null).Elements.Where(e => !divider.Contains(e.Name)).ToList();
         elements.Add(new VoltageSource(StepSource, FrontEndNodes.Divider, Circuit.Ground,
             new PulseWaveform(fromVolts, toVolts, atSeconds, 0, 0, double.MaxValue, 0)));
-        AddSampling(elements, design);
+        Noise.SamplingNoiseCircuit.AddSampling(elements, design);
         return new Circuit(elements);
     }
 
@@ -59,12 +55,4 @@ internal static class BufferCircuits
     internal static BufferSpec Require(FrontEndDesign design) =>
         design.Buffer ?? throw new ArgumentException(
             $"Design '{design.Name}' has no [buffer] section; the buffer analyses need one (add [buffer] with gain_bandwidth and supply).");
-
-    private static void AddSampling(List<Element> elements, FrontEndDesign design)
-    {
-        var adc = design.Adc;
-        if (!(adc.SamplingCapacitanceFarads > 0)) return;
-        elements.Add(new Resistor(SwitchResistor, FrontEndCircuit.PinNode(design), FrontEndNodes.Hold, Math.Max(adc.SwitchResistanceOhms, MinimumSwitchOhms)));
-        elements.Add(new Capacitor(SamplingCapacitor, FrontEndNodes.Hold, Circuit.Ground, adc.SamplingCapacitanceFarads));
-    }
 }

@@ -10,14 +10,15 @@ namespace ThermVerify.Check.Buffer;
 /// <summary>
 /// The buffer's findings. Failures: a phase margin below the design's minimum (buffer.minimum_phase_margin, 45° by
 /// default) and any stretch where the input leaves its common-mode range or the output its swing. Warnings:
-/// the buffer's share of the settling error and the sampled noise where each exceeds ½ LSB, failing when its own size
-/// exceeds the budget (the static errors are the check's buffer column, FindingRules). Stability has no
+/// the buffer's share of the settling error where it exceeds ½ LSB, failing when its own size exceeds the budget (the
+/// static errors are the check's buffer column, FindingRules; the op-amp's noise counts in the check's noise finding,
+/// Noise/NoiseFindingRules, with every other source of noise). Stability has no
 /// voltage size, so its sizes are NaN (null in JSON).
 /// </summary>
 internal static class BufferFindingRules
 {
     public static IReadOnlyList<Finding> Evaluate(FrontEndDesign design, IReadOnlyList<CheckPoint> points, StabilityReport stability,
-        HeadroomResult headroom, RecoveryResult? recovery, NoiseReport noise)
+        HeadroomResult headroom, RecoveryResult? recovery)
     {
         var model = new ClosedFormModel(design);
         var b = BufferCircuits.Require(design);
@@ -80,18 +81,6 @@ internal static class BufferFindingRules
                 null, rec.BufferShareVolts, remedies));
         }
 
-        var noisy = noise.Points.Where(p => p.RmsVolts > lsb / 2).ToList();
-        if (noisy.Count > 0)
-        {
-            var p = noise.Worst;
-            var n = (int)Math.Ceiling(Math.Pow(p.RmsVolts / (lsb / 2), 2));
-            findings.Add(new Finding("buffer-noise", noisy.Any(q => q.RmsKelvin > design.Check.BudgetAt(q.Celsius)) ? Severity.Fail : Severity.Warn,
-                "the sampled noise exceeds ½ LSB rms: codes flicker",
-                noisy[0].Celsius, noisy[^1].Celsius, p.Celsius, p.RmsVolts, p.RmsLsb, p.RmsKelvin,
-                I($"largest contributor {p.Contributions[0].Element} ({p.Contributions[0].Label}) {p.Contributions[0].RmsVolts * 1e6:0.#} µV rms; ") +
-                I($"averaging {n} conversions in firmware would bring it within ½ LSB (white noise, σ/√N; a firmware change the check does not model)"),
-                null, p.RmsVolts, []));
-        }
         return findings;
     }
 

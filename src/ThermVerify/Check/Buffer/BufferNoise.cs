@@ -108,16 +108,6 @@ internal static class BufferNoise
         return new NoiseReport(FromHertz, to, points, tau, rho, averaging, method);
     }
 
-    /// <summary>Variance of the mean of N samples of a process with correlation ρ^k at lag k, over the variance of one (AR(1), from memory).</summary>
-    public static double CorrelatedFactor(int n, double rho)
-    {
-        var sum = 1.0;
-        var power = 1.0;
-        for (var k = 1; k < n; k++)
-        {
-            power *= rho;
-            sum += 2 * (1 - (double)k / n) * power;
-        }
-        return sum / n;
-    }
+    /// <summary>Variance of the mean of N samples of a process with correlation ρ^k at lag k, over the variance of one.</summary>
+    public static double CorrelatedFactor(int n, double rho) => Noise.ReadingNoiseAnalysis.CorrelatedFactor(n, rho);
 }

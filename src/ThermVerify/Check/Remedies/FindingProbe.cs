@@ -21,14 +21,20 @@ internal sealed class FindingProbe(string findingId, double celsius, PrechargeCa
     {
         if (FindingId == "buffer-noise")
             return Buffer.BufferNoise.Run(design, [Celsius], options.Engine).Worst.RmsVolts;
+        if (FindingId is Noise.NoiseFindingRules.NoiseId or Noise.NoiseFindingRules.RampLagId)
+        {
+            var n = Noise.ReadingNoiseAnalysis.Reading(design, new ClosedFormModel(design), Celsius, SampledFrontEnd(design));
+            return FindingId == Noise.NoiseFindingRules.NoiseId ? n.CoveredVolts : n.RampLagVolts;
+        }
         var sampling = FindingId is "settling" or "converter" or FindingRules.OverBudgetId;
         IReadOnlyList<PrechargeCase>? cases = precharge is null ? null : [precharge];
         SampleKinds? kinds = !sampling ? null : first switch { true => SampleKinds.FirstOnly, false => SampleKinds.SteadyOnly, _ => SampleKinds.Both };
-        var e = CheckEvaluation.Run(design, [Celsius], options with { MaximumSamplingPoints = 2, Threads = 1 }, cases, kinds);
+        var e = CheckEvaluation.Run(design, [Celsius], options with { MaximumSamplingPoints = 2, Threads = 1 }, cases, kinds,
+            noise: FindingId == FindingRules.OverBudgetId);
         var p = e.Points[0];
         return FindingId switch
         {
-            FindingRules.OverBudgetId => double.IsFinite(p.ErrorKelvin) ? Math.Abs(p.ErrorKelvin) : double.PositiveInfinity,
+            FindingRules.OverBudgetId => double.IsFinite(p.ErrorKelvin) ? Math.Abs(p.ErrorKelvin) + p.NoiseKelvin + p.RampLagKelvin : double.PositiveInfinity,
             "settling" => first switch
             {
                 true => Math.Abs(e.Offsets.FirstVolts[0][0]),
@@ -42,6 +48,21 @@ internal sealed class FindingProbe(string findingId, double celsius, PrechargeCa
             "converter" => ConverterShift(e, p),
             _ => double.NaN,
         };
+    }
+
+    private (FrontEndDesign FrontEnd, Noise.ReadingNoiseAnalysis.SampledNoise Noise)? lastSampled;
+
+    /// <summary>
+    /// The front end's sampled noise at the probe's temperature, analysed again only when the front end changed (a
+    /// search over the averaging or the converter's noise leaves it as it is).
+    /// </summary>
+    private Noise.ReadingNoiseAnalysis.SampledNoise SampledFrontEnd(FrontEndDesign design)
+    {
+        var frontEnd = Noise.ReadingNoiseAnalysis.FrontEndOnly(design);
+        if (lastSampled is { } last && last.FrontEnd.Equals(frontEnd)) return last.Noise;
+        var sampled = Noise.ReadingNoiseAnalysis.Sample(frontEnd, Celsius, options.Engine, density: false);
+        lastSampled = (frontEnd, sampled);
+        return sampled;
     }
 
     /// <summary>What the finding is held to: the budget at its temperature for the total, ½ LSB at the pin for an effect.</summary>
@@ -61,5 +82,5 @@ internal sealed class FindingProbe(string findingId, double celsius, PrechargeCa
     /// <summary>Whether a finding has a probe at all (the buffer's loop, headroom and recovery are searched by their own analyses).</summary>
     public static bool Supports(string findingId) =>
         findingId is FindingRules.OverBudgetId or "settling" or "reservoir-recovery" or "dc-loading" or "buffer-static" or "self-heating" or "converter"
-            or "buffer-noise";
+            or "buffer-noise" or Noise.NoiseFindingRules.NoiseId or Noise.NoiseFindingRules.RampLagId;
 }

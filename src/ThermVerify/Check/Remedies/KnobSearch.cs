@@ -30,11 +30,7 @@ internal static class KnobSearch
         var current = knob.Current(design);
         var limit = knob.Limit(design);
         if (knob.Integer)
-        {
-            for (var v = Math.Floor(current ?? 0) + 1; v <= limit; v++)
-                if (Ok(v)) return v;
-            return null;
-        }
+            return Whole(knob.Better, current ?? 0, limit, Ok);
         if (knob.Better == Better.Higher)
         {
             if (current is not { } from)
@@ -50,5 +46,25 @@ internal static class KnobSearch
         if (limit > 0) return MonotoneSearch.LargestPassing(limit, now, Ok, Precision);
         if (!Ok(0)) return null;
         return MonotoneSearch.LargestPassing(now * 1e-6, now, Ok, Precision) ?? 0;
+    }
+
+    /// <summary>
+    /// The whole number nearest the design's own (exclusive) towards the limit (inclusive) that passes, by bisection on
+    /// the monotone test; null when the limit does not pass either.
+    /// </summary>
+    private static double? Whole(Better better, double current, double limit, Func<double, bool> ok)
+    {
+        var up = better == Better.Higher;
+        var first = up ? Math.Floor(current) + 1 : Math.Ceiling(current) - 1;
+        if (up ? first > limit : first < limit) return null;
+        if (!ok(limit)) return null;
+        // Invariant: `passing` passes; everything strictly between `failing` and the start side fails or is untested.
+        double failing = up ? first - 1 : first + 1, passing = limit;
+        while (Math.Abs(passing - failing) > 1)
+        {
+            var middle = Math.Floor((passing + failing) / 2);
+            if (ok(middle)) passing = middle; else failing = middle;
+        }
+        return passing;
     }
 }

@@ -163,6 +163,29 @@ internal static class Knobs
 
     private const int DesignDefaultsMaxBits = 24;
 
+    /// <summary>The most conversions a remedy asks the firmware to average: beyond it a reading takes too long to be one.</summary>
+    public const int MostReadingsAveraged = 1024;
+
+    public static readonly Knob ReadingsAveraged = new("noise.readings_averaged", "conversions", Better.Higher,
+        d => d.Noise.ReadingsAveraged, (d, v) => d with { Noise = d.Noise with { ReadingsAveraged = (int)Math.Round(v) } },
+        _ => MostReadingsAveraged, "average in firmware, per reading, a mean of at least")
+    {
+        Integer = true,
+    };
+
+    /// <summary>Fewer conversions per reading: the mean is younger, so it lags a ramp less (at the cost of noise).</summary>
+    public static readonly Knob FewerReadings = new("noise.readings_averaged", "conversions", Better.Lower,
+        d => d.Noise.ReadingsAveraged, (d, v) => d with { Noise = d.Noise with { ReadingsAveraged = (int)Math.Round(v) } },
+        _ => 1, "average in firmware, per reading, a mean of at most")
+    {
+        Integer = true,
+    };
+
+    /// <summary>The converter's own noise, searched as a voltage (the design may have declared it in LSB, or not at all).</summary>
+    public static readonly Knob ConverterNoise = new("adc.noise", "V", Better.Lower,
+        d => Noise.ReadingNoiseAnalysis.ConverterVolts(d, new FrontEnd.ClosedFormModel(d).Adc.LsbVolts),
+        (d, v) => d with { Adc = d.Adc with { NoiseVolts = v, NoiseLsb = null } }, _ => 0, "choose a converter whose own rms noise is at most");
+
     /// <summary>A value that has a sign (or none) and helps by shrinking: searched by magnitude towards zero, sign kept.</summary>
     private static Knob Magnitude(string key, string unit, Func<FrontEndDesign, double> get, Func<FrontEndDesign, double, FrontEndDesign> set, string action) =>
         new(key, unit, Better.Lower, d => (double?)Math.Abs(get(d)), (d, v) => set(d, (get(d) < 0 ? -1 : 1) * v), _ => 0, action)
@@ -227,6 +250,13 @@ internal static class Knobs
                 return [Bits];
             case "buffer-recovery" when buffered:
                 return design.Buffer!.SlewRateVoltsPerSecond is null ? [BufferGainBandwidth] : [BufferGainBandwidth, BufferSlewRate];
+            case Noise.NoiseFindingRules.NoiseId:
+                // The op-amp first where it is the largest source; averaging otherwise (it helps every source but the filtered part).
+                return worst.Noise?.Shares.FirstOrDefault()?.Source == Buffer.BufferCircuits.OpAmpName && design.Buffer!.NoiseVoltsPerRootHertz > 0
+                    ? [BufferNoise, ReadingsAveraged, Reservoir, ConverterNoise]
+                    : [ReadingsAveraged, Reservoir, ConverterNoise];
+            case Noise.NoiseFindingRules.RampLagId:
+                return [.. design.Noise.ReadingsAveraged > 1 ? [FewerReadings] : Array.Empty<Knob>(), .. design.Filter.SeriesResistorOhms > 0 ? [SeriesResistor] : Array.Empty<Knob>()];
             case "buffer-noise" when buffered:
                 return design.Buffer!.NoiseVoltsPerRootHertz > 0 ? [BufferNoise] : [];
             case "buffer-stability" when buffered:

@@ -256,8 +256,14 @@ internal sealed class RemedyFinder
     private IReadOnlyList<Knob> OverBudgetKnobs(CheckPoint worst)
     {
         var knobs = new List<Knob>();
+        var noise = worst.NoiseKelvin + worst.RampLagKelvin;
+        // The noise (or the lag on the ramp) first where it breaks the budget that the static error leaves.
+        if (worst.NoiseKelvin > 0 && double.IsFinite(worst.ErrorKelvin) && Math.Abs(worst.ErrorKelvin) + worst.RampLagKelvin <= worst.BudgetKelvin)
+            knobs.AddRange(Knobs.For(Noise.NoiseFindingRules.NoiseId, Design, worst));
+        if (worst.RampLagKelvin > 0 && double.IsFinite(worst.ErrorKelvin) && Math.Abs(worst.ErrorKelvin) + worst.NoiseKelvin <= worst.BudgetKelvin)
+            knobs.AddRange(Knobs.For(Noise.NoiseFindingRules.RampLagId, Design, worst));
         foreach (var (_, id, kelvin) in FindingRules.ByContribution(worst.Contributions))
-            if (kelvin != 0 && (!double.IsFinite(worst.ErrorKelvin) || Math.Abs(worst.ErrorKelvin - kelvin) <= worst.BudgetKelvin))
+            if (kelvin != 0 && (!double.IsFinite(worst.ErrorKelvin) || Math.Abs(worst.ErrorKelvin - kelvin) + noise <= worst.BudgetKelvin))
                 knobs.AddRange(Knobs.For(id, Design, worst));
         return [.. knobs.DistinctBy(k => k.Key)];
     }
@@ -345,6 +351,7 @@ internal sealed class RemedyFinder
         "W/K" => EngineeringFormat.Format(value, UnitKind.WattPerKelvin, 4),
         "V/√Hz" => EngineeringFormat.Format(value, UnitKind.VoltPerRootHertz, 4),
         "ppm/K" => I($"{value * 1e6:0.###} ppm/K"),
+        "conversions" => I($"{value:0} conversions"),
         "fraction" => I($"{value * 100:0.####} %"),
         _ => I($"{value:0.###} {knob.Unit}"),
     };

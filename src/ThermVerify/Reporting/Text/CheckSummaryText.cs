@@ -35,17 +35,20 @@ public static class CheckSummaryText
         text.Append(VerdictLine(result));
         text.AppendLine();
 
-        text.AppendLine("Reported-temperature error and its causes (K; the columns add up to the error, effects the design does not have are left out):");
+        text.AppendLine("Reported-temperature error and its causes (K; the causes add up to the error, effects the design does not have are left out; " +
+                        "the noise of a reading counts in the budget beside the error):");
         var columns = ReportFormat.ContributionColumns(result.Points);
-        var table = new TextTable(["T (°C)", "ideal", "sample", "code", "reported (°C)", "error", .. columns.Select(c => c.Header), "budget", "reading"]);
+        var table = new TextTable(["T (°C)", "ideal", "sample", "code", "reported (°C)", "error", .. columns.Select(c => c.Header),
+            ReportFormat.NoiseHeader(result.Points), "budget", "reading"]);
         foreach (var p in Selected(result.Points, worst, tableRows))
             table.AddRow([N(p.Celsius, "0.##"), V(p.IdealVolts, UnitKind.Volt), V(p.SampleVolts, UnitKind.Volt), p.Code.ToString(CultureInfo.InvariantCulture),
                 double.IsFinite(p.ReportedCelsius) ? N(p.ReportedCelsius, "0.000") : "none", K(p.ErrorKelvin, unit: false),
-                .. columns.Select(c => K(c.Kelvin(p), unit: false)), N(p.BudgetKelvin, "0.###"), ReportFormat.ReadingCell(p)]);
+                .. columns.Select(c => K(c.Kelvin(p), unit: false)), ReportFormat.NoiseCell(p), N(p.BudgetKelvin, "0.###"), ReportFormat.ReadingCell(p)]);
         text.Append(table);
         text.AppendLine();
 
         text.Append(BufferSectionRender.Text(result.Buffer));
+        text.Append(BufferSectionRender.Text(NoiseSections.Build(result.Noise)));
         if (result.Findings.Count == 0) text.AppendLine("Findings: none; every effect is within ½ LSB.");
         else text.AppendLine("Findings:");
         foreach (var f in result.Findings) AppendFinding(text, f);

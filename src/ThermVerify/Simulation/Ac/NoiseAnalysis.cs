@@ -18,12 +18,13 @@ internal static class NoiseAnalysis
     public const string AnalysisName = "Noise";
 
     /// <param name="start">Where the operating point's Newton starts (see <see cref="SmallSignalSystem"/>).</param>
+    /// <param name="elementCelsius">Resistances whose thermal noise is at a temperature of their own (by element name); the rest at the circuit's.</param>
     public static NoiseResult Run(Circuit circuit, string outputNode, FrequencySweep sweep, string referenceNode = Circuit.Ground,
-        Action<BoundSystem>? start = null)
+        Action<BoundSystem>? start = null, IReadOnlyDictionary<string, double>? elementCelsius = null)
     {
         var system = new SmallSignalSystem(circuit, AnalysisName, start);
         var layout = system.System.Layout;
-        var noise = new NoiseContext(circuit.TemperatureCelsius, layout.Ground);
+        var noise = new NoiseContext(circuit.TemperatureCelsius, layout.Ground, elementCelsius);
         foreach (var s in system.System.Stamps)
             s.CollectNoise(noise);
         var generators = noise.Generators;

@@ -104,7 +104,7 @@ internal sealed class DiodeStamp : Stamp
         // Shot noise 2q|I| of the junction current and thermal noise of the series resistance.
         n.Add(Element.Name, "shot", junction, cathode, 2 * PhysicalConstants.ElementaryChargeCoulombs * Math.Abs(lastCurrent), 0);
         if (seriesConductance > 0)
-            n.Add(Element.Name, "series resistance", anode, junction, n.ThermalCurrentPsd(seriesConductance), 0);
+            n.Add(Element.Name, "series resistance", anode, junction, n.ThermalCurrentPsd(Element.Name, seriesConductance), 0);
     }
 
     public double SmallSignalConductance => lastConductance;

@@ -44,7 +44,7 @@ internal sealed class ResistorStamp : Stamp
     public override void LoadStatic(double[] matrix) => slots.Add(matrix, conductance);
 
     public override void CollectNoise(NoiseContext noise) =>
-        noise.Add(Element.Name, "thermal", a, b, noise.ThermalCurrentPsd(conductance), 0);
+        noise.Add(Element.Name, "thermal", a, b, noise.ThermalCurrentPsd(Element.Name, conductance), 0);
 
     public override double CurrentAmperes(double[] solution) => (solution[a] - solution[b]) * conductance;
 

@@ -31,7 +31,7 @@ internal sealed class TimedSwitchStamp : Stamp
 
     /// <summary>Thermal noise of the resistance the switch has at the operating point (t = 0).</summary>
     public override void CollectNoise(NoiseContext noise) =>
-        noise.Add(Element.Name, "thermal", a, b, noise.ThermalCurrentPsd(sw.Schedule.IsClosed(0) ? gOn : gOff), 0);
+        noise.Add(Element.Name, "thermal", a, b, noise.ThermalCurrentPsd(Element.Name, sw.Schedule.IsClosed(0) ? gOn : gOff), 0);
 
     public override void CollectBreakpoints(double fromSeconds, double toSeconds, List<double> into) =>
         sw.Schedule.CollectEdges(fromSeconds, toSeconds, into);
