@@ -197,12 +197,20 @@ internal sealed class TransientSimulation
         var order = StepFormulas.Order(formula);
         var previousStep = TimeSeconds - history.Times[1];
         var retried = false;
+        var lastTried = double.PositiveInfinity;
         while (true)
         {
             if (retried && h < options.MinStepSeconds)
                 throw StepCollapsed();
+            // Retries never end by themselves when each one fails: Ctrl+C and a time limit must reach them too.
+            Work.ThrowIfCancelled();
             var tNew = Math.Abs(TimeSeconds + h - stop) <= StopQueue.Epsilon(stop) ? stop : TimeSeconds + h;
             h = tNew - TimeSeconds;
+            // Far from t = 0 the time itself has a resolution (an ulp of 1 ms is 2e-19 s): a smaller step rounds back to
+            // the one just rejected, and the retry would repeat forever above the minimum step. That is a collapse too.
+            if (retried && h >= lastTried)
+                throw StepCollapsed(h);
+            lastTried = h;
             c.Mode = AnalysisMode.Transient;
             c.TimeSeconds = tNew;
             c.StepSeconds = h;
@@ -240,9 +248,11 @@ internal sealed class TransientSimulation
     /// The error for a step that fell below the minimum: an ill-conditioned matrix is named as the cause (with the
     /// nodes it loses digits on), otherwise the unknown changing fastest.
     /// </summary>
-    private SimulationException StepCollapsed()
+    private SimulationException StepCollapsed(double? resolutionSeconds = null)
     {
-        var where = $" at t = {TimeSeconds:G9} s, where the step fell below {options.MinStepSeconds:G3} s";
+        var where = resolutionSeconds is { } r
+            ? $" at t = {TimeSeconds:G9} s, where the step fell to the time's own resolution ({r:G3} s cannot be made smaller there)"
+            : $" at t = {TimeSeconds:G9} s, where the step fell below {options.MinStepSeconds:G3} s";
         if (system.IsIllConditioned)
             return system.IllConditioned(AnalysisName, where);
         return new ConvergenceException(

@@ -24,4 +24,22 @@ public class SeedRegressionTests
         if (seed == 237)
             Assert.True(result.Comparisons.Single(c => c.Analysis == DifferentialAnalysis.OperatingPoint).Difference <= 1e-12);
     }
+
+    /// <summary>
+    /// Seed 515 (a follower, three switches and a diode) once kept the large run busy for hours: at t = 4.5 ms a
+    /// rejected step of 2.3e-18 s was cut, rounded back to the same step on a time of that size (its resolution is
+    /// 8.7e-19 s), rejected again, and so on forever, above the 1e-18 s minimum and out of reach of the time guard. The
+    /// retry now ends as a collapsed step (here: the matrix is ill-conditioned, its nodes named), and observes Ctrl+C.
+    /// </summary>
+    [Fact]
+    public void A_step_that_cannot_shrink_below_the_times_resolution_ends_the_transient_with_its_reason()
+    {
+        var rc = RandomCircuitGenerator.Generate(515, CircuitClass.Nonlinear, 15)!;
+        rc = RandomTiming.Apply(rc, StabilityScreen.PolesOf(rc.Circuit), rc.Seed);
+        var simulation = new ThermVerify.Simulation.TransientSimulation(rc.Circuit,
+            new ThermVerify.Simulation.TransientOptions { StopTimeSeconds = rc.TransientStopSeconds, MaxStepSeconds = rc.TransientStopSeconds / 100 });
+        var error = Assert.ThrowsAny<ThermVerify.Simulation.SimulationException>(() => simulation.AdvanceTo(rc.TransientStopSeconds));
+        Assert.Contains("the step fell to the time's own resolution", error.Message);
+        Assert.Contains("ill-conditioned", error.Message);
+    }
 }
