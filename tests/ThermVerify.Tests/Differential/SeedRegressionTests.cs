@@ -42,4 +42,28 @@ public class SeedRegressionTests
         Assert.Contains("the step fell to the time's own resolution", error.Message);
         Assert.Contains("ill-conditioned", error.Message);
     }
+
+    /// <summary>
+    /// The large run also stalled after seed 761, in the stability screen: MathNet's managed SVD (behind
+    /// ConditionNumber) did not return on that pencil. The screen now takes the 1-norm condition number from the LU's
+    /// inverse; both circuits are screened (or refused with a reason) and the run goes on.
+    /// </summary>
+    [Theory]
+    [InlineData(762)]
+    [InlineData(763)]
+    public void The_stability_screen_returns_on_the_circuits_after_seed_761(int seed)
+    {
+        var circuitClass = seed % 2 == 0 ? CircuitClass.Linear : CircuitClass.Nonlinear;
+        var rc = RandomCircuitGenerator.Generate(seed, circuitClass, 15);
+        Assert.NotNull(rc);
+        try
+        {
+            var poles = StabilityScreen.PolesOf(rc.Circuit);
+            Assert.All(poles.Values, p => Assert.True(double.IsFinite(p.Real) && double.IsFinite(p.Imaginary)));
+        }
+        catch (Exception e) when (e is InvalidOperationException or ThermVerify.Simulation.SimulationException)
+        {
+            Assert.False(string.IsNullOrWhiteSpace(e.Message));
+        }
+    }
 }
