@@ -28,6 +28,7 @@ internal static class EffectEstimator
             // The divider output depends on R_s/(R_s + R_f) only, so dV/dR_f = −(R_s/R_f)·dV/dR_s.
             drift = (design.Buffer?.Gain ?? 1) * driftOhms * -(point.SensorOhms / divider.FixedResistorOhms) *
                     DividerFormula.SlopeVoltsPerOhm(divider.SensorSide, divider.ExcitationVolts, point.SensorOhms, divider.FixedResistorOhms);
+            leads = DividerLeadVolts(design, divider, point);
         }
         else
             (leakage, excitation, leads) = CurrentLoading(design, point);
@@ -77,6 +78,16 @@ internal static class EffectEstimator
         var bare = Read(0, false);
         var leaking = Read(drawn, false);
         return (leaking - bare, bare - point.IdealVolts, Read(drawn, true) - leaking);
+    }
+
+    /// <summary>2 wires to a divider's sensor: the divider with R_s + 2·R_L against R_s, times the buffer's gain.</summary>
+    private static double DividerLeadVolts(FrontEndDesign design, DividerSpec divider, ClosedFormPoint point)
+    {
+        if (design.Wiring is not { } w) return 0;
+        var celsius = w.LeadCelsius ?? design.Check.BoardCelsius ?? point.Celsius;
+        var leads = 2 * w.LeadOhms * (1 + w.LeadTempcoPerKelvin * (celsius - 25));
+        double Out(double sensorOhms) => DividerFormula.OutputVolts(divider.SensorSide, divider.ExcitationVolts, sensorOhms, divider.FixedResistorOhms);
+        return (design.Buffer?.Gain ?? 1) * (Out(point.SensorOhms + leads) - Out(point.SensorOhms));
     }
 
     /// <summary>The dominant time constant of the acquisition without a reservoir: R_s·(C_sh + C_pin) + R_on·C_sh.</summary>

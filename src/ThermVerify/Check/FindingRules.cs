@@ -28,6 +28,7 @@ internal static class FindingRules
             p => p.Simulated.ConverterVolts, p => p.Contributions.ConverterKelvin, p => ConverterCause(design, p, lsb), p => p.Simulated.ConverterVolts, simulated: false);
         Add("dc-loading", (design.CurrentSource is null ? "DC error at the pin: pin leakage, fixed-resistor drift"
                 : "DC error at the pin: pin leakage, the current source's drift and output resistance, the reference resistor's drift and loading")
+                + (design.Wiring is not null && design.CurrentSource is null ? ", sensor leads" : "")
                 + (design.Protection is { HasClamps: true } ? ", clamp-diode leakage" : "") + (design.Protection?.InsulationOhms is null ? "" : ", insulation leakage"),
             p => p.Simulated.DcLoadingVolts, p => p.Contributions.DcLoadingKelvin,
             p => LoadingCause(design, p),
@@ -152,6 +153,9 @@ internal static class FindingRules
                       I($"at {(design.Check.BoardCelsius ?? p.Celsius):0.##} °C {Volts(p.Estimates.FixedDriftVolts)}"));
         if (design.CurrentSource is { } source)
             parts.Add(CurrentWords.Loading(design, source, p));
+        else if (design.Wiring is { } wiring)
+            parts.Add(I($"the 2 leads of {Ohms(wiring.LeadOhms)} each at {(wiring.LeadCelsius ?? design.Check.BoardCelsius ?? p.Celsius):0.##} °C in the sensor's arm ") +
+                      I($"(the divider with R_s + 2·R_L) {Volts(p.Estimates.LeadVolts)}"));
         if (design.Protection is { } protection)
             parts.AddRange(ProtectionWords.Loading(design, protection, p));
         return string.Join(", and ", parts) + CornerNote(p);

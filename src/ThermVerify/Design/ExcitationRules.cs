@@ -3,7 +3,8 @@ namespace ThermVerify.Design;
 /// <summary>
 /// What the excitation asks of the rest of the design: exactly one of [divider] and [current_source]; a current source
 /// reads against a fixed reference, or ratiometrically through its reference resistor, never against itself; and the
-/// parts not yet modelled with a current source (a buffer) are refused rather than guessed.
+/// parts not yet modelled (a buffer behind a current source, 3 or 4 wires to a divider's sensor) are refused rather
+/// than guessed.
 /// </summary>
 internal static class ExcitationRules
 {
@@ -15,9 +16,9 @@ internal static class ExcitationRules
         if (design.Divider is not null && design.CurrentSource is not null)
             throw root.ErrorAtKey("current_source", "both [divider] and [current_source]",
                 "A sensor is excited one way: keep [divider] (a voltage and a fixed resistor) or [current_source] (a current through the sensor).");
-        if (design.Wiring is not null && design.CurrentSource is null)
-            throw root.ErrorAtKey("wiring", "leads are modelled with a current source only",
-                "Remove [wiring], or excite the sensor with a [current_source] (the leads of a divider are not modelled yet).");
+        if (design.Wiring is { Wires: not 2 } && design.CurrentSource is null)
+            throw root.Section("wiring")!.ErrorAtValue("wires", "a divider's sensor is wired with 2 wires",
+                "Write wires = 2 (both leads in the sensor's arm of the divider), or excite the sensor with a [current_source] for 3 or 4 wires.");
         if (design.CurrentSource is not { } source) return;
         if (design.Buffer is not null)
             throw root.ErrorAtKey("buffer", "a buffer behind a current-excited sensor is not modelled",

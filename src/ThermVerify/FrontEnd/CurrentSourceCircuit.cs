@@ -49,9 +49,7 @@ internal static class CurrentSourceCircuit
             return;
         }
         elements.Add(new SensorResistor(SensorElement, SensorTop, SensorBottom, design.Sensor.Build()));
-        Resistor Lead(string name, string a, string b) => wiring.LeadCelsius is { } t
-            ? new Resistor(name, a, b, wiring.LeadOhms * (1 + wiring.LeadTempcoPerKelvin * (t - 25)))
-            : FrontEndCircuit.FixedResistor(name, a, b, wiring.LeadOhms, wiring.LeadTempcoPerKelvin, boardCelsius);
+        Resistor Lead(string name, string a, string b) => FrontEndCircuit.LeadResistor(wiring, name, a, b, boardCelsius);
         elements.Add(Lead("Rlead1", top, SensorTop));
         elements.Add(Lead("Rlead2", SensorBottom, Circuit.Ground));
         if (wiring.Wires == 3)

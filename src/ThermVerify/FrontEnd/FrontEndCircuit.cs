@@ -101,7 +101,16 @@ internal static class FrontEndCircuit
             var high = divider.SensorSide == SensorSide.High;
             var fixedNodes = high ? (Divider, Circuit.Ground) : (Excitation, Divider);
             elements.Add(new VoltageSource("Vexc", Excitation, Circuit.Ground, new DcWaveform(divider.ExcitationVolts)));
-            elements.Add(new SensorResistor(SensorElement, high ? Excitation : Divider, high ? Divider : Circuit.Ground, design.Sensor.Build()));
+            var (top, bottom) = high ? (Excitation, Divider) : (Divider, Circuit.Ground);
+            if (design.Wiring is { LeadOhms: > 0 } wiring)
+            {
+                // Two wires: both leads in the sensor's arm, R_s + 2·R_L at the leads' own temperature.
+                elements.Add(new SensorResistor(SensorElement, SensorTop, SensorBottom, design.Sensor.Build()));
+                elements.Add(LeadResistor(wiring, "Rlead1", top, SensorTop, board));
+                elements.Add(LeadResistor(wiring, "Rlead2", SensorBottom, bottom, board));
+            }
+            else
+                elements.Add(new SensorResistor(SensorElement, top, bottom, design.Sensor.Build()));
             elements.Add(FixedResistor(FixedElement, fixedNodes.Item1, fixedNodes.Item2, divider.FixedResistorOhms, divider.FixedTempcoPerKelvin, board));
         }
 
@@ -139,6 +148,22 @@ internal static class FrontEndCircuit
         boardCelsius is { } board
             ? new Resistor(name, a, b, ohms * (1 + tempco * (board - 25)))
             : new Resistor(name, a, b, ohms, tempco);
+
+    /// <summary>
+    /// One lead of the sensor's wiring: at the leads' own temperature, or with the board (fixed or following the sweep).
+    /// A lead of 0 Ω (allowed in the design, and the end of a remedy's search) is simulated as 1 mΩ where the wiring
+    /// needs its nodes (a current source's 3 or 4 wires; a divider's sensor then has no leads at all): a resistor needs a
+    /// resistance, and a smaller one leaves the matrix ill-conditioned. 2 mΩ moves a Pt100 by 5 mK.
+    /// </summary>
+    internal static Resistor LeadResistor(WiringSpec wiring, string name, string a, string b, double? boardCelsius)
+    {
+        var ohms = Math.Max(wiring.LeadOhms, MinimumLeadOhms);
+        return wiring.LeadCelsius is { } t
+            ? new Resistor(name, a, b, ohms * (1 + wiring.LeadTempcoPerKelvin * (t - 25)))
+            : FixedResistor(name, a, b, ohms, wiring.LeadTempcoPerKelvin, boardCelsius);
+    }
+
+    private const double MinimumLeadOhms = 1e-3;
 
     /// <summary>Pin leakage, positive into the pin: it follows the sweep (doubling every N K) or sits at the board temperature.</summary>
     private static Element Leakage(string pin, AdcSpec adc, double? boardCelsius)

@@ -35,7 +35,8 @@ internal static class ProtectionCircuit
         }
         if (p.InsulationOhms is { } ohms)
         {
-            var node = design.Wiring is not null ? SensorTop : Divider;
+            // The sensor's signal wire: its end towards the converter (the bottom of a high-side sensor).
+            var node = design.Wiring is null ? Divider : design.Divider?.SensorSide == SensorSide.High ? SensorBottom : SensorTop;
             if (p.InsulationToVolts == 0)
                 elements.Add(new Resistor(Insulation, node, Circuit.Ground, ohms));
             else

@@ -141,7 +141,8 @@ internal static class ReportFormat
     public static (string Label, string Value) Excitation(Design.FrontEndDesign d)
     {
         if (d.Divider is { } divider)
-            return ("divider", $"sensor on the {(divider.SensorSide == Design.SensorSide.High ? "high" : "low")} side, fixed {V(divider.FixedResistorOhms, UnitKind.Ohm)}, excitation {V(divider.ExcitationVolts, UnitKind.Volt)}");
+            return ("divider", $"sensor on the {(divider.SensorSide == Design.SensorSide.High ? "high" : "low")} side, fixed {V(divider.FixedResistorOhms, UnitKind.Ohm)}, excitation {V(divider.ExcitationVolts, UnitKind.Volt)}" +
+                               (d.Wiring is { } leads ? $", 2 wires of {V(leads.LeadOhms, UnitKind.Ohm)}" : ""));
         var c = d.CurrentSource!;
         return ("current", $"{V(c.CurrentAmperes, UnitKind.Ampere)} through the sensor" +
                            (c.ReferenceResistorOhms is { } r ? $", reference resistor {V(r, UnitKind.Ohm)}" : "") +

@@ -32,8 +32,9 @@ public class WiringTests
         var mismatch = Assert.Throws<DesignException>(() => CurrentDesigns.Pt100(("wiring.wires", "4"), ("wiring.lead_resistance", "\"1 ohm\""),
             ("wiring.current_mismatch", "\"1 %\"")));
         Assert.Equal("wiring.current_mismatch", mismatch.KeyPath);
-        var divider = Assert.Throws<DesignException>(() => Check.TestDesign.Make(("wiring.wires", "2"), ("wiring.lead_resistance", "\"1 ohm\"")));
-        Assert.Equal("wiring", divider.KeyPath);
+        var divider = Assert.Throws<DesignException>(() => Check.TestDesign.Make(("wiring.wires", "3"), ("wiring.lead_resistance", "\"1 ohm\"")));
+        Assert.Equal("wiring.wires", divider.KeyPath);
+        Assert.Contains("a divider's sensor is wired with 2 wires", divider.Message);
     }
 
     [Fact]
@@ -150,5 +151,69 @@ public class WiringTests
         for (var n = 0; n < nodes.Length; n++)
             for (var i = 0; i < temperatures.Length; i++)
                 Tolerance.AssertClose(theirs[n][i], ours[n][i], 0, 1e-6, $"v({nodes[n]}) at {temperatures[i]} °C, {wires} wires");
+    }
+
+    /// <summary>
+    /// 2 wires to a divider's sensor: the divider formula (Kirchhoff's laws) with R_s + 2·R_L(T_L) in the sensor's arm,
+    /// on both sides, simulated and in closed form, exactly (the circuit is linear).
+    /// </summary>
+    [Theory]
+    [InlineData("low")]
+    [InlineData("high")]
+    public void Two_wires_to_a_divider_put_both_leads_in_the_sensors_arm(string side)
+    {
+        var design = Check.TestDesign.Make(("divider.sensor_side", $"\"{side}\""), ("wiring.wires", "2"), ("wiring.lead_resistance", "\"20 ohm\""),
+            ("wiring.lead_temperature", "\"-5 degC\""), ("adc.noise", "\"0 LSB\""));
+        var sensor = design.Sensor.Build();
+        var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToArray();
+        var pin = ((ICheckEngine)BuiltInEngine.Instance).TemperatureSweep(FrontEndCircuit.Dc(design, null), temperatures, [FrontEndNodes.Divider])[0];
+        var result = FrontEndCheck.Run(design, Options);
+        for (var i = 0; i < temperatures.Length; i++)
+        {
+            var rs = sensor.ResistanceOhms(temperatures[i]) + 2 * Lead(20, -5);
+            var expected = side == "low" ? 3.3 * rs / (rs + 10e3) : 3.3 * 10e3 / (rs + 10e3);
+            Tolerance.AssertClose(expected, pin[i], 1e-9, 1e-12, $"{side} side at {temperatures[i]} °C");
+            var p = result.Points[i];
+            Tolerance.AssertClose(expected - p.IdealVolts, p.Estimates.LeadVolts, 1e-9, 1e-12, $"closed form at {temperatures[i]} °C");
+        }
+        var loading = Assert.Single(result.Findings, f => f.Id == "dc-loading");
+        Assert.Contains("the 2 leads of 20 Ω each at -5 °C in the sensor's arm", loading.Cause);
+    }
+
+    [Fact]
+    public void A_divider_leads_remedy_is_the_largest_lead_the_budget_allows_and_passes_when_applied()
+    {
+        var design = Check.TestDesign.Make(("sensor.model", "\"rtd\""), ("sensor.r25", null), ("sensor.beta", null), ("sensor.r0", "\"1000 ohm\""),
+            ("divider.fixed_resistor", "\"4.7 kohm\""), ("wiring.wires", "2"), ("wiring.lead_resistance", "\"2 ohm\""), ("adc.noise", "\"0 LSB\""));
+        var result = FrontEndCheck.Run(design, new CheckOptions { MaximumSamplingPoints = 3 });
+        var remedy = Assert.Single(Assert.Single(result.Findings, f => f.Id == "dc-loading").Remedies, r => r.Key == "wiring.lead_resistance");
+        Assert.InRange(remedy.Value!.Value, 1e-3, 2);
+        Assert.DoesNotContain(FrontEndCheck.Run(design with { Wiring = design.Wiring! with { LeadOhms = remedy.Value.Value } }, Options).Findings,
+            f => f.Id == "dc-loading");
+    }
+
+    [Fact]
+    public void Leads_of_zero_ohms_are_checked_not_refused_by_the_engine()
+    {
+        // Allowed by the loader (and where a remedy's search ends): a divider then has no leads, a current source's
+        // 4 wires get 1 mΩ each, which moves a Pt100 at 1 mA by microvolts through the sense leads' input current.
+        Assert.NotEmpty(FrontEndCheck.Run(Check.TestDesign.Make(("wiring.wires", "2"), ("wiring.lead_resistance", "\"0 ohm\"")), Options).Points);
+        var four = FrontEndCheck.Run(CurrentDesigns.Pt100(("wiring.wires", "4"), ("wiring.lead_resistance", "\"0 ohm\"")), Options);
+        Assert.All(four.Points, p => Assert.InRange(Math.Abs(p.Simulated.DcLoadingVolts), 0, 1e-6));
+    }
+
+    [NgspiceFact]
+    public void A_divider_with_leads_agrees_with_ngspice_within_a_microvolt()
+    {
+        var design = Check.TestDesign.Make(("divider.sensor_side", "\"high\""), ("wiring.wires", "2"), ("wiring.lead_resistance", "\"15 ohm\""),
+            ("divider.fixed_tempco", "\"+50 ppm/K\""));
+        var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToArray();
+        string[] nodes = [FrontEndNodes.Divider, FrontEndNodes.SensorTop, FrontEndNodes.SensorBottom];
+        var circuit = FrontEndCircuit.Dc(design, null);
+        var ours = ((ICheckEngine)BuiltInEngine.Instance).TemperatureSweep(circuit, temperatures, nodes);
+        var theirs = ((ICheckEngine)new NgspiceEngine()).TemperatureSweep(circuit, temperatures, nodes);
+        for (var n = 0; n < nodes.Length; n++)
+            for (var i = 0; i < temperatures.Length; i++)
+                Tolerance.AssertClose(theirs[n][i], ours[n][i], 0, 1e-6, $"v({nodes[n]}) at {temperatures[i]} °C");
     }
 }

@@ -20,6 +20,7 @@ internal static class Knobs
         ["current_source.current_tempco"] = "use a current source with a negligible tempco",
         ["current_source.reference_resistor_tempco"] = "use a reference resistor with a negligible tempco",
         ["wiring.current_mismatch"] = "match the two currents (or calibrate their mismatch out)",
+        ["wiring.lead_resistance"] = "use leads of negligible resistance (or measure them and correct in firmware)",
         ["buffer.offset_voltage"] = "trim (or calibrate) the op-amp's offset out",
         ["buffer.offset_drift"] = "use an op-amp with negligible offset drift (chopper-stabilised)",
         ["buffer.bias_current"] = "use an op-amp with negligible bias current",
@@ -66,6 +67,9 @@ internal static class Knobs
     public static readonly Knob Insulation = new("protection.insulation_resistance", "Ω", Better.Higher,
         d => d.Protection!.InsulationOhms, (d, v) => d with { Protection = d.Protection! with { InsulationOhms = v } },
         _ => 1e13, "keep the insulation from the sensor's wire (cable, connector and board, wet and hot) at no less than");
+
+    public static readonly Knob LeadResistance = Magnitude("wiring.lead_resistance", "Ω", d => d.Wiring!.LeadOhms,
+        (d, v) => d with { Wiring = d.Wiring! with { LeadOhms = v } }, "use leads (each wire, at 25 °C) of at most");
 
     public static readonly Knob FixedTempco = Magnitude("divider.fixed_tempco", "ppm/K", d => d.VoltageDivider.FixedTempcoPerKelvin,
         (d, v) => d with { Divider = d.VoltageDivider with { FixedTempcoPerKelvin = v } }, "use a fixed resistor with a tempco of at most");
@@ -218,6 +222,7 @@ internal static class Knobs
                     (ReferenceResistorTempco, design.CurrentSource?.ReferenceResistorTempcoPerKelvin is not (null or 0) ? Math.Abs(worst.Estimates.ExcitationVolts) : -1),
                     (CurrentTempco, design.CurrentSource is { ReferenceResistorOhms: null, CurrentTempcoPerKelvin: not 0 } ? Math.Abs(worst.Estimates.ExcitationVolts) : -1),
                     (CurrentMismatch, design.Wiring is { Wires: 3, CurrentMismatch: not 0 } ? Math.Abs(worst.Estimates.LeadVolts) : -1),
+                    (LeadResistance, design.Wiring is { Wires: 2, LeadOhms: > 0 } ? Math.Abs(worst.Estimates.LeadVolts) : -1),
                     (ClampLeakage, design.Protection is { HasClamps: true } ? Math.Abs(worst.Estimates.ClampVolts) : -1),
                     (Insulation, design.Protection?.InsulationOhms is not null ? Math.Abs(worst.Estimates.InsulationVolts) : -1),
                 };
