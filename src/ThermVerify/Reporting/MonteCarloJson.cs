@@ -26,6 +26,7 @@ public static class MonteCarloJson
                 units = r.Units,
                 fraction = r.Yield,
                 standardError = r.YieldStandardError,
+                largestNoiseKelvin = r.LargestNoiseKelvin,
             },
             maximumSelfHeatingKelvin = r.MaximumSelfHeatingKelvin,
             percentiles = r.Percentiles,

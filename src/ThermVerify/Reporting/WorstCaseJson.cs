@@ -45,6 +45,7 @@ public static class WorstCaseJson
                 linearSumKelvin = N(p.LinearSumKelvin),
                 rssKelvin = N(p.RssKelvin),
                 sigmaKelvin = N(p.SigmaKelvin),
+                noiseKelvin = p.NoiseKelvin,
                 withinBudget = p.WithinBudget,
             }),
             sensitivities = r.Sensitivities.Select(s => new

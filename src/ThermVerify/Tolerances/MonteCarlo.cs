@@ -43,7 +43,10 @@ internal static class MonteCarlo
         return new MonteCarloResult(n, options.Seed, evaluator.Set.Parameters, options.Percentiles, envelope,
             outcomes.Count(o => o.WithinBudget), sharesAt, variance, shares, MakeHistogram(worst, 40), worst,
             [.. outcomes.Select(o => evaluator.Temperatures[o.WorstIndex])], deviations,
-            outcomes.Max(o => o.SelfHeatingKelvin.DefaultIfEmpty(0).Max()), [.. outcomes.Select(o => o.WithinBudget)]);
+            outcomes.Max(o => o.SelfHeatingKelvin.DefaultIfEmpty(0).Max()), [.. outcomes.Select(o => o.WithinBudget)])
+        {
+            LargestNoiseKelvin = evaluator.NoiseMarginsKelvin.DefaultIfEmpty(0).Max(),
+        };
     }
 
     private static EnvelopePoint[] Envelope(UnitEvaluator evaluator, UnitOutcome[] outcomes, UnitOutcome nominal, IReadOnlyList<double> percentiles)

@@ -37,6 +37,12 @@ public sealed record MonteCarloResult(
     double MaximumSelfHeatingKelvin,
     bool[] UnitWithinBudget)
 {
+    /// <summary>
+    /// The largest margin each unit's error had to leave inside the budget: the nominal design's noise at its coverage
+    /// plus its lag on the declared ramp (counted at every temperature, as the check counts it).
+    /// </summary>
+    public double LargestNoiseKelvin { get; init; }
+
     /// <summary>Fraction of units within the budget at every temperature.</summary>
     public double Yield => (double)UnitsWithinBudget / Units;
 

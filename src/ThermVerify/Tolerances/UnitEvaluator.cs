@@ -36,7 +36,14 @@ internal sealed class UnitEvaluator
         var indices = SettlingGrid.Indices(Temperatures.Length, maximumSamplingPoints ?? new CheckOptions().MaximumSamplingPoints);
         var dc = DcCorners.Run(NominalUnitDesign, Cases, Temperatures);
         nominalOffsets = SamplingOffsets.Run(NominalUnitDesign, Cases, Temperatures, indices, dc.Base, SettleVolts, threads, cancel, BuiltInEngine.Instance);
+        // The noise of a reading and the lag on the declared ramp count in every unit's budget as they do in the check;
+        // they are the nominal design's (a unit's parts move its noise by their tolerances' fraction of it).
+        NoiseMarginsKelvin = [.. Check.Noise.ReadingNoiseAnalysis.Over(design, Model, Temperatures,
+            maximumSamplingPoints ?? new CheckOptions().MaximumSamplingPoints, BuiltInEngine.Instance).Select(r => r.CoveredKelvin + r.RampLagKelvin)];
     }
+
+    /// <summary>At each temperature, the nominal design's noise at its coverage plus its lag on the declared ramp.</summary>
+    public double[] NoiseMarginsKelvin { get; }
 
     public FrontEndDesign Design { get; }
     public ClosedFormModel Model { get; }
@@ -88,7 +95,7 @@ internal sealed class UnitEvaluator
         var rise = SelfHeating.RiseKelvin(unit.Design, SelfHeating.PowerWatts(unit.Design, unit.Sensor, Temperatures, dc.Base.DividerVolts));
         var within = true;
         for (var i = 0; i < n; i++)
-            within &= double.IsFinite(error[i]) && Math.Abs(error[i]) <= Budgets[i];
+            within &= double.IsFinite(error[i]) && Math.Abs(error[i]) + NoiseMarginsKelvin[i] <= Budgets[i];
         return new UnitOutcome(error, unquantised, rise, worst, within, simulatedAt);
     }
 }

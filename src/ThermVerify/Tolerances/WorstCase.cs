@@ -36,8 +36,11 @@ public sealed record WorstCasePoint(
     double RssKelvin,
     double SigmaKelvin)
 {
+    /// <summary>The nominal design's noise at its coverage plus its lag on the declared ramp, counted beside each corner as the check counts it.</summary>
+    public double NoiseKelvin { get; init; }
+
     public bool WithinBudget => double.IsFinite(HighKelvin) && double.IsFinite(LowKelvin)
-                                && Math.Abs(HighKelvin) <= BudgetKelvin && Math.Abs(LowKelvin) <= BudgetKelvin;
+                                && Math.Abs(HighKelvin) + NoiseKelvin <= BudgetKelvin && Math.Abs(LowKelvin) + NoiseKelvin <= BudgetKelvin;
 }
 
 /// <summary>
@@ -117,7 +120,7 @@ internal static class WorstCase
             var sigma = Math.Sqrt(sensitivities.Sum(s => Math.Pow(s.KelvinPerUnit[k] * s.Parameter.StandardDeviation, 2)));
             points[k] = new WorstCasePoint(t[k], evaluator.Budgets[k], nominal.ErrorKelvin[k],
                 corners[Key(highSigns[k])].ErrorKelvin[k], corners[Key(Negate(highSigns[k]))].ErrorKelvin[k],
-                contributions.Sum(Math.Abs), Math.Sqrt(contributions.Sum(c => c * c)), sigma);
+                contributions.Sum(Math.Abs), Math.Sqrt(contributions.Sum(c => c * c)), sigma) { NoiseKelvin = evaluator.NoiseMarginsKelvin[k] };
         }
 
         CornerEnumeration? enumeration = null;
