@@ -84,8 +84,7 @@ internal static class EffectEstimator
     private static double DividerLeadVolts(FrontEndDesign design, DividerSpec divider, ClosedFormPoint point)
     {
         if (design.Wiring is not { } w) return 0;
-        var celsius = w.LeadCelsius ?? design.Check.BoardCelsius ?? point.Celsius;
-        var leads = 2 * w.LeadOhms * (1 + w.LeadTempcoPerKelvin * (celsius - 25));
+        var leads = 2 * w.LeadOhmsAt(w.LeadCelsius ?? design.Check.BoardCelsius ?? point.Celsius);
         double Out(double sensorOhms) => DividerFormula.OutputVolts(divider.SensorSide, divider.ExcitationVolts, sensorOhms, divider.FixedResistorOhms);
         return (design.Buffer?.Gain ?? 1) * (Out(point.SensorOhms + leads) - Out(point.SensorOhms));
     }

@@ -17,7 +17,7 @@ internal static class ProtectionEstimate
     {
         if (design.Protection is not { HasClamps: true } p) return 0;
         var celsius = ClampCelsius(design, point.Celsius);
-        var vt = PhysicalConstants.BoltzmannJoulesPerKelvin * PhysicalConstants.ToKelvin(celsius) / PhysicalConstants.ElementaryChargeCoulombs;
+        var vt = PhysicalConstants.ThermalVolts(celsius);
         var leakage = p.ClampLeakageAmperesAt(celsius);
         var into = p.ClampLeakageAmperes > 0
             ? leakage * (1 - Math.Exp(-((p.ClampRailVolts ?? design.NominalReferenceVolts) - pinVolts) / vt))

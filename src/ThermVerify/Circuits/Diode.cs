@@ -40,10 +40,10 @@ internal sealed record Diode(string Name, string Anode, string Cathode, double S
         if (SaturationReferenceCelsius is not { } reference)
             return SaturationCurrentAmperes;
         if (LeakageDoublingKelvin is { } doubling)
-            return SaturationCurrentAmperes * Math.Pow(2, (temperatureCelsius - reference) / doubling);
+            return Quantities.DoublingLaw.At(SaturationCurrentAmperes, reference, doubling, temperatureCelsius);
         var t = Quantities.PhysicalConstants.ToKelvin(temperatureCelsius);
         var ratio = t / Quantities.PhysicalConstants.ToKelvin(reference);
-        var vt = Quantities.PhysicalConstants.BoltzmannJoulesPerKelvin * t / Quantities.PhysicalConstants.ElementaryChargeCoulombs;
+        var vt = Quantities.PhysicalConstants.ThermalVolts(temperatureCelsius);
         return SaturationCurrentAmperes * Math.Pow(ratio, SaturationExponent / EmissionCoefficient)
             * Math.Exp((ratio - 1) * BandGapElectronVolts / (EmissionCoefficient * vt));
     }

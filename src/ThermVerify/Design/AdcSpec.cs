@@ -55,7 +55,7 @@ public sealed record AdcSpec
 
     /// <summary>Pin leakage at a temperature: it doubles every <see cref="LeakageDoublingKelvin"/> (common practice, no source).</summary>
     public double PinLeakageAmperesAt(double celsius) =>
-        PinLeakageAmperes * Math.Pow(2, (celsius - PinLeakageCelsius) / LeakageDoublingKelvin);
+        Quantities.DoublingLaw.At(PinLeakageAmperes, PinLeakageCelsius, LeakageDoublingKelvin, celsius);
     public double OffsetErrorLsb { get; init; }
     /// <summary>Fraction of full scale.</summary>
     public double GainError { get; init; }

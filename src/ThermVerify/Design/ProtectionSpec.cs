@@ -34,5 +34,5 @@ public sealed record ProtectionSpec
 
     /// <summary>One diode's leakage at <paramref name="celsius"/>, magnitude: it doubles every <see cref="ClampDoublingKelvin"/>.</summary>
     public double ClampLeakageAmperesAt(double celsius) =>
-        Math.Abs(ClampLeakageAmperes) * Math.Pow(2, (celsius - ClampLeakageCelsius) / ClampDoublingKelvin);
+        Quantities.DoublingLaw.At(Math.Abs(ClampLeakageAmperes), ClampLeakageCelsius, ClampDoublingKelvin, celsius);
 }

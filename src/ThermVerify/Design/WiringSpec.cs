@@ -19,4 +19,7 @@ public sealed record WiringSpec
     public double CurrentMismatch { get; init; }
     /// <summary>Written with a sign: taken at that sign; without one the mismatch is a bound (<see cref="SignWritten"/>).</summary>
     public bool CurrentMismatchSigned { get; init; }
+
+    /// <summary>One wire's resistance at <paramref name="celsius"/>: R_L·(1 + α·(T − 25 °C)).</summary>
+    public double LeadOhmsAt(double celsius) => LeadOhms * (1 + LeadTempcoPerKelvin * (celsius - 25));
 }

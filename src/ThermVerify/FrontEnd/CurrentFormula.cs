@@ -58,7 +58,7 @@ internal static class CurrentFormula
         var output = source.OutputResistanceOhms ?? double.PositiveInfinity;
         var wiring = withLeads ? design.Wiring : null;
         var wires = wiring?.Wires ?? 2;
-        var lead = wiring is null ? 0 : wiring.LeadOhms * (1 + wiring.LeadTempcoPerKelvin * ((wiring.LeadCelsius ?? boardCelsius) - 25));
+        var lead = wiring?.LeadOhmsAt(wiring.LeadCelsius ?? boardCelsius) ?? 0;
         var second = wires == 3 ? current * (1 + wiring!.CurrentMismatch) : 0;
         var chain = lead + sensorOhms + lead;
         var seen = wires == 4 ? sensorOhms + lead : chain;

@@ -15,4 +15,7 @@ internal static class PhysicalConstants
     public static double ToKelvin(double celsius) => celsius + ZeroCelsiusInKelvin;
 
     public static double ToCelsius(double kelvin) => kelvin - ZeroCelsiusInKelvin;
+
+    /// <summary>The thermal voltage V_t = kT/q at <paramref name="celsius"/>.</summary>
+    public static double ThermalVolts(double celsius) => BoltzmannJoulesPerKelvin * ToKelvin(celsius) / ElementaryChargeCoulombs;
 }

@@ -28,19 +28,25 @@ internal static class ReportFormat
 
     public static string RemedyValue(Remedy r) => r.Value is not { } v ? "" : r.Unit switch
     {
-        "s" => V(v, UnitKind.Second),
-        "F" => V(v, UnitKind.Farad),
-        "Hz" => V(v, UnitKind.Hertz),
-        "Ω" => V(v, UnitKind.Ohm),
-        "V" => V(v, UnitKind.Volt),
-        "A" => V(v, UnitKind.Ampere),
-        "V/s" => V(v, UnitKind.VoltPerSecond),
-        "V/K" => V(v, UnitKind.VoltPerKelvin),
-        "W/K" => V(v, UnitKind.WattPerKelvin),
-        "V/√Hz" => V(v, UnitKind.VoltPerRootHertz),
         "ppm/K" => $"{N(v * 1e6, "0.###")} ppm/K",
         "fraction" => $"{N(v * 100, "0.####")} %",
-        _ => $"{N(v, "0.###")} {r.Unit}",
+        _ => KindOf(r.Unit) is { } kind ? V(v, kind) : $"{N(v, "0.###")} {r.Unit}",
+    };
+
+    /// <summary>The SI unit a result's unit symbol names (remedies, tolerances), printed with its prefix; null for the others.</summary>
+    public static UnitKind? KindOf(string unit) => unit switch
+    {
+        "s" => UnitKind.Second,
+        "F" => UnitKind.Farad,
+        "Hz" => UnitKind.Hertz,
+        "Ω" => UnitKind.Ohm,
+        "V" => UnitKind.Volt,
+        "A" => UnitKind.Ampere,
+        "V/s" => UnitKind.VoltPerSecond,
+        "V/K" => UnitKind.VoltPerKelvin,
+        "W/K" => UnitKind.WattPerKelvin,
+        "V/√Hz" => UnitKind.VoltPerRootHertz,
+        _ => null,
     };
 
     /// <summary>A remedy in one line: the action and value with its key, and the other changes of a combination.</summary>

@@ -38,6 +38,9 @@ public class ProtectionTests
     private static double Reverse(double saturationAmperes, double reverseVolts, double celsius) =>
         saturationAmperes * (1 - Math.Exp(-reverseVolts / ThermalVolts(celsius))) + 1e-12 * reverseVolts;
 
+    /// <summary>Two resistances in parallel: what the pin sees of the divider (Thévenin).</summary>
+    private static double Parallel(double a, double b) => a * b / (a + b);
+
     [Fact]
     public void Keys_are_read_and_written_back()
     {
@@ -77,7 +80,7 @@ public class ProtectionTests
         for (var i = 0; i < grid.Length; i++)
         {
             var rs = sensor.ResistanceOhms(grid[i]);
-            var source = rs * 10e3 / (rs + 10e3) + 4.7e3;
+            var source = Parallel(rs, 10e3) + 4.7e3;
             var expected = Reverse(200e-9, 3.3 - bare[i], 45) * source;
             // 10 nV: both sweeps' node voltages are converged to about 1e-9 of their few volts.
             Tolerance.AssertClose(expected, clamped[i] - bare[i], 1e-6, 1e-8, $"clamp shift at {grid[i]} °C");
@@ -112,7 +115,7 @@ public class ProtectionTests
         for (var i = 0; i < grid.Length; i++)
         {
             var rs = sensor.ResistanceOhms(grid[i]);
-            var rth = rs * 10e3 / (rs + 10e3);
+            var rth = Parallel(rs, 10e3);
             Tolerance.AssertClose((12 - bare[i]) * rth / (rth + 1e6), leaky[i] - bare[i], 1e-9, 1e-12, $"insulation shift at {grid[i]} °C");
         }
     }
@@ -140,7 +143,7 @@ public class ProtectionTests
         for (var i = 0; i < grid.Length; i++)
         {
             var rs = sensor.ResistanceOhms(grid[i]);
-            var source = rs * 10e3 / (rs + 10e3) + 4.7e3;
+            var source = Parallel(rs, 10e3) + 4.7e3;
             Tolerance.AssertClose(-Reverse(200e-9, none[i], 45) * source, lower[i] - none[i], 1e-6, 1e-8, $"lower diode at {grid[i]} °C");
         }
     }
@@ -177,7 +180,7 @@ public class ProtectionTests
         {
             Tolerance.AssertClose(theirs[i], ours[i], 0, 1e-6, $"ngspice at {grid[i]} °C");
             var rs = sensor.ResistanceOhms(grid[i]);
-            var expected = Reverse(50e-9 * Math.Pow(2, (grid[i] - 25) / 8), 3.3 - bare[i], grid[i]) * (rs * 10e3 / (rs + 10e3) + 4.7e3);
+            var expected = Reverse(50e-9 * Math.Pow(2, (grid[i] - 25) / 8), 3.3 - bare[i], grid[i]) * (Parallel(rs, 10e3) + 4.7e3);
             Tolerance.AssertClose(expected, ours[i] - bare[i], 1e-6, 1e-8, $"doubling law at {grid[i]} °C");
         }
     }

@@ -46,25 +46,26 @@ internal sealed class RemedyFinder
         // Progress counts the changes to search (each is at least one check of the changed design), not the findings:
         // one finding may have six changes and another none, so the count of findings says little of the time left.
         var plan = result.Findings.Where(f => f.Id != FindingRules.OverBudgetId).Concat(result.Findings.Where(f => f.Id == FindingRules.OverBudgetId))
-            .Select(f => (Finding: f, Knobs: finder.KnobsFor(f))).ToList();
+            .Select(f =>
+            {
+                var worst = SearchPoint(result, f);
+                return (Finding: f, Worst: worst, Knobs: finder.KnobsFor(f, worst));
+            }).ToList();
         var total = plan.Sum(p => Math.Max(p.Knobs.Count, 1));
         var searched = 0;
         options.RemedyProgress?.Report(new RunProgress(0, total));
-        foreach (var (finding, knobs) in plan)
+        foreach (var (finding, worst, knobs) in plan)
         {
             var before = searched;
-            done[finding] = finder.Solve(finding, knobs, () => options.RemedyProgress?.Report(new RunProgress(++searched, total)));
+            done[finding] = finder.Solve(finding, worst, knobs, () => options.RemedyProgress?.Report(new RunProgress(++searched, total)));
             searched = before + Math.Max(knobs.Count, 1);
             options.RemedyProgress?.Report(new RunProgress(searched, total));
         }
         return result with { Findings = [.. result.Findings.Select(f => done[f])] };
     }
 
-    private IReadOnlyList<Knob> KnobsFor(Finding finding)
-    {
-        var worst = SearchPoint(original, finding);
-        return finding.Id == FindingRules.OverBudgetId ? OverBudgetKnobs(worst) : Knobs.For(finding.Id, Design, worst);
-    }
+    private IReadOnlyList<Knob> KnobsFor(Finding finding, CheckPoint worst) =>
+        finding.Id == FindingRules.OverBudgetId ? OverBudgetKnobs(worst) : Knobs.For(finding.Id, Design, worst);
 
     /// <summary>One change tried for a finding: the value and what the check of the changed design found.</summary>
     private sealed record Attempt(Knob Knob, double Value, CheckResult? Check);
@@ -73,9 +74,8 @@ internal sealed class RemedyFinder
     private sealed record Combination(string FindingId, IReadOnlyList<(Knob Knob, double Value, string Method)> Changes, CheckResult Check);
 
     /// <summary>The finding with its remedies; <paramref name="searched"/> is called after each of <paramref name="knobs"/>.</summary>
-    private Finding Solve(Finding finding, IReadOnlyList<Knob> knobs, Action searched)
+    private Finding Solve(Finding finding, CheckPoint worst, IReadOnlyList<Knob> knobs, Action searched)
     {
-        var worst = SearchPoint(original, finding);
         if (knobs.Count == 0) return finding with { Remedies = [] };
         var tried = attempts[finding.Id] = [];
         var remedies = new List<Remedy>();

@@ -18,9 +18,9 @@ public static class ComparisonText
         var text = new StringBuilder();
         text.AppendLine($"thermverify compare: A = {a.Design.Name}, B = {b.Design.Name}");
         // Both ran with the same options, so one run line serves; the files line tells the designs apart.
-        text.AppendLine($"  run      thermverify {runA.ToolVersion}, engine {runA.EngineText}; {runA.SettingsText}");
-        text.AppendLine($"  files A  {runA.DesignText(shortHash: true)}");
-        text.AppendLine($"  files B  {runB.DesignText(shortHash: true)}");
+        ProvenanceText.AppendRun(text, runA);
+        ProvenanceText.AppendFiles(text, "files A ", runA);
+        ProvenanceText.AppendFiles(text, "files B ", runB);
         text.AppendLine($"  A  {ReportFormat.Verdict(a)}");
         text.AppendLine($"  B  {ReportFormat.Verdict(b)}");
         text.AppendLine();

@@ -8,7 +8,14 @@ internal static class ProvenanceText
 {
     public static void Append(StringBuilder text, RunProvenance p)
     {
-        text.AppendLine($"  run      thermverify {p.ToolVersion}, engine {p.EngineText}; {p.SettingsText}");
-        text.AppendLine($"  files    {p.DesignText(shortHash: true)}");
+        AppendRun(text, p);
+        AppendFiles(text, "files   ", p);
     }
+
+    public static void AppendRun(StringBuilder text, RunProvenance p) =>
+        text.AppendLine($"  run      thermverify {p.ToolVersion}, engine {p.EngineText}; {p.SettingsText}");
+
+    /// <param name="label">Eight characters, so the value lines up under the run line's.</param>
+    public static void AppendFiles(StringBuilder text, string label, RunProvenance p) =>
+        text.AppendLine($"  {label} {p.DesignText(shortHash: true)}");
 }

@@ -11,10 +11,9 @@ internal static class ToleranceText
     {
         "" => FormattableString.Invariant($"{100 * p.HalfWidth:G3} %"),
         "1/K" => FormattableString.Invariant($"{1e6 * p.HalfWidth:G3} ppm/K"),
-        "V" => EngineeringFormat.Format(p.HalfWidth, UnitKind.Volt, 3),
-        "A" => EngineeringFormat.Format(p.HalfWidth, UnitKind.Ampere, 3),
-        "V/K" => EngineeringFormat.Format(p.HalfWidth, UnitKind.VoltPerKelvin, 3),
-        _ => FormattableString.Invariant($"{p.HalfWidth:G3} {p.Unit}"),
+        _ => ReportFormat.KindOf(p.Unit) is { } kind
+            ? EngineeringFormat.Format(p.HalfWidth, kind, 3)
+            : FormattableString.Invariant($"{p.HalfWidth:G3} {p.Unit}"),
     };
 
     /// <summary>A table of the tolerances: key, ±half-width, distribution and standard deviation.</summary>
