@@ -78,7 +78,11 @@ internal sealed record DcLevels(
     {
         var netlist = design.Netlist!;
         var sensor = netlist.Parsed.Find(netlist.SensorElements[0])!;
-        var v = Sweep(engine, design, null, temperatures, [sensor.Nodes[0], sensor.Nodes[1], pinNode]);
+        // Ground is no vector of a sweep (ngspice has none for it): a sensor terminal on it reads 0.
+        var nodes = sensor.Nodes.Where(n => n != Circuit.Ground).Append(pinNode).ToList();
+        var swept = Sweep(engine, design, null, temperatures, nodes);
+        double[] At(string node) => node == Circuit.Ground ? new double[temperatures.Count] : swept[nodes.IndexOf(node)];
+        var v = new[] { At(sensor.Nodes[0]), At(sensor.Nodes[1]), swept[^1] };
         var average = cases.Select(c => UsesAverageSamplingCurrent(design, c.Volts)
             ? Sweep(engine, design, c.Volts, temperatures, [pinNode])[0]
             : v[2]).ToArray();
