@@ -26,6 +26,14 @@ public class DifferentialProbeTests(ITestOutputHelper output)
         }
         output.WriteLine(rc.Describe());
         output.WriteLine(SpiceDeckWriter.Write(NgspiceTwin.For(rc.Circuit), new OperatingPointAnalysis()));
+        try
+        {
+            output.WriteLine($"screen: {StabilityScreen.FirstUnstableCombination(rc.Circuit, rc.Seed) ?? "every combination stable"}");
+        }
+        catch (Exception e)
+        {
+            output.WriteLine($"screen failed: {e.Message}");
+        }
         var result = DifferentialCase.Run(rc);
         output.WriteLine($"stable: {result.Stable}; stop {result.Circuit.TransientStopSeconds:G4} s; fastest {result.Circuit.FastestTimeConstantSeconds:G3} s");
         foreach (var c in result.Comparisons)
