@@ -23,6 +23,8 @@ internal static class DeltaSigmaReader
     public const int MaximumOrder = 8;
     public const int MaximumAverage = 1024;
     public const int MaximumDecimation = 1 << 20;
+    /// <summary>The filter is followed sample by sample at the modulator rate: its impulse response is at most this long (32 MB).</summary>
+    public const int MaximumImpulseSamples = 1 << 22;
     public const int MaximumDiscarded = 1000;
     public const int MaximumRejectionFrequencies = 16;
     public const int MaximumNoiseRows = 256;
@@ -48,6 +50,10 @@ internal static class DeltaSigmaReader
         if (decimation > MaximumDecimation)
             throw s.ErrorAtValue("data_rate", Invariant($"the decimation {decimation:G6} is more than {MaximumDecimation}"),
                 "Check the modulator rate and the data rate (and their prefixes).");
+        var impulse = order * (decimation - 1) + (average - 1) * decimation + 1;
+        if (impulse > MaximumImpulseSamples)
+            throw s.ErrorAtValue("data_rate", Invariant($"the filter's impulse response would be {impulse:G4} modulator samples long, more than {MaximumImpulseSamples}"),
+                "Check the modulator rate, the data rate and the filter (a slower data rate at this modulator rate is beyond what thermverify follows sample by sample).");
         var buffered = s.Choice("input", Inputs) ?? throw s.Missing("input", "Write input = \"unbuffered\" or \"buffered\" (whether the converter's input buffer is on).");
         double capacitance = 0;
         if (buffered)
