@@ -15,6 +15,7 @@ internal static class FirmwareFromDesign
     /// </summary>
     public static FirmwareModel Model(FrontEndDesign design, bool correctForLoading)
     {
+        ConverterSupport.RequireSuccessiveApproximation(design, "the firmware table");
         var divider = design.Divider ?? throw new FirmwareInputException(
             "Firmware tables are made for a divider; this design excites its sensor with a current source, whose table (R_s = V/I, " +
             "or R_ref·code/2^N with a reference resistor) is not made yet. Run check, worstcase or montecarlo on it instead.");

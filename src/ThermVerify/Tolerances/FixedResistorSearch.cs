@@ -67,6 +67,7 @@ internal static class FixedResistorSearch
 
     public static IReadOnlyList<FixedResistorCandidate> Run(FrontEndDesign design, FixedResistorSearchOptions? options = null)
     {
+        ConverterSupport.RequireSuccessiveApproximation(design, "the fixed-resistor choice");
         options ??= new FixedResistorSearchOptions();
         var divider = design.Divider ?? throw new DesignException(design.Name, 1, 1, "current_source",
             "choose-fixed chooses a divider's fixed resistor, and this design has none: a current source excites its sensor",
