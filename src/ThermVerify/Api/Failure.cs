@@ -50,7 +50,7 @@ public static class Failure
         FirmwareInputException or TableFormatException or BaselineException or OutputExistsException => FailureKind.BadInput,
         OutputPathException or InputFileException => FailureKind.BadInput,
         FileNotFoundException or DirectoryNotFoundException or UnauthorizedAccessException => FailureKind.BadInput,
-        EngineUnsupportedException => FailureKind.BadInput,
+        EngineUnsupportedException or ConverterUnsupportedException => FailureKind.BadInput,
         SimulationException or CircuitException or TimeLimitException => FailureKind.SimulationFailed,
         OutputRenderException { Failure: RenderFailure.UnwritableText } => FailureKind.BadInput,
         OutputRenderException => FailureKind.SimulationFailed,

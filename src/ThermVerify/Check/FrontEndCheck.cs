@@ -18,6 +18,7 @@ internal static class FrontEndCheck
 {
     public static CheckResult Run(FrontEndDesign design, CheckOptions? options = null)
     {
+        ConverterSupport.RequireSuccessiveApproximation(design, "check");
         options ??= new CheckOptions();
         var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToArray();
         var evaluation = CheckEvaluation.Run(design, temperatures, options).Refined(options);

@@ -30,17 +30,38 @@ internal static class AdcReader
         "bits", "reference", "reference_tolerance", "sample_rate", "acquisition_time", "sampling_capacitance",
         "switch_resistance", "pin_capacitance", "pin_leakage", "pin_leakage_temperature", "leakage_doubling",
         "offset_error", "gain_error", "inl", "precharge", "precharge_voltage", "reference_tempco", "first_transition",
-        "firmware_inverse", "noise",
+        "firmware_inverse", "noise", "kind",
     ];
+
+    private static readonly Dictionary<string, ConverterKind> Kinds = new()
+    {
+        ["successive-approximation"] = ConverterKind.SuccessiveApproximation,
+        ["delta-sigma"] = ConverterKind.DeltaSigma,
+    };
 
     public static AdcSpec Read(TomlSection s)
     {
-        s.AllowOnly(Keys);
-        var bits = s.Integer("bits") ?? throw s.Missing("bits", "Write bits = 12.");
-        if (bits is < DesignDefaults.MinBits or > DesignDefaults.MaxBits)
-            throw s.ErrorAtValue("bits", $"{bits} bits is outside {DesignDefaults.MinBits}..{DesignDefaults.MaxBits}", "Give the converter's resolution, e.g. bits = 12.");
-        var referenceText = s.RequiredString("reference", "Write reference = \"3.3 V\", or \"ratiometric\" when the ADC reference is the divider's excitation.");
-        double? referenceVolts = referenceText == "ratiometric" ? null : s.Quantity("reference", Bound.Positive, UnitKind.Volt)!.Value.Value;
+        var kind = s.Choice("kind", Kinds) ?? ConverterKind.SuccessiveApproximation;
+        if (kind == ConverterKind.DeltaSigma)
+        {
+            s.AllowOnly([.. Keys.Except(DeltaSigmaReader.SuccessiveApproximationKeys), .. DeltaSigmaReader.OwnKeys],
+                key => DeltaSigmaReader.SuccessiveApproximationKeys.Contains(key)
+                    ? $"{key} applies only to a successive-approximation converter; a delta-sigma converter samples its input at modulator_rate and reads at data_rate. Remove it, or set kind = \"successive-approximation\"."
+                    : null);
+            var deltaSigma = DeltaSigmaReader.Read(s);
+            // The acquisition window of a successive-approximation converter does not exist here: its fields are 0 and
+            // every analysis built on them refuses this converter (ConverterSupport); the sample rate is the data rate.
+            return Common(s) with
+            {
+                DeltaSigma = deltaSigma,
+                SampleRateHertz = deltaSigma.DataRateHertz,
+                Precharge = PrechargeMode.LastSample,
+            };
+        }
+        s.AllowOnly(Keys, key => DeltaSigmaReader.OwnKeys.Contains(key)
+            ? $"{key} applies only to a delta-sigma converter. Remove it, or set kind = \"delta-sigma\" (docs/design-file.md)."
+            : null);
+        var common = Common(s);
         var sampleRate = s.RequiredValue("sample_rate", Bound.Positive, "Write sample_rate = \"10 kHz\" (conversions per second on this channel's converter).", UnitKind.Hertz);
         var acquisition = s.RequiredValue("acquisition_time", Bound.Positive, "Write acquisition_time = \"1.5 us\".", UnitKind.Second);
         if (acquisition >= 1 / sampleRate)
@@ -50,6 +71,25 @@ internal static class AdcReader
         var prechargeVolts = s.Quantity("precharge_voltage", Bound.Any, UnitKind.Volt)?.Value;
         if (prechargeVolts is not null && precharge != PrechargeMode.OtherChannel)
             throw s.ErrorAtKey("precharge_voltage", "precharge_voltage applies only to precharge = \"other-channel\"", "Remove it, or set precharge = \"other-channel\".");
+        return common with
+        {
+            SampleRateHertz = sampleRate,
+            AcquisitionTimeSeconds = acquisition,
+            SamplingCapacitanceFarads = s.RequiredValue("sampling_capacitance", Bound.Positive, "Write sampling_capacitance = \"5 pF\".", UnitKind.Farad),
+            SwitchResistanceOhms = s.RequiredValue("switch_resistance", Bound.NonNegative, "Write switch_resistance = \"1 kohm\" (sampling switch on-resistance).", UnitKind.Ohm),
+            Precharge = precharge,
+            PrechargeVolts = prechargeVolts,
+        };
+    }
+
+    /// <summary>The keys both kinds of converter share: resolution, reference, pin, static errors, conventions, noise.</summary>
+    private static AdcSpec Common(TomlSection s)
+    {
+        var bits = s.Integer("bits") ?? throw s.Missing("bits", "Write bits = 12.");
+        if (bits is < DesignDefaults.MinBits or > DesignDefaults.MaxBits)
+            throw s.ErrorAtValue("bits", $"{bits} bits is outside {DesignDefaults.MinBits}..{DesignDefaults.MaxBits}", "Give the converter's resolution, e.g. bits = 12.");
+        var referenceText = s.RequiredString("reference", "Write reference = \"3.3 V\", or \"ratiometric\" when the ADC reference is the divider's excitation.");
+        double? referenceVolts = referenceText == "ratiometric" ? null : s.Quantity("reference", Bound.Positive, UnitKind.Volt)!.Value.Value;
         var referenceTempco = s.ValueOr("reference_tempco", 0, Bound.Any, UnitKind.PpmPerKelvin);
         if (referenceTempco != 0 && referenceVolts is null)
             throw s.ErrorAtKey("reference_tempco", "reference_tempco applies only to a fixed reference; a ratiometric converter's reference is the excitation itself",
@@ -67,10 +107,6 @@ internal static class AdcReader
             Bits = (int)bits,
             ReferenceVolts = referenceVolts,
             ReferenceTolerance = referenceTolerance,
-            SampleRateHertz = sampleRate,
-            AcquisitionTimeSeconds = acquisition,
-            SamplingCapacitanceFarads = s.RequiredValue("sampling_capacitance", Bound.Positive, "Write sampling_capacitance = \"5 pF\".", UnitKind.Farad),
-            SwitchResistanceOhms = s.RequiredValue("switch_resistance", Bound.NonNegative, "Write switch_resistance = \"1 kohm\" (sampling switch on-resistance).", UnitKind.Ohm),
             PinCapacitanceFarads = s.ValueOr("pin_capacitance", 0, Bound.NonNegative, UnitKind.Farad),
             PinLeakageAmperes = s.ValueOr("pin_leakage", 0, Bound.Any, UnitKind.Ampere),
             PinLeakageCelsius = s.ValueOr("pin_leakage_temperature", DesignDefaults.PinLeakageCelsius, Bound.Any, UnitKind.Celsius),
@@ -78,8 +114,6 @@ internal static class AdcReader
             OffsetErrorLsb = s.ValueOr("offset_error", 0, Bound.Any, UnitKind.Lsb),
             GainError = s.ValueOr("gain_error", 0, Bound.Any, UnitKind.Percent, UnitKind.Ppm),
             InlLsb = s.ValueOr("inl", 0, Bound.NonNegative, UnitKind.Lsb),
-            Precharge = precharge,
-            PrechargeVolts = prechargeVolts,
             ReferenceTempcoPerKelvin = referenceTempco,
             OffsetErrorSigned = SignWritten.Of(s, "offset_error"),
             GainErrorSigned = SignWritten.Of(s, "gain_error"),
@@ -87,6 +121,10 @@ internal static class AdcReader
             ReferenceTempcoSigned = SignWritten.Of(s, "reference_tempco"),
             FirstTransition = s.Choice("first_transition", Transitions) ?? FirstTransition.HalfLsb,
             FirmwareInverse = s.Choice("firmware_inverse", Inverses) ?? CodeInverse.BinMiddle,
+            SampleRateHertz = 0,
+            AcquisitionTimeSeconds = 0,
+            SamplingCapacitanceFarads = 0,
+            SwitchResistanceOhms = 0,
         };
     }
 }

@@ -33,9 +33,17 @@ public enum CodeInverse
     BinEdge,
 }
 
-/// <summary>A successive-approximation ADC input as seen from the pin.</summary>
+/// <summary>
+/// The converter's input as seen from the pin: a successive-approximation converter (the default), or a delta-sigma
+/// converter when <see cref="DeltaSigma"/> is set. For a delta-sigma converter the acquisition keys of a
+/// successive-approximation converter do not apply: <see cref="SampleRateHertz"/> is its data rate, the acquisition
+/// time, sampling capacitance and switch resistance here are 0, and its input is described by <see cref="DeltaSigma"/>.
+/// </summary>
 public sealed record AdcSpec
 {
+    /// <summary>The delta-sigma converter's input and filter; null for a successive-approximation converter.</summary>
+    public DeltaSigmaSpec? DeltaSigma { get; init; }
+    public ConverterKind Kind => DeltaSigma is null ? ConverterKind.SuccessiveApproximation : ConverterKind.DeltaSigma;
     public required int Bits { get; init; }
     /// <summary>Null when the reference is the divider's excitation (ratiometric).</summary>
     public double? ReferenceVolts { get; init; }

@@ -204,10 +204,13 @@ internal static partial class DesignWriter
         w.Value("reference_tolerance", a.ReferenceTolerance, UnitKind.Percent);
         if (a.ReferenceVolts is not null)
             w.Value("reference_tempco", a.ReferenceTempcoPerKelvin, UnitKind.PpmPerKelvin, a.ReferenceTempcoSigned);
-        w.Value("sample_rate", a.SampleRateHertz, UnitKind.Hertz);
-        w.Value("acquisition_time", a.AcquisitionTimeSeconds, UnitKind.Second);
-        w.Value("sampling_capacitance", a.SamplingCapacitanceFarads, UnitKind.Farad);
-        w.Value("switch_resistance", a.SwitchResistanceOhms, UnitKind.Ohm);
+        if (a.DeltaSigma is null)
+        {
+            w.Value("sample_rate", a.SampleRateHertz, UnitKind.Hertz);
+            w.Value("acquisition_time", a.AcquisitionTimeSeconds, UnitKind.Second);
+            w.Value("sampling_capacitance", a.SamplingCapacitanceFarads, UnitKind.Farad);
+            w.Value("switch_resistance", a.SwitchResistanceOhms, UnitKind.Ohm);
+        }
         w.Value("pin_capacitance", a.PinCapacitanceFarads, UnitKind.Farad);
         w.Value("pin_leakage", a.PinLeakageAmperes, UnitKind.Ampere, a.PinLeakageSigned);
         w.Value("pin_leakage_temperature", a.PinLeakageCelsius, UnitKind.Celsius);
@@ -215,13 +218,14 @@ internal static partial class DesignWriter
         w.Value("offset_error", a.OffsetErrorLsb, UnitKind.Lsb, a.OffsetErrorSigned);
         w.Value("gain_error", a.GainError, UnitKind.Percent, a.GainErrorSigned);
         w.Value("inl", a.InlLsb, UnitKind.Lsb);
-        w.Text("precharge", a.Precharge switch
-        {
-            PrechargeMode.LastSample => "last-sample",
-            PrechargeMode.OtherChannel => "other-channel",
-            PrechargeMode.Discharged => "discharged",
-            _ => "worst",
-        });
+        if (a.DeltaSigma is null)
+            w.Text("precharge", a.Precharge switch
+            {
+                PrechargeMode.LastSample => "last-sample",
+                PrechargeMode.OtherChannel => "other-channel",
+                PrechargeMode.Discharged => "discharged",
+                _ => "worst",
+            });
         if (a.PrechargeVolts is { } pv)
             w.Value("precharge_voltage", pv, UnitKind.Volt);
         w.Text("first_transition", a.FirstTransition == FirstTransition.HalfLsb ? "half-lsb" : "one-lsb");
@@ -230,6 +234,36 @@ internal static partial class DesignWriter
             w.Value("noise", lsb, UnitKind.Lsb);
         else if (a.NoiseVolts is { } volts)
             w.Value("noise", volts, UnitKind.Volt);
+        if (a.DeltaSigma is { } ds)
+            WriteDeltaSigma(w, ds);
+    }
+
+    /// <summary>The delta-sigma keys of [adc], then its noise table (table arrays come after the section's own keys).</summary>
+    private static void WriteDeltaSigma(Writer w, DeltaSigmaSpec d)
+    {
+        w.Text("kind", "delta-sigma");
+        w.Value("modulator_rate", d.ModulatorRateHertz, UnitKind.Hertz);
+        w.Value("data_rate", d.DataRateHertz, UnitKind.Hertz);
+        w.Text("input", d.InputBuffered ? "buffered" : "unbuffered");
+        if (d.InputBuffered)
+            w.Value("input_current", d.InputCurrentAmperes, UnitKind.Ampere, d.InputCurrentSigned);
+        else
+            w.Value("sampling_capacitance", d.SamplingCapacitanceFarads, UnitKind.Farad);
+        w.Number("gain", d.Gain);
+        w.Text("filter", $"sinc{d.FilterOrder}");
+        w.Integer("average_length", d.AverageLength);
+        w.Boolean("filter_reset", d.FilterReset);
+        w.Integer("readings_discarded", d.ReadingsDiscarded);
+        w.Values("rejection_frequencies", d.RejectionHertz, UnitKind.Hertz);
+        if (d.InterferenceVolts is { } interference)
+            w.Value("interference", interference, UnitKind.Volt);
+        foreach (var row in d.NoiseTable)
+        {
+            w.Section("[adc.noise_table]");
+            w.Value("data_rate", row.DataRateHertz, UnitKind.Hertz);
+            w.Number("gain", row.Gain);
+            w.Value("noise", row.RmsVolts, UnitKind.Volt);
+        }
     }
 
     private static void WriteNoise(Writer w, NoiseSpec n)
@@ -293,6 +327,11 @@ internal static partial class DesignWriter
 
         /// <summary>The header of one entry of an array of tables ([[name]]).</summary>
         public void Entry(string name) => _text.Append('\n').Append("[[").Append(name).Append("]]\n");
+
+        public void Boolean(string key, bool value) => Line(key, value ? "true" : "false");
+
+        public void Values(string key, IEnumerable<double> values, UnitKind unit) =>
+            Line(key, "[" + string.Join(", ", values.Select(v => Quote(EngineeringFormat.FormatExact(v, unit)))) + "]");
 
         private void Line(string key, string value) => _text.Append(key).Append(" = ").Append(value).Append('\n');
 

@@ -15,6 +15,7 @@ internal static class FirmwareFromDesign
     /// </summary>
     public static FirmwareModel Model(FrontEndDesign design, bool correctForLoading)
     {
+        ConverterSupport.RequireSuccessiveApproximation(design, "the firmware table");
         if (design.Netlist is not null)
             throw new FirmwareInputException(
                 "Firmware tables are made for a divider; this design is a netlist front end, whose table (through its ideal transfer, " +

@@ -51,6 +51,7 @@ internal static class FrontEndDecks
 
     public static string Write(FrontEndDesign design, DeckAnalysis analysis, DeckOptions? options = null)
     {
+        ConverterSupport.RequireSuccessiveApproximation(design, "the SPICE deck");
         options ??= new DeckOptions();
         var model = new ClosedFormModel(design);
         var precharge = PrechargeCases.For(design, model.Adc.ReferenceVolts)[0].Volts;

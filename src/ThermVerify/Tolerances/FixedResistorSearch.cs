@@ -67,6 +67,7 @@ internal static class FixedResistorSearch
 
     public static IReadOnlyList<FixedResistorCandidate> Run(FrontEndDesign design, FixedResistorSearchOptions? options = null)
     {
+        ConverterSupport.RequireSuccessiveApproximation(design, "the fixed-resistor choice");
         options ??= new FixedResistorSearchOptions();
         if (design.Netlist is not null)
             throw new DesignException(design.Name, 1, 1, "netlist",

@@ -85,7 +85,7 @@ internal static class DifferentialCase
         {
             var poles = StabilityScreen.PolesOf(rc.Circuit);
             var flipped = rc.Circuit.Elements.Any(e => e is TimedSwitch) ? StabilityScreen.PolesOf(StabilityScreen.WithSwitchesFlipped(rc.Circuit)) : poles;
-            stable = poles.Stable && flipped.Stable;
+            stable = poles.Stable && flipped.Stable && StabilityScreen.FirstUnstableCombination(rc.Circuit, rc.Seed) is null;
             rc = RandomTiming.Apply(rc, poles, rc.Seed);
             // After an edge the circuit may be faster than before it (an inductor's current thrown onto an open switch).
             rc = rc with { FastestTimeConstantSeconds = Math.Min(poles.FastestSeconds, flipped.FastestSeconds is > 0 and var f ? f : double.PositiveInfinity) };
