@@ -38,6 +38,14 @@ internal sealed class NetlistTransfer
         var probed = DcSweep.Element(probe, sensor, at);
         var v = open.Voltage(netlist.PinNode);
         var p = probed.Voltage(netlist.PinNode);
+        // A pin the sensor does not move (a sensor on another branch, a pin tied to a source) reads no temperature.
+        if (!(Math.Abs(v[2] - v[0]) > 1e-9 * Math.Max(v.Max(Math.Abs), 1e-12)))
+        {
+            var card = netlist.Parsed.Find(sensor)!.At;
+            throw new DesignException(card.FileName, card.Line, card.Column, "netlist.sensor",
+                $"the voltage at node {netlist.PinNode} does not change with the sensor {sensor} (in the ideal netlist: nominal parts, no converter, diodes open)",
+                "Name the node the sensor's signal reaches as pin, or check the netlist's connections.");
+        }
         volts = Bilinear.Through(at, v, "pin voltage");
         ohms = Bilinear.Through(at, [.. p.Select((x, i) => (x - v[i]) / TestAmperes)], "resistance at the pin");
     }

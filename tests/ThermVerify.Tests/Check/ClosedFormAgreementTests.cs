@@ -58,8 +58,10 @@ public class ClosedFormAgreementTests
         foreach (var p in result.Points)
         {
             var at = $"{example} at {p.Celsius} °C";
-            // Leakage is linear in the circuit; the tempco enters to first order (ΔR/R ≤ 1e-2 here): 1 % + 1 µV.
-            Tolerance.AssertClose(p.Simulated.DcLoadingVolts, p.Estimates.LoadingVolts, 0.01, 1e-6, $"DC loading, {at}");
+            // Leakage is linear in the circuit; the tempco enters to first order (ΔR/R ≤ 1e-2 here): 1 % + 1 µV. A
+            // netlist's diodes are open in its closed form (docs/netlists.md), so their leakage is the simulation's alone.
+            if (design.Netlist?.Parsed.Elements.Any(e => e.Kind == 'D') != true)
+                Tolerance.AssertClose(p.Simulated.DcLoadingVolts, p.Estimates.LoadingVolts, 0.01, 1e-6, $"DC loading, {at}");
             // The buffer: offset, drift and bias by Ohm's law, less V/A of the finite open-loop gain (A ≥ 100 dB).
             if (design.Buffer is { } b)
                 Tolerance.AssertClose(p.Simulated.BufferVolts, p.Estimates.BufferVolts, 0, 1e-6 + 2 * p.IdealVolts / Math.Pow(10, (b.DcGainDecibels ?? 100) / 20), $"buffer, {at}");

@@ -34,6 +34,27 @@ public class NetlistTransferTests
     }
 
     [Fact]
+    public void A_pin_the_sensor_does_not_reach_is_refused_at_the_sensor_card()
+    {
+        var folder = Directory.CreateTempSubdirectory("tv-netlist-transfer-");
+        try
+        {
+            File.Copy(Path.Combine(Repository.Netlists, "kiln-vent-two-stage.toml"), Path.Combine(folder.FullName, "d.toml"));
+            File.WriteAllText(Path.Combine(folder.FullName, "kiln-vent-two-stage.cir"),
+                "* the filter fed from the rail, not the sensor\nVrail rail 0 DC 3.3\nRtop rail sense 6.8k\nRntc sense 0 10k\nRlin sense 0 22k\n" +
+                "R1 rail f1 4.7k\nC1 f1 0 100n\nR2 f1 adc 1k\nC2 adc 0 1u\n");
+            var design = DesignLoader.Load(Path.Combine(folder.FullName, "d.toml"));
+            var e = Assert.Throws<DesignException>(() => NetlistTransfer.Of(design.Netlist!));
+            Assert.Equal(("kiln-vent-two-stage.cir", 4, 1), (e.SourceName, e.Line, e.Column));
+            Assert.Contains("does not change with the sensor Rntc", e.Message);
+        }
+        finally
+        {
+            folder.Delete(recursive: true);
+        }
+    }
+
+    [Fact]
     public void A_voltage_no_sensor_can_give_has_no_resistance()
     {
         var transfer = NetlistTransfer.Of(Kiln);
