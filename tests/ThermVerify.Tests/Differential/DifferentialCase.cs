@@ -184,9 +184,18 @@ internal static class DifferentialCase
             return $"linearised about another DC solution: started at ngspice's operating point (which solves the engine's equations too), " +
                    $"the engine's {(analysis == DifferentialAnalysis.Ac ? "AC" : "noise")} agrees to {about:G2}" +
                    (NgspiceSwitchView.Applies(rc.Circuit) ? " with the closed switches open as ngspice has them" : "");
+        if (analysis is DifferentialAnalysis.Ac or DifferentialAnalysis.Noise && NgspiceOperatingPointOffCurrentLaw(rc) is { } offPoint)
+            return $"linearised about ngspice's operating point, which {offPoint}";
         if (analysis is DifferentialAnalysis.OperatingPoint or DifferentialAnalysis.SourceSweep or DifferentialAnalysis.TemperatureSweep
             && OtherSolutionDistance(rc, analysis, plot) is { } other && other <= Limits[analysis])
             return $"multiple DC solutions: Newton from ngspice's point stays there (to {other:G2}), so it solves the engine's equations too";
+        if (analysis is DifferentialAnalysis.OperatingPoint or DifferentialAnalysis.SourceSweep or DifferentialAnalysis.TemperatureSweep
+            && LargestNodeVolts(rc, analysis, plot) is var largest && largest < VoltageTolerance)
+            return $"nothing to compare: every node of both engines is within {VoltageTolerance:G2} V of 0 V (at most {largest:G2} V; " +
+                   "ngspice's voltage tolerance in these decks), so the relative measure divides rounding by rounding";
+        if (analysis is DifferentialAnalysis.OperatingPoint or DifferentialAnalysis.SourceSweep or DifferentialAnalysis.TemperatureSweep
+            && NgspiceOffCurrentLaw(rc, analysis, plot) is { } off)
+            return $"ngspice's answer {off}";
         if (analysis is DifferentialAnalysis.SourceSweep or DifferentialAnalysis.TemperatureSweep
             && NgspiceAloneDistance(rc, analysis, plot) is { } alone && alone <= Limits[analysis])
             return $"ngspice's sweep drifts from its own answer: each disagreeing point run alone in ngspice agrees with the engine to {alone:G2}";
@@ -262,6 +271,87 @@ internal static class DifferentialCase
     /// <summary>The worst <see cref="OtherSolution.Distance"/> over the points where the engines disagree, or null.</summary>
     private static double? OtherSolutionDistance(RandomCircuit rc, DifferentialAnalysis analysis, NgspicePlot plot) =>
         WorstOverDisagreeingPoints(rc, analysis, plot, (p, _, set, _) => OtherSolution.Distance(rc, plot, p, set));
+
+    /// <summary>ngspice's vntol in the differential decks (<c>.options vntol=1e-12</c>).</summary>
+    private const double VoltageTolerance = 1e-12;
+
+    /// <summary>The largest node voltage magnitude of either engine over a DC analysis.</summary>
+    private static double LargestNodeVolts(RandomCircuit rc, DifferentialAnalysis analysis, NgspicePlot plot)
+    {
+        double[][] ours = analysis switch
+        {
+            DifferentialAnalysis.OperatingPoint => OperatingPoint.Solve(rc.Circuit) is var op ? [.. rc.Nodes.Select(n => new[] { op.Voltage(n) })] : [],
+            DifferentialAnalysis.SourceSweep => DcSweep.Element(rc.Circuit, rc.SweepSource,
+                [.. Enumerable.Range(0, SweepPoints).Select(i => rc.SweepFrom + i * SweepStep(rc))]) is var sweep ? [.. rc.Nodes.Select(sweep.Voltage)] : [],
+            _ => DcSweep.Temperature(rc.Circuit, [.. Enumerable.Range(0, 31).Select(i => -40 + 5.5 * i)]) is var temperature
+                ? [.. rc.Nodes.Select(temperature.Voltage)] : [],
+        };
+        return Math.Max(ours.SelectMany(v => v).Select(Math.Abs).DefaultIfEmpty().Max(),
+            rc.Nodes.SelectMany(n => plot[n].Real).Select(Math.Abs).DefaultIfEmpty().Max());
+    }
+
+    /// <summary>Above this relative Kirchhoff residual (and <see cref="OffCurrentLawAmperes"/>) ngspice's point is not a DC
+    /// solution: ngspice converges to reltol 1e-9 and abstol 1e-12 A in these decks.</summary>
+    private const double OffCurrentLawRelative = 1e-6, OffCurrentLawAmperes = 1e-9;
+
+    /// <summary>
+    /// Why ngspice's answer is not a DC solution ("is not a DC solution: at n3 …"), when at every disagreeing point it breaks Kirchhoff's current law at some node
+    /// (<see cref="OtherSolution.CurrentLawResidual"/>), else null. ngspice returns such a point when its gmin and
+    /// source stepping fail and its last resort, a pseudo-transient ("transient op"), ends before the circuit is at rest
+    /// (seed 1087: 0.2 mA still flowing into the capacitors on n3); its output then says so, which is quoted.
+    /// </summary>
+    private static string? NgspiceOffCurrentLaw(RandomCircuit rc, DifferentialAnalysis analysis, NgspicePlot plot)
+    {
+        var smallest = (Amperes: double.PositiveInfinity, Relative: double.PositiveInfinity, Node: "");
+        var all = WorstOverDisagreeingPoints(rc, analysis, plot, (p, _, set, _) =>
+        {
+            var r = OtherSolution.CurrentLawResidual(rc.Circuit, plot, p, set);
+            if (r.Relative <= OffCurrentLawRelative || r.Amperes <= OffCurrentLawAmperes)
+                return null;
+            if (r.Relative < smallest.Relative)
+                smallest = r;
+            return 0;
+        });
+        if (all is null || double.IsPositiveInfinity(smallest.Relative))
+            return null;
+        return $"is not a DC solution: at {smallest.Node} the circuit's currents sum to {smallest.Amperes:G2} A " +
+               $"({smallest.Relative:G2} of those meeting there) at ngspice's point" +
+               (NgspiceUsedTransientOp(rc, analysis) ? " (ngspice reports that gmin and source stepping failed and it ran its transient op)" : "");
+    }
+
+    /// <summary><see cref="NgspiceOffCurrentLaw"/> of ngspice's operating point (on which its AC and noise are linearised), or null.</summary>
+    private static string? NgspiceOperatingPointOffCurrentLaw(RandomCircuit rc)
+    {
+        NgspicePlot op;
+        try
+        {
+            op = Ngspice(rc, DifferentialAnalysis.OperatingPoint);
+        }
+        catch (Exception e) when (e is NgspiceException or KeyNotFoundException)
+        {
+            return null;
+        }
+        return NgspiceOffCurrentLaw(rc, DifferentialAnalysis.OperatingPoint, op);
+    }
+
+    private static bool NgspiceUsedTransientOp(RandomCircuit rc, DifferentialAnalysis analysis)
+    {
+        try
+        {
+            SpiceAnalysis spice = analysis switch
+            {
+                DifferentialAnalysis.OperatingPoint => new OperatingPointAnalysis(),
+                DifferentialAnalysis.SourceSweep => new DcSourceSweep(rc.SweepSource, rc.SweepFrom, SweepStep(rc), SweepPoints),
+                _ => new DcTemperatureSweep(-40, 5.5, 31),
+            };
+            return DifferentialNgspice.Run(SpiceDeckWriter.Write(NgspiceTwin.For(rc.Circuit), spice)).Output
+                .Any(line => line.Contains("Transient op", StringComparison.OrdinalIgnoreCase));
+        }
+        catch (NgspiceException)
+        {
+            return false;
+        }
+    }
 
     /// <summary>
     /// ngspice's sweep point run on its own (a one-point <c>.dc</c> at that value), against the engine's point: the worst

@@ -29,6 +29,37 @@ internal static class OtherSolution
         return rc.Nodes.Max(node => Math.Abs(system.NodeVoltage(node) - plot[node].Real[point]));
     }
 
+    /// <summary>
+    /// How far ngspice's point of <paramref name="point"/> is from solving Kirchhoff's current law at the circuit's
+    /// nodes, in the engine's equations: the largest node residual (amperes) and that residual over the sum of the
+    /// magnitudes of the currents meeting there, with its node. The loads are assembled at ngspice's point (the step
+    /// limiting walked there, <see cref="Seed"/>), so each row's residual is the sum of the elements' currents into
+    /// that node; the op-amps' internal rows are left out (their input stages differ by design, see docs/engine.md).
+    /// </summary>
+    public static (double Amperes, double Relative, string Node) CurrentLawResidual(Circuit circuit, NgspicePlot plot, int point, Action<BoundSystem> set)
+    {
+        var system = new BoundSystem(circuit);
+        set(system);
+        Seed(system, plot, point);
+        system.Assemble();
+        var (x, m, b, n) = (system.Context.Solution, system.Context.Matrix, system.Context.Rhs, system.Size);
+        var worst = (Amperes: 0.0, Relative: 0.0, Node: "");
+        for (var i = 0; i < system.Layout.NodeCount; i++)
+        {
+            var residual = -b[i];
+            var magnitude = Math.Abs(b[i]);
+            for (var j = 0; j < n; j++)
+            {
+                residual += m[i * n + j] * x[j];
+                magnitude += Math.Abs(m[i * n + j] * x[j]);
+            }
+            var relative = magnitude > 0 ? Math.Abs(residual) / magnitude : 0;
+            if (relative > worst.Relative)
+                worst = (Math.Abs(residual), relative, system.Layout.UnknownNames[i]);
+        }
+        return worst;
+    }
+
     /// <summary>Puts ngspice's values of point <paramref name="point"/> into the system's solution, unknown by unknown.</summary>
     public static void Seed(BoundSystem system, NgspicePlot plot, int point)
     {
