@@ -40,6 +40,14 @@ public sealed record NetlistSpec
     /// <summary>The netlist as read: flat, its parameters evaluated.</summary>
     internal ParsedNetlist Parsed { get; init; } = new("", []);
 
+    /// <summary>Equal when they name the same file, the same elements and nodes and the same parts (the lists by their items).</summary>
+    public bool Equals(NetlistSpec? other) =>
+        other is not null && File == other.File && FullPath == other.FullPath && PinNode == other.PinNode && ReferenceNode == other.ReferenceNode
+        && Nullable.Equals(ReferenceVolts, other.ReferenceVolts) && SensorElements.SequenceEqual(other.SensorElements)
+        && Excitation.SequenceEqual(other.Excitation) && Parts.SequenceEqual(other.Parts) && Parsed.Elements.Count == other.Parsed.Elements.Count;
+
+    public override int GetHashCode() => HashCode.Combine(File, PinNode, ReferenceNode, Parts.Count);
+
     /// <summary>The part entry of an element, if the design gives one.</summary>
     public NetlistPartSpec? Part(string element) =>
         Parts.FirstOrDefault(p => p.Name.Equals(element, StringComparison.OrdinalIgnoreCase));
