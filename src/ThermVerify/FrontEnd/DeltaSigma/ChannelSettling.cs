@@ -147,7 +147,7 @@ internal static class ChannelSettling
 }
 
 /// <summary>Where the channel's filter sits against the multiplexer, so what the pin holds at the switch.</summary>
-internal enum ChannelStart
+public enum ChannelStart
 {
     /// <summary>Each channel has its own RC filter ahead of the multiplexer: the reservoir holds its own unloaded voltage.</summary>
     OwnFilter,
@@ -160,7 +160,7 @@ internal enum ChannelStart
 /// (volts at the input), the readings to discard for every later one to be within ½ LSB (null: not within the readings
 /// followed), when that reading is ready, and the error of the first reading the firmware uses.
 /// </summary>
-internal sealed record ChannelSettlingResult(double Celsius, ChannelStart Start, double OtherChannelVolts, double FinalVolts, double LsbVolts,
+public sealed record ChannelSettlingResult(double Celsius, ChannelStart Start, double OtherChannelVolts, double FinalVolts, double LsbVolts,
     IReadOnlyList<FilterReading> Readings, IReadOnlyList<double> ErrorVolts, int? ReadingsToDiscard, double? SettledSeconds, int ReadingsDiscarded,
     double FirstUsedErrorVolts, int FilterSettlingConversions)
 {

@@ -108,7 +108,7 @@ internal static class InputLoading
 /// The input's load at one temperature: the pin unloaded, what the converter takes with the switched input (its periodic
 /// steady state), the average-resistor model, the closed form, and R_eq and R_s behind them (volts at the pin).
 /// </summary>
-internal sealed record InputLoad(double Celsius, bool Buffered, double UnloadedVolts, double SwitchedVolts, double AverageVolts,
+public sealed record InputLoad(double Celsius, bool Buffered, double UnloadedVolts, double SwitchedVolts, double AverageVolts,
     double ClosedFormVolts, double EquivalentOhms, double SourceOhms)
 {
     /// <summary>The error the load makes in what the converter takes.</summary>

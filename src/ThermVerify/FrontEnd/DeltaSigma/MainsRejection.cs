@@ -47,7 +47,7 @@ internal static class MainsRejection
 /// The rejection at one frequency: the digital filter's |H| and the analog path's gain from the sensor to the pin
 /// (fractions), and with a declared interference amplitude the largest error it makes in a reading (V at the pin, K).
 /// </summary>
-internal sealed record RejectionAt(double Hertz, double DigitalGain, double AnalogGain, double? ErrorVolts, double? ErrorKelvin)
+public sealed record RejectionAt(double Hertz, double DigitalGain, double AnalogGain, double? ErrorVolts, double? ErrorKelvin)
 {
     public double DigitalDecibels => -20 * Math.Log10(DigitalGain);
     public double TotalDecibels => -20 * Math.Log10(DigitalGain * AnalogGain);
