@@ -18,8 +18,8 @@ internal static class FrontEndCheck
 {
     public static CheckResult Run(FrontEndDesign design, CheckOptions? options = null)
     {
-        ConverterSupport.RequireSuccessiveApproximation(design, "check");
         options ??= new CheckOptions();
+        if (design.Adc.Kind == ConverterKind.DeltaSigma) return DeltaSigma.DeltaSigmaCheck.Run(design, options);
         var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToArray();
         var evaluation = CheckEvaluation.Run(design, temperatures, options).Refined(options);
         var points = evaluation.Points;

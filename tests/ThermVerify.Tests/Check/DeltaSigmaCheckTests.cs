@@ -1,0 +1,67 @@
+using ThermVerify.Check;
+using ThermVerify.Check.DeltaSigma;
+using ThermVerify.Design;
+using ThermVerify.Tests.Design;
+
+namespace ThermVerify.Tests.Check;
+
+/// <summary>The check of a delta-sigma design: its own findings, remedies proven by analysing the changed design again.</summary>
+public class DeltaSigmaCheckTests
+{
+    private static string Example(string name) => Path.Combine(AppContext.BaseDirectory, "..", "..", "..", "..", "..", "netlists", name);
+
+    [Fact]
+    public void The_kiln_example_fails_on_its_first_reading_after_a_switch_and_says_how_many_to_discard()
+    {
+        var design = DesignLoader.Load(Example("kiln-bank-pt100-deltasigma.toml"));
+        var result = FrontEndCheck.Run(design);
+        Assert.False(result.Passed);
+        var channel = Assert.Single(result.Findings, f => f.Id == DeltaSigmaFindings.ChannelSwitchId);
+        Assert.Equal(Severity.Fail, channel.Severity);
+        var discard = result.DeltaSigma!.ChannelSwitch.ReadingsToDiscard!.Value;
+        Assert.InRange(discard, 1, 10);
+        Assert.Contains($"readings_discarded = {discard}", channel.Cause);
+        // The shared filter starts a conversion-length RC (1.16 kΩ · 4.7 µF = 5.4 ms) at the other channel's 1.95 V:
+        // with a reset sinc3 the first reading comes after 3 conversions (60 ms) and is still far off.
+        Assert.Equal(0.06, result.DeltaSigma.ChannelSwitch.Readings[0].Seconds, 9);
+        Assert.True(result.DeltaSigma.ChannelSwitch.FirstUsedErrorVolts > 1e-3);
+        var remedy = Assert.Single(channel.Remedies, r => r.Key == "adc.readings_discarded");
+        Assert.True(remedy.Value >= discard);
+        Assert.Contains("within ½ LSB", remedy.Proof);
+
+        // The remedy applied: the check no longer has the finding (the proof, made again here on the whole check).
+        var fixedDesign = design with { Adc = design.Adc with { DeltaSigma = design.Adc.DeltaSigma! with { ReadingsDiscarded = (int)remedy.Value!.Value } } };
+        var again = FrontEndCheck.Run(fixedDesign, new CheckOptions { ComputeRemedies = false });
+        Assert.DoesNotContain(again.Findings, f => f.Id == DeltaSigmaFindings.ChannelSwitchId);
+        Assert.True(again.Passed, string.Join("; ", again.Findings.Where(f => f.Severity == Severity.Fail).Select(f => f.Id)));
+    }
+
+    [Fact]
+    public void The_input_load_finding_gives_remedies_whose_check_clears_it()
+    {
+        var design = DesignLoader.Load(Example("kiln-bank-pt100-deltasigma.toml"));
+        var result = FrontEndCheck.Run(design);
+        var loading = Assert.Single(result.Findings, f => f.Id == DeltaSigmaFindings.InputLoadingId);
+        Assert.NotEmpty(loading.Remedies);
+        foreach (var remedy in loading.Remedies)
+        {
+            var changed = remedy.Key switch
+            {
+                "adc.input" => design with { Adc = design.Adc with { DeltaSigma = design.Adc.DeltaSigma! with { InputBuffered = true, SamplingCapacitanceFarads = 0 } } },
+                "filter.reservoir_capacitor" => design with { Filter = design.Filter with { ReservoirCapacitorFarads = remedy.Value!.Value } },
+                "filter.series_resistor" => design with { Filter = design.Filter with { SeriesResistorOhms = remedy.Value!.Value } },
+                var key => throw new Xunit.Sdk.XunitException($"unexpected remedy {key}"),
+            };
+            var again = FrontEndCheck.Run(changed, new CheckOptions { ComputeRemedies = false });
+            Assert.DoesNotContain(again.Findings, f => f.Id == DeltaSigmaFindings.InputLoadingId);
+        }
+    }
+
+    [Fact]
+    public void A_programmable_gain_other_than_one_is_refused_by_check_not_read_at_gain_one()
+    {
+        var design = DeltaSigmaDesigns.Make(("adc.gain", "16"));
+        var e = Assert.Throws<ConverterUnsupportedException>(() => FrontEndCheck.Run(design));
+        Assert.Contains("gain", e.Message);
+    }
+}
