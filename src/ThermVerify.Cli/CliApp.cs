@@ -26,6 +26,7 @@ public static class CliApp
             MonteCarloCommand.Create(),
             ChooseFixedCommand.Create(),
             DeckCommand.Create(),
+            ImportCommand.Create(),
             WatchCommand.Create(),
         };
         if (args.Length == 0)

@@ -25,6 +25,17 @@ public static class Verifier
     }
 
     /// <summary>
+    /// A starting design file for a SPICE netlist (docs/netlists.md): the netlist read strictly, its sensor, pin,
+    /// excitation and reference guessed and marked CONFIRM, the rest placeholders marked FILL IN. The design file is to
+    /// lie in the netlist's folder; includes are read from there.
+    /// </summary>
+    public static string ImportNetlist(string netlistPath, WorkLimits? limits = null)
+    {
+        using var scope = limits is null ? null : Work.Scope(CancellationToken.None, limits);
+        return Design.Netlists.NetlistImportFile.Read(netlistPath);
+    }
+
+    /// <summary>
     /// The main job: the design's closed form against simulation over its check range, every error against the
     /// budget, with findings and proven remedies; compared with a baseline file when one is named.
     /// </summary>

@@ -25,6 +25,10 @@ internal static class NetlistReader
         var (fullPath, text) = s.ReadFile("file", file);
         var parsed = NetlistParser.Parse(text, file, s.KeyPath("file"), (included, at, errors, _) => Include(s, included, at, errors));
         CheckReserved(parsed, s.KeyPath("file"));
+        if (parsed.Elements.FirstOrDefault(e => e.Pulse is not null) is { } pulsed)
+            throw new DesignException(pulsed.At.FileName, pulsed.At.Line, pulsed.At.Column, s.KeyPath("file"),
+                $"the PULSE of {pulsed.Name} is read, but a switched source is not checked yet (in the card '{NetlistErrors.Quote(pulsed.At.Card)}')",
+                "Give the source its DC value while it measures; the check does not yet follow a netlist's switched excitation.");
 
         var sensors = s.Strings("sensor") ?? throw s.Missing("sensor", "Name the sensor's resistor in the netlist: sensor = \"Rntc\".");
         if (sensors.Count != 1)

@@ -1,0 +1,34 @@
+using ThermVerify.Tests.Cli;
+
+namespace ThermVerify.Tests.Docs;
+
+/// <summary>The walk-through of docs/netlists.md shows what the tool prints now (THERMVERIFY_REWRITE_DOCS=1 rewrites it).</summary>
+public sealed class NetlistDocsTests : IDisposable
+{
+    private static string Page => Repository.PathOf("docs", "netlists.md");
+
+    private readonly DirectoryInfo folder = Directory.CreateTempSubdirectory("tv-netlist-docs-");
+
+    public void Dispose() => folder.Delete(recursive: true);
+
+    private void Copy(string file) => File.Copy(Path.Combine(Repository.Netlists, file), Path.Combine(folder.FullName, file));
+
+    private string Shown(string[] args, bool error = false)
+    {
+        var run = CliRunner.Run([.. args.Select((a, i) => i == 1 ? Path.Combine(folder.FullName, a) : a)]);
+        var printed = (error ? run.Error : run.Output).Replace(folder.FullName + Path.DirectorySeparatorChar, "");
+        return $"$ thermverify {string.Join(' ', args)}\n{printed}";
+    }
+
+    [Fact]
+    public void The_walk_through_shows_the_netlist_the_check_and_a_refusal()
+    {
+        Copy("boiler-flue-protected.cir");
+        Copy("boiler-flue-protected.toml");
+        DocBlocks.AssertCurrent(Page, "netlists-walkthrough-cir", File.ReadAllText(Path.Combine(Repository.Netlists, "boiler-flue-protected.cir")));
+        DocBlocks.AssertCurrent(Page, "netlists-walkthrough-check", Shown(["check", "boiler-flue-protected.toml", "--no-remedies"]));
+        var cir = Path.Combine(folder.FullName, "boiler-flue-protected.cir");
+        File.WriteAllText(cir, File.ReadAllText(cir).Replace(".end", ".control\nshell rm -rf ~\n.endc\n.end"));
+        DocBlocks.AssertCurrent(Page, "netlists-walkthrough-refused", Shown(["check", "boiler-flue-protected.toml"], error: true));
+    }
+}
