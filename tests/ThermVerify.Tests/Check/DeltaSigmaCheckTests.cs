@@ -65,3 +65,35 @@ public class DeltaSigmaCheckTests
         Assert.Contains("gain", e.Message);
     }
 }
+
+/// <summary>The check's JSON and text carry the delta-sigma analyses as the result holds them (docs/json-output.md).</summary>
+public class DeltaSigmaOutputTests
+{
+    [Fact]
+    public void The_json_deltaSigma_block_and_the_text_sections_show_the_results()
+    {
+        var result = ExampleVerdictTests.Checked("kiln-bank-pt100-deltasigma.toml");
+        var r = result.DeltaSigma!;
+        var root = System.Text.Json.JsonDocument.Parse(ThermVerify.Reporting.CheckJson.Write(result, TestRun.Provenance)).RootElement;
+        var ds = root.GetProperty("deltaSigma");
+        Assert.Equal(r.Decimation, ds.GetProperty("decimation").GetInt32());
+        Assert.Equal(r.NoiseBandwidthHertz, ds.GetProperty("noiseBandwidthHertz").GetDouble());
+        var channel = ds.GetProperty("channelSwitch");
+        Assert.Equal(r.ChannelSwitch.ReadingsToDiscard, channel.GetProperty("readingsToDiscard").GetInt32());
+        Assert.Equal("shared", channel.GetProperty("filter").GetString());
+        Assert.Equal(r.ChannelSwitch.Readings.Count, channel.GetProperty("readings").GetArrayLength());
+        Assert.Equal(r.InputLoading.Count, ds.GetProperty("inputLoading").GetArrayLength());
+        Assert.Equal(r.InputLoading[0].ErrorVolts, ds.GetProperty("inputLoading")[0].GetProperty("errorVolts").GetDouble());
+        Assert.Equal(2, ds.GetProperty("rejection").GetArrayLength());
+        // A successive-approximation design has none.
+        var sar = ExampleVerdictTests.Checked("mash-tun-pt100-current.toml");
+        var sarRoot = System.Text.Json.JsonDocument.Parse(ThermVerify.Reporting.CheckJson.Write(sar, TestRun.Provenance)).RootElement;
+        Assert.Equal(System.Text.Json.JsonValueKind.Null, sarRoot.GetProperty("deltaSigma").ValueKind);
+
+        var text = ThermVerify.Reporting.Text.CheckSummaryText.Render(result, TestRun.Provenance);
+        Assert.Contains("Readings after a channel switch", text);
+        Assert.Contains($"Readings to discard: {r.ChannelSwitch.ReadingsToDiscard}", text);
+        Assert.Contains("Delta-sigma input load", text);
+        Assert.DoesNotContain("precharge", text.Split("Findings:")[0]);
+    }
+}
