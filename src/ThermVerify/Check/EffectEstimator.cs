@@ -30,6 +30,8 @@ internal static class EffectEstimator
                     DividerFormula.SlopeVoltsPerOhm(divider.SensorSide, divider.ExcitationVolts, point.SensorOhms, divider.FixedResistorOhms);
             leads = DividerLeadVolts(design, divider, point);
         }
+        else if (design.Netlist is { } netlist)
+            drift = NetlistTransfer.Of(netlist).PartDriftVolts(point.SensorOhms, design.Check.BoardCelsius ?? point.Celsius);
         else
             (leakage, excitation, leads) = CurrentLoading(design, point);
         var (offset, bias) = design.Buffer is null ? (0.0, 0.0) : BufferStaticErrors.At(design, point) is var s ? (s.OffsetVolts + s.DriftVolts, s.BiasVolts) : default;
@@ -45,7 +47,7 @@ internal static class EffectEstimator
             };
         if (prechargeVolts is not { } pre) return Make(0, 0);
 
-        var reservoir = design.Filter.ReservoirCapacitorFarads;
+        var reservoir = FrontEndCircuit.ReservoirFarads(design);
         if (reservoir > 0)
         {
             var external = reservoir + adc.PinCapacitanceFarads;

@@ -26,7 +26,8 @@ internal static class FindingRules
 
         Add("converter", "the converter's static errors (offset, gain, INL, reference) shift the code by more than ½ LSB",
             p => p.Simulated.ConverterVolts, p => p.Contributions.ConverterKelvin, p => ConverterCause(design, p, lsb), p => p.Simulated.ConverterVolts, simulated: false);
-        Add("dc-loading", (design.CurrentSource is null ? "DC error at the pin: pin leakage, fixed-resistor drift"
+        Add("dc-loading", (design.Netlist is not null ? "DC error at the pin: pin leakage, the netlist's parts' drift"
+                : design.CurrentSource is null ? "DC error at the pin: pin leakage, fixed-resistor drift"
                 : "DC error at the pin: pin leakage, the current source's drift and output resistance, the reference resistor's drift and loading")
                 + (design.Wiring is not null && design.CurrentSource is null ? ", sensor leads" : "")
                 + (design.Protection is { HasClamps: true } ? ", clamp-diode leakage" : "") + (design.Protection?.InsulationOhms is null ? "" : ", insulation leakage"),
@@ -151,6 +152,9 @@ internal static class FindingRules
         if (design.Divider is { FixedTempcoPerKelvin: not 0 } divider)
             parts.Add(I($"the fixed resistor's tempco of {Bounded(I($"{Math.Abs(divider.FixedTempcoPerKelvin) * 1e6:0.###} ppm/K"), divider.FixedTempcoSigned, divider.FixedTempcoPerKelvin)} ") +
                       I($"at {(design.Check.BoardCelsius ?? p.Celsius):0.##} °C {Volts(p.Estimates.FixedDriftVolts)}"));
+        if (design.Netlist is { } netlist && netlist.Parts.Where(x => x.TempcoPerKelvin != 0).ToList() is { Count: > 0 } drifting)
+            parts.Add(I($"the tempco of {string.Join(", ", drifting.Select(x => I($"{x.Name} {Bounded(I($"{Math.Abs(x.TempcoPerKelvin) * 1e6:0.###} ppm/K"), x.TempcoSigned, x.TempcoPerKelvin)}")))} ") +
+                      I($"at {(design.Check.BoardCelsius ?? p.Celsius):0.##} °C through the netlist's ideal transfer {Volts(p.Estimates.FixedDriftVolts)}"));
         if (design.CurrentSource is { } source)
             parts.Add(CurrentWords.Loading(design, source, p));
         else if (design.Wiring is { } wiring)

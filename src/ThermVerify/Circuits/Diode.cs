@@ -86,8 +86,12 @@ internal sealed record Diode(string Name, string Anode, string Cathode, double S
             return;
         }
         var model = $"{Name}_model";
+        // Referenced to the deck's TNOM, the built-in law is SPICE's own: the model carries its eg and xti.
+        var law = SaturationReferenceCelsius == SpiceDeckWriter.NominalCelsius
+            ? $"xti={SpiceNumber.Format(SaturationExponent)} eg={SpiceNumber.Format(BandGapElectronVolts)}"
+            : "xti=0 eg=0";
         deck.Line($"{SpiceLines.InstanceName('D', Name)} {Anode} {Cathode} {model}");
         deck.Definition(model, $".model {model} d is={SpiceNumber.Format(SaturationCurrentAmperes)} n={SpiceNumber.Format(EmissionCoefficient)} " +
-                               $"rs={SpiceNumber.Format(SeriesResistanceOhms)} xti=0 eg=0 cjo=0");
+                               $"rs={SpiceNumber.Format(SeriesResistanceOhms)} {law} cjo=0");
     }
 }

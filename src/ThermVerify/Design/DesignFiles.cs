@@ -8,6 +8,7 @@ internal static class DesignFiles
         var files = new List<string> { Path.GetFullPath(designPath) };
         if (design?.Sensor is TableSensorSpec table) files.Add(table.FullPath);
         if (design?.Buffer?.Subcircuit is { } sub) files.Add(sub.FullPath);
+        if (design?.Netlist is { } netlist) files.Add(netlist.FullPath);
         return files;
     }
 }

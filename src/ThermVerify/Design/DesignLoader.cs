@@ -11,7 +11,7 @@ namespace ThermVerify.Design;
 /// </summary>
 internal static class DesignLoader
 {
-    private static readonly string[] TopKeys = ["name", "description", "sensor", "divider", "current_source", "wiring", "buffer", "filter", "protection", "adc", "check", "noise", "tolerances"];
+    private static readonly string[] TopKeys = ["name", "description", "sensor", "divider", "current_source", "wiring", "buffer", "filter", "protection", "adc", "check", "noise", "tolerances", "netlist"];
 
     public static FrontEndDesign Load(string path)
     {
@@ -55,6 +55,7 @@ internal static class DesignLoader
             Sensor = sensor,
             Divider = root.Section("divider") is { } divider ? CircuitReaders.ReadDivider(divider) : null,
             CurrentSource = root.Section("current_source") is { } source ? CurrentSourceReader.Read(source) : null,
+            Netlist = root.Section("netlist") is { } netlist ? NetlistReader.Read(netlist) : null,
             Wiring = root.Section("wiring") is { } wiring ? WiringReader.Read(wiring) : null,
             Buffer = root.Section("buffer") is { } buffer ? CircuitReaders.ReadBuffer(buffer) : null,
             Filter = root.Section("filter") is { } filter ? CircuitReaders.ReadFilter(filter) : FilterSpec.None,

@@ -9,7 +9,7 @@ namespace ThermVerify.Design;
 /// Prints a design back as TOML with every default made explicit and values in engineering notation, each printed
 /// with just enough digits to load back to the same double. Keys with no default (not modelled) are left out.
 /// </summary>
-internal static class DesignWriter
+internal static partial class DesignWriter
 {
     public static string ToToml(FrontEndDesign design)
     {
@@ -26,9 +26,14 @@ internal static class DesignWriter
             WriteWiring(w, wiring);
         if (design.Buffer is not null)
             WriteBuffer(w, design.Buffer);
-        w.Section("filter");
-        w.Value("series_resistor", design.Filter.SeriesResistorOhms, UnitKind.Ohm);
-        w.Value("reservoir_capacitor", design.Filter.ReservoirCapacitorFarads, UnitKind.Farad);
+        if (design.Netlist is { } netlist)
+            WriteNetlist(w, netlist);
+        else
+        {
+            w.Section("filter");
+            w.Value("series_resistor", design.Filter.SeriesResistorOhms, UnitKind.Ohm);
+            w.Value("reservoir_capacitor", design.Filter.ReservoirCapacitorFarads, UnitKind.Farad);
+        }
         if (design.Protection is { } protection)
             WriteProtection(w, protection);
         WriteAdc(w, design.Adc);
@@ -317,6 +322,12 @@ internal static class DesignWriter
         public void Number(string key, double value) => Line(key, value.ToString("R", CultureInfo.InvariantCulture));
 
         public void Integer(string key, int value) => Line(key, value.ToString(CultureInfo.InvariantCulture));
+
+        /// <summary>A list of names, as a TOML array of strings.</summary>
+        public void Names(string key, IEnumerable<string> names) => Line(key, "[" + string.Join(", ", names.Select(Quote)) + "]");
+
+        /// <summary>The header of one entry of an array of tables ([[name]]).</summary>
+        public void Entry(string name) => _text.Append('\n').Append("[[").Append(name).Append("]]\n");
 
         public void Boolean(string key, bool value) => Line(key, value ? "true" : "false");
 

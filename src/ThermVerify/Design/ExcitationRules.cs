@@ -10,6 +10,11 @@ internal static class ExcitationRules
 {
     public static void Check(TomlSection root, FrontEndDesign design)
     {
+        if (design.Netlist is not null)
+        {
+            NetlistRules.Check(root, design);
+            return;
+        }
         if (design.Divider is null && design.CurrentSource is null)
             throw new DesignException(root.SourceName, 1, 1, "divider", "missing section [divider] or [current_source]",
                 "Add a [divider] section (sensor_side, fixed_resistor, excitation) for a voltage-excited divider, or a [current_source] section (current) for a current through the sensor.");

@@ -13,6 +13,8 @@ public sealed record FrontEndDesign
     public DividerSpec? Divider { get; init; }
     /// <summary>The current source through the sensor; null for a divider. A design has exactly one of the two.</summary>
     public CurrentSourceSpec? CurrentSource { get; init; }
+    /// <summary>A front end given as a SPICE netlist ([netlist]) instead of the built-in shape; null for the built-in shape.</summary>
+    public NetlistSpec? Netlist { get; init; }
     /// <summary>The sensor's leads (with a current source); null: no leads modelled.</summary>
     public WiringSpec? Wiring { get; init; }
     /// <summary>Null when the divider drives the filter and ADC directly.</summary>
@@ -38,6 +40,6 @@ public sealed record FrontEndDesign
 
     /// <summary>The converter's reference as the firmware takes it: a fixed one, the excitation (ratiometric divider) or I·R_ref.</summary>
     public double NominalReferenceVolts =>
-        Adc.ReferenceVolts ?? CurrentSource?.NominalReferenceVolts ?? Divider?.ExcitationVolts
+        Adc.ReferenceVolts ?? CurrentSource?.NominalReferenceVolts ?? Divider?.ExcitationVolts ?? Netlist?.ReferenceVolts
         ?? throw new InvalidOperationException($"{Name} has no reference.");
 }

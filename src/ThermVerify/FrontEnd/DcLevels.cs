@@ -41,7 +41,7 @@ internal sealed record DcLevels(
     /// follows the source between samples and the transient alone tells the sampling error.
     /// </summary>
     public static bool UsesAverageSamplingCurrent(FrontEndDesign design, double? prechargeVolts) =>
-        prechargeVolts is not null && design.Filter.ReservoirCapacitorFarads > 0;
+        prechargeVolts is not null && FrontEndCircuit.ReservoirFarads(design) > 0;
 
     /// <summary>The design with no DC loading: no pin or clamp leakage, no insulation leakage, a fixed resistor without tempco.</summary>
     public static FrontEndDesign WithoutLoading(FrontEndDesign design) => design with
@@ -57,6 +57,7 @@ internal sealed record DcLevels(
         engine ??= BuiltInEngine.Instance;
         var pinNode = FrontEndCircuit.PinNode(design);
         var source = design.CurrentSource;
+        if (design.Netlist is not null) return RunNetlist(design, cases, temperaturesCelsius, engine, pinNode);
         if (source is not null) return RunCurrent(design, cases, temperaturesCelsius, engine, pinNode);
         var plain = Sweep(engine, design, null, temperaturesCelsius, [Divider, pinNode]);
         var staticPin = plain[1];
@@ -65,6 +66,27 @@ internal sealed record DcLevels(
             ? Sweep(engine, design, c.Volts, temperaturesCelsius, [pinNode])[0]
             : staticPin).ToArray();
         return new DcLevels(plain[0], afterBuffer, staticPin, average);
+    }
+
+    /// <summary>
+    /// A netlist front end: the pin and the sensor's two terminals (its voltage, for self-heating, in place of the
+    /// divider's). A ratiometric converter's reference node is driven by a DC source from ground (the loader holds it
+    /// to that), so its voltage is the nominal reference exactly and the converter knows it, as with a divider.
+    /// </summary>
+    private static DcLevels RunNetlist(FrontEndDesign design, IReadOnlyList<PrechargeCase> cases, IReadOnlyList<double> temperatures,
+        ICheckEngine engine, string pinNode)
+    {
+        var netlist = design.Netlist!;
+        var sensor = netlist.Parsed.Find(netlist.SensorElements[0])!;
+        // Ground is no vector of a sweep (ngspice has none for it): a sensor terminal on it reads 0.
+        var nodes = sensor.Nodes.Where(n => n != Circuit.Ground).Append(pinNode).ToList();
+        var swept = Sweep(engine, design, null, temperatures, nodes);
+        double[] At(string node) => node == Circuit.Ground ? new double[temperatures.Count] : swept[nodes.IndexOf(node)];
+        var v = new[] { At(sensor.Nodes[0]), At(sensor.Nodes[1]), swept[^1] };
+        var average = cases.Select(c => UsesAverageSamplingCurrent(design, c.Volts)
+            ? Sweep(engine, design, c.Volts, temperatures, [pinNode])[0]
+            : v[2]).ToArray();
+        return new DcLevels([.. v[0].Select((x, i) => x - v[1][i])], null, v[2], average);
     }
 
     /// <summary>

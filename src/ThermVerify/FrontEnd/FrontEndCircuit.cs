@@ -91,7 +91,11 @@ internal static class FrontEndCircuit
     {
         var board = design.Check.BoardCelsius;
         var elements = new List<Element>();
-        if (design.CurrentSource is not null)
+        if (design.Netlist is not null)
+        {
+            NetlistCircuit.Add(elements, design, board);
+        }
+        else if (design.CurrentSource is not null)
         {
             CurrentSourceCircuit.Add(elements, design, board, celsius);
         }
@@ -133,6 +137,14 @@ internal static class FrontEndCircuit
         return elements;
     }
 
+    /// <summary>
+    /// The reservoir at the pin: the filter's, or in a netlist the capacitors from the pin to ground (what holds the pin
+    /// between samples; a capacitor further back is behind a resistance and counts through the transient alone).
+    /// </summary>
+    public static double ReservoirFarads(FrontEndDesign design) => design.Netlist is { } n
+        ? n.Parsed.Elements.Where(e => e.Kind == 'C' && e.Nodes.Contains(n.PinNode) && e.Nodes.Contains(Circuit.Ground)).Sum(e => e.Value)
+        : design.Filter.ReservoirCapacitorFarads;
+
     /// <summary>The node that drives the filter: the buffer's output, or the divider itself.</summary>
     public static string DriveNode(FrontEndDesign design) => design.Buffer is null ? Divider : BufferOutput;
 
@@ -141,7 +153,8 @@ internal static class FrontEndCircuit
         design.Buffer is null ? Divider : design.Buffer.IsolationResistorOhms > 0 ? BufferStage.AmplifierOutput : BufferOutput;
 
     /// <summary>The ADC pin: its own node behind a series resistor, else the drive node itself.</summary>
-    public static string PinNode(FrontEndDesign design) => design.Filter.SeriesResistorOhms > 0 ? Pin : DriveNode(design);
+    public static string PinNode(FrontEndDesign design) =>
+        design.Netlist?.PinNode ?? (design.Filter.SeriesResistorOhms > 0 ? Pin : DriveNode(design));
 
     /// <summary>A resistor on the board (the fixed or the reference resistor): its tempco follows the sweep, or is taken once at the board temperature.</summary>
     internal static Resistor FixedResistor(string name, string a, string b, double ohms, double tempco, double? boardCelsius) =>

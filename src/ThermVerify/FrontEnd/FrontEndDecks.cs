@@ -40,7 +40,14 @@ public sealed record DeckOptions
 internal static class FrontEndDecks
 {
     /// <summary>The AC input: the divider's excitation, or the current source.</summary>
-    public static string AcInputSource(FrontEndDesign design) => design.CurrentSource is null ? "Vexc" : CurrentSourceElement;
+    public static string AcInputSource(FrontEndDesign design) => design.Netlist is { } n
+        ? n.Excitation.FirstOrDefault() ?? n.Parsed.Elements.First(e => e.Kind is 'V' or 'I').Name
+        : design.CurrentSource is null ? "Vexc" : CurrentSourceElement;
+
+    /// <summary>Whether the AC input is a current (its transfer is then in V/A).</summary>
+    private static bool CurrentInput(FrontEndDesign design) => design.Netlist is not null
+        ? char.ToUpperInvariant(AcInputSource(design)[0]) == 'I'
+        : design.CurrentSource is not null;
 
     public static string Write(FrontEndDesign design, DeckAnalysis analysis, DeckOptions? options = null)
     {
@@ -61,7 +68,7 @@ internal static class FrontEndDecks
                 return SpiceDeckWriter.Write(circuit, DcTemperatureSweep.From(temperatures),
                     Header(design, circuit, $"temperature sweep over the check range, {PrechargeCases.Describe(precharge)}{drift}",
                         $"prints v({pin}) at each temperature: the check's DC pin voltage (with leakage, bias and average sampling currents)"),
-                    Outputs(options, new PrintVectors("dc", [$"v({Divider})", $"v({pin})"])));
+                    Outputs(options, new PrintVectors("dc", design.Netlist is null ? [$"v({Divider})", $"v({pin})"] : [$"v({pin})"])));
             }
             case DeckAnalysis.Tran:
             {
@@ -87,7 +94,7 @@ internal static class FrontEndDecks
                     : new NoiseSweep(pin, AcInputSource(design), options.StartHertz, options.StopHertz, options.PointsPerDecade);
                 return SpiceDeckWriter.Write(circuit, sweep, Header(design, circuit,
                     $"{(analysis == DeckAnalysis.Ac ? "AC response" : "output noise")} of the DC circuit at {celsius:0.###} °C, " +
-                    $"input {AcInputSource(design)} (1 {(design.CurrentSource is null ? "V" : "A")} AC), output v({pin})",
+                    $"input {AcInputSource(design)} (1 {(CurrentInput(design) ? "A" : "V")} AC), output v({pin})",
                     analysis == DeckAnalysis.Ac
                         ? $"prints vdb({pin}) and vp({pin}) (dB and radians) at each frequency: the transfer from the excitation to the pin (V/A for a current source)"
                         : "prints onoise_spectrum at each frequency: the noise density at the pin in V/√Hz"),
@@ -124,7 +131,12 @@ internal static class FrontEndDecks
         {
             Notes = [$"design: {design.Name}" + (design.Description is { } d ? $" ({d})" : ""), Provenance(design), what,
                 .. prints is null ? Array.Empty<string>() : [$"ngspice -b on this deck {prints}"]],
-            NodeDescriptions = new Dictionary<string, string>
+            NodeDescriptions = design.Netlist is { } netlist ? new Dictionary<string, string>
+            {
+                [netlist.PinNode] = $"the converter's input (the netlist {netlist.File}'s node {netlist.PinNode})",
+                [Hold] = "sampling capacitor behind the sampling switch",
+                [Precharge] = "precharge level of the sampling capacitor",
+            } : new Dictionary<string, string>
             {
                 [Excitation] = design.CurrentSource is null ? "excitation, the top of the divider" : "current source output, above the reference resistor",
                 [Divider] = design.CurrentSource is null ? "divider midpoint, where the sensor meets the fixed resistor" : "the sensor's node, read by the converter",

@@ -30,6 +30,12 @@ internal static class StaticBounds
             Add("current_source.reference_resistor_tempco", source.ReferenceResistorTempcoPerKelvin, source.ReferenceResistorTempcoSigned,
                 (x, v) => x with { CurrentSource = x.CurrentSource! with { ReferenceResistorTempcoPerKelvin = v } });
         }
+        if (d.Netlist is { } netlist)
+            foreach (var part in netlist.Parts)
+                Add($"netlist.part.{part.Name}.tempco", part.TempcoPerKelvin, part.TempcoSigned, (x, v) => x with
+                {
+                    Netlist = x.Netlist! with { Parts = [.. x.Netlist.Parts.Select(p => p.Name == part.Name ? p with { TempcoPerKelvin = v } : p)] },
+                });
         if (d.Protection is { } protection)
             Add("protection.clamp_leakage", protection.ClampLeakageAmperes, protection.ClampLeakageSigned,
                 (x, v) => x with { Protection = x.Protection! with { ClampLeakageAmperes = v } });

@@ -153,6 +153,9 @@ internal static class ReportFormat
     /// <summary>The excitation in a line: the divider, or the current source with its reference resistor.</summary>
     public static (string Label, string Value) Excitation(Design.FrontEndDesign d)
     {
+        if (d.Netlist is { } n)
+            return ("netlist", $"{n.File} ({n.Parsed.Elements.Count} elements): sensor {string.Join(", ", n.SensorElements)}, converter at node {n.PinNode}" +
+                               (n.Excitation.Count > 0 ? $", excitation {string.Join(", ", n.Excitation)}" : ""));
         if (d.Divider is { } divider)
             return ("divider", $"sensor on the {(divider.SensorSide == Design.SensorSide.High ? "high" : "low")} side, fixed {V(divider.FixedResistorOhms, UnitKind.Ohm)}, excitation {V(divider.ExcitationVolts, UnitKind.Volt)}" +
                                (d.Wiring is { } leads ? $", 2 wires of {V(leads.LeadOhms, UnitKind.Ohm)}" : ""));
@@ -166,6 +169,7 @@ internal static class ReportFormat
     /// <summary>The converter's reference in words: a voltage, the divider's excitation, or the reference resistor's I·R_ref.</summary>
     public static string Reference(Design.FrontEndDesign d, AdcTransfer adc) =>
         !d.Adc.IsRatiometric ? V(adc.ReferenceVolts, UnitKind.Volt)
+        : d.Netlist?.ReferenceNode is { } node ? $"ratiometric, v({node}) = {V(adc.ReferenceVolts, UnitKind.Volt)}"
         : d.CurrentSource is null ? "ratiometric" : $"ratiometric, I·R_ref = {V(adc.ReferenceVolts, UnitKind.Volt)}";
 
     public static IEnumerable<(string Label, string Value)> Settings(CheckResult result) =>

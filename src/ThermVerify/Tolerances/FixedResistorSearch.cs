@@ -69,6 +69,10 @@ internal static class FixedResistorSearch
     {
         ConverterSupport.RequireSuccessiveApproximation(design, "the fixed-resistor choice");
         options ??= new FixedResistorSearchOptions();
+        if (design.Netlist is not null)
+            throw new DesignException(design.Name, 1, 1, "netlist",
+                "choose-fixed chooses a divider's fixed resistor, and this design is a netlist front end, which has no fixed resistor of the built-in shape",
+                "Run check on it; choosing a netlist part's value is not supported yet.");
         var divider = design.Divider ?? throw new DesignException(design.Name, 1, 1, "current_source",
             "choose-fixed chooses a divider's fixed resistor, and this design has none: a current source excites its sensor",
             "Run check, worstcase or montecarlo on it; check's remedies give the reference resistor's tempco needed.");

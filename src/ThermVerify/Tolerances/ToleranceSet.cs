@@ -26,6 +26,11 @@ internal sealed class ToleranceSet
 
     public static ToleranceSet From(FrontEndDesign design)
     {
+        // Spreading a netlist's parts needs its units built from [[netlist.part]]; refused rather than run without them.
+        if (design.Netlist is not null)
+            throw new DesignException(design.Name, 1, 1, "netlist",
+                "worst case and Monte Carlo over a netlist's parts are not supported yet",
+                "Run check on it (the parts' tempcos are bounds there); worstcase and montecarlo run on designs of the built-in shape.");
         var d = ToleranceDistribution.Of(design.Tolerances);
         var list = new List<ToleranceParameter>();
         void Add(ToleranceKind kind, string key, double halfWidth, string unit, bool signed = false)

@@ -29,6 +29,7 @@ public class ExampleVerdictTests
     [InlineData("soil-probe-switched.toml", true, null)]
     [InlineData("dosing-pump-ntc-rc.toml", true, null)]
     [InlineData("attic-fan-leaky-pin.toml", false, "dc-loading")]
+    [InlineData("attic-fan-leaky-pin-netlist.toml", false, "dc-loading")]
     [InlineData("collector-pump-clamped.toml", false, "dc-loading")]
     [InlineData("cold-storage-logger.toml", false, "settling")]
     [InlineData("cold-storage-logger-reservoir.toml", false, "reservoir-recovery")]

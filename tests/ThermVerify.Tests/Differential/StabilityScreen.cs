@@ -58,6 +58,66 @@ internal static class StabilityScreen
         throw new InvalidOperationException("No shift makes G + σB regular; the circuit has no determined small-signal response.");
     }
 
+    /// <summary>Most combinations screened by <see cref="FirstUnstableCombination"/> (2⁸: eight switches and limited
+    /// op-amps in all their combinations; beyond that a seeded sample of this many).</summary>
+    public const int MaxCombinations = 256;
+
+    /// <summary>
+    /// The first combination of switch states and op-amp regions in which the linearised circuit is unstable (a
+    /// description), or null when every screened one is stable. The operating point's own state and its flip (the
+    /// screen of <see cref="DifferentialCase"/>) are not enough: differential seed 1103 is stable there, but unstable with S1
+    /// closed and the other two switches open, and with U1 saturated (two VCVS and a VCCS then form a loop), and its
+    /// transient runs away in both engines (ngspice to 1e6 V, the engine's step collapsing at 0.27 ms with nodes at 1e13 V). So every switch is taken open
+    /// and closed, and every op-amp with a finite swing or slew rate in its linear region and saturated — there its
+    /// output no longer follows its inputs, which the screen models as a gain of 1e-12 with the same pole (C_p and R_p
+    /// unchanged). A combination whose operating point or poles cannot be found is not judged.
+    /// </summary>
+    public static string? FirstUnstableCombination(Circuit circuit, int seed)
+    {
+        var switches = circuit.Elements.OfType<TimedSwitch>().Select(e => e.Name).ToList();
+        var limited = circuit.Elements.OfType<OpAmp>()
+            .Where(a => double.IsFinite(a.OutputHighVolts) || double.IsFinite(a.OutputLowVolts) || double.IsFinite(a.SlewRateVoltsPerSecond))
+            .Select(a => a.Name).ToList();
+        var bits = switches.Count + limited.Count;
+        if (bits == 0)
+            return null;
+        IEnumerable<long> masks = bits <= 8
+            ? Enumerable.Range(0, 1 << bits).Select(m => (long)m)
+            : SampledMasks(bits, seed);
+        foreach (var mask in masks)
+        {
+            var closed = switches.Where((_, i) => (mask >> i & 1) == 1).ToHashSet();
+            var saturated = limited.Where((_, i) => (mask >> (switches.Count + i) & 1) == 1).ToHashSet();
+            var variant = new Circuit(circuit.Elements.Select(e => e switch
+            {
+                TimedSwitch sw => sw with { Schedule = closed.Contains(sw.Name) ? new IntervalSchedule((0, 1e9)) : new IntervalSchedule((1e9, 2e9)) },
+                OpAmp a when saturated.Contains(a.Name) => a with { OpenLoopGain = 1e-12, GainBandwidthHertz = a.GainBandwidthHertz / a.OpenLoopGain * 1e-12 },
+                _ => e,
+            }), circuit.TemperatureCelsius);
+            Poles poles;
+            try
+            {
+                poles = PolesOf(variant);
+            }
+            catch (Exception e) when (e is SimulationException or InvalidOperationException or CircuitException)
+            {
+                continue;
+            }
+            if (!poles.Stable)
+                return $"unstable with {(closed.Count == 0 ? "every switch open" : "closed " + string.Join(", ", closed))}" +
+                       $"{(switches.Count > closed.Count && closed.Count > 0 ? ", the others open" : "")}" +
+                       $"{(saturated.Count == 0 ? "" : "; saturated " + string.Join(", ", saturated))}";
+        }
+        return null;
+    }
+
+    private static IEnumerable<long> SampledMasks(int bits, int seed)
+    {
+        var random = new Random(seed);
+        for (var k = 0; k < MaxCombinations; k++)
+            yield return random.NextInt64(1L << Math.Min(bits, 62));
+    }
+
     /// <summary>
     /// The circuit with every switch flipped to the state opposite its state at t = 0 (for a second screen).
     /// </summary>

@@ -49,4 +49,37 @@ public class ForwardDiodeAcrossSourceTests
         Assert.Contains("D1", e.Elements);
         Assert.Contains("E1", e.Elements);
     }
+
+    /// <summary>
+    /// Differential seed 473, distilled: V1 and V2 in series hold D1 forward at 4.459 V (1.7e28 A, 3.7e29 S), and two
+    /// capacitors hang on the same nodes. By Kirchhoff's voltage law n1 = −1.087 V and n2 = −4.459 V at every instant,
+    /// and no current flows in R3 and R4 (n3 = n2). The operating point was solved, but the transient's first step collapsed at
+    /// t = 0: the capacitors' C/h changed the pivot order, the diode's row became the pivot of n2's column and absorbed
+    /// the ±1 of V2's branch current, the two sources' rows became equal in rounding, and the solve returned noise
+    /// (n1 off by 3 mV). ngspice 39 completes it at the same voltages.
+    /// </summary>
+    [Fact]
+    public void Held_forward_by_two_stacked_sources_its_nodes_keep_the_sources_voltages_in_a_transient()
+    {
+        var circuit = new Circuit(
+        [
+            new Resistor("R1", "n1", "0", 4637.6),
+            new Resistor("R2", "n2", "n1", 132.2),
+            new Resistor("R3", "n3", "n2", 1361),
+            new VoltageSource("V1", "n1", "0", new DcWaveform(-1.087)),
+            new Diode("D1", "0", "n2", 3.86e-14, 1.82),
+            new Capacitor("C1", "n1", "n2", 8.45e-12),
+            new VoltageSource("V2", "n2", "n1", new DcWaveform(-3.372)),
+            new Capacitor("C2", "n2", "0", 1.34e-12),
+            new Resistor("R4", "n3", "n2", 14.5),
+        ], temperatureCelsius: 23);
+        var result = Transient.Run(circuit, new TransientOptions { StopTimeSeconds = 1e-6, MaxStepSeconds = 1e-8 });
+        Assert.Equal(1e-6, result.EndTimeSeconds, 12);
+        foreach (var t in new[] { 0, 1e-15, 1e-9, 3.3e-7, 1e-6 })
+        {
+            Tolerance.AssertClose(-1.087, result.VoltageAt("n1", t), 1e-12, 1e-15);
+            Tolerance.AssertClose(-4.459, result.VoltageAt("n2", t), 1e-12, 1e-15);
+            Tolerance.AssertClose(-4.459, result.VoltageAt("n3", t), 1e-12, 1e-15);
+        }
+    }
 }

@@ -42,7 +42,7 @@ internal static class ReadingNoiseAnalysis
 
     /// <summary>The correlation time of the noise the filter carries between conversions: R_source·(C_res + C_pin).</summary>
     public static double CorrelationSeconds(FrontEndDesign design, ClosedFormPoint cf) =>
-        EffectEstimator.SourceOhms(design, cf) * (design.Filter.ReservoirCapacitorFarads + design.Adc.PinCapacitanceFarads);
+        EffectEstimator.SourceOhms(design, cf) * (FrontEndCircuit.ReservoirFarads(design) + design.Adc.PinCapacitanceFarads);
 
     /// <summary>The reading's noise at one temperature; the density at the pin only when asked (the report's rows).</summary>
     public static ReadingNoise At(FrontEndDesign design, ClosedFormModel model, double celsius, ICheckEngine engine, bool density = false) =>

@@ -206,11 +206,13 @@ internal static class Knobs
     {
         var buffered = design.Buffer is not null;
         // A buffer behind a current-excited sensor is not modelled, so none is offered there.
-        Knob[] buffer = buffered ? [BufferGainBandwidth] : design.CurrentSource is null ? [AddBuffer] : [];
+        // A netlist's own parts are not knobs yet: its shape (a reservoir, an added follower) is the user's drawing.
+        var netlist = design.Netlist is not null;
+        Knob[] buffer = buffered ? [BufferGainBandwidth] : design.CurrentSource is null && !netlist ? [AddBuffer] : [];
         switch (findingId)
         {
             case "settling":
-                return [AcquisitionTime, Reservoir, .. buffer];
+                return netlist ? [AcquisitionTime] : [AcquisitionTime, Reservoir, .. buffer];
             case "reservoir-recovery":
                 return design.Filter.SeriesResistorOhms > 0 ? [SampleRate, SeriesResistor, .. buffer] : [SampleRate, .. buffer];
             case "dc-loading":

@@ -95,6 +95,35 @@ internal sealed class DenseLu<T> where T : struct, INumberBase<T>
         if (failed >= 0)
             return failed;
         a.CopyTo(equilibrated);
+        var result = Eliminate(a, sparsest: false);
+        if (result >= 0 || !ReplacedPivot)
+            return result;
+        // A vanished pivot in a matrix whose rows span more than 1/u: the largest entry of a column is often a huge
+        // conductance whose row, used as the pivot, absorbs the small terms of every row it is subtracted from (a diode
+        // forced forward by sources: its 4e29 S swallows the ±1 of the source's branch current, and the two source
+        // rows become equal). Elimination that takes each column's pivot among its large entries (within 1/10 of the
+        // largest) from the row with the fewest nonzeros left — Markowitz's choice restricted to one column, as sparse
+        // SPICE solvers make it (H. M. Markowitz, Management Science 3 (1957); K. S. Kundert, Sparse 1.3, from memory) —
+        // pivots on the sources' rows first, whose ±1 entries subtract exactly, and keeps those terms. It is tried
+        // once; if a pivot still vanishes, the first factorisation's replacement stands as before.
+        equilibrated.CopyTo(a);
+        ReplacedPivot = false;
+        result = Eliminate(a, sparsest: true);
+        if (result >= 0 || !ReplacedPivot)
+            return result;
+        equilibrated.CopyTo(a);
+        ReplacedPivot = false;
+        return Eliminate(a, sparsest: false);
+    }
+
+    /// <summary>Threshold below which, relative to the largest candidate, an entry is not taken as a pivot by the
+    /// sparsest-row choice (a common threshold of sparse LU codes, from memory).</summary>
+    private const double SparsePivotThreshold = 0.1;
+
+    /// <summary>Gaussian elimination of the equilibrated matrix in <paramref name="a"/> with row pivoting: the largest entry of
+    /// each column, or with <paramref name="sparsest"/> the large entry whose row has the fewest nonzeros left.</summary>
+    private int Eliminate(Span<T> a, bool sparsest)
+    {
         for (var i = 0; i < n; i++)
             rowOfPivot[i] = i;
         for (var k = 0; k < n; k++)
@@ -110,6 +139,8 @@ internal sealed class DenseLu<T> where T : struct, INumberBase<T>
                     p = i;
                 }
             }
+            if (sparsest && best > 0 && double.IsFinite(best))
+                p = SparsestRow(a, k, best);
             // Only an exactly vanishing pivot makes the matrix singular here. A tiny one may still give a usable answer (a
             // diode conducting 1e19 A beside unit entries leaves pivots of 1e-21 after scaling); whether the answer kept
             // its digits is the componentwise check's to say (MatrixCondition), with the unknowns named.
@@ -151,6 +182,30 @@ internal sealed class DenseLu<T> where T : struct, INumberBase<T>
             }
         }
         return -1;
+    }
+
+    /// <summary>Among rows k… whose entry in column k is at least <see cref="SparsePivotThreshold"/> of
+    /// <paramref name="best"/>, the one with the fewest nonzeros in columns k…; ties go to the larger entry.</summary>
+    private int SparsestRow(Span<T> a, int k, double best)
+    {
+        var p = k;
+        var fewest = int.MaxValue;
+        var largest = 0.0;
+        for (var i = k; i < n; i++)
+        {
+            var v = Scalar<T>.Magnitude(a[i * n + k]);
+            if (v < SparsePivotThreshold * best)
+                continue;
+            var count = 0;
+            for (var j = k; j < n; j++)
+                if (a[i * n + j] != T.Zero)
+                    count++;
+            if (count < fewest || (count == fewest && v > largest))
+            {
+                (fewest, largest, p) = (count, v, i);
+            }
+        }
+        return p;
     }
 
     /// <summary>

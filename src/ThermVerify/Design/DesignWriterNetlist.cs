@@ -1,0 +1,27 @@
+using ThermVerify.Quantities;
+
+namespace ThermVerify.Design;
+
+/// <summary>[netlist] and its [[netlist.part]] entries, written back as the loader reads them.</summary>
+internal static partial class DesignWriter
+{
+    private static void WriteNetlist(Writer w, NetlistSpec n)
+    {
+        w.Section("netlist");
+        w.Text("file", n.File);
+        w.Names("sensor", n.SensorElements);
+        w.Text("pin", n.PinNode);
+        if (n.ReferenceNode is { } reference)
+            w.Text("reference", reference);
+        if (n.Excitation.Count > 0)
+            w.Names("excitation", n.Excitation);
+        foreach (var part in n.Parts)
+        {
+            w.Entry("netlist.part");
+            w.Text("name", part.Name);
+            w.Value("tolerance", part.Tolerance, UnitKind.Percent);
+            if (part.TempcoPerKelvin != 0 || part.TempcoSigned)
+                w.Value("tempco", part.TempcoPerKelvin, UnitKind.PpmPerKelvin, part.TempcoSigned);
+        }
+    }
+}

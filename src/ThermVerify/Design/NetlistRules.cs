@@ -1,0 +1,27 @@
+namespace ThermVerify.Design;
+
+/// <summary>
+/// What a netlist front end asks of the rest of the design: the netlist replaces the built-in shape, so [divider],
+/// [current_source], [wiring], [buffer], [filter] and [protection] go (their parts belong in the netlist); a ratiometric
+/// converter reads against the netlist's reference node, a fixed reference needs none.
+/// </summary>
+internal static class NetlistRules
+{
+    private static readonly string[] Shape = ["divider", "current_source", "wiring", "buffer", "filter", "protection"];
+
+    public static void Check(TomlSection root, FrontEndDesign design)
+    {
+        foreach (var key in Shape)
+            if (root.Has(key))
+                throw root.ErrorAtKey(key, $"[{key}] beside [netlist]",
+                    $"The netlist is the whole front end: draw the {key.Replace('_', ' ')}'s parts in the netlist and remove [{key}].");
+        var netlist = design.Netlist!;
+        var section = root.Section("netlist")!;
+        if (design.Adc.IsRatiometric && netlist.ReferenceNode is null)
+            throw root.Section("adc")!.ErrorAtValue("reference", "a ratiometric converter with a netlist needs the netlist's reference node",
+                "Add reference = \"NODE\" to [netlist] (the node whose voltage is the converter's reference), or give the reference as a voltage.");
+        if (!design.Adc.IsRatiometric && netlist.ReferenceNode is not null)
+            throw section.ErrorAtValue("reference", "a reference node with a converter whose reference is a fixed voltage",
+                "Remove reference here, or write reference = \"ratiometric\" in [adc].");
+    }
+}

@@ -1,0 +1,54 @@
+using ThermVerify.Design.Netlists;
+
+namespace ThermVerify.Design;
+
+/// <summary>A part of a netlist front end that carries a tolerance and a temperature coefficient ([[netlist.part]]).</summary>
+public sealed record NetlistPartSpec(string Name, double Tolerance, double TempcoPerKelvin)
+{
+    /// <summary>The tempco was written with a sign (taken at it) rather than as a bound (<see cref="SignWritten"/>).</summary>
+    public bool TempcoSigned { get; init; }
+}
+
+/// <summary>
+/// A front end given as a SPICE netlist ([netlist]) instead of the built-in shape: the file (read strictly at load,
+/// <see cref="NetlistParser"/>), the element or elements that are the sensor, the node the converter reads, the
+/// node whose voltage is its reference when the converter is ratiometric, the sources that excite the sensor, and
+/// the parts with a tolerance and tempco. Every other part sits at the board temperature without drift.
+/// </summary>
+public sealed record NetlistSpec
+{
+    /// <summary>The file as the design names it (relative to the design's folder).</summary>
+    public required string File { get; init; }
+    /// <summary>Where the file really lies, inside the design's folder.</summary>
+    public required string FullPath { get; init; }
+    /// <summary>The sensor's resistor or resistors, by element name as the netlist writes it.</summary>
+    public required IReadOnlyList<string> SensorElements { get; init; }
+    /// <summary>The converter's input node (lower case, as the netlist's nodes are read).</summary>
+    public required string PinNode { get; init; }
+    /// <summary>The node whose voltage is the converter's reference (a ratiometric converter); null with a fixed reference.</summary>
+    public string? ReferenceNode { get; init; }
+    /// <summary>The sources that excite the sensor (V or I elements).</summary>
+    public IReadOnlyList<string> Excitation { get; init; } = [];
+    public IReadOnlyList<NetlistPartSpec> Parts { get; init; } = [];
+
+    /// <summary>
+    /// The reference node's voltage: the DC value of the source that drives it from ground (the only way a reference node
+    /// is read for now); null without a reference node.
+    /// </summary>
+    public double? ReferenceVolts { get; init; }
+
+    /// <summary>The netlist as read: flat, its parameters evaluated.</summary>
+    internal ParsedNetlist Parsed { get; init; } = new("", []);
+
+    /// <summary>Equal when they name the same file, the same elements and nodes and the same parts (the lists by their items).</summary>
+    public bool Equals(NetlistSpec? other) =>
+        other is not null && File == other.File && FullPath == other.FullPath && PinNode == other.PinNode && ReferenceNode == other.ReferenceNode
+        && Nullable.Equals(ReferenceVolts, other.ReferenceVolts) && SensorElements.SequenceEqual(other.SensorElements)
+        && Excitation.SequenceEqual(other.Excitation) && Parts.SequenceEqual(other.Parts) && Parsed.Elements.Count == other.Parsed.Elements.Count;
+
+    public override int GetHashCode() => HashCode.Combine(File, PinNode, ReferenceNode, Parts.Count);
+
+    /// <summary>The part entry of an element, if the design gives one.</summary>
+    public NetlistPartSpec? Part(string element) =>
+        Parts.FirstOrDefault(p => p.Name.Equals(element, StringComparison.OrdinalIgnoreCase));
+}
