@@ -58,6 +58,26 @@ public class DeltaSigmaCheckTests
     }
 
     [Fact]
+    public void Interference_at_60_Hz_on_a_50_Hz_sinc3_is_a_finding_whose_remedy_is_the_data_rate_that_nulls_it()
+    {
+        // sinc3 at 50 Hz passes 60 Hz at |sin(1.2π)/(1.2π)|³ = 4.0e-3 (Hogenauer 1981, from memory): 10 mV at the sensor,
+        // halved by the divider, moves a reading by about 20 µV, far beyond ½ LSB of a 24-bit converter.
+        var design = DeltaSigmaDesigns.Make(("adc.rejection_frequencies", "[\"60 Hz\"]"), ("adc.interference", "\"10 mV\""));
+        var report = DeltaSigmaFindings.Analyse(design, ThermVerify.FrontEnd.BuiltInEngine.Instance);
+        var finding = Assert.Single(DeltaSigmaFindings.Evaluate(design, report, ThermVerify.FrontEnd.BuiltInEngine.Instance, remedies: true),
+            f => f.Id == DeltaSigmaFindings.InterferenceId);
+        var row = Assert.Single(report.Rejection);
+        var x = Math.PI * 60 / 256e3;
+        var expected = 0.01 * row.AnalogGain * Math.Pow(Math.Abs(Math.Sin(5120 * x) / (5120 * Math.Sin(x))), 3);
+        Tolerance.AssertClose(expected, finding.SizeVolts, 1e-6, 0, "interference in volts");
+        // 10 Hz is the fastest whole decimation whose zeros (multiples of the data rate) include 60 Hz: 25, 16.7 and
+        // 12.5 Hz do not null it and are not enough.
+        var remedy = Assert.Single(finding.Remedies);
+        Assert.Equal("adc.data_rate", remedy.Key);
+        Assert.Equal(10, remedy.Value!.Value, 9);
+    }
+
+    [Fact]
     public void A_programmable_gain_other_than_one_is_refused_by_check_not_read_at_gain_one()
     {
         var design = DeltaSigmaDesigns.Make(("adc.gain", "16"));

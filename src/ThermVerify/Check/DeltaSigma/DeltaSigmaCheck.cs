@@ -18,6 +18,9 @@ internal static class DeltaSigmaCheck
 {
     public const string NoSearch = "the remedy search of this finding works through a successive-approximation converter's acquisition window and is not yet made for a delta-sigma converter";
 
+    /// <summary>What a delta-sigma point converts: the settled output of the digital filter (no precharge, no first or steady sample).</summary>
+    public static readonly PrechargeCase Reading = new("settled filter output", null);
+
     public static CheckResult Run(FrontEndDesign design, CheckOptions options)
     {
         var d = design.Adc.DeltaSigma!;
@@ -31,7 +34,7 @@ internal static class DeltaSigmaCheck
         var filter = SincFilter.Of(d);
         var grid = DeltaSigmaNoise.Grid(filter);
         var noise = NoiseGrid(design, model, temperatures, grid, filter, options.MaximumSamplingPoints);
-        IReadOnlyList<CheckPoint> points = [.. evaluation.Points.Select((p, i) => p with { Noise = noise[i] })];
+        IReadOnlyList<CheckPoint> points = [.. evaluation.Points.Select((p, i) => p with { Noise = noise[i], Precharge = Reading, FirstConversion = false })];
         var findings = FindingRules.Evaluate(design, model, points).Select(f => f with { RemedyNote = options.ComputeRemedies ? NoSearch : null }).ToList();
         findings.AddRange(ComplianceRule.Evaluate(design, evaluation.Dc, evaluation.Temperatures, points, model.Adc.LsbVolts));
         var report = DeltaSigmaFindings.Analyse(design, options.Engine);
