@@ -25,7 +25,7 @@ internal static class DeltaSigmaFindings
         var filter = SincFilter.Of(d);
         var temperatures = Noise.ReadingNoiseAnalysis.ReportTemperatures(design.Check.Range);
         var loads = temperatures.Select(t => InputLoading.At(design, t, engine)).ToList();
-        var switches = SwitchTemperatures(design).Select(t => ChannelSettling.At(design, t, engine, Start(d))).ToList();
+        var switches = SwitchTemperatures(design).SelectMany(t => Starts(design).Select(s => ChannelSettling.At(design, t, engine, s))).ToList();
         var model = new ClosedFormModel(design);
         var worstSwitch = switches.MaxBy(s => Math.Abs(s.FirstUsedErrorVolts / model.At(s.Celsius).VoltsPerKelvin) / design.Check.BudgetAt(s.Celsius))!;
         var mid = (design.Check.Range.MinCelsius + design.Check.Range.MaxCelsius) / 2;
@@ -34,6 +34,10 @@ internal static class DeltaSigmaFindings
     }
 
     public static ChannelStart Start(DeltaSigmaSpec d) => d.SharedFilter ? ChannelStart.SharedFilter : ChannelStart.OwnFilter;
+
+    /// <summary>The starts a reading follows: the channel switch, and the excitation's switch-on where the divider is switched.</summary>
+    public static ChannelStart[] Starts(FrontEndDesign design) =>
+        ChannelSettling.SwitchOnLeadSeconds(design) > 0 ? [Start(design.Adc.DeltaSigma!), ChannelStart.SwitchOn] : [Start(design.Adc.DeltaSigma!)];
 
     public static string FilterWords(DeltaSigmaSpec d) =>
         I($"sinc{d.FilterOrder}") + (d.AverageLength > 1 ? I($" and the mean of {d.AverageLength} outputs") : "");
@@ -79,12 +83,14 @@ internal static class DeltaSigmaFindings
         var discard = s.ReadingsToDiscard is { } n
             ? I($"discard {n} reading{(n == 1 ? "" : "s")} (readings_discarded = {n}): reading {n + 1} is the first within ½ LSB, {Show(s.SettledSeconds!.Value, UnitKind.Second)} after the switch")
             : I($"no reading within the {s.Readings.Count} followed comes within ½ LSB");
-        var cause = I($"after a channel switch (other channel at {Show(s.OtherChannelVolts, UnitKind.Volt)}; ") +
-                    (d.SharedFilter ? "the shared filter starts from it" : "the channel's own filter starts unloaded") +
+        var cause = (s.Start == ChannelStart.SwitchOn
+                        ? I($"after the excitation is switched on (the pin from 0 V, the converter started {Show(ChannelSettling.SwitchOnLeadSeconds(design), UnitKind.Second)} later") 
+                        : I($"after a channel switch (other channel at {Show(s.OtherChannelVolts, UnitKind.Volt)}; ") +
+                          (d.SharedFilter ? "the shared filter starts from it" : "the channel's own filter starts unloaded")) +
                     I($"; the filter {(d.FilterReset ? "is reset" : "still holds the other channel")}) reading {d.ReadingsDiscarded + 1}, the first used, is {Show(s.FirstUsedErrorVolts, UnitKind.Volt)} off: ") +
                     I($"the pin's RC transient through {FilterWords(d)}, which alone settles in {s.FilterSettlingConversions} conversions; ") + discard;
         return new Finding(ChannelSwitchId, kelvin > design.Check.BudgetAt(s.Celsius) ? Severity.Fail : Severity.Warn,
-            "the first reading used after a channel switch is more than ½ LSB off", s.Celsius, s.Celsius, s.Celsius,
+            s.Start == ChannelStart.SwitchOn ? "the first reading used after the excitation is switched on is more than ½ LSB off" : "the first reading used after a channel switch is more than ½ LSB off", s.Celsius, s.Celsius, s.Celsius,
             s.FirstUsedErrorVolts, s.FirstUsedErrorVolts / lsb, kelvin, cause, null, s.FirstUsedErrorVolts, []);
     }
 
@@ -164,7 +170,7 @@ internal static class DeltaSigmaFindings
         var temperatures = SwitchTemperatures(design);
         (bool Clear, string Proof) Prove(FrontEndDesign changed)
         {
-            var runs = temperatures.Select(t => ChannelSettling.At(changed, t, engine, Start(changed.Adc.DeltaSigma!))).ToList();
+            var runs = temperatures.SelectMany(t => Starts(changed).Select(s => ChannelSettling.At(changed, t, engine, s))).ToList();
             var largest = runs.Max(r => Math.Abs(r.FirstUsedErrorVolts));
             return (runs.All(r => !r.FirstUsedOff),
                 I($"the channel switch analysed again with the change at {temperatures.Length} temperatures: the first reading used is at most {Show(largest, UnitKind.Volt)} off, within ½ LSB"));

@@ -92,3 +92,29 @@ public class BufferedChannelSettlingTests
         }
     }
 }
+
+/// <summary>The excitation switched on for a reading: the pin charges from 0 V through the source, then the filter.</summary>
+public class SwitchOnSettlingTests
+{
+    [Fact]
+    public void The_readings_after_switch_on_follow_the_charging_reservoir_through_the_filter()
+    {
+        // The pin charges as V·(1 − e^(−t/τ)), τ = (R_s ∥ R_eq)·C (single pole, elementary); the converter starts
+        // 5 ms after the switch; through a sinc1 of M samples a reading is the mean of its M samples.
+        var design = DeltaSigmaDesigns.Make(("divider.switch_on_lead", "\"5 ms\""), ("adc.filter", "\"sinc1\""), ("adc.data_rate", "\"500 Hz\""),
+            ("filter.series_resistor", "\"1 kohm\""), ("filter.reservoir_capacitor", "\"1 uF\""));
+        var r = ChannelSettling.At(design, 25, BuiltInEngine.Instance, ChannelStart.SwitchOn);
+        var load = InputLoading.At(design, 25, BuiltInEngine.Instance);
+        var tau = ChannelSettling.AnalogTimeConstant(design, design.Adc.DeltaSigma!, load);
+        var t = 1 / 256e3;
+        const int m = 512;
+        for (var k = 0; k < 3; k++)
+        {
+            var mean = 0.0;
+            for (var n = k * m; n < (k + 1) * m; n++) mean += Math.Exp(-(5e-3 + (n + 1.5) * t) / tau);
+            // Within 1 % of the step: the input's switched load against its average (charge sharing, C_in/C = 8e-6).
+            Tolerance.AssertClose(-load.SwitchedVolts * mean / m, r.ErrorVolts[k], 0.01, 1e-7, $"reading {k + 1}");
+        }
+        Assert.True(r.ReadingsToDiscard > 0);
+    }
+}
