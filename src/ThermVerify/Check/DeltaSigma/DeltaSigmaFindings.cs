@@ -202,7 +202,7 @@ internal static class DeltaSigmaFindings
     {
         var d = design.Adc.DeltaSigma!;
         var list = new List<Remedy>();
-        // A slower data rate whose zeros (multiples of it) fall on the listed frequencies: the fastest that clears, proven.
+        // A slower data rate (whole decimations only): the fastest whose rejection clears every listed frequency, proven.
         for (var k = 2; k <= 100; k++)
         {
             var rate = d.DataRateHertz / k;
@@ -213,7 +213,7 @@ internal static class DeltaSigmaFindings
             var rows = MainsRejection.At(changed, celsius);
             var largest = rows.Max(r => r.ErrorVolts ?? 0);
             if (largest > lsb / 2) continue;
-            list.Add(new Remedy("adc.data_rate", "lower the data rate so the filter's zeros fall on the listed frequencies", rate, "Hz",
+            list.Add(new Remedy("adc.data_rate", "lower the data rate until the filter rejects the listed frequencies enough (its zeros at multiples of the data rate, its lobes falling beyond)", rate, "Hz",
                 "data rates of whole decimations below the design's, the fastest that clears") { Proof = I($"the rejection computed again at {Show(rate, UnitKind.Hertz)}: at most {Show(largest, UnitKind.Volt)}, within ½ LSB; a slower reading also lags a ramp more") });
             break;
         }
