@@ -63,9 +63,9 @@ public class DeltaSigmaCheckTests
         // sinc3 at 50 Hz passes 60 Hz at |sin(1.2π)/(1.2π)|³ = 4.0e-3 (Hogenauer 1981, from memory): 10 mV at the sensor,
         // halved by the divider, moves a reading by about 20 µV, far beyond ½ LSB of a 24-bit converter.
         var design = DeltaSigmaDesigns.Make(("adc.rejection_frequencies", "[\"60 Hz\"]"), ("adc.interference", "\"10 mV\""));
-        var report = DeltaSigmaFindings.Analyse(design, ThermVerify.FrontEnd.BuiltInEngine.Instance);
-        var finding = Assert.Single(DeltaSigmaFindings.Evaluate(design, report, ThermVerify.FrontEnd.BuiltInEngine.Instance, remedies: true),
-            f => f.Id == DeltaSigmaFindings.InterferenceId);
+        var result = FrontEndCheck.Run(design);
+        var report = result.DeltaSigma!;
+        var finding = Assert.Single(result.Findings, f => f.Id == DeltaSigmaFindings.InterferenceId);
         var row = Assert.Single(report.Rejection);
         var x = Math.PI * 60 / 256e3;
         var expected = 0.01 * row.AnalogGain * Math.Pow(Math.Abs(Math.Sin(5120 * x) / (5120 * Math.Sin(x))), 3);
@@ -75,6 +75,7 @@ public class DeltaSigmaCheckTests
         var remedy = Assert.Single(finding.Remedies);
         Assert.Equal("adc.data_rate", remedy.Key);
         Assert.Equal(10, remedy.Value!.Value, 9);
+        Assert.Contains("a check of the changed design has no interference finding", remedy.Proof);
     }
 
     [Fact]

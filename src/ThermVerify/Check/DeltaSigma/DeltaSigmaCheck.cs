@@ -38,19 +38,22 @@ internal static class DeltaSigmaCheck
         var findings = FindingRules.Evaluate(design, model, points).Select(f => f with { RemedyNote = options.ComputeRemedies ? NoSearch : null }).ToList();
         findings.AddRange(ComplianceRule.Evaluate(design, evaluation.Dc, evaluation.Temperatures, points, model.Adc.LsbVolts));
         var report = DeltaSigmaFindings.Analyse(design, options.Engine);
-        findings.AddRange(DeltaSigmaFindings.Evaluate(design, report, options.Engine, options.ComputeRemedies));
+        findings.AddRange(DeltaSigmaFindings.Evaluate(design, report));
         IReadOnlyList<Finding> ordered = FindingRules.OverBudget(model, points, findings) is { } budget
             ? [budget with { RemedyNote = options.ComputeRemedies ? NoSearch : null }, .. findings] : findings;
         var reportNoise = Noise.ReadingNoiseAnalysis.ReportTemperatures(design.Check.Range)
             .Select(t => DeltaSigmaNoise.At(design, model, t, grid, filter)).ToList();
         var worst = points[ErrorModel.WorstIndex([.. points.Select(p => p.ErrorKelvin)])];
-        return new CheckResult(design, model.Sensor.Description, model.Adc, points, evaluation.Offsets.Outcomes, ordered,
+        var result = new CheckResult(design, model.Sensor.Description, model.Adc, points, evaluation.Offsets.Outcomes, ordered,
             new SamplingWaveform(worst.Celsius, null, 0, []))
         {
             PrechargeCases = [],
             Noise = DeltaSigmaNoise.Summary(design, model, reportNoise, filter),
             DeltaSigma = report,
         };
+        return options.ComputeRemedies
+            ? DeltaSigmaFindings.AttachRemedies(result, options.Engine, changed => Run(changed, options with { ComputeRemedies = false, Progress = null, RemedyProgress = null }))
+            : result;
     }
 
     /// <summary>The reading's noise at every temperature: analysed on the sampling grid, the filtered front end's variance interpolated between.</summary>
