@@ -29,4 +29,24 @@ public class DeltaSigmaCommandTests
         Assert.Contains("FAIL channel-switch", run.Output);
         Assert.Contains("readings_discarded = ", run.Output);
     }
+
+    [Fact]
+    public void Check_writes_its_report_and_json_and_baseline_takes_it()
+    {
+        var folder = Directory.CreateTempSubdirectory("tv-ds-").FullName;
+        try
+        {
+            var run = CliRunner.Run("check", Example("kiln-bank-pt100-deltasigma.toml"), "--no-remedies", "--report", Path.Combine(folder, "report"),
+                "--json", Path.Combine(folder, "check.json"));
+            Assert.Equal(ExitCodes.CheckFailed, run.ExitCode);
+            Assert.Contains("Readings after a channel switch", File.ReadAllText(Path.Combine(folder, "report", "report.html")));
+            Assert.Contains("\"deltaSigma\"", File.ReadAllText(Path.Combine(folder, "check.json")));
+            var baseline = CliRunner.Run("baseline", Example("kiln-bank-pt100-deltasigma.toml"), "--out", Path.Combine(folder, "baseline.json"));
+            Assert.Equal(ExitCodes.Success, baseline.ExitCode);
+        }
+        finally
+        {
+            Directory.Delete(folder, recursive: true);
+        }
+    }
 }
