@@ -28,7 +28,7 @@ internal static class DeltaSigmaJson
         channelSwitch = new
         {
             celsius = r.ChannelSwitch.Celsius,
-            filter = r.ChannelSwitch.Start == FrontEnd.DeltaSigma.ChannelStart.SharedFilter ? "shared" : "own",
+            filter = r.ChannelSwitch.Start switch { FrontEnd.DeltaSigma.ChannelStart.SharedFilter => "shared", FrontEnd.DeltaSigma.ChannelStart.SwitchOn => "switch-on", _ => "own" },
             otherChannelVolts = r.ChannelSwitch.OtherChannelVolts,
             settledVolts = r.ChannelSwitch.FinalVolts,
             lsbVolts = r.ChannelSwitch.LsbVolts,

@@ -32,7 +32,7 @@ internal static class DeltaSigmaSections
                 double.IsFinite(l.EquivalentOhms) ? V(l.EquivalentOhms, UnitKind.Ohm) : "buffered", V(l.SourceOhms, UnitKind.Ohm),
             ])]);
         var channel = new BufferSection("channel-switch", "Readings after a channel switch",
-            [$"At {C(s.Celsius)}, the other channel at {V(s.OtherChannelVolts, UnitKind.Volt)} ({(s.Start == ChannelStart.SharedFilter ? "shared filter: it starts from the other channel" : "own filter: it starts unloaded")}); " +
+            [$"At {C(s.Celsius)}, the other channel at {V(s.OtherChannelVolts, UnitKind.Volt)} ({s.Start switch { ChannelStart.SharedFilter => "shared filter: it starts from the other channel", ChannelStart.SwitchOn => "the excitation switched on: the pin starts from 0 V", _ => "own filter: it starts unloaded" }}); " +
              $"settled reading {V(s.FinalVolts, UnitKind.Volt)}, ½ LSB = {V(s.LsbVolts / 2, UnitKind.Volt)}.",
              (s.ReadingsToDiscard is { } n
                  ? $"Readings to discard: {n}; reading {n + 1} is the first within ½ LSB for good, {V(s.SettledSeconds!.Value, UnitKind.Second)} after the switch. "

@@ -58,10 +58,63 @@ public class DeltaSigmaCheckTests
     }
 
     [Fact]
+    public void Interference_at_60_Hz_on_a_50_Hz_sinc3_is_a_finding_whose_remedy_is_the_data_rate_that_nulls_it()
+    {
+        // sinc3 at 50 Hz passes 60 Hz at |sin(1.2π)/(1.2π)|³ = 4.0e-3 (Hogenauer 1981, from memory): 10 mV at the sensor,
+        // halved by the divider, moves a reading by about 20 µV, far beyond ½ LSB of a 24-bit converter.
+        var design = DeltaSigmaDesigns.Make(("adc.rejection_frequencies", "[\"60 Hz\"]"), ("adc.interference", "\"10 mV\""));
+        var result = FrontEndCheck.Run(design);
+        var report = result.DeltaSigma!;
+        var finding = Assert.Single(result.Findings, f => f.Id == DeltaSigmaFindings.InterferenceId);
+        var row = Assert.Single(report.Rejection);
+        var x = Math.PI * 60 / 256e3;
+        var expected = 0.01 * row.AnalogGain * Math.Pow(Math.Abs(Math.Sin(5120 * x) / (5120 * Math.Sin(x))), 3);
+        Tolerance.AssertClose(expected, finding.SizeVolts, 1e-6, 0, "interference in volts");
+        // 10 Hz is the fastest whole decimation whose zeros (multiples of the data rate) include 60 Hz: 25, 16.7 and
+        // 12.5 Hz do not null it and are not enough.
+        var remedy = Assert.Single(finding.Remedies);
+        Assert.Equal("adc.data_rate", remedy.Key);
+        Assert.Equal(10, remedy.Value!.Value, 9);
+        Assert.Contains("a check of the changed design has no interference finding", remedy.Proof);
+    }
+
+    [Fact]
     public void A_programmable_gain_other_than_one_is_refused_by_check_not_read_at_gain_one()
     {
         var design = DeltaSigmaDesigns.Make(("adc.gain", "16"));
         var e = Assert.Throws<ConverterUnsupportedException>(() => FrontEndCheck.Run(design));
         Assert.Contains("gain", e.Message);
+    }
+}
+
+/// <summary>The check's JSON and text carry the delta-sigma analyses as the result holds them (docs/json-output.md).</summary>
+public class DeltaSigmaOutputTests
+{
+    [Fact]
+    public void The_json_deltaSigma_block_and_the_text_sections_show_the_results()
+    {
+        var result = ExampleVerdictTests.Checked("kiln-bank-pt100-deltasigma.toml");
+        var r = result.DeltaSigma!;
+        var root = System.Text.Json.JsonDocument.Parse(ThermVerify.Reporting.CheckJson.Write(result, TestRun.Provenance)).RootElement;
+        var ds = root.GetProperty("deltaSigma");
+        Assert.Equal(r.Decimation, ds.GetProperty("decimation").GetInt32());
+        Assert.Equal(r.NoiseBandwidthHertz, ds.GetProperty("noiseBandwidthHertz").GetDouble());
+        var channel = ds.GetProperty("channelSwitch");
+        Assert.Equal(r.ChannelSwitch.ReadingsToDiscard, channel.GetProperty("readingsToDiscard").GetInt32());
+        Assert.Equal("shared", channel.GetProperty("filter").GetString());
+        Assert.Equal(r.ChannelSwitch.Readings.Count, channel.GetProperty("readings").GetArrayLength());
+        Assert.Equal(r.InputLoading.Count, ds.GetProperty("inputLoading").GetArrayLength());
+        Assert.Equal(r.InputLoading[0].ErrorVolts, ds.GetProperty("inputLoading")[0].GetProperty("errorVolts").GetDouble());
+        Assert.Equal(2, ds.GetProperty("rejection").GetArrayLength());
+        // A successive-approximation design has none.
+        var sar = ExampleVerdictTests.Checked("mash-tun-pt100-current.toml");
+        var sarRoot = System.Text.Json.JsonDocument.Parse(ThermVerify.Reporting.CheckJson.Write(sar, TestRun.Provenance)).RootElement;
+        Assert.Equal(System.Text.Json.JsonValueKind.Null, sarRoot.GetProperty("deltaSigma").ValueKind);
+
+        var text = ThermVerify.Reporting.Text.CheckSummaryText.Render(result, TestRun.Provenance);
+        Assert.Contains("Readings after a channel switch", text);
+        Assert.Contains($"Readings to discard: {r.ChannelSwitch.ReadingsToDiscard}", text);
+        Assert.Contains("Delta-sigma input load", text);
+        Assert.DoesNotContain("precharge", text.Split("Findings:")[0]);
     }
 }

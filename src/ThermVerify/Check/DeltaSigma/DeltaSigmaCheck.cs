@@ -18,6 +18,9 @@ internal static class DeltaSigmaCheck
 {
     public const string NoSearch = "the remedy search of this finding works through a successive-approximation converter's acquisition window and is not yet made for a delta-sigma converter";
 
+    /// <summary>What a delta-sigma point converts: the settled output of the digital filter (no precharge, no first or steady sample).</summary>
+    public static readonly PrechargeCase Reading = new("settled filter output", null);
+
     public static CheckResult Run(FrontEndDesign design, CheckOptions options)
     {
         var d = design.Adc.DeltaSigma!;
@@ -31,23 +34,26 @@ internal static class DeltaSigmaCheck
         var filter = SincFilter.Of(d);
         var grid = DeltaSigmaNoise.Grid(filter);
         var noise = NoiseGrid(design, model, temperatures, grid, filter, options.MaximumSamplingPoints);
-        IReadOnlyList<CheckPoint> points = [.. evaluation.Points.Select((p, i) => p with { Noise = noise[i] })];
+        IReadOnlyList<CheckPoint> points = [.. evaluation.Points.Select((p, i) => p with { Noise = noise[i], Precharge = Reading, FirstConversion = false })];
         var findings = FindingRules.Evaluate(design, model, points).Select(f => f with { RemedyNote = options.ComputeRemedies ? NoSearch : null }).ToList();
         findings.AddRange(ComplianceRule.Evaluate(design, evaluation.Dc, evaluation.Temperatures, points, model.Adc.LsbVolts));
         var report = DeltaSigmaFindings.Analyse(design, options.Engine);
-        findings.AddRange(DeltaSigmaFindings.Evaluate(design, report, options.Engine, options.ComputeRemedies));
+        findings.AddRange(DeltaSigmaFindings.Evaluate(design, report));
         IReadOnlyList<Finding> ordered = FindingRules.OverBudget(model, points, findings) is { } budget
             ? [budget with { RemedyNote = options.ComputeRemedies ? NoSearch : null }, .. findings] : findings;
         var reportNoise = Noise.ReadingNoiseAnalysis.ReportTemperatures(design.Check.Range)
             .Select(t => DeltaSigmaNoise.At(design, model, t, grid, filter)).ToList();
         var worst = points[ErrorModel.WorstIndex([.. points.Select(p => p.ErrorKelvin)])];
-        return new CheckResult(design, model.Sensor.Description, model.Adc, points, evaluation.Offsets.Outcomes, ordered,
+        var result = new CheckResult(design, model.Sensor.Description, model.Adc, points, evaluation.Offsets.Outcomes, ordered,
             new SamplingWaveform(worst.Celsius, null, 0, []))
         {
             PrechargeCases = [],
             Noise = DeltaSigmaNoise.Summary(design, model, reportNoise, filter),
             DeltaSigma = report,
         };
+        return options.ComputeRemedies
+            ? DeltaSigmaFindings.AttachRemedies(result, options.Engine, changed => Run(changed, options with { ComputeRemedies = false, Progress = null, RemedyProgress = null }))
+            : result;
     }
 
     /// <summary>The reading's noise at every temperature: analysed on the sampling grid, the filtered front end's variance interpolated between.</summary>

@@ -8,9 +8,10 @@ namespace ThermVerify.Check.DeltaSigma;
 
 /// <summary>
 /// The delta-sigma converter's own findings, by the rule every effect follows (docs/methods.md): a finding where it
-/// moves the reading by more than ½ LSB, failing where its own size in K exceeds the budget. Each remedy is proven:
-/// the analysis behind the finding is run again on a copy of the design with the change applied, at every
-/// temperature the finding was judged at, and the remedy is given only when the finding is gone there.
+/// moves the reading by more than ½ LSB, failing where its own size in K exceeds the budget. Each remedy is found by
+/// running the analysis behind the finding again on a copy of the design with the change applied, at every temperature
+/// the finding was judged at, and proven as every remedy is: a check of the changed design has no finding of that id
+/// and no failing finding the design did not already have (<see cref="AttachRemedies"/>).
 /// </summary>
 internal static class DeltaSigmaFindings
 {
@@ -25,7 +26,7 @@ internal static class DeltaSigmaFindings
         var filter = SincFilter.Of(d);
         var temperatures = Noise.ReadingNoiseAnalysis.ReportTemperatures(design.Check.Range);
         var loads = temperatures.Select(t => InputLoading.At(design, t, engine)).ToList();
-        var switches = SwitchTemperatures(design).Select(t => ChannelSettling.At(design, t, engine, Start(d))).ToList();
+        var switches = SwitchTemperatures(design).SelectMany(t => Starts(design).Select(s => ChannelSettling.At(design, t, engine, s))).ToList();
         var model = new ClosedFormModel(design);
         var worstSwitch = switches.MaxBy(s => Math.Abs(s.FirstUsedErrorVolts / model.At(s.Celsius).VoltsPerKelvin) / design.Check.BudgetAt(s.Celsius))!;
         var mid = (design.Check.Range.MinCelsius + design.Check.Range.MaxCelsius) / 2;
@@ -35,22 +36,61 @@ internal static class DeltaSigmaFindings
 
     public static ChannelStart Start(DeltaSigmaSpec d) => d.SharedFilter ? ChannelStart.SharedFilter : ChannelStart.OwnFilter;
 
+    /// <summary>The starts a reading follows: the channel switch, and the excitation's switch-on where the divider is switched.</summary>
+    public static ChannelStart[] Starts(FrontEndDesign design) =>
+        ChannelSettling.SwitchOnLeadSeconds(design) > 0 ? [Start(design.Adc.DeltaSigma!), ChannelStart.SwitchOn] : [Start(design.Adc.DeltaSigma!)];
+
     public static string FilterWords(DeltaSigmaSpec d) =>
         I($"sinc{d.FilterOrder}") + (d.AverageLength > 1 ? I($" and the mean of {d.AverageLength} outputs") : "");
 
     private static double[] SwitchTemperatures(FrontEndDesign design) =>
         [.. new[] { design.Check.Range.MinCelsius, (design.Check.Range.MinCelsius + design.Check.Range.MaxCelsius) / 2, design.Check.Range.MaxCelsius }.Distinct()];
 
-    public static IEnumerable<Finding> Evaluate(FrontEndDesign design, DeltaSigmaReport report, ICheckEngine engine, bool remedies)
+    public static IEnumerable<Finding> Evaluate(FrontEndDesign design, DeltaSigmaReport report)
     {
         var model = new ClosedFormModel(design);
         var lsb = model.Adc.LsbVolts;
-        if (InputLoadingFinding(design, model, report, lsb) is { } loading)
-            yield return remedies ? loading with { Remedies = InputLoadingRemedies(design, lsb, engine) } : loading;
-        if (ChannelSwitchFinding(design, model, report, lsb) is { } channel)
-            yield return remedies ? channel with { Remedies = ChannelRemedies(design, report.ChannelSwitch, engine) } : channel;
-        if (InterferenceFinding(design, report, lsb) is { } interference)
-            yield return remedies ? interference with { Remedies = InterferenceRemedies(design, lsb, report.RejectionCelsius) } : interference;
+        if (InputLoadingFinding(design, model, report, lsb) is { } loading) yield return loading;
+        if (ChannelSwitchFinding(design, model, report, lsb) is { } channel) yield return channel;
+        if (InterferenceFinding(design, report, lsb) is { } interference) yield return interference;
+    }
+
+    /// <summary>
+    /// The result with the delta-sigma findings' remedies: each candidate found by its own analysis (cheap, run many
+    /// times), then proven as every remedy is: <paramref name="check"/> checks a copy of the design with the change
+    /// applied, which must have no finding of that id and no failing finding the design did not already have.
+    /// </summary>
+    public static CheckResult AttachRemedies(CheckResult result, ICheckEngine engine, Func<FrontEndDesign, CheckResult> check)
+    {
+        var design = result.Design;
+        var report = result.DeltaSigma!;
+        var lsb = result.Adc.LsbVolts;
+        var failedBefore = result.Findings.Where(f => f.Severity == Severity.Fail).Select(f => f.Id).ToHashSet();
+        Finding Attach(Finding f)
+        {
+            var candidates = f.Id switch
+            {
+                InputLoadingId => InputLoadingRemedies(design, lsb, engine),
+                ChannelSwitchId => ChannelRemedies(design, report.ChannelSwitch, engine),
+                InterferenceId => InterferenceRemedies(design, lsb, report.RejectionCelsius),
+                _ => null,
+            };
+            if (candidates is null) return f;
+            var proven = new List<Remedy>();
+            foreach (var (remedy, changed) in candidates)
+            {
+                var c = check(changed);
+                var newFailing = c.Findings.Where(x => x.Severity == Severity.Fail && !failedBefore.Contains(x.Id)).Select(x => x.Id).ToList();
+                if (c.Findings.Any(x => x.Id == f.Id) || newFailing.Count > 0) continue;
+                proven.Add(remedy with
+                {
+                    Proof = remedy.Proof + I($"; a check of the changed design has no {f.Id} finding and no new failing one ({(c.Passed ? "it passes" : "it still fails: " + string.Join(", ", c.Findings.Where(x => x.Severity == Severity.Fail).Select(x => x.Id)))})"),
+                });
+            }
+            return proven.Count > 0 ? f with { Remedies = proven }
+                : f with { RemedyNote = candidates.Count == 0 ? "no change searched clears it" : "the changes found clear it in its own analysis, but a check of the changed design does not prove them" };
+        }
+        return result with { Findings = [.. result.Findings.Select(Attach)] };
     }
 
     private static Finding? InputLoadingFinding(FrontEndDesign design, ClosedFormModel model, DeltaSigmaReport report, double lsb)
@@ -79,12 +119,14 @@ internal static class DeltaSigmaFindings
         var discard = s.ReadingsToDiscard is { } n
             ? I($"discard {n} reading{(n == 1 ? "" : "s")} (readings_discarded = {n}): reading {n + 1} is the first within ½ LSB, {Show(s.SettledSeconds!.Value, UnitKind.Second)} after the switch")
             : I($"no reading within the {s.Readings.Count} followed comes within ½ LSB");
-        var cause = I($"after a channel switch (other channel at {Show(s.OtherChannelVolts, UnitKind.Volt)}; ") +
-                    (d.SharedFilter ? "the shared filter starts from it" : "the channel's own filter starts unloaded") +
+        var cause = (s.Start == ChannelStart.SwitchOn
+                        ? I($"after the excitation is switched on (the pin from 0 V, the converter started {Show(ChannelSettling.SwitchOnLeadSeconds(design), UnitKind.Second)} later") 
+                        : I($"after a channel switch (other channel at {Show(s.OtherChannelVolts, UnitKind.Volt)}; ") +
+                          (d.SharedFilter ? "the shared filter starts from it" : "the channel's own filter starts unloaded")) +
                     I($"; the filter {(d.FilterReset ? "is reset" : "still holds the other channel")}) reading {d.ReadingsDiscarded + 1}, the first used, is {Show(s.FirstUsedErrorVolts, UnitKind.Volt)} off: ") +
                     I($"the pin's RC transient through {FilterWords(d)}, which alone settles in {s.FilterSettlingConversions} conversions; ") + discard;
         return new Finding(ChannelSwitchId, kelvin > design.Check.BudgetAt(s.Celsius) ? Severity.Fail : Severity.Warn,
-            "the first reading used after a channel switch is more than ½ LSB off", s.Celsius, s.Celsius, s.Celsius,
+            s.Start == ChannelStart.SwitchOn ? "the first reading used after the excitation is switched on is more than ½ LSB off" : "the first reading used after a channel switch is more than ½ LSB off", s.Celsius, s.Celsius, s.Celsius,
             s.FirstUsedErrorVolts, s.FirstUsedErrorVolts / lsb, kelvin, cause, null, s.FirstUsedErrorVolts, []);
     }
 
@@ -102,20 +144,20 @@ internal static class DeltaSigmaFindings
             w.ErrorVolts!.Value, w.ErrorVolts!.Value / lsb, w.ErrorKelvin!.Value, cause, null, w.ErrorVolts, []);
     }
 
-    private static IReadOnlyList<Remedy> InputLoadingRemedies(FrontEndDesign design, double lsb, ICheckEngine engine)
+    private static List<(Remedy Remedy, FrontEndDesign Changed)> InputLoadingRemedies(FrontEndDesign design, double lsb, ICheckEngine engine)
     {
         var d = design.Adc.DeltaSigma!;
         var temperatures = Noise.ReadingNoiseAnalysis.ReportTemperatures(design.Check.Range);
         double Worst(FrontEndDesign changed) => temperatures.Max(t => Math.Abs(InputLoading.At(changed, t, engine).ErrorVolts));
         bool Clears(FrontEndDesign changed) => Worst(changed) <= lsb / 2;
         string Proof(FrontEndDesign changed) => I($"the input's load analysed again with the change at {temperatures.Length} temperatures: at most {Show(Worst(changed), UnitKind.Volt)}, within ½ LSB ({Show(lsb / 2, UnitKind.Volt)})");
-        var list = new List<Remedy>();
+        var list = new List<(Remedy Remedy, FrontEndDesign Changed)>();
         if (!d.InputBuffered)
         {
             var buffered = With(design, d with { InputBuffered = true, SamplingCapacitanceFarads = 0, InputCurrentAmperes = 0 });
             if (Clears(buffered))
-                list.Add(new Remedy("adc.input", "turn the converter's input buffer on (input = \"buffered\"; declare its input_current, which then loads the source instead)",
-                    null, "", "the unbuffered input's switched load removed") { Proof = Proof(buffered) });
+                list.Add((new Remedy("adc.input", "turn the converter's input buffer on (input = \"buffered\"; declare its input_current, which then loads the source instead)",
+                    null, "", "the unbuffered input's switched load removed") { Proof = Proof(buffered) }, buffered));
         }
         // The series resistor: the closed form V·R_s/(R_s + R_eq) ≤ ½ LSB gives the start; proven, and lowered by 10 % steps until proven.
         var series = design.Filter.SeriesResistorOhms;
@@ -129,7 +171,7 @@ internal static class DeltaSigmaFindings
                 for (var up = Round3(best * 1.1); up < series && Clears(design with { Filter = design.Filter with { SeriesResistorOhms = up } }); up = Round3(up * 1.1))
                     best = up;
                 var proven = design with { Filter = design.Filter with { SeriesResistorOhms = best } };
-                list.Add(new Remedy("filter.series_resistor", "reduce the filter's series resistor", best, "Ω", "halved until the load clears, then raised by 10 % steps while it stays clear") { Proof = Proof(proven) });
+                list.Add((new Remedy("filter.series_resistor", "reduce the filter's series resistor", best, "Ω", "halved until the load clears, then raised by 10 % steps while it stays clear") { Proof = Proof(proven) }, proven));
                 break;
             }
         // A smaller reservoir lets the input capacitor recharge within each modulator phase; a larger one only reaches the average.
@@ -140,9 +182,9 @@ internal static class DeltaSigmaFindings
             var changed = design with { Filter = design.Filter with { ReservoirCapacitorFarads = candidate } };
             if (reservoir > 0 && Clears(changed))
             {
-                list.Add(new Remedy("filter.reservoir_capacitor", candidate == 0 ? "remove the reservoir (the input recharges within each modulator phase)"
+                list.Add((new Remedy("filter.reservoir_capacitor", candidate == 0 ? "remove the reservoir (the input recharges within each modulator phase)"
                     : "reduce the reservoir so the input recharges within each modulator phase", candidate, "F", "decades down from the design's value, the first that clears")
-                    { Proof = Proof(changed) + "; the interference and noise it filtered are not part of this proof" });
+                    { Proof = Proof(changed) }, changed));
                 break;
             }
         }
@@ -151,25 +193,25 @@ internal static class DeltaSigmaFindings
             var changed = design with { Filter = design.Filter with { ReservoirCapacitorFarads = reservoir * factor } };
             if (reservoir > 0 && Clears(changed))
             {
-                list.Add(new Remedy("filter.reservoir_capacitor", "enlarge the reservoir", reservoir * factor, "F", "decades up from the design's value") { Proof = Proof(changed) });
+                list.Add((new Remedy("filter.reservoir_capacitor", "enlarge the reservoir", reservoir * factor, "F", "decades up from the design's value") { Proof = Proof(changed) }, changed));
                 break;
             }
         }
         return list;
     }
 
-    private static IReadOnlyList<Remedy> ChannelRemedies(FrontEndDesign design, ChannelSettlingResult worst, ICheckEngine engine)
+    private static List<(Remedy Remedy, FrontEndDesign Changed)> ChannelRemedies(FrontEndDesign design, ChannelSettlingResult worst, ICheckEngine engine)
     {
         var d = design.Adc.DeltaSigma!;
         var temperatures = SwitchTemperatures(design);
         (bool Clear, string Proof) Prove(FrontEndDesign changed)
         {
-            var runs = temperatures.Select(t => ChannelSettling.At(changed, t, engine, Start(changed.Adc.DeltaSigma!))).ToList();
+            var runs = temperatures.SelectMany(t => Starts(changed).Select(s => ChannelSettling.At(changed, t, engine, s))).ToList();
             var largest = runs.Max(r => Math.Abs(r.FirstUsedErrorVolts));
             return (runs.All(r => !r.FirstUsedOff),
                 I($"the channel switch analysed again with the change at {temperatures.Length} temperatures: the first reading used is at most {Show(largest, UnitKind.Volt)} off, within ½ LSB"));
         }
-        var list = new List<Remedy>();
+        var list = new List<(Remedy Remedy, FrontEndDesign Changed)>();
         if (worst.ReadingsToDiscard is { } n && n > d.ReadingsDiscarded)
         {
             // The count at the worst temperature; proven at all of them, one more at a time if another needs more.
@@ -178,8 +220,8 @@ internal static class DeltaSigmaFindings
                 var changed = With(design, d with { ReadingsDiscarded = k });
                 var (clear, proof) = Prove(changed);
                 if (!clear) continue;
-                list.Add(new Remedy("adc.readings_discarded", I($"discard {k} readings after each channel switch"), k, "",
-                    "the readings after the switch followed through the filter until every later one is within ½ LSB") { Proof = proof });
+                list.Add((new Remedy("adc.readings_discarded", I($"discard {k} readings after each channel switch"), k, "",
+                    "the readings after the switch followed through the filter until every later one is within ½ LSB") { Proof = proof }, changed));
                 break;
             }
         }
@@ -187,16 +229,16 @@ internal static class DeltaSigmaFindings
         {
             var changed = With(design, d with { FilterReset = true });
             if (Prove(changed) is { Clear: true } p)
-                list.Add(new Remedy("adc.filter_reset", "reset the filter on each channel change", null, "", "the other channel's samples cleared from the filter") { Proof = p.Proof });
+                list.Add((new Remedy("adc.filter_reset", "reset the filter on each channel change", null, "", "the other channel's samples cleared from the filter") { Proof = p.Proof }, changed));
         }
         return list;
     }
 
-    private static IReadOnlyList<Remedy> InterferenceRemedies(FrontEndDesign design, double lsb, double celsius)
+    private static List<(Remedy Remedy, FrontEndDesign Changed)> InterferenceRemedies(FrontEndDesign design, double lsb, double celsius)
     {
         var d = design.Adc.DeltaSigma!;
-        var list = new List<Remedy>();
-        // A slower data rate whose zeros (multiples of it) fall on the listed frequencies: the fastest that clears, proven.
+        var list = new List<(Remedy Remedy, FrontEndDesign Changed)>();
+        // A slower data rate (whole decimations only): the fastest whose rejection clears every listed frequency, proven.
         for (var k = 2; k <= 100; k++)
         {
             var rate = d.DataRateHertz / k;
@@ -207,8 +249,8 @@ internal static class DeltaSigmaFindings
             var rows = MainsRejection.At(changed, celsius);
             var largest = rows.Max(r => r.ErrorVolts ?? 0);
             if (largest > lsb / 2) continue;
-            list.Add(new Remedy("adc.data_rate", "lower the data rate so the filter's zeros fall on the listed frequencies", rate, "Hz",
-                "data rates of whole decimations below the design's, the fastest that clears") { Proof = I($"the rejection computed again at {Show(rate, UnitKind.Hertz)}: at most {Show(largest, UnitKind.Volt)}, within ½ LSB; a slower reading also lags a ramp more") });
+            list.Add((new Remedy("adc.data_rate", "lower the data rate until the filter rejects the listed frequencies enough (its zeros at multiples of the data rate, its lobes falling beyond)", rate, "Hz",
+                "data rates of whole decimations below the design's, the fastest that clears") { Proof = I($"the rejection computed again at {Show(rate, UnitKind.Hertz)}: at most {Show(largest, UnitKind.Volt)}, within ½ LSB; a slower reading also lags a ramp more") }, changed));
             break;
         }
         return list;

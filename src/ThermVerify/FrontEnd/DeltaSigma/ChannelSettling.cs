@@ -39,7 +39,8 @@ internal static class ChannelSettling
         var count = ReadingsToFollow(design, d, filter, load);
         var samples = Samples(design, d, celsius, load, count * filter.SamplesPerReading + filter.ImpulseResponse.Count, engine, start, lsb);
         ChannelSettlingResult? worst = null;
-        foreach (var other in new[] { 0.0, fullScale })
+        // Switched on, the front end starts from 0 V and the filter from nothing: one case.
+        foreach (var other in start == ChannelStart.SwitchOn ? [0.0] : new[] { 0.0, fullScale })
         {
             var readings = filter.Readings(n => samples(n, other), _ => other, count, d.FilterReset);
             var result = Judge(readings, final, lsb, d.ReadingsDiscarded, other, celsius, filter, start);
@@ -78,16 +79,17 @@ internal static class ChannelSettling
             return (n, other) =>
             {
                 var from = start == ChannelStart.OwnFilter ? load.UnloadedVolts : other;
-                var t = (n + 0.5) * period;
+                var t = (n + 0.5) * period + (start == ChannelStart.SwitchOn ? SwitchOnLeadSeconds(design) : 0);
                 return load.SwitchedVolts + (from - load.SwitchedVolts) * (tau > 0 ? Math.Exp(-t / tau) : 0);
             };
         }
         var cache = new Dictionary<double, double[]>();
+        var lead = start == ChannelStart.SwitchOn ? SwitchOnLeadSeconds(design) : 0;
         return (n, other) =>
         {
             var key = start == ChannelStart.OwnFilter ? 0 : other;
             if (!cache.TryGetValue(key, out var values))
-                cache[key] = values = Simulate(design, d, celsius, load, count, engine, start == ChannelStart.OwnFilter ? null : other, lsb);
+                cache[key] = values = Simulate(design, d, celsius, load, count, engine, start == ChannelStart.OwnFilter ? null : other, lsb, lead);
             return n < values.Length ? values[n] : load.SwitchedVolts;
         };
     }
@@ -97,22 +99,22 @@ internal static class ChannelSettling
     /// pin at the other channel's voltage until T/2. Sample n is the input capacitor's voltage as it leaves the pin.
     /// </summary>
     private static double[] Simulate(FrontEndDesign design, DeltaSigmaSpec d, double celsius, InputLoad load, long count, ICheckEngine engine,
-        double? otherVolts, double lsb)
+        double? otherVolts, double lsb, double leadSeconds)
     {
         var period = 1 / d.ModulatorRateHertz;
-        var circuit = Delayed(InputLoading.Switched(design, celsius), period);
+        var circuit = Delayed(InputLoading.Switched(design, celsius), period + leadSeconds);
         if (otherVolts is { } v)
             circuit = circuit
                 .Add(new VoltageSource(HoldSource, HoldNode, Circuit.Ground, new DcWaveform(v)))
                 .Add(new TimedSwitch(HoldSwitch, HoldNode, FrontEndCircuit.PinNode(design), 1e-3, FrontEndCircuit.SwitchOffOhms,
                     new PeriodicSchedule(0, period, period / 2, 1)));
-        var stop = period * (count + 2);
+        var stop = period * (count + 2) + leadSeconds;
         var run = engine.StartTransient(circuit, new TransientOptions { StopTimeSeconds = stop, MaxStepSeconds = period / 20 });
         var values = new List<double>();
         var steadyRun = 0;
         for (long n = 0; n < count; n++)
         {
-            var sample = run.VoltageAt(period * (n + 1.5), InputLoading.InputNode);
+            var sample = run.VoltageAt(leadSeconds + period * (n + 1.5), InputLoading.InputNode);
             values.Add(sample);
             // Once a few hundred samples in a row sit on the steady state, the rest are the steady state.
             steadyRun = Math.Abs(sample - load.SwitchedVolts) <= SteadyLsb * lsb ? steadyRun + 1 : 0;
@@ -120,6 +122,9 @@ internal static class ChannelSettling
         }
         return [.. values];
     }
+
+    /// <summary>How long the excitation is on before the converter starts (the divider's switch_on_lead); 0 when not switched.</summary>
+    public static double SwitchOnLeadSeconds(FrontEndDesign design) => design.Divider?.SwitchOnLeadSeconds ?? 0;
 
     /// <summary>The input's switches starting one modulator period late, so the state at t = 0 is the pin without the input.</summary>
     private static Circuit Delayed(Circuit circuit, double delaySeconds)
@@ -153,6 +158,11 @@ public enum ChannelStart
     OwnFilter,
     /// <summary>The filter is shared, after the multiplexer: it holds the other channel's voltage.</summary>
     SharedFilter,
+    /// <summary>
+    /// The excitation is switched on for the reading: the pin starts from 0 V (the front end's energy is stored at the
+    /// pin: reservoir and pin capacitance) and the converter starts the switch-on lead later with an empty filter.
+    /// </summary>
+    SwitchOn,
 }
 
 /// <summary>

@@ -68,3 +68,53 @@ public class ChannelSettlingTests
         Assert.True(r.ReadingsToDiscard > 0);
     }
 }
+
+/// <summary>The buffered input's channel switch: the single pole of its input current through the filter.</summary>
+public class BufferedChannelSettlingTests
+{
+    [Fact]
+    public void A_buffered_input_current_settles_as_its_single_pole_through_the_filter()
+    {
+        // Own filter: the reservoir rests unloaded and falls by I·R_s with τ = R_s·C when the buffer joins; through a
+        // reset sinc1 of M samples, reading k is the mean of the exponential over its conversion (elementary).
+        var design = DeltaSigmaDesigns.Make(("adc.input", "\"buffered\""), ("adc.sampling_capacitance", null), ("adc.input_current", "\"+50 nA\""),
+            ("adc.filter", "\"sinc1\""), ("adc.data_rate", "\"1 kHz\""), ("filter.series_resistor", "\"10 kohm\""), ("filter.reservoir_capacitor", "\"100 nF\""));
+        var r = ChannelSettling.At(design, 25, BuiltInEngine.Instance);
+        var rs = 5e3 + 10e3;
+        var tau = rs * 100e-9;
+        var t = 1 / 256e3;
+        var step = 50e-9 * rs; // the unloaded level lies I·R_s above the loaded one
+        for (var k = 0; k < 3; k++)
+        {
+            var sum = 0.0;
+            for (var n = k * 256; n < (k + 1) * 256; n++) sum += Math.Exp(-(n + 0.5) * t / tau);
+            Tolerance.AssertClose(step * sum / 256, r.ErrorVolts[k], 1e-9, 1e-15, $"reading {k + 1}");
+        }
+    }
+}
+
+/// <summary>The excitation switched on for a reading: the pin charges from 0 V through the source, then the filter.</summary>
+public class SwitchOnSettlingTests
+{
+    [Fact]
+    public void The_readings_after_switch_on_follow_the_charging_reservoir_through_the_filter()
+    {
+        // The pin charges as V·(1 − e^(−t/τ)), τ = (R_s ∥ R_eq)·C (single pole, elementary); the converter starts
+        // 5 ms after the switch; through a sinc1 of M samples a reading is the mean of its M samples.
+        var design = DeltaSigmaDesigns.Make(("divider.switch_on_lead", "\"5 ms\""), ("adc.filter", "\"sinc1\""), ("adc.data_rate", "\"500 Hz\""),
+            ("filter.series_resistor", "\"1 kohm\""), ("filter.reservoir_capacitor", "\"1 uF\""));
+        var r = ChannelSettling.At(design, 25, BuiltInEngine.Instance, ChannelStart.SwitchOn);
+        var load = InputLoading.At(design, 25, BuiltInEngine.Instance);
+        var tau = ChannelSettling.AnalogTimeConstant(design, design.Adc.DeltaSigma!, load);
+        var t = 1 / 256e3;
+        const int m = 512;
+        for (var k = 0; k < 3; k++)
+        {
+            var mean = 0.0;
+            for (var n = k * m; n < (k + 1) * m; n++) mean += Math.Exp(-(5e-3 + (n + 1.5) * t) / tau);
+            // Within 1 % of the step: the input's switched load against its average (charge sharing, C_in/C = 8e-6).
+            Tolerance.AssertClose(-load.SwitchedVolts * mean / m, r.ErrorVolts[k], 0.01, 1e-7, $"reading {k + 1}");
+        }
+        Assert.True(r.ReadingsToDiscard > 0);
+    }
+}
