@@ -54,6 +54,9 @@ public sealed record CheckResult(
     /// <summary>The reading's noise over the range (five temperatures): what the budget counts at each point, for the reports.</summary>
     public Noise.NoiseSummary? Noise { get; init; }
 
+    /// <summary>A delta-sigma converter's own analyses (filter, input load, channel switch, rejection); null for a successive-approximation converter.</summary>
+    public DeltaSigma.DeltaSigmaReport? DeltaSigma { get; init; }
+
     /// <summary>The precharge cases the check covered (the design's setting; "worst" covers the last sample, 0 V and full scale).</summary>
     public IReadOnlyList<PrechargeCase> PrechargeCases { get; init; } = [PrechargeCase.LastSample];
 

@@ -18,8 +18,12 @@ internal static class FrontEndCheck
 {
     public static CheckResult Run(FrontEndDesign design, CheckOptions? options = null)
     {
-        ConverterSupport.RequireSuccessiveApproximation(design, "check");
         options ??= new CheckOptions();
+        // The remedy search checks copies of the design, and many changes leave the analog front end as it was: each
+        // netlist is simulated once for the whole run (MemoizingEngine gives back exactly what a new run would).
+        if (options.ComputeRemedies)
+            options = options with { Engine = MemoizingEngine.Wrap(options.Engine) };
+        if (design.Adc.Kind == ConverterKind.DeltaSigma) return DeltaSigma.DeltaSigmaCheck.Run(design, options);
         var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToArray();
         var evaluation = CheckEvaluation.Run(design, temperatures, options).Refined(options);
         var points = evaluation.Points;

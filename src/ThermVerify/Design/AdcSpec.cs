@@ -90,5 +90,5 @@ public sealed record AdcSpec
     /// <summary>The same as a voltage at the input (null: not declared this way). At most one of the two is set.</summary>
     public double? NoiseVolts { get; init; }
     /// <summary>Whether the design declares the converter's noise; otherwise <see cref="DesignDefaults.ConverterNoiseLsb"/> is assumed.</summary>
-    public bool NoiseDeclared => NoiseLsb is not null || NoiseVolts is not null;
+    public bool NoiseDeclared => NoiseLsb is not null || NoiseVolts is not null || DeltaSigma?.TableNoise is not null;
 }

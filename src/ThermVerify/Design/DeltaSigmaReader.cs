@@ -13,7 +13,7 @@ internal static class DeltaSigmaReader
     /// <summary>The keys only a delta-sigma converter has.</summary>
     public static readonly string[] OwnKeys =
     [
-        "modulator_rate", "data_rate", "input", "input_current", "gain", "filter", "average_length", "filter_reset",
+        "modulator_rate", "data_rate", "input", "input_current", "gain", "filter", "average_length", "filter_reset", "channel_filter",
         "readings_discarded", "noise_table", "rejection_frequencies", "interference",
     ];
 
@@ -28,6 +28,8 @@ internal static class DeltaSigmaReader
     public const int MaximumDiscarded = 1000;
     public const int MaximumRejectionFrequencies = 16;
     public const int MaximumNoiseRows = 256;
+
+    private static readonly Dictionary<string, bool> ChannelFilters = new() { ["own"] = false, ["shared"] = true };
 
     private static readonly Dictionary<string, bool> Inputs = new() { ["unbuffered"] = false, ["buffered"] = true };
 
@@ -90,6 +92,7 @@ internal static class DeltaSigmaReader
             FilterOrder = order,
             AverageLength = (int)average,
             FilterReset = s.Boolean("filter_reset") ?? true,
+            SharedFilter = s.Choice("channel_filter", ChannelFilters) ?? false,
             ReadingsDiscarded = (int)discarded,
             RejectionHertz = s.QuantityList("rejection_frequencies", Bound.Positive, MaximumRejectionFrequencies, UnitKind.Hertz) ?? [50, 60],
             InterferenceVolts = s.Quantity("interference", Bound.Positive, UnitKind.Volt)?.Value,

@@ -48,6 +48,11 @@ public sealed record DeltaSigmaSpec
     public int AverageLength { get; init; } = 1;
     /// <summary>Whether the converter clears the filter's memory when the multiplexer changes channel.</summary>
     public bool FilterReset { get; init; } = true;
+    /// <summary>
+    /// Whether the RC filter follows the multiplexer, shared by the channels (it holds the other channel's voltage at a
+    /// switch), rather than each channel having its own ahead of it (it holds its own voltage, unloaded by the converter).
+    /// </summary>
+    public bool SharedFilter { get; init; }
     /// <summary>Readings the firmware throws away after a channel switch before it uses one.</summary>
     public int ReadingsDiscarded { get; init; }
     /// <summary>The converter's rms noise against data rate and gain ([[adc.noise_table]]); empty: not declared this way.</summary>
@@ -71,7 +76,7 @@ public sealed record DeltaSigmaSpec
         && InputBuffered == other.InputBuffered && SamplingCapacitanceFarads == other.SamplingCapacitanceFarads
         && InputCurrentAmperes == other.InputCurrentAmperes && InputCurrentSigned == other.InputCurrentSigned && Gain == other.Gain
         && Filter == other.Filter && FilterOrder == other.FilterOrder && AverageLength == other.AverageLength
-        && FilterReset == other.FilterReset && ReadingsDiscarded == other.ReadingsDiscarded
+        && FilterReset == other.FilterReset && SharedFilter == other.SharedFilter && ReadingsDiscarded == other.ReadingsDiscarded
         && NoiseTable.SequenceEqual(other.NoiseTable) && RejectionHertz.SequenceEqual(other.RejectionHertz)
         && InterferenceVolts == other.InterferenceVolts;
 

@@ -253,6 +253,7 @@ internal static partial class DesignWriter
         w.Text("filter", $"sinc{d.FilterOrder}");
         w.Integer("average_length", d.AverageLength);
         w.Boolean("filter_reset", d.FilterReset);
+        w.Text("channel_filter", d.SharedFilter ? "shared" : "own");
         w.Integer("readings_discarded", d.ReadingsDiscarded);
         w.Values("rejection_frequencies", d.RejectionHertz, UnitKind.Hertz);
         if (d.InterferenceVolts is { } interference)

@@ -30,6 +30,7 @@ internal static class CheckHtml
 
         html.Append(BufferSectionRender.Html(r.Buffer));
         html.Append(BufferSectionRender.Html(NoiseSections.Build(r.Noise)));
+        html.Append(BufferSectionRender.Html(DeltaSigmaSections.Build(r.DeltaSigma)));
         AppendFindings(html, r);
         AppendPoints(html, r);
 

@@ -50,6 +50,7 @@ public static class CheckJson
         },
         adc = new { bits = r.Adc.Bits, referenceVolts = r.Adc.ReferenceVolts, lsbVolts = r.Adc.LsbVolts },
         noise = NoiseJson.ToJson(r.Noise),
+        deltaSigma = DeltaSigmaJson.ToJson(r.DeltaSigma),
         points = r.Points.Select(p => new
         {
             celsius = p.Celsius,

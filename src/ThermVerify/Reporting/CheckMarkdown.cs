@@ -41,6 +41,7 @@ internal static class CheckMarkdown
 
         md.Append(BufferSectionRender.Markdown(r.Buffer));
         md.Append(BufferSectionRender.Markdown(NoiseSections.Build(r.Noise)));
+        md.Append(BufferSectionRender.Markdown(DeltaSigmaSections.Build(r.DeltaSigma)));
         md.AppendLine("## Findings");
         md.AppendLine();
         if (r.Findings.Count == 0) md.AppendLine("None: every effect is within ½ LSB.\n");

@@ -19,7 +19,7 @@ internal static class NoiseSections
         var notes = new List<string>
         {
             $"Method: {n.Method}.",
-            $"Band: the sampled noise is integrated from {V(n.FromHertz, UnitKind.Hertz)} to {V(n.ToHertz, UnitKind.Hertz)} (1000× the sampling network's fastest pole); " +
+            n.Band is { } band ? $"Band: {band}." : $"Band: the sampled noise is integrated from {V(n.FromHertz, UnitKind.Hertz)} to {V(n.ToHertz, UnitKind.Hertz)} (1000× the sampling network's fastest pole); " +
             (double.IsFinite(n.NoiseBandwidthHertz) ? $"equivalent noise bandwidth {V(n.NoiseBandwidthHertz, UnitKind.Hertz)} (the total over the density at the bottom of the band)." : "no equivalent bandwidth for an engine total."),
             $"Converter noise: {n.ConverterNoise}.",
             (n.ReadingsAveraged > 1
@@ -35,11 +35,11 @@ internal static class NoiseSections
         var rows = n.Points.Select(p => (string[])
         [
             N(p.Celsius, "0.##"), V(p.SingleRmsVolts, UnitKind.Volt), V(p.AveragedRmsVolts, UnitKind.Volt), N(p.AveragedRmsLsb, "0.###"),
-            N(p.CoveredKelvin, "0.####"), N(p.LsbKelvin, "0.####"), N(p.NoiseFreeResolutionKelvin, "0.####"), V(p.AnalogRmsVolts, UnitKind.Volt), V(p.KtcRmsVolts, UnitKind.Volt),
+            N(p.CoveredKelvin, "0.####"), N(p.LsbKelvin, "0.####"), N(p.NoiseFreeResolutionKelvin, "0.####"), V(p.AnalogRmsVolts, UnitKind.Volt), .. (n.SampledKtc ? [V(p.KtcRmsVolts, UnitKind.Volt)] : Array.Empty<string>()),
             .. p.PinDensity.Select(d => V(d.VoltsPerRootHertz, UnitKind.VoltPerRootHertz)),
         ]).ToList();
         return [new BufferSection("noise", "Noise of a reading", notes,
-            ["T (°C)", "one conversion", "reading", "reading (LSB)", $"±{N(w.Coverage, "0.##")}σ (K)", "LSB (K)", "noise-free resolution (K)", "front end", "kT/C closed form", .. density],
+            ["T (°C)", "one conversion", "reading", "reading (LSB)", $"±{N(w.Coverage, "0.##")}σ (K)", "LSB (K)", "noise-free resolution (K)", "front end", .. (n.SampledKtc ? ["kT/C closed form"] : Array.Empty<string>()), .. density],
             rows)];
     }
 }

@@ -79,8 +79,16 @@ internal static class ReportFormat
     }
 
     /// <summary>Which reading a point converts: the precharge case, the first or steady sample, the INL sign where INL is a bound.</summary>
-    public static string ReadingCell(CheckPoint p) =>
-        $"{p.Precharge.Name}, {p.SampleKind}" + (p.Corner.Length > 0 ? $", {p.Corner}" : "");
+    public static string ReadingCell(CheckPoint p) => ReferenceEquals(p.Precharge, Check.DeltaSigma.DeltaSigmaCheck.Reading)
+        ? p.Precharge.Name + (p.Corner.Length > 0 ? $", {p.Corner}" : "")
+        : $"{p.Precharge.Name}, {p.SampleKind}" + (p.Corner.Length > 0 ? $", {p.Corner}" : "");
+
+    /// <summary>How the converter samples: a successive-approximation converter's rate and window, a delta-sigma converter's rates, input and filter.</summary>
+    public static string ConverterTiming(Design.FrontEndDesign d) => d.Adc.DeltaSigma is { } ds
+        ? $"delta-sigma, modulator {V(ds.ModulatorRateHertz, UnitKind.Hertz)}, {V(ds.DataRateHertz, UnitKind.Hertz)} data rate, " +
+          $"{(ds.InputBuffered ? "buffered" : $"unbuffered ({V(ds.SamplingCapacitanceFarads, UnitKind.Farad)})")} input, {Check.DeltaSigma.DeltaSigmaFindings.FilterWords(ds)}" +
+          $"{(ds.FilterReset ? " reset on a channel change" : " not reset on a channel change")}, {ds.ReadingsDiscarded} reading(s) discarded"
+        : $"{V(d.Adc.SampleRateHertz, UnitKind.Hertz)}, acquisition {V(d.Adc.AcquisitionTimeSeconds, UnitKind.Second)}";
 
     /// <summary>The precharge setting and the cases it covers, for headers.</summary>
     public static string PrechargeLine(CheckResult r) =>

@@ -46,10 +46,11 @@ internal static class DcSweep
         var data = new double[values.Count * width];
         var warnings = new Warnings(system);
         var notes = new List<SolverNote>();
+        var saved = new double[width];
         double? previous = null;
         for (var p = 0; p < values.Count; p++)
         {
-            var aid = SolvePoint(system, previous, values[p], analysis, set);
+            var aid = SolvePoint(system, previous, values[p], analysis, set, saved);
             if (aid != ConvergenceAid.None)
                 notes.Add(new SolverNote(analysis, $"{analysis} at {values[p]:G6}: converged with {Describe(aid)}", aid, values[p]));
             previous = values[p];
@@ -76,18 +77,19 @@ internal static class DcSweep
     /// <see cref="MaxHalvings"/> times; a point still out of reach gets gmin and source stepping
     /// (<see cref="DcSolver"/>). The first point starts with the full DC solver.
     /// </summary>
+    /// <param name="saved">Scratch for the last good solution (one per sweep: a point allocates nothing).</param>
     private static ConvergenceAid SolvePoint(BoundSystem system, double? previous, double target, string analysis,
-        Action<BoundSystem, double> set)
+        Action<BoundSystem, double> set, double[] saved)
     {
         var c = system.Context;
         set(system, target);
         if (previous is not { } from)
             return DcSolver.Solve(system, analysis, target);
-        var saved = (double[])c.Solution.Clone();
+        Array.Copy(c.Solution, saved, saved.Length);
         SingularMatrixException? singular = null;
         if (DcSolver.Attempt(system, ref singular, out _))
         {
-            system.CheckConditioning(analysis, $" at sweep value {target:G6}");
+            CheckConditioning(system, analysis, target);
             return ConvergenceAid.None;
         }
         var reached = 0.0;
@@ -104,7 +106,7 @@ internal static class DcSweep
                 Array.Copy(c.Solution, saved, saved.Length);
                 if (reached >= 1)
                 {
-                    system.CheckConditioning(analysis, $" at sweep value {target:G6}");
+                    CheckConditioning(system, analysis, target);
                     return ConvergenceAid.SweepStepHalving;
                 }
                 step *= 2;
@@ -116,5 +118,12 @@ internal static class DcSweep
         Array.Copy(saved, c.Solution, saved.Length);
         set(system, target);
         return DcSolver.Solve(system, analysis, target);
+    }
+
+    // The place is put into words only when the check fails: formatting it at every point cost more than the solve.
+    private static void CheckConditioning(BoundSystem system, string analysis, double target)
+    {
+        if (system.IsIllConditioned)
+            throw system.IllConditioned(analysis, $" at sweep value {target:G6}");
     }
 }

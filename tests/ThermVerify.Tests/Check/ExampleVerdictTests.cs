@@ -37,6 +37,7 @@ public class ExampleVerdictTests
     [InlineData("cold-storage-logger.toml", false, "settling")]
     [InlineData("cold-storage-logger-reservoir.toml", false, "reservoir-recovery")]
     [InlineData("cold-storage-logger-bare-opamp.toml", false, "buffer-stability")]
+    [InlineData("kiln-bank-pt100-deltasigma.toml", false, "channel-switch")]
     public void Example_shows_its_verdict(string example, bool passes, string? failingFinding)
     {
         var result = Checked(example);

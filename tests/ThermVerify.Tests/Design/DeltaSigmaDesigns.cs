@@ -52,6 +52,7 @@ internal static class DeltaSigmaDesigns
         filter = "sinc4"
         average_length = 2
         filter_reset = false
+        channel_filter = "shared"
         readings_discarded = 3
         rejection_frequencies = ["50 Hz", "60 Hz", "400 Hz"]
         interference = "10 mV"

@@ -52,6 +52,7 @@ public class DeltaSigmaKeysTests
         Assert.Equal(2, ds.AverageLength);
         Assert.Equal(2560, ds.Decimation); // 256 kHz / (50 Hz · 2)
         Assert.False(ds.FilterReset);
+        Assert.True(ds.SharedFilter);
         Assert.Equal(3, ds.ReadingsDiscarded);
         Assert.Equal([50.0, 60.0, 400.0], ds.RejectionHertz);
         Assert.Equal(0.01, ds.InterferenceVolts!.Value, 15);
@@ -84,6 +85,7 @@ public class DeltaSigmaKeysTests
     [InlineData("adc.average_length", "0", "outside 1..1024")]
     [InlineData("adc.readings_discarded", "-1", "outside 0..1000")]
     [InlineData("adc.filter_reset", "\"yes\"", "true or false")]
+    [InlineData("adc.channel_filter", "\"both\"", "shared")]
     [InlineData("adc.gain", "0", "greater than zero")]
     [InlineData("adc.rejection_frequencies", "\"50 Hz\"", "list")]
     [InlineData("adc.rejection_frequencies", "[\"50 V\"]", "")]

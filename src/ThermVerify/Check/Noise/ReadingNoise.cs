@@ -77,6 +77,12 @@ public sealed record NoiseSummary(
     double LagSeconds,
     string Method)
 {
+    /// <summary>What the band line of a report says, where the band is not the sampling network's (a delta-sigma converter's digital filter); null: the sampling network's.</summary>
+    public string? Band { get; init; }
+
+    /// <summary>Whether each conversion samples kT/C on a sampling capacitor the report shows beside its closed form (a successive-approximation converter).</summary>
+    public bool SampledKtc { get; init; } = true;
+
     /// <summary>The reading with the largest ±k·σ in K against the budget's point (largest in K).</summary>
     public ReadingNoise Worst => Points.MaxBy(p => p.CoveredKelvin)!;
 }

@@ -146,4 +146,4 @@ internal sealed class SincFilter
 }
 
 /// <summary>One reading of the filter: its number after the start (1 is the first the converter gives), when it is ready, its value.</summary>
-internal sealed record FilterReading(int Number, double Seconds, double Value);
+public sealed record FilterReading(int Number, double Seconds, double Value);

@@ -23,9 +23,9 @@ public static class CheckSummaryText
         var (label, excitation) = ReportFormat.Excitation(d);
         text.AppendLine($"  {label,-8} {excitation}");
         text.AppendLine($"  ADC      {d.Adc.Bits} bits, reference {ReportFormat.Reference(d, result.Adc)}, " +
-                        $"1 LSB = {V(result.Adc.LsbVolts, UnitKind.Volt)}, {V(d.Adc.SampleRateHertz, UnitKind.Hertz)}, acquisition {V(d.Adc.AcquisitionTimeSeconds, UnitKind.Second)}");
+                        $"1 LSB = {V(result.Adc.LsbVolts, UnitKind.Volt)}, " + ReportFormat.ConverterTiming(d));
         text.AppendLine($"  codes    {result.Adc.Describe()}");
-        text.AppendLine($"  precharge {ReportFormat.PrechargeLine(result)}");
+        if (d.Adc.DeltaSigma is null) text.AppendLine($"  precharge {ReportFormat.PrechargeLine(result)}");
         text.AppendLine($"  check    {V(d.Check.Range.MinCelsius, UnitKind.Celsius)} to {V(d.Check.Range.MaxCelsius, UnitKind.Celsius)} in {V(d.Check.StepKelvin, UnitKind.Kelvin)} steps, budget {V(d.Check.BudgetKelvin, UnitKind.Kelvin)}" +
                         string.Concat(d.Check.Regions.Select(r => $" ({r.Range}: {V(r.BudgetKelvin, UnitKind.Kelvin)})")));
         ProvenanceText.Append(text, provenance);
@@ -49,6 +49,7 @@ public static class CheckSummaryText
 
         text.Append(BufferSectionRender.Text(result.Buffer));
         text.Append(BufferSectionRender.Text(NoiseSections.Build(result.Noise)));
+        text.Append(BufferSectionRender.Text(DeltaSigmaSections.Build(result.DeltaSigma)));
         if (result.Findings.Count == 0) text.AppendLine("Findings: none; every effect is within ½ LSB.");
         else text.AppendLine("Findings:");
         foreach (var f in result.Findings) AppendFinding(text, f);

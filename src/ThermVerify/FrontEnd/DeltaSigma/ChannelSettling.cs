@@ -1,0 +1,179 @@
+using ThermVerify.Circuits;
+using ThermVerify.Design;
+using ThermVerify.Simulation;
+
+namespace ThermVerify.FrontEnd.DeltaSigma;
+
+/// <summary>
+/// The readings after the multiplexer switches to this channel, the analog transient at the pin followed through the
+/// digital filter. The channel's own RC filter sits ahead of the multiplexer (<see cref="ChannelStart.OwnFilter"/>):
+/// while another channel was read its reservoir rested at the unloaded voltage, and the unbuffered input, joined at
+/// the switch, pulls it down to the loaded level with the time constant (R_s ∥ R_eq)·C. The modulator takes C·V of
+/// the input capacitor at the end of each charging phase: the switched transient of <see cref="InputLoading"/> read
+/// there, sample by sample, from the engine (exact propagation in the built-in one). The filter's memory holds the
+/// other channel's input unless it is reset (<see cref="SincFilter.Readings"/>); the other channel is taken at 0 V
+/// and at full scale, and the worse is reported. A buffered input draws only its current: the reservoir moves by
+/// I·R_s with τ = R_s·C (single pole, elementary). Every reading is compared with the settled reading, the filter's
+/// output of the periodic steady state.
+/// </summary>
+internal static class ChannelSettling
+{
+    public const string HoldSwitch = "Sds_hold";
+    public const string HoldSource = "Vds_hold";
+    public const string HoldNode = "ds_hold";
+
+    /// <summary>Samples read after the pin is within this fraction of an LSB of its steady state are taken as steady (no further reads).</summary>
+    private const double SteadyLsb = 1e-4;
+
+    /// <summary>At most this many readings are followed after a switch.</summary>
+    public const int MaximumReadings = 64;
+
+    public static ChannelSettlingResult At(FrontEndDesign design, double celsius, ICheckEngine engine, ChannelStart start = ChannelStart.OwnFilter)
+    {
+        var d = design.Adc.DeltaSigma ?? throw new ArgumentException($"{design.Name} has no delta-sigma converter.", nameof(design));
+        var filter = SincFilter.Of(d);
+        var load = InputLoading.At(design, celsius, engine);
+        var fullScale = design.NominalReferenceVolts / d.Gain;
+        var lsb = fullScale / Math.Pow(2, design.Adc.Bits);
+        var final = load.SwitchedVolts; // the filter passes DC with gain 1: the settled reading is the steady sample
+        var count = ReadingsToFollow(design, d, filter, load);
+        var samples = Samples(design, d, celsius, load, count * filter.SamplesPerReading + filter.ImpulseResponse.Count, engine, start, lsb);
+        ChannelSettlingResult? worst = null;
+        // Switched on, the front end starts from 0 V and the filter from nothing: one case.
+        foreach (var other in start == ChannelStart.SwitchOn ? [0.0] : new[] { 0.0, fullScale })
+        {
+            var readings = filter.Readings(n => samples(n, other), _ => other, count, d.FilterReset);
+            var result = Judge(readings, final, lsb, d.ReadingsDiscarded, other, celsius, filter, start);
+            if (worst is null || Math.Abs(result.FirstUsedErrorVolts) > Math.Abs(worst.FirstUsedErrorVolts)) worst = result;
+        }
+        return worst!;
+    }
+
+    /// <summary>The readings to follow: the filter's settling, the analog transient's 20 time constants and the discarded ones, with two more.</summary>
+    private static int ReadingsToFollow(FrontEndDesign design, DeltaSigmaSpec d, SincFilter filter, InputLoad load)
+    {
+        var tau = AnalogTimeConstant(design, d, load);
+        var analog = (int)Math.Ceiling(20 * tau * filter.DataRateHertz);
+        return Math.Min(MaximumReadings, Math.Max(filter.SettlingConversions + analog, d.ReadingsDiscarded + 1) + 2);
+    }
+
+    /// <summary>(R_s ∥ R_eq)·(C_res + C_pin): the pin's time constant with the input joined (single pole).</summary>
+    public static double AnalogTimeConstant(FrontEndDesign design, DeltaSigmaSpec d, InputLoad load)
+    {
+        var r = double.IsFinite(load.EquivalentOhms) ? load.SourceOhms * load.EquivalentOhms / (load.SourceOhms + load.EquivalentOhms) : load.SourceOhms;
+        return r * (design.Filter.ReservoirCapacitorFarads + design.Adc.PinCapacitanceFarads);
+    }
+
+    /// <summary>
+    /// The modulator's samples after the switch, by index (0: the first charging phase), for an other channel's voltage.
+    /// Read from the engine until the pin is steady, then the steady sample.
+    /// </summary>
+    private static Func<long, double, double> Samples(FrontEndDesign design, DeltaSigmaSpec d, double celsius, InputLoad load, long count,
+        ICheckEngine engine, ChannelStart start, double lsb)
+    {
+        var period = 1 / d.ModulatorRateHertz;
+        if (d.InputBuffered)
+        {
+            // The buffer's current pulls the reservoir from the unloaded to the loaded level: single pole.
+            var tau = AnalogTimeConstant(design, d, load);
+            return (n, other) =>
+            {
+                var from = start == ChannelStart.OwnFilter ? load.UnloadedVolts : other;
+                var t = (n + 0.5) * period + (start == ChannelStart.SwitchOn ? SwitchOnLeadSeconds(design) : 0);
+                return load.SwitchedVolts + (from - load.SwitchedVolts) * (tau > 0 ? Math.Exp(-t / tau) : 0);
+            };
+        }
+        var cache = new Dictionary<double, double[]>();
+        var lead = start == ChannelStart.SwitchOn ? SwitchOnLeadSeconds(design) : 0;
+        return (n, other) =>
+        {
+            var key = start == ChannelStart.OwnFilter ? 0 : other;
+            if (!cache.TryGetValue(key, out var values))
+                cache[key] = values = Simulate(design, d, celsius, load, count, engine, start == ChannelStart.OwnFilter ? null : other, lsb, lead);
+            return n < values.Length ? values[n] : load.SwitchedVolts;
+        };
+    }
+
+    /// <summary>
+    /// The switched input joined at t = T (its first charging phase [T, 1.5T)); with a shared filter a switch holds the
+    /// pin at the other channel's voltage until T/2. Sample n is the input capacitor's voltage as it leaves the pin.
+    /// </summary>
+    private static double[] Simulate(FrontEndDesign design, DeltaSigmaSpec d, double celsius, InputLoad load, long count, ICheckEngine engine,
+        double? otherVolts, double lsb, double leadSeconds)
+    {
+        var period = 1 / d.ModulatorRateHertz;
+        var circuit = Delayed(InputLoading.Switched(design, celsius), period + leadSeconds);
+        if (otherVolts is { } v)
+            circuit = circuit
+                .Add(new VoltageSource(HoldSource, HoldNode, Circuit.Ground, new DcWaveform(v)))
+                .Add(new TimedSwitch(HoldSwitch, HoldNode, FrontEndCircuit.PinNode(design), 1e-3, FrontEndCircuit.SwitchOffOhms,
+                    new PeriodicSchedule(0, period, period / 2, 1)));
+        var stop = period * (count + 2) + leadSeconds;
+        var run = engine.StartTransient(circuit, new TransientOptions { StopTimeSeconds = stop, MaxStepSeconds = period / 20 });
+        var values = new List<double>();
+        var steadyRun = 0;
+        for (long n = 0; n < count; n++)
+        {
+            var sample = run.VoltageAt(leadSeconds + period * (n + 1.5), InputLoading.InputNode);
+            values.Add(sample);
+            // Once a few hundred samples in a row sit on the steady state, the rest are the steady state.
+            steadyRun = Math.Abs(sample - load.SwitchedVolts) <= SteadyLsb * lsb ? steadyRun + 1 : 0;
+            if (steadyRun >= 256) break;
+        }
+        return [.. values];
+    }
+
+    /// <summary>How long the excitation is on before the converter starts (the divider's switch_on_lead); 0 when not switched.</summary>
+    public static double SwitchOnLeadSeconds(FrontEndDesign design) => design.Divider?.SwitchOnLeadSeconds ?? 0;
+
+    /// <summary>The input's switches starting one modulator period late, so the state at t = 0 is the pin without the input.</summary>
+    private static Circuit Delayed(Circuit circuit, double delaySeconds)
+    {
+        foreach (var name in new[] { InputLoading.InputSwitch, InputLoading.EmptySwitch })
+        {
+            var s = (TimedSwitch)circuit[name];
+            var p = (PeriodicSchedule)s.Schedule;
+            circuit = circuit.Replace(s with { Schedule = p with { DelaySeconds = p.DelaySeconds + delaySeconds } });
+        }
+        return circuit;
+    }
+
+    private static ChannelSettlingResult Judge(IReadOnlyList<FilterReading> readings, double final, double lsb, int discarded, double other,
+        double celsius, SincFilter filter, ChannelStart start)
+    {
+        var half = lsb / 2;
+        var errors = readings.Select(r => r.Value - final).ToArray();
+        var lastOutside = Array.FindLastIndex(errors, e => Math.Abs(e) > half);
+        var settled = lastOutside + 1 < readings.Count ? lastOutside + 1 : -1; // index of the first reading within ½ LSB for good
+        var used = Math.Min(discarded, readings.Count - 1);
+        return new ChannelSettlingResult(celsius, start, other, final, lsb, [.. readings], [.. errors],
+            settled < 0 ? null : settled, settled < 0 ? null : readings[settled].Seconds, discarded, errors[used], filter.SettlingConversions);
+    }
+}
+
+/// <summary>Where the channel's filter sits against the multiplexer, so what the pin holds at the switch.</summary>
+public enum ChannelStart
+{
+    /// <summary>Each channel has its own RC filter ahead of the multiplexer: the reservoir holds its own unloaded voltage.</summary>
+    OwnFilter,
+    /// <summary>The filter is shared, after the multiplexer: it holds the other channel's voltage.</summary>
+    SharedFilter,
+    /// <summary>
+    /// The excitation is switched on for the reading: the pin starts from 0 V (the front end's energy is stored at the
+    /// pin: reservoir and pin capacitance) and the converter starts the switch-on lead later with an empty filter.
+    /// </summary>
+    SwitchOn,
+}
+
+/// <summary>
+/// The readings after a channel switch at one temperature: each reading's value and error against the settled one
+/// (volts at the input), the readings to discard for every later one to be within ½ LSB (null: not within the readings
+/// followed), when that reading is ready, and the error of the first reading the firmware uses.
+/// </summary>
+public sealed record ChannelSettlingResult(double Celsius, ChannelStart Start, double OtherChannelVolts, double FinalVolts, double LsbVolts,
+    IReadOnlyList<FilterReading> Readings, IReadOnlyList<double> ErrorVolts, int? ReadingsToDiscard, double? SettledSeconds, int ReadingsDiscarded,
+    double FirstUsedErrorVolts, int FilterSettlingConversions)
+{
+    /// <summary>Whether the first reading used is more than ½ LSB from the settled one.</summary>
+    public bool FirstUsedOff => Math.Abs(FirstUsedErrorVolts) > LsbVolts / 2;
+}

@@ -1,0 +1,52 @@
+using ThermVerify.Cli;
+
+namespace ThermVerify.Tests.Cli;
+
+/// <summary>The command line with a delta-sigma design: check runs it; the analyses that do not model it refuse it with exit code 2.</summary>
+public class DeltaSigmaCommandTests
+{
+    private static string Example(string name) =>
+        Path.Combine(AppContext.BaseDirectory, "..", "..", "..", "..", "..", "netlists", name);
+
+    [Theory]
+    [InlineData("worstcase")]
+    [InlineData("montecarlo")]
+    [InlineData("table")]
+    public void An_analysis_built_on_an_acquisition_window_refuses_a_delta_sigma_design_with_exit_code_2(string command)
+    {
+        var run = CliRunner.Run(command, Example("kiln-bank-pt100-deltasigma.toml"));
+        Assert.Equal(ExitCodes.BadInput, run.ExitCode);
+        Assert.Contains("delta-sigma", run.Error);
+        Assert.Contains("refused rather than treated as the other kind", run.Error);
+        Assert.DoesNotContain("internal error", run.Error);
+    }
+
+    [Fact]
+    public void Check_fails_the_kiln_example_on_its_channel_switch()
+    {
+        var run = CliRunner.Run("check", Example("kiln-bank-pt100-deltasigma.toml"), "--no-remedies");
+        Assert.Equal(ExitCodes.CheckFailed, run.ExitCode);
+        Assert.Contains("FAIL channel-switch", run.Output);
+        Assert.Contains("readings_discarded = ", run.Output);
+    }
+
+    [Fact]
+    public void Check_writes_its_report_and_json_and_baseline_takes_it()
+    {
+        var folder = Directory.CreateTempSubdirectory("tv-ds-").FullName;
+        try
+        {
+            var run = CliRunner.Run("check", Example("kiln-bank-pt100-deltasigma.toml"), "--no-remedies", "--report", Path.Combine(folder, "report"),
+                "--json", Path.Combine(folder, "check.json"));
+            Assert.Equal(ExitCodes.CheckFailed, run.ExitCode);
+            Assert.Contains("Readings after a channel switch", File.ReadAllText(Path.Combine(folder, "report", "report.html")));
+            Assert.Contains("\"deltaSigma\"", File.ReadAllText(Path.Combine(folder, "check.json")));
+            var baseline = CliRunner.Run("baseline", Example("kiln-bank-pt100-deltasigma.toml"), "--out", Path.Combine(folder, "baseline.json"));
+            Assert.Equal(ExitCodes.Success, baseline.ExitCode);
+        }
+        finally
+        {
+            Directory.Delete(folder, recursive: true);
+        }
+    }
+}
