@@ -94,7 +94,8 @@ internal static class InputLoading
         var r = source * EquivalentOhms(d) / (source + EquivalentOhms(d));
         var tau = r * (design.Filter.ReservoirCapacitorFarads + design.Adc.PinCapacitanceFarads + d.SamplingCapacitanceFarads);
         var period = 1 / d.ModulatorRateHertz;
-        var periods = (int)Math.Min(1_000_000, Math.Ceiling(20 * tau / period) + 4);
+        var periods = (int)Math.Min(int.MaxValue, Math.Ceiling(20 * tau / period) + 4);
+        SteppedPeriods.Check(periods, design);
         var t = (periods - 1 + 0.5) * period;
         var run = engine.StartTransient(Switched(design, celsius), new TransientOptions { StopTimeSeconds = t, MaxStepSeconds = period / 20 });
         return run.VoltageAt(t, InputNode);
@@ -102,6 +103,23 @@ internal static class InputLoading
 
     private static DeltaSigmaSpec Spec(FrontEndDesign design) =>
         design.Adc.DeltaSigma ?? throw new ArgumentException($"{design.Name} has no delta-sigma converter.", nameof(design));
+}
+
+/// <summary>
+/// Time stepping through a delta-sigma input takes about 20 steps a modulator period: more periods than
+/// --max-conversions allows are refused with the way round (the built-in engine propagates a linear front end exactly).
+/// </summary>
+internal static class SteppedPeriods
+{
+    public static void Check(long periods, FrontEndDesign design)
+    {
+        var limit = Limits.Work.Limits.MaximumConversions;
+        if (periods <= limit) return;
+        throw new EngineUnsupportedException(
+            $"{design.Name}: the delta-sigma input would have to be time-stepped through {periods} modulator periods, more than the limit of {limit} " +
+            "(--max-conversions): the engine cannot propagate this front end exactly (a nonlinear part, or another engine). " +
+            "Use the built-in engine on a linear front end, or raise --max-conversions.");
+    }
 }
 
 /// <summary>
