@@ -126,27 +126,8 @@ internal static class CircuitReaders
     }
 
     /// <summary>A file a subcircuit file includes: resolved like every path of a design, inside the design's folder.</summary>
-    private static (string FileName, string Text) Include(TomlSection s, string file, string included, SpiceToken at)
-    {
-        var errors = new SubcircuitErrors(file, s.KeyPath("subckt_file"));
-        if (included.Length == 0 || included.Any(c => c is '"' or '\'' or '`' or '\\' || char.IsControl(c)) || Path.IsPathRooted(included))
-            throw errors.At(at, $".include \"{included}\": the path must be relative, without quotes or control characters",
-                "Include a file in the design's folder by its path relative to the design file.");
-        try
-        {
-            var (_, content) = Files.InputFile.ReadInside(s.BaseDirectory, included, Limits.Work.Limits.MaximumFileBytes);
-            s.NoteFileRead(included, content.Sha256);
-            return (included, content.Text);
-        }
-        catch (Files.InputFileException e)
-        {
-            throw errors.At(at, $".include \"{included}\": the file {e.Problem}", e.Hint);
-        }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-        {
-            throw errors.At(at, $".include \"{included}\": the file cannot be read ({e.Message.TrimEnd('.')})", "Check the name and permissions.");
-        }
-    }
+    private static (string FileName, string Text) Include(TomlSection s, string file, string included, SpiceToken at) =>
+        SpiceIncludes.Read(s, included, at, new SubcircuitErrors(file, s.KeyPath("subckt_file")).At);
 
     private static VoltageRange? VoltageRange(TomlSection s, string key) =>
         s.Range(key, UnitKind.Volt) is { } r ? new VoltageRange(r.Min, r.Max) : null;
