@@ -77,7 +77,7 @@ public sealed class BuiltInEngine : ICheckEngine
     /// </summary>
     private sealed class Exact(ExactSwitchedTransient exact, Func<Stepped> fallBack) : ISampledTransient
     {
-        private Func<double, string, double>? read = exact.Reader();
+        private Func<double, string, (double Volts, LinearityViolation? Violation)>? read = exact.TryReader();
         private Stepped? stepped;
         private double resumeSeconds = double.NaN;
         private double stretch, failedIntervalEnd = double.NaN;
@@ -86,24 +86,37 @@ public sealed class BuiltInEngine : ICheckEngine
         {
             while (true)
             {
-                if (read is not null)
-                {
-                    try
-                    {
-                        return read(timeSeconds, node);
-                    }
-                    catch (NotLinearException e)
-                    {
-                        stepped ??= fallBack();
-                        read = null;
-                        resumeSeconds = e.Violation is { } v ? ResumeAfter(v) : double.PositiveInfinity;
-                    }
-                }
+                if (read is not null && TryExact(timeSeconds, node, out var volts))
+                    return volts;
                 if (timeSeconds <= resumeSeconds)
                     return stepped!.VoltageAt(timeSeconds, node);
                 stepped!.AdvanceTo(resumeSeconds);
-                read = exact.ReaderFrom(resumeSeconds, stepped.Solution());
+                read = exact.TryReaderFrom(resumeSeconds, stepped.Solution());
             }
+        }
+
+        /// <summary>
+        /// The exact read, true while the op-amp stays linear. Leaving the region is reported, not raised (an exception
+        /// cost more than the step it reported); a configuration exact propagation cannot model at all, met only as the
+        /// run reaches it, still raises, and then the rest of the run is stepped.
+        /// </summary>
+        private bool TryExact(double timeSeconds, string node, out double volts)
+        {
+            LinearityViolation? violation;
+            try
+            {
+                (volts, violation) = read!(timeSeconds, node);
+                if (violation is null)
+                    return true;
+            }
+            catch (NotLinearException e) when (e.Violation is null)
+            {
+                (volts, violation) = (double.NaN, null);
+            }
+            stepped ??= fallBack();
+            read = null;
+            resumeSeconds = violation is null ? double.PositiveInfinity : ResumeAfter(violation);
+            return false;
         }
 
         /// <summary>

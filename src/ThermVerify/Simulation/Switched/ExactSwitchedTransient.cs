@@ -168,20 +168,34 @@ internal sealed class ExactSwitchedTransient
     /// A reader of node voltages at rising times, one cursor for the whole run: what a caller that reads sample after
     /// sample needs (<see cref="VoltagesAt"/> starts from t = 0 on every call).
     /// </summary>
-    public Func<double, string, double> Reader()
+    public Func<double, string, double> Reader() => Throwing(TryReader());
+
+    /// <summary>
+    /// As <see cref="Reader"/>, but where an op-amp leaves its linear region the read gives the violation instead of
+    /// raising <see cref="NotLinearException"/> (and the reader can go no further).
+    /// </summary>
+    public Func<double, string, (double Volts, LinearityViolation? Violation)> TryReader()
     {
-        var cursor = Cursor();
+        var cursor = new TimelineCursor(maps, timeline, initialState, regular: false) { StopOnViolation = true };
         return (t, node) =>
         {
             var unknown = UnknownOf(node);
             if (!double.IsFinite(t) || t < 0)
                 throw new ArgumentOutOfRangeException(nameof(t), t, "Read times must be finite and not negative.");
             if (t <= timeline.SnapSeconds)
-                return unknown == system.Layout.Ground ? 0 : initialSolution[unknown];
+                return (unknown == system.Layout.Ground ? 0 : initialSolution[unknown], null);
             var (period, phase) = PeriodAndPhase(t);
-            return cursor.ReadAt(period, phase, unknown);
+            var volts = cursor.ReadAt(period, phase, unknown);
+            return (volts, cursor.Violation);
         };
     }
+
+    private static Func<double, string, double> Throwing(Func<double, string, (double Volts, LinearityViolation? Violation)> read) =>
+        (t, node) =>
+        {
+            var (volts, violation) = read(t, node);
+            return violation is null ? volts : throw NotLinearException.Leaves(violation);
+        };
 
     /// <summary>
     /// A reader as <see cref="Reader"/>, continuing from another engine's solution at <paramref name="startSeconds"/>:
@@ -191,7 +205,10 @@ internal sealed class ExactSwitchedTransient
     /// currents): the rest follows from them in each configuration.
     /// </summary>
     /// <param name="solution">The full solution vector of the same circuit at that time, as the time-stepping engine holds it.</param>
-    public Func<double, string, double> ReaderFrom(double startSeconds, double[] solution)
+    public Func<double, string, double> ReaderFrom(double startSeconds, double[] solution) => Throwing(TryReaderFrom(startSeconds, solution));
+
+    /// <summary>As <see cref="ReaderFrom"/>, giving a violation instead of raising it (see <see cref="TryReader"/>).</summary>
+    public Func<double, string, (double Volts, LinearityViolation? Violation)> TryReaderFrom(double startSeconds, double[] solution)
     {
         if (!(startSeconds > 0 && double.IsFinite(startSeconds)))
             throw new ArgumentOutOfRangeException(nameof(startSeconds), startSeconds, "A continued run starts at a positive, finite time.");
@@ -207,13 +224,14 @@ internal sealed class ExactSwitchedTransient
         var elapsed = Math.Max(0, phase - timeline.Starts[interval]);
         if (elapsed <= timeline.SnapSeconds)
             elapsed = 0;
-        var cursor = new TimelineCursor(maps, timeline, coordinates.StateOf(solution), regular: false, period, interval, elapsed);
+        var cursor = new TimelineCursor(maps, timeline, coordinates.StateOf(solution), regular: false, period, interval, elapsed) { StopOnViolation = true };
         return (t, node) =>
         {
             if (!double.IsFinite(t) || t <= startSeconds)
                 throw new ArgumentOutOfRangeException(nameof(t), t, $"Read times must be finite and after the start of the continued run ({startSeconds:G9} s).");
             var (k, p) = PeriodAndPhase(t);
-            return cursor.ReadAt(k, p, UnknownOf(node));
+            var volts = cursor.ReadAt(k, p, UnknownOf(node));
+            return (volts, cursor.Violation);
         };
     }
 

@@ -42,6 +42,16 @@ internal sealed class TimelineCursor
         patternUntil = regular ? long.MaxValue : timeline.NextChange(startPeriod);
     }
 
+    /// <summary>
+    /// Stop at an interval an op-amp leaves its linear region on and say so in <see cref="Violation"/>, instead of
+    /// raising <see cref="NotLinearException"/>: a hybrid run meets such intervals over and over, and an exception (its
+    /// message worded, the stack unwound) cost more than the step it reported.
+    /// </summary>
+    public bool StopOnViolation { get; init; }
+
+    /// <summary>Where the cursor stopped (with <see cref="StopOnViolation"/>); it cannot move on from there.</summary>
+    public LinearityViolation? Violation { get; private set; }
+
     /// <summary>The present period's pattern, recomputed only where the timeline says it may change.</summary>
     private void NewPeriod(long k)
     {
@@ -62,15 +72,17 @@ internal sealed class TimelineCursor
         var (targetPeriod, targetPhase) = phase >= timeline.PeriodSeconds - snap ? (k + 1, 0.0) : (k, phase);
         if (targetPeriod < period || targetPeriod == period && targetPhase < timeline.Starts[interval] + elapsed - snap)
             throw new InvalidOperationException("The exact transient was asked to go back in time.");
-        while (period < k)
+        while (period < k && Violation is null)
         {
             if (interval == 0 && elapsed == 0)
                 JumpTowards(k);
             else
                 StepWithin(timeline.PeriodSeconds);
         }
-        if (period == k)
+        if (period == k && Violation is null)
             StepWithin(phase);
+        if (Violation is not null)
+            return double.NaN;
         // The cursor may have rolled over to the next period's start; the value belongs to the interval ending at the phase.
         var endPattern = period == k ? pattern : previousPattern;
         return maps.ModelOf(endPattern[timeline.IntervalEndingAt(phase)]).Output(unknown, z);
@@ -88,6 +100,8 @@ internal sealed class TimelineCursor
             if (phase >= start + duration - snap)
             {
                 Apply(elapsed == 0 ? maps.FullMap(mask, interval) : maps.PartialMap(mask, duration - elapsed), duration - elapsed);
+                if (Violation is not null)
+                    return;
                 var last = interval == timeline.IntervalCount - 1;
                 if (last)
                 {
@@ -134,7 +148,12 @@ internal sealed class TimelineCursor
         {
             var from = period * timeline.PeriodSeconds + timeline.Starts[interval] + elapsed;
             if (map.Check(z, from, seconds) is { } violation)
-                throw NotLinearException.Leaves(violation);
+            {
+                if (!StopOnViolation)
+                    throw NotLinearException.Leaves(violation);
+                Violation = violation;
+                return;
+            }
         }
         map.Apply(z, next);
         (z, next) = (next, z);
