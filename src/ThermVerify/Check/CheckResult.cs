@@ -51,6 +51,9 @@ public sealed record CheckResult(
     /// <summary>The codes a broken sensor or fixed resistor produce and the thresholds that catch them; null when the tolerances leave no room.</summary>
     public FaultThresholds? Faults { get; init; }
 
+    /// <summary>Why <see cref="Faults"/> is null, for the report: a check never leaves a section out without saying so.</summary>
+    public string? FaultsOmitted { get; init; }
+
     /// <summary>The reading's noise over the range (five temperatures): what the budget counts at each point, for the reports.</summary>
     public Noise.NoiseSummary? Noise { get; init; }
 

@@ -39,7 +39,8 @@ internal static class FrontEndCheck
             ordered, waveform)
         {
             Buffer = buffer,
-            Faults = FaultThresholdsOrNull(design),
+            Faults = FaultThresholdsOrNull(design, out var omitted),
+            FaultsOmitted = omitted,
             PrechargeCases = evaluation.Cases,
             Noise = Noise.ReadingNoiseAnalysis.Summary(design, Noise.ReadingNoiseAnalysis.ReportTemperatures(design.Check.Range), options.Engine),
         };
@@ -49,17 +50,22 @@ internal static class FrontEndCheck
     }
 
     /// <summary>
-    /// The codes an open or shorted sensor or fixed resistor produce, and thresholds with margin; none when the
-    /// tolerances leave no room between a fault and a healthy reading (the table command explains why).
+    /// The codes an open or shorted sensor or fixed resistor produce, and thresholds with margin; none, with the reason,
+    /// where the firmware model is not made for the design's shape yet or the tolerances leave no room between a fault
+    /// and a healthy reading (the table command explains that case in full).
     /// </summary>
-    private static FaultThresholds? FaultThresholdsOrNull(FrontEndDesign design)
+    private static FaultThresholds? FaultThresholdsOrNull(FrontEndDesign design, out string? omitted)
     {
+        omitted = null;
         try
         {
             return FaultAnalysis.Thresholds(FirmwareFromDesign.Model(design, correctForLoading: false), FirmwareFromDesign.Tolerances(design));
         }
-        catch (FirmwareInputException)
+        catch (FirmwareInputException e)
         {
+            omitted = design.Netlist is not null ? "not computed yet for a netlist front end"
+                : design.CurrentSource is not null ? "not computed yet for a current-excited sensor"
+                : e.Message;
             return null;
         }
     }

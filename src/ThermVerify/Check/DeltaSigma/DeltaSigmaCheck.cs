@@ -48,6 +48,7 @@ internal static class DeltaSigmaCheck
             new SamplingWaveform(worst.Celsius, null, 0, []))
         {
             PrechargeCases = [],
+            FaultsOmitted = "not computed yet for a delta-sigma converter",
             Noise = DeltaSigmaNoise.Summary(design, model, reportNoise, filter),
             DeltaSigma = report,
         };

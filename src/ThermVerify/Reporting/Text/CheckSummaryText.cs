@@ -59,6 +59,11 @@ public static class CheckSummaryText
             text.AppendLine(FaultText.Render(faults));
             text.AppendLine();
         }
+        else if (result.FaultsOmitted is { } omitted)
+        {
+            text.AppendLine("Fault thresholds: " + omitted);
+            text.AppendLine();
+        }
         text.AppendLine(Caution);
         return text.ToString();
     }
