@@ -24,7 +24,7 @@ internal sealed class MemoizingEngine(ICheckEngine inner) : ICheckEngine
     /// <summary>Reads kept over all transients of a run (about 40 bytes each); beyond it transients run uncached.</summary>
     private const int MaximumReads = 4_000_000;
 
-    private readonly ConcurrentDictionary<(Circuit, TransientOptions), Transcript> transients = new(new TransientKey());
+    private readonly ConcurrentDictionary<(Circuit, TransientOptions), Recording> transients = new(new TransientKey());
     private readonly ConcurrentDictionary<object, object> others = new();
     private int readsKept;
 
@@ -56,7 +56,7 @@ internal sealed class MemoizingEngine(ICheckEngine inner) : ICheckEngine
     ISampledTransient ICheckEngine.StartTransient(Circuit circuit, TransientOptions options)
     {
         if (Volatile.Read(ref readsKept) >= MaximumReads) return inner.StartTransient(circuit, options);
-        return new Replay(this, transients.GetOrAdd((circuit, options), _ => new Transcript()), circuit, options);
+        return new Replay(this, transients.GetOrAdd((circuit, options), _ => new Recording()), circuit, options);
     }
 
     // A caller gets its own copy of the arrays; a failure is not kept (the next run of the same circuit meets it again).
@@ -69,13 +69,13 @@ internal sealed class MemoizingEngine(ICheckEngine inner) : ICheckEngine
     }
 
     /// <summary>The reads of one transient, in order: (time, node, value), or a periodic steady state (node, switch, value).</summary>
-    private sealed class Transcript
+    private sealed class Recording
     {
         public readonly List<(double Time, string Node, string? Switch, bool Found, double Volts)> Reads = [];
     }
 
-    /// <summary>A run served from a transcript while its reads match it, and by the inner engine from the first that does not.</summary>
-    private sealed class Replay(MemoizingEngine owner, Transcript transcript, Circuit circuit, TransientOptions options) : ISampledTransient
+    /// <summary>A run served from a recording while its reads match it, and by the inner engine from the first that does not.</summary>
+    private sealed class Replay(MemoizingEngine owner, Recording recording, Circuit circuit, TransientOptions options) : ISampledTransient
     {
         private readonly List<(double Time, string Node, string? Switch)> mine = [];
         private ISampledTransient? run;
@@ -94,11 +94,11 @@ internal sealed class MemoizingEngine(ICheckEngine inner) : ICheckEngine
             mine.Add((time, node, samplingSwitch));
             if (run is null)
             {
-                lock (transcript)
+                lock (recording)
                 {
-                    if (index < transcript.Reads.Count)
+                    if (index < recording.Reads.Count)
                     {
-                        var r = transcript.Reads[index];
+                        var r = recording.Reads[index];
                         if (Same(r.Time, time) && r.Node == node && r.Switch == samplingSwitch)
                         {
                             found = r.Found;
@@ -110,11 +110,11 @@ internal sealed class MemoizingEngine(ICheckEngine inner) : ICheckEngine
                 for (var i = 0; i < index; i++) Ask(run, mine[i], out _);
             }
             var volts = Ask(run, mine[index], out found);
-            lock (transcript)
+            lock (recording)
             {
-                // Only a transcript this run has followed so far may grow: the reads before are then its own.
-                if (transcript.Reads.Count == index && Interlocked.Increment(ref owner.readsKept) <= MaximumReads)
-                    transcript.Reads.Add((time, node, samplingSwitch, found, volts));
+                // Only a recording this run has followed so far may grow: the reads before are then its own.
+                if (recording.Reads.Count == index && Interlocked.Increment(ref owner.readsKept) <= MaximumReads)
+                    recording.Reads.Add((time, node, samplingSwitch, found, volts));
             }
             return volts;
         }

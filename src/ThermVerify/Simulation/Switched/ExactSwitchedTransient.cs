@@ -176,7 +176,7 @@ internal sealed class ExactSwitchedTransient
     /// </summary>
     public Func<double, string, (double Volts, LinearityViolation? Violation)> TryReader()
     {
-        var cursor = new TimelineCursor(maps, timeline, initialState, regular: false) { StopOnViolation = true };
+        var cursor = Cursor(stopOnViolation: true);
         return (t, node) =>
         {
             var unknown = UnknownOf(node);
@@ -247,7 +247,8 @@ internal sealed class ExactSwitchedTransient
         return new TimelineCursor(maps, timeline, steadyState, regular: true);
     }
 
-    private TimelineCursor Cursor() => new(maps, timeline, initialState, regular: false);
+    private TimelineCursor Cursor(bool stopOnViolation = false) =>
+        new(maps, timeline, initialState, regular: false) { StopOnViolation = stopOnViolation };
 
     private int UnknownOf(string node) => system.Layout.IndexOfNode(node);
 
