@@ -6,7 +6,8 @@ namespace ThermVerify.Check;
 
 /// <summary>
 /// The first-order closed form of each effect the ideal model leaves out, at one temperature: Ohm's law for leakage
-/// and bias currents, the fixed resistor's tempco through the divider's slope, the buffer's offset with its drift,
+/// and bias currents, the fixed resistor's tempco through the divider's slope (a bridge's opposite half through its own
+/// ratio, which the converter reads with the opposite sign), the buffer's offset with its drift,
 /// the switched-capacitor resistance for the average sampling current (Johns &amp; Martin), charge sharing with a
 /// reservoir (the first conversion from the settled pin; the steady state from the sawtooth the reservoir settles into,
 /// <see cref="SamplingFormulas.SteadySampleVolts"/>, against the pin with the average sampling current), and
@@ -29,6 +30,8 @@ internal static class EffectEstimator
             drift = (design.Buffer?.Gain ?? 1) * driftOhms * -(point.SensorOhms / divider.FixedResistorOhms) *
                     DividerFormula.SlopeVoltsPerOhm(divider.SensorSide, divider.ExcitationVolts, point.SensorOhms, divider.FixedResistorOhms);
             leads = DividerLeadVolts(design, divider, point);
+            if (design.Bridge is { } bridge)
+                drift -= divider.ExcitationVolts * (bridge.RatioAt(design.Check.BoardCelsius ?? point.Celsius) - bridge.RatioAt(25));
         }
         else if (design.Netlist is { } netlist)
             drift = NetlistTransfer.Of(netlist).PartDriftVolts(point.SensorOhms, design.Check.BoardCelsius ?? point.Celsius);

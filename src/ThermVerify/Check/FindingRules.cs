@@ -143,13 +143,18 @@ internal static class FindingRules
         return I($"{top.Column} ({top.Kelvin:+0.###;-0.###} K)");
     }
 
+    private static string Tempco(double perKelvin, bool signed) => Bounded(I($"{Math.Abs(perKelvin) * 1e6:0.###} ppm/K"), signed, perKelvin);
+
     private static string LoadingCause(FrontEndDesign design, CheckPoint p)
     {
         var parts = new List<string>();
         if (design.Adc.PinLeakageAmperes != 0)
             parts.Add(I($"pin leakage {Bounded(Amps(Math.Abs(EffectEstimator.LeakageAmps(design, p.Celsius))), design.Adc.PinLeakageSigned, design.Adc.PinLeakageAmperes)} ") +
                       I($"through the {Ohms(p.Estimates.SourceOhms)} the pin sees (Ohm's law) {Volts(p.Estimates.LeakageVolts)}"));
-        if (design.Divider is { FixedTempcoPerKelvin: not 0 } divider)
+        if (design is { Divider: { } half, Bridge: { } bridge } && (half.FixedTempcoPerKelvin != 0 || bridge.HighTempcoPerKelvin != 0 || bridge.LowTempcoPerKelvin != 0))
+            parts.Add(I($"the bridge's tempcos (fixed {Tempco(half.FixedTempcoPerKelvin, half.FixedTempcoSigned)}, opposite high {Tempco(bridge.HighTempcoPerKelvin, bridge.HighTempcoSigned)}, ") +
+                      I($"opposite low {Tempco(bridge.LowTempcoPerKelvin, bridge.LowTempcoSigned)}) at {(design.Check.BoardCelsius ?? p.Celsius):0.##} °C through both halves {Volts(p.Estimates.FixedDriftVolts)}"));
+        else if (design.Divider is { FixedTempcoPerKelvin: not 0 } divider)
             parts.Add(I($"the fixed resistor's tempco of {Bounded(I($"{Math.Abs(divider.FixedTempcoPerKelvin) * 1e6:0.###} ppm/K"), divider.FixedTempcoSigned, divider.FixedTempcoPerKelvin)} ") +
                       I($"at {(design.Check.BoardCelsius ?? p.Celsius):0.##} °C {Volts(p.Estimates.FixedDriftVolts)}"));
         if (design.Netlist is { } netlist && netlist.Parts.Where(x => x.TempcoPerKelvin != 0).ToList() is { Count: > 0 } drifting)

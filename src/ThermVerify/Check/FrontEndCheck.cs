@@ -65,6 +65,7 @@ internal static class FrontEndCheck
         {
             omitted = design.Netlist is not null ? "not computed yet for a netlist front end"
                 : design.CurrentSource is not null ? "not computed yet for a current-excited sensor"
+                : design.Bridge is not null ? "not computed yet for a bridge"
                 : e.Message;
             return null;
         }

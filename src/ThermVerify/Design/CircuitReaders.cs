@@ -6,7 +6,7 @@ namespace ThermVerify.Design;
 /// <summary>Reads [divider], [buffer] and [filter].</summary>
 internal static class CircuitReaders
 {
-    private static readonly Dictionary<string, SensorSide> Sides = new() { ["high"] = SensorSide.High, ["low"] = SensorSide.Low };
+    internal static readonly Dictionary<string, SensorSide> Sides = new() { ["high"] = SensorSide.High, ["low"] = SensorSide.Low };
 
     private static readonly Dictionary<string, BufferTopology> Topologies = new()
     {

@@ -19,7 +19,12 @@ internal static partial class DesignWriter
             w.Text("description", design.Description);
         WriteSensor(w, design.Sensor);
         if (design.Divider is { } divider)
-            WriteDivider(w, divider);
+        {
+            if (design.Bridge is { } bridge)
+                WriteBridge(w, divider, bridge);
+            else
+                WriteDivider(w, divider);
+        }
         if (design.CurrentSource is { } source)
             WriteCurrentSource(w, source);
         if (design.Wiring is { } wiring)
@@ -109,6 +114,23 @@ internal static partial class DesignWriter
             w.Value("switch_on_lead", lead, UnitKind.Second);
         if (d.ReadingIntervalSeconds is { } interval)
             w.Value("reading_interval", interval, UnitKind.Second);
+    }
+
+    private static void WriteBridge(Writer w, DividerSpec d, BridgeSpec b)
+    {
+        w.Section("bridge");
+        w.Text("sensor_side", d.SensorSide == SensorSide.High ? "high" : "low");
+        w.Value("fixed_resistor", d.FixedResistorOhms, UnitKind.Ohm);
+        w.Value("fixed_tolerance", d.FixedTolerance, UnitKind.Percent);
+        w.Value("fixed_tempco", d.FixedTempcoPerKelvin, UnitKind.PpmPerKelvin, d.FixedTempcoSigned);
+        w.Value("excitation", d.ExcitationVolts, UnitKind.Volt);
+        w.Value("excitation_tolerance", d.ExcitationTolerance, UnitKind.Percent);
+        w.Value("opposite_high", b.HighOhms, UnitKind.Ohm);
+        w.Value("opposite_high_tolerance", b.HighTolerance, UnitKind.Percent);
+        w.Value("opposite_high_tempco", b.HighTempcoPerKelvin, UnitKind.PpmPerKelvin, b.HighTempcoSigned);
+        w.Value("opposite_low", b.LowOhms, UnitKind.Ohm);
+        w.Value("opposite_low_tolerance", b.LowTolerance, UnitKind.Percent);
+        w.Value("opposite_low_tempco", b.LowTempcoPerKelvin, UnitKind.PpmPerKelvin, b.LowTempcoSigned);
     }
 
     private static void WriteCurrentSource(Writer w, CurrentSourceSpec c)

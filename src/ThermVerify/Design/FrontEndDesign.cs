@@ -11,6 +11,11 @@ public sealed record FrontEndDesign
     public required SensorSpec Sensor { get; init; }
     /// <summary>The voltage-excited divider; null when a current source excites the sensor (<see cref="CurrentSource"/>).</summary>
     public DividerSpec? Divider { get; init; }
+    /// <summary>
+    /// A Wheatstone bridge ([bridge]): the opposite half, whose midpoint is the converter's negative input; <see cref="Divider"/>
+    /// is then the sensor's half. Null: no bridge.
+    /// </summary>
+    public BridgeSpec? Bridge { get; init; }
     /// <summary>The current source through the sensor; null for a divider. A design has exactly one of the two.</summary>
     public CurrentSourceSpec? CurrentSource { get; init; }
     /// <summary>A front end given as a SPICE netlist ([netlist]) instead of the built-in shape; null for the built-in shape.</summary>

@@ -20,6 +20,10 @@ internal static class FirmwareFromDesign
             throw new FirmwareInputException(
                 "Firmware tables are made for a divider; this design is a netlist front end, whose table (through its ideal transfer, " +
                 "docs/netlists.md) is not made yet. Run check on it instead.");
+        if (design.Bridge is not null)
+            throw new FirmwareInputException(
+                "Firmware tables are made for a divider; this design is a bridge, whose table (through the bridge equation, docs/design-file.md) " +
+                "is not made yet. Run check, worstcase or montecarlo on it instead.");
         var divider = design.Divider ?? throw new FirmwareInputException(
             "Firmware tables are made for a divider; this design excites its sensor with a current source, whose table (R_s = V/I, " +
             "or R_ref·code/2^N with a reference resistor) is not made yet. Run check, worstcase or montecarlo on it instead.");

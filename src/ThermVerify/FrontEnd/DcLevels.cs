@@ -27,7 +27,7 @@ internal sealed record DcLevels(
     /// <summary>A current source's output voltage (for its compliance); null for a divider.</summary>
     public double[]? SourceVolts { get; init; }
 
-    /// <summary>The converter's negative input where the wiring puts it on a lead (3 or 4 wires); null: ground.</summary>
+    /// <summary>The converter's negative input where the wiring puts it on a lead (3 or 4 wires) or a bridge's opposite half; null: ground.</summary>
     public double[]? NegativeInputVolts { get; init; }
 
     /// <summary>The converter's negative input at point <paramref name="i"/>.</summary>
@@ -59,13 +59,15 @@ internal sealed record DcLevels(
         var source = design.CurrentSource;
         if (design.Netlist is not null) return RunNetlist(design, cases, temperaturesCelsius, engine, pinNode);
         if (source is not null) return RunCurrent(design, cases, temperaturesCelsius, engine, pinNode);
-        var plain = Sweep(engine, design, null, temperaturesCelsius, [Divider, pinNode]);
+        var bridge = design.Bridge is not null;
+        var plain = Sweep(engine, design, null, temperaturesCelsius, bridge ? [Divider, pinNode, BridgeNegative] : [Divider, pinNode]);
         var staticPin = plain[1];
         var afterBuffer = design.Buffer is null ? null : Sweep(engine, WithoutLoading(design), null, temperaturesCelsius, [pinNode])[0];
         var average = cases.Select(c => UsesAverageSamplingCurrent(design, c.Volts)
             ? Sweep(engine, design, c.Volts, temperaturesCelsius, [pinNode])[0]
             : staticPin).ToArray();
-        return new DcLevels(plain[0], afterBuffer, staticPin, average);
+        // A bridge: the converter's negative input is the opposite half's midpoint, from the same sweep.
+        return new DcLevels(plain[0], afterBuffer, staticPin, average) { NegativeInputVolts = bridge ? plain[2] : null };
     }
 
     /// <summary>

@@ -116,6 +116,13 @@ internal static class FrontEndCircuit
             else
                 elements.Add(new SensorResistor(SensorElement, top, bottom, design.Sensor.Build()));
             elements.Add(FixedResistor(FixedElement, fixedNodes.Item1, fixedNodes.Item2, divider.FixedResistorOhms, divider.FixedTempcoPerKelvin, board));
+            if (design.Bridge is { } bridge)
+            {
+                // The bridge's opposite half across the same excitation: its midpoint is the converter's negative input,
+                // which draws no current of its own here (the converter reads it at its DC level).
+                elements.Add(FixedResistor(BridgeHighElement, Excitation, BridgeNegative, bridge.HighOhms, bridge.HighTempcoPerKelvin, board));
+                elements.Add(FixedResistor(BridgeLowElement, BridgeNegative, Circuit.Ground, bridge.LowOhms, bridge.LowTempcoPerKelvin, board));
+            }
         }
 
         if (design.Buffer is { } buffer)

@@ -140,6 +140,7 @@ internal static class FrontEndDecks
             {
                 [Excitation] = design.CurrentSource is null ? "excitation, the top of the divider" : "current source output, above the reference resistor",
                 [Divider] = design.CurrentSource is null ? "divider midpoint, where the sensor meets the fixed resistor" : "the sensor's node, read by the converter",
+                [BridgeNegative] = "the bridge's opposite midpoint, the converter's negative input",
                 [SourceTempco] = "the current source's tempco stage: 1 V times (1 + tempco·(T − 25 °C))",
                 [BufferStage.AmplifierOutput] = "op-amp output, before the isolation resistor",
                 [BufferStage.Feedback] = "op-amp feedback divider",

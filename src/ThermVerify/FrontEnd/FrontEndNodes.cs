@@ -38,6 +38,9 @@ internal static class FrontEndNodes
     public const string Force = "frc";
     public const string SenseNegative = "sns";
 
+    /// <summary>A bridge's opposite midpoint, the converter's negative input.</summary>
+    public const string BridgeNegative = "opp";
+
     /// <summary>The rail the upper clamp diode goes to.</summary>
     public const string ClampRail = "clamp";
     /// <summary>The potential the insulation leaks to, when it is not ground.</summary>
@@ -47,6 +50,8 @@ internal static class FrontEndNodes
     public const string CurrentSourceElement = "Iexc";
     public const string ReferenceResistorElement = "Rref";
     public const string FixedElement = "Rfixed";
+    public const string BridgeHighElement = "Rbridgehi";
+    public const string BridgeLowElement = "Rbridgelo";
     public const string SamplingSwitch = "Ssample";
     public const string PrechargeSwitch = "Sprecharge";
     public const string ExcitationSwitch = "Sexcitation";

@@ -21,8 +21,13 @@ internal static class StaticBounds
             if (value != 0 && !signed) list.Add(new CircuitBound(key, Math.Abs(value), set));
         }
         Add("adc.pin_leakage", d.Adc.PinLeakageAmperes, d.Adc.PinLeakageSigned, (x, v) => x with { Adc = x.Adc with { PinLeakageAmperes = v } });
+        if (d.Bridge is { } bridge)
+        {
+            Add("bridge.opposite_high_tempco", bridge.HighTempcoPerKelvin, bridge.HighTempcoSigned, (x, v) => x with { Bridge = x.Bridge! with { HighTempcoPerKelvin = v } });
+            Add("bridge.opposite_low_tempco", bridge.LowTempcoPerKelvin, bridge.LowTempcoSigned, (x, v) => x with { Bridge = x.Bridge! with { LowTempcoPerKelvin = v } });
+        }
         if (d.Divider is { } divider)
-            Add("divider.fixed_tempco", divider.FixedTempcoPerKelvin, divider.FixedTempcoSigned, (x, v) => x with { Divider = x.Divider! with { FixedTempcoPerKelvin = v } });
+            Add(d.Bridge is null ? "divider.fixed_tempco" : "bridge.fixed_tempco", divider.FixedTempcoPerKelvin, divider.FixedTempcoSigned, (x, v) => x with { Divider = x.Divider! with { FixedTempcoPerKelvin = v } });
         if (d.CurrentSource is { } source)
         {
             Add("current_source.current_tempco", source.CurrentTempcoPerKelvin, source.CurrentTempcoSigned,

@@ -157,6 +157,10 @@ internal static class ReportFormat
         if (d.Netlist is { } n)
             return ("netlist", $"{n.File} ({n.Parsed.Elements.Count} elements): sensor {string.Join(", ", n.SensorElements)}, converter at node {n.PinNode}" +
                                (n.Excitation.Count > 0 ? $", excitation {string.Join(", ", n.Excitation)}" : ""));
+        if (d is { Divider: { } half, Bridge: { } bridge })
+            return ("bridge", $"sensor on the {(half.SensorSide == Design.SensorSide.High ? "high" : "low")} side, fixed {V(half.FixedResistorOhms, UnitKind.Ohm)}, " +
+                              $"opposite half {V(bridge.HighOhms, UnitKind.Ohm)} over {V(bridge.LowOhms, UnitKind.Ohm)}, excitation {V(half.ExcitationVolts, UnitKind.Volt)}, read differentially" +
+                              (d.Wiring is { } bridgeLeads ? $", 2 wires of {V(bridgeLeads.LeadOhms, UnitKind.Ohm)}" : ""));
         if (d.Divider is { } divider)
             return ("divider", $"sensor on the {(divider.SensorSide == Design.SensorSide.High ? "high" : "low")} side, fixed {V(divider.FixedResistorOhms, UnitKind.Ohm)}, excitation {V(divider.ExcitationVolts, UnitKind.Volt)}" +
                                (d.Wiring is { } leads ? $", 2 wires of {V(leads.LeadOhms, UnitKind.Ohm)}" : ""));

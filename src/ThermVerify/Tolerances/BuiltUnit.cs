@@ -34,6 +34,17 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
                 ExcitationVolts = d.ExcitationVolts * (1 + Dev(ToleranceKind.Excitation)),
             }
             : null;
+        var bridge = nominal.Bridge is { } br
+            ? br with
+            {
+                HighOhms = br.HighOhms * (1 + Dev(ToleranceKind.BridgeHighResistance)),
+                HighTempcoPerKelvin = Bound(ToleranceKind.BridgeHighTempco, br.HighTempcoPerKelvin),
+                HighTempcoSigned = true,
+                LowOhms = br.LowOhms * (1 + Dev(ToleranceKind.BridgeLowResistance)),
+                LowTempcoPerKelvin = Bound(ToleranceKind.BridgeLowTempco, br.LowTempcoPerKelvin),
+                LowTempcoSigned = true,
+            }
+            : null;
         // The unit's current and reference resistor are in its circuit: the reference the converter divides by is the
         // unit's own I·R_ref, simulated, so the current's deviation cancels there as in the part.
         var source = nominal.CurrentSource is { } c
@@ -75,6 +86,7 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
             Protection = protection,
             Sensor = new PerturbedSensorSpec(nominal.Sensor, sensor),
             Divider = divider,
+            Bridge = bridge,
             CurrentSource = source,
             Adc = adc,
             Buffer = buffer,

@@ -73,6 +73,10 @@ internal static class FixedResistorSearch
             throw new DesignException(design.Name, 1, 1, "netlist",
                 "choose-fixed chooses a divider's fixed resistor, and this design is a netlist front end, which has no fixed resistor of the built-in shape",
                 "Run check on it; choosing a netlist part's value is not supported yet.");
+        if (design.Bridge is not null)
+            throw new DesignException(design.Name, 1, 1, "bridge",
+                "choose-fixed chooses a divider's fixed resistor, and this design is a bridge, whose two halves it does not choose yet",
+                "Run check, worstcase or montecarlo on it.");
         var divider = design.Divider ?? throw new DesignException(design.Name, 1, 1, "current_source",
             "choose-fixed chooses a divider's fixed resistor, and this design has none: a current source excites its sensor",
             "Run check, worstcase or montecarlo on it; check's remedies give the reference resistor's tempco needed.");

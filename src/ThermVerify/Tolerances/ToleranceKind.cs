@@ -39,6 +39,14 @@ public enum ToleranceKind
     ReferenceResistorTempco,
     /// <summary>3 wires: the mismatch of the second current against the first, spread over ±|mismatch|.</summary>
     CurrentMismatch,
+    /// <summary>A bridge's opposite half, the resistor from the excitation to the negative output, as a fraction.</summary>
+    BridgeHighResistance,
+    /// <summary>Its tempco, spread over ±|tempco|.</summary>
+    BridgeHighTempco,
+    /// <summary>A bridge's opposite half, the resistor from the negative output to ground, as a fraction.</summary>
+    BridgeLowResistance,
+    /// <summary>Its tempco, spread over ±|tempco|.</summary>
+    BridgeLowTempco,
     /// <summary>The clamp diodes' net reverse leakage, spread over ±|leakage| (one diode or the other leaking).</summary>
     ClampLeakage,
 }

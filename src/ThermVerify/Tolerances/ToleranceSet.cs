@@ -57,9 +57,17 @@ internal sealed class ToleranceSet
         }
         if (design.Divider is { } divider)
         {
-            Add(ToleranceKind.FixedResistance, "divider.fixed_tolerance", divider.FixedTolerance, "");
-            Add(ToleranceKind.FixedTempco, "divider.fixed_tempco", divider.FixedTempcoPerKelvin, "1/K", divider.FixedTempcoSigned);
-            Add(ToleranceKind.Excitation, "divider.excitation_tolerance", divider.ExcitationTolerance, "");
+            var section = design.Bridge is null ? "divider" : "bridge";
+            Add(ToleranceKind.FixedResistance, $"{section}.fixed_tolerance", divider.FixedTolerance, "");
+            Add(ToleranceKind.FixedTempco, $"{section}.fixed_tempco", divider.FixedTempcoPerKelvin, "1/K", divider.FixedTempcoSigned);
+            Add(ToleranceKind.Excitation, $"{section}.excitation_tolerance", divider.ExcitationTolerance, "");
+        }
+        if (design.Bridge is { } bridge)
+        {
+            Add(ToleranceKind.BridgeHighResistance, "bridge.opposite_high_tolerance", bridge.HighTolerance, "");
+            Add(ToleranceKind.BridgeHighTempco, "bridge.opposite_high_tempco", bridge.HighTempcoPerKelvin, "1/K", bridge.HighTempcoSigned);
+            Add(ToleranceKind.BridgeLowResistance, "bridge.opposite_low_tolerance", bridge.LowTolerance, "");
+            Add(ToleranceKind.BridgeLowTempco, "bridge.opposite_low_tempco", bridge.LowTempcoPerKelvin, "1/K", bridge.LowTempcoSigned);
         }
         if (design.CurrentSource is { } source)
         {

@@ -10,6 +10,7 @@ public class FaultsOmittedTests
 {
     [Theory]
     [InlineData("mash-tun-pt100-current.toml", "not computed yet for a current-excited sensor")]
+    [InlineData("fermenter-pt1000-bridge.toml", "not computed yet for a bridge")]
     [InlineData("attic-fan-leaky-pin-netlist.toml", "not computed yet for a netlist front end")]
     public void A_design_without_fault_thresholds_says_why(string example, string reason)
     {

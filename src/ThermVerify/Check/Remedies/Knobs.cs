@@ -208,7 +208,10 @@ internal static class Knobs
         // A buffer behind a current-excited sensor is not modelled, so none is offered there.
         // A netlist's own parts are not knobs yet: its shape (a reservoir, an added follower) is the user's drawing.
         var netlist = design.Netlist is not null;
-        Knob[] buffer = buffered ? [BufferGainBandwidth] : design.CurrentSource is null && !netlist ? [AddBuffer] : [];
+        // Nor behind a bridge, which the converter reads differentially (a follower would follow one output only); the
+        // bridge's tempcos are not knobs yet (the divider's knob names the divider's key).
+        var bridge = design.Bridge is not null;
+        Knob[] buffer = buffered ? [BufferGainBandwidth] : design.CurrentSource is null && !netlist && !bridge ? [AddBuffer] : [];
         switch (findingId)
         {
             case "settling":
@@ -220,7 +223,7 @@ internal static class Knobs
                 var parts = new List<(Knob, double)>
                 {
                     (PinLeakage, design.Adc.PinLeakageAmperes != 0 ? Math.Abs(worst.Estimates.LeakageVolts) : -1),
-                    (FixedTempco, design.Divider?.FixedTempcoPerKelvin is not (null or 0) ? Math.Abs(worst.Estimates.FixedDriftVolts) : -1),
+                    (FixedTempco, !bridge && design.Divider?.FixedTempcoPerKelvin is not (null or 0) ? Math.Abs(worst.Estimates.FixedDriftVolts) : -1),
                     (ReferenceResistorTempco, design.CurrentSource?.ReferenceResistorTempcoPerKelvin is not (null or 0) ? Math.Abs(worst.Estimates.ExcitationVolts) : -1),
                     (CurrentTempco, design.CurrentSource is { ReferenceResistorOhms: null, CurrentTempcoPerKelvin: not 0 } ? Math.Abs(worst.Estimates.ExcitationVolts) : -1),
                     (CurrentMismatch, design.Wiring is { Wires: 3, CurrentMismatch: not 0 } ? Math.Abs(worst.Estimates.LeadVolts) : -1),
