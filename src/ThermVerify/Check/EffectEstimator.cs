@@ -31,7 +31,12 @@ internal static class EffectEstimator
                     DividerFormula.SlopeVoltsPerOhm(divider.SensorSide, divider.ExcitationVolts, point.SensorOhms, divider.FixedResistorOhms);
             leads = DividerLeadVolts(design, divider, point);
             if (design.Bridge is { } bridge)
+            {
                 drift -= divider.ExcitationVolts * (bridge.RatioAt(design.Check.BoardCelsius ?? point.Celsius) - bridge.RatioAt(25));
+                // A differential input's negative leakage pulls the second output down through R_high ∥ R_low (Ohm's law): read as a rise.
+                if (adc.NegativeInput is not null)
+                    leakage += adc.NegativeLeakageAmperesAt(design.Check.BoardCelsius ?? point.Celsius) * bridge.HighOhms * bridge.LowOhms / (bridge.HighOhms + bridge.LowOhms);
+            }
         }
         else if (design.Netlist is { } netlist)
             drift = NetlistTransfer.Of(netlist).PartDriftVolts(point.SensorOhms, design.Check.BoardCelsius ?? point.Celsius);

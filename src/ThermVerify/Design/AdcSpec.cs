@@ -89,6 +89,18 @@ public sealed record AdcSpec
     public double? NoiseLsb { get; init; }
     /// <summary>The same as a voltage at the input (null: not declared this way). At most one of the two is set.</summary>
     public double? NoiseVolts { get; init; }
+    /// <summary>Single-ended (the default), differential (signed codes) or pseudo-differential.</summary>
+    public AdcInput Input { get; init; } = AdcInput.SingleEnded;
+    /// <summary>The negative input's sampling network; null for a single-ended converter.</summary>
+    public NegativeInputSpec? NegativeInput { get; init; }
+    /// <summary>The input common-mode range, (V+ + V−)/2, the converter works over; null: not checked.</summary>
+    public VoltageRange? CommonModeRange { get; init; }
+    /// <summary>Codes are signed (two's complement) for a differential input.</summary>
+    public bool IsBipolar => Input == AdcInput.Differential;
+    /// <summary>The negative input's leakage at a temperature, doubling as the positive pin's.</summary>
+    public double NegativeLeakageAmperesAt(double celsius) =>
+        Quantities.DoublingLaw.At(NegativeInput?.PinLeakageAmperes ?? 0, PinLeakageCelsius, LeakageDoublingKelvin, celsius);
+
     /// <summary>Whether the design declares the converter's noise; otherwise <see cref="DesignDefaults.ConverterNoiseLsb"/> is assumed.</summary>
     public bool NoiseDeclared => NoiseLsb is not null || NoiseVolts is not null || DeltaSigma?.TableNoise is not null;
 }

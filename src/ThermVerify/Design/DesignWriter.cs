@@ -250,6 +250,17 @@ internal static partial class DesignWriter
             });
         if (a.PrechargeVolts is { } pv)
             w.Value("precharge_voltage", pv, UnitKind.Volt);
+        // The input is written where it is not the default single-ended one (whose normal form stays as it was).
+        if (a.NegativeInput is { } negative)
+        {
+            w.Text("input", a.Input == AdcInput.Differential ? "differential" : "pseudo-differential");
+            if (a.CommonModeRange is { } range)
+                w.Range("common_mode_range", range.MinVolts, range.MaxVolts, UnitKind.Volt);
+            w.Value("negative_sampling_capacitance", negative.SamplingCapacitanceFarads, UnitKind.Farad);
+            w.Value("negative_switch_resistance", negative.SwitchResistanceOhms, UnitKind.Ohm);
+            w.Value("negative_pin_capacitance", negative.PinCapacitanceFarads, UnitKind.Farad);
+            w.Value("negative_pin_leakage", negative.PinLeakageAmperes, UnitKind.Ampere, negative.PinLeakageSigned);
+        }
         w.Text("first_transition", a.FirstTransition == FirstTransition.HalfLsb ? "half-lsb" : "one-lsb");
         w.Text("firmware_inverse", a.FirmwareInverse == CodeInverse.BinMiddle ? "bin-middle" : "bin-edge");
         if (a.NoiseLsb is { } lsb)

@@ -23,6 +23,9 @@ internal static class ExcitationRules
 
     public static void Check(TomlSection root, FrontEndDesign design)
     {
+        if (design.Adc.Input != AdcInput.SingleEnded && design.Bridge is null)
+            throw root.Section("adc")!.ErrorAtValue("input", "a differential input reads a bridge's two outputs, and this design has no bridge",
+                "Write input = \"single-ended\" (or remove it), or describe the front end as a [bridge].");
         if (design.Netlist is not null)
         {
             NetlistRules.Check(root, design);

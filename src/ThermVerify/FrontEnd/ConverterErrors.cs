@@ -14,9 +14,10 @@ internal readonly record struct ConverterErrors(double OffsetLsb, double GainErr
     public static ConverterErrors None => default;
 
     /// <summary>The unrounded code the converter produces for an ideal code (input over the converter's own LSB).</summary>
-    public double Code(double idealCode, int bits)
+    /// <param name="minCode">The lowest code (−2^(N−1) for signed codes): the bow is zero at both ends of the scale, wherever it starts.</param>
+    public double Code(double idealCode, int bits, int minCode = 0)
     {
-        var x = idealCode / (1 << bits);
+        var x = (idealCode - minCode) / (1 << bits);
         return idealCode * (1 + GainError) + OffsetLsb + InlBowLsb * 4 * x * (1 - x);
     }
 

@@ -33,6 +33,17 @@ internal sealed record DcLevels(
     /// <summary>The converter's negative input at point <paramref name="i"/>.</summary>
     public double NegativeAt(int i) => NegativeInputVolts?[i] ?? 0;
 
+    /// <summary>
+    /// The level a sample settles to, first conversion: the settled pin, less the negative input where the converter
+    /// samples it too (a differential input, whose samples are V+ − V−).
+    /// </summary>
+    public double StaticSampleLevel(FrontEndDesign design, int i) =>
+        StaticPinVolts[i] - (SamplingRun.SamplesNegativeInput(design) ? NegativeAt(i) : 0);
+
+    /// <summary>The same for the steady state: the pin with the average sampling current of precharge case <paramref name="c"/>.</summary>
+    public double AverageSampleLevel(FrontEndDesign design, int c, int i) =>
+        AveragePinVolts[c][i] - (SamplingRun.SamplesNegativeInput(design) ? NegativeAt(i) : 0);
+
     /// <summary>What the converter converts, over the reference where the circuit makes it: its own scale.</summary>
     public double StaticRatio(int i) => (StaticPinVolts[i] - NegativeAt(i)) / (ReferenceVolts?[i] ?? 1);
 

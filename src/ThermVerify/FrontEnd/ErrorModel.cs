@@ -46,7 +46,10 @@ internal sealed record ErrorInputs(
 
     /// <summary>The converter's unrounded code for a sample: V over its own LSB, bent by its static errors at that corner.</summary>
     public double UnroundedCode(int i, double sampleVolts, int corner) =>
-        ConverterCases[corner].Code(sampleVolts / ConverterLsbVolts[corner][i], Bits);
+        ConverterCases[corner].Code(sampleVolts / ConverterLsbVolts[corner][i], Bits, MinCode);
+
+    /// <summary>The converter's lowest code (−2^(N−1) for signed codes, else 0).</summary>
+    public int MinCode { get; init; }
 }
 
 /// <summary>
@@ -71,6 +74,7 @@ internal static class ErrorModel
             firstOffsets, steadyOffsets, heat, lsb, [.. Enumerable.Range(0, corners).Select(k => converter.Cases[Math.Min(k, converter.Cases.Count - 1)])], converter.Bits)
         {
             NegativeInputVolts = dc.Base.NegativeInputVolts is null ? null : [.. dc.Corners.Select(c => c.NegativeInputVolts!)],
+            MinCode = design.Adc.IsBipolar ? -(1 << (converter.Bits - 1)) : 0,
         };
     }
 

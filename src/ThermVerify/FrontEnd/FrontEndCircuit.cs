@@ -65,6 +65,20 @@ internal static class FrontEndCircuit
             elements.Add(new TimedSwitch(PrechargeSwitch, Precharge, Hold, onOhms, SwitchOffOhms,
                 new PeriodicSchedule(0, period, window, conversions)));
         }
+        if (adc.NegativeInput is { } negative)
+        {
+            // The negative input samples the bridge's second output at the same instants, onto its own capacitor
+            // through its own switch, precharged as the positive input is: the converter converts v(hold) − v(holdn).
+            elements.Add(new Capacitor("Csamplen", HoldNegative, Circuit.Ground, negative.SamplingCapacitanceFarads));
+            elements.Add(new TimedSwitch(NegativeSamplingSwitch, BridgeNegative, HoldNegative, Math.Max(negative.SwitchResistanceOhms, MinimumSwitchOhms), SwitchOffOhms,
+                new PeriodicSchedule(period - adc.AcquisitionTimeSeconds, period, adc.AcquisitionTimeSeconds, conversions)));
+            if (prechargeVolts is not null)
+            {
+                var window = period - adc.AcquisitionTimeSeconds - PrechargeGapSeconds(design);
+                elements.Add(new TimedSwitch(NegativePrechargeSwitch, Precharge, HoldNegative, window / (PrechargeTimeConstants * negative.SamplingCapacitanceFarads),
+                    SwitchOffOhms, new PeriodicSchedule(0, period, window, conversions)));
+            }
+        }
         return new Circuit(elements, celsius ?? 25);
     }
 
@@ -136,6 +150,16 @@ internal static class FrontEndCircuit
             elements.Add(new Capacitor("Cpin", pin, Circuit.Ground, design.Adc.PinCapacitanceFarads));
         if (design.Adc.PinLeakageAmperes != 0)
             elements.Add(Leakage(pin, design.Adc, board));
+        if (design.Adc.NegativeInput is { } negativeInput)
+        {
+            // The negative input's own pin: its capacitance and leakage at the bridge's second output.
+            if (negativeInput.PinCapacitanceFarads > 0)
+                elements.Add(new Capacitor("Cpinn", BridgeNegative, Circuit.Ground, negativeInput.PinCapacitanceFarads));
+            if (negativeInput.PinLeakageAmperes != 0)
+                elements.Add(board is { } b
+                    ? new CurrentSource("Ileakn", BridgeNegative, Circuit.Ground, new DcWaveform(design.Adc.NegativeLeakageAmperesAt(b)))
+                    : new LeakageCurrentSource("Ileakn", BridgeNegative, Circuit.Ground, design.Adc.NegativeLeakageAmperesAt(25), design.Adc.LeakageDoublingKelvin));
+        }
         ProtectionCircuit.Add(elements, design, pin);
         // With nothing else at the pin, the series resistor alone would leave it floating in the DC circuit: the
         // converter's input is there, with its sampling switch open (the sampling circuit's off resistance).

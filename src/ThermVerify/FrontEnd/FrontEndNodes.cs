@@ -21,6 +21,9 @@ internal static class FrontEndNodes
     /// <summary>The sampling capacitor, behind the sampling switch.</summary>
     public const string Hold = "hold";
 
+    /// <summary>A differential input's negative sampling capacitor, behind its own switch.</summary>
+    public const string HoldNegative = "holdn";
+
     /// <summary>What the sampling capacitor is precharged to before each acquisition.</summary>
     public const string Precharge = "pre";
 
@@ -54,5 +57,7 @@ internal static class FrontEndNodes
     public const string BridgeLowElement = "Rbridgelo";
     public const string SamplingSwitch = "Ssample";
     public const string PrechargeSwitch = "Sprecharge";
+    public const string NegativeSamplingSwitch = "Ssamplen";
+    public const string NegativePrechargeSwitch = "Sprechargen";
     public const string ExcitationSwitch = "Sexcitation";
 }

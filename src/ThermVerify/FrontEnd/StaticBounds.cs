@@ -21,6 +21,9 @@ internal static class StaticBounds
             if (value != 0 && !signed) list.Add(new CircuitBound(key, Math.Abs(value), set));
         }
         Add("adc.pin_leakage", d.Adc.PinLeakageAmperes, d.Adc.PinLeakageSigned, (x, v) => x with { Adc = x.Adc with { PinLeakageAmperes = v } });
+        if (d.Adc.NegativeInput is { } negative)
+            Add("adc.negative_pin_leakage", negative.PinLeakageAmperes, negative.PinLeakageSigned,
+                (x, v) => x with { Adc = x.Adc with { NegativeInput = x.Adc.NegativeInput! with { PinLeakageAmperes = v } } });
         if (d.Bridge is { } bridge)
         {
             Add("bridge.opposite_high_tempco", bridge.HighTempcoPerKelvin, bridge.HighTempcoSigned, (x, v) => x with { Bridge = x.Bridge! with { HighTempcoPerKelvin = v } });

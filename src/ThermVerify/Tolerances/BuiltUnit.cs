@@ -62,6 +62,9 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
         {
             PinLeakageAmperes = nominal.Adc.PinLeakageAmperes * (1 + Dev(ToleranceKind.Leakage)),
             PinLeakageSigned = true,
+            NegativeInput = nominal.Adc.NegativeInput is { } n
+                ? n with { PinLeakageAmperes = n.PinLeakageAmperes * (1 + Dev(ToleranceKind.Leakage)), PinLeakageSigned = true }
+                : null,
         };
         var buffer = nominal.Buffer is { } b
             ? b with

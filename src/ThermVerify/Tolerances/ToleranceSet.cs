@@ -96,7 +96,7 @@ internal sealed class ToleranceSet
         }
         if (design.Protection is { HasClamps: true } protection)
             Add(ToleranceKind.ClampLeakage, "protection.clamp_leakage", protection.ClampLeakageAmperes, "A", protection.ClampLeakageSigned);
-        if (adc.PinLeakageAmperes != 0)
+        if (adc.PinLeakageAmperes != 0 || adc.NegativeInput is { PinLeakageAmperes: not 0 })
             Add(ToleranceKind.Leakage, "tolerances.leakage_spread", design.Tolerances.LeakageSpread, "");
         return new ToleranceSet(list);
     }

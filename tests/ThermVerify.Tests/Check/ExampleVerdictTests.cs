@@ -25,6 +25,7 @@ public class ExampleVerdictTests
     [InlineData("mash-tun-pt100-current.toml", true, null)]
     [InlineData("greenhouse-pt1000-4wire.toml", true, null)]
     [InlineData("fermenter-pt1000-bridge.toml", true, null)]
+    [InlineData("brine-chiller-bridge-differential.toml", true, null)]
     [InlineData("table-sensor-freezer.toml", true, null)]
     [InlineData("cold-storage-logger-buffered.toml", true, null)]
     [InlineData("soil-probe-switched.toml", true, null)]
