@@ -45,6 +45,9 @@ internal static class FindingRules
                     : "the acquisition is too short for the source resistance to charge the sampling capacitor (ΔV·e^(−t/τ), from the ")
                  + (p.FirstConversion ? "settled pin" : "pin with the average sampling current") + I($"; precharge {p.Precharge.Name}, {p.SampleKind} conversion)"),
             p => p.FirstConversion ? p.Estimates.FirstConversionVolts : p.Estimates.SteadySettlingVolts);
+        if (design.Amplifier is not null)
+            Add("amplifier-static", "the amplifier's offset, drift, gain error, common mode and bias currents shift the pin by more than ½ LSB",
+                p => p.Simulated.BufferVolts, p => p.Contributions.BufferKelvin, p => AmplifierWords.Cause(design, p), p => p.Estimates.BufferVolts);
         if (design.Buffer is not null)
             Add("buffer-static", "the buffer's offset, drift and bias currents shift the pin by more than ½ LSB",
                 p => p.Simulated.BufferVolts, p => p.Contributions.BufferKelvin, p => BufferCause(design, p), p => p.Estimates.BufferVolts);

@@ -11,7 +11,7 @@ namespace ThermVerify.Design;
 /// </summary>
 internal static class DesignLoader
 {
-    private static readonly string[] TopKeys = ["name", "description", "sensor", "divider", "bridge", "current_source", "wiring", "buffer", "filter", "protection", "adc", "check", "noise", "tolerances", "netlist"];
+    private static readonly string[] TopKeys = ["name", "description", "sensor", "divider", "bridge", "amplifier", "current_source", "wiring", "buffer", "filter", "protection", "adc", "check", "noise", "tolerances", "netlist"];
 
     public static FrontEndDesign Load(string path)
     {
@@ -57,6 +57,7 @@ internal static class DesignLoader
             Sensor = sensor,
             Divider = root.Section("divider") is { } divider ? CircuitReaders.ReadDivider(divider) : bridge?.Half,
             Bridge = bridge?.Opposite,
+            Amplifier = root.Section("amplifier") is { } amplifier ? AmplifierReader.Read(amplifier) : null,
             CurrentSource = root.Section("current_source") is { } source ? CurrentSourceReader.Read(source) : null,
             Netlist = root.Section("netlist") is { } netlist ? NetlistReader.Read(netlist) : null,
             Wiring = root.Section("wiring") is { } wiring ? WiringReader.Read(wiring) : null,

@@ -25,6 +25,8 @@ internal static partial class DesignWriter
             else
                 WriteDivider(w, divider);
         }
+        if (design.Amplifier is { } amplifier)
+            WriteAmplifier(w, amplifier);
         if (design.CurrentSource is { } source)
             WriteCurrentSource(w, source);
         if (design.Wiring is { } wiring)
@@ -131,6 +133,22 @@ internal static partial class DesignWriter
         w.Value("opposite_low", b.LowOhms, UnitKind.Ohm);
         w.Value("opposite_low_tolerance", b.LowTolerance, UnitKind.Percent);
         w.Value("opposite_low_tempco", b.LowTempcoPerKelvin, UnitKind.PpmPerKelvin, b.LowTempcoSigned);
+    }
+
+    private static void WriteAmplifier(Writer w, AmplifierSpec a)
+    {
+        w.Section("amplifier");
+        w.Number("gain", a.Gain);
+        w.Value("gain_error", a.GainError, UnitKind.Percent, a.GainErrorSigned);
+        w.Value("offset_voltage", a.OffsetVolts, UnitKind.Volt, a.OffsetSigned);
+        w.Value("offset_drift", a.OffsetDriftVoltsPerKelvin, UnitKind.VoltPerKelvin, a.OffsetDriftSigned);
+        if (a.CommonModeFraction != 0)
+            w.Value("cmrr", -20 * Math.Log10(Math.Abs(a.CommonModeFraction)), UnitKind.Decibel);
+        w.Value("bias_current", a.BiasCurrentAmperes, UnitKind.Ampere, a.BiasCurrentSigned);
+        if (a.OutputRange is { } output)
+            w.Range("output_range", output.MinVolts, output.MaxVolts, UnitKind.Volt);
+        if (a.InputCommonMode is { } input)
+            w.Range("input_common_mode", input.MinVolts, input.MaxVolts, UnitKind.Volt);
     }
 
     private static void WriteCurrentSource(Writer w, CurrentSourceSpec c)

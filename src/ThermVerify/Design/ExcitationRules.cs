@@ -40,6 +40,9 @@ internal static class ExcitationRules
         if (design.Wiring is { Wires: not 2 } && design.CurrentSource is null)
             throw root.Section("wiring")!.ErrorAtValue("wires", "a divider's sensor is wired with 2 wires",
                 "Write wires = 2 (both leads in the sensor's arm of the divider), or excite the sensor with a [current_source] for 3 or 4 wires.");
+        if (design.Amplifier is not null && design.Bridge is null)
+            throw root.ErrorAtKey("amplifier", "an amplifier is modelled between a bridge's two outputs, and this design has no bridge",
+                "Describe the front end as a [bridge], or use [buffer] for an op-amp stage behind a divider.");
         if (design.Bridge is not null)
             BridgeRules.Check(root, design);
         if (design.CurrentSource is not { } source) return;

@@ -16,6 +16,11 @@ public sealed record FrontEndDesign
     /// is then the sensor's half. Null: no bridge.
     /// </summary>
     public BridgeSpec? Bridge { get; init; }
+    /// <summary>An amplifier between a bridge's outputs and the converter ([amplifier]); null: none.</summary>
+    public AmplifierSpec? Amplifier { get; init; }
+
+    /// <summary>The gain from the sensor's network to the converter: the buffer's, the amplifier's, or 1.</summary>
+    public double StageGain => Buffer?.Gain ?? Amplifier?.Gain ?? 1;
     /// <summary>The current source through the sensor; null for a divider. A design has exactly one of the two.</summary>
     public CurrentSourceSpec? CurrentSource { get; init; }
     /// <summary>A front end given as a SPICE netlist ([netlist]) instead of the built-in shape; null for the built-in shape.</summary>

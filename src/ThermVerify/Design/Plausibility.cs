@@ -54,6 +54,7 @@ internal static partial class Plausibility
         ["adc.noise_table.gain"] = new(1e-3, 1e4),
         ["buffer.gain_bandwidth"] = new(1, 1e11),
         ["buffer.gain"] = new(1, 1e6),
+        ["amplifier.gain"] = new(1e-3, 1e4),
         ["buffer.dc_gain"] = new(20, 300),
         ["buffer.output_resistance"] = new(1e-6, 1e6),
         ["buffer.noise_corner"] = new(1e-3, 1e9),

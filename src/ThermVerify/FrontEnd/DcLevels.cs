@@ -30,6 +30,12 @@ internal sealed record DcLevels(
     /// <summary>The converter's negative input where the wiring puts it on a lead (3 or 4 wires) or a bridge's opposite half; null: ground.</summary>
     public double[]? NegativeInputVolts { get; init; }
 
+    /// <summary>A bridge's second output (the opposite midpoint); null without a bridge.</summary>
+    public double[]? SecondOutputVolts { get; init; }
+
+    /// <summary>An amplifier's output; null without one.</summary>
+    public double[]? AmplifierOutputVolts { get; init; }
+
     /// <summary>The converter's negative input at point <paramref name="i"/>.</summary>
     public double NegativeAt(int i) => NegativeInputVolts?[i] ?? 0;
 
@@ -60,6 +66,7 @@ internal sealed record DcLevels(
         Adc = design.Adc with { PinLeakageAmperes = 0 },
         Protection = null,
         Divider = design.Divider is { } d ? d with { FixedTempcoPerKelvin = 0 } : null,
+        Bridge = design.Bridge is { } b ? b with { HighTempcoPerKelvin = 0, LowTempcoPerKelvin = 0 } : null,
     };
 
     public static DcLevels Run(FrontEndDesign design, IReadOnlyList<PrechargeCase> cases, IReadOnlyList<double> temperaturesCelsius,
@@ -71,14 +78,23 @@ internal sealed record DcLevels(
         if (design.Netlist is not null) return RunNetlist(design, cases, temperaturesCelsius, engine, pinNode);
         if (source is not null) return RunCurrent(design, cases, temperaturesCelsius, engine, pinNode);
         var bridge = design.Bridge is not null;
-        var plain = Sweep(engine, design, null, temperaturesCelsius, bridge ? [Divider, pinNode, BridgeNegative] : [Divider, pinNode]);
+        var amplifier = design.Amplifier is not null;
+        var plain = Sweep(engine, design, null, temperaturesCelsius,
+            bridge ? amplifier ? [Divider, pinNode, BridgeNegative, AmplifierOutput] : [Divider, pinNode, BridgeNegative] : [Divider, pinNode]);
         var staticPin = plain[1];
-        var afterBuffer = design.Buffer is null ? null : Sweep(engine, WithoutLoading(design), null, temperaturesCelsius, [pinNode])[0];
+        var afterBuffer = design.Buffer is null && !amplifier ? null : Sweep(engine, WithoutLoading(design), null, temperaturesCelsius, [pinNode])[0];
         var average = cases.Select(c => UsesAverageSamplingCurrent(design, c.Volts)
             ? Sweep(engine, design, c.Volts, temperaturesCelsius, [pinNode])[0]
             : staticPin).ToArray();
         // A bridge: the converter's negative input is the opposite half's midpoint, from the same sweep.
-        return new DcLevels(plain[0], afterBuffer, staticPin, average) { NegativeInputVolts = bridge ? plain[2] : null };
+        // Behind an amplifier the converter reads its single output against ground; the bridge's second output and the
+        // amplifier's output are kept for its common-mode and output-range findings.
+        return new DcLevels(plain[0], afterBuffer, staticPin, average)
+        {
+            NegativeInputVolts = bridge && !amplifier ? plain[2] : null,
+            SecondOutputVolts = bridge ? plain[2] : null,
+            AmplifierOutputVolts = amplifier ? plain[3] : null,
+        };
     }
 
     /// <summary>

@@ -141,6 +141,8 @@ internal static class FrontEndCircuit
 
         if (design.Buffer is { } buffer)
             BufferStage.Add(elements, buffer, Divider, board, celsius);
+        if (design.Amplifier is { } amplifier)
+            AmplifierStage.Add(elements, amplifier, board, celsius);
         var pin = PinNode(design);
         if (design.Filter.SeriesResistorOhms > 0)
             elements.Add(new Resistor("Rfilter", DriveNode(design), Pin, design.Filter.SeriesResistorOhms));
@@ -163,8 +165,9 @@ internal static class FrontEndCircuit
         ProtectionCircuit.Add(elements, design, pin);
         // With nothing else at the pin, the series resistor alone would leave it floating in the DC circuit: the
         // converter's input is there, with its sampling switch open (the sampling circuit's off resistance).
-        if (pin == Pin && elements.Count(e => e.Nodes.Contains(Pin)) == 1)
-            elements.Add(new Resistor("Rinput", Pin, Circuit.Ground, SwitchOffOhms));
+        // So would an amplifier's output with nothing behind it.
+        if ((pin == Pin || design.Amplifier is not null) && elements.Count(e => e.Nodes.Contains(pin)) == 1)
+            elements.Add(new Resistor("Rinput", pin, Circuit.Ground, SwitchOffOhms));
         return elements;
     }
 
@@ -177,11 +180,13 @@ internal static class FrontEndCircuit
         : design.Filter.ReservoirCapacitorFarads;
 
     /// <summary>The node that drives the filter: the buffer's output, or the divider itself.</summary>
-    public static string DriveNode(FrontEndDesign design) => design.Buffer is null ? Divider : BufferOutput;
+    public static string DriveNode(FrontEndDesign design) =>
+        design.Amplifier is not null ? AmplifierOutput : design.Buffer is null ? Divider : BufferOutput;
 
     /// <summary>The op-amp's own output (before any isolation resistor); the divider when there is no buffer.</summary>
     public static string AmplifierNode(FrontEndDesign design) =>
-        design.Buffer is null ? Divider : design.Buffer.IsolationResistorOhms > 0 ? BufferStage.AmplifierOutput : BufferOutput;
+        design.Amplifier is not null ? AmplifierOutput
+        : design.Buffer is null ? Divider : design.Buffer.IsolationResistorOhms > 0 ? BufferStage.AmplifierOutput : BufferOutput;
 
     /// <summary>The ADC pin: its own node behind a series resistor, else the drive node itself.</summary>
     public static string PinNode(FrontEndDesign design) =>

@@ -41,6 +41,14 @@ internal static class FrontEndNodes
     public const string Force = "frc";
     public const string SenseNegative = "sns";
 
+    /// <summary>The amplifier's output behind a bridge; and its inner nodes (offset, gain, common-mode stages; drift stage).</summary>
+    public const string AmplifierOutput = "ina";
+    public const string AmplifierOffsetInput = "inap";
+    public const string AmplifierOffsetBase = "inos";
+    public const string AmplifierDifferential = "inad";
+    public const string AmplifierCommonMode = "inac";
+    public const string AmplifierDriftStage = "atc";
+
     /// <summary>A bridge's opposite midpoint, the converter's negative input.</summary>
     public const string BridgeNegative = "opp";
 

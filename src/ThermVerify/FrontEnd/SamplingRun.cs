@@ -143,7 +143,7 @@ internal static class SamplingRun
     /// by the other channel's precharge, to time stepping in every period.
     /// </summary>
     internal static double LinearityToleranceFor(FrontEndDesign design) =>
-        0.01 * AdcTransfer.Of(design).LsbVolts / Math.Max(1, Math.Abs(design.Buffer?.Gain ?? 1));
+        0.01 * AdcTransfer.Of(design).LsbVolts / Math.Max(1, Math.Abs(design.StageGain));
 
     /// <summary>
     /// The time-stepping engine's relative tolerance for the accuracy the check needs: a sample within 0.01 LSB, with

@@ -49,6 +49,17 @@ internal static class StaticBounds
                 (x, v) => x with { Protection = x.Protection! with { ClampLeakageAmperes = v } });
         if (d.Wiring is { Wires: 3 } wiring)
             Add("wiring.current_mismatch", wiring.CurrentMismatch, wiring.CurrentMismatchSigned, (x, v) => x with { Wiring = x.Wiring! with { CurrentMismatch = v } });
+        if (d.Amplifier is { } amplifier)
+        {
+            AmplifierSpec With(FrontEndDesign x) => x.Amplifier!;
+            Add("amplifier.offset_voltage", amplifier.OffsetVolts, amplifier.OffsetSigned, (x, v) => x with { Amplifier = With(x) with { OffsetVolts = v } });
+            Add("amplifier.offset_drift", amplifier.OffsetDriftVoltsPerKelvin, amplifier.OffsetDriftSigned,
+                (x, v) => x with { Amplifier = With(x) with { OffsetDriftVoltsPerKelvin = v } });
+            Add("amplifier.gain_error", amplifier.GainError, amplifier.GainErrorSigned, (x, v) => x with { Amplifier = With(x) with { GainError = v } });
+            Add("amplifier.bias_current", amplifier.BiasCurrentAmperes, amplifier.BiasCurrentSigned, (x, v) => x with { Amplifier = With(x) with { BiasCurrentAmperes = v } });
+            // A CMRR has no sign: always a bound.
+            Add("amplifier.cmrr", amplifier.CommonModeFraction, false, (x, v) => x with { Amplifier = With(x) with { CommonModeFraction = v } });
+        }
         if (d.Buffer is { Subcircuit: null } b)
         {
             Add("buffer.offset_voltage", b.OffsetVolts, b.OffsetSigned, (x, v) => x with { Buffer = x.Buffer! with { OffsetVolts = v } });

@@ -159,7 +159,9 @@ internal static class ReportFormat
                                (n.Excitation.Count > 0 ? $", excitation {string.Join(", ", n.Excitation)}" : ""));
         if (d is { Divider: { } half, Bridge: { } bridge })
             return ("bridge", $"sensor on the {(half.SensorSide == Design.SensorSide.High ? "high" : "low")} side, fixed {V(half.FixedResistorOhms, UnitKind.Ohm)}, " +
-                              $"opposite half {V(bridge.HighOhms, UnitKind.Ohm)} over {V(bridge.LowOhms, UnitKind.Ohm)}, excitation {V(half.ExcitationVolts, UnitKind.Volt)}, read differentially" +
+                              $"opposite half {V(bridge.HighOhms, UnitKind.Ohm)} over {V(bridge.LowOhms, UnitKind.Ohm)}, excitation {V(half.ExcitationVolts, UnitKind.Volt)}" +
+                              (d.Amplifier is null ? ", read differentially" : "") +
+                              (d.Amplifier is { } amp ? $", through an amplifier of gain {amp.Gain.ToString("0.###", System.Globalization.CultureInfo.InvariantCulture)}" : "") +
                               (d.Wiring is { } bridgeLeads ? $", 2 wires of {V(bridgeLeads.LeadOhms, UnitKind.Ohm)}" : ""));
         if (d.Divider is { } divider)
             return ("divider", $"sensor on the {(divider.SensorSide == Design.SensorSide.High ? "high" : "low")} side, fixed {V(divider.FixedResistorOhms, UnitKind.Ohm)}, excitation {V(divider.ExcitationVolts, UnitKind.Volt)}" +

@@ -77,6 +77,20 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
                 BiasCurrentSigned = true,
             }
             : null;
+        var amplifier = nominal.Amplifier is { } am
+            ? am with
+            {
+                OffsetVolts = Bound(ToleranceKind.AmplifierOffset, am.OffsetVolts),
+                OffsetDriftVoltsPerKelvin = Bound(ToleranceKind.AmplifierDrift, am.OffsetDriftVoltsPerKelvin),
+                GainError = Bound(ToleranceKind.AmplifierGainError, am.GainError),
+                CommonModeFraction = Bound(ToleranceKind.AmplifierCommonMode, am.CommonModeFraction),
+                BiasCurrentAmperes = Bound(ToleranceKind.AmplifierBias, am.BiasCurrentAmperes),
+                OffsetSigned = true,
+                OffsetDriftSigned = true,
+                GainErrorSigned = true,
+                BiasCurrentSigned = true,
+            }
+            : null;
         var wiring = nominal.Wiring is { } w
             ? w with { CurrentMismatch = Bound(ToleranceKind.CurrentMismatch, w.CurrentMismatch), CurrentMismatchSigned = true }
             : null;
@@ -93,6 +107,7 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
             CurrentSource = source,
             Adc = adc,
             Buffer = buffer,
+            Amplifier = amplifier,
         };
         var reference = nominal.Adc.ReferenceVolts is { } v ? v * (1 + Dev(ToleranceKind.Reference)) : design.NominalReferenceVolts;
         var tempco = nominal.Adc.IsRatiometric ? 0 : Bound(ToleranceKind.ReferenceTempco, nominal.Adc.ReferenceTempcoPerKelvin);

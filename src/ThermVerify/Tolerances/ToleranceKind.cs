@@ -47,6 +47,16 @@ public enum ToleranceKind
     BridgeLowResistance,
     /// <summary>Its tempco, spread over ±|tempco|.</summary>
     BridgeLowTempco,
+    /// <summary>A bridge amplifier's offset, spread over ±|offset| (V).</summary>
+    AmplifierOffset,
+    /// <summary>Its offset drift, spread over ±|drift| (V/K).</summary>
+    AmplifierDrift,
+    /// <summary>Its gain error, spread over ±|error| (a fraction).</summary>
+    AmplifierGainError,
+    /// <summary>Its common-mode gain over its differential gain, spread over ±10^(−CMRR/20).</summary>
+    AmplifierCommonMode,
+    /// <summary>Its input bias current, spread over ±|current| (A).</summary>
+    AmplifierBias,
     /// <summary>The clamp diodes' net reverse leakage, spread over ±|leakage| (one diode or the other leaking).</summary>
     ClampLeakage,
 }

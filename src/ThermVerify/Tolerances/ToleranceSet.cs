@@ -94,6 +94,14 @@ internal sealed class ToleranceSet
             Add(ToleranceKind.BufferDrift, "buffer.offset_drift", buffer.OffsetDriftVoltsPerKelvin, "V/K", buffer.OffsetDriftSigned);
             Add(ToleranceKind.BufferBias, "buffer.bias_current", buffer.BiasCurrentAmperes, "A", buffer.BiasCurrentSigned);
         }
+        if (design.Amplifier is { } amplifier)
+        {
+            Add(ToleranceKind.AmplifierOffset, "amplifier.offset_voltage", amplifier.OffsetVolts, "V", amplifier.OffsetSigned);
+            Add(ToleranceKind.AmplifierDrift, "amplifier.offset_drift", amplifier.OffsetDriftVoltsPerKelvin, "V/K", amplifier.OffsetDriftSigned);
+            Add(ToleranceKind.AmplifierGainError, "amplifier.gain_error", amplifier.GainError, "", amplifier.GainErrorSigned);
+            Add(ToleranceKind.AmplifierCommonMode, "amplifier.cmrr", amplifier.CommonModeFraction, "");
+            Add(ToleranceKind.AmplifierBias, "amplifier.bias_current", amplifier.BiasCurrentAmperes, "A", amplifier.BiasCurrentSigned);
+        }
         if (design.Protection is { HasClamps: true } protection)
             Add(ToleranceKind.ClampLeakage, "protection.clamp_leakage", protection.ClampLeakageAmperes, "A", protection.ClampLeakageSigned);
         if (adc.PinLeakageAmperes != 0 || adc.NegativeInput is { PinLeakageAmperes: not 0 })
