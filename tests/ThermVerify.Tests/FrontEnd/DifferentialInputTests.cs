@@ -3,6 +3,7 @@ using ThermVerify.Design;
 using ThermVerify.FrontEnd;
 using ThermVerify.Ngspice;
 using ThermVerify.Tests.Ngspice;
+using ThermVerify.Tolerances;
 
 namespace ThermVerify.Tests.FrontEnd;
 
@@ -103,6 +104,35 @@ public class DifferentialInputTests
         Tolerance.AssertClose(closedForm, finding.SimulatedVolts!.Value, 1e-9, 1e-12, "simulated beside it");
         Assert.Contains("closed form", finding.Cause);
         Assert.DoesNotContain(FrontEndCheck.Run(Differential(("adc.common_mode_range", "\"0.5 V .. 3 V\"")), Options).Findings, f => f.Id == CommonModeRule.Id);
+    }
+
+    [Fact]
+    public void Monte_carlo_units_read_on_both_sides_of_the_balance()
+    {
+        // The opposite low arm spread by 1 %: a unit's V− is E·(1 + δ)/(2 + δ), ΔV− = E·δ/(2·(2 + δ)) (the divider formula),
+        // read with the opposite sign. The firmware takes V+ = V_d + E/2, R_s = R_f·V+/(E − V+), and the temperature from
+        // the inverse of the IEC 60751 equation above 0 °C, t = (−A + √(A² − 4B(1 − R/R0)))/(2B): exact at 100 °C, where
+        // the slope is smallest and so the error in kelvin largest.
+        var result = MonteCarlo.Run(Differential(("bridge.opposite_low_tolerance", "\"1 %\"")), new MonteCarloOptions { Units = 40, Seed = 5, Threads = 1 });
+        var index = result.Parameters.ToList().FindIndex(p => p.Kind == ToleranceKind.BridgeLowResistance);
+        var rs = CurrentDesigns.Ohms(100, 1000);
+        var slope = 2.5 * 1000 / ((rs + 1000) * (rs + 1000)) * CurrentDesigns.OhmsPerKelvin(100, 1000);
+        var lsbKelvin = 2.5 / 65536 / slope;
+        const double a = 3.9083e-3, b = -5.775e-7;
+        var checkedUnits = 0;
+        for (var u = 0; u < result.Units; u++)
+        {
+            Assert.True(double.IsFinite(result.WorstErrorKelvin[u]), $"unit {u} reads every temperature");
+            var deviation = result.Deviations[u][index];
+            if (Math.Abs(deviation) < 3e-3) continue;
+            checkedUnits++;
+            var positive = 2.5 * rs / (rs + 1000) - 2.5 * deviation / (2 * (2 + deviation));
+            var read = 1000 * positive / (2.5 - positive);
+            var reported = (-a + Math.Sqrt(a * a - 4 * b * (1 - read / 1000))) / (2 * b);
+            Assert.Equal(100, result.WorstCelsius[u]);
+            Tolerance.AssertClose(reported - 100, result.WorstErrorKelvin[u], 0, 0.5 * lsbKelvin, $"unit {u}, δ = {deviation:G3}");
+        }
+        Assert.True(checkedUnits > 10, $"{checkedUnits} units with a deviation above 0.3 %");
     }
 
     /// <summary>ngspice, the trade's reference engine, on both inputs' sampling transient: every conversion within 0.01 LSB.</summary>
