@@ -27,6 +27,7 @@ internal static class FindingRules
         Add("converter", "the converter's static errors (offset, gain, INL, reference) shift the code by more than ½ LSB",
             p => p.Simulated.ConverterVolts, p => p.Contributions.ConverterKelvin, p => ConverterCause(design, p, lsb), p => p.Simulated.ConverterVolts, simulated: false);
         Add("dc-loading", (design.Netlist is { } n ? "DC error at the pin: pin leakage, the netlist's parts' drift" + (n.Parsed.Elements.Any(x => x.Kind == 'D') ? ", its diodes" : "")
+                : design.Bridge is not null ? "DC error at the pin: pin leakage, the bridge's resistors' drift"
                 : design.CurrentSource is null ? "DC error at the pin: pin leakage, fixed-resistor drift"
                 : "DC error at the pin: pin leakage, the current source's drift and output resistance, the reference resistor's drift and loading")
                 + (design.Wiring is not null && design.CurrentSource is null ? ", sensor leads" : "")

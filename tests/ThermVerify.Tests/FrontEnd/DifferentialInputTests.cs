@@ -107,6 +107,23 @@ public class DifferentialInputTests
     }
 
     [Fact]
+    public void Both_sampling_capacitors_keep_their_kT_over_C()
+    {
+        // Every resistor at one temperature (the board's 25 °C, the point checked), no pin capacitance: each capacitor
+        // keeps kT/C of whatever resistive network charges it (the equipartition result for a capacitor in thermal
+        // equilibrium, from memory), and the two networks are independent, so v(hold) − v(holdn) carries kT/C₊ + kT/C₋.
+        var design = Differential(("adc.sampling_capacitance", "\"10 pF\""), ("adc.negative_sampling_capacitance", "\"4 pF\""),
+            ("check.board_temperature", "\"25 degC\""), ("check.range", "\"0 degC .. 50 degC\""));
+        var result = FrontEndCheck.Run(design, Options);
+        var noise = Assert.Single(result.Points, p => p.Celsius == 25).Noise!;
+        var kT = 1.380649e-23 * 298.15;
+        var expected = Math.Sqrt(kT / 10e-12 + kT / 4e-12);
+        Tolerance.AssertClose(expected, noise.KtcRmsVolts, 1e-9, 0, "closed form printed beside the analysis");
+        // 0.5 %, as for one input (ReadingNoiseTests): the band ends at 1000× the fastest pole.
+        Tolerance.AssertClose(expected, noise.AnalogRmsVolts, 0.005, 0, "the noise analysis at v(hold) − v(holdn)");
+    }
+
+    [Fact]
     public void Monte_carlo_units_read_on_both_sides_of_the_balance()
     {
         // The opposite low arm spread by 1 %: a unit's V− is E·(1 + δ)/(2 + δ), ΔV− = E·δ/(2·(2 + δ)) (the divider formula),
