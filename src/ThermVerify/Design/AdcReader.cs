@@ -30,7 +30,7 @@ internal static class AdcReader
         "bits", "reference", "reference_tolerance", "sample_rate", "acquisition_time", "sampling_capacitance",
         "switch_resistance", "pin_capacitance", "pin_leakage", "pin_leakage_temperature", "leakage_doubling",
         "offset_error", "gain_error", "inl", "precharge", "precharge_voltage", "reference_tempco", "first_transition",
-        "firmware_inverse", "noise", "kind",
+        "firmware_inverse", "noise", "kind", .. GainStageReader.Keys,
     ];
 
     private static readonly Dictionary<string, ConverterKind> Kinds = new()
@@ -54,6 +54,7 @@ internal static class AdcReader
             return Common(s) with
             {
                 DeltaSigma = deltaSigma,
+                GainStage = GainStageReader.Read(s, deltaSigma.Gain),
                 SampleRateHertz = deltaSigma.DataRateHertz,
                 Precharge = PrechargeMode.LastSample,
             };
@@ -79,6 +80,7 @@ internal static class AdcReader
             SwitchResistanceOhms = s.RequiredValue("switch_resistance", Bound.NonNegative, "Write switch_resistance = \"1 kohm\" (sampling switch on-resistance).", UnitKind.Ohm),
             Precharge = precharge,
             PrechargeVolts = prechargeVolts,
+            GainStage = GainStageReader.Read(s, null),
         };
     }
 

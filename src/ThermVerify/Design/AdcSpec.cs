@@ -43,6 +43,10 @@ public sealed record AdcSpec
 {
     /// <summary>The delta-sigma converter's input and filter; null for a successive-approximation converter.</summary>
     public DeltaSigmaSpec? DeltaSigma { get; init; }
+    /// <summary>The programmable-gain stage ahead of the converter; null: the pin drives the converter itself.</summary>
+    public GainStageSpec? GainStage { get; init; }
+    /// <summary>G, the programmable gain (1 without a gain stage): full scale at the pin is the reference over it.</summary>
+    public double ProgrammableGain => GainStage?.Gain ?? 1;
     public ConverterKind Kind => DeltaSigma is null ? ConverterKind.SuccessiveApproximation : ConverterKind.DeltaSigma;
     public required int Bits { get; init; }
     /// <summary>Null when the reference is the divider's excitation (ratiometric).</summary>

@@ -13,7 +13,7 @@ internal static class DeltaSigmaReader
     /// <summary>The keys only a delta-sigma converter has.</summary>
     public static readonly string[] OwnKeys =
     [
-        "modulator_rate", "data_rate", "input", "input_current", "gain", "filter", "average_length", "filter_reset", "channel_filter",
+        "modulator_rate", "data_rate", "input", "input_current", "filter", "average_length", "filter_reset", "channel_filter",
         "readings_discarded", "noise_table", "rejection_frequencies", "interference",
     ];
 

@@ -245,7 +245,7 @@ internal static class Knobs
             case "converter":
             {
                 var adc = design.Adc;
-                var x = worst.SampleVolts / design.NominalReferenceVolts;
+                var x = worst.SampleVolts / design.FullScaleAtPinVolts;
                 return Ordered([(AdcOffset, Present(adc.OffsetErrorLsb, adc.OffsetErrorLsb)),
                     (AdcGain, Present(adc.GainError, adc.GainError * x * (1 << adc.Bits))),
                     (AdcInl, Present(adc.InlLsb, adc.InlLsb * 4 * x * (1 - x))),
