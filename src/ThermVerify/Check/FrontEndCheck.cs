@@ -30,6 +30,7 @@ internal static class FrontEndCheck
         var findings = FindingRules.Evaluate(design, evaluation.Model, points).ToList();
         findings.AddRange(ComplianceRule.Evaluate(design, evaluation.Dc, evaluation.Temperatures, points, evaluation.Model.Adc.LsbVolts));
         findings.AddRange(GainRangeRule.Evaluate(design, evaluation.Dc, evaluation.Temperatures, points));
+        findings.AddRange(ChargeInjectionRule.Evaluate(design, points, evaluation.Model.Adc.LsbVolts, options));
         var buffer = design.Buffer is null ? null : Buffer.BufferCheck.Run(design, points, options);
         findings.AddRange(buffer?.Findings ?? []);
         IReadOnlyList<Finding> ordered = FindingRules.OverBudget(evaluation.Model, points, findings) is { } budget ? [budget, .. findings] : findings;

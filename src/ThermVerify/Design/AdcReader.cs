@@ -30,7 +30,7 @@ internal static class AdcReader
         "bits", "reference", "reference_tolerance", "sample_rate", "acquisition_time", "sampling_capacitance",
         "switch_resistance", "pin_capacitance", "pin_leakage", "pin_leakage_temperature", "leakage_doubling",
         "offset_error", "gain_error", "inl", "precharge", "precharge_voltage", "reference_tempco", "first_transition",
-        "firmware_inverse", "noise", "kind", .. GainStageReader.Keys,
+        "firmware_inverse", "noise", "kind", "charge_injection", .. GainStageReader.Keys,
     ];
 
     private static readonly Dictionary<string, ConverterKind> Kinds = new()
@@ -72,8 +72,13 @@ internal static class AdcReader
         var prechargeVolts = s.Quantity("precharge_voltage", Bound.Any, UnitKind.Volt)?.Value;
         if (prechargeVolts is not null && precharge != PrechargeMode.OtherChannel)
             throw s.ErrorAtKey("precharge_voltage", "precharge_voltage applies only to precharge = \"other-channel\"", "Remove it, or set precharge = \"other-channel\".");
+        var injection = s.ValueOr("charge_injection", 0, Bound.Any, UnitKind.Coulomb);
+        if (injection != 0 && s.Has("gain") | s.Has("pga_gain_error") | s.Has("pga_input_current"))
+            throw s.ErrorAtKey("charge_injection", "charge_injection is not modelled behind a programmable-gain stage yet (the sampling capacitor is behind the amplifier, the multiplexer in front of it)",
+                "Remove charge_injection, or the gain stage's keys (gain, pga_gain_error, pga_input_current).");
         return common with
         {
+            ChargeInjectionCoulombs = injection,
             SampleRateHertz = sampleRate,
             AcquisitionTimeSeconds = acquisition,
             SamplingCapacitanceFarads = s.RequiredValue("sampling_capacitance", Bound.Positive, "Write sampling_capacitance = \"5 pF\".", UnitKind.Farad),

@@ -74,6 +74,11 @@ public sealed record AdcSpec
     public double InlLsb { get; init; }
     /// <summary>Reference tempco, fraction per kelvin, at the sign written; the reference sits at the board temperature (fixed reference only).</summary>
     public double ReferenceTempcoPerKelvin { get; init; }
+    /// <summary>
+    /// The charge the multiplexer's switch puts into the pin at each switch event (the acquisition window opening),
+    /// coulombs, positive into the pin; taken as written (a successive-approximation converter only).
+    /// </summary>
+    public double ChargeInjectionCoulombs { get; init; }
     public PrechargeMode Precharge { get; init; } = PrechargeMode.Worst;
     /// <summary>Voltage left by the other channel; null: analyses take the worse of 0 V and full scale.</summary>
     public double? PrechargeVolts { get; init; }

@@ -18,7 +18,7 @@ internal static class DeltaSigmaReader
     ];
 
     /// <summary>The keys only a successive-approximation converter has (its acquisition window and precharge).</summary>
-    public static readonly string[] SuccessiveApproximationKeys = ["sample_rate", "acquisition_time", "switch_resistance", "precharge", "precharge_voltage"];
+    public static readonly string[] SuccessiveApproximationKeys = ["sample_rate", "acquisition_time", "switch_resistance", "precharge", "precharge_voltage", "charge_injection"];
 
     public const int MaximumOrder = 8;
     public const int MaximumAverage = 1024;

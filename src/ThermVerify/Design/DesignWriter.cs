@@ -234,6 +234,8 @@ internal static partial class DesignWriter
                 PrechargeMode.Discharged => "discharged",
                 _ => "worst",
             });
+        if (a.ChargeInjectionCoulombs != 0)
+            w.Value("charge_injection", a.ChargeInjectionCoulombs, UnitKind.Coulomb);
         if (a.PrechargeVolts is { } pv)
             w.Value("precharge_voltage", pv, UnitKind.Volt);
         w.Text("first_transition", a.FirstTransition == FirstTransition.HalfLsb ? "half-lsb" : "one-lsb");

@@ -55,6 +55,8 @@ internal static class FrontEndCircuit
         var adc = design.Adc;
         var period = 1 / adc.SampleRateHertz;
         var elements = Front(design, celsius);
+        if (adc.ChargeInjectionCoulombs != 0)
+            ChargeInjection.Add(elements, design, conversions);
         elements.Add(new Capacitor("Csample", Hold, Circuit.Ground, adc.SamplingCapacitanceFarads));
         elements.Add(new TimedSwitch(SamplingSwitch, SampledNode(design, elements), Hold, Math.Max(adc.SwitchResistanceOhms, MinimumSwitchOhms), SwitchOffOhms,
             new PeriodicSchedule(period - adc.AcquisitionTimeSeconds, period, adc.AcquisitionTimeSeconds, conversions)));
