@@ -23,14 +23,7 @@ internal static class ChargeInjectionRule
     {
         if (design.Adc.ChargeInjectionCoulombs == 0 || points.Count == 0) yield break;
         var worst = points[ErrorModel.WorstIndex([.. points.Select(p => p.ErrorKelvin)])];
-        var settle = design.Check.SettleLimitLsb * lsbVolts;
-        var clean = design with { Adc = design.Adc with { ChargeInjectionCoulombs = 0 } };
-        var sampled = StaticBounds.Zeroed(design);
-        var cleanSampled = StaticBounds.Zeroed(clean);
-        double Sample(FrontEndDesign d) => worst.FirstConversion
-            ? SamplingRun.FirstSampleVolts(d, worst.Celsius, worst.PrechargeVolts, settle, options.Engine)
-            : SamplingRun.Run(d, worst.Celsius, worst.PrechargeVolts, settle, cancel: options.Cancel, engine: options.Engine).SteadyVolts;
-        var simulated = Sample(sampled) - Sample(cleanSampled);
+        var simulated = OwnShareVolts(design, worst.Celsius, worst.PrechargeVolts, worst.FirstConversion, lsbVolts, options);
         if (Math.Abs(simulated) <= lsbVolts / 2) yield break;
         var kelvin = simulated / new ClosedFormModel(design).At(worst.Celsius).VoltsPerKelvin;
         var sourceOhms = worst.Estimates.SourceOhms;
@@ -48,6 +41,20 @@ internal static class ChargeInjectionRule
                 : I($"; every period adds Q, an average current Q·f_s through the {O(sourceOhms)} the pin sees, Q·f_s·R = {V(steady)}, with up to ΔV of ripple on top (steady state")) +
             I($", precharge {worst.Precharge.Name}, at {worst.Celsius:0.##} °C, simulated with and without the charge)"),
             estimate, simulated, []);
+    }
+
+    /// <summary>
+    /// The injection's own share of one sample: the sampling run at a temperature for one precharge case and sample
+    /// (first or steady), with the charge and without it (the bounds at zero, as the check's sampling runs have them).
+    /// </summary>
+    public static double OwnShareVolts(FrontEndDesign design, double celsius, double? prechargeVolts, bool first, double lsbVolts, CheckOptions options)
+    {
+        var settle = design.Check.SettleLimitLsb * lsbVolts;
+        double Sample(FrontEndDesign d) => first
+            ? SamplingRun.FirstSampleVolts(d, celsius, prechargeVolts, settle, options.Engine)
+            : SamplingRun.Run(d, celsius, prechargeVolts, settle, cancel: options.Cancel, engine: options.Engine).SteadyVolts;
+        var sampled = StaticBounds.Zeroed(design);
+        return Sample(sampled) - Sample(sampled with { Adc = sampled.Adc with { ChargeInjectionCoulombs = 0 } });
     }
 
     private static string V(double volts) => EngineeringFormat.Format(volts, UnitKind.Volt, 4);

@@ -49,6 +49,24 @@ internal static class GainRangeRule
             closedForm, worst.Volts, []);
     }
 
+    /// <summary>
+    /// How far the amplified signal goes beyond the converter's range at one temperature, referred to the pin (0 when
+    /// it stays inside at every corner): what a remedy search on the gain holds at zero.
+    /// </summary>
+    public static double ExcessPinVolts(FrontEndDesign design, DcCorners dc, int i)
+    {
+        if (design.Adc.GainStage is not { } stage) return 0;
+        var factor = 1 + (stage.GainErrorSigned ? stage.GainError : Math.Abs(stage.GainError));
+        var worst = 0.0;
+        foreach (var corner in dc.Corners)
+        {
+            var reference = corner.ReferenceVolts?[i] ?? design.NominalReferenceVolts;
+            var v = stage.Gain * factor * (corner.StaticPinVolts[i] - corner.NegativeAt(i));
+            worst = Math.Max(worst, Math.Max(v - reference, -v) / stage.Gain);
+        }
+        return worst;
+    }
+
     private static string V(double volts) => EngineeringFormat.Format(volts, UnitKind.Volt, 4);
     private static string I(FormattableString s) => s.ToString(CultureInfo.InvariantCulture);
 }
