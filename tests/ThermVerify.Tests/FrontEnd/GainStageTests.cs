@@ -157,4 +157,20 @@ public class GainStageTests
             Tolerance.AssertClose(ours.Points[i].SampleVolts, theirs.Points[i].SampleVolts, 0, 0.01 * ours.Adc.LsbVolts, "sample");
         }
     }
+
+    [Fact]
+    public void The_bundled_stability_chamber_reads_the_amplified_resistance_ratio()
+    {
+        // The example: 250 µA through R_ref = 1.62 kΩ and a Pt100 on 3 wires, gain 8 on a 24-bit converter whose reference is
+        // I·R_ref: the ideal code is 2^24·8·R_s/R_ref, the current cancelling (Ohm's law twice; R_s from IEC 60751 by hand).
+        var result = ExampleVerdictTests.Checked("stability-chamber-pt100-pga.toml");
+        foreach (var p in result.Points)
+            Tolerance.AssertClose((1 << 24) * 8 * CurrentDesigns.Ohms(p.Celsius) / 1620, p.IdealVolts / result.Adc.LsbVolts, 1e-9, what: $"ideal code at {p.Celsius} °C");
+        Assert.True(result.Passed);
+        var json = System.Text.Json.JsonDocument.Parse(ThermVerify.Reporting.CheckJson.Write(result, TestRun.Provenance)).RootElement;
+        var stage = json.GetProperty("adc").GetProperty("gainStage");
+        Assert.Equal(8, stage.GetProperty("gain").GetDouble());
+        Tolerance.AssertClose(0.405, stage.GetProperty("converterReferenceVolts").GetDouble(), 1e-12);
+        Tolerance.AssertClose(0.405 / 8, json.GetProperty("adc").GetProperty("referenceVolts").GetDouble(), 1e-12);
+    }
 }
