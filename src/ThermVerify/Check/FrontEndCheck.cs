@@ -66,7 +66,6 @@ internal static class FrontEndCheck
         catch (FirmwareInputException e)
         {
             omitted = design.Netlist is not null ? "not computed yet for a netlist front end"
-                : design.CurrentSource is not null ? "not computed yet for a current-excited sensor"
                 : e.Message;
             return null;
         }
