@@ -21,7 +21,7 @@ internal static class EffectEstimator
     {
         var adc = design.Adc;
         var source = SourceOhms(design, point);
-        var leakage = -LeakageAmps(design, point.Celsius) * source;
+        var leakage = -PinCurrentAmps(design, point.Celsius) * source;
         var (drift, excitation, leads) = (0.0, 0.0, 0.0);
         if (design.Divider is { } divider)
         {
@@ -80,7 +80,7 @@ internal static class EffectEstimator
     {
         var nominal = design.CurrentSource!.NominalReferenceVolts;
         var board = design.Check.BoardCelsius ?? point.Celsius;
-        var drawn = LeakageAmps(design, point.Celsius);
+        var drawn = PinCurrentAmps(design, point.Celsius);
         double Read(double amperes, bool leads)
         {
             var n = CurrentFormula.Network(design, point.SensorOhms, amperes, board, leads);
@@ -131,4 +131,8 @@ internal static class EffectEstimator
     /// <summary>Pin leakage at a swept temperature, or at the board temperature when the design fixes one.</summary>
     public static double LeakageAmps(FrontEndDesign design, double sweptCelsius) =>
         design.Adc.PinLeakageAmperesAt(design.Check.BoardCelsius ?? sweptCelsius);
+
+    /// <summary>Every DC current the converter's side draws from the pin: its leakage and the gain stage's input current.</summary>
+    public static double PinCurrentAmps(FrontEndDesign design, double sweptCelsius) =>
+        LeakageAmps(design, sweptCelsius) + (design.Adc.GainStage?.InputCurrentAmperes ?? 0);
 }

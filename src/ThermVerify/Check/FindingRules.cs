@@ -152,8 +152,12 @@ internal static class FindingRules
     private static string LoadingCause(FrontEndDesign design, CheckPoint p)
     {
         var parts = new List<string>();
-        if (design.Adc.PinLeakageAmperes != 0)
-            parts.Add(I($"pin leakage {Bounded(Amps(Math.Abs(EffectEstimator.LeakageAmps(design, p.Celsius))), design.Adc.PinLeakageSigned, design.Adc.PinLeakageAmperes)} ") +
+        var stage = design.Adc.GainStage is { InputCurrentAmperes: not 0 } g
+            ? "the gain stage's input current " + Bounded(Amps(Math.Abs(g.InputCurrentAmperes)), g.InputCurrentSigned, g.InputCurrentAmperes) : null;
+        var leak = design.Adc.PinLeakageAmperes != 0
+            ? "pin leakage " + Bounded(Amps(Math.Abs(EffectEstimator.LeakageAmps(design, p.Celsius))), design.Adc.PinLeakageSigned, design.Adc.PinLeakageAmperes) : null;
+        if (leak is not null || stage is not null)
+            parts.Add(string.Join(" and ", new[] { leak, stage }.OfType<string>()) + " " +
                       I($"through the {Ohms(p.Estimates.SourceOhms)} the pin sees (Ohm's law) {Volts(p.Estimates.LeakageVolts)}"));
         if (design is { Divider: { } half, Bridge: { } bridge } && (half.FixedTempcoPerKelvin != 0 || bridge.HighTempcoPerKelvin != 0 || bridge.LowTempcoPerKelvin != 0))
             parts.Add(I($"the bridge's tempcos (fixed {Tempco(half.FixedTempcoPerKelvin, half.FixedTempcoSigned)}, opposite high {Tempco(bridge.HighTempcoPerKelvin, bridge.HighTempcoSigned)}, ") +
@@ -184,6 +188,9 @@ internal static class FindingRules
         if (adc.OffsetErrorLsb != 0) parts.Add("offset " + Bounded(I($"{Math.Abs(adc.OffsetErrorLsb):0.###} LSB"), adc.OffsetErrorSigned, adc.OffsetErrorLsb));
         if (adc.GainError != 0) parts.Add("gain error " + Bounded(I($"{Math.Abs(adc.GainError) * 100:0.###} %"), adc.GainErrorSigned, adc.GainError));
         if (adc.InlLsb != 0) parts.Add(I($"INL ±{adc.InlLsb:0.###} LSB as a bow"));
+        if (adc.GainStage is { GainError: not 0 } stage)
+            parts.Add(I($"the gain stage's gain error ") + Bounded(I($"{Math.Abs(stage.GainError) * 100:0.###} %"), stage.GainErrorSigned, stage.GainError)
+                      + I($" at gain {stage.Gain:G6} (G·(1 + e)·V: {p.SampleVolts / lsb * Math.Abs(stage.GainError):0.##} LSB)"));
         if (adc.ReferenceTempcoPerKelvin != 0 && !adc.IsRatiometric)
             parts.Add("reference tempco " + Bounded(I($"{Math.Abs(adc.ReferenceTempcoPerKelvin) * 1e6:0.###} ppm/K"), adc.ReferenceTempcoSigned, adc.ReferenceTempcoPerKelvin)
                       + ReferenceDrift(design, p, lsb));

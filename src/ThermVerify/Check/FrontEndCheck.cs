@@ -31,6 +31,8 @@ internal static class FrontEndCheck
         findings.AddRange(ComplianceRule.Evaluate(design, evaluation.Dc, evaluation.Temperatures, points, evaluation.Model.Adc.LsbVolts));
         findings.AddRange(CommonModeRule.Evaluate(design, evaluation.Dc, evaluation.Temperatures, points, evaluation.Model.Adc.LsbVolts));
         findings.AddRange(AmplifierRangeRule.Evaluate(design, evaluation.Dc, evaluation.Temperatures, points, evaluation.Model.Adc.LsbVolts));
+        findings.AddRange(GainRangeRule.Evaluate(design, evaluation.Dc, evaluation.Temperatures, points));
+        findings.AddRange(ChargeInjectionRule.Evaluate(design, points, evaluation.Model.Adc.LsbVolts, options));
         var buffer = design.Buffer is null ? null : Buffer.BufferCheck.Run(design, points, options);
         findings.AddRange(buffer?.Findings ?? []);
         IReadOnlyList<Finding> ordered = FindingRules.OverBudget(evaluation.Model, points, findings) is { } budget ? [budget, .. findings] : findings;
@@ -66,7 +68,6 @@ internal static class FrontEndCheck
         catch (FirmwareInputException e)
         {
             omitted = design.Netlist is not null ? "not computed yet for a netlist front end"
-                : design.CurrentSource is not null ? "not computed yet for a current-excited sensor"
                 : design.Bridge is not null ? "not computed yet for a bridge"
                 : e.Message;
             return null;

@@ -32,6 +32,7 @@ internal static class AdcReader
         "offset_error", "gain_error", "inl", "precharge", "precharge_voltage", "reference_tempco", "first_transition",
         "firmware_inverse", "noise", "kind", "input", "common_mode_range", "negative_sampling_capacitance", "negative_switch_resistance",
         "negative_pin_capacitance", "negative_pin_leakage",
+        "charge_injection", .. GainStageReader.Keys,
     ];
 
     private static readonly Dictionary<string, AdcInput> Inputs = new()
@@ -65,6 +66,7 @@ internal static class AdcReader
             return Common(s) with
             {
                 DeltaSigma = deltaSigma,
+                GainStage = GainStageReader.Read(s, deltaSigma.Gain),
                 SampleRateHertz = deltaSigma.DataRateHertz,
                 Precharge = PrechargeMode.LastSample,
             };
@@ -83,17 +85,23 @@ internal static class AdcReader
         if (prechargeVolts is not null && precharge != PrechargeMode.OtherChannel)
             throw s.ErrorAtKey("precharge_voltage", "precharge_voltage applies only to precharge = \"other-channel\"", "Remove it, or set precharge = \"other-channel\".");
         var (input, negative, commonMode) = ReadInputs(s);
+        var injection = s.ValueOr("charge_injection", 0, Bound.Any, UnitKind.Coulomb);
+        if (injection != 0 && s.Has("gain") | s.Has("pga_gain_error") | s.Has("pga_input_current"))
+            throw s.ErrorAtKey("charge_injection", "charge_injection is not modelled behind a programmable-gain stage yet (the sampling capacitor is behind the amplifier, the multiplexer in front of it)",
+                "Remove charge_injection, or the gain stage's keys (gain, pga_gain_error, pga_input_current).");
         return common with
         {
             Input = input,
             NegativeInput = negative,
             CommonModeRange = commonMode,
+            ChargeInjectionCoulombs = injection,
             SampleRateHertz = sampleRate,
             AcquisitionTimeSeconds = acquisition,
             SamplingCapacitanceFarads = s.RequiredValue("sampling_capacitance", Bound.Positive, "Write sampling_capacitance = \"5 pF\".", UnitKind.Farad),
             SwitchResistanceOhms = s.RequiredValue("switch_resistance", Bound.NonNegative, "Write switch_resistance = \"1 kohm\" (sampling switch on-resistance).", UnitKind.Ohm),
             Precharge = precharge,
             PrechargeVolts = prechargeVolts,
+            GainStage = GainStageReader.Read(s, null),
         };
     }
 

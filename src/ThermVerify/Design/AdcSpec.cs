@@ -43,6 +43,10 @@ public sealed record AdcSpec
 {
     /// <summary>The delta-sigma converter's input and filter; null for a successive-approximation converter.</summary>
     public DeltaSigmaSpec? DeltaSigma { get; init; }
+    /// <summary>The programmable-gain stage ahead of the converter; null: the pin drives the converter itself.</summary>
+    public GainStageSpec? GainStage { get; init; }
+    /// <summary>G, the programmable gain (1 without a gain stage): full scale at the pin is the reference over it.</summary>
+    public double ProgrammableGain => GainStage?.Gain ?? 1;
     public ConverterKind Kind => DeltaSigma is null ? ConverterKind.SuccessiveApproximation : ConverterKind.DeltaSigma;
     public required int Bits { get; init; }
     /// <summary>Null when the reference is the divider's excitation (ratiometric).</summary>
@@ -70,6 +74,11 @@ public sealed record AdcSpec
     public double InlLsb { get; init; }
     /// <summary>Reference tempco, fraction per kelvin, at the sign written; the reference sits at the board temperature (fixed reference only).</summary>
     public double ReferenceTempcoPerKelvin { get; init; }
+    /// <summary>
+    /// The charge the multiplexer's switch puts into the pin at each switch event (the acquisition window opening),
+    /// coulombs, positive into the pin; taken as written (a successive-approximation converter only).
+    /// </summary>
+    public double ChargeInjectionCoulombs { get; init; }
     public PrechargeMode Precharge { get; init; } = PrechargeMode.Worst;
     /// <summary>Voltage left by the other channel; null: analyses take the worse of 0 V and full scale.</summary>
     public double? PrechargeVolts { get; init; }

@@ -258,6 +258,14 @@ internal static partial class DesignWriter
         w.Value("offset_error", a.OffsetErrorLsb, UnitKind.Lsb, a.OffsetErrorSigned);
         w.Value("gain_error", a.GainError, UnitKind.Percent, a.GainErrorSigned);
         w.Value("inl", a.InlLsb, UnitKind.Lsb);
+        if (a.GainStage is { } g)
+        {
+            // A delta-sigma converter's gain is written with its own keys below.
+            if (a.DeltaSigma is null)
+                w.Number("gain", g.Gain);
+            w.Value("pga_gain_error", g.GainError, UnitKind.Percent, g.GainErrorSigned);
+            w.Value("pga_input_current", g.InputCurrentAmperes, UnitKind.Ampere, g.InputCurrentSigned);
+        }
         if (a.DeltaSigma is null)
             w.Text("precharge", a.Precharge switch
             {
@@ -266,6 +274,8 @@ internal static partial class DesignWriter
                 PrechargeMode.Discharged => "discharged",
                 _ => "worst",
             });
+        if (a.ChargeInjectionCoulombs != 0)
+            w.Value("charge_injection", a.ChargeInjectionCoulombs, UnitKind.Coulomb);
         if (a.PrechargeVolts is { } pv)
             w.Value("precharge_voltage", pv, UnitKind.Volt);
         // The input is written where it is not the default single-ended one (whose normal form stays as it was).

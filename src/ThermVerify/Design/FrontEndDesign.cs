@@ -52,4 +52,10 @@ public sealed record FrontEndDesign
     public double NominalReferenceVolts =>
         Adc.ReferenceVolts ?? CurrentSource?.NominalReferenceVolts ?? Divider?.ExcitationVolts ?? Netlist?.ReferenceVolts
         ?? throw new InvalidOperationException($"{Name} has no reference.");
+
+    /// <summary>
+    /// Full scale referred to the pin: the reference over the programmable gain (the reference itself without a gain
+    /// stage). Every analysis works on the pin's scale, so the gain enters as the converter's LSB at the pin.
+    /// </summary>
+    public double FullScaleAtPinVolts => NominalReferenceVolts / Adc.ProgrammableGain;
 }

@@ -37,6 +37,7 @@ internal static partial class Plausibility
         [UnitKind.VoltPerKelvin] = new(1e-15, 1e-2),
         [UnitKind.Degree] = new(1e-3, 360),
         [UnitKind.KelvinPerSecond] = new(1e-9, 1e3),
+        [UnitKind.Coulomb] = new(1e-18, 1e-6),
     };
 
     /// <summary>Keys whose plausible range is narrower than their kind's (key path without table-array indices).</summary>

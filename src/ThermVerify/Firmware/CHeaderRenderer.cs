@@ -29,7 +29,10 @@ public static class CHeaderRenderer
         Line($" * Written by thermverify; regenerate it from the design rather than editing it.");
         Line($" *");
         Line($" * Sensor:  {Ascii(m.Sensor.Description)}");
-        Line($" * Divider: sensor on the {(m.Side == SensorSide.Low ? "low side (to ground)" : "high side (to the excitation)")}, fixed resistor {m.FixedOhms:G6} ohm, excitation {m.ExcitationVolts:G6} V");
+        if (m.ExcitationAmperes is { } amps)
+            Line($" * Current source: {amps:G6} A through the sensor, node = I*R_s; reference resistor (or V_ref/I) {m.FixedOhms:G6} ohm");
+        else
+            Line($" * Divider: sensor on the {(m.Side == SensorSide.Low ? "low side (to ground)" : "high side (to the excitation)")}, fixed resistor {m.FixedOhms:G6} ohm, excitation {m.ExcitationVolts:G6} V");
         Line($" * ADC:     {m.Adc.Bits} bits, reference {m.Adc.ReferenceVolts:G6} V, LSB {m.Adc.LsbVolts:G6} V");
         Line($" * Codes:   {m.Adc.Describe()}");
         Line($" * Range:   {m.Range.MinCelsius:0.###} to {m.Range.MaxCelsius:0.###} degC, codes {t.Span.FirstCode} to {t.Span.LastCode}; temperature {(t.Span.TemperatureRisesWithCode ? "rises" : "falls")} with code");

@@ -24,10 +24,29 @@ public sealed record FirmwareModel(
     TemperatureRange Range,
     Func<double, double>? LoadingCorrectionVolts = null)
 {
+    /// <summary>
+    /// A current through the sensor instead of a divider (null: a divider): the node is I·R_s and the firmware reads
+    /// R_s = V/I. <see cref="FixedOhms"/> is then the reference resistor (or V_ref/I without one) and
+    /// <see cref="ExcitationVolts"/> = I·<see cref="FixedOhms"/>; <see cref="Side"/> means nothing.
+    /// </summary>
+    public double? ExcitationAmperes { get; init; }
+
+    /// <summary>The unloaded node voltage for a sensor resistance: the divider's output, or I·R_s.</summary>
+    public double UnloadedVolts(double sensorOhms) => ExcitationAmperes is { } amps
+        ? amps * sensorOhms
+        : DividerFormula.OutputVolts(Side, ExcitationVolts, sensorOhms, FixedOhms);
+
+    /// <summary>The sensor resistance behind an unloaded node voltage: the divider's inverse, or V/I.</summary>
+    public double SensorOhmsAt(double unloadedVolts) => ExcitationAmperes is { } amps
+        ? unloadedVolts / amps
+        : DividerFormula.SensorOhms(Side, ExcitationVolts, unloadedVolts, FixedOhms);
+
     /// <summary>Throws <see cref="FirmwareInputException"/> naming the first parameter that cannot make a table.</summary>
     public FirmwareModel Validated()
     {
         ArgumentNullException.ThrowIfNull(Sensor);
+        if (ExcitationAmperes is { } amps && !(double.IsFinite(amps) && amps > 0))
+            throw new FirmwareInputException(Invariant($"The excitation current is {amps} A; give a positive finite current."));
         if (!(double.IsFinite(FixedOhms) && FixedOhms > 0))
             throw new FirmwareInputException(Invariant($"The fixed resistor is {FixedOhms} Ω; give a positive finite resistance."));
         if (!(double.IsFinite(ExcitationVolts) && ExcitationVolts > 0))
@@ -46,7 +65,7 @@ public sealed record FirmwareModel(
     /// <summary>The voltage at the ADC node for a sensor at <paramref name="celsius"/>, with the loading correction if any.</summary>
     public double NodeVolts(double celsius)
     {
-        var unloaded = DividerFormula.OutputVolts(Side, ExcitationVolts, Sensor.ResistanceOhms(celsius), FixedOhms);
+        var unloaded = UnloadedVolts(Sensor.ResistanceOhms(celsius));
         return LoadingCorrectionVolts is null ? unloaded : unloaded + LoadingCorrectionVolts(unloaded);
     }
 

@@ -12,9 +12,12 @@ namespace ThermVerify.FrontEnd;
 /// </summary>
 public readonly record struct AdcTransfer(int Bits, double ReferenceVolts)
 {
-    /// <summary>The nominal converter of a design as its firmware sees it (reference: the excitation of a ratiometric divider, I·R_ref with a reference resistor).</summary>
+    /// <summary>
+    /// The nominal converter of a design as its firmware sees it, referred to the pin (reference: the excitation of a
+    /// ratiometric divider, I·R_ref with a reference resistor; over the programmable gain when there is one).
+    /// </summary>
     public static AdcTransfer Of(FrontEndDesign design) =>
-        new(design.Adc.Bits, design.NominalReferenceVolts)
+        new(design.Adc.Bits, design.FullScaleAtPinVolts)
         {
             FirstTransition = design.Adc.FirstTransition,
             Inverse = design.Adc.FirmwareInverse,

@@ -66,9 +66,10 @@ internal static class ErrorModel
         var board = design.Check.BoardCelsius;
         var heat = SelfHeating.PinVolts(design, sensor, temperatures, dc.Base.DividerVolts);
         var corners = dc.Corners.Count;
-        // A reference the circuit makes (a reference resistor) is read from the corner's own sweep.
+        // A reference the circuit makes (a reference resistor) is read from the corner's own sweep, over the
+        // programmable gain (the converter's scale at the pin).
         var lsb = Enumerable.Range(0, corners).Select(k => dc.Corners[k].ReferenceVolts is { } reference
-            ? reference.Select(v => v / (1 << converter.Bits)).ToArray()
+            ? reference.Select(v => v / design.Adc.ProgrammableGain / (1 << converter.Bits)).ToArray()
             : temperatures.Select(t => converter.LsbVoltsAt(board ?? t, k)).ToArray()).ToArray();
         return new ErrorInputs(temperatures, [.. dc.Corners.Select(c => c.StaticPinVolts)], [.. dc.Corners.Select(c => c.AveragePinVolts)],
             firstOffsets, steadyOffsets, heat, lsb, [.. Enumerable.Range(0, corners).Select(k => converter.Cases[Math.Min(k, converter.Cases.Count - 1)])], converter.Bits)

@@ -35,7 +35,8 @@ internal static class FrontEndCircuit
     public static Circuit Dc(FrontEndDesign design, double? prechargeVolts, double? celsius = null)
     {
         var elements = Front(design, celsius);
-        if (prechargeVolts is { } pre)
+        // Behind a gain stage the acquisition draws its charge from the amplifier, not from the pin.
+        if (prechargeVolts is { } pre && design.Adc.GainStage is null)
         {
             elements.Add(new VoltageSource("Vprecharge", Precharge, Circuit.Ground, new DcWaveform(pre)));
             elements.Add(new Resistor("Rsampling", PinNode(design), Precharge, 1 / (design.Adc.SampleRateHertz * design.Adc.SamplingCapacitanceFarads)));
@@ -54,8 +55,10 @@ internal static class FrontEndCircuit
         var adc = design.Adc;
         var period = 1 / adc.SampleRateHertz;
         var elements = Front(design, celsius);
+        if (adc.ChargeInjectionCoulombs != 0)
+            ChargeInjection.Add(elements, design, conversions);
         elements.Add(new Capacitor("Csample", Hold, Circuit.Ground, adc.SamplingCapacitanceFarads));
-        elements.Add(new TimedSwitch(SamplingSwitch, PinNode(design), Hold, Math.Max(adc.SwitchResistanceOhms, MinimumSwitchOhms), SwitchOffOhms,
+        elements.Add(new TimedSwitch(SamplingSwitch, SampledNode(design, elements), Hold, Math.Max(adc.SwitchResistanceOhms, MinimumSwitchOhms), SwitchOffOhms,
             new PeriodicSchedule(period - adc.AcquisitionTimeSeconds, period, adc.AcquisitionTimeSeconds, conversions)));
         if (prechargeVolts is { } pre)
         {
@@ -80,6 +83,20 @@ internal static class FrontEndCircuit
             }
         }
         return new Circuit(elements, celsius ?? 25);
+    }
+
+    /// <summary>
+    /// The node the sampling switch takes its charge from: the pin, or with a gain stage the amplifier's output. The
+    /// amplifier is an ideal voltage-controlled source of gain 1 from the pin: every analysis works on the pin's scale
+    /// (full scale V_ref/G), where the amplifier's output G·V_pin reads as V_pin, and what matters physically is that
+    /// the acquisition's charge comes from its output, not from the pin (the pin sees its input current alone). Its gain
+    /// error is the converter's business (ConverterErrors), not the circuit's.
+    /// </summary>
+    private static string SampledNode(FrontEndDesign design, List<Element> elements)
+    {
+        if (design.Adc.GainStage is null) return PinNode(design);
+        elements.Add(new Vcvs(GainStageElement, GainStageOutput, Circuit.Ground, PinNode(design), Circuit.Ground, 1));
+        return GainStageOutput;
     }
 
     /// <summary>Time between the precharge switch opening and the sampling switch closing.</summary>
@@ -162,6 +179,9 @@ internal static class FrontEndCircuit
                     ? new CurrentSource("Ileakn", BridgeNegative, Circuit.Ground, new DcWaveform(design.Adc.NegativeLeakageAmperesAt(b)))
                     : new LeakageCurrentSource("Ileakn", BridgeNegative, Circuit.Ground, design.Adc.NegativeLeakageAmperesAt(25), design.Adc.LeakageDoublingKelvin));
         }
+        // The gain stage's input current, positive into its input (pulling the pin down, as the pin leakage).
+        if (design.Adc.GainStage is { InputCurrentAmperes: not 0 } stage)
+            elements.Add(new CurrentSource(GainStageInputElement, pin, Circuit.Ground, new DcWaveform(stage.InputCurrentAmperes)));
         ProtectionCircuit.Add(elements, design, pin);
         // With nothing else at the pin, the series resistor alone would leave it floating in the DC circuit: the
         // converter's input is there, with its sampling switch open (the sampling circuit's off resistance).

@@ -57,7 +57,12 @@ internal static class FrontEndNodes
     /// <summary>The potential the insulation leaks to, when it is not ground.</summary>
     public const string InsulationPotential = "ins";
 
+    /// <summary>The programmable-gain stage's output, which the sampling switch of a converter behind it takes its charge from.</summary>
+    public const string GainStageOutput = "pga";
+
     public const string SensorElement = "Rsensor";
+    public const string GainStageElement = "Epga";
+    public const string GainStageInputElement = "Ipga";
     public const string CurrentSourceElement = "Iexc";
     public const string ReferenceResistorElement = "Rref";
     public const string FixedElement = "Rfixed";

@@ -7,8 +7,8 @@ internal sealed record CircuitBound(string Key, double Magnitude, Func<FrontEndD
 
 /// <summary>
 /// The design's static errors written without a sign, which the check takes as bounds (docs/methods.md): pin leakage, the clamp diodes' leakage,
-/// the fixed resistor's tempco, and the op-amp's offset, drift and bias current enter the circuit; the converter's
-/// offset and gain errors and the reference's tempco are converter properties, and INL is always a bound. Errors
+/// the fixed resistor's tempco, the gain stage's input current, and the op-amp's offset, drift and bias current enter the circuit; the converter's
+/// offset and gain errors (the gain stage's with them) and the reference's tempco are converter properties, and INL is always a bound. Errors
 /// written with a sign are part of the design as it stands.
 /// </summary>
 internal static class StaticBounds
@@ -29,6 +29,9 @@ internal static class StaticBounds
             Add("bridge.opposite_high_tempco", bridge.HighTempcoPerKelvin, bridge.HighTempcoSigned, (x, v) => x with { Bridge = x.Bridge! with { HighTempcoPerKelvin = v } });
             Add("bridge.opposite_low_tempco", bridge.LowTempcoPerKelvin, bridge.LowTempcoSigned, (x, v) => x with { Bridge = x.Bridge! with { LowTempcoPerKelvin = v } });
         }
+        if (d.Adc.GainStage is { } stage)
+            Add("adc.pga_input_current", stage.InputCurrentAmperes, stage.InputCurrentSigned,
+                (x, v) => x with { Adc = x.Adc with { GainStage = x.Adc.GainStage! with { InputCurrentAmperes = v } } });
         if (d.Divider is { } divider)
             Add(d.Bridge is null ? "divider.fixed_tempco" : "bridge.fixed_tempco", divider.FixedTempcoPerKelvin, divider.FixedTempcoSigned, (x, v) => x with { Divider = x.Divider! with { FixedTempcoPerKelvin = v } });
         if (d.CurrentSource is { } source)
@@ -76,5 +79,6 @@ internal static class StaticBounds
     public static bool Any(FrontEndDesign d) =>
         InCircuit(d).Count > 0 || d.Adc.InlLsb != 0
         || (d.Adc.OffsetErrorLsb != 0 && !d.Adc.OffsetErrorSigned) || (d.Adc.GainError != 0 && !d.Adc.GainErrorSigned)
-        || (!d.Adc.IsRatiometric && d.Adc.ReferenceTempcoPerKelvin != 0 && !d.Adc.ReferenceTempcoSigned);
+        || (!d.Adc.IsRatiometric && d.Adc.ReferenceTempcoPerKelvin != 0 && !d.Adc.ReferenceTempcoSigned)
+        || d.Adc.GainStage is { GainError: not 0, GainErrorSigned: false };
 }

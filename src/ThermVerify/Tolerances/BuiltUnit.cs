@@ -58,6 +58,15 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
                 ReferenceResistorTempcoSigned = true,
             }
             : null;
+        var stage = nominal.Adc.GainStage is { } g
+            ? g with
+            {
+                GainError = Bound(ToleranceKind.GainStageGain, g.GainError),
+                GainErrorSigned = true,
+                InputCurrentAmperes = Bound(ToleranceKind.GainStageInputCurrent, g.InputCurrentAmperes),
+                InputCurrentSigned = true,
+            }
+            : null;
         var adc = nominal.Adc with
         {
             PinLeakageAmperes = nominal.Adc.PinLeakageAmperes * (1 + Dev(ToleranceKind.Leakage)),
@@ -65,6 +74,7 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
             NegativeInput = nominal.Adc.NegativeInput is { } n
                 ? n with { PinLeakageAmperes = n.PinLeakageAmperes * (1 + Dev(ToleranceKind.Leakage)), PinLeakageSigned = true }
                 : null,
+            GainStage = stage,
         };
         var buffer = nominal.Buffer is { } b
             ? b with
@@ -109,10 +119,11 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
             Buffer = buffer,
             Amplifier = amplifier,
         };
-        var reference = nominal.Adc.ReferenceVolts is { } v ? v * (1 + Dev(ToleranceKind.Reference)) : design.NominalReferenceVolts;
+        // The converter's scale at the pin: its reference over the programmable gain.
+        var reference = (nominal.Adc.ReferenceVolts is { } v ? v * (1 + Dev(ToleranceKind.Reference)) : design.NominalReferenceVolts) / nominal.Adc.ProgrammableGain;
         var tempco = nominal.Adc.IsRatiometric ? 0 : Bound(ToleranceKind.ReferenceTempco, nominal.Adc.ReferenceTempcoPerKelvin);
         var errors = new ConverterErrors(Bound(ToleranceKind.AdcOffset, nominal.Adc.OffsetErrorLsb),
-            Bound(ToleranceKind.AdcGain, nominal.Adc.GainError), Dev(ToleranceKind.AdcInl));
+            ConverterErrors.WithAmplifier(Bound(ToleranceKind.AdcGain, nominal.Adc.GainError), stage?.GainError ?? 0), Dev(ToleranceKind.AdcInl));
         return new BuiltUnit(design, sensor, new Converter(nominal.Adc.Bits, reference, tempco, [errors], TempcoIsBound: false));
     }
 

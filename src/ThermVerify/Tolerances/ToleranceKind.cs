@@ -59,4 +59,8 @@ public enum ToleranceKind
     AmplifierBias,
     /// <summary>The clamp diodes' net reverse leakage, spread over ±|leakage| (one diode or the other leaking).</summary>
     ClampLeakage,
+    /// <summary>The programmable-gain stage's gain error, spread over ±|error| (a fraction).</summary>
+    GainStageGain,
+    /// <summary>The programmable-gain stage's input current, spread over ±|current|.</summary>
+    GainStageInputCurrent,
 }

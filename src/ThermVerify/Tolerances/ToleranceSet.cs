@@ -88,6 +88,11 @@ internal sealed class ToleranceSet
         Add(ToleranceKind.AdcOffset, "adc.offset_error", adc.OffsetErrorLsb, "LSB", adc.OffsetErrorSigned);
         Add(ToleranceKind.AdcGain, "adc.gain_error", adc.GainError, "", adc.GainErrorSigned);
         Add(ToleranceKind.AdcInl, "adc.inl", adc.InlLsb, "LSB");
+        if (adc.GainStage is { } stage)
+        {
+            Add(ToleranceKind.GainStageGain, "adc.pga_gain_error", stage.GainError, "", stage.GainErrorSigned);
+            Add(ToleranceKind.GainStageInputCurrent, "adc.pga_input_current", stage.InputCurrentAmperes, "A", stage.InputCurrentSigned);
+        }
         if (design.Buffer is { } buffer)
         {
             Add(ToleranceKind.BufferOffset, "buffer.offset_voltage", buffer.OffsetVolts, "V", buffer.OffsetSigned);

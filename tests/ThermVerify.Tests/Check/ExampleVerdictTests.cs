@@ -41,6 +41,7 @@ public class ExampleVerdictTests
     [InlineData("cold-storage-logger-reservoir.toml", false, "reservoir-recovery")]
     [InlineData("cold-storage-logger-bare-opamp.toml", false, "buffer-stability")]
     [InlineData("kiln-bank-pt100-deltasigma.toml", false, "channel-switch")]
+    [InlineData("stability-chamber-pt100-pga.toml", true, null)]
     public void Example_shows_its_verdict(string example, bool passes, string? failingFinding)
     {
         var result = Checked(example);
