@@ -101,15 +101,19 @@ internal static class NetlistReader
     }
 
     /// <summary>The DC value of the voltage source that drives the reference node from ground.</summary>
-    private static double ReferenceVolts(TomlSection s, string node, ParsedNetlist parsed)
+    private static double ReferenceVolts(TomlSection s, string node, ParsedNetlist parsed) =>
+        ReferenceSourceVolts(parsed, node) ?? throw s.ErrorAtValue("reference", $"no DC voltage source drives node {node} from ground",
+            "Name the node a DC source drives from ground (e.g. the excitation's top); other reference nodes are not supported yet.");
+
+    /// <summary>The voltage the first DC source that drives <paramref name="node"/> from ground holds it at; null when none does.</summary>
+    internal static double? ReferenceSourceVolts(ParsedNetlist parsed, string node)
     {
         foreach (var e in parsed.Elements.Where(e => e.Kind == 'V' && e.Pulse is null))
         {
             if (e.Nodes[0] == node && e.Nodes[1] == "0") return e.Value;
             if (e.Nodes[1] == node && e.Nodes[0] == "0") return -e.Value;
         }
-        throw s.ErrorAtValue("reference", $"no DC voltage source drives node {node} from ground",
-            "Name the node a DC source drives from ground (e.g. the excitation's top); other reference nodes are not supported yet.");
+        return null;
     }
 
     private static void CheckReserved(ParsedNetlist parsed, string keyPath)

@@ -41,4 +41,8 @@ public enum ToleranceKind
     CurrentMismatch,
     /// <summary>The clamp diodes' net reverse leakage, spread over ±|leakage| (one diode or the other leaking).</summary>
     ClampLeakage,
+    /// <summary>A netlist part's value ([[netlist.part]] tolerance), as a fraction; the element is <see cref="ToleranceParameter.Element"/>.</summary>
+    NetlistPartValue,
+    /// <summary>A netlist resistor's tempco, spread over ±|tempco|; the element is <see cref="ToleranceParameter.Element"/>.</summary>
+    NetlistPartTempco,
 }

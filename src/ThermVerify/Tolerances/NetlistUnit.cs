@@ -1,0 +1,36 @@
+using ThermVerify.Design;
+
+namespace ThermVerify.Tolerances;
+
+/// <summary>
+/// A built unit's netlist: each [[netlist.part]] at its own value (the element's value scaled by its deviation) and
+/// its own tempco (a bound spread about zero becomes the unit's value, written with its sign). The ratiometric
+/// reference is the voltage of the source that drives the reference node, so a tolerance on that source moves the
+/// unit's reference with it, as a divider's excitation tolerance moves a ratiometric divider's reference.
+/// </summary>
+internal static class NetlistUnit
+{
+    public static NetlistSpec Build(NetlistSpec nominal, ToleranceSet set, IReadOnlyList<double> deviations)
+    {
+        double Dev(ToleranceKind kind, string element)
+        {
+            var i = set.IndexOf(kind, element);
+            return i < 0 ? 0 : deviations[i];
+        }
+
+        var elements = nominal.Parsed.Elements
+            .Select(e => set.IndexOf(ToleranceKind.NetlistPartValue, e.Name) < 0 ? e : e with { Value = e.Value * (1 + Dev(ToleranceKind.NetlistPartValue, e.Name)) })
+            .ToList();
+        // Only a spread tempco becomes the unit's own: a tempco written with a sign, or none (where the card's tc1/tc2 count), stays as written.
+        var parts = nominal.Parts
+            .Select(p => set.IndexOf(ToleranceKind.NetlistPartTempco, p.Name) < 0 ? p : p with { TempcoPerKelvin = Dev(ToleranceKind.NetlistPartTempco, p.Name), TempcoSigned = true })
+            .ToList();
+        var parsed = nominal.Parsed with { Elements = elements };
+        return nominal with
+        {
+            Parsed = parsed,
+            Parts = parts,
+            ReferenceVolts = nominal.ReferenceNode is { } node ? NetlistReader.ReferenceSourceVolts(parsed, node) : null,
+        };
+    }
+}
