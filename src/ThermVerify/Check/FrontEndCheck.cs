@@ -63,8 +63,7 @@ internal static class FrontEndCheck
         }
         catch (FirmwareInputException e)
         {
-            omitted = design.Netlist is not null ? "not computed yet for a netlist front end"
-                : design.CurrentSource is not null ? "not computed yet for a current-excited sensor"
+            omitted = design.CurrentSource is not null ? "not computed yet for a current-excited sensor"
                 : e.Message;
             return null;
         }

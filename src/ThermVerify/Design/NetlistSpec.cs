@@ -48,6 +48,20 @@ public sealed record NetlistSpec
 
     public override int GetHashCode() => HashCode.Combine(File, PinNode, ReferenceNode, Parts.Count);
 
+    /// <summary>
+    /// The netlist with some elements' values scaled by (1 + fraction) (a built unit, a tolerance corner), by element
+    /// name; the reference voltage follows the source that drives the reference node, so a ratiometric reference moves
+    /// with it.
+    /// </summary>
+    internal NetlistSpec WithScaledValues(IReadOnlyDictionary<string, double> fractions)
+    {
+        var parsed = Parsed with
+        {
+            Elements = [.. Parsed.Elements.Select(e => fractions.TryGetValue(e.Name, out var f) ? e with { Value = e.Value * (1 + f) } : e)],
+        };
+        return this with { Parsed = parsed, ReferenceVolts = ReferenceNode is { } node ? NetlistReader.ReferenceSourceVolts(parsed, node) : null };
+    }
+
     /// <summary>The part entry of an element, if the design gives one.</summary>
     public NetlistPartSpec? Part(string element) =>
         Parts.FirstOrDefault(p => p.Name.Equals(element, StringComparison.OrdinalIgnoreCase));

@@ -18,7 +18,7 @@ internal static class CodeTemperatures
     public static double TrueCelsiusAtVolts(FirmwareModel model, double volts)
     {
         var unloaded = UnloadedVolts(model, volts);
-        var ohms = DividerFormula.SensorOhms(model.Side, model.ExcitationVolts, unloaded, model.FixedOhms);
+        var ohms = model.SensorOhms(unloaded);
         if (!double.IsFinite(ohms)) return double.NaN;
         try
         {

@@ -14,6 +14,7 @@ internal static class FaultAnalysis
     {
         model.Validated();
         tolerances.Validated();
+        if (model.Netlist is { } netlist) return NetlistFaultAnalysis.Thresholds(model, netlist, tolerances);
         var corners = Corners(model, tolerances).ToArray();
 
         // The high rail reads Vexc/Q at each corner; the low rail is 0 V, code 0, whatever the tolerances.

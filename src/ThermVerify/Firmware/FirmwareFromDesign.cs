@@ -16,16 +16,11 @@ internal static class FirmwareFromDesign
     public static FirmwareModel Model(FrontEndDesign design, bool correctForLoading)
     {
         ConverterSupport.RequireSuccessiveApproximation(design, "the firmware table");
-        if (design.Netlist is not null)
-            throw new FirmwareInputException(
-                "Firmware tables are made for a divider; this design is a netlist front end, whose table (through its ideal transfer, " +
-                "docs/netlists.md) is not made yet. Run check on it instead.");
-        var divider = design.Divider ?? throw new FirmwareInputException(
-            "Firmware tables are made for a divider; this design excites its sensor with a current source, whose table (R_s = V/I, " +
-            "or R_ref·code/2^N with a reference resistor) is not made yet. Run check, worstcase or montecarlo on it instead.");
         var closedForm = new ClosedFormModel(design);
-        var model = new FirmwareModel(closedForm.Sensor, divider.SensorSide, divider.FixedResistorOhms,
-            divider.ExcitationVolts, closedForm.Adc, design.Check.Range);
+        // A netlist's table inverts its ideal transfer (docs/netlists.md); the divider's fields are not used.
+        var model = design.Netlist is { } netlist
+            ? new FirmwareModel(closedForm.Sensor, SensorSide.Low, double.NaN, double.NaN, closedForm.Adc, design.Check.Range) { Netlist = netlist }
+            : DividerModel(design, closedForm);
         if (!correctForLoading) return model.Validated();
 
         var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToArray();
@@ -37,6 +32,14 @@ internal static class FirmwareFromDesign
             .Select((t, i) => (Unloaded: closedForm.At(t).IdealVolts / gain, Offset: (dc.AveragePinVolts[0][i] - closedForm.At(t).IdealVolts) / gain))
             .OrderBy(p => p.Unloaded).ToArray();
         return (model with { LoadingCorrectionVolts = v => Interpolate(points, v) }).Validated();
+    }
+
+    private static FirmwareModel DividerModel(FrontEndDesign design, ClosedFormModel closedForm)
+    {
+        var divider = design.Divider ?? throw new FirmwareInputException(
+            "Firmware tables are made for a divider or a netlist; this design excites its sensor with a current source, whose table (R_s = V/I, " +
+            "or R_ref·code/2^N with a reference resistor) is not made yet. Run check, worstcase or montecarlo on it instead.");
+        return new FirmwareModel(closedForm.Sensor, divider.SensorSide, divider.FixedResistorOhms, divider.ExcitationVolts, closedForm.Adc, design.Check.Range);
     }
 
     public static FaultTolerances Tolerances(FrontEndDesign design) => new(

@@ -24,13 +24,30 @@ public sealed record FirmwareModel(
     TemperatureRange Range,
     Func<double, double>? LoadingCorrectionVolts = null)
 {
+    /// <summary>
+    /// A netlist front end ([netlist]): the node voltage is the netlist's ideal transfer (<see cref="NetlistTransfer"/>)
+    /// instead of the divider formula, and <see cref="Side"/>, <see cref="FixedOhms"/> and <see cref="ExcitationVolts"/>
+    /// are not used.
+    /// </summary>
+    internal NetlistSpec? Netlist { get; init; }
+
+    /// <summary>The unloaded node voltage for a sensor resistance: the divider formula, or a netlist's ideal transfer.</summary>
+    internal double UnloadedVolts(double sensorOhms) => Netlist is { } n
+        ? NetlistTransfer.Of(n).OutputVolts(sensorOhms)
+        : DividerFormula.OutputVolts(Side, ExcitationVolts, sensorOhms, FixedOhms);
+
+    /// <summary>The sensor resistance behind an unloaded node voltage (NaN where none gives it).</summary>
+    internal double SensorOhms(double unloadedVolts) => Netlist is { } n
+        ? NetlistTransfer.Of(n).SensorOhms(unloadedVolts)
+        : DividerFormula.SensorOhms(Side, ExcitationVolts, unloadedVolts, FixedOhms);
+
     /// <summary>Throws <see cref="FirmwareInputException"/> naming the first parameter that cannot make a table.</summary>
     public FirmwareModel Validated()
     {
         ArgumentNullException.ThrowIfNull(Sensor);
-        if (!(double.IsFinite(FixedOhms) && FixedOhms > 0))
+        if (Netlist is null && !(double.IsFinite(FixedOhms) && FixedOhms > 0))
             throw new FirmwareInputException(Invariant($"The fixed resistor is {FixedOhms} Ω; give a positive finite resistance."));
-        if (!(double.IsFinite(ExcitationVolts) && ExcitationVolts > 0))
+        if (Netlist is null && !(double.IsFinite(ExcitationVolts) && ExcitationVolts > 0))
             throw new FirmwareInputException(Invariant($"The excitation is {ExcitationVolts} V; give a positive finite voltage."));
         if (Adc.Bits is < 1 or > 24)
             throw new FirmwareInputException(Invariant($"The ADC has {Adc.Bits} bits; firmware tables support 1 to 24 bits."));
@@ -46,7 +63,7 @@ public sealed record FirmwareModel(
     /// <summary>The voltage at the ADC node for a sensor at <paramref name="celsius"/>, with the loading correction if any.</summary>
     public double NodeVolts(double celsius)
     {
-        var unloaded = DividerFormula.OutputVolts(Side, ExcitationVolts, Sensor.ResistanceOhms(celsius), FixedOhms);
+        var unloaded = UnloadedVolts(Sensor.ResistanceOhms(celsius));
         return LoadingCorrectionVolts is null ? unloaded : unloaded + LoadingCorrectionVolts(unloaded);
     }
 

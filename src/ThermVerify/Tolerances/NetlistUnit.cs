@@ -18,19 +18,12 @@ internal static class NetlistUnit
             return i < 0 ? 0 : deviations[i];
         }
 
-        var elements = nominal.Parsed.Elements
-            .Select(e => set.IndexOf(ToleranceKind.NetlistPartValue, e.Name) < 0 ? e : e with { Value = e.Value * (1 + Dev(ToleranceKind.NetlistPartValue, e.Name)) })
-            .ToList();
+        var fractions = nominal.Parsed.Elements.Where(e => set.IndexOf(ToleranceKind.NetlistPartValue, e.Name) >= 0)
+            .ToDictionary(e => e.Name, e => Dev(ToleranceKind.NetlistPartValue, e.Name), StringComparer.OrdinalIgnoreCase);
         // Only a spread tempco becomes the unit's own: a tempco written with a sign, or none (where the card's tc1/tc2 count), stays as written.
         var parts = nominal.Parts
             .Select(p => set.IndexOf(ToleranceKind.NetlistPartTempco, p.Name) < 0 ? p : p with { TempcoPerKelvin = Dev(ToleranceKind.NetlistPartTempco, p.Name), TempcoSigned = true })
             .ToList();
-        var parsed = nominal.Parsed with { Elements = elements };
-        return nominal with
-        {
-            Parsed = parsed,
-            Parts = parts,
-            ReferenceVolts = nominal.ReferenceNode is { } node ? NetlistReader.ReferenceSourceVolts(parsed, node) : null,
-        };
+        return nominal.WithScaledValues(fractions) with { Parts = parts };
     }
 }
