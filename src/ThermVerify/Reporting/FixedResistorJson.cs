@@ -26,7 +26,7 @@ public static class FixedResistorJson
                 series = options.Series.Name.ToString(),
                 objective = ObjectiveName(options.Objective),
                 slopeCelsius = options.SlopeCelsius ?? (range.MinCelsius + range.MaxCelsius) / 2,
-                presentOhms = design.VoltageDivider.FixedResistorOhms,
+                presentOhms = FixedResistorSearch.FixedOf(design).PresentOhms,
                 presentRank = ranked.Select((c, i) => (c, i)).Where(x => x.c.IsPresent).Select(x => (int?)(x.i + 1)).FirstOrDefault(),
                 candidates = ranked.Count,
             },

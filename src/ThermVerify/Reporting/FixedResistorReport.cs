@@ -17,7 +17,7 @@ public static class FixedResistorReport
     {
         if (ranked.Count == 0) throw new ArgumentException("A fixed-resistor report needs at least one candidate.", nameof(ranked));
         var model = new ClosedFormModel(design);
-        var present = design.VoltageDivider.FixedResistorOhms;
+        var present = FixedResistorSearch.FixedOf(design).PresentOhms;
         var best = ranked[0];
         var presentRank = ranked.Select((c, i) => (c, i)).Where(x => Math.Abs(x.c.Ohms / present - 1) < 1e-9).Select(x => x.i + 1).FirstOrDefault();
         var verdict = $"Best {options.Series.Name} value by {Describe(options.Objective)}: {Ohms(best.Ohms)} ({Figure(best, options.Objective)}); " +

@@ -69,13 +69,7 @@ internal static class FixedResistorSearch
     {
         ConverterSupport.RequireSuccessiveApproximation(design, "the fixed-resistor choice");
         options ??= new FixedResistorSearchOptions();
-        if (design.Netlist is not null)
-            throw new DesignException(design.Name, 1, 1, "netlist",
-                "choose-fixed chooses a divider's fixed resistor, and this design is a netlist front end, which has no fixed resistor of the built-in shape",
-                "Run check on it; choosing a netlist part's value is not supported yet.");
-        var divider = design.Divider ?? throw new DesignException(design.Name, 1, 1, "current_source",
-            "choose-fixed chooses a divider's fixed resistor, and this design has none: a current source excites its sensor",
-            "Run check, worstcase or montecarlo on it; check's remedies give the reference resistor's tempco needed.");
+        var (present, withFixed) = FixedOf(design);
         var sensor = design.Sensor.Build();
         var range = design.Check.Range;
         var ends = new[] { sensor.ResistanceOhms(range.MinCelsius), sensor.ResistanceOhms(range.MaxCelsius) };
@@ -84,7 +78,6 @@ internal static class FixedResistorSearch
         var high = options.MaximumOhms ?? ends.Max();
         if (!(low > 0 && high >= low))
             throw new ArgumentException($"The fixed-resistor search needs 0 < minimum ≤ maximum; got {low:G4} Ω to {high:G4} Ω.");
-        var present = divider.FixedResistorOhms;
         var candidates = Candidates(options.Series, low, high);
         // The resistor fitted now is always ranked, so the gain of changing it can be judged.
         if (!candidates.Any(c => SameValue(c, present))) candidates = [.. candidates.Append(present).Order()];
@@ -94,8 +87,8 @@ internal static class FixedResistorSearch
         var done = 0;
         Parallel.For(0, candidates.Count, parallel, i =>
         {
-            results[i] = Evaluate(design with { Divider = divider with { FixedResistorOhms = candidates[i] } },
-                options.Objective, slopeAt, options.Cancel) with { IsPresent = SameValue(candidates[i], present) };
+            results[i] = Evaluate(withFixed(candidates[i]), candidates[i], options.Objective, slopeAt, options.Cancel)
+                with { IsPresent = SameValue(candidates[i], present) };
             options.Progress?.Report(new RunProgress(Interlocked.Increment(ref done), candidates.Count));
         });
         return options.Objective switch
@@ -119,13 +112,32 @@ internal static class FixedResistorSearch
         return list;
     }
 
-    private static FixedResistorCandidate Evaluate(FrontEndDesign candidate, FixedResistorObjective objective, double slopeAt,
+    /// <summary>
+    /// The design's present fixed resistor and the design with another value in its place: a divider's fixed resistor,
+    /// or the netlist resistor the design names as `fixed` in [netlist].
+    /// </summary>
+    public static (double PresentOhms, Func<double, FrontEndDesign> WithFixed) FixedOf(FrontEndDesign design)
+    {
+        if (design.Netlist is { } netlist)
+        {
+            var name = netlist.FixedElement ?? throw new DesignException(design.Name, 1, 1, "netlist.fixed",
+                "choose-fixed replaces a fixed resistor, and this netlist design names none",
+                "Name the netlist's resistor to replace in [netlist]: fixed = \"Rtop\".");
+            return (netlist.Parsed.Find(name)!.Value, ohms => design with { Netlist = netlist.WithValue(name, ohms) });
+        }
+        var divider = design.Divider ?? throw new DesignException(design.Name, 1, 1, "current_source",
+            "choose-fixed chooses a divider's fixed resistor, and this design has none: a current source excites its sensor",
+            "Run check, worstcase or montecarlo on it; check's remedies give the reference resistor's tempco needed.");
+        return (divider.FixedResistorOhms, ohms => design with { Divider = divider with { FixedResistorOhms = ohms } });
+    }
+
+    private static FixedResistorCandidate Evaluate(FrontEndDesign candidate, double ohms, FixedResistorObjective objective, double slopeAt,
         CancellationToken cancel)
     {
         var model = new ClosedFormModel(candidate);
         var slope = Math.Abs(model.At(slopeAt).VoltsPerKelvin);
         if (objective == FixedResistorObjective.SlopeAt)
-            return new FixedResistorCandidate(candidate.VoltageDivider.FixedResistorOhms, double.NaN, double.NaN, double.NaN, slope, double.NaN, false);
+            return new FixedResistorCandidate(ohms, double.NaN, double.NaN, double.NaN, slope, double.NaN, false);
 
         var check = FrontEndCheck.Run(candidate, new CheckOptions
         {
@@ -139,7 +151,7 @@ internal static class FixedResistorSearch
         var worst = Enumerable.Range(0, errors.Length).MaxBy(i => Key(Math.Abs(errors[i])));
         var within = Enumerable.Range(0, errors.Length).All(i => double.IsFinite(errors[i]) && Math.Abs(errors[i]) <= points[i].BudgetKelvin);
         var margin = Enumerable.Range(0, errors.Length).Min(i => double.IsFinite(errors[i]) ? points[i].BudgetKelvin - Math.Abs(errors[i]) : double.NegativeInfinity);
-        return new FixedResistorCandidate(candidate.VoltageDivider.FixedResistorOhms, errors[worst], points[worst].Celsius,
+        return new FixedResistorCandidate(ohms, errors[worst], points[worst].Celsius,
             points.Max(p => p.KelvinPerLsb), slope, rise.DefaultIfEmpty(0).Max(), within) { MarginKelvin = margin };
     }
 

@@ -17,7 +17,7 @@ public static class FixedResistorText
         var text = new StringBuilder();
         var seriesValues = ranked.Count(c => !c.IsPresent || series.Contains(c.Ohms));
         var presentApart = seriesValues < ranked.Count ? " and the present value" : "";
-        text.AppendLine(Invariant($"{design.Name}: {seriesValues} {series} candidates{presentApart}, ranked by {FixedResistorReport.Describe(goal)}; now {Ohms(design.VoltageDivider.FixedResistorOhms)}"));
+        text.AppendLine(Invariant($"{design.Name}: {seriesValues} {series} candidates{presentApart}, ranked by {FixedResistorReport.Describe(goal)}; now {Ohms(FixedResistorSearch.FixedOf(design).PresentOhms)}"));
         ProvenanceText.Append(text, provenance);
         var table = new TextTable("rank", "R_fixed", "worst error (K)", "at (°C)", "worst K/LSB", "|dV/dT| (mV/K)", "self-heating (mK)", "margin (K)", "budget");
         var shown = Math.Max(1, top);
