@@ -90,7 +90,7 @@ public class NetlistToleranceTests
         return 1 / (1 / kelvin - Math.Log(1 + delta) / Beta) - kelvin;
     }
 
-    private static FrontEndDesign HandDivider(string part, string? board = null, string source = "")
+    private static FrontEndDesign HandDivider(string part, string? board = null, string source = "", bool fixedReference = false)
     {
         var folder = Directory.CreateTempSubdirectory("tv-netlist-tol-");
         try
@@ -107,14 +107,14 @@ public class NetlistToleranceTests
                 file = "d.cir"
                 sensor = "Rntc"
                 pin = "mid"
-                reference = "top"
+                {(fixedReference ? "" : "reference = \"top\"")}
                 excitation = ["Vexc"]
                 [[netlist.part]]
                 {part}
                 {source}
                 [adc]
                 bits = 16
-                reference = "ratiometric"
+                reference = "{(fixedReference ? "3.3 V" : "ratiometric")}"
                 sample_rate = "1 kHz"
                 acquisition_time = "10 us"
                 sampling_capacitance = "5 pF"
@@ -173,6 +173,43 @@ public class NetlistToleranceTests
             var central = (ReadKelvinError(c, 0.006) - ReadKelvinError(c, -0.006)) / 2;
             Tolerance.AssertClose(central, sensitivity.KelvinPerUnit[i] * 100e-6, 0, 5e-6, $"tempco's effect at {c} °C");
             Tolerance.AssertClose(ReadKelvinError(c, 0.006), result.Points[i].HighKelvin, 0, 3e-3, $"high corner at {c} °C");
+        }
+    }
+
+    [Fact]
+    public void A_netlist_parts_tempco_follows_the_sweep_without_a_board_temperature()
+    {
+        // No board temperature: the top resistor sits at the swept temperature, off by ±100 ppm/K·(T − 25 °C).
+        var result = WorstCase.Run(HandDivider("name = \"Rtop\"\ntempco = \"100 ppm/K\""), new WorstCaseOptions { Threads = 2 });
+        var sensitivity = Assert.Single(result.Sensitivities);
+        for (var i = 0; i < result.Points.Count; i++)
+        {
+            var c = result.Points[i].Celsius;
+            var delta = 100e-6 * (c - 25);
+            var central = (ReadKelvinError(c, delta) - ReadKelvinError(c, -delta)) / 2;
+            Tolerance.AssertClose(central, sensitivity.KelvinPerUnit[i] * 100e-6, 0, 5e-6, $"tempco's effect at {c} °C");
+        }
+    }
+
+    [Fact]
+    public void A_tolerance_on_the_excitation_counts_against_a_fixed_reference()
+    {
+        // A 3.3 V reference of its own: the excitation 1 % high moves the pin 1 % high, v' = (1 + δ)·E·R/(R + R_top); the
+        // firmware inverts with the nominal E and R_top, R' = R_top·v'/(E − v') (Ohm's law), then the β equation.
+        var result = WorstCase.Run(HandDivider("name = \"Vexc\"\ntolerance = \"1 %\"", fixedReference: true), new WorstCaseOptions { Threads = 2 });
+        var sensitivity = Assert.Single(result.Sensitivities);
+        double Read(double celsius, double delta)
+        {
+            var r = R25 * Math.Exp(Beta * (1 / (celsius + 273.15) - 1 / 298.15));
+            var v = (1 + delta) * 3.3 * r / (r + Top);
+            var read = Top * v / (3.3 - v);
+            return 1 / (1 / 298.15 + Math.Log(read / R25) / Beta) - 273.15 - celsius;
+        }
+        for (var i = 0; i < result.Points.Count; i++)
+        {
+            var c = result.Points[i].Celsius;
+            Tolerance.AssertClose((Read(c, 0.01) - Read(c, -0.01)) / 2, sensitivity.KelvinPerUnit[i] * 0.01, 0, 5e-6, $"excitation's effect at {c} °C");
+            Tolerance.AssertClose(Math.Max(Read(c, 0.01), Read(c, -0.01)), result.Points[i].HighKelvin, 0, 3e-3, $"high corner at {c} °C");
         }
     }
 
