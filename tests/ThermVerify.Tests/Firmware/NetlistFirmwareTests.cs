@@ -39,10 +39,9 @@ public class NetlistFirmwareTests
         var (a, b) = (shape.Faults, netlist.Faults);
         Assert.Equal((a.LowestValidCode, a.HighestValidCode, a.FaultBelowCode, a.FaultAboveCode),
             (b.LowestValidCode, b.HighestValidCode, b.FaultBelowCode, b.FaultAboveCode));
-        // The netlist names no fixed resistor: its faults are the sensor's, at the codes the divider's sensor faults read.
-        Assert.Equal([FaultKind.SensorOpen, FaultKind.SensorShorted], b.Faults.Select(f => f.Kind));
-        Assert.Equal(a.For(FaultKind.SensorOpen), b.For(FaultKind.SensorOpen));
-        Assert.Equal(a.For(FaultKind.SensorShorted), b.For(FaultKind.SensorShorted));
+        // The netlist names Rfixed as its fixed resistor: the four faults read the divider's codes.
+        Assert.Equal([FaultKind.SensorOpen, FaultKind.SensorShorted, FaultKind.FixedOpen, FaultKind.FixedShorted], b.Faults.Select(f => f.Kind));
+        Assert.Equal(a.Faults, b.Faults);
     }
 
     [Fact]
@@ -77,6 +76,26 @@ public class NetlistFirmwareTests
         Assert.Equal((valid.Min() + 1) / 2, faults.FaultBelowCode);
         Assert.Equal(valid.Max() + (open.Min() - valid.Max()) / 2, faults.FaultAboveCode);
         Assert.Equal((3127, 3130), (open.Min(), open.Max()));
+    }
+
+    [Fact]
+    public void A_named_fixed_resistors_faults_are_its_network_worked_by_hand_or_refused_when_they_read_like_a_sensor()
+    {
+        var kiln = Example("kiln-vent-two-stage.toml");
+        var sensorOnly = FrontEndCheck.Run(kiln, new CheckOptions { ComputeRemedies = false }).Faults!;
+        // Rtop open: the pin is tied to ground through R_ntc ∥ R_lin, 0 V; shorted: the pin is the rail, full scale.
+        var top = FrontEndCheck.Run(kiln with { Netlist = kiln.Netlist! with { FixedElement = "Rtop" } }, new CheckOptions { ComputeRemedies = false }).Faults!;
+        Assert.Equal(new FaultCode(FaultKind.FixedOpen, false, 0, 0), top.For(FaultKind.FixedOpen));
+        Assert.Equal(new FaultCode(FaultKind.FixedShorted, true, 4095, 4095), top.For(FaultKind.FixedShorted));
+        Assert.Equal((sensorOnly.FaultBelowCode, sensorOnly.FaultAboveCode), (top.FaultBelowCode, top.FaultAboveCode));
+        // Rlin open leaves a plain divider, which reads like a healthy sensor somewhere in the range: 3.3·R/(R + 6.8k)
+        // at 100 °C (R ≈ 987 Ω) is code ≈ 519, inside the healthy 499..2651 (Ohm's law and the β equation by hand).
+        var lin = kiln with { Netlist = kiln.Netlist! with { FixedElement = "Rlin" } };
+        var e = Assert.Throws<FirmwareInputException>(() => Verifier.Table(lin));
+        Assert.Contains("With Rlin open the pin reads codes", e.Message);
+        var check = FrontEndCheck.Run(lin, new CheckOptions { ComputeRemedies = false });
+        Assert.Null(check.Faults);
+        Assert.Equal(e.Message, check.FaultsOmitted);
     }
 
     [Fact]
