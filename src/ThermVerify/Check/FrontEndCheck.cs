@@ -67,8 +67,7 @@ internal static class FrontEndCheck
         }
         catch (FirmwareInputException e)
         {
-            omitted = design.Netlist is not null ? "not computed yet for a netlist front end"
-                : design.Bridge is not null ? "not computed yet for a bridge"
+            omitted = design.Bridge is not null ? "not computed yet for a bridge"
                 : e.Message;
             return null;
         }

@@ -24,6 +24,10 @@ internal sealed record Circuit
             if (!seen.Add(e.Name))
                 throw new CircuitException($"Two elements are named '{e.Name}'; element names must be unique.");
         }
+        // SPICE's F and H sense the current of a voltage source of the same circuit.
+        foreach (var e in Elements)
+            if (e is ICurrentControlled c && !Elements.Any(x => x is VoltageSource && x.Name == c.ControlSource))
+                throw new CircuitException($"{e.Describe} senses the current of '{c.ControlSource}', which is no voltage source of the circuit; name a voltage source (a 0 V source in series measures a branch's current).");
         TemperatureCelsius = temperatureCelsius;
     }
 

@@ -15,6 +15,8 @@ internal static partial class DesignWriter
             w.Text("reference", reference);
         if (n.Excitation.Count > 0)
             w.Names("excitation", n.Excitation);
+        if (n.FixedElement is { } fixedElement)
+            w.Text("fixed", fixedElement);
         foreach (var part in n.Parts)
         {
             w.Entry("netlist.part");

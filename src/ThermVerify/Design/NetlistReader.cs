@@ -7,7 +7,7 @@ namespace ThermVerify.Design;
 /// <summary>Reads [netlist]: the netlist file (read strictly here, at load), and the names the check needs from it.</summary>
 internal static class NetlistReader
 {
-    private static readonly string[] Keys = ["file", "sensor", "pin", "reference", "excitation", "part"];
+    private static readonly string[] Keys = ["file", "sensor", "pin", "reference", "excitation", "fixed", "part"];
     private static readonly string[] PartKeys = ["name", "tolerance", "tempco"];
 
     /// <summary>
@@ -47,6 +47,7 @@ internal static class NetlistReader
         foreach (var name in excitation)
             if (Element(s, "excitation", name, parsed).Kind is not ('V' or 'I'))
                 throw s.ErrorAtValue("excitation", $"{name} is not a source", "Name the V or I elements that excite the sensor.");
+        var fixedElement = s.String("fixed") is { } written ? FixedOf(s, written, parsed, sensors) : null;
         var parts = s.Sections("part").Select(p => Part(p, parsed, sensors)).ToList();
         foreach (var group in parts.GroupBy(p => p.Name, StringComparer.OrdinalIgnoreCase).Where(g => g.Count() > 1))
             throw s.ErrorAtKey("part", $"{group.Key} has more than one [[netlist.part]] entry", "Give each part one entry.");
@@ -60,6 +61,7 @@ internal static class NetlistReader
             ReferenceVolts = reference is null ? null : ReferenceVolts(s, reference, parsed),
             Excitation = [.. excitation.Select(n => parsed.Find(n)!.Name)],
             Parts = parts,
+            FixedElement = fixedElement,
             Parsed = parsed,
         };
     }
@@ -79,6 +81,18 @@ internal static class NetlistReader
         {
             TempcoSigned = SignWritten.Of(p, "tempco"),
         };
+    }
+
+    /// <summary>The resistor `choose-fixed` replaces: an R element of the netlist other than the sensor.</summary>
+    private static string FixedOf(TomlSection s, string name, ParsedNetlist parsed, IReadOnlyList<string> sensors)
+    {
+        var element = Element(s, "fixed", name, parsed);
+        if (element.Kind != 'R')
+            throw s.ErrorAtValue("fixed", $"{name} is not a resistor ({element.At}: '{NetlistErrors.Quote(element.At.Card)}')",
+                "Name the resistor choose-fixed is to replace with E-series values: fixed = \"Rtop\".");
+        if (sensors.Contains(element.Name, StringComparer.OrdinalIgnoreCase))
+            throw s.ErrorAtValue("fixed", $"{name} is the sensor", "Name the resistor beside the sensor that choose-fixed is to replace.");
+        return element.Name;
     }
 
     private static NetlistElement Element(TomlSection s, string key, string name, ParsedNetlist parsed) =>
@@ -101,15 +115,19 @@ internal static class NetlistReader
     }
 
     /// <summary>The DC value of the voltage source that drives the reference node from ground.</summary>
-    private static double ReferenceVolts(TomlSection s, string node, ParsedNetlist parsed)
+    private static double ReferenceVolts(TomlSection s, string node, ParsedNetlist parsed) =>
+        ReferenceSourceVolts(parsed, node) ?? throw s.ErrorAtValue("reference", $"no DC voltage source drives node {node} from ground",
+            "Name the node a DC source drives from ground (e.g. the excitation's top); other reference nodes are not supported yet.");
+
+    /// <summary>The voltage the first DC source that drives <paramref name="node"/> from ground holds it at; null when none does.</summary>
+    internal static double? ReferenceSourceVolts(ParsedNetlist parsed, string node)
     {
         foreach (var e in parsed.Elements.Where(e => e.Kind == 'V' && e.Pulse is null))
         {
             if (e.Nodes[0] == node && e.Nodes[1] == "0") return e.Value;
             if (e.Nodes[1] == node && e.Nodes[0] == "0") return -e.Value;
         }
-        throw s.ErrorAtValue("reference", $"no DC voltage source drives node {node} from ground",
-            "Name the node a DC source drives from ground (e.g. the excitation's top); other reference nodes are not supported yet.");
+        return null;
     }
 
     private static void CheckReserved(ParsedNetlist parsed, string keyPath)

@@ -32,6 +32,12 @@ public sealed record NetlistSpec
     public IReadOnlyList<NetlistPartSpec> Parts { get; init; } = [];
 
     /// <summary>
+    /// The resistor `choose-fixed` replaces with E-series values (our key `fixed`): the netlist's counterpart of a
+    /// divider's fixed resistor, by element name as the netlist writes it; null when the design names none.
+    /// </summary>
+    public string? FixedElement { get; init; }
+
+    /// <summary>
     /// The reference node's voltage: the DC value of the source that drives it from ground (the only way a reference node
     /// is read for now); null without a reference node.
     /// </summary>
@@ -44,9 +50,34 @@ public sealed record NetlistSpec
     public bool Equals(NetlistSpec? other) =>
         other is not null && File == other.File && FullPath == other.FullPath && PinNode == other.PinNode && ReferenceNode == other.ReferenceNode
         && Nullable.Equals(ReferenceVolts, other.ReferenceVolts) && SensorElements.SequenceEqual(other.SensorElements)
-        && Excitation.SequenceEqual(other.Excitation) && Parts.SequenceEqual(other.Parts) && Parsed.Elements.Count == other.Parsed.Elements.Count;
+        && Excitation.SequenceEqual(other.Excitation) && Parts.SequenceEqual(other.Parts) && FixedElement == other.FixedElement
+        && Parsed.Elements.Count == other.Parsed.Elements.Count;
 
     public override int GetHashCode() => HashCode.Combine(File, PinNode, ReferenceNode, Parts.Count);
+
+    /// <summary>
+    /// The netlist with some elements' values scaled by (1 + fraction) (a built unit, a tolerance corner), by element
+    /// name; the reference voltage follows the source that drives the reference node, so a ratiometric reference moves
+    /// with it.
+    /// </summary>
+    internal NetlistSpec WithScaledValues(IReadOnlyDictionary<string, double> fractions)
+    {
+        var parsed = Parsed with
+        {
+            Elements = [.. Parsed.Elements.Select(e => fractions.TryGetValue(e.Name, out var f) ? e with { Value = e.Value * (1 + f) } : e)],
+        };
+        return this with { Parsed = parsed, ReferenceVolts = ReferenceNode is { } node ? NetlistReader.ReferenceSourceVolts(parsed, node) : null };
+    }
+
+    /// <summary>The netlist with one element at another value (a candidate of `choose-fixed`).</summary>
+    internal NetlistSpec WithValue(string element, double value)
+    {
+        var parsed = Parsed with
+        {
+            Elements = [.. Parsed.Elements.Select(e => e.Name.Equals(element, StringComparison.OrdinalIgnoreCase) ? e with { Value = value } : e)],
+        };
+        return this with { Parsed = parsed, ReferenceVolts = ReferenceNode is { } node ? NetlistReader.ReferenceSourceVolts(parsed, node) : null };
+    }
 
     /// <summary>The part entry of an element, if the design gives one.</summary>
     public NetlistPartSpec? Part(string element) =>

@@ -31,6 +31,12 @@ public static class CHeaderRenderer
         Line($" * Sensor:  {Ascii(m.Sensor.Description)}");
         if (m.ExcitationAmperes is { } amps)
             Line($" * Current source: {amps:G6} A through the sensor, node = I*R_s; reference resistor (or V_ref/I) {m.FixedOhms:G6} ohm");
+        if (m.Netlist is { } netlist)
+        {
+            var (ta, tb, tc) = NetlistTransfer.Of(netlist).Coefficients;
+            Line($" * Netlist: {Ascii(netlist.File)}, sensor {Ascii(netlist.SensorElements[0])}, converter at node {Ascii(netlist.PinNode)}; its ideal transfer");
+            Line($" *          v = (a*R + b)/(c*R + 1), a = {ta:G9}, b = {tb:G9} V, c = {tc:G9} 1/ohm (R the sensor's resistance)");
+        }
         else
             Line($" * Divider: sensor on the {(m.Side == SensorSide.Low ? "low side (to ground)" : "high side (to the excitation)")}, fixed resistor {m.FixedOhms:G6} ohm, excitation {m.ExcitationVolts:G6} V");
         Line($" * ADC:     {m.Adc.Bits} bits, reference {m.Adc.ReferenceVolts:G6} V, LSB {m.Adc.LsbVolts:G6} V");
@@ -40,7 +46,7 @@ public static class CHeaderRenderer
         Line($" * Table:   {(t.IsDense ? "one value per code, read by index" : $"{t.Codes.Count} breakpoints, linear interpolation between them")}");
         Line($" * Error:   table minus true temperature from {content.Error.MinErrorKelvin:+0.0000;-0.0000} K (code {content.Error.MinErrorCode}) to {content.Error.MaxErrorKelvin:+0.0000;-0.0000} K (code {content.Error.MaxErrorCode});");
         Line($" *          the converter's own quantisation is up to +/-{content.Error.HalfCodeKelvin:0.0000} K (code {content.Error.HalfCodeAtCode}).");
-        Line($" * Faults:  a code below {P}_FAULT_BELOW_CODE or above {P}_FAULT_ABOVE_CODE is an open or shorted sensor or fixed resistor.");
+        Line($" * Faults:  a code below {P}_FAULT_BELOW_CODE or above {P}_FAULT_ABOVE_CODE is an open or shorted sensor{(m.Netlist is null ? " or fixed resistor" : m.Netlist.FixedElement is { } f ? " or " + Ascii(f) : "")}.");
         Line($" * Made by: thermverify {Ascii(provenance.ToolVersion)} ({Ascii(provenance.EngineText)}; {Ascii(provenance.SettingsText)})");
         Line($" * Design:  {Ascii(provenance.DesignText())}");
         Line($" * Caution: simulation does not replace measurement on hardware; a safety function needs independent protection.");

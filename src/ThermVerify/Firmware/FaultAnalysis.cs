@@ -14,6 +14,7 @@ internal static class FaultAnalysis
     {
         model.Validated();
         tolerances.Validated();
+        if (model.Netlist is { } netlist) return NetlistFaultAnalysis.Thresholds(model, netlist, tolerances);
         if (model.ExcitationAmperes is { } amps) return CurrentThresholds(model, amps, tolerances);
         var corners = Corners(model, tolerances).ToArray();
 

@@ -16,22 +16,17 @@ internal static class FirmwareFromDesign
     public static FirmwareModel Model(FrontEndDesign design, bool correctForLoading)
     {
         ConverterSupport.RequireSuccessiveApproximation(design, "the firmware table");
-        if (design.Netlist is not null)
-            throw new FirmwareInputException(
-                "Firmware tables are made for a divider; this design is a netlist front end, whose table (through its ideal transfer, " +
-                "docs/netlists.md) is not made yet. Run check on it instead.");
         if (design.Bridge is not null)
             throw new FirmwareInputException(
-                "Firmware tables are made for a divider; this design is a bridge, whose table (through the bridge equation, docs/design-file.md) " +
+                "Firmware tables are made for a divider, a current-excited sensor or a netlist; this design is a bridge, whose table (through the bridge equation, docs/design-file.md) " +
                 "is not made yet. Run check, worstcase or montecarlo on it instead.");
         if (design.CurrentSource is { } source)
             return CurrentModel(design, source, correctForLoading);
-        var divider = design.Divider ?? throw new FirmwareInputException(
-            "Firmware tables are made for a divider; this design excites its sensor with a current source, whose table (R_s = V/I, " +
-            "or R_ref·code/2^N with a reference resistor) is not made yet. Run check, worstcase or montecarlo on it instead.");
         var closedForm = new ClosedFormModel(design);
-        var model = new FirmwareModel(closedForm.Sensor, divider.SensorSide, divider.FixedResistorOhms,
-            divider.ExcitationVolts, closedForm.Adc, design.Check.Range);
+        // A netlist's table inverts its ideal transfer (docs/netlists.md); the divider's fields are not used.
+        var model = design.Netlist is { } netlist
+            ? new FirmwareModel(closedForm.Sensor, SensorSide.Low, double.NaN, double.NaN, closedForm.Adc, design.Check.Range) { Netlist = netlist }
+            : DividerModel(design, closedForm);
         if (!correctForLoading) return model.Validated();
 
         var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToArray();
@@ -61,6 +56,13 @@ internal static class FirmwareFromDesign
         {
             ExcitationAmperes = source.CurrentAmperes,
         }.Validated();
+    }
+
+    private static FirmwareModel DividerModel(FrontEndDesign design, ClosedFormModel closedForm)
+    {
+        var divider = design.Divider ?? throw new FirmwareInputException(
+            "Firmware tables are made for a divider, a current-excited sensor or a netlist; this design has none of them.");
+        return new FirmwareModel(closedForm.Sensor, divider.SensorSide, divider.FixedResistorOhms, divider.ExcitationVolts, closedForm.Adc, design.Check.Range);
     }
 
     public static FaultTolerances Tolerances(FrontEndDesign design) => design.CurrentSource is { } source

@@ -31,14 +31,23 @@ public sealed record FirmwareModel(
     /// </summary>
     public double? ExcitationAmperes { get; init; }
 
-    /// <summary>The unloaded node voltage for a sensor resistance: the divider's output, or I·R_s.</summary>
-    public double UnloadedVolts(double sensorOhms) => ExcitationAmperes is { } amps
-        ? amps * sensorOhms
+    /// <summary>
+    /// A netlist front end ([netlist]): the node voltage is the netlist's ideal transfer (<see cref="NetlistTransfer"/>)
+    /// instead of the divider formula, and <see cref="Side"/>, <see cref="FixedOhms"/> and <see cref="ExcitationVolts"/>
+    /// are not used.
+    /// </summary>
+    internal NetlistSpec? Netlist { get; init; }
+
+    /// <summary>The unloaded node voltage for a sensor resistance: the divider's output, I·R_s, or a netlist's ideal transfer.</summary>
+    public double UnloadedVolts(double sensorOhms) =>
+        Netlist is { } n ? NetlistTransfer.Of(n).OutputVolts(sensorOhms)
+        : ExcitationAmperes is { } amps ? amps * sensorOhms
         : DividerFormula.OutputVolts(Side, ExcitationVolts, sensorOhms, FixedOhms);
 
-    /// <summary>The sensor resistance behind an unloaded node voltage: the divider's inverse, or V/I.</summary>
-    public double SensorOhmsAt(double unloadedVolts) => ExcitationAmperes is { } amps
-        ? unloadedVolts / amps
+    /// <summary>The sensor resistance behind an unloaded node voltage: the divider's inverse, V/I, or the netlist's (NaN where none gives it).</summary>
+    public double SensorOhmsAt(double unloadedVolts) =>
+        Netlist is { } n ? NetlistTransfer.Of(n).SensorOhms(unloadedVolts)
+        : ExcitationAmperes is { } amps ? unloadedVolts / amps
         : DividerFormula.SensorOhms(Side, ExcitationVolts, unloadedVolts, FixedOhms);
 
     /// <summary>Throws <see cref="FirmwareInputException"/> naming the first parameter that cannot make a table.</summary>
@@ -47,9 +56,9 @@ public sealed record FirmwareModel(
         ArgumentNullException.ThrowIfNull(Sensor);
         if (ExcitationAmperes is { } amps && !(double.IsFinite(amps) && amps > 0))
             throw new FirmwareInputException(Invariant($"The excitation current is {amps} A; give a positive finite current."));
-        if (!(double.IsFinite(FixedOhms) && FixedOhms > 0))
+        if (Netlist is null && !(double.IsFinite(FixedOhms) && FixedOhms > 0))
             throw new FirmwareInputException(Invariant($"The fixed resistor is {FixedOhms} Ω; give a positive finite resistance."));
-        if (!(double.IsFinite(ExcitationVolts) && ExcitationVolts > 0))
+        if (Netlist is null && !(double.IsFinite(ExcitationVolts) && ExcitationVolts > 0))
             throw new FirmwareInputException(Invariant($"The excitation is {ExcitationVolts} V; give a positive finite voltage."));
         if (Adc.Bits is < 1 or > 24)
             throw new FirmwareInputException(Invariant($"The ADC has {Adc.Bits} bits; firmware tables support 1 to 24 bits."));

@@ -133,8 +133,8 @@ internal static class TableVerifier
                     $"The table matches β = {fitted:0.#} K, not the model's {beta.Beta:0.#} K (worst row then {residual:0.###} K off); the table was made with another β."),
                     fitted, residual, []);
         }
-        // A current-excited model has no fixed resistor in its transfer and no side to swap.
-        if (model.ExcitationAmperes is not null) yield break;
+        // A current-excited model or a netlist has no fixed resistor in its transfer and no side to swap.
+        if (model.ExcitationAmperes is not null || model.Netlist is not null) yield break;
         {
             FirmwareModel WithFixed(double r) => model with { FixedOhms = r };
             var fitted = ParameterSearch.Minimise(r => Rms(WithFixed(r), rows), model.FixedOhms / 10, model.FixedOhms * 10);

@@ -72,6 +72,8 @@ internal static class NetlistCircuit
             case 'I': return new CurrentSource(e.Name, n[0], n[1], Waveform(e));
             case 'E': return new Vcvs(e.Name, n[0], n[1], n[2], n[3], e.Value);
             case 'G': return new Vccs(e.Name, n[0], n[1], n[2], n[3], e.Value);
+            case 'F': return new Cccs(e.Name, n[0], n[1], e.Control!, e.Value);
+            case 'H': return new Ccvs(e.Name, n[0], n[1], e.Control!, e.Value);
             case 'D':
             {
                 var diode = new Diode(e.Name, n[0], n[1], e.Parameter("is", 1e-14), e.Parameter("n", 1), e.Parameter("rs", 0))

@@ -109,6 +109,7 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
             : null;
         var design = nominal with
         {
+            Netlist = nominal.Netlist is { } netlist ? NetlistUnit.Build(netlist, set, values) : null,
             Wiring = wiring,
             Protection = protection,
             Sensor = new PerturbedSensorSpec(nominal.Sensor, sensor),

@@ -69,25 +69,18 @@ internal static class FixedResistorSearch
     {
         ConverterSupport.RequireSuccessiveApproximation(design, "the fixed-resistor choice");
         options ??= new FixedResistorSearchOptions();
-        if (design.Netlist is not null)
-            throw new DesignException(design.Name, 1, 1, "netlist",
-                "choose-fixed chooses a divider's fixed resistor, and this design is a netlist front end, which has no fixed resistor of the built-in shape",
-                "Run check on it; choosing a netlist part's value is not supported yet.");
         if (design.Bridge is not null)
             throw new DesignException(design.Name, 1, 1, "bridge",
                 "choose-fixed chooses a divider's fixed resistor, and this design is a bridge, whose two halves it does not choose yet",
                 "Run check, worstcase or montecarlo on it.");
+        var (present, withFixed) = FixedOf(design);
         var sensor = design.Sensor.Build();
         var range = design.Check.Range;
         var ends = new[] { sensor.ResistanceOhms(range.MinCelsius), sensor.ResistanceOhms(range.MaxCelsius) };
         double low, high;
-        Func<double, FrontEndDesign> with;
-        if (design.CurrentSource is { } source)
+        if (design.CurrentSource is not null)
         {
-            if (source.ReferenceResistorOhms is null)
-                throw new DesignException(design.Name, 1, 1, "current_source",
-                    "choose-fixed chooses a divider's fixed resistor or a current source's reference resistor, and this design has neither: its converter has a fixed reference",
-                    "Run check, worstcase or montecarlo on it, or give current_source.reference_resistor (with adc.reference = \"ratiometric\").");
+            // FixedOf has refused a current source without a reference resistor.
             if (options.Objective == FixedResistorObjective.SlopeAt)
                 throw new DesignException(design.Name, 1, 1, "current_source",
                     "the slope objective ranks a divider's fixed resistor; a current source's pin voltage I·R_s does not depend on the reference resistor",
@@ -95,19 +88,15 @@ internal static class FixedResistorSearch
             // From the smallest reference that still holds the amplified signal, G·R_s(max) (code = 2^N·G·R_s/R_ref), to 4 times it.
             low = options.MinimumOhms ?? design.Adc.ProgrammableGain * ends.Max();
             high = options.MaximumOhms ?? 4 * low;
-            with = r => design with { CurrentSource = source with { ReferenceResistorOhms = r } };
         }
         else
         {
-            var divider = design.VoltageDivider;
             // Between the sensor's extremes: outside them the divider's slope falls at both ends of the range at once.
             low = options.MinimumOhms ?? ends.Min();
             high = options.MaximumOhms ?? ends.Max();
-            with = r => design with { Divider = divider with { FixedResistorOhms = r } };
         }
         if (!(low > 0 && high >= low))
             throw new ArgumentException($"The fixed-resistor search needs 0 < minimum ≤ maximum; got {low:G4} Ω to {high:G4} Ω.");
-        var present = PresentOhms(design);
         var candidates = Candidates(options.Series, low, high);
         // The resistor fitted now is always ranked, so the gain of changing it can be judged.
         if (!candidates.Any(c => SameValue(c, present))) candidates = [.. candidates.Append(present).Order()];
@@ -117,7 +106,8 @@ internal static class FixedResistorSearch
         var done = 0;
         Parallel.For(0, candidates.Count, parallel, i =>
         {
-            results[i] = Evaluate(with(candidates[i]), candidates[i], options.Objective, slopeAt, options.Cancel) with { IsPresent = SameValue(candidates[i], present) };
+            results[i] = Evaluate(withFixed(candidates[i]), candidates[i], options.Objective, slopeAt, options.Cancel)
+                with { IsPresent = SameValue(candidates[i], present) };
             options.Progress?.Report(new RunProgress(Interlocked.Increment(ref done), candidates.Count));
         });
         return options.Objective switch
@@ -141,11 +131,37 @@ internal static class FixedResistorSearch
         return list;
     }
 
-    /// <summary>The resistor the search chooses, as the design has it now: the divider's fixed resistor, or the current source's reference resistor.</summary>
-    internal static double PresentOhms(FrontEndDesign design) => design.CurrentSource?.ReferenceResistorOhms ?? design.VoltageDivider.FixedResistorOhms;
+    /// <summary>
+    /// The design's present fixed resistor and the design with another value in its place: a divider's fixed resistor,
+    /// a ratiometric current source's reference resistor, or the netlist resistor the design names as `fixed` in [netlist].
+    /// </summary>
+    public static (double PresentOhms, Func<double, FrontEndDesign> WithFixed) FixedOf(FrontEndDesign design)
+    {
+        if (design.Netlist is { } netlist)
+        {
+            var name = netlist.FixedElement ?? throw new DesignException(design.Name, 1, 1, "netlist.fixed",
+                "choose-fixed replaces a fixed resistor, and this netlist design names none",
+                "Name the netlist's resistor to replace in [netlist]: fixed = \"Rtop\".");
+            return (netlist.Parsed.Find(name)!.Value, ohms => design with { Netlist = netlist.WithValue(name, ohms) });
+        }
+        if (design.CurrentSource is { } source)
+        {
+            var reference = source.ReferenceResistorOhms ?? throw new DesignException(design.Name, 1, 1, "current_source",
+                "choose-fixed chooses a divider's fixed resistor or a current source's reference resistor, and this design has neither: its converter has a fixed reference",
+                "Run check, worstcase or montecarlo on it, or give current_source.reference_resistor (with adc.reference = \"ratiometric\").");
+            return (reference, ohms => design with { CurrentSource = source with { ReferenceResistorOhms = ohms } });
+        }
+        var divider = design.VoltageDivider;
+        return (divider.FixedResistorOhms, ohms => design with { Divider = divider with { FixedResistorOhms = ohms } });
+    }
+
+    /// <summary>The resistor the search chooses, as the design has it now.</summary>
+    internal static double PresentOhms(FrontEndDesign design) => FixedOf(design).PresentOhms;
 
     /// <summary>What the search chooses, in words.</summary>
-    internal static string PartName(FrontEndDesign design) => design.CurrentSource is null ? "fixed resistor" : "reference resistor";
+    internal static string PartName(FrontEndDesign design) =>
+        design.Netlist?.FixedElement is { } name ? $"netlist resistor {name}"
+        : design.CurrentSource is null ? "fixed resistor" : "reference resistor";
 
     private static FixedResistorCandidate Evaluate(FrontEndDesign candidate, double ohms, FixedResistorObjective objective, double slopeAt,
         CancellationToken cancel)

@@ -63,4 +63,8 @@ public enum ToleranceKind
     GainStageGain,
     /// <summary>The programmable-gain stage's input current, spread over ±|current|.</summary>
     GainStageInputCurrent,
+    /// <summary>A netlist part's value ([[netlist.part]] tolerance), as a fraction; the element is <see cref="ToleranceParameter.Element"/>.</summary>
+    NetlistPartValue,
+    /// <summary>A netlist resistor's tempco, spread over ±|tempco|; the element is <see cref="ToleranceParameter.Element"/>.</summary>
+    NetlistPartTempco,
 }

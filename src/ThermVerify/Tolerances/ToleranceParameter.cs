@@ -12,4 +12,7 @@ public sealed record ToleranceParameter(
     ToleranceDistribution Distribution)
 {
     public double StandardDeviation => Distribution.StandardDeviation(HalfWidth);
+
+    /// <summary>The netlist element a [[netlist.part]] tolerance moves (its name as the netlist writes it); null for every other kind.</summary>
+    public string? Element { get; init; }
 }

@@ -24,19 +24,23 @@ internal sealed class ToleranceSet
         return -1;
     }
 
+    /// <summary>The parameter of this kind that moves the netlist element <paramref name="element"/>; −1 when there is none.</summary>
+    public int IndexOf(ToleranceKind kind, string element)
+    {
+        for (var i = 0; i < Parameters.Count; i++)
+            if (Parameters[i].Kind == kind && string.Equals(Parameters[i].Element, element, StringComparison.OrdinalIgnoreCase))
+                return i;
+        return -1;
+    }
+
     public static ToleranceSet From(FrontEndDesign design)
     {
-        // Spreading a netlist's parts needs its units built from [[netlist.part]]; refused rather than run without them.
-        if (design.Netlist is not null)
-            throw new DesignException(design.Name, 1, 1, "netlist",
-                "worst case and Monte Carlo over a netlist's parts are not supported yet",
-                "Run check on it (the parts' tempcos are bounds there); worstcase and montecarlo run on designs of the built-in shape.");
         var d = ToleranceDistribution.Of(design.Tolerances);
         var list = new List<ToleranceParameter>();
-        void Add(ToleranceKind kind, string key, double halfWidth, string unit, bool signed = false)
+        void Add(ToleranceKind kind, string key, double halfWidth, string unit, bool signed = false, string? element = null)
         {
             // A value written with its sign is known, not spread: every unit has it as written.
-            if (halfWidth != 0 && !signed) list.Add(new ToleranceParameter(kind, key, Math.Abs(halfWidth), unit, d));
+            if (halfWidth != 0 && !signed) list.Add(new ToleranceParameter(kind, key, Math.Abs(halfWidth), unit, d) { Element = element });
         }
 
         switch (design.Sensor)
@@ -55,6 +59,14 @@ internal sealed class ToleranceSet
                 Add(ToleranceKind.RtdClass, "sensor.class", 1, "class band");
                 break;
         }
+        // A netlist's parts take the place of the divider's, in the order [[netlist.part]] gives them (value, then tempco),
+        // so that a netlist redrawing of a divider draws the same deviations from the same seed.
+        if (design.Netlist is { } netlist)
+            foreach (var part in netlist.Parts)
+            {
+                Add(ToleranceKind.NetlistPartValue, $"netlist.part.{part.Name}.tolerance", part.Tolerance, "", element: part.Name);
+                Add(ToleranceKind.NetlistPartTempco, $"netlist.part.{part.Name}.tempco", part.TempcoPerKelvin, "1/K", part.TempcoSigned, part.Name);
+            }
         if (design.Divider is { } divider)
         {
             var section = design.Bridge is null ? "divider" : "bridge";

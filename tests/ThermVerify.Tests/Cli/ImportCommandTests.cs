@@ -34,6 +34,8 @@ public sealed class ImportCommandTests : IDisposable
         Assert.Equal(bundled.PinNode, started.PinNode);
         Assert.Equal(bundled.ReferenceNode, started.ReferenceNode);
         Assert.Equal(bundled.Excitation, started.Excitation);
+        if (bundled.FixedElement is not null)
+            Assert.Equal(bundled.FixedElement, started.FixedElement);
 
         var again = CliRunner.Run("import", Path.Combine(folder.FullName, bundled.File), "-o", output);
         Assert.Equal(ExitCodes.BadInput, again.ExitCode);

@@ -104,6 +104,9 @@ public sealed class NetlistDesignTests : IDisposable
     [InlineData(10, "reference = \"mid\"", 10, "no DC voltage source drives node mid")]
     [InlineData(10, "", 18, "needs the netlist's reference node")]
     [InlineData(11, "excitation = [\"Rtop\"]", 11, "not a source")]
+    [InlineData(11, "excitation = [\"Vexc\"]\nfixed = \"Cs\"", 12, "Cs is not a resistor")]
+    [InlineData(11, "excitation = [\"Vexc\"]\nfixed = \"Rntc\"", 12, "Rntc is the sensor")]
+    [InlineData(11, "excitation = [\"Vexc\"]\nfixed = \"Rtpo\"", 12, "Did you mean Rtop")]
     [InlineData(13, "name = \"Rntc\"", 13, "is the sensor")]
     [InlineData(13, "name = \"Cs\"", 15, "not a resistor")]
     [InlineData(14, "tolerence = \"1 %\"", 14, "tolerance")]
@@ -113,6 +116,16 @@ public sealed class NetlistDesignTests : IDisposable
         var e = Assert.Throws<DesignException>(() => Load(With(line, replacement)));
         Assert.Equal(errorLine, e.Line);
         Assert.Contains(words, e.Message);
+    }
+
+    [Fact]
+    public void The_fixed_resistor_is_read_by_its_netlist_name_and_written_back()
+    {
+        var design = Load(With(11, "excitation = [\"Vexc\"]\nfixed = \"rtop\""));
+        Assert.Equal("Rtop", design.Netlist!.FixedElement);
+        Assert.Contains("fixed = \"Rtop\"", DesignWriter.ToToml(design));
+        Assert.Equal(design.Netlist, Load(DesignWriter.ToToml(design)).Netlist);
+        Assert.Null(Load(Valid).Netlist!.FixedElement);
     }
 
     [Fact]

@@ -91,8 +91,14 @@ public class NetlistParserTests
     [InlineData("* t\nV1 a 0 1\n.control\nshell touch canary\n.endc", 3, 1, "control section")]
     [InlineData("* t\nV1 a 0 1\n.tran 1u 1m", 3, 1, "analysis '.tran'")]
     [InlineData("* t\nV1 a 0 1\n.paramm x=1", 3, 1, "Did you mean .param")]
-    [InlineData("* t\nV1 a 0 1\nF1 a 0 V1 2", 3, 1, "not supported yet")]
-    [InlineData("* t\nV1 a 0 1\nH1 a 0 V1 2", 3, 1, "current-controlled voltage source")]
+    [InlineData("* t\nV1 a 0 1\nR1 a 0 1k\nF1 a 0 V2 2", 4, 8, "senses the current of V2, which the netlist does not have")]
+    [InlineData("* t\nV1 a 0 1\nR1 a 0 1k\nF1 a 0 V2 2", 4, 8, "Did you mean V1")]
+    [InlineData("* t\nV1 a 0 1\nR1 a 0 1k\nH1 a 0 R1 2", 4, 8, "which is not a voltage source")]
+    [InlineData("* t\nV1 a 0 1\nR1 a 0 1k\nH1 a 0 2", 4, 8, "names no voltage source")]
+    [InlineData("* t\nV1 a 0 1\nR1 a 0 1k\nF1 b 0 V1", 4, 8, "needs one gain after its source")]
+    [InlineData("* t\nV1 a 0 1\nR1 a 0 1k\nF1 a a V1 2", 4, 6, "both outputs")]
+    [InlineData("* t\nV1 a 0 1\nR1 a 0 1k\nH1 a 0 poly(1) V1 0 1", 4, 8, "POLY form")]
+    [InlineData("* t\n.subckt s a b\nF1 a b Vin 2\n.ends\nV1 a 0 1\nVin b 0 0\nX1 a 0 s", 3, 8, "(in this subcircuit)")]
     [InlineData("* t\nV1 a 0 1\nQ1 a b 0 npn", 3, 1, "bipolar transistor is not supported yet")]
     [InlineData("* t\nV1 a 0 1\nS1 a 0 b 0 sw", 3, 1, "switch is not supported yet")]
     [InlineData("* t\nV1 a 0 1\nB1 a 0 V={shell}", 3, 1, "behavioural source")]
@@ -125,6 +131,21 @@ public class NetlistParserTests
         Assert.Equal("front.cir", e.SourceName);
         Assert.Equal((line, column), (e.Line, e.Column));
         Assert.Contains(words, e.Message);
+    }
+
+    [Fact]
+    public void F_and_H_name_the_source_they_sense_as_the_flat_netlist_names_it()
+    {
+        // SPICE's F NODE+ NODE- VSOURCE GAIN and H NODE+ NODE- VSOURCE TRANSRESISTANCE (the ngspice manual, from memory);
+        // inside a subcircuit the sensed source is the instance's own, and it may come after the card that senses it.
+        var n = Parse("* t\nFcopy 0 out vsense {2*1.5}\nVexc a 0 1\nRa a b 1k\nVsense b 0 0\nRo out 0 1k\nHm m 0 VSENSE 1k\nRm m 0 1k\n" +
+                      "X1 a 0 meter\n.subckt meter p q\nVs p s 0\nRs s q 10k\nFi 0 o Vs 1\nRo o 0 1k\n.ends\n");
+        var f = n.Find("Fcopy")!;
+        Assert.Equal(('F', 3.0, "Vsense"), (f.Kind, f.Value, f.Control));
+        Assert.Equal(["0", "out"], f.Nodes);
+        var h = n.Find("Hm")!;
+        Assert.Equal(('H', 1e3, "Vsense"), (h.Kind, h.Value, h.Control));
+        Assert.Equal("X1.Vs", n.Find("X1.Fi")!.Control);
     }
 
     [Fact]

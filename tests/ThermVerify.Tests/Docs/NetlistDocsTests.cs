@@ -21,12 +21,13 @@ public sealed class NetlistDocsTests : IDisposable
     }
 
     [Fact]
-    public void The_walk_through_shows_the_netlist_the_check_and_a_refusal()
+    public void The_walk_through_shows_the_netlist_the_check_its_worst_case_and_a_refusal()
     {
         Copy("boiler-flue-protected.cir");
         Copy("boiler-flue-protected.toml");
         DocBlocks.AssertCurrent(Page, "netlists-walkthrough-cir", File.ReadAllText(Path.Combine(Repository.Netlists, "boiler-flue-protected.cir")));
         DocBlocks.AssertCurrent(Page, "netlists-walkthrough-check", Shown(["check", "boiler-flue-protected.toml", "--no-remedies"]));
+        DocBlocks.AssertCurrent(Page, "netlists-walkthrough-worstcase", Shown(["worstcase", "boiler-flue-protected.toml", "--threads", "2"]));
         var cir = Path.Combine(folder.FullName, "boiler-flue-protected.cir");
         File.WriteAllText(cir, File.ReadAllText(cir).Replace(".end", ".control\nshell rm -rf ~\n.endc\n.end"));
         DocBlocks.AssertCurrent(Page, "netlists-walkthrough-refused", Shown(["check", "boiler-flue-protected.toml"], error: true));

@@ -27,10 +27,17 @@ internal sealed partial class NetlistParser
         private readonly Scope globals = new(null);
         private readonly Stack<string> expanding = new();
 
+        /// <summary>F and H with the card they came from: the source they sense may come later in the netlist, as in SPICE.</summary>
+        private readonly List<(NetlistElement Element, ElementCardText Card)> sensing = [];
+
         public List<NetlistElement> Run()
         {
             Statements(parser.topLevel, globals, prefix: "", pins: new Dictionary<string, string>(), localModels: null, depth: 0);
-            return elements;
+            foreach (var (element, card) in sensing)
+                if (!elements.Any(x => x.Kind == 'V' && x.Name.Equals(element.Control, StringComparison.OrdinalIgnoreCase)))
+                    throw card.Errors.At(card.Reference!.Value, $"{card.NameToken.Text} senses the current of {card.Reference.Value.Text}, which the netlist{(element.Name.Contains('.') ? " (in this subcircuit)" : "")} does not have",
+                        Suggest(card.Reference.Value.Text, elements.Where(x => x.Kind == 'V').Select(x => x.Name), "Name a voltage source of the netlist (a 0 V source in series measures a branch's current)."), card.Card);
+            return [.. elements.Select(e => e.Control is { } c ? e with { Control = elements.First(x => x.Kind == 'V' && x.Name.Equals(c, StringComparison.OrdinalIgnoreCase)).Name } : e)];
         }
 
         private void Statements(List<object> statements, Scope scope, string prefix, Dictionary<string, string> pins,
@@ -109,6 +116,17 @@ internal sealed partial class NetlistParser
                             throw model.Errors.At(model.Parameters.First(a => a.Name.Text.Equals(key, StringComparison.OrdinalIgnoreCase)).Name,
                                 $"the diode parameter {key} is {p:G6}", positive ? "It must be greater than zero." : "It must not be negative.", model.Card);
                     elements.Add(new NetlistElement('D', name, nodes, 0, place) { Parameters = parameters });
+                    break;
+                }
+                case 'F' or 'H':
+                {
+                    var value = Evaluate(e.Value!.Value, scope, e.Errors, e.Card);
+                    if (nodes[0] == nodes[1])
+                        throw e.Errors.At(e.NodeTokens[1], $"element {e.NameToken.Text} has both outputs on node {nodes[0]}", "Connect its outputs to two different nodes.", e.Card);
+                    // Inside an instance the sensed source is the instance's own, named as its elements are.
+                    var element = new NetlistElement(e.Kind, name, nodes, value, place) { Control = prefix + e.Reference!.Value.Text };
+                    elements.Add(element);
+                    sensing.Add((element, e));
                     break;
                 }
                 default: // E, G

@@ -12,14 +12,17 @@ internal sealed record NetlistPulse(double Initial, double Pulsed, double DelayS
 
 /// <summary>
 /// One element of a netlist after its parameters are evaluated and its subcircuits expanded: its SPICE letter (R, C,
-/// L, V, I, D, E, G), its name (an element inside an instance is named instance.element, as SPICE names it), its nodes
+/// L, V, I, D, E, F, G, H), its name (an element inside an instance is named instance.element, as SPICE names it), its nodes
 /// (lower case, ground "0"), its value (ohms, farads, henries, the DC value of a source, the gain or transconductance
-/// of E and G; unused for D), and what else its card gave.
+/// of E and G, the gain of F, the transresistance of H; unused for D), and what else its card gave.
 /// </summary>
 internal sealed record NetlistElement(char Kind, string Name, IReadOnlyList<string> Nodes, double Value, NetlistPlace At)
 {
     /// <summary>R: tc1 and tc2 (per kelvin, per kelvin squared). D: the model's is, n, rs, eg and xti.</summary>
     public IReadOnlyDictionary<string, double> Parameters { get; init; } = new Dictionary<string, double>();
+
+    /// <summary>F and H: the voltage source whose current they sense (its flat name, an instance's prefix included).</summary>
+    public string? Control { get; init; }
 
     /// <summary>V and I: the pulse the source gives over time; null for a DC source.</summary>
     public NetlistPulse? Pulse { get; init; }

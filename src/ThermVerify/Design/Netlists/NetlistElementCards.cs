@@ -22,14 +22,14 @@ internal sealed partial class NetlistParser
             'V' or 'I' => Source(kind, t, errors, quoted),
             'D' => Diode(t, errors, quoted),
             'E' or 'G' => Controlled(kind, t, errors, quoted),
+            'F' or 'H' => CurrentControlled(kind, t, errors, quoted),
             'X' => Instance(t, errors, quoted),
             _ => throw errors.At(first, $"element {name}: {Describe(kind)} is not {(NotYet(kind) ? "supported yet" : "accepted")}",
-                "Supported: R, C, L, V and I (DC, PULSE), D with .model D, E and G (linear), X with .subckt." +
-                (kind is 'F' or 'H' ? " Sense the current as a voltage across a resistor and use G or E instead." : ""), quoted),
+                "Supported: R, C, L, V and I (DC, PULSE), D with .model D, E, F, G and H (linear), X with .subckt.", quoted),
         };
     }
 
-    private static bool NotYet(char kind) => kind is 'F' or 'H' or 'S' or 'W' or 'Q' or 'M' or 'J' or 'K' or 'T' or 'B';
+    private static bool NotYet(char kind) => kind is 'S' or 'W' or 'Q' or 'M' or 'J' or 'K' or 'T' or 'B';
 
     private static string Describe(char kind) => kind switch
     {
@@ -147,6 +147,25 @@ internal sealed partial class NetlistParser
         if (t.Count != 6 || !IsValue(t[5]))
             throw errors.At(t[Math.Min(5, t.Count - 1)], $"element {t[0].Text} needs one gain after its four nodes", $"Write {shape}.", quoted);
         return new ElementCardText(kind, t[0], nodes, t.Skip(1).Take(4).ToList(), t[5], [], [], null, errors, quoted);
+    }
+
+    /// <summary>F and H: two nodes, the voltage source whose current controls them, and the gain (F) or transresistance (H).</summary>
+    private static ElementCardText CurrentControlled(char kind, List<SpiceToken> t, NetlistErrors errors, string quoted)
+    {
+        var shape = $"{t[0].Text} NODE+ NODE- VSOURCE {(kind == 'F' ? "GAIN" : "TRANSRESISTANCE")}";
+        if (t.Count > 3 && t[3].Kind == SpiceTokenKind.Word && t[3].Text.ToLowerInvariant() is "poly" or "value" or "table")
+            throw errors.At(t[3], $"the {t[3].Text.ToUpperInvariant()} form of {t[0].Text} is not supported yet", $"Write the linear form: {shape}.", quoted);
+        var nodes = Nodes(t, 2, errors, quoted, shape);
+        if (t.Count < 4 || t[3].Kind != SpiceTokenKind.Word || !char.IsAsciiLetter(t[3].Text[0]))
+            throw errors.At(t[Math.Min(3, t.Count - 1)], $"element {t[0].Text} names no voltage source whose current it senses", $"Write {shape}.", quoted);
+        var control = t[3];
+        Name(control, errors, quoted, "a voltage source's name");
+        if (char.ToUpperInvariant(control.Text[0]) != 'V')
+            throw errors.At(control, $"{t[0].Text} senses the current of {control.Text}, which is not a voltage source",
+                "SPICE's F and H sense the current through a V element; put a 0 V source in series with the branch and name it.", quoted);
+        if (t.Count != 5 || !IsValue(t[4]))
+            throw errors.At(t[Math.Min(4, t.Count - 1)], $"element {t[0].Text} needs one {(kind == 'F' ? "gain" : "transresistance")} after its source", $"Write {shape}.", quoted);
+        return new ElementCardText(kind, t[0], nodes, t.Skip(1).Take(2).ToList(), t[4], [], [], control, errors, quoted);
     }
 
     private static ElementCardText Instance(List<SpiceToken> t, NetlistErrors errors, string quoted)

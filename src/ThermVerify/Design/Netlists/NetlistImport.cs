@@ -54,6 +54,8 @@ internal static class NetlistImport
             Commented(b, $"reference = \"{reference.Nodes[0]}\"", $"CONFIRM: the node {reference.Name} drives from ground, for a ratiometric converter");
         if (sources.Count > 0)
             Commented(b, $"excitation = [{string.Join(", ", sources.Select(s => $"\"{s.Name}\""))}]", $"CONFIRM: the netlist's sources");
+        if (FixedArm(netlist, sensor) is { } arm)
+            Commented(b, $"fixed = \"{arm.Resistor.Name}\"", $"CONFIRM: it joins {sensor.Name} to {arm.Source.Name}, the divider's other arm (choose-fixed replaces it)");
         b.AppendLine();
         Commented(b, "[adc]", "FILL IN: every value from the converter's documentation");
         b.AppendLine("bits = 12");
@@ -78,6 +80,20 @@ internal static class NetlistImport
         if (netlist.Elements.LastOrDefault(e => e.Kind == 'C' && e.Nodes.Contains("0") && e.Nodes.Any(n => n != "0" && !n.Contains('.'))) is { } cap)
             return (cap.Nodes.First(n => n != "0"), $"the node of {cap.Name}, the last capacitor to ground");
         return (sensor.Nodes.First(n => n != "0"), $"the node of {sensor.Name}");
+    }
+
+    /// <summary>
+    /// The divider's other arm: a resistor other than the sensor between a node of the sensor's and a node a voltage
+    /// source drives from ground; null where the netlist has none.
+    /// </summary>
+    private static (NetlistElement Resistor, NetlistElement Source)? FixedArm(ParsedNetlist netlist, NetlistElement sensor)
+    {
+        var driven = netlist.Elements.Where(e => e.Kind == 'V' && e.Nodes[1] == "0" && e.Nodes[0] != "0").ToList();
+        foreach (var r in netlist.Elements.Where(e => e.Kind == 'R' && e != sensor))
+            for (var side = 0; side < 2; side++)
+                if (r.Nodes[side] != "0" && sensor.Nodes.Contains(r.Nodes[side]) && driven.FirstOrDefault(v => v.Nodes[0] == r.Nodes[1 - side]) is { } source)
+                    return (r, source);
+        return null;
     }
 
     /// <summary>A line with its comment in a column of its own, so that the marks read down the file.</summary>

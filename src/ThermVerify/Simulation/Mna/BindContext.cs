@@ -1,3 +1,4 @@
+using ThermVerify.Circuits;
 namespace ThermVerify.Simulation.Mna;
 
 /// <summary>What an element sees while it binds its stamp: node indices, its extra unknowns, slots, state.</summary>
@@ -19,6 +20,13 @@ internal sealed class BindContext(MnaLayout layout)
     public int Extra(int k) => ExtraStart + k;
 
     public int Slot(int row, int column) => layout.Slot(row, column);
+
+    /// <summary>The index of the branch current of the voltage source <paramref name="source"/> (what SPICE's F and H sense).</summary>
+    public int BranchCurrent(string source)
+    {
+        var i = Array.IndexOf(layout.UnknownNames, $"I({source})");
+        return i >= 0 ? i : throw new CircuitException($"No branch current of '{source}' to sense; name a voltage source of the circuit.");
+    }
 
     /// <summary>
     /// Reserves an integrated state: [value, derivative]. Returns the index of the value; the derivative

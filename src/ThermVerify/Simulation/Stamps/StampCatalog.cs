@@ -22,6 +22,8 @@ internal static class StampCatalog
         [typeof(LeakageCurrentSource)] = (e, c) => new LeakageCurrentSourceStamp((LeakageCurrentSource)e, c),
         [typeof(Vcvs)] = (e, c) => new VcvsStamp((Vcvs)e, c),
         [typeof(Vccs)] = (e, c) => new VccsStamp((Vccs)e, c),
+        [typeof(Cccs)] = (e, c) => new CccsStamp((Cccs)e, c),
+        [typeof(Ccvs)] = (e, c) => new CcvsStamp((Ccvs)e, c),
         [typeof(Diode)] = (e, c) => new DiodeStamp((Diode)e, c),
         [typeof(OpAmp)] = (e, c) => new OpAmpStamp((OpAmp)e, c),
         [typeof(TimedSwitch)] = (e, c) => new TimedSwitchStamp((TimedSwitch)e, c),
