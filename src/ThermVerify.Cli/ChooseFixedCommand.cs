@@ -10,7 +10,7 @@ using ThermVerify.Tolerances;
 
 namespace ThermVerify.Cli;
 
-/// <summary>`thermverify choose-fixed`: rank the values of an E-series as the divider's fixed resistor.</summary>
+/// <summary>`thermverify choose-fixed`: rank the values of an E-series as the divider's fixed resistor (or a current source's reference resistor).</summary>
 internal static class ChooseFixedCommand
 {
     private static readonly Dictionary<string, FixedResistorObjective> Objectives = new()
@@ -31,8 +31,8 @@ internal static class ChooseFixedCommand
         };
         objective.AcceptOnlyFromAmong([.. Objectives.Keys]);
         var at = new Option<string?>("--at") { Description = "temperature of the slope objective (default: the middle of the check range)" };
-        var min = new Option<string?>("--min") { Description = "smallest candidate (default: the sensor's smallest resistance over the range)" };
-        var max = new Option<string?>("--max") { Description = "largest candidate (default: the sensor's largest resistance over the range)" };
+        var min = new Option<string?>("--min") { Description = "smallest candidate (default: the sensor's smallest resistance over the range; a reference resistor: G·R_s(max))" };
+        var max = new Option<string?>("--max") { Description = "largest candidate (default: the sensor's largest resistance over the range; a reference resistor: 4 times the smallest)" };
         var top = new Option<int>("--top") { Description = "candidates to print", DefaultValueFactory = _ => 15 };
         var threads = new Option<int>("--threads") { Description = "candidates checked in parallel", DefaultValueFactory = _ => Environment.ProcessorCount };
         var command = new Command("choose-fixed", "Search an E-series for the fixed resistor that gives the smallest worst error (loading, settling and self-heating included) or the finest resolution.")

@@ -67,4 +67,16 @@ public class CurrentSourceTableTests
         Assert.Contains("current source", e.Message);
         Assert.Contains("--corrected", e.Message);
     }
+
+    [Fact]
+    public void Verify_table_passes_the_current_source_table_and_catches_one_made_for_another_reference_resistor()
+    {
+        var design = Example("mash-tun-pt100-current.toml");
+        var csv = TableCsvRenderer.Render(Verifier.Table(design).Table);
+        Assert.True(Verifier.VerifyTable(design, csv, "table.csv").Passes);
+        // The same table made for a 3.6 kΩ reference resistor reads every code 8 % low in R_s: about 20 K at 100 °C.
+        var other = design with { CurrentSource = design.CurrentSource! with { ReferenceResistorOhms = 3600 } };
+        var wrong = TableCsvRenderer.Render(Verifier.Table(other).Table);
+        Assert.False(Verifier.VerifyTable(design, wrong, "wrong.csv").Passes);
+    }
 }
