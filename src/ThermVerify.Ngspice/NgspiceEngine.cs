@@ -77,7 +77,9 @@ public sealed class NgspiceEngine : ICheckEngine, IDisposable
         for (var i = 0; i < sweep.Points; i++)
             if (Math.Abs(swept[i] - temperaturesCelsius[i]) > 1e-6 * Math.Max(1, Math.Abs(sweep.StepKelvin)))
                 throw new NgspiceException($"ngspice swept {swept[i]} °C where {temperaturesCelsius[i]} °C was asked for", []);
-        return [.. nodes.Select(n => Finite(plot[n].Real[..sweep.Points], $"node {n} in the temperature sweep"))];
+        // Ground is 0 V by definition and ngspice keeps no vector for it (a current source's bottom without leads is ground).
+        return [.. nodes.Select(n => n == Circuit.Ground ? new double[sweep.Points]
+            : Finite(plot[n].Real[..sweep.Points], $"node {n} in the temperature sweep"))];
     }
 
     ISampledTransient ICheckEngine.StartTransient(Circuit circuit, TransientOptions options) => new SampledRun(this, circuit, options);

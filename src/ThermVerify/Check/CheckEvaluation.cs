@@ -127,7 +127,7 @@ internal sealed class CheckEvaluation
         // The walk from the closed form to the code, one cause at a time. Where the circuit makes the reference (a
         // reference resistor) the walk is on the converter's own scale, every voltage over the simulated reference
         // times the nominal one, so that a current error, which moves pin and reference together, shows as nothing.
-        var scale = corner.ReferenceVolts is { } reference ? Model.Adc.ReferenceVolts / reference[i] : 1;
+        var scale = corner.ReferenceVolts is { } reference ? Model.Adc.ReferenceVolts * Design.Adc.ProgrammableGain / reference[i] : 1;
         var ideal = cf.IdealVolts;
         var afterBuffer = corner.AfterBufferVolts?[i] ?? ideal;
         var level = scale * (choice.First ? staticPin : averagePin);

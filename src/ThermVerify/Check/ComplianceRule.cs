@@ -32,7 +32,7 @@ internal static class ComplianceRule
         if (outside.Count == 0) yield break;
         var worst = outside.MaxBy(o => Math.Abs(o.Beyond));
         var t = temperatures[worst.Index];
-        var closedForm = CurrentFormula.Network(design, points[worst.Index].SensorOhms, EffectEstimator.LeakageAmps(design, t), design.Check.BoardCelsius ?? t).SourceVolts;
+        var closedForm = CurrentFormula.Network(design, points[worst.Index].SensorOhms, EffectEstimator.PinCurrentAmps(design, t), design.Check.BoardCelsius ?? t).SourceVolts;
         yield return new Finding(Id, Severity.Fail,
             I($"the current source's output leaves its compliance range {V(range.MinVolts)} .. {V(range.MaxVolts)}"),
             temperatures[outside.Min(o => o.Index)], temperatures[outside.Max(o => o.Index)], t,

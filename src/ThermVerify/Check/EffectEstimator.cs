@@ -6,7 +6,8 @@ namespace ThermVerify.Check;
 
 /// <summary>
 /// The first-order closed form of each effect the ideal model leaves out, at one temperature: Ohm's law for leakage
-/// and bias currents, the fixed resistor's tempco through the divider's slope, the buffer's offset with its drift,
+/// and bias currents, the fixed resistor's tempco through the divider's slope (a bridge's opposite half through its own
+/// ratio, which the converter reads with the opposite sign), the buffer's offset with its drift,
 /// the switched-capacitor resistance for the average sampling current (Johns &amp; Martin), charge sharing with a
 /// reservoir (the first conversion from the settled pin; the steady state from the sawtooth the reservoir settles into,
 /// <see cref="SamplingFormulas.SteadySampleVolts"/>, against the pin with the average sampling current), and
@@ -20,21 +21,29 @@ internal static class EffectEstimator
     {
         var adc = design.Adc;
         var source = SourceOhms(design, point);
-        var leakage = -LeakageAmps(design, point.Celsius) * source;
+        var leakage = -PinCurrentAmps(design, point.Celsius) * source;
         var (drift, excitation, leads) = (0.0, 0.0, 0.0);
         if (design.Divider is { } divider)
         {
             var driftOhms = divider.FixedResistorOhms * divider.FixedTempcoPerKelvin * ((design.Check.BoardCelsius ?? point.Celsius) - 25);
             // The divider output depends on R_s/(R_s + R_f) only, so dV/dR_f = −(R_s/R_f)·dV/dR_s.
-            drift = (design.Buffer?.Gain ?? 1) * driftOhms * -(point.SensorOhms / divider.FixedResistorOhms) *
+            drift = design.StageGain * driftOhms * -(point.SensorOhms / divider.FixedResistorOhms) *
                     DividerFormula.SlopeVoltsPerOhm(divider.SensorSide, divider.ExcitationVolts, point.SensorOhms, divider.FixedResistorOhms);
             leads = DividerLeadVolts(design, divider, point);
+            if (design.Bridge is { } bridge)
+            {
+                drift -= design.StageGain * divider.ExcitationVolts * (bridge.RatioAt(design.Check.BoardCelsius ?? point.Celsius) - bridge.RatioAt(25));
+                // A differential input's negative leakage pulls the second output down through R_high ∥ R_low (Ohm's law): read as a rise.
+                if (adc.NegativeInput is not null)
+                    leakage += adc.NegativeLeakageAmperesAt(design.Check.BoardCelsius ?? point.Celsius) * bridge.HighOhms * bridge.LowOhms / (bridge.HighOhms + bridge.LowOhms);
+            }
         }
         else if (design.Netlist is { } netlist)
             drift = NetlistTransfer.Of(netlist).PartDriftVolts(point.SensorOhms, design.Check.BoardCelsius ?? point.Celsius);
         else
             (leakage, excitation, leads) = CurrentLoading(design, point);
-        var (offset, bias) = design.Buffer is null ? (0.0, 0.0) : BufferStaticErrors.At(design, point) is var s ? (s.OffsetVolts + s.DriftVolts, s.BiasVolts) : default;
+        var (offset, bias) = design.Amplifier is not null ? AmplifierErrors(design, point)
+            : design.Buffer is null ? (0.0, 0.0) : BufferStaticErrors.At(design, point) is var s ? (s.OffsetVolts + s.DriftVolts, s.BiasVolts) : default;
         var average = DcLevels.UsesAverageSamplingCurrent(design, prechargeVolts)
             ? SamplingFormulas.SwitchedCapacitorErrorVolts(prechargeVolts!.Value - point.IdealVolts, source, adc.SampleRateHertz, adc.SamplingCapacitanceFarads)
             : 0;
@@ -71,7 +80,7 @@ internal static class EffectEstimator
     {
         var nominal = design.CurrentSource!.NominalReferenceVolts;
         var board = design.Check.BoardCelsius ?? point.Celsius;
-        var drawn = LeakageAmps(design, point.Celsius);
+        var drawn = PinCurrentAmps(design, point.Celsius);
         double Read(double amperes, bool leads)
         {
             var n = CurrentFormula.Network(design, point.SensorOhms, amperes, board, leads);
@@ -88,7 +97,7 @@ internal static class EffectEstimator
         if (design.Wiring is not { } w) return 0;
         var leads = 2 * w.LeadOhmsAt(w.LeadCelsius ?? design.Check.BoardCelsius ?? point.Celsius);
         double Out(double sensorOhms) => DividerFormula.OutputVolts(divider.SensorSide, divider.ExcitationVolts, sensorOhms, divider.FixedResistorOhms);
-        return (design.Buffer?.Gain ?? 1) * (Out(point.SensorOhms + leads) - Out(point.SensorOhms));
+        return design.StageGain * (Out(point.SensorOhms + leads) - Out(point.SensorOhms));
     }
 
     /// <summary>The dominant time constant of the acquisition without a reservoir: R_s·(C_sh + C_pin) + R_on·C_sh.</summary>
@@ -97,9 +106,33 @@ internal static class EffectEstimator
 
     /// <summary>Resistance the ADC pin sees: the divider's Thevenin resistance (or the buffer, taken as ideal) plus the filter.</summary>
     public static double SourceOhms(FrontEndDesign design, ClosedFormPoint point) =>
-        (design.Buffer is { } b ? b.IsolationResistorOhms : point.TheveninOhms) + design.Filter.SeriesResistorOhms;
+        (design.Amplifier is not null ? 0 : design.Buffer is { } b ? b.IsolationResistorOhms : point.TheveninOhms) + design.Filter.SeriesResistorOhms;
+
+    /// <summary>
+    /// An amplifier's own errors at the output, in closed form (<see cref="AmplifierStage.OutputVolts"/> against the ideal
+    /// G·V_d on the unloaded bridge): offset with drift, gain error and common mode together, and the bias currents,
+    /// which draw I_b through each output's Thevenin resistance (R_s ∥ R_f and R_high ∥ R_low; Ohm's law).
+    /// </summary>
+    private static (double OffsetVolts, double BiasVolts) AmplifierErrors(FrontEndDesign design, ClosedFormPoint point)
+    {
+        var a = design.Amplifier!;
+        var half = design.VoltageDivider;
+        var bridge = design.Bridge!;
+        var board = design.Check.BoardCelsius ?? point.Celsius;
+        var positive = DividerFormula.OutputVolts(half.SensorSide, half.ExcitationVolts, point.SensorOhms, half.FixedResistorOhms);
+        var negative = BridgeFormula.NegativeVolts(half, bridge);
+        var offset = AmplifierStage.OutputVolts(a, positive, negative, board) - a.Gain * (positive - negative);
+        var theveninPositive = DividerFormula.TheveninOhms(point.SensorOhms, half.FixedResistorOhms);
+        var theveninNegative = bridge.HighOhms * bridge.LowOhms / (bridge.HighOhms + bridge.LowOhms);
+        var bias = -a.Gain * (1 + a.GainError) * a.BiasCurrentAmperes * (theveninPositive - theveninNegative);
+        return (offset, bias);
+    }
 
     /// <summary>Pin leakage at a swept temperature, or at the board temperature when the design fixes one.</summary>
     public static double LeakageAmps(FrontEndDesign design, double sweptCelsius) =>
         design.Adc.PinLeakageAmperesAt(design.Check.BoardCelsius ?? sweptCelsius);
+
+    /// <summary>Every DC current the converter's side draws from the pin: its leakage and the gain stage's input current.</summary>
+    public static double PinCurrentAmps(FrontEndDesign design, double sweptCelsius) =>
+        LeakageAmps(design, sweptCelsius) + (design.Adc.GainStage?.InputCurrentAmperes ?? 0);
 }

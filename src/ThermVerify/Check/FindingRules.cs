@@ -27,6 +27,7 @@ internal static class FindingRules
         Add("converter", "the converter's static errors (offset, gain, INL, reference) shift the code by more than ½ LSB",
             p => p.Simulated.ConverterVolts, p => p.Contributions.ConverterKelvin, p => ConverterCause(design, p, lsb), p => p.Simulated.ConverterVolts, simulated: false);
         Add("dc-loading", (design.Netlist is { } n ? "DC error at the pin: pin leakage, the netlist's parts' drift" + (n.Parsed.Elements.Any(x => x.Kind == 'D') ? ", its diodes" : "")
+                : design.Bridge is not null ? "DC error at the pin: pin leakage, the bridge's resistors' drift"
                 : design.CurrentSource is null ? "DC error at the pin: pin leakage, fixed-resistor drift"
                 : "DC error at the pin: pin leakage, the current source's drift and output resistance, the reference resistor's drift and loading")
                 + (design.Wiring is not null && design.CurrentSource is null ? ", sensor leads" : "")
@@ -45,6 +46,9 @@ internal static class FindingRules
                     : "the acquisition is too short for the source resistance to charge the sampling capacitor (ΔV·e^(−t/τ), from the ")
                  + (p.FirstConversion ? "settled pin" : "pin with the average sampling current") + I($"; precharge {p.Precharge.Name}, {p.SampleKind} conversion)"),
             p => p.FirstConversion ? p.Estimates.FirstConversionVolts : p.Estimates.SteadySettlingVolts);
+        if (design.Amplifier is not null)
+            Add("amplifier-static", "the amplifier's offset, drift, gain error, common mode and bias currents shift the pin by more than ½ LSB",
+                p => p.Simulated.BufferVolts, p => p.Contributions.BufferKelvin, p => AmplifierWords.Cause(design, p), p => p.Estimates.BufferVolts);
         if (design.Buffer is not null)
             Add("buffer-static", "the buffer's offset, drift and bias currents shift the pin by more than ½ LSB",
                 p => p.Simulated.BufferVolts, p => p.Contributions.BufferKelvin, p => BufferCause(design, p), p => p.Estimates.BufferVolts);
@@ -143,13 +147,22 @@ internal static class FindingRules
         return I($"{top.Column} ({top.Kelvin:+0.###;-0.###} K)");
     }
 
+    private static string Tempco(double perKelvin, bool signed) => Bounded(I($"{Math.Abs(perKelvin) * 1e6:0.###} ppm/K"), signed, perKelvin);
+
     private static string LoadingCause(FrontEndDesign design, CheckPoint p)
     {
         var parts = new List<string>();
-        if (design.Adc.PinLeakageAmperes != 0)
-            parts.Add(I($"pin leakage {Bounded(Amps(Math.Abs(EffectEstimator.LeakageAmps(design, p.Celsius))), design.Adc.PinLeakageSigned, design.Adc.PinLeakageAmperes)} ") +
+        var stage = design.Adc.GainStage is { InputCurrentAmperes: not 0 } g
+            ? "the gain stage's input current " + Bounded(Amps(Math.Abs(g.InputCurrentAmperes)), g.InputCurrentSigned, g.InputCurrentAmperes) : null;
+        var leak = design.Adc.PinLeakageAmperes != 0
+            ? "pin leakage " + Bounded(Amps(Math.Abs(EffectEstimator.LeakageAmps(design, p.Celsius))), design.Adc.PinLeakageSigned, design.Adc.PinLeakageAmperes) : null;
+        if (leak is not null || stage is not null)
+            parts.Add(string.Join(" and ", new[] { leak, stage }.OfType<string>()) + " " +
                       I($"through the {Ohms(p.Estimates.SourceOhms)} the pin sees (Ohm's law) {Volts(p.Estimates.LeakageVolts)}"));
-        if (design.Divider is { FixedTempcoPerKelvin: not 0 } divider)
+        if (design is { Divider: { } half, Bridge: { } bridge } && (half.FixedTempcoPerKelvin != 0 || bridge.HighTempcoPerKelvin != 0 || bridge.LowTempcoPerKelvin != 0))
+            parts.Add(I($"the bridge's tempcos (fixed {Tempco(half.FixedTempcoPerKelvin, half.FixedTempcoSigned)}, opposite high {Tempco(bridge.HighTempcoPerKelvin, bridge.HighTempcoSigned)}, ") +
+                      I($"opposite low {Tempco(bridge.LowTempcoPerKelvin, bridge.LowTempcoSigned)}) at {(design.Check.BoardCelsius ?? p.Celsius):0.##} °C through both halves {Volts(p.Estimates.FixedDriftVolts)}"));
+        else if (design.Divider is { FixedTempcoPerKelvin: not 0 } divider)
             parts.Add(I($"the fixed resistor's tempco of {Bounded(I($"{Math.Abs(divider.FixedTempcoPerKelvin) * 1e6:0.###} ppm/K"), divider.FixedTempcoSigned, divider.FixedTempcoPerKelvin)} ") +
                       I($"at {(design.Check.BoardCelsius ?? p.Celsius):0.##} °C {Volts(p.Estimates.FixedDriftVolts)}"));
         if (design.Netlist is { } netlist && netlist.Parts.Where(x => x.TempcoPerKelvin != 0).ToList() is { Count: > 0 } drifting)
@@ -175,6 +188,9 @@ internal static class FindingRules
         if (adc.OffsetErrorLsb != 0) parts.Add("offset " + Bounded(I($"{Math.Abs(adc.OffsetErrorLsb):0.###} LSB"), adc.OffsetErrorSigned, adc.OffsetErrorLsb));
         if (adc.GainError != 0) parts.Add("gain error " + Bounded(I($"{Math.Abs(adc.GainError) * 100:0.###} %"), adc.GainErrorSigned, adc.GainError));
         if (adc.InlLsb != 0) parts.Add(I($"INL ±{adc.InlLsb:0.###} LSB as a bow"));
+        if (adc.GainStage is { GainError: not 0 } stage)
+            parts.Add(I($"the gain stage's gain error ") + Bounded(I($"{Math.Abs(stage.GainError) * 100:0.###} %"), stage.GainErrorSigned, stage.GainError)
+                      + I($" at gain {stage.Gain:G6} (G·(1 + e)·V: {p.SampleVolts / lsb * Math.Abs(stage.GainError):0.##} LSB)"));
         if (adc.ReferenceTempcoPerKelvin != 0 && !adc.IsRatiometric)
             parts.Add("reference tempco " + Bounded(I($"{Math.Abs(adc.ReferenceTempcoPerKelvin) * 1e6:0.###} ppm/K"), adc.ReferenceTempcoSigned, adc.ReferenceTempcoPerKelvin)
                       + ReferenceDrift(design, p, lsb));

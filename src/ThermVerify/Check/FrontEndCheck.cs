@@ -29,6 +29,10 @@ internal static class FrontEndCheck
         var points = evaluation.Points;
         var findings = FindingRules.Evaluate(design, evaluation.Model, points).ToList();
         findings.AddRange(ComplianceRule.Evaluate(design, evaluation.Dc, evaluation.Temperatures, points, evaluation.Model.Adc.LsbVolts));
+        findings.AddRange(CommonModeRule.Evaluate(design, evaluation.Dc, evaluation.Temperatures, points, evaluation.Model.Adc.LsbVolts));
+        findings.AddRange(AmplifierRangeRule.Evaluate(design, evaluation.Dc, evaluation.Temperatures, points, evaluation.Model.Adc.LsbVolts));
+        findings.AddRange(GainRangeRule.Evaluate(design, evaluation.Dc, evaluation.Temperatures, points));
+        findings.AddRange(ChargeInjectionRule.Evaluate(design, points, evaluation.Model.Adc.LsbVolts, options));
         var buffer = design.Buffer is null ? null : Buffer.BufferCheck.Run(design, points, options);
         findings.AddRange(buffer?.Findings ?? []);
         IReadOnlyList<Finding> ordered = FindingRules.OverBudget(evaluation.Model, points, findings) is { } budget ? [budget, .. findings] : findings;
@@ -63,7 +67,7 @@ internal static class FrontEndCheck
         }
         catch (FirmwareInputException e)
         {
-            omitted = design.CurrentSource is not null ? "not computed yet for a current-excited sensor"
+            omitted = design.Bridge is not null ? "not computed yet for a bridge"
                 : e.Message;
             return null;
         }

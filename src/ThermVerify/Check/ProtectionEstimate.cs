@@ -34,6 +34,6 @@ internal static class ProtectionEstimate
     {
         if (design.Protection is not { InsulationOhms: { } ohms } p) return 0;
         var node = SensorTransfer.OutputVolts(design, point.SensorOhms);
-        return (design.Buffer?.Gain ?? 1) * (p.InsulationToVolts - node) * point.TheveninOhms / (point.TheveninOhms + ohms);
+        return design.StageGain * (p.InsulationToVolts - node) * point.TheveninOhms / (point.TheveninOhms + ohms);
     }
 }

@@ -14,6 +14,6 @@ internal static class SettlingError
     {
         var outcome = SamplingRun.Run(design, celsius, prechargeVolts, settleVolts, engine: engine);
         var dc = DcLevels.Run(design, [new PrechargeCase("probe", prechargeVolts)], [celsius], engine);
-        return Math.Max(Math.Abs(outcome.FirstVolts - dc.StaticPinVolts[0]), Math.Abs(outcome.SteadyVolts - dc.AveragePinVolts[0][0]));
+        return Math.Max(Math.Abs(outcome.FirstVolts - dc.StaticSampleLevel(design, 0)), Math.Abs(outcome.SteadyVolts - dc.AverageSampleLevel(design, 0, 0)));
     }
 }

@@ -30,8 +30,20 @@ internal static class AdcReader
         "bits", "reference", "reference_tolerance", "sample_rate", "acquisition_time", "sampling_capacitance",
         "switch_resistance", "pin_capacitance", "pin_leakage", "pin_leakage_temperature", "leakage_doubling",
         "offset_error", "gain_error", "inl", "precharge", "precharge_voltage", "reference_tempco", "first_transition",
-        "firmware_inverse", "noise", "kind",
+        "firmware_inverse", "noise", "kind", "input", "common_mode_range", "negative_sampling_capacitance", "negative_switch_resistance",
+        "negative_pin_capacitance", "negative_pin_leakage",
+        "charge_injection", .. GainStageReader.Keys,
     ];
+
+    private static readonly Dictionary<string, AdcInput> Inputs = new()
+    {
+        ["single-ended"] = AdcInput.SingleEnded,
+        ["differential"] = AdcInput.Differential,
+        ["pseudo-differential"] = AdcInput.PseudoDifferential,
+    };
+
+    private static readonly string[] DifferentialKeys =
+        ["common_mode_range", "negative_sampling_capacitance", "negative_switch_resistance", "negative_pin_capacitance", "negative_pin_leakage"];
 
     private static readonly Dictionary<string, ConverterKind> Kinds = new()
     {
@@ -44,8 +56,8 @@ internal static class AdcReader
         var kind = s.Choice("kind", Kinds) ?? ConverterKind.SuccessiveApproximation;
         if (kind == ConverterKind.DeltaSigma)
         {
-            s.AllowOnly([.. Keys.Except(DeltaSigmaReader.SuccessiveApproximationKeys), .. DeltaSigmaReader.OwnKeys],
-                key => DeltaSigmaReader.SuccessiveApproximationKeys.Contains(key)
+            s.AllowOnly([.. Keys.Except(DeltaSigmaReader.SuccessiveApproximationKeys).Except(DifferentialKeys).Except(["input"]), .. DeltaSigmaReader.OwnKeys],
+                key => DeltaSigmaReader.SuccessiveApproximationKeys.Contains(key) || DifferentialKeys.Contains(key) || key == "input"
                     ? $"{key} applies only to a successive-approximation converter; a delta-sigma converter samples its input at modulator_rate and reads at data_rate. Remove it, or set kind = \"successive-approximation\"."
                     : null);
             var deltaSigma = DeltaSigmaReader.Read(s);
@@ -54,6 +66,7 @@ internal static class AdcReader
             return Common(s) with
             {
                 DeltaSigma = deltaSigma,
+                GainStage = GainStageReader.Read(s, deltaSigma.Gain),
                 SampleRateHertz = deltaSigma.DataRateHertz,
                 Precharge = PrechargeMode.LastSample,
             };
@@ -71,15 +84,56 @@ internal static class AdcReader
         var prechargeVolts = s.Quantity("precharge_voltage", Bound.Any, UnitKind.Volt)?.Value;
         if (prechargeVolts is not null && precharge != PrechargeMode.OtherChannel)
             throw s.ErrorAtKey("precharge_voltage", "precharge_voltage applies only to precharge = \"other-channel\"", "Remove it, or set precharge = \"other-channel\".");
+        var (input, negative, commonMode) = ReadInputs(s);
+        var injection = s.ValueOr("charge_injection", 0, Bound.Any, UnitKind.Coulomb);
+        if (injection != 0 && s.Has("gain") | s.Has("pga_gain_error") | s.Has("pga_input_current"))
+            throw s.ErrorAtKey("charge_injection", "charge_injection is not modelled behind a programmable-gain stage yet (the sampling capacitor is behind the amplifier, the multiplexer in front of it)",
+                "Remove charge_injection, or the gain stage's keys (gain, pga_gain_error, pga_input_current).");
         return common with
         {
+            Input = input,
+            NegativeInput = negative,
+            CommonModeRange = commonMode,
+            ChargeInjectionCoulombs = injection,
             SampleRateHertz = sampleRate,
             AcquisitionTimeSeconds = acquisition,
             SamplingCapacitanceFarads = s.RequiredValue("sampling_capacitance", Bound.Positive, "Write sampling_capacitance = \"5 pF\".", UnitKind.Farad),
             SwitchResistanceOhms = s.RequiredValue("switch_resistance", Bound.NonNegative, "Write switch_resistance = \"1 kohm\" (sampling switch on-resistance).", UnitKind.Ohm),
             Precharge = precharge,
             PrechargeVolts = prechargeVolts,
+            GainStage = GainStageReader.Read(s, null),
         };
+    }
+
+    /// <summary>
+    /// The input: single-ended, or two sampled inputs whose negative one has its own sampling network (each value
+    /// defaulting to the positive input's) and a common-mode range; the negative input's keys are refused on a
+    /// single-ended converter.
+    /// </summary>
+    private static (AdcInput, NegativeInputSpec?, VoltageRange?) ReadInputs(TomlSection s)
+    {
+        var input = s.Choice("input", Inputs) ?? AdcInput.SingleEnded;
+        if (input == AdcInput.SingleEnded)
+        {
+            foreach (var key in DifferentialKeys.Where(s.Has))
+                throw s.ErrorAtKey(key, $"{key} applies only to a differential or pseudo-differential input",
+                    "Remove it, or write input = \"differential\" (or \"pseudo-differential\").");
+            return (input, null, null);
+        }
+        var range = s.Range("common_mode_range", UnitKind.Volt);
+        if (range is { } r && !(r.Max > r.Min))
+            throw s.ErrorAtValue("common_mode_range", "the common-mode range is empty", "Write the input common-mode range the converter works over, e.g. \"0.5 V .. 2.8 V\".");
+        var negative = new NegativeInputSpec
+        {
+            SamplingCapacitanceFarads = s.Quantity("negative_sampling_capacitance", Bound.Positive, UnitKind.Farad)?.Value
+                ?? s.RequiredValue("sampling_capacitance", Bound.Positive, "Write sampling_capacitance = \"5 pF\".", UnitKind.Farad),
+            SwitchResistanceOhms = s.Quantity("negative_switch_resistance", Bound.NonNegative, UnitKind.Ohm)?.Value
+                ?? s.RequiredValue("switch_resistance", Bound.NonNegative, "Write switch_resistance = \"1 kohm\" (sampling switch on-resistance).", UnitKind.Ohm),
+            PinCapacitanceFarads = s.Quantity("negative_pin_capacitance", Bound.NonNegative, UnitKind.Farad)?.Value ?? s.ValueOr("pin_capacitance", 0, Bound.NonNegative, UnitKind.Farad),
+            PinLeakageAmperes = s.Quantity("negative_pin_leakage", Bound.Any, UnitKind.Ampere)?.Value ?? s.ValueOr("pin_leakage", 0, Bound.Any, UnitKind.Ampere),
+            PinLeakageSigned = SignWritten.Of(s, s.Has("negative_pin_leakage") ? "negative_pin_leakage" : "pin_leakage"),
+        };
+        return (input, negative, range is { } c ? new VoltageRange(c.Min, c.Max) : null);
     }
 
     /// <summary>The keys both kinds of converter share: resolution, reference, pin, static errors, conventions, noise.</summary>

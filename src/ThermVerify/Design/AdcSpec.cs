@@ -43,6 +43,10 @@ public sealed record AdcSpec
 {
     /// <summary>The delta-sigma converter's input and filter; null for a successive-approximation converter.</summary>
     public DeltaSigmaSpec? DeltaSigma { get; init; }
+    /// <summary>The programmable-gain stage ahead of the converter; null: the pin drives the converter itself.</summary>
+    public GainStageSpec? GainStage { get; init; }
+    /// <summary>G, the programmable gain (1 without a gain stage): full scale at the pin is the reference over it.</summary>
+    public double ProgrammableGain => GainStage?.Gain ?? 1;
     public ConverterKind Kind => DeltaSigma is null ? ConverterKind.SuccessiveApproximation : ConverterKind.DeltaSigma;
     public required int Bits { get; init; }
     /// <summary>Null when the reference is the divider's excitation (ratiometric).</summary>
@@ -70,6 +74,11 @@ public sealed record AdcSpec
     public double InlLsb { get; init; }
     /// <summary>Reference tempco, fraction per kelvin, at the sign written; the reference sits at the board temperature (fixed reference only).</summary>
     public double ReferenceTempcoPerKelvin { get; init; }
+    /// <summary>
+    /// The charge the multiplexer's switch puts into the pin at each switch event (the acquisition window opening),
+    /// coulombs, positive into the pin; taken as written (a successive-approximation converter only).
+    /// </summary>
+    public double ChargeInjectionCoulombs { get; init; }
     public PrechargeMode Precharge { get; init; } = PrechargeMode.Worst;
     /// <summary>Voltage left by the other channel; null: analyses take the worse of 0 V and full scale.</summary>
     public double? PrechargeVolts { get; init; }
@@ -89,6 +98,18 @@ public sealed record AdcSpec
     public double? NoiseLsb { get; init; }
     /// <summary>The same as a voltage at the input (null: not declared this way). At most one of the two is set.</summary>
     public double? NoiseVolts { get; init; }
+    /// <summary>Single-ended (the default), differential (signed codes) or pseudo-differential.</summary>
+    public AdcInput Input { get; init; } = AdcInput.SingleEnded;
+    /// <summary>The negative input's sampling network; null for a single-ended converter.</summary>
+    public NegativeInputSpec? NegativeInput { get; init; }
+    /// <summary>The input common-mode range, (V+ + V−)/2, the converter works over; null: not checked.</summary>
+    public VoltageRange? CommonModeRange { get; init; }
+    /// <summary>Codes are signed (two's complement) for a differential input.</summary>
+    public bool IsBipolar => Input == AdcInput.Differential;
+    /// <summary>The negative input's leakage at a temperature, doubling as the positive pin's.</summary>
+    public double NegativeLeakageAmperesAt(double celsius) =>
+        Quantities.DoublingLaw.At(NegativeInput?.PinLeakageAmperes ?? 0, PinLeakageCelsius, LeakageDoublingKelvin, celsius);
+
     /// <summary>Whether the design declares the converter's noise; otherwise <see cref="DesignDefaults.ConverterNoiseLsb"/> is assumed.</summary>
     public bool NoiseDeclared => NoiseLsb is not null || NoiseVolts is not null || DeltaSigma?.TableNoise is not null;
 }

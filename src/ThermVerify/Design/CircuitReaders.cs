@@ -6,7 +6,7 @@ namespace ThermVerify.Design;
 /// <summary>Reads [divider], [buffer] and [filter].</summary>
 internal static class CircuitReaders
 {
-    private static readonly Dictionary<string, SensorSide> Sides = new() { ["high"] = SensorSide.High, ["low"] = SensorSide.Low };
+    internal static readonly Dictionary<string, SensorSide> Sides = new() { ["high"] = SensorSide.High, ["low"] = SensorSide.Low };
 
     private static readonly Dictionary<string, BufferTopology> Topologies = new()
     {
@@ -129,6 +129,6 @@ internal static class CircuitReaders
     private static (string FileName, string Text) Include(TomlSection s, string file, string included, SpiceToken at) =>
         SpiceIncludes.Read(s, included, at, new SubcircuitErrors(file, s.KeyPath("subckt_file")).At);
 
-    private static VoltageRange? VoltageRange(TomlSection s, string key) =>
+    internal static VoltageRange? VoltageRange(TomlSection s, string key) =>
         s.Range(key, UnitKind.Volt) is { } r ? new VoltageRange(r.Min, r.Max) : null;
 }

@@ -13,12 +13,12 @@ internal static class DeltaSigmaReader
     /// <summary>The keys only a delta-sigma converter has.</summary>
     public static readonly string[] OwnKeys =
     [
-        "modulator_rate", "data_rate", "input", "input_current", "gain", "filter", "average_length", "filter_reset", "channel_filter",
+        "modulator_rate", "data_rate", "input", "input_current", "filter", "average_length", "filter_reset", "channel_filter",
         "readings_discarded", "noise_table", "rejection_frequencies", "interference",
     ];
 
     /// <summary>The keys only a successive-approximation converter has (its acquisition window and precharge).</summary>
-    public static readonly string[] SuccessiveApproximationKeys = ["sample_rate", "acquisition_time", "switch_resistance", "precharge", "precharge_voltage"];
+    public static readonly string[] SuccessiveApproximationKeys = ["sample_rate", "acquisition_time", "switch_resistance", "precharge", "precharge_voltage", "charge_injection"];
 
     public const int MaximumOrder = 8;
     public const int MaximumAverage = 1024;

@@ -11,7 +11,7 @@ namespace ThermVerify.Design;
 /// </summary>
 internal static class DesignLoader
 {
-    private static readonly string[] TopKeys = ["name", "description", "sensor", "divider", "current_source", "wiring", "buffer", "filter", "protection", "adc", "check", "noise", "tolerances", "netlist"];
+    private static readonly string[] TopKeys = ["name", "description", "sensor", "divider", "bridge", "amplifier", "current_source", "wiring", "buffer", "filter", "protection", "adc", "check", "noise", "tolerances", "netlist"];
 
     public static FrontEndDesign Load(string path)
     {
@@ -48,12 +48,16 @@ internal static class DesignLoader
         var sensorSection = root.RequiredSection("sensor", "Add a [sensor] section with model = \"beta\", \"steinhart-hart\", \"table\" or \"rtd\".");
         var sensor = SensorReader.Read(sensorSection);
         var model = Build(sensorSection, sensor);
+        ExcitationRules.CheckOneShape(root);
+        var bridge = root.Section("bridge") is { } bridgeSection ? BridgeReader.Read(bridgeSection) : default((DividerSpec Half, BridgeSpec Opposite)?);
         var design = new FrontEndDesign
         {
             Name = name,
             Description = root.String("description"),
             Sensor = sensor,
-            Divider = root.Section("divider") is { } divider ? CircuitReaders.ReadDivider(divider) : null,
+            Divider = root.Section("divider") is { } divider ? CircuitReaders.ReadDivider(divider) : bridge?.Half,
+            Bridge = bridge?.Opposite,
+            Amplifier = root.Section("amplifier") is { } amplifier ? AmplifierReader.Read(amplifier) : null,
             CurrentSource = root.Section("current_source") is { } source ? CurrentSourceReader.Read(source) : null,
             Netlist = root.Section("netlist") is { } netlist ? NetlistReader.Read(netlist) : null,
             Wiring = root.Section("wiring") is { } wiring ? WiringReader.Read(wiring) : null,

@@ -19,7 +19,14 @@ internal static partial class DesignWriter
             w.Text("description", design.Description);
         WriteSensor(w, design.Sensor);
         if (design.Divider is { } divider)
-            WriteDivider(w, divider);
+        {
+            if (design.Bridge is { } bridge)
+                WriteBridge(w, divider, bridge);
+            else
+                WriteDivider(w, divider);
+        }
+        if (design.Amplifier is { } amplifier)
+            WriteAmplifier(w, amplifier);
         if (design.CurrentSource is { } source)
             WriteCurrentSource(w, source);
         if (design.Wiring is { } wiring)
@@ -109,6 +116,39 @@ internal static partial class DesignWriter
             w.Value("switch_on_lead", lead, UnitKind.Second);
         if (d.ReadingIntervalSeconds is { } interval)
             w.Value("reading_interval", interval, UnitKind.Second);
+    }
+
+    private static void WriteBridge(Writer w, DividerSpec d, BridgeSpec b)
+    {
+        w.Section("bridge");
+        w.Text("sensor_side", d.SensorSide == SensorSide.High ? "high" : "low");
+        w.Value("fixed_resistor", d.FixedResistorOhms, UnitKind.Ohm);
+        w.Value("fixed_tolerance", d.FixedTolerance, UnitKind.Percent);
+        w.Value("fixed_tempco", d.FixedTempcoPerKelvin, UnitKind.PpmPerKelvin, d.FixedTempcoSigned);
+        w.Value("excitation", d.ExcitationVolts, UnitKind.Volt);
+        w.Value("excitation_tolerance", d.ExcitationTolerance, UnitKind.Percent);
+        w.Value("opposite_high", b.HighOhms, UnitKind.Ohm);
+        w.Value("opposite_high_tolerance", b.HighTolerance, UnitKind.Percent);
+        w.Value("opposite_high_tempco", b.HighTempcoPerKelvin, UnitKind.PpmPerKelvin, b.HighTempcoSigned);
+        w.Value("opposite_low", b.LowOhms, UnitKind.Ohm);
+        w.Value("opposite_low_tolerance", b.LowTolerance, UnitKind.Percent);
+        w.Value("opposite_low_tempco", b.LowTempcoPerKelvin, UnitKind.PpmPerKelvin, b.LowTempcoSigned);
+    }
+
+    private static void WriteAmplifier(Writer w, AmplifierSpec a)
+    {
+        w.Section("amplifier");
+        w.Number("gain", a.Gain);
+        w.Value("gain_error", a.GainError, UnitKind.Percent, a.GainErrorSigned);
+        w.Value("offset_voltage", a.OffsetVolts, UnitKind.Volt, a.OffsetSigned);
+        w.Value("offset_drift", a.OffsetDriftVoltsPerKelvin, UnitKind.VoltPerKelvin, a.OffsetDriftSigned);
+        if (a.CommonModeFraction != 0)
+            w.Value("cmrr", -20 * Math.Log10(Math.Abs(a.CommonModeFraction)), UnitKind.Decibel);
+        w.Value("bias_current", a.BiasCurrentAmperes, UnitKind.Ampere, a.BiasCurrentSigned);
+        if (a.OutputRange is { } output)
+            w.Range("output_range", output.MinVolts, output.MaxVolts, UnitKind.Volt);
+        if (a.InputCommonMode is { } input)
+            w.Range("input_common_mode", input.MinVolts, input.MaxVolts, UnitKind.Volt);
     }
 
     private static void WriteCurrentSource(Writer w, CurrentSourceSpec c)
@@ -218,6 +258,14 @@ internal static partial class DesignWriter
         w.Value("offset_error", a.OffsetErrorLsb, UnitKind.Lsb, a.OffsetErrorSigned);
         w.Value("gain_error", a.GainError, UnitKind.Percent, a.GainErrorSigned);
         w.Value("inl", a.InlLsb, UnitKind.Lsb);
+        if (a.GainStage is { } g)
+        {
+            // A delta-sigma converter's gain is written with its own keys below.
+            if (a.DeltaSigma is null)
+                w.Number("gain", g.Gain);
+            w.Value("pga_gain_error", g.GainError, UnitKind.Percent, g.GainErrorSigned);
+            w.Value("pga_input_current", g.InputCurrentAmperes, UnitKind.Ampere, g.InputCurrentSigned);
+        }
         if (a.DeltaSigma is null)
             w.Text("precharge", a.Precharge switch
             {
@@ -226,8 +274,21 @@ internal static partial class DesignWriter
                 PrechargeMode.Discharged => "discharged",
                 _ => "worst",
             });
+        if (a.ChargeInjectionCoulombs != 0)
+            w.Value("charge_injection", a.ChargeInjectionCoulombs, UnitKind.Coulomb);
         if (a.PrechargeVolts is { } pv)
             w.Value("precharge_voltage", pv, UnitKind.Volt);
+        // The input is written where it is not the default single-ended one (whose normal form stays as it was).
+        if (a.NegativeInput is { } negative)
+        {
+            w.Text("input", a.Input == AdcInput.Differential ? "differential" : "pseudo-differential");
+            if (a.CommonModeRange is { } range)
+                w.Range("common_mode_range", range.MinVolts, range.MaxVolts, UnitKind.Volt);
+            w.Value("negative_sampling_capacitance", negative.SamplingCapacitanceFarads, UnitKind.Farad);
+            w.Value("negative_switch_resistance", negative.SwitchResistanceOhms, UnitKind.Ohm);
+            w.Value("negative_pin_capacitance", negative.PinCapacitanceFarads, UnitKind.Farad);
+            w.Value("negative_pin_leakage", negative.PinLeakageAmperes, UnitKind.Ampere, negative.PinLeakageSigned);
+        }
         w.Text("first_transition", a.FirstTransition == FirstTransition.HalfLsb ? "half-lsb" : "one-lsb");
         w.Text("firmware_inverse", a.FirmwareInverse == CodeInverse.BinMiddle ? "bin-middle" : "bin-edge");
         if (a.NoiseLsb is { } lsb)

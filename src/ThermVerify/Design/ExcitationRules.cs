@@ -8,8 +8,24 @@ namespace ThermVerify.Design;
 /// </summary>
 internal static class ExcitationRules
 {
+    /// <summary>
+    /// Before the sections are read: [bridge] beside [divider] or [current_source] is refused at the bridge, rather than
+    /// at whatever the other section then lacks.
+    /// </summary>
+    public static void CheckOneShape(TomlSection root)
+    {
+        if (root.Section("bridge") is null) return;
+        foreach (var other in new[] { "divider", "current_source" })
+            if (root.Section(other) is not null)
+                throw root.ErrorAtKey("bridge", $"both [bridge] and [{other}]",
+                    "A sensor is excited one way: keep [bridge] (the sensor's half and the opposite half) or the other section.");
+    }
+
     public static void Check(TomlSection root, FrontEndDesign design)
     {
+        if (design.Adc.Input != AdcInput.SingleEnded && design.Bridge is null)
+            throw root.Section("adc")!.ErrorAtValue("input", "a differential input reads a bridge's two outputs, and this design has no bridge",
+                "Write input = \"single-ended\" (or remove it), or describe the front end as a [bridge].");
         if (design.Netlist is not null)
         {
             NetlistRules.Check(root, design);
@@ -17,13 +33,18 @@ internal static class ExcitationRules
         }
         if (design.Divider is null && design.CurrentSource is null)
             throw new DesignException(root.SourceName, 1, 1, "divider", "missing section [divider] or [current_source]",
-                "Add a [divider] section (sensor_side, fixed_resistor, excitation) for a voltage-excited divider, or a [current_source] section (current) for a current through the sensor.");
+                "Add a [divider] section (sensor_side, fixed_resistor, excitation) for a voltage-excited divider, a [bridge] section for a Wheatstone bridge, or a [current_source] section (current) for a current through the sensor.");
         if (design.Divider is not null && design.CurrentSource is not null)
             throw root.ErrorAtKey("current_source", "both [divider] and [current_source]",
                 "A sensor is excited one way: keep [divider] (a voltage and a fixed resistor) or [current_source] (a current through the sensor).");
         if (design.Wiring is { Wires: not 2 } && design.CurrentSource is null)
             throw root.Section("wiring")!.ErrorAtValue("wires", "a divider's sensor is wired with 2 wires",
                 "Write wires = 2 (both leads in the sensor's arm of the divider), or excite the sensor with a [current_source] for 3 or 4 wires.");
+        if (design.Amplifier is not null && design.Bridge is null)
+            throw root.ErrorAtKey("amplifier", "an amplifier is modelled between a bridge's two outputs, and this design has no bridge",
+                "Describe the front end as a [bridge], or use [buffer] for an op-amp stage behind a divider.");
+        if (design.Bridge is not null)
+            BridgeRules.Check(root, design);
         if (design.CurrentSource is not { } source) return;
         if (design.Buffer is not null)
             throw root.ErrorAtKey("buffer", "a buffer behind a current-excited sensor is not modelled",

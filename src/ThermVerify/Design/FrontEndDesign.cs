@@ -11,6 +11,16 @@ public sealed record FrontEndDesign
     public required SensorSpec Sensor { get; init; }
     /// <summary>The voltage-excited divider; null when a current source excites the sensor (<see cref="CurrentSource"/>).</summary>
     public DividerSpec? Divider { get; init; }
+    /// <summary>
+    /// A Wheatstone bridge ([bridge]): the opposite half, whose midpoint is the converter's negative input; <see cref="Divider"/>
+    /// is then the sensor's half. Null: no bridge.
+    /// </summary>
+    public BridgeSpec? Bridge { get; init; }
+    /// <summary>An amplifier between a bridge's outputs and the converter ([amplifier]); null: none.</summary>
+    public AmplifierSpec? Amplifier { get; init; }
+
+    /// <summary>The gain from the sensor's network to the converter: the buffer's, the amplifier's, or 1.</summary>
+    public double StageGain => Buffer?.Gain ?? Amplifier?.Gain ?? 1;
     /// <summary>The current source through the sensor; null for a divider. A design has exactly one of the two.</summary>
     public CurrentSourceSpec? CurrentSource { get; init; }
     /// <summary>A front end given as a SPICE netlist ([netlist]) instead of the built-in shape; null for the built-in shape.</summary>
@@ -42,4 +52,10 @@ public sealed record FrontEndDesign
     public double NominalReferenceVolts =>
         Adc.ReferenceVolts ?? CurrentSource?.NominalReferenceVolts ?? Divider?.ExcitationVolts ?? Netlist?.ReferenceVolts
         ?? throw new InvalidOperationException($"{Name} has no reference.");
+
+    /// <summary>
+    /// Full scale referred to the pin: the reference over the programmable gain (the reference itself without a gain
+    /// stage). Every analysis works on the pin's scale, so the gain enters as the converter's LSB at the pin.
+    /// </summary>
+    public double FullScaleAtPinVolts => NominalReferenceVolts / Adc.ProgrammableGain;
 }

@@ -16,7 +16,7 @@ internal static class NetlistReader
     /// confused with the converter's input.
     /// </summary>
     internal static readonly string[] ReservedNodes = ["hold", "pre"];
-    internal static readonly string[] ReservedElements = ["Vprecharge", "Rsampling", "Csample", "Ssample", "Sprecharge", "Cpin", "Ileak", "Rinput", "Vac"];
+    internal static readonly string[] ReservedElements = ["Vprecharge", "Rsampling", "Csample", "Ssample", "Sprecharge", "Cpin", "Ileak", "Rinput", "Vac", "Epga", "Ipga", "Iinject"];
 
     public static NetlistSpec Read(TomlSection s)
     {

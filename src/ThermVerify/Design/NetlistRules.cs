@@ -7,7 +7,7 @@ namespace ThermVerify.Design;
 /// </summary>
 internal static class NetlistRules
 {
-    private static readonly string[] Shape = ["divider", "current_source", "wiring", "buffer", "filter", "protection"];
+    private static readonly string[] Shape = ["divider", "bridge", "amplifier", "current_source", "wiring", "buffer", "filter", "protection"];
 
     public static void Check(TomlSection root, FrontEndDesign design)
     {

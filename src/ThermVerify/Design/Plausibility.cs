@@ -37,6 +37,7 @@ internal static partial class Plausibility
         [UnitKind.VoltPerKelvin] = new(1e-15, 1e-2),
         [UnitKind.Degree] = new(1e-3, 360),
         [UnitKind.KelvinPerSecond] = new(1e-9, 1e3),
+        [UnitKind.Coulomb] = new(1e-18, 1e-6),
     };
 
     /// <summary>Keys whose plausible range is narrower than their kind's (key path without table-array indices).</summary>
@@ -54,6 +55,7 @@ internal static partial class Plausibility
         ["adc.noise_table.gain"] = new(1e-3, 1e4),
         ["buffer.gain_bandwidth"] = new(1, 1e11),
         ["buffer.gain"] = new(1, 1e6),
+        ["amplifier.gain"] = new(1e-3, 1e4),
         ["buffer.dc_gain"] = new(20, 300),
         ["buffer.output_resistance"] = new(1e-6, 1e6),
         ["buffer.noise_corner"] = new(1e-3, 1e9),

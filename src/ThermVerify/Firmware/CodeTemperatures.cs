@@ -18,7 +18,7 @@ internal static class CodeTemperatures
     public static double TrueCelsiusAtVolts(FirmwareModel model, double volts)
     {
         var unloaded = UnloadedVolts(model, volts);
-        var ohms = model.SensorOhms(unloaded);
+        var ohms = model.SensorOhmsAt(unloaded);
         if (!double.IsFinite(ohms)) return double.NaN;
         try
         {

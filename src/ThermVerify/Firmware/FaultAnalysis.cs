@@ -15,6 +15,7 @@ internal static class FaultAnalysis
         model.Validated();
         tolerances.Validated();
         if (model.Netlist is { } netlist) return NetlistFaultAnalysis.Thresholds(model, netlist, tolerances);
+        if (model.ExcitationAmperes is { } amps) return CurrentThresholds(model, amps, tolerances);
         var corners = Corners(model, tolerances).ToArray();
 
         // The high rail reads Vexc/Q at each corner; the low rail is 0 V, code 0, whatever the tolerances.
@@ -31,7 +32,7 @@ internal static class FaultAnalysis
         ];
 
         var valid = corners.SelectMany(c => new[] { model.Range.MinCelsius, model.Range.MaxCelsius }.Select(t =>
-            Code(model, c, DividerFormula.OutputVolts(model.Side, c.Excitation, model.Sensor.ResistanceOhms(t), c.FixedOhms)))).ToArray();
+            Code(model, c, (model with { ExcitationVolts = c.Excitation, FixedOhms = c.FixedOhms }).UnloadedVolts(model.Sensor.ResistanceOhms(t))))).ToArray();
         var (lowestValid, highestValid) = (valid.Min(), valid.Max());
 
         if (lowestValid < 2 || highMin - highestValid < 2)
@@ -41,6 +42,41 @@ internal static class FaultAnalysis
         var below = (lowestValid + 1) / 2;
         var above = highestValid + (highMin - highestValid) / 2;
         return new FaultThresholds(faults, lowestValid, highestValid, below, above);
+    }
+
+    /// <summary>
+    /// A current-excited sensor, by Ohm's law with the converter drawing nothing: an open sensor lets the source drive its
+    /// output to its compliance limit, beyond full scale (the top code); a shorted one reads 0 V. With a reference
+    /// resistor (the "fixed" part here) an open one stops the current (0 V at the pin) and a shorted one leaves no
+    /// reference (the top code). Healthy codes at the tolerance corners: I·(1 ± e)·R_s over the LSB, which scales with
+    /// the reference's tolerance, or with a reference resistor with the same current and the resistor's tolerance (the
+    /// current cancels).
+    /// </summary>
+    private static FaultThresholds CurrentThresholds(FirmwareModel model, double amps, FaultTolerances t)
+    {
+        var top = model.Adc.MaxCode;
+        var ratiometric = t.ExcitationTracksReference;
+        var valid = new List<int>();
+        foreach (var se in new[] { -1, 1 })
+            foreach (var sr in new[] { -1, 1 })
+                foreach (var sf in new[] { -1, 1 })
+                {
+                    var current = amps * (1 + se * t.ExcitationFraction);
+                    var lsb = model.Adc.LsbVolts * (ratiometric ? (1 + se * t.ExcitationFraction) * (1 + sf * t.FixedResistorFraction) : 1 + sr * t.ReferenceFraction);
+                    valid.AddRange(new[] { model.Range.MinCelsius, model.Range.MaxCelsius }.Select(c => model.Adc.Quantise(current * model.Sensor.ResistanceOhms(c) / lsb)));
+                }
+        var (lowestValid, highestValid) = (valid.Min(), valid.Max());
+        FaultCode[] faults =
+        [
+            new(FaultKind.SensorOpen, true, top, top),
+            new(FaultKind.SensorShorted, false, 0, 0),
+            new(FaultKind.FixedOpen, false, 0, 0),
+            new(FaultKind.FixedShorted, true, top, top),
+        ];
+        if (lowestValid < 2 || top - highestValid < 2)
+            throw new FirmwareInputException(string.Create(CultureInfo.InvariantCulture,
+                $"A healthy sensor in {model.Range} reads codes {lowestValid} to {highestValid}, too close to the fault codes 0 and {top} to leave a threshold with margin between them; narrow the range, tighten the tolerances or change the current or the reference."));
+        return new FaultThresholds(ratiometric ? faults : faults[..2], lowestValid, highestValid, (lowestValid + 1) / 2, highestValid + (top - highestValid) / 2);
     }
 
     private readonly record struct Corner(double Excitation, double LsbVolts, double FixedOhms);

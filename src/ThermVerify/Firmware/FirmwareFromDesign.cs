@@ -16,6 +16,12 @@ internal static class FirmwareFromDesign
     public static FirmwareModel Model(FrontEndDesign design, bool correctForLoading)
     {
         ConverterSupport.RequireSuccessiveApproximation(design, "the firmware table");
+        if (design.Bridge is not null)
+            throw new FirmwareInputException(
+                "Firmware tables are made for a divider or a netlist; this design is a bridge, whose table (through the bridge equation, docs/design-file.md) " +
+                "is not made yet. Run check, worstcase or montecarlo on it instead.");
+        if (design.CurrentSource is { } source)
+            return CurrentModel(design, source, correctForLoading);
         var closedForm = new ClosedFormModel(design);
         // A netlist's table inverts its ideal transfer (docs/netlists.md); the divider's fields are not used.
         var model = design.Netlist is { } netlist
@@ -42,7 +48,30 @@ internal static class FirmwareFromDesign
         return new FirmwareModel(closedForm.Sensor, divider.SensorSide, divider.FixedResistorOhms, divider.ExcitationVolts, closedForm.Adc, design.Check.Range);
     }
 
-    public static FaultTolerances Tolerances(FrontEndDesign design) => new(
+    /// <summary>
+    /// A current-excited sensor: the node is I·R_s (the leads of 3 or 4 wires cancel in the closed form) on the
+    /// converter's scale at the pin. The loading correction is made for a divider only.
+    /// </summary>
+    private static FirmwareModel CurrentModel(FrontEndDesign design, CurrentSourceSpec source, bool correctForLoading)
+    {
+        if (correctForLoading)
+            throw new FirmwareInputException(
+                "The loading correction is made for a divider; this design excites its sensor with a current source, whose correction is not made yet. " +
+                "Make the table without it (leave out --corrected); check shows the DC loading the table then leaves.");
+        var closedForm = new ClosedFormModel(design);
+        var fixedOhms = source.ReferenceResistorOhms ?? design.NominalReferenceVolts / source.CurrentAmperes;
+        return new FirmwareModel(closedForm.Sensor, SensorSide.Low, fixedOhms, source.CurrentAmperes * fixedOhms, closedForm.Adc, design.Check.Range)
+        {
+            ExcitationAmperes = source.CurrentAmperes,
+        }.Validated();
+    }
+
+    public static FaultTolerances Tolerances(FrontEndDesign design) => design.CurrentSource is { } source
+        ? new FaultTolerances(ExcitationFraction: source.CurrentTolerance,
+            ReferenceFraction: source.ReferenceResistorOhms is null ? design.Adc.ReferenceTolerance + ReferenceDriftFraction(design) : 0,
+            FixedResistorFraction: source.ReferenceResistorTolerance,
+            ExcitationTracksReference: source.ReferenceResistorOhms is not null)
+        : new(
         ExcitationFraction: design.Divider?.ExcitationTolerance ?? 0,
         ReferenceFraction: design.Adc.ReferenceTolerance + ReferenceDriftFraction(design),
         FixedResistorFraction: design.Divider?.FixedTolerance ?? 0,

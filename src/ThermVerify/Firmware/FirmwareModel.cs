@@ -25,26 +25,36 @@ public sealed record FirmwareModel(
     Func<double, double>? LoadingCorrectionVolts = null)
 {
     /// <summary>
+    /// A current through the sensor instead of a divider (null: a divider): the node is I·R_s and the firmware reads
+    /// R_s = V/I. <see cref="FixedOhms"/> is then the reference resistor (or V_ref/I without one) and
+    /// <see cref="ExcitationVolts"/> = I·<see cref="FixedOhms"/>; <see cref="Side"/> means nothing.
+    /// </summary>
+    public double? ExcitationAmperes { get; init; }
+
+    /// <summary>
     /// A netlist front end ([netlist]): the node voltage is the netlist's ideal transfer (<see cref="NetlistTransfer"/>)
     /// instead of the divider formula, and <see cref="Side"/>, <see cref="FixedOhms"/> and <see cref="ExcitationVolts"/>
     /// are not used.
     /// </summary>
     internal NetlistSpec? Netlist { get; init; }
 
-    /// <summary>The unloaded node voltage for a sensor resistance: the divider formula, or a netlist's ideal transfer.</summary>
-    internal double UnloadedVolts(double sensorOhms) => Netlist is { } n
-        ? NetlistTransfer.Of(n).OutputVolts(sensorOhms)
+    /// <summary>The unloaded node voltage for a sensor resistance: a netlist's ideal transfer, I·R_s, or the divider's output.</summary>
+    public double UnloadedVolts(double sensorOhms) => Netlist is { } n ? NetlistTransfer.Of(n).OutputVolts(sensorOhms)
+        : ExcitationAmperes is { } amps ? amps * sensorOhms
         : DividerFormula.OutputVolts(Side, ExcitationVolts, sensorOhms, FixedOhms);
 
-    /// <summary>The sensor resistance behind an unloaded node voltage (NaN where none gives it).</summary>
-    internal double SensorOhms(double unloadedVolts) => Netlist is { } n
-        ? NetlistTransfer.Of(n).SensorOhms(unloadedVolts)
+    /// <summary>The sensor resistance behind an unloaded node voltage: the netlist's inverse (NaN where none gives it), V/I, or the divider's inverse.</summary>
+    public double SensorOhmsAt(double unloadedVolts) => Netlist is { } n ? NetlistTransfer.Of(n).SensorOhms(unloadedVolts)
+        : ExcitationAmperes is { } amps
+        ? unloadedVolts / amps
         : DividerFormula.SensorOhms(Side, ExcitationVolts, unloadedVolts, FixedOhms);
 
     /// <summary>Throws <see cref="FirmwareInputException"/> naming the first parameter that cannot make a table.</summary>
     public FirmwareModel Validated()
     {
         ArgumentNullException.ThrowIfNull(Sensor);
+        if (ExcitationAmperes is { } amps && !(double.IsFinite(amps) && amps > 0))
+            throw new FirmwareInputException(Invariant($"The excitation current is {amps} A; give a positive finite current."));
         if (Netlist is null && !(double.IsFinite(FixedOhms) && FixedOhms > 0))
             throw new FirmwareInputException(Invariant($"The fixed resistor is {FixedOhms} Ω; give a positive finite resistance."));
         if (Netlist is null && !(double.IsFinite(ExcitationVolts) && ExcitationVolts > 0))

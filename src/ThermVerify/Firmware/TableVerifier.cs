@@ -133,8 +133,8 @@ internal static class TableVerifier
                     $"The table matches β = {fitted:0.#} K, not the model's {beta.Beta:0.#} K (worst row then {residual:0.###} K off); the table was made with another β."),
                     fitted, residual, []);
         }
-        // A netlist has no fixed resistor or divider side of the built-in shape to fit.
-        if (model.Netlist is not null) yield break;
+        // A netlist or a current-excited model has no fixed resistor of a divider's in its transfer and no side to swap.
+        if (model.Netlist is not null || model.ExcitationAmperes is not null) yield break;
         {
             FirmwareModel WithFixed(double r) => model with { FixedOhms = r };
             var fitted = ParameterSearch.Minimise(r => Rms(WithFixed(r), rows), model.FixedOhms / 10, model.FixedOhms * 10);

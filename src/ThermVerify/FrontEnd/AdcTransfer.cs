@@ -12,19 +12,29 @@ namespace ThermVerify.FrontEnd;
 /// </summary>
 public readonly record struct AdcTransfer(int Bits, double ReferenceVolts)
 {
-    /// <summary>The nominal converter of a design as its firmware sees it (reference: the excitation of a ratiometric divider, I·R_ref with a reference resistor).</summary>
+    /// <summary>
+    /// The nominal converter of a design as its firmware sees it, referred to the pin (reference: the excitation of a
+    /// ratiometric divider, I·R_ref with a reference resistor; over the programmable gain when there is one).
+    /// </summary>
     public static AdcTransfer Of(FrontEndDesign design) =>
-        new(design.Adc.Bits, design.NominalReferenceVolts)
+        new(design.Adc.Bits, design.FullScaleAtPinVolts)
         {
             FirstTransition = design.Adc.FirstTransition,
             Inverse = design.Adc.FirmwareInverse,
+            Bipolar = design.Adc.IsBipolar,
         };
+
+    /// <summary>Signed codes (a differential input): −2^(N−1) .. 2^(N−1) − 1, two's complement, the same Q = V_ref/2^N.</summary>
+    public bool Bipolar { get; init; }
+
+    /// <summary>The lowest code: 0, or −2^(N−1) for signed codes.</summary>
+    public int MinCode => Bipolar ? -(1 << (Bits - 1)) : 0;
 
     public FirstTransition FirstTransition { get; init; }
 
     public CodeInverse Inverse { get; init; }
 
-    public int MaxCode => (1 << Bits) - 1;
+    public int MaxCode => Bipolar ? (1 << (Bits - 1)) - 1 : (1 << Bits) - 1;
 
     /// <summary>Q, one LSB in volts.</summary>
     public double LsbVolts => ReferenceVolts / (1 << Bits);
@@ -44,7 +54,7 @@ public readonly record struct AdcTransfer(int Bits, double ReferenceVolts)
     public int Quantise(double unroundedCode)
     {
         var code = Math.Floor(unroundedCode + 1 - FirstTransitionLsb);
-        return double.IsNaN(code) ? 0 : (int)Math.Clamp(code, 0, MaxCode);
+        return double.IsNaN(code) ? MinCode : (int)Math.Clamp(code, MinCode, MaxCode);
     }
 
     /// <summary>The voltage the firmware takes a code (whole or fractional) to stand for.</summary>
@@ -61,7 +71,7 @@ public readonly record struct AdcTransfer(int Bits, double ReferenceVolts)
     public string Describe() =>
         string.Create(CultureInfo.InvariantCulture,
             $"Q = Vref/2^N; first transition at {(FirstTransition == FirstTransition.HalfLsb ? "1/2" : "1")} LSB, code = " +
-            $"{(FirstTransition == FirstTransition.HalfLsb ? "round(V/Q)" : "floor(V/Q)")} clamped to 0..2^N-1; firmware reads a code as " +
+            $"{(FirstTransition == FirstTransition.HalfLsb ? "round(V/Q)" : "floor(V/Q)")} clamped to {(Bipolar ? "-2^(N-1)..2^(N-1)-1 (V = V+ - V-, signed)" : "0..2^N-1")}; firmware reads a code as " +
             $"{(Inverse == CodeInverse.BinMiddle ? "the middle" : "the lower edge")} of its bin, V = {Formula()}");
 
     private string Formula() => InverseOffsetLsb switch

@@ -38,7 +38,7 @@ internal sealed class ClosedFormModel
     public AdcTransfer Adc { get; }
 
     /// <summary>Gain from the divider to the ADC pin: 1 without a buffer or with a follower.</summary>
-    public double BufferGain => Design.Buffer?.Gain ?? 1;
+    public double BufferGain => Design.StageGain;
 
     public ClosedFormPoint At(double celsius)
     {

@@ -14,11 +14,19 @@ internal readonly record struct ConverterErrors(double OffsetLsb, double GainErr
     public static ConverterErrors None => default;
 
     /// <summary>The unrounded code the converter produces for an ideal code (input over the converter's own LSB).</summary>
-    public double Code(double idealCode, int bits)
+    /// <param name="minCode">The lowest code (−2^(N−1) for signed codes): the bow is zero at both ends of the scale, wherever it starts.</param>
+    public double Code(double idealCode, int bits, int minCode = 0)
     {
-        var x = idealCode / (1 << bits);
+        var x = (idealCode - minCode) / (1 << bits);
         return idealCode * (1 + GainError) + OffsetLsb + InlBowLsb * 4 * x * (1 - x);
     }
+
+    /// <summary>
+    /// The converter's gain error with the programmable-gain stage's ahead of it: the code scales with
+    /// G·(1 + e_amp)·(1 + e_adc), so the two errors multiply.
+    /// </summary>
+    public static double WithAmplifier(double converterGainError, double amplifierGainError) =>
+        (1 + converterGainError) * (1 + amplifierGainError) - 1;
 
     /// <summary>
     /// A design's converter errors at its two corners (or its one, when it has no bound): offset and gain at the sign
@@ -28,9 +36,11 @@ internal readonly record struct ConverterErrors(double OffsetLsb, double GainErr
     public static IReadOnlyList<ConverterErrors> CornersOf(FrontEndDesign design)
     {
         var adc = design.Adc;
+        var stage = adc.GainStage;
         ConverterErrors At(double direction) => new(
             adc.OffsetErrorSigned ? adc.OffsetErrorLsb : direction * Math.Abs(adc.OffsetErrorLsb),
-            adc.GainErrorSigned ? adc.GainError : direction * Math.Abs(adc.GainError),
+            WithAmplifier(adc.GainErrorSigned ? adc.GainError : direction * Math.Abs(adc.GainError),
+                stage is null ? 0 : stage.GainErrorSigned ? stage.GainError : direction * Math.Abs(stage.GainError)),
             direction * adc.InlLsb);
         return StaticBounds.Any(design) ? [At(1), At(-1)] : [At(1)];
     }
@@ -46,7 +56,7 @@ internal readonly record struct ConverterErrors(double OffsetLsb, double GainErr
 internal sealed record Converter(int Bits, double ReferenceVolts, double ReferenceTempcoPerKelvin, IReadOnlyList<ConverterErrors> Cases, bool TempcoIsBound = false)
 {
     public static Converter Of(FrontEndDesign design) =>
-        new(design.Adc.Bits, design.NominalReferenceVolts,
+        new(design.Adc.Bits, design.FullScaleAtPinVolts,
             design.Adc.IsRatiometric ? 0 : design.Adc.ReferenceTempcoPerKelvin, ConverterErrors.CornersOf(design),
             !design.Adc.IsRatiometric && !design.Adc.ReferenceTempcoSigned);
 

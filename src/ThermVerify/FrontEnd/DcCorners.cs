@@ -36,6 +36,8 @@ internal sealed record DcCorners(DcLevels Base, IReadOnlyList<DcLevels> Corners,
                 ReferenceVolts = baseLevels.ReferenceVolts is null ? null : Add(l => l.ReferenceVolts!),
                 SourceVolts = baseLevels.SourceVolts is null ? null : Add(l => l.SourceVolts!),
                 NegativeInputVolts = baseLevels.NegativeInputVolts is null ? null : Add(l => l.NegativeInputVolts!),
+                SecondOutputVolts = baseLevels.SecondOutputVolts is null ? null : Add(l => l.SecondOutputVolts!),
+                AmplifierOutputVolts = baseLevels.AmplifierOutputVolts is null ? null : Add(l => l.AmplifierOutputVolts!),
             };
         }
         return new DcCorners(baseLevels, [Corner(1), Corner(-1)], bounds, signs);

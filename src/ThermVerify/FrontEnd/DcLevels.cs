@@ -27,11 +27,28 @@ internal sealed record DcLevels(
     /// <summary>A current source's output voltage (for its compliance); null for a divider.</summary>
     public double[]? SourceVolts { get; init; }
 
-    /// <summary>The converter's negative input where the wiring puts it on a lead (3 or 4 wires); null: ground.</summary>
+    /// <summary>The converter's negative input where the wiring puts it on a lead (3 or 4 wires) or a bridge's opposite half; null: ground.</summary>
     public double[]? NegativeInputVolts { get; init; }
+
+    /// <summary>A bridge's second output (the opposite midpoint); null without a bridge.</summary>
+    public double[]? SecondOutputVolts { get; init; }
+
+    /// <summary>An amplifier's output; null without one.</summary>
+    public double[]? AmplifierOutputVolts { get; init; }
 
     /// <summary>The converter's negative input at point <paramref name="i"/>.</summary>
     public double NegativeAt(int i) => NegativeInputVolts?[i] ?? 0;
+
+    /// <summary>
+    /// The level a sample settles to, first conversion: the settled pin, less the negative input where the converter
+    /// samples it too (a differential input, whose samples are V+ − V−).
+    /// </summary>
+    public double StaticSampleLevel(FrontEndDesign design, int i) =>
+        StaticPinVolts[i] - (SamplingRun.SamplesNegativeInput(design) ? NegativeAt(i) : 0);
+
+    /// <summary>The same for the steady state: the pin with the average sampling current of precharge case <paramref name="c"/>.</summary>
+    public double AverageSampleLevel(FrontEndDesign design, int c, int i) =>
+        AveragePinVolts[c][i] - (SamplingRun.SamplesNegativeInput(design) ? NegativeAt(i) : 0);
 
     /// <summary>What the converter converts, over the reference where the circuit makes it: its own scale.</summary>
     public double StaticRatio(int i) => (StaticPinVolts[i] - NegativeAt(i)) / (ReferenceVolts?[i] ?? 1);
@@ -49,6 +66,7 @@ internal sealed record DcLevels(
         Adc = design.Adc with { PinLeakageAmperes = 0 },
         Protection = null,
         Divider = design.Divider is { } d ? d with { FixedTempcoPerKelvin = 0 } : null,
+        Bridge = design.Bridge is { } b ? b with { HighTempcoPerKelvin = 0, LowTempcoPerKelvin = 0 } : null,
     };
 
     public static DcLevels Run(FrontEndDesign design, IReadOnlyList<PrechargeCase> cases, IReadOnlyList<double> temperaturesCelsius,
@@ -59,13 +77,24 @@ internal sealed record DcLevels(
         var source = design.CurrentSource;
         if (design.Netlist is not null) return RunNetlist(design, cases, temperaturesCelsius, engine, pinNode);
         if (source is not null) return RunCurrent(design, cases, temperaturesCelsius, engine, pinNode);
-        var plain = Sweep(engine, design, null, temperaturesCelsius, [Divider, pinNode]);
+        var bridge = design.Bridge is not null;
+        var amplifier = design.Amplifier is not null;
+        var plain = Sweep(engine, design, null, temperaturesCelsius,
+            bridge ? amplifier ? [Divider, pinNode, BridgeNegative, AmplifierOutput] : [Divider, pinNode, BridgeNegative] : [Divider, pinNode]);
         var staticPin = plain[1];
-        var afterBuffer = design.Buffer is null ? null : Sweep(engine, WithoutLoading(design), null, temperaturesCelsius, [pinNode])[0];
+        var afterBuffer = design.Buffer is null && !amplifier ? null : Sweep(engine, WithoutLoading(design), null, temperaturesCelsius, [pinNode])[0];
         var average = cases.Select(c => UsesAverageSamplingCurrent(design, c.Volts)
             ? Sweep(engine, design, c.Volts, temperaturesCelsius, [pinNode])[0]
             : staticPin).ToArray();
-        return new DcLevels(plain[0], afterBuffer, staticPin, average);
+        // A bridge: the converter's negative input is the opposite half's midpoint, from the same sweep.
+        // Behind an amplifier the converter reads its single output against ground; the bridge's second output and the
+        // amplifier's output are kept for its common-mode and output-range findings.
+        return new DcLevels(plain[0], afterBuffer, staticPin, average)
+        {
+            NegativeInputVolts = bridge && !amplifier ? plain[2] : null,
+            SecondOutputVolts = bridge ? plain[2] : null,
+            AmplifierOutputVolts = amplifier ? plain[3] : null,
+        };
     }
 
     /// <summary>

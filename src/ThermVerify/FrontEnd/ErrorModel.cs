@@ -46,7 +46,10 @@ internal sealed record ErrorInputs(
 
     /// <summary>The converter's unrounded code for a sample: V over its own LSB, bent by its static errors at that corner.</summary>
     public double UnroundedCode(int i, double sampleVolts, int corner) =>
-        ConverterCases[corner].Code(sampleVolts / ConverterLsbVolts[corner][i], Bits);
+        ConverterCases[corner].Code(sampleVolts / ConverterLsbVolts[corner][i], Bits, MinCode);
+
+    /// <summary>The converter's lowest code (−2^(N−1) for signed codes, else 0).</summary>
+    public int MinCode { get; init; }
 }
 
 /// <summary>
@@ -63,14 +66,16 @@ internal static class ErrorModel
         var board = design.Check.BoardCelsius;
         var heat = SelfHeating.PinVolts(design, sensor, temperatures, dc.Base.DividerVolts);
         var corners = dc.Corners.Count;
-        // A reference the circuit makes (a reference resistor) is read from the corner's own sweep.
+        // A reference the circuit makes (a reference resistor) is read from the corner's own sweep, over the
+        // programmable gain (the converter's scale at the pin).
         var lsb = Enumerable.Range(0, corners).Select(k => dc.Corners[k].ReferenceVolts is { } reference
-            ? reference.Select(v => v / (1 << converter.Bits)).ToArray()
+            ? reference.Select(v => v / design.Adc.ProgrammableGain / (1 << converter.Bits)).ToArray()
             : temperatures.Select(t => converter.LsbVoltsAt(board ?? t, k)).ToArray()).ToArray();
         return new ErrorInputs(temperatures, [.. dc.Corners.Select(c => c.StaticPinVolts)], [.. dc.Corners.Select(c => c.AveragePinVolts)],
             firstOffsets, steadyOffsets, heat, lsb, [.. Enumerable.Range(0, corners).Select(k => converter.Cases[Math.Min(k, converter.Cases.Count - 1)])], converter.Bits)
         {
             NegativeInputVolts = dc.Base.NegativeInputVolts is null ? null : [.. dc.Corners.Select(c => c.NegativeInputVolts!)],
+            MinCode = design.Adc.IsBipolar ? -(1 << (converter.Bits - 1)) : 0,
         };
     }
 

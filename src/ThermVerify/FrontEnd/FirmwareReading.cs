@@ -19,7 +19,7 @@ internal sealed class FirmwareReading
         Model = model;
         if (model.Adc.Bits <= MaximumTabulatedBits)
         {
-            celsiusAtCode = new double[model.Adc.MaxCode + 1];
+            celsiusAtCode = new double[model.Adc.MaxCode - model.Adc.MinCode + 1];
             Array.Fill(celsiusAtCode, NotYetRead);
         }
     }
@@ -33,8 +33,10 @@ internal sealed class FirmwareReading
     public double Celsius(int code)
     {
         if (celsiusAtCode is not { } table) return Model.ReportedCelsius(code);
-        var celsius = table[code];
-        return celsius != NotYetRead ? celsius : table[code] = Model.ReportedCelsius(code);
+        // Signed codes (a differential input) start at MinCode: the table is indexed from there.
+        var index = code - Model.Adc.MinCode;
+        var celsius = table[index];
+        return celsius != NotYetRead ? celsius : table[index] = Model.ReportedCelsius(code);
     }
 
     /// <summary>The reading for an unrounded value on the V/Q scale (linear between codes); NaN outside the codes.</summary>
@@ -43,8 +45,8 @@ internal sealed class FirmwareReading
         var adc = Model.Adc;
         if (celsiusAtCode is null) return Model.CelsiusAtVolts(idealCode * adc.LsbVolts);
         var code = idealCode - adc.InverseOffsetLsb;
-        if (!(code >= 0 && code <= adc.MaxCode)) return double.NaN;
-        var k = Math.Min((int)code, adc.MaxCode - 1);
+        if (!(code >= adc.MinCode && code <= adc.MaxCode)) return double.NaN;
+        var k = Math.Min((int)Math.Floor(code), adc.MaxCode - 1);
         var w = code - k;
         var (low, high) = (Celsius(k), Celsius(k + 1));
         return low + w * (high - low);

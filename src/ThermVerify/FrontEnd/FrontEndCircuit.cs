@@ -35,7 +35,8 @@ internal static class FrontEndCircuit
     public static Circuit Dc(FrontEndDesign design, double? prechargeVolts, double? celsius = null)
     {
         var elements = Front(design, celsius);
-        if (prechargeVolts is { } pre)
+        // Behind a gain stage the acquisition draws its charge from the amplifier, not from the pin.
+        if (prechargeVolts is { } pre && design.Adc.GainStage is null)
         {
             elements.Add(new VoltageSource("Vprecharge", Precharge, Circuit.Ground, new DcWaveform(pre)));
             elements.Add(new Resistor("Rsampling", PinNode(design), Precharge, 1 / (design.Adc.SampleRateHertz * design.Adc.SamplingCapacitanceFarads)));
@@ -54,8 +55,10 @@ internal static class FrontEndCircuit
         var adc = design.Adc;
         var period = 1 / adc.SampleRateHertz;
         var elements = Front(design, celsius);
+        if (adc.ChargeInjectionCoulombs != 0)
+            ChargeInjection.Add(elements, design, conversions);
         elements.Add(new Capacitor("Csample", Hold, Circuit.Ground, adc.SamplingCapacitanceFarads));
-        elements.Add(new TimedSwitch(SamplingSwitch, PinNode(design), Hold, Math.Max(adc.SwitchResistanceOhms, MinimumSwitchOhms), SwitchOffOhms,
+        elements.Add(new TimedSwitch(SamplingSwitch, SampledNode(design, elements), Hold, Math.Max(adc.SwitchResistanceOhms, MinimumSwitchOhms), SwitchOffOhms,
             new PeriodicSchedule(period - adc.AcquisitionTimeSeconds, period, adc.AcquisitionTimeSeconds, conversions)));
         if (prechargeVolts is { } pre)
         {
@@ -65,7 +68,35 @@ internal static class FrontEndCircuit
             elements.Add(new TimedSwitch(PrechargeSwitch, Precharge, Hold, onOhms, SwitchOffOhms,
                 new PeriodicSchedule(0, period, window, conversions)));
         }
+        if (adc.NegativeInput is { } negative)
+        {
+            // The negative input samples the bridge's second output at the same instants, onto its own capacitor
+            // through its own switch, precharged as the positive input is: the converter converts v(hold) − v(holdn).
+            elements.Add(new Capacitor("Csamplen", HoldNegative, Circuit.Ground, negative.SamplingCapacitanceFarads));
+            elements.Add(new TimedSwitch(NegativeSamplingSwitch, BridgeNegative, HoldNegative, Math.Max(negative.SwitchResistanceOhms, MinimumSwitchOhms), SwitchOffOhms,
+                new PeriodicSchedule(period - adc.AcquisitionTimeSeconds, period, adc.AcquisitionTimeSeconds, conversions)));
+            if (prechargeVolts is not null)
+            {
+                var window = period - adc.AcquisitionTimeSeconds - PrechargeGapSeconds(design);
+                elements.Add(new TimedSwitch(NegativePrechargeSwitch, Precharge, HoldNegative, window / (PrechargeTimeConstants * negative.SamplingCapacitanceFarads),
+                    SwitchOffOhms, new PeriodicSchedule(0, period, window, conversions)));
+            }
+        }
         return new Circuit(elements, celsius ?? 25);
+    }
+
+    /// <summary>
+    /// The node the sampling switch takes its charge from: the pin, or with a gain stage the amplifier's output. The
+    /// amplifier is an ideal voltage-controlled source of gain 1 from the pin: every analysis works on the pin's scale
+    /// (full scale V_ref/G), where the amplifier's output G·V_pin reads as V_pin, and what matters physically is that
+    /// the acquisition's charge comes from its output, not from the pin (the pin sees its input current alone). Its gain
+    /// error is the converter's business (ConverterErrors), not the circuit's.
+    /// </summary>
+    private static string SampledNode(FrontEndDesign design, List<Element> elements)
+    {
+        if (design.Adc.GainStage is null) return PinNode(design);
+        elements.Add(new Vcvs(GainStageElement, GainStageOutput, Circuit.Ground, PinNode(design), Circuit.Ground, 1));
+        return GainStageOutput;
     }
 
     /// <summary>Time between the precharge switch opening and the sampling switch closing.</summary>
@@ -116,10 +147,19 @@ internal static class FrontEndCircuit
             else
                 elements.Add(new SensorResistor(SensorElement, top, bottom, design.Sensor.Build()));
             elements.Add(FixedResistor(FixedElement, fixedNodes.Item1, fixedNodes.Item2, divider.FixedResistorOhms, divider.FixedTempcoPerKelvin, board));
+            if (design.Bridge is { } bridge)
+            {
+                // The bridge's opposite half across the same excitation: its midpoint is the converter's negative input,
+                // which draws no current of its own here (the converter reads it at its DC level).
+                elements.Add(FixedResistor(BridgeHighElement, Excitation, BridgeNegative, bridge.HighOhms, bridge.HighTempcoPerKelvin, board));
+                elements.Add(FixedResistor(BridgeLowElement, BridgeNegative, Circuit.Ground, bridge.LowOhms, bridge.LowTempcoPerKelvin, board));
+            }
         }
 
         if (design.Buffer is { } buffer)
             BufferStage.Add(elements, buffer, Divider, board, celsius);
+        if (design.Amplifier is { } amplifier)
+            AmplifierStage.Add(elements, amplifier, board, celsius);
         var pin = PinNode(design);
         if (design.Filter.SeriesResistorOhms > 0)
             elements.Add(new Resistor("Rfilter", DriveNode(design), Pin, design.Filter.SeriesResistorOhms));
@@ -129,11 +169,25 @@ internal static class FrontEndCircuit
             elements.Add(new Capacitor("Cpin", pin, Circuit.Ground, design.Adc.PinCapacitanceFarads));
         if (design.Adc.PinLeakageAmperes != 0)
             elements.Add(Leakage(pin, design.Adc, board));
+        if (design.Adc.NegativeInput is { } negativeInput)
+        {
+            // The negative input's own pin: its capacitance and leakage at the bridge's second output.
+            if (negativeInput.PinCapacitanceFarads > 0)
+                elements.Add(new Capacitor("Cpinn", BridgeNegative, Circuit.Ground, negativeInput.PinCapacitanceFarads));
+            if (negativeInput.PinLeakageAmperes != 0)
+                elements.Add(board is { } b
+                    ? new CurrentSource("Ileakn", BridgeNegative, Circuit.Ground, new DcWaveform(design.Adc.NegativeLeakageAmperesAt(b)))
+                    : new LeakageCurrentSource("Ileakn", BridgeNegative, Circuit.Ground, design.Adc.NegativeLeakageAmperesAt(25), design.Adc.LeakageDoublingKelvin));
+        }
+        // The gain stage's input current, positive into its input (pulling the pin down, as the pin leakage).
+        if (design.Adc.GainStage is { InputCurrentAmperes: not 0 } stage)
+            elements.Add(new CurrentSource(GainStageInputElement, pin, Circuit.Ground, new DcWaveform(stage.InputCurrentAmperes)));
         ProtectionCircuit.Add(elements, design, pin);
         // With nothing else at the pin, the series resistor alone would leave it floating in the DC circuit: the
         // converter's input is there, with its sampling switch open (the sampling circuit's off resistance).
-        if (pin == Pin && elements.Count(e => e.Nodes.Contains(Pin)) == 1)
-            elements.Add(new Resistor("Rinput", Pin, Circuit.Ground, SwitchOffOhms));
+        // So would an amplifier's output with nothing behind it.
+        if ((pin == Pin || design.Amplifier is not null) && elements.Count(e => e.Nodes.Contains(pin)) == 1)
+            elements.Add(new Resistor("Rinput", pin, Circuit.Ground, SwitchOffOhms));
         return elements;
     }
 
@@ -146,11 +200,13 @@ internal static class FrontEndCircuit
         : design.Filter.ReservoirCapacitorFarads;
 
     /// <summary>The node that drives the filter: the buffer's output, or the divider itself.</summary>
-    public static string DriveNode(FrontEndDesign design) => design.Buffer is null ? Divider : BufferOutput;
+    public static string DriveNode(FrontEndDesign design) =>
+        design.Amplifier is not null ? AmplifierOutput : design.Buffer is null ? Divider : BufferOutput;
 
     /// <summary>The op-amp's own output (before any isolation resistor); the divider when there is no buffer.</summary>
     public static string AmplifierNode(FrontEndDesign design) =>
-        design.Buffer is null ? Divider : design.Buffer.IsolationResistorOhms > 0 ? BufferStage.AmplifierOutput : BufferOutput;
+        design.Amplifier is not null ? AmplifierOutput
+        : design.Buffer is null ? Divider : design.Buffer.IsolationResistorOhms > 0 ? BufferStage.AmplifierOutput : BufferOutput;
 
     /// <summary>The ADC pin: its own node behind a series resistor, else the drive node itself.</summary>
     public static string PinNode(FrontEndDesign design) =>

@@ -75,16 +75,22 @@ internal static class FrontEndDecks
                 var settleVolts = design.Check.SettleLimitLsb * model.Adc.LsbVolts;
                 // One period more than is measured: ngspice's .meas cannot read at the very end of a run.
                 var (circuit, transient) = SamplingRun.Setup(design, celsius, precharge, settleVolts, options.Conversions + 1);
+                var differential = SamplingRun.SamplesNegativeInput(design);
                 var sweep = new TransientSweep(transient.StopTimeSeconds, transient.MaxStepSeconds)
                 {
                     StepGuards = StepGuard.ForSwitches(circuit),
                 };
                 return SpiceDeckWriter.Write(circuit, sweep, Header(design, circuit,
                     $"sampling transient, {options.Conversions} conversions at {celsius:0.###} °C, {PrechargeCases.Describe(precharge)}; " +
-                    $"conversion k is v({Hold}) at (k+1)/f_s",
-                    $"prints sample_k for k = 0 … {options.Conversions - 1}: the value the converter takes at conversion k (sample_0 is the check's first conversion)"),
+                    (differential ? $"conversion k is v({Hold}) − v({HoldNegative}) at (k+1)/f_s (a differential input)" : $"conversion k is v({Hold}) at (k+1)/f_s"),
+                    differential
+                        ? $"prints sample_k and sample_neg_k for k = 0 … {options.Conversions - 1}: the two sampling capacitors at conversion k; the converter takes sample_k − sample_neg_k (k = 0 is the check's first conversion)"
+                        : $"prints sample_k for k = 0 … {options.Conversions - 1}: the value the converter takes at conversion k (sample_0 is the check's first conversion)"),
                     Outputs(options, [.. Enumerable.Range(0, options.Conversions)
-                        .Select(k => new MeasureAt($"sample_{k}", Hold, FrontEndCircuit.SampleTimeSeconds(design, k)))]));
+                        .SelectMany(k => differential
+                            ? new[] { new MeasureAt($"sample_{k}", Hold, FrontEndCircuit.SampleTimeSeconds(design, k)),
+                                      new MeasureAt($"sample_neg_{k}", HoldNegative, FrontEndCircuit.SampleTimeSeconds(design, k)) }
+                            : [new MeasureAt($"sample_{k}", Hold, FrontEndCircuit.SampleTimeSeconds(design, k))])]));
             }
             default:
             {
@@ -140,12 +146,20 @@ internal static class FrontEndDecks
             {
                 [Excitation] = design.CurrentSource is null ? "excitation, the top of the divider" : "current source output, above the reference resistor",
                 [Divider] = design.CurrentSource is null ? "divider midpoint, where the sensor meets the fixed resistor" : "the sensor's node, read by the converter",
+                [BridgeNegative] = design.Amplifier is null ? "the bridge's opposite midpoint, the converter's negative input" : "the bridge's opposite midpoint, the amplifier's negative input",
+                [AmplifierOutput] = "the amplifier's output, drives the filter",
+                [AmplifierOffsetInput] = "the amplifier's positive input plus its offset",
+                [AmplifierOffsetBase] = "the amplifier's offset stage",
+                [AmplifierDifferential] = "the amplifier's differential stage",
+                [AmplifierCommonMode] = "the amplifier's common-mode stage",
+                [AmplifierDriftStage] = "the amplifier's drift stage: 1 V times (1 + 0.001·(T − 25 °C))",
                 [SourceTempco] = "the current source's tempco stage: 1 V times (1 + tempco·(T − 25 °C))",
                 [BufferStage.AmplifierOutput] = "op-amp output, before the isolation resistor",
                 [BufferStage.Feedback] = "op-amp feedback divider",
                 [BufferOutput] = "buffer output, drives the filter",
                 [Pin] = "ADC pin, after the series resistor",
                 [Hold] = "sampling capacitor behind the sampling switch",
+                [HoldNegative] = "the negative input's sampling capacitor behind its own switch",
                 [Precharge] = "precharge level of the sampling capacitor",
             },
         };

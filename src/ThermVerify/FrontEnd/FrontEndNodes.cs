@@ -21,6 +21,9 @@ internal static class FrontEndNodes
     /// <summary>The sampling capacitor, behind the sampling switch.</summary>
     public const string Hold = "hold";
 
+    /// <summary>A differential input's negative sampling capacitor, behind its own switch.</summary>
+    public const string HoldNegative = "holdn";
+
     /// <summary>What the sampling capacitor is precharged to before each acquisition.</summary>
     public const string Precharge = "pre";
 
@@ -38,16 +41,36 @@ internal static class FrontEndNodes
     public const string Force = "frc";
     public const string SenseNegative = "sns";
 
+    /// <summary>The amplifier's output behind a bridge; and its inner nodes (offset, gain, common-mode stages; drift stage).</summary>
+    public const string AmplifierOutput = "ina";
+    public const string AmplifierOffsetInput = "inap";
+    public const string AmplifierOffsetBase = "inos";
+    public const string AmplifierDifferential = "inad";
+    public const string AmplifierCommonMode = "inac";
+    public const string AmplifierDriftStage = "atc";
+
+    /// <summary>A bridge's opposite midpoint, the converter's negative input.</summary>
+    public const string BridgeNegative = "opp";
+
     /// <summary>The rail the upper clamp diode goes to.</summary>
     public const string ClampRail = "clamp";
     /// <summary>The potential the insulation leaks to, when it is not ground.</summary>
     public const string InsulationPotential = "ins";
 
+    /// <summary>The programmable-gain stage's output, which the sampling switch of a converter behind it takes its charge from.</summary>
+    public const string GainStageOutput = "pga";
+
     public const string SensorElement = "Rsensor";
+    public const string GainStageElement = "Epga";
+    public const string GainStageInputElement = "Ipga";
     public const string CurrentSourceElement = "Iexc";
     public const string ReferenceResistorElement = "Rref";
     public const string FixedElement = "Rfixed";
+    public const string BridgeHighElement = "Rbridgehi";
+    public const string BridgeLowElement = "Rbridgelo";
     public const string SamplingSwitch = "Ssample";
     public const string PrechargeSwitch = "Sprecharge";
+    public const string NegativeSamplingSwitch = "Ssamplen";
+    public const string NegativePrechargeSwitch = "Sprechargen";
     public const string ExcitationSwitch = "Sexcitation";
 }

@@ -28,9 +28,9 @@ internal sealed record SamplingOffsets(
             var sampling = SettlingGrid.Run(design, pre, temperatures, indices, settleVolts, threads, cancel, engine, runDone);
             outcomes.AddRange(sampling);
             var firstAtGrid = FirstSamples(design, pre, temperatures, indices, sampling, settleVolts, threads, cancel, engine);
-            first[c] = SettlingGrid.Interpolate(temperatures, indices, g => firstAtGrid[g] - dc.StaticPinVolts[indices[g]]);
-            var average = dc.AveragePinVolts[c];
-            steady[c] = SettlingGrid.Interpolate(temperatures, indices, g => sampling[g].SteadyVolts - average[indices[g]]);
+            first[c] = SettlingGrid.Interpolate(temperatures, indices, g => firstAtGrid[g] - dc.StaticSampleLevel(design, indices[g]));
+            var cc = c;
+            steady[c] = SettlingGrid.Interpolate(temperatures, indices, g => sampling[g].SteadyVolts - dc.AverageSampleLevel(design, cc, indices[g]));
         }
         return new SamplingOffsets(cases, indices, outcomes, first, steady);
     }
@@ -45,7 +45,7 @@ internal sealed record SamplingOffsets(
         var first = cases.Select(c => temperatures.Select((t, i) =>
             (design.Divider?.SwitchOnLeadSeconds is null
                 ? SamplingRun.FirstSampleVolts(design, t, c.Volts, settleVolts, engine)
-                : SwitchOnSettling.FirstSampleVolts(design, t, c.Volts, settleVolts, engine)) - dc.StaticPinVolts[i]).ToArray()).ToArray();
+                : SwitchOnSettling.FirstSampleVolts(design, t, c.Volts, settleVolts, engine)) - dc.StaticSampleLevel(design, i)).ToArray()).ToArray();
         return new(cases, [.. Enumerable.Range(0, temperatures.Count)], [], first, [.. cases.Select(_ => new double[temperatures.Count])]);
     }
 
@@ -78,9 +78,9 @@ internal sealed record SamplingOffsets(
             var run = SamplingRun.Run(design, t, pre, settleVolts, cancel: cancel, engine: engine);
             outcomes.Add(run);
             firstSample = design.Divider?.SwitchOnLeadSeconds is null ? run.FirstVolts : SwitchOnSettling.FirstSampleVolts(design, t, pre, settleVolts, engine);
-            steady[precharge][index] = run.SteadyVolts - dc.AveragePinVolts[precharge][index];
+            steady[precharge][index] = run.SteadyVolts - dc.AverageSampleLevel(design, precharge, index);
         }
-        first[precharge][index] = firstSample - dc.StaticPinVolts[index];
+        first[precharge][index] = firstSample - dc.StaticSampleLevel(design, index);
         return this with { SimulatedIndices = [.. SimulatedIndices.Append(index).Distinct()], Outcomes = outcomes, FirstVolts = first, SteadyVolts = steady };
     }
 

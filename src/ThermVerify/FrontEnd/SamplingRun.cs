@@ -37,7 +37,28 @@ internal static class SamplingRun
         ICheckEngine? engine = null)
     {
         var simulation = Start(engine, design, celsius, prechargeVolts, settleVolts, conversions: 1);
-        return simulation.VoltageAt(FrontEndCircuit.SampleTimeSeconds(design, 0), FrontEndNodes.Hold);
+        return Sample(design, simulation, 0);
+    }
+
+    /// <summary>Whether the converter samples its negative input too (a differential input): its samples are then v(hold) − v(holdn).</summary>
+    public static bool SamplesNegativeInput(FrontEndDesign design) => design.Adc.NegativeInput is not null;
+
+    /// <summary>Conversion k's sample: the sampling capacitor's voltage, less the negative one's for a differential input.</summary>
+    private static double Sample(FrontEndDesign design, ISampledTransient simulation, int k)
+    {
+        var t = FrontEndCircuit.SampleTimeSeconds(design, k);
+        var positive = simulation.VoltageAt(t, FrontEndNodes.Hold);
+        return SamplesNegativeInput(design) ? positive - simulation.VoltageAt(t, FrontEndNodes.HoldNegative) : positive;
+    }
+
+    /// <summary>The exact periodic steady sample, where the engine has it (both capacitors for a differential input).</summary>
+    private static bool TrySteady(FrontEndDesign design, ISampledTransient simulation, out double volts)
+    {
+        if (!simulation.TryPeriodicSteadyState(FrontEndNodes.SamplingSwitch, FrontEndNodes.Hold, out volts)) return false;
+        if (!SamplesNegativeInput(design)) return true;
+        if (!simulation.TryPeriodicSteadyState(FrontEndNodes.NegativeSamplingSwitch, FrontEndNodes.HoldNegative, out var negative)) return false;
+        volts -= negative;
+        return true;
     }
 
     public static SamplingOutcome Run(FrontEndDesign design, double celsius, double? prechargeVolts, double settleVolts,
@@ -45,7 +66,7 @@ internal static class SamplingRun
     {
         var limit = maximumConversions ?? Limits.Work.Limits.MaximumConversions;
         var simulation = Start(engine, design, celsius, prechargeVolts, settleVolts, limit);
-        if (simulation.TryPeriodicSteadyState(FrontEndNodes.SamplingSwitch, FrontEndNodes.Hold, out var exactSteady))
+        if (TrySteady(design, simulation, out var exactSteady))
             return ApproachTo(exactSteady);
 
         var samples = new List<double>();
@@ -54,7 +75,7 @@ internal static class SamplingRun
         for (var k = 0; k < limit; k++)
         {
             cancel.ThrowIfCancellationRequested();
-            samples.Add(simulation.VoltageAt(FrontEndCircuit.SampleTimeSeconds(design, k), FrontEndNodes.Hold));
+            samples.Add(Sample(design, simulation, k));
             if (k == 0) continue;
 
             var delta = samples[k] - samples[k - 1];
@@ -85,7 +106,7 @@ internal static class SamplingRun
             for (var k = 0; k < Math.Min(limit, ApproachConversions) && near < 3; k++)
             {
                 cancel.ThrowIfCancellationRequested();
-                approach.Add(simulation.VoltageAt(FrontEndCircuit.SampleTimeSeconds(design, k), FrontEndNodes.Hold));
+                approach.Add(Sample(design, simulation, k));
                 near = Math.Abs(approach[k] - steady) < settleVolts ? near + 1 : 0;
             }
             return new SamplingOutcome(celsius, prechargeVolts, approach[0], steady, approach.Count, false, approach) { ExactSteadyState = true };
@@ -122,7 +143,7 @@ internal static class SamplingRun
     /// by the other channel's precharge, to time stepping in every period.
     /// </summary>
     internal static double LinearityToleranceFor(FrontEndDesign design) =>
-        0.01 * AdcTransfer.Of(design).LsbVolts / Math.Max(1, Math.Abs(design.Buffer?.Gain ?? 1));
+        0.01 * AdcTransfer.Of(design).LsbVolts / Math.Max(1, Math.Abs(design.StageGain));
 
     /// <summary>
     /// The time-stepping engine's relative tolerance for the accuracy the check needs: a sample within 0.01 LSB, with

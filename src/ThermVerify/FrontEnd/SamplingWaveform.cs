@@ -42,6 +42,12 @@ public sealed record SamplingWaveform(double Celsius, double? PrechargeVolts, do
             {
                 pinVolts[j] = run.VoltageAt(times[j], pin);
                 holdVolts[j] = run.VoltageAt(times[j], FrontEndNodes.Hold);
+                // A differential input: both traces are differences, the inputs' and the two sampling capacitors'.
+                if (SamplingRun.SamplesNegativeInput(design))
+                {
+                    pinVolts[j] -= run.VoltageAt(times[j], FrontEndNodes.BridgeNegative);
+                    holdVolts[j] -= run.VoltageAt(times[j], FrontEndNodes.HoldNegative);
+                }
             }
             traces.Add(new AcquisitionTrace(k + 1, [.. times.Select(t => t - (sampleTime - acquisition))], pinVolts, holdVolts, holdVolts[^1]));
         }

@@ -64,7 +64,7 @@ internal static class SelfHeating
         {
             if (rise[i] == 0) continue;
             var r = sensor.ResistanceOhms(celsius[i]);
-            volts[i] = rise[i] * (design.Buffer?.Gain ?? 1) * SensorTransfer.SlopeVoltsPerOhm(design, r)
+            volts[i] = rise[i] * design.StageGain * SensorTransfer.SlopeVoltsPerOhm(design, r)
                        * sensor.SlopeOhmsPerKelvin(celsius[i]);
         }
         return volts;

@@ -3,7 +3,7 @@ using ThermVerify.Design;
 namespace ThermVerify.FrontEnd;
 
 /// <summary>
-/// The closed form of a design's excitation, whichever it is: a netlist's ideal transfer (<see cref="NetlistTransfer"/>), the unloaded divider (<see cref="DividerFormula"/>) or a
+/// The closed form of a design's excitation, whichever it is: a netlist's ideal transfer (<see cref="NetlistTransfer"/>), the unloaded divider (<see cref="DividerFormula"/>), a Wheatstone bridge (<see cref="BridgeFormula"/>: the divider less the opposite half, so its slope and the pin's Thevenin resistance are the divider's) or a
 /// current through the sensor (<see cref="CurrentFormula"/>). Every closed form of the check asks through here.
 /// </summary>
 internal static class SensorTransfer
@@ -13,6 +13,8 @@ internal static class SensorTransfer
         ? NetlistTransfer.Of(n).OutputVolts(sensorOhms)
         : design.CurrentSource is { } c
         ? CurrentFormula.OutputVolts(c.CurrentAmperes, sensorOhms)
+        : design.Bridge is { } b
+        ? BridgeFormula.OutputVolts(design.VoltageDivider, b, sensorOhms)
         : DividerFormula.OutputVolts(design.VoltageDivider.SensorSide, design.VoltageDivider.ExcitationVolts, sensorOhms, design.VoltageDivider.FixedResistorOhms);
 
     /// <summary>The firmware's inverse: the sensor resistance a voltage stands for; NaN where no sensor gives it.</summary>
@@ -20,6 +22,8 @@ internal static class SensorTransfer
         ? NetlistTransfer.Of(n).SensorOhms(volts)
         : design.CurrentSource is { } c
         ? CurrentFormula.SensorOhms(c.CurrentAmperes, volts)
+        : design.Bridge is { } b
+        ? BridgeFormula.SensorOhms(design.VoltageDivider, b, volts)
         : DividerFormula.SensorOhms(design.VoltageDivider.SensorSide, design.VoltageDivider.ExcitationVolts, volts, design.VoltageDivider.FixedResistorOhms);
 
     /// <summary>dV/dR_sensor of the ideal transfer.</summary>

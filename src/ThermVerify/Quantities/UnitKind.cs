@@ -40,4 +40,6 @@ public enum UnitKind
     Degree,
     /// <summary>A rate of temperature change, e.g. a ramp the reading must follow (K/s, K/min).</summary>
     KelvinPerSecond,
+    /// <summary>An electric charge in coulombs, e.g. a switch's charge injection (pC).</summary>
+    Coulomb,
 }

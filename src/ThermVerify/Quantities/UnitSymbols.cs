@@ -18,6 +18,7 @@ internal static class UnitSymbols
         ["s"] = UnitKind.Second,
         ["Hz"] = UnitKind.Hertz,
         ["K"] = UnitKind.Kelvin,
+        ["C"] = UnitKind.Coulomb,
     };
 
     /// <summary>Spellings that take no prefix.</summary>
@@ -147,7 +148,7 @@ internal static class UnitSymbols
     public static bool TakesPrefix(UnitKind kind) => kind is UnitKind.Ohm or UnitKind.Volt or UnitKind.Ampere
         or UnitKind.Farad or UnitKind.Second or UnitKind.Hertz or UnitKind.Kelvin or UnitKind.WattPerKelvin
         or UnitKind.VoltPerSecond or UnitKind.VoltPerRootHertz or UnitKind.AmperePerRootHertz or UnitKind.VoltPerKelvin
-        or UnitKind.KelvinPerSecond;
+        or UnitKind.KelvinPerSecond or UnitKind.Coulomb;
 
     /// <summary>The symbol printed after the (prefixed) number.</summary>
     public static string PrintedSymbol(UnitKind kind) => kind switch
@@ -173,6 +174,7 @@ internal static class UnitSymbols
         UnitKind.VoltPerKelvin => "V/K",
         UnitKind.Degree => "\u00B0",
         UnitKind.KelvinPerSecond => "K/s",
+        UnitKind.Coulomb => "C",
         _ => throw new ArgumentOutOfRangeException(nameof(kind)),
     };
 
@@ -200,6 +202,7 @@ internal static class UnitSymbols
         UnitKind.VoltPerKelvin => "a voltage drift (e.g. \"5 uV/K\")",
         UnitKind.Degree => "an angle in degrees (e.g. \"45 deg\")",
         UnitKind.KelvinPerSecond => "a rate of temperature change (e.g. \"0.5 K/s\", \"20 mK/s\")",
+        UnitKind.Coulomb => "a charge (e.g. \"2 pC\", \"-500 fC\")",
         _ => throw new ArgumentOutOfRangeException(nameof(kind)),
     };
 

@@ -48,7 +48,18 @@ public static class CheckJson
             mode = ReportFormat.PrechargeText(r.Design.Adc.Precharge),
             cases = r.PrechargeCases.Select(c => new { name = c.Name, volts = c.Volts }),
         },
-        adc = new { bits = r.Adc.Bits, referenceVolts = r.Adc.ReferenceVolts, lsbVolts = r.Adc.LsbVolts },
+        adc = new
+        {
+            bits = r.Adc.Bits, referenceVolts = r.Adc.ReferenceVolts, lsbVolts = r.Adc.LsbVolts,
+            gainStage = r.Design.Adc.GainStage is { } g
+                ? new
+                {
+                    gain = g.Gain, gainError = g.GainError, gainErrorBound = !g.GainErrorSigned,
+                    inputCurrentAmperes = g.InputCurrentAmperes, inputCurrentBound = !g.InputCurrentSigned,
+                    converterReferenceVolts = r.Design.NominalReferenceVolts,
+                }
+                : null,
+        },
         noise = NoiseJson.ToJson(r.Noise),
         deltaSigma = DeltaSigmaJson.ToJson(r.DeltaSigma),
         points = r.Points.Select(p => new

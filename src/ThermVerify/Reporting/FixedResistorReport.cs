@@ -17,7 +17,7 @@ public static class FixedResistorReport
     {
         if (ranked.Count == 0) throw new ArgumentException("A fixed-resistor report needs at least one candidate.", nameof(ranked));
         var model = new ClosedFormModel(design);
-        var present = FixedResistorSearch.FixedOf(design).PresentOhms;
+        var present = FixedResistorSearch.PresentOhms(design);
         var best = ranked[0];
         var presentRank = ranked.Select((c, i) => (c, i)).Where(x => Math.Abs(x.c.Ohms / present - 1) < 1e-9).Select(x => x.i + 1).FirstOrDefault();
         var verdict = $"Best {options.Series.Name} value by {Describe(options.Objective)}: {Ohms(best.Ohms)} ({Figure(best, options.Objective)}); " +
@@ -33,7 +33,7 @@ public static class FixedResistorReport
         [
             new("candidates", "Ranked candidates",
             [
-                $"{ranked.Count} values of {options.Series.Name} (IEC 60063) tried as the fixed resistor, ranked by {Describe(options.Objective)}; the first {Math.Min(Math.Max(1, top), ranked.Count)} below, --json holds them all." +
+                $"{ranked.Count} values of {options.Series.Name} (IEC 60063) tried as the {FixedResistorSearch.PartName(design)}, ranked by {Describe(options.Objective)}; the first {Math.Min(Math.Max(1, top), ranked.Count)} below, --json holds them all." +
                 (slopeOnly ? "" : " Each figure comes from a full check of that candidate (settling by transient on a 9-point grid) with the self-heating added; neighbours can swap places by a fraction of an LSB, so read the ranking together with the resolution."),
             ], [new ReportTable(["rank", "R_fixed", "worst error (K)", "at (°C)", "worst K/LSB", "|dV/dT| (mV/K)", "self-heating (mK)", "budget"], [.. rows])]),
         ];

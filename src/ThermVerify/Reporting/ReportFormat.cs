@@ -157,6 +157,12 @@ internal static class ReportFormat
         if (d.Netlist is { } n)
             return ("netlist", $"{n.File} ({n.Parsed.Elements.Count} elements): sensor {string.Join(", ", n.SensorElements)}, converter at node {n.PinNode}" +
                                (n.Excitation.Count > 0 ? $", excitation {string.Join(", ", n.Excitation)}" : ""));
+        if (d is { Divider: { } half, Bridge: { } bridge })
+            return ("bridge", $"sensor on the {(half.SensorSide == Design.SensorSide.High ? "high" : "low")} side, fixed {V(half.FixedResistorOhms, UnitKind.Ohm)}, " +
+                              $"opposite half {V(bridge.HighOhms, UnitKind.Ohm)} over {V(bridge.LowOhms, UnitKind.Ohm)}, excitation {V(half.ExcitationVolts, UnitKind.Volt)}" +
+                              (d.Amplifier is null ? ", read differentially" : "") +
+                              (d.Amplifier is { } amp ? $", through an amplifier of gain {amp.Gain.ToString("0.###", System.Globalization.CultureInfo.InvariantCulture)}" : "") +
+                              (d.Wiring is { } bridgeLeads ? $", 2 wires of {V(bridgeLeads.LeadOhms, UnitKind.Ohm)}" : ""));
         if (d.Divider is { } divider)
             return ("divider", $"sensor on the {(divider.SensorSide == Design.SensorSide.High ? "high" : "low")} side, fixed {V(divider.FixedResistorOhms, UnitKind.Ohm)}, excitation {V(divider.ExcitationVolts, UnitKind.Volt)}" +
                                (d.Wiring is { } leads ? $", 2 wires of {V(leads.LeadOhms, UnitKind.Ohm)}" : ""));
@@ -169,9 +175,15 @@ internal static class ReportFormat
 
     /// <summary>The converter's reference in words: a voltage, the divider's excitation, or the reference resistor's I·R_ref.</summary>
     public static string Reference(Design.FrontEndDesign d, AdcTransfer adc) =>
-        !d.Adc.IsRatiometric ? V(adc.ReferenceVolts, UnitKind.Volt)
-        : d.Netlist?.ReferenceNode is { } node ? $"ratiometric, v({node}) = {V(adc.ReferenceVolts, UnitKind.Volt)}"
-        : d.CurrentSource is null ? "ratiometric" : $"ratiometric, I·R_ref = {V(adc.ReferenceVolts, UnitKind.Volt)}";
+        (!d.Adc.IsRatiometric ? V(d.NominalReferenceVolts, UnitKind.Volt)
+        : d.Netlist?.ReferenceNode is { } node ? $"ratiometric, v({node}) = {V(d.NominalReferenceVolts, UnitKind.Volt)}"
+        : d.CurrentSource is null ? "ratiometric" : $"ratiometric, I·R_ref = {V(d.NominalReferenceVolts, UnitKind.Volt)}") + GainStage(d, adc);
+
+    /// <summary>The programmable-gain stage in words, with the full scale it leaves at the pin (empty without one).</summary>
+    private static string GainStage(Design.FrontEndDesign d, AdcTransfer adc) => d.Adc.GainStage is not { } g ? ""
+        : $", gain stage ×{N(g.Gain, "0.####")}" + (g.GainError != 0 ? $" (gain error {(g.GainErrorSigned ? N(g.GainError * 100, "+0.####;-0.####") : "±" + N(Math.Abs(g.GainError) * 100, "0.####"))} %)" : "") +
+          (g.InputCurrentAmperes != 0 ? $", input current {(g.InputCurrentSigned && g.InputCurrentAmperes > 0 ? "+" : "")}{V(g.InputCurrentAmperes, UnitKind.Ampere)}" : "") +
+          $": full scale at the pin {V(adc.ReferenceVolts, UnitKind.Volt)}";
 
     public static IEnumerable<(string Label, string Value)> Settings(CheckResult result) =>
         Settings(result.Design, result.SensorDescription, result.Adc).Append(("precharge", PrechargeLine(result)));
@@ -185,7 +197,7 @@ internal static class ReportFormat
         yield return ("filter", d.Filter.SeriesResistorOhms == 0 && d.Filter.ReservoirCapacitorFarads == 0 ? "none"
             : $"series {V(d.Filter.SeriesResistorOhms, UnitKind.Ohm)}, reservoir {V(d.Filter.ReservoirCapacitorFarads, UnitKind.Farad)}");
         yield return ("ADC", $"{d.Adc.Bits} bits, reference {Reference(d, adc)}, " +
-                             $"1 LSB = {V(adc.LsbVolts, UnitKind.Volt)}, {V(d.Adc.SampleRateHertz, UnitKind.Hertz)}, acquisition {V(d.Adc.AcquisitionTimeSeconds, UnitKind.Second)}, " +
+                             $"1 LSB{(d.Adc.GainStage is null ? "" : " at the pin")} = {V(adc.LsbVolts, UnitKind.Volt)}, {V(d.Adc.SampleRateHertz, UnitKind.Hertz)}, acquisition {V(d.Adc.AcquisitionTimeSeconds, UnitKind.Second)}, " +
                              $"C_sh {V(d.Adc.SamplingCapacitanceFarads, UnitKind.Farad)}, precharge {Precharge(d.Adc.Precharge)}");
         yield return ("conventions", adc.Describe());
         yield return ("check", $"{V(d.Check.Range.MinCelsius, UnitKind.Celsius)} to {V(d.Check.Range.MaxCelsius, UnitKind.Celsius)} in {V(d.Check.StepKelvin, UnitKind.Kelvin)} steps, budget {V(d.Check.BudgetKelvin, UnitKind.Kelvin)}" +

@@ -34,6 +34,17 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
                 ExcitationVolts = d.ExcitationVolts * (1 + Dev(ToleranceKind.Excitation)),
             }
             : null;
+        var bridge = nominal.Bridge is { } br
+            ? br with
+            {
+                HighOhms = br.HighOhms * (1 + Dev(ToleranceKind.BridgeHighResistance)),
+                HighTempcoPerKelvin = Bound(ToleranceKind.BridgeHighTempco, br.HighTempcoPerKelvin),
+                HighTempcoSigned = true,
+                LowOhms = br.LowOhms * (1 + Dev(ToleranceKind.BridgeLowResistance)),
+                LowTempcoPerKelvin = Bound(ToleranceKind.BridgeLowTempco, br.LowTempcoPerKelvin),
+                LowTempcoSigned = true,
+            }
+            : null;
         // The unit's current and reference resistor are in its circuit: the reference the converter divides by is the
         // unit's own I·R_ref, simulated, so the current's deviation cancels there as in the part.
         var source = nominal.CurrentSource is { } c
@@ -47,10 +58,23 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
                 ReferenceResistorTempcoSigned = true,
             }
             : null;
+        var stage = nominal.Adc.GainStage is { } g
+            ? g with
+            {
+                GainError = Bound(ToleranceKind.GainStageGain, g.GainError),
+                GainErrorSigned = true,
+                InputCurrentAmperes = Bound(ToleranceKind.GainStageInputCurrent, g.InputCurrentAmperes),
+                InputCurrentSigned = true,
+            }
+            : null;
         var adc = nominal.Adc with
         {
             PinLeakageAmperes = nominal.Adc.PinLeakageAmperes * (1 + Dev(ToleranceKind.Leakage)),
             PinLeakageSigned = true,
+            NegativeInput = nominal.Adc.NegativeInput is { } n
+                ? n with { PinLeakageAmperes = n.PinLeakageAmperes * (1 + Dev(ToleranceKind.Leakage)), PinLeakageSigned = true }
+                : null,
+            GainStage = stage,
         };
         var buffer = nominal.Buffer is { } b
             ? b with
@@ -60,6 +84,20 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
                 BiasCurrentAmperes = Bound(ToleranceKind.BufferBias, b.BiasCurrentAmperes),
                 OffsetSigned = true,
                 OffsetDriftSigned = true,
+                BiasCurrentSigned = true,
+            }
+            : null;
+        var amplifier = nominal.Amplifier is { } am
+            ? am with
+            {
+                OffsetVolts = Bound(ToleranceKind.AmplifierOffset, am.OffsetVolts),
+                OffsetDriftVoltsPerKelvin = Bound(ToleranceKind.AmplifierDrift, am.OffsetDriftVoltsPerKelvin),
+                GainError = Bound(ToleranceKind.AmplifierGainError, am.GainError),
+                CommonModeFraction = Bound(ToleranceKind.AmplifierCommonMode, am.CommonModeFraction),
+                BiasCurrentAmperes = Bound(ToleranceKind.AmplifierBias, am.BiasCurrentAmperes),
+                OffsetSigned = true,
+                OffsetDriftSigned = true,
+                GainErrorSigned = true,
                 BiasCurrentSigned = true,
             }
             : null;
@@ -76,14 +114,17 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
             Protection = protection,
             Sensor = new PerturbedSensorSpec(nominal.Sensor, sensor),
             Divider = divider,
+            Bridge = bridge,
             CurrentSource = source,
             Adc = adc,
             Buffer = buffer,
+            Amplifier = amplifier,
         };
-        var reference = nominal.Adc.ReferenceVolts is { } v ? v * (1 + Dev(ToleranceKind.Reference)) : design.NominalReferenceVolts;
+        // The converter's scale at the pin: its reference over the programmable gain.
+        var reference = (nominal.Adc.ReferenceVolts is { } v ? v * (1 + Dev(ToleranceKind.Reference)) : design.NominalReferenceVolts) / nominal.Adc.ProgrammableGain;
         var tempco = nominal.Adc.IsRatiometric ? 0 : Bound(ToleranceKind.ReferenceTempco, nominal.Adc.ReferenceTempcoPerKelvin);
         var errors = new ConverterErrors(Bound(ToleranceKind.AdcOffset, nominal.Adc.OffsetErrorLsb),
-            Bound(ToleranceKind.AdcGain, nominal.Adc.GainError), Dev(ToleranceKind.AdcInl));
+            ConverterErrors.WithAmplifier(Bound(ToleranceKind.AdcGain, nominal.Adc.GainError), stage?.GainError ?? 0), Dev(ToleranceKind.AdcInl));
         return new BuiltUnit(design, sensor, new Converter(nominal.Adc.Bits, reference, tempco, [errors], TempcoIsBound: false));
     }
 

@@ -69,15 +69,49 @@ internal static class FixedResistorSearch
     {
         ConverterSupport.RequireSuccessiveApproximation(design, "the fixed-resistor choice");
         options ??= new FixedResistorSearchOptions();
-        var (present, withFixed) = FixedOf(design);
+        if (design.Bridge is not null)
+            throw new DesignException(design.Name, 1, 1, "bridge",
+                "choose-fixed chooses a divider's fixed resistor, and this design is a bridge, whose two halves it does not choose yet",
+                "Run check, worstcase or montecarlo on it.");
         var sensor = design.Sensor.Build();
         var range = design.Check.Range;
         var ends = new[] { sensor.ResistanceOhms(range.MinCelsius), sensor.ResistanceOhms(range.MaxCelsius) };
-        // Between the sensor's extremes: outside them the divider's slope falls at both ends of the range at once.
-        var low = options.MinimumOhms ?? ends.Min();
-        var high = options.MaximumOhms ?? ends.Max();
+        double low, high;
+        Func<double, FrontEndDesign> with;
+        if (design.CurrentSource is { } source)
+        {
+            if (source.ReferenceResistorOhms is null)
+                throw new DesignException(design.Name, 1, 1, "current_source",
+                    "choose-fixed chooses a divider's fixed resistor or a current source's reference resistor, and this design has neither: its converter has a fixed reference",
+                    "Run check, worstcase or montecarlo on it, or give current_source.reference_resistor (with adc.reference = \"ratiometric\").");
+            if (options.Objective == FixedResistorObjective.SlopeAt)
+                throw new DesignException(design.Name, 1, 1, "current_source",
+                    "the slope objective ranks a divider's fixed resistor; a current source's pin voltage I·R_s does not depend on the reference resistor",
+                    "Rank by the worst error or the resolution (the reference resistor sets the LSB).");
+            // From the smallest reference that still holds the amplified signal, G·R_s(max) (code = 2^N·G·R_s/R_ref), to 4 times it.
+            low = options.MinimumOhms ?? design.Adc.ProgrammableGain * ends.Max();
+            high = options.MaximumOhms ?? 4 * low;
+            with = r => design with { CurrentSource = source with { ReferenceResistorOhms = r } };
+        }
+        else if (design.Netlist is { } netlist)
+        {
+            var name = FixedName(design, netlist);
+            // As for a divider: between the sensor's extremes.
+            low = options.MinimumOhms ?? ends.Min();
+            high = options.MaximumOhms ?? ends.Max();
+            with = r => design with { Netlist = netlist.WithValue(name, r) };
+        }
+        else
+        {
+            var divider = design.VoltageDivider;
+            // Between the sensor's extremes: outside them the divider's slope falls at both ends of the range at once.
+            low = options.MinimumOhms ?? ends.Min();
+            high = options.MaximumOhms ?? ends.Max();
+            with = r => design with { Divider = divider with { FixedResistorOhms = r } };
+        }
         if (!(low > 0 && high >= low))
             throw new ArgumentException($"The fixed-resistor search needs 0 < minimum ≤ maximum; got {low:G4} Ω to {high:G4} Ω.");
+        var present = PresentOhms(design);
         var candidates = Candidates(options.Series, low, high);
         // The resistor fitted now is always ranked, so the gain of changing it can be judged.
         if (!candidates.Any(c => SameValue(c, present))) candidates = [.. candidates.Append(present).Order()];
@@ -87,8 +121,7 @@ internal static class FixedResistorSearch
         var done = 0;
         Parallel.For(0, candidates.Count, parallel, i =>
         {
-            results[i] = Evaluate(withFixed(candidates[i]), candidates[i], options.Objective, slopeAt, options.Cancel)
-                with { IsPresent = SameValue(candidates[i], present) };
+            results[i] = Evaluate(with(candidates[i]), candidates[i], options.Objective, slopeAt, options.Cancel) with { IsPresent = SameValue(candidates[i], present) };
             options.Progress?.Report(new RunProgress(Interlocked.Increment(ref done), candidates.Count));
         });
         return options.Objective switch
@@ -113,23 +146,21 @@ internal static class FixedResistorSearch
     }
 
     /// <summary>
-    /// The design's present fixed resistor and the design with another value in its place: a divider's fixed resistor,
-    /// or the netlist resistor the design names as `fixed` in [netlist].
+    /// The resistor the search chooses, as the design has it now: the divider's fixed resistor, the current source's
+    /// reference resistor, or the netlist resistor [netlist] names as `fixed`.
     /// </summary>
-    public static (double PresentOhms, Func<double, FrontEndDesign> WithFixed) FixedOf(FrontEndDesign design)
-    {
-        if (design.Netlist is { } netlist)
-        {
-            var name = netlist.FixedElement ?? throw new DesignException(design.Name, 1, 1, "netlist.fixed",
-                "choose-fixed replaces a fixed resistor, and this netlist design names none",
-                "Name the netlist's resistor to replace in [netlist]: fixed = \"Rtop\".");
-            return (netlist.Parsed.Find(name)!.Value, ohms => design with { Netlist = netlist.WithValue(name, ohms) });
-        }
-        var divider = design.Divider ?? throw new DesignException(design.Name, 1, 1, "current_source",
-            "choose-fixed chooses a divider's fixed resistor, and this design has none: a current source excites its sensor",
-            "Run check, worstcase or montecarlo on it; check's remedies give the reference resistor's tempco needed.");
-        return (divider.FixedResistorOhms, ohms => design with { Divider = divider with { FixedResistorOhms = ohms } });
-    }
+    internal static double PresentOhms(FrontEndDesign design) => design.Netlist is { } netlist
+        ? netlist.Parsed.Find(FixedName(design, netlist))!.Value
+        : design.CurrentSource?.ReferenceResistorOhms ?? design.VoltageDivider.FixedResistorOhms;
+
+    /// <summary>What the search chooses, in words.</summary>
+    internal static string PartName(FrontEndDesign design) => design.Netlist is { } netlist ? $"fixed resistor {FixedName(design, netlist)}"
+        : design.CurrentSource is null ? "fixed resistor" : "reference resistor";
+
+    /// <summary>The netlist resistor choose-fixed replaces: the one [netlist] names as `fixed`.</summary>
+    private static string FixedName(FrontEndDesign design, NetlistSpec netlist) => netlist.FixedElement ?? throw new DesignException(design.Name, 1, 1, "netlist.fixed",
+        "choose-fixed replaces a fixed resistor, and this netlist design names none",
+        "Name the netlist's resistor to replace in [netlist]: fixed = \"Rtop\".");
 
     private static FixedResistorCandidate Evaluate(FrontEndDesign candidate, double ohms, FixedResistorObjective objective, double slopeAt,
         CancellationToken cancel)
@@ -149,7 +180,10 @@ internal static class FixedResistorSearch
             [.. points.Select(p => p.Celsius)], [.. points.Select(p => p.DividerVolts)]));
         var errors = points.Select(p => p.ErrorKelvin).ToArray();
         var worst = Enumerable.Range(0, errors.Length).MaxBy(i => Key(Math.Abs(errors[i])));
-        var within = Enumerable.Range(0, errors.Length).All(i => double.IsFinite(errors[i]) && Math.Abs(errors[i]) <= points[i].BudgetKelvin);
+        // A current source must also hold its current and the amplified signal stay in range (a larger reference resistor
+        // raises the source's output): a candidate that breaks either is over, whatever its errors.
+        var within = Enumerable.Range(0, errors.Length).All(i => double.IsFinite(errors[i]) && Math.Abs(errors[i]) <= points[i].BudgetKelvin)
+                     && !check.Findings.Any(f => f.Id is ComplianceRule.Id or GainRangeRule.Id);
         var margin = Enumerable.Range(0, errors.Length).Min(i => double.IsFinite(errors[i]) ? points[i].BudgetKelvin - Math.Abs(errors[i]) : double.NegativeInfinity);
         return new FixedResistorCandidate(ohms, errors[worst], points[worst].Celsius,
             points.Max(p => p.KelvinPerLsb), slope, rise.DefaultIfEmpty(0).Max(), within) { MarginKelvin = margin };

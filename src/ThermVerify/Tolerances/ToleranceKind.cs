@@ -39,8 +39,30 @@ public enum ToleranceKind
     ReferenceResistorTempco,
     /// <summary>3 wires: the mismatch of the second current against the first, spread over ±|mismatch|.</summary>
     CurrentMismatch,
+    /// <summary>A bridge's opposite half, the resistor from the excitation to the negative output, as a fraction.</summary>
+    BridgeHighResistance,
+    /// <summary>Its tempco, spread over ±|tempco|.</summary>
+    BridgeHighTempco,
+    /// <summary>A bridge's opposite half, the resistor from the negative output to ground, as a fraction.</summary>
+    BridgeLowResistance,
+    /// <summary>Its tempco, spread over ±|tempco|.</summary>
+    BridgeLowTempco,
+    /// <summary>A bridge amplifier's offset, spread over ±|offset| (V).</summary>
+    AmplifierOffset,
+    /// <summary>Its offset drift, spread over ±|drift| (V/K).</summary>
+    AmplifierDrift,
+    /// <summary>Its gain error, spread over ±|error| (a fraction).</summary>
+    AmplifierGainError,
+    /// <summary>Its common-mode gain over its differential gain, spread over ±10^(−CMRR/20).</summary>
+    AmplifierCommonMode,
+    /// <summary>Its input bias current, spread over ±|current| (A).</summary>
+    AmplifierBias,
     /// <summary>The clamp diodes' net reverse leakage, spread over ±|leakage| (one diode or the other leaking).</summary>
     ClampLeakage,
+    /// <summary>The programmable-gain stage's gain error, spread over ±|error| (a fraction).</summary>
+    GainStageGain,
+    /// <summary>The programmable-gain stage's input current, spread over ±|current|.</summary>
+    GainStageInputCurrent,
     /// <summary>A netlist part's value ([[netlist.part]] tolerance), as a fraction; the element is <see cref="ToleranceParameter.Element"/>.</summary>
     NetlistPartValue,
     /// <summary>A netlist resistor's tempco, spread over ±|tempco|; the element is <see cref="ToleranceParameter.Element"/>.</summary>

@@ -69,9 +69,17 @@ internal sealed class ToleranceSet
             }
         if (design.Divider is { } divider)
         {
-            Add(ToleranceKind.FixedResistance, "divider.fixed_tolerance", divider.FixedTolerance, "");
-            Add(ToleranceKind.FixedTempco, "divider.fixed_tempco", divider.FixedTempcoPerKelvin, "1/K", divider.FixedTempcoSigned);
-            Add(ToleranceKind.Excitation, "divider.excitation_tolerance", divider.ExcitationTolerance, "");
+            var section = design.Bridge is null ? "divider" : "bridge";
+            Add(ToleranceKind.FixedResistance, $"{section}.fixed_tolerance", divider.FixedTolerance, "");
+            Add(ToleranceKind.FixedTempco, $"{section}.fixed_tempco", divider.FixedTempcoPerKelvin, "1/K", divider.FixedTempcoSigned);
+            Add(ToleranceKind.Excitation, $"{section}.excitation_tolerance", divider.ExcitationTolerance, "");
+        }
+        if (design.Bridge is { } bridge)
+        {
+            Add(ToleranceKind.BridgeHighResistance, "bridge.opposite_high_tolerance", bridge.HighTolerance, "");
+            Add(ToleranceKind.BridgeHighTempco, "bridge.opposite_high_tempco", bridge.HighTempcoPerKelvin, "1/K", bridge.HighTempcoSigned);
+            Add(ToleranceKind.BridgeLowResistance, "bridge.opposite_low_tolerance", bridge.LowTolerance, "");
+            Add(ToleranceKind.BridgeLowTempco, "bridge.opposite_low_tempco", bridge.LowTempcoPerKelvin, "1/K", bridge.LowTempcoSigned);
         }
         if (design.CurrentSource is { } source)
         {
@@ -92,15 +100,28 @@ internal sealed class ToleranceSet
         Add(ToleranceKind.AdcOffset, "adc.offset_error", adc.OffsetErrorLsb, "LSB", adc.OffsetErrorSigned);
         Add(ToleranceKind.AdcGain, "adc.gain_error", adc.GainError, "", adc.GainErrorSigned);
         Add(ToleranceKind.AdcInl, "adc.inl", adc.InlLsb, "LSB");
+        if (adc.GainStage is { } stage)
+        {
+            Add(ToleranceKind.GainStageGain, "adc.pga_gain_error", stage.GainError, "", stage.GainErrorSigned);
+            Add(ToleranceKind.GainStageInputCurrent, "adc.pga_input_current", stage.InputCurrentAmperes, "A", stage.InputCurrentSigned);
+        }
         if (design.Buffer is { } buffer)
         {
             Add(ToleranceKind.BufferOffset, "buffer.offset_voltage", buffer.OffsetVolts, "V", buffer.OffsetSigned);
             Add(ToleranceKind.BufferDrift, "buffer.offset_drift", buffer.OffsetDriftVoltsPerKelvin, "V/K", buffer.OffsetDriftSigned);
             Add(ToleranceKind.BufferBias, "buffer.bias_current", buffer.BiasCurrentAmperes, "A", buffer.BiasCurrentSigned);
         }
+        if (design.Amplifier is { } amplifier)
+        {
+            Add(ToleranceKind.AmplifierOffset, "amplifier.offset_voltage", amplifier.OffsetVolts, "V", amplifier.OffsetSigned);
+            Add(ToleranceKind.AmplifierDrift, "amplifier.offset_drift", amplifier.OffsetDriftVoltsPerKelvin, "V/K", amplifier.OffsetDriftSigned);
+            Add(ToleranceKind.AmplifierGainError, "amplifier.gain_error", amplifier.GainError, "", amplifier.GainErrorSigned);
+            Add(ToleranceKind.AmplifierCommonMode, "amplifier.cmrr", amplifier.CommonModeFraction, "");
+            Add(ToleranceKind.AmplifierBias, "amplifier.bias_current", amplifier.BiasCurrentAmperes, "A", amplifier.BiasCurrentSigned);
+        }
         if (design.Protection is { HasClamps: true } protection)
             Add(ToleranceKind.ClampLeakage, "protection.clamp_leakage", protection.ClampLeakageAmperes, "A", protection.ClampLeakageSigned);
-        if (adc.PinLeakageAmperes != 0)
+        if (adc.PinLeakageAmperes != 0 || adc.NegativeInput is { PinLeakageAmperes: not 0 })
             Add(ToleranceKind.Leakage, "tolerances.leakage_spread", design.Tolerances.LeakageSpread, "");
         return new ToleranceSet(list);
     }

@@ -77,14 +77,6 @@ public class DeltaSigmaCheckTests
         Assert.Equal(10, remedy.Value!.Value, 9);
         Assert.Contains("a check of the changed design has no interference finding", remedy.Proof);
     }
-
-    [Fact]
-    public void A_programmable_gain_other_than_one_is_refused_by_check_not_read_at_gain_one()
-    {
-        var design = DeltaSigmaDesigns.Make(("adc.gain", "16"));
-        var e = Assert.Throws<ConverterUnsupportedException>(() => FrontEndCheck.Run(design));
-        Assert.Contains("gain", e.Message);
-    }
 }
 
 /// <summary>The check's JSON and text carry the delta-sigma analyses as the result holds them (docs/json-output.md).</summary>

@@ -24,6 +24,9 @@ public class ExampleVerdictTests
     [InlineData("oven-pt1000.toml", true, null)]
     [InlineData("mash-tun-pt100-current.toml", true, null)]
     [InlineData("greenhouse-pt1000-4wire.toml", true, null)]
+    [InlineData("fermenter-pt1000-bridge.toml", true, null)]
+    [InlineData("brine-chiller-bridge-differential.toml", true, null)]
+    [InlineData("autoclave-pt100-bridge-inamp.toml", true, null)]
     [InlineData("table-sensor-freezer.toml", true, null)]
     [InlineData("cold-storage-logger-buffered.toml", true, null)]
     [InlineData("soil-probe-switched.toml", true, null)]
@@ -38,6 +41,7 @@ public class ExampleVerdictTests
     [InlineData("cold-storage-logger-reservoir.toml", false, "reservoir-recovery")]
     [InlineData("cold-storage-logger-bare-opamp.toml", false, "buffer-stability")]
     [InlineData("kiln-bank-pt100-deltasigma.toml", false, "channel-switch")]
+    [InlineData("stability-chamber-pt100-pga.toml", true, null)]
     public void Example_shows_its_verdict(string example, bool passes, string? failingFinding)
     {
         var result = Checked(example);

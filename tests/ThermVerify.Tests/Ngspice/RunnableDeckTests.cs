@@ -50,8 +50,14 @@ public class RunnableDeckTests
         var (circuit, options) = SamplingRun.Setup(design, celsius, precharge.Volts, settleVolts, conversions);
         var ours = BuiltInEngine.Instance.StartTransient(circuit, options);
         for (var k = 0; k < conversions; k++)
+        {
             Tolerance.AssertClose(ours.VoltageAt(FrontEndCircuit.SampleTimeSeconds(design, k), FrontEndNodes.Hold), printed.Measure($"sample_{k}"),
                 0, 0.01 * model.Adc.LsbVolts + 5e-6, $"{file}: conversion {k}");
+            // A differential input's negative sampling capacitor is printed beside it.
+            if (SamplingRun.SamplesNegativeInput(design))
+                Tolerance.AssertClose(ours.VoltageAt(FrontEndCircuit.SampleTimeSeconds(design, k), FrontEndNodes.HoldNegative), printed.Measure($"sample_neg_{k}"),
+                    0, 0.01 * model.Adc.LsbVolts + 5e-6, $"{file}: conversion {k}, negative input");
+        }
     }
 
     [NgspiceTheory]

@@ -24,10 +24,6 @@ internal static class DeltaSigmaCheck
     public static CheckResult Run(FrontEndDesign design, CheckOptions options)
     {
         var d = design.Adc.DeltaSigma!;
-        if (d.Gain != 1)
-            throw new ConverterUnsupportedException(
-                $"{design.Name}: check does not yet model a delta-sigma converter's programmable gain ({d.Gain:G4}); it is refused rather than read at a gain of 1. " +
-                "Set adc.gain = 1 (and the reference the converter then has), or leave this design to the hardware.");
         var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToArray();
         var evaluation = CheckEvaluation.Run(design, temperatures, options, kinds: null, noise: false);
         var model = evaluation.Model;
@@ -37,6 +33,7 @@ internal static class DeltaSigmaCheck
         IReadOnlyList<CheckPoint> points = [.. evaluation.Points.Select((p, i) => p with { Noise = noise[i], Precharge = Reading, FirstConversion = false })];
         var findings = FindingRules.Evaluate(design, model, points).Select(f => f with { RemedyNote = options.ComputeRemedies ? NoSearch : null }).ToList();
         findings.AddRange(ComplianceRule.Evaluate(design, evaluation.Dc, evaluation.Temperatures, points, model.Adc.LsbVolts));
+        findings.AddRange(GainRangeRule.Evaluate(design, evaluation.Dc, evaluation.Temperatures, points));
         var report = DeltaSigmaFindings.Analyse(design, options.Engine);
         findings.AddRange(DeltaSigmaFindings.Evaluate(design, report));
         IReadOnlyList<Finding> ordered = FindingRules.OverBudget(model, points, findings) is { } budget

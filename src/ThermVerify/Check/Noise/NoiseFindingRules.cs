@@ -59,6 +59,7 @@ internal static class NoiseFindingRules
     {
         "converter" => I($"the converter ({s.Label})"),
         SamplingNoiseCircuit.SwitchResistor => "the sampling switch (kT/C)",
+        SamplingNoiseCircuit.NegativeSwitchResistor => "the negative input's sampling switch (kT/C)",
         _ => I($"{s.Source} ({s.Label})"),
     };
 

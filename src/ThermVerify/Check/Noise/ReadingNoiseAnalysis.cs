@@ -33,6 +33,9 @@ internal static class ReadingNoiseAnalysis
         var adc = design.Adc;
         var fastest = Math.Max(design.Buffer?.GainBandwidthHertz ?? 0,
             1 / (2 * Math.PI * Math.Max(adc.SwitchResistanceOhms, 1) * adc.SamplingCapacitanceFarads));
+        // A differential input's negative network has its own pole.
+        if (adc.NegativeInput is { } n)
+            fastest = Math.Max(fastest, 1 / (2 * Math.PI * Math.Max(n.SwitchResistanceOhms, 1) * n.SamplingCapacitanceFarads));
         return 1000 * fastest;
     }
 
@@ -70,15 +73,19 @@ internal static class ReadingNoiseAnalysis
     /// <summary>What a conversion samples of the front end at one temperature: the switch's share (new every time), the rest, by generator.</summary>
     internal sealed record SampledNoise(double FastVariance, double SlowVariance, IReadOnlyList<NoiseShare> Shares, IReadOnlyList<NoiseDensity> PinDensity);
 
-    /// <summary>√(kT/C_sh) with the switch at the board temperature (the swept one without it), the closed form printed beside the analysis.</summary>
+    /// <summary>
+    /// √(kT/C_sh) with the switch at the board temperature (the swept one without it), the closed form printed beside the
+    /// analysis; a differential input keeps two capacitors' independent kT/C: √(kT/C₊ + kT/C₋).
+    /// </summary>
     private static double KtcVolts(FrontEndDesign design, double celsius) =>
-        Math.Sqrt(PhysicalConstants.BoltzmannJoulesPerKelvin * PhysicalConstants.ToKelvin(design.Check.BoardCelsius ?? celsius) / design.Adc.SamplingCapacitanceFarads);
+        Math.Sqrt(PhysicalConstants.BoltzmannJoulesPerKelvin * PhysicalConstants.ToKelvin(design.Check.BoardCelsius ?? celsius)
+                  * (1 / design.Adc.SamplingCapacitanceFarads + (design.Adc.NegativeInput is { } n ? 1 / n.SamplingCapacitanceFarads : 0)));
 
     internal static SampledNoise Sample(FrontEndDesign design, double celsius, ICheckEngine engine, bool density)
     {
         var circuit = SamplingNoiseCircuit.Acquiring(design, celsius);
         var own = SamplingNoiseCircuit.OwnTemperatures(design, circuit);
-        var hold = FrontEndNodes.Hold;
+        var hold = SamplingNoiseCircuit.Output(design);
         var sweep = FrequencySweep.Logarithmic(FromHertz, ToHertz(design), PointsPerDecade);
         if (design.Buffer?.Subcircuit is not null)
         {
@@ -94,7 +101,7 @@ internal static class ReadingNoiseAnalysis
             .Select(g => new NoiseShare(g.Element, g.Label, noise.GeneratorRmsVolts(g.Element, g.Label)))
             .Where(x => x.RmsVolts > 0)];
         var all = noise.RmsVolts();
-        var switchShare = shares.Where(x => x.Source == SamplingNoiseCircuit.SwitchResistor).Sum(x => x.RmsVolts * x.RmsVolts);
+        var switchShare = shares.Where(x => x.Source is SamplingNoiseCircuit.SwitchResistor or SamplingNoiseCircuit.NegativeSwitchResistor).Sum(x => x.RmsVolts * x.RmsVolts);
         IReadOnlyList<NoiseDensity> pin = [];
         if (density)
         {
@@ -177,7 +184,7 @@ internal static class ReadingNoiseAnalysis
     {
         if (design.Buffer?.Subcircuit is not null) return double.NaN;
         var circuit = SamplingNoiseCircuit.Acquiring(design, celsius);
-        var noise = NoiseAnalysis.Run(circuit, FrontEndNodes.Hold, FrequencySweep.Logarithmic(FromHertz, ToHertz(design), PointsPerDecade),
+        var noise = NoiseAnalysis.Run(circuit, SamplingNoiseCircuit.Output(design), FrequencySweep.Logarithmic(FromHertz, ToHertz(design), PointsPerDecade),
             elementCelsius: SamplingNoiseCircuit.OwnTemperatures(design, circuit));
         var total = noise.RmsVolts();
         return total * total / noise.OutputPsd[0];

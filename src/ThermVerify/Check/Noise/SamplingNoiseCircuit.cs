@@ -17,6 +17,13 @@ internal static class SamplingNoiseCircuit
 
     public const string SamplingCapacitor = "Csample";
 
+    /// <summary>A differential input's closed negative switch, and the node that carries v(hold) − v(holdn).</summary>
+    public const string NegativeSwitchResistor = "Rswitchn";
+    public const string DifferentialHold = "holdd";
+
+    /// <summary>The node whose voltage the converter keeps: the sampling capacitor's, or the two capacitors' difference.</summary>
+    public static string Output(FrontEndDesign design) => design.Adc.NegativeInput is null ? FrontEndNodes.Hold : DifferentialHold;
+
     private const double MinimumSwitchOhms = 1e-3;
 
     public static Circuit Acquiring(FrontEndDesign design, double celsius)
@@ -33,6 +40,14 @@ internal static class SamplingNoiseCircuit
         if (!(adc.SamplingCapacitanceFarads > 0)) return;
         elements.Add(new Resistor(SwitchResistor, FrontEndCircuit.PinNode(design), FrontEndNodes.Hold, Math.Max(adc.SwitchResistanceOhms, MinimumSwitchOhms)));
         elements.Add(new Capacitor(SamplingCapacitor, FrontEndNodes.Hold, Circuit.Ground, adc.SamplingCapacitanceFarads));
+        if (adc.NegativeInput is not { } negative) return;
+        // The negative input acquires at the same time through its own switch; a unity VCVS forms the difference the
+        // converter keeps (the 1 Ω it drives gives the node its second connection; an ideal source's output takes its
+        // noise current without a voltage).
+        elements.Add(new Resistor(NegativeSwitchResistor, FrontEndNodes.BridgeNegative, FrontEndNodes.HoldNegative, Math.Max(negative.SwitchResistanceOhms, MinimumSwitchOhms)));
+        elements.Add(new Capacitor("Csamplen", FrontEndNodes.HoldNegative, Circuit.Ground, negative.SamplingCapacitanceFarads));
+        elements.Add(new Vcvs("Esampled", DifferentialHold, Circuit.Ground, FrontEndNodes.Hold, FrontEndNodes.HoldNegative, 1));
+        elements.Add(new Resistor("Rsampled", DifferentialHold, Circuit.Ground, 1));
     }
 
     /// <summary>The resistances whose noise is not at the circuit's (swept) temperature, by element name.</summary>

@@ -26,6 +26,8 @@ internal sealed class FindingProbe(string findingId, double celsius, PrechargeCa
             var n = Noise.ReadingNoiseAnalysis.Reading(design, new ClosedFormModel(design), Celsius, SampledFrontEnd(design));
             return FindingId == Noise.NoiseFindingRules.NoiseId ? n.CoveredVolts : n.RampLagVolts;
         }
+        if (FindingId == ChargeInjectionRule.Id)
+            return Math.Abs(ChargeInjectionRule.OwnShareVolts(design, Celsius, precharge?.Volts, first ?? true, new ClosedFormModel(design).Adc.LsbVolts, options));
         var sampling = FindingId is "settling" or "converter" or FindingRules.OverBudgetId;
         IReadOnlyList<PrechargeCase>? cases = precharge is null ? null : [precharge];
         SampleKinds? kinds = !sampling ? null : first switch { true => SampleKinds.FirstOnly, false => SampleKinds.SteadyOnly, _ => SampleKinds.Both };
@@ -46,6 +48,8 @@ internal sealed class FindingProbe(string findingId, double celsius, PrechargeCa
             "buffer-static" => Math.Abs(p.Simulated.BufferVolts),
             "self-heating" => Math.Abs(p.Simulated.SelfHeatingVolts),
             "converter" => ConverterShift(e, p),
+            // In range or not: the search holds the excess at zero, so any excess reads as beyond every target.
+            GainRangeRule.Id => GainRangeRule.ExcessPinVolts(design, e.Dc, 0) > 0 ? double.MaxValue : 0,
             _ => double.NaN,
         };
     }
@@ -82,5 +86,5 @@ internal sealed class FindingProbe(string findingId, double celsius, PrechargeCa
     /// <summary>Whether a finding has a probe at all (the buffer's loop, headroom and recovery are searched by their own analyses).</summary>
     public static bool Supports(string findingId) =>
         findingId is FindingRules.OverBudgetId or "settling" or "reservoir-recovery" or "dc-loading" or "buffer-static" or "self-heating" or "converter"
-            or "buffer-noise" or Noise.NoiseFindingRules.NoiseId or Noise.NoiseFindingRules.RampLagId;
+            or "buffer-noise" or Noise.NoiseFindingRules.NoiseId or Noise.NoiseFindingRules.RampLagId or GainRangeRule.Id or ChargeInjectionRule.Id;
 }

@@ -30,6 +30,35 @@ internal static class Knobs
         ["adc.gain_error"] = "calibrate the converter's gain error out in firmware",
         ["adc.inl"] = "correct the converter's INL code by code in firmware",
         ["adc.reference_tempco"] = "use a reference with a negligible tempco",
+        ["adc.pga_input_current"] = "use a gain stage with negligible input current",
+        ["adc.pga_gain_error"] = "calibrate the gain stage's gain error out in firmware",
+        ["adc.charge_injection"] = "use a multiplexer with negligible charge injection",
+    };
+
+    public static readonly Knob GainStageInputCurrent = Magnitude("adc.pga_input_current", "A", d => d.Adc.GainStage!.InputCurrentAmperes,
+        (d, v) => d with { Adc = d.Adc with { GainStage = d.Adc.GainStage! with { InputCurrentAmperes = v } } },
+        "choose a gain stage whose input current is at most");
+
+    public static readonly Knob GainStageGainError = Magnitude("adc.pga_gain_error", "fraction", d => d.Adc.GainStage!.GainError,
+        (d, v) => d with { Adc = d.Adc with { GainStage = d.Adc.GainStage! with { GainError = v } } },
+        "choose a gain stage (or calibrate) with a gain error of at most") with { Calibrated = true };
+
+    /// <summary>The gain searched down to a thousandth of the design's: the largest that keeps the amplified signal in range.</summary>
+    public static readonly Knob Gain = new("adc.gain", "", Better.Lower, d => d.Adc.GainStage?.Gain,
+        (d, v) => d with
+        {
+            Adc = d.Adc with { GainStage = d.Adc.GainStage! with { Gain = v }, DeltaSigma = d.Adc.DeltaSigma is { } ds ? ds with { Gain = v } : null },
+        },
+        d => d.Adc.ProgrammableGain * 1e-3, "lower the programmable gain to at most");
+
+    public static readonly Knob ChargeInjectionKnob = Magnitude("adc.charge_injection", "C", d => d.Adc.ChargeInjectionCoulombs,
+        (d, v) => d with { Adc = d.Adc with { ChargeInjectionCoulombs = v } }, "choose a multiplexer whose charge injection is at most");
+
+    /// <summary>A current-excited sensor on 2 wires: 3 wires (the second current cancels the leads) or 4 (the sense pair carries no current).</summary>
+    public static readonly Knob Wires = new("wiring.wires", "wires", Better.Higher, d => d.Wiring?.Wires,
+        (d, v) => d with { Wiring = d.Wiring! with { Wires = (int)Math.Round(v) } }, _ => 4, "connect the sensor with at least")
+    {
+        Integer = true,
     };
 
     public static readonly Knob AcquisitionTime = new("adc.acquisition_time", "s", Better.Higher,
@@ -208,7 +237,10 @@ internal static class Knobs
         // A buffer behind a current-excited sensor is not modelled, so none is offered there.
         // A netlist's own parts are not knobs yet: its shape (a reservoir, an added follower) is the user's drawing.
         var netlist = design.Netlist is not null;
-        Knob[] buffer = buffered ? [BufferGainBandwidth] : design.CurrentSource is null && !netlist ? [AddBuffer] : [];
+        // Nor behind a bridge, which the converter reads differentially (a follower would follow one output only); the
+        // bridge's tempcos are not knobs yet (the divider's knob names the divider's key).
+        var bridge = design.Bridge is not null;
+        Knob[] buffer = buffered ? [BufferGainBandwidth] : design.CurrentSource is null && !netlist && !bridge ? [AddBuffer] : [];
         switch (findingId)
         {
             case "settling":
@@ -220,16 +252,19 @@ internal static class Knobs
                 var parts = new List<(Knob, double)>
                 {
                     (PinLeakage, design.Adc.PinLeakageAmperes != 0 ? Math.Abs(worst.Estimates.LeakageVolts) : -1),
-                    (FixedTempco, design.Divider?.FixedTempcoPerKelvin is not (null or 0) ? Math.Abs(worst.Estimates.FixedDriftVolts) : -1),
+                    (FixedTempco, !bridge && design.Divider?.FixedTempcoPerKelvin is not (null or 0) ? Math.Abs(worst.Estimates.FixedDriftVolts) : -1),
                     (ReferenceResistorTempco, design.CurrentSource?.ReferenceResistorTempcoPerKelvin is not (null or 0) ? Math.Abs(worst.Estimates.ExcitationVolts) : -1),
                     (CurrentTempco, design.CurrentSource is { ReferenceResistorOhms: null, CurrentTempcoPerKelvin: not 0 } ? Math.Abs(worst.Estimates.ExcitationVolts) : -1),
                     (CurrentMismatch, design.Wiring is { Wires: 3, CurrentMismatch: not 0 } ? Math.Abs(worst.Estimates.LeadVolts) : -1),
-                    (LeadResistance, design.Wiring is { Wires: 2, LeadOhms: > 0 } ? Math.Abs(worst.Estimates.LeadVolts) : -1),
+                    (LeadResistance, design.Wiring is { LeadOhms: > 0 } ? Math.Abs(worst.Estimates.LeadVolts) : -1),
+                    (Wires, design.Wiring is { Wires: 2, LeadOhms: > 0 } && design.CurrentSource is not null ? Math.Abs(worst.Estimates.LeadVolts) : -1),
+                    (GainStageInputCurrent, design.Adc.GainStage is { InputCurrentAmperes: not 0 } g
+                        ? Math.Abs(g.InputCurrentAmperes * worst.Estimates.SourceOhms) : -1),
                     (ClampLeakage, design.Protection is { HasClamps: true } ? Math.Abs(worst.Estimates.ClampVolts) : -1),
                     (Insulation, design.Protection?.InsulationOhms is not null ? Math.Abs(worst.Estimates.InsulationVolts) : -1),
                 };
                 var knobs = Ordered(parts);
-                var leaks = design.Adc.PinLeakageAmperes != 0 || design.Protection is { HasClamps: true };
+                var leaks = design.Adc.PinLeakageAmperes != 0 || design.Protection is { HasClamps: true } || design.Adc.GainStage is { InputCurrentAmperes: not 0 };
                 // A leakage current at the pin drops across the series resistor: its largest value that keeps the budget.
                 if (leaks && design.Filter.SeriesResistorOhms > 0) knobs.Add(SeriesResistor);
                 if (leaks && !buffered) knobs.AddRange(buffer);
@@ -245,12 +280,17 @@ internal static class Knobs
             case "converter":
             {
                 var adc = design.Adc;
-                var x = worst.SampleVolts / design.NominalReferenceVolts;
+                var x = worst.SampleVolts / design.FullScaleAtPinVolts;
                 return Ordered([(AdcOffset, Present(adc.OffsetErrorLsb, adc.OffsetErrorLsb)),
                     (AdcGain, Present(adc.GainError, adc.GainError * x * (1 << adc.Bits))),
                     (AdcInl, Present(adc.InlLsb, adc.InlLsb * 4 * x * (1 - x))),
+                    (GainStageGainError, Present(adc.GainStage?.GainError ?? 0, (adc.GainStage?.GainError ?? 0) * x * (1 << adc.Bits))),
                     (ReferenceTempco, Present(adc.ReferenceTempcoPerKelvin, adc.ReferenceTempcoPerKelvin * ((design.Check.BoardCelsius ?? worst.Celsius) - 25) * x * (1 << adc.Bits)))]);
             }
+            case GainRangeRule.Id:
+                return design.Adc.GainStage is not null ? [Gain] : [];
+            case ChargeInjectionRule.Id:
+                return design.Filter.SeriesResistorOhms > 0 ? [ChargeInjectionKnob, SeriesResistor] : [ChargeInjectionKnob];
             case "self-heating":
                 return design.Sensor.DissipationConstantWattsPerKelvin is > 0 ? [Dissipation] : [];
             case "resolution":

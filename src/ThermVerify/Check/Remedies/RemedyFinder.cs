@@ -239,8 +239,8 @@ internal sealed class RemedyFinder
         {
             // The reading the finding was worst at: its precharge case, and for sampled quantities its sample (the
             // converter's shift depends on the voltage it converts, which a failing settling moves far from the pin's).
-            var perCase = finding.Id is "settling" or "reservoir-recovery" or "converter" or FindingRules.OverBudgetId;
-            var perSample = finding.Id is "settling" or "converter" or FindingRules.OverBudgetId;
+            var perCase = finding.Id is "settling" or "reservoir-recovery" or "converter" or FindingRules.OverBudgetId or ChargeInjectionRule.Id;
+            var perSample = finding.Id is "settling" or "converter" or FindingRules.OverBudgetId or ChargeInjectionRule.Id;
             var probes = at.Select(p => new FindingProbe(finding.Id, p.Celsius, perCase ? p.Precharge : null, perSample ? p.FirstConversion : null, options))
                 .Select(p => (Probe: p, Target: p.Target(Design))).ToList();
             return KnobSearch.Find(knob, design, d => probes.All(p => p.Probe.Measure(d) <= p.Target));

@@ -23,7 +23,7 @@ public static class CheckSummaryText
         var (label, excitation) = ReportFormat.Excitation(d);
         text.AppendLine($"  {label,-8} {excitation}");
         text.AppendLine($"  ADC      {d.Adc.Bits} bits, reference {ReportFormat.Reference(d, result.Adc)}, " +
-                        $"1 LSB = {V(result.Adc.LsbVolts, UnitKind.Volt)}, " + ReportFormat.ConverterTiming(d));
+                        $"1 LSB{(d.Adc.GainStage is null ? "" : " at the pin")} = {V(result.Adc.LsbVolts, UnitKind.Volt)}, " + ReportFormat.ConverterTiming(d));
         text.AppendLine($"  codes    {result.Adc.Describe()}");
         if (d.Adc.DeltaSigma is null) text.AppendLine($"  precharge {ReportFormat.PrechargeLine(result)}");
         text.AppendLine($"  check    {V(d.Check.Range.MinCelsius, UnitKind.Celsius)} to {V(d.Check.Range.MaxCelsius, UnitKind.Celsius)} in {V(d.Check.StepKelvin, UnitKind.Kelvin)} steps, budget {V(d.Check.BudgetKelvin, UnitKind.Kelvin)}" +

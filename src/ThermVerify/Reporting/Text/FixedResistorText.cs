@@ -17,9 +17,9 @@ public static class FixedResistorText
         var text = new StringBuilder();
         var seriesValues = ranked.Count(c => !c.IsPresent || series.Contains(c.Ohms));
         var presentApart = seriesValues < ranked.Count ? " and the present value" : "";
-        text.AppendLine(Invariant($"{design.Name}: {seriesValues} {series} candidates{presentApart}, ranked by {FixedResistorReport.Describe(goal)}; now {Ohms(FixedResistorSearch.FixedOf(design).PresentOhms)}"));
+        text.AppendLine(Invariant($"{design.Name}: {seriesValues} {series} candidates{presentApart}, ranked by {FixedResistorReport.Describe(goal)}; {FixedResistorSearch.PartName(design)} now {Ohms(FixedResistorSearch.PresentOhms(design))}"));
         ProvenanceText.Append(text, provenance);
-        var table = new TextTable("rank", "R_fixed", "worst error (K)", "at (°C)", "worst K/LSB", "|dV/dT| (mV/K)", "self-heating (mK)", "margin (K)", "budget");
+        var table = new TextTable("rank", design.CurrentSource is null ? "R_fixed" : "R_ref", "worst error (K)", "at (°C)", "worst K/LSB", "|dV/dT| (mV/K)", "self-heating (mK)", "margin (K)", "budget");
         var shown = Math.Max(1, top);
         // The design's own resistor is always listed, below the top ones when it ranks lower, so its gain can be judged.
         var presentRank = ranked.Select((c, i) => (c, i)).Where(x => x.c.IsPresent).Select(x => x.i).DefaultIfEmpty(-1).First();
