@@ -29,14 +29,14 @@ public static class CHeaderRenderer
         Line($" * Written by thermverify; regenerate it from the design rather than editing it.");
         Line($" *");
         Line($" * Sensor:  {Ascii(m.Sensor.Description)}");
-        if (m.ExcitationAmperes is { } amps)
-            Line($" * Current source: {amps:G6} A through the sensor, node = I*R_s; reference resistor (or V_ref/I) {m.FixedOhms:G6} ohm");
         if (m.Netlist is { } netlist)
         {
             var (ta, tb, tc) = NetlistTransfer.Of(netlist).Coefficients;
             Line($" * Netlist: {Ascii(netlist.File)}, sensor {Ascii(netlist.SensorElements[0])}, converter at node {Ascii(netlist.PinNode)}; its ideal transfer");
             Line($" *          v = (a*R + b)/(c*R + 1), a = {ta:G9}, b = {tb:G9} V, c = {tc:G9} 1/ohm (R the sensor's resistance)");
         }
+        else if (m.ExcitationAmperes is { } amps)
+            Line($" * Current source: {amps:G6} A through the sensor, node = I*R_s; reference resistor (or V_ref/I) {m.FixedOhms:G6} ohm");
         else
             Line($" * Divider: sensor on the {(m.Side == SensorSide.Low ? "low side (to ground)" : "high side (to the excitation)")}, fixed resistor {m.FixedOhms:G6} ohm, excitation {m.ExcitationVolts:G6} V");
         Line($" * ADC:     {m.Adc.Bits} bits, reference {m.Adc.ReferenceVolts:G6} V, LSB {m.Adc.LsbVolts:G6} V");

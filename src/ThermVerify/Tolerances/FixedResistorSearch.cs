@@ -91,7 +91,8 @@ internal static class FixedResistorSearch
         }
         else
         {
-            // Between the sensor's extremes: outside them the divider's slope falls at both ends of the range at once.
+            // Between the sensor's extremes (a divider's or a netlist's fixed resistor): outside them the divider's slope
+            // falls at both ends of the range at once.
             low = options.MinimumOhms ?? ends.Min();
             high = options.MaximumOhms ?? ends.Max();
         }
