@@ -13,8 +13,9 @@ public enum AdcInput
 
 /// <summary>
 /// The negative input's own sampling network, for a differential or pseudo-differential converter: its sampling
-/// capacitor and switch (sampled with the positive input's schedule and precharge), its pin capacitance and its
-/// leakage (doubling as the positive pin's does). Each value defaults to the positive input's.
+/// capacitor and switch (sampled with the positive input's schedule), its precharge (the positive input's, or a fixed
+/// level of its own), its pin capacitance and its leakage (doubling as the positive pin's does). Each value defaults to
+/// the positive input's.
 /// </summary>
 public sealed record NegativeInputSpec
 {
@@ -24,4 +25,6 @@ public sealed record NegativeInputSpec
     /// <summary>Positive flows into the pin, as the positive input's.</summary>
     public double PinLeakageAmperes { get; init; }
     public bool PinLeakageSigned { get; init; }
+    /// <summary>A level the negative capacitor is held at before every acquisition (a converter that resets that side to a fixed voltage); null: precharged as the positive input is.</summary>
+    public double? PrechargeVolts { get; init; }
 }

@@ -31,7 +31,7 @@ internal static class AdcReader
         "switch_resistance", "pin_capacitance", "pin_leakage", "pin_leakage_temperature", "leakage_doubling",
         "offset_error", "gain_error", "inl", "precharge", "precharge_voltage", "reference_tempco", "first_transition",
         "firmware_inverse", "noise", "kind", "input", "common_mode_range", "negative_sampling_capacitance", "negative_switch_resistance",
-        "negative_pin_capacitance", "negative_pin_leakage",
+        "negative_pin_capacitance", "negative_pin_leakage", "negative_precharge_voltage",
         "charge_injection", .. GainStageReader.Keys,
     ];
 
@@ -43,7 +43,8 @@ internal static class AdcReader
     };
 
     private static readonly string[] DifferentialKeys =
-        ["common_mode_range", "negative_sampling_capacitance", "negative_switch_resistance", "negative_pin_capacitance", "negative_pin_leakage"];
+        ["common_mode_range", "negative_sampling_capacitance", "negative_switch_resistance", "negative_pin_capacitance", "negative_pin_leakage",
+         "negative_precharge_voltage"];
 
     private static readonly Dictionary<string, ConverterKind> Kinds = new()
     {
@@ -132,6 +133,7 @@ internal static class AdcReader
             PinCapacitanceFarads = s.Quantity("negative_pin_capacitance", Bound.NonNegative, UnitKind.Farad)?.Value ?? s.ValueOr("pin_capacitance", 0, Bound.NonNegative, UnitKind.Farad),
             PinLeakageAmperes = s.Quantity("negative_pin_leakage", Bound.Any, UnitKind.Ampere)?.Value ?? s.ValueOr("pin_leakage", 0, Bound.Any, UnitKind.Ampere),
             PinLeakageSigned = SignWritten.Of(s, s.Has("negative_pin_leakage") ? "negative_pin_leakage" : "pin_leakage"),
+            PrechargeVolts = s.Quantity("negative_precharge_voltage", Bound.Any, UnitKind.Volt)?.Value,
         };
         return (input, negative, range is { } c ? new VoltageRange(c.Min, c.Max) : null);
     }

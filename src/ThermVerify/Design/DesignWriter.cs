@@ -288,6 +288,8 @@ internal static partial class DesignWriter
             w.Value("negative_switch_resistance", negative.SwitchResistanceOhms, UnitKind.Ohm);
             w.Value("negative_pin_capacitance", negative.PinCapacitanceFarads, UnitKind.Farad);
             w.Value("negative_pin_leakage", negative.PinLeakageAmperes, UnitKind.Ampere, negative.PinLeakageSigned);
+            if (negative.PrechargeVolts is { } negativePrecharge)
+                w.Value("negative_precharge_voltage", negativePrecharge, UnitKind.Volt);
         }
         w.Text("first_transition", a.FirstTransition == FirstTransition.HalfLsb ? "half-lsb" : "one-lsb");
         w.Text("firmware_inverse", a.FirmwareInverse == CodeInverse.BinMiddle ? "bin-middle" : "bin-edge");

@@ -75,10 +75,14 @@ internal static class FrontEndCircuit
             elements.Add(new Capacitor("Csamplen", HoldNegative, Circuit.Ground, negative.SamplingCapacitanceFarads));
             elements.Add(new TimedSwitch(NegativeSamplingSwitch, BridgeNegative, HoldNegative, Math.Max(negative.SwitchResistanceOhms, MinimumSwitchOhms), SwitchOffOhms,
                 new PeriodicSchedule(period - adc.AcquisitionTimeSeconds, period, adc.AcquisitionTimeSeconds, conversions)));
-            if (prechargeVolts is not null)
+            // Its own fixed level where the design gives one, else the positive input's precharge.
+            var negativeLevel = negative.PrechargeVolts is null ? prechargeVolts is null ? null : Precharge : NegativePrecharge;
+            if (negative.PrechargeVolts is { } level)
+                elements.Add(new VoltageSource("Vprechargen", NegativePrecharge, Circuit.Ground, new DcWaveform(level)));
+            if (negativeLevel is { } from)
             {
                 var window = period - adc.AcquisitionTimeSeconds - PrechargeGapSeconds(design);
-                elements.Add(new TimedSwitch(NegativePrechargeSwitch, Precharge, HoldNegative, window / (PrechargeTimeConstants * negative.SamplingCapacitanceFarads),
+                elements.Add(new TimedSwitch(NegativePrechargeSwitch, from, HoldNegative, window / (PrechargeTimeConstants * negative.SamplingCapacitanceFarads),
                     SwitchOffOhms, new PeriodicSchedule(0, period, window, conversions)));
             }
         }

@@ -160,6 +160,7 @@ internal static class FrontEndDecks
                 [Pin] = "ADC pin, after the series resistor",
                 [Hold] = "sampling capacitor behind the sampling switch",
                 [HoldNegative] = "the negative input's sampling capacitor behind its own switch",
+                [NegativePrecharge] = "the negative sampling capacitor's own precharge level",
                 [Precharge] = "precharge level of the sampling capacitor",
             },
         };

@@ -24,6 +24,9 @@ internal static class FrontEndNodes
     /// <summary>A differential input's negative sampling capacitor, behind its own switch.</summary>
     public const string HoldNegative = "holdn";
 
+    /// <summary>The negative sampling capacitor's own precharge level, where the design gives one.</summary>
+    public const string NegativePrecharge = "pren";
+
     /// <summary>What the sampling capacitor is precharged to before each acquisition.</summary>
     public const string Precharge = "pre";
 

@@ -116,6 +116,19 @@ public class AmplifierTests
     }
 
     [Fact]
+    public void A_cmrr_remedy_asks_for_more_rejection_and_passes_when_applied()
+    {
+        // 60 dB at a gain of 8: G·V_cm/CMRR = 8·1.3 V·10⁻³ ≈ 10 mV, about half a kelvin on G·dV_d/dT ≈ 19 mV/K.
+        var design = Amplified(("amplifier.cmrr", "\"60 dB\""), ("adc.noise", "\"0 LSB\""));
+        var result = FrontEndCheck.Run(design, new CheckOptions { MaximumSamplingPoints = 3 });
+        var finding = Assert.Single(result.Findings, f => f.Id == "amplifier-static");
+        var remedy = Assert.Single(finding.Remedies, r => r.Key == "amplifier.cmrr");
+        Assert.InRange(remedy.Value!.Value, 60, 160);
+        var applied = FrontEndCheck.Run(design with { Amplifier = design.Amplifier! with { CommonModeFraction = Math.Pow(10, -remedy.Value.Value / 20) } }, Options);
+        Assert.DoesNotContain(applied.Findings, f => f.Id == "amplifier-static");
+    }
+
+    [Fact]
     public void The_worst_case_spreads_the_amplifiers_bounds()
     {
         // ±100 µV of offset: dT = G·V_os/(G·dV_d/dT) at every point, V_os over the bridge's slope E·R_f/(R_s + R_f)²·dR_s/dT.

@@ -129,6 +129,22 @@ public class BridgeTests
     }
 
     [Fact]
+    public void A_bridge_tempco_remedy_names_the_bridges_key_and_passes_when_applied()
+    {
+        // 300 ppm/K on the opposite low arm at a 70 °C board: E·Δr = 2.5 V·(r(70) − ½) ≈ 1.7 mV, about 0.7 K on the
+        // bridge's slope, over the 0.5 K budget: a failing DC-loading finding whose remedy is that arm's tempco.
+        var design = BridgeDesigns.Pt1000(("bridge.opposite_low_tempco", "\"300 ppm/K\""), ("check.board_temperature", "\"70 degC\""), ("adc.noise", "\"0 LSB\""));
+        var result = FrontEndCheck.Run(design, new CheckOptions { MaximumSamplingPoints = 3 });
+        var finding = Assert.Single(result.Findings, f => f.Id == "dc-loading");
+        Assert.Equal(Severity.Fail, finding.Severity);
+        var remedy = Assert.Single(finding.Remedies, r => r.Key == "bridge.opposite_low_tempco");
+        Assert.InRange(remedy.Value!.Value, 0, 300e-6);
+        var applied = FrontEndCheck.Run(design with { Bridge = design.Bridge! with { LowTempcoPerKelvin = remedy.Value.Value } }, Options);
+        Assert.DoesNotContain(applied.Findings, f => f.Id == "dc-loading" && f.Severity == Severity.Fail);
+        Assert.True(applied.Passed);
+    }
+
+    [Fact]
     public void Table_and_choose_fixed_refuse_a_bridge_with_exit_2()
     {
         var path = Path.Combine(Repository.Netlists, "fermenter-pt1000-bridge.toml");

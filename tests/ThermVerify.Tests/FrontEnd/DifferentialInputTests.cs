@@ -25,10 +25,10 @@ public class DifferentialInputTests
     public void Keys_are_read_written_back_and_refused_with_their_position()
     {
         var design = Differential(("adc.negative_sampling_capacitance", "\"4 pF\""), ("adc.negative_pin_leakage", "\"-2 nA\""),
-            ("adc.common_mode_range", "\"0.2 V .. 3 V\""));
+            ("adc.common_mode_range", "\"0.2 V .. 3 V\""), ("adc.negative_precharge_voltage", "\"1.65 V\""));
         Assert.Equal(AdcInput.Differential, design.Adc.Input);
         // The switch resistance and pin capacitance default to the positive input's.
-        Assert.Equal(new NegativeInputSpec { SamplingCapacitanceFarads = 4e-12, SwitchResistanceOhms = 1000, PinLeakageAmperes = -2e-9, PinLeakageSigned = true },
+        Assert.Equal(new NegativeInputSpec { SamplingCapacitanceFarads = 4e-12, SwitchResistanceOhms = 1000, PinLeakageAmperes = -2e-9, PinLeakageSigned = true, PrechargeVolts = 1.65 },
             design.Adc.NegativeInput);
         Assert.Equal(new VoltageRange(0.2, 3), design.Adc.CommonModeRange);
         var again = DesignLoader.Parse(DesignWriter.ToToml(design), "normal.toml", Path.GetTempPath());
@@ -84,6 +84,11 @@ public class DifferentialInputTests
             var expected = positive * (1 - Math.Exp(-0.5e-6 / tauPositive)) - negative * (1 - Math.Exp(-0.5e-6 / tauNegative));
             var sample = SamplingRun.FirstSampleVolts(design, celsius, 0, 1e-7);
             Tolerance.AssertClose(expected, sample, 0, 0.01 * 2.5 / 65536, $"first differential sample at {celsius} °C");
+            // The negative capacitor held at its own 2 V instead: it falls from there towards V−, v = V− + (2 V − V−)·e^(−t/RC).
+            var own = SamplingRun.FirstSampleVolts(design with { Adc = design.Adc with { NegativeInput = design.Adc.NegativeInput! with { PrechargeVolts = 2 } } },
+                celsius, 0, 1e-7);
+            var fromTwo = positive * (1 - Math.Exp(-0.5e-6 / tauPositive)) - (negative + (2 - negative) * Math.Exp(-0.5e-6 / tauNegative));
+            Tolerance.AssertClose(fromTwo, own, 0, 0.01 * 2.5 / 65536, $"first differential sample at {celsius} °C, negative precharged to 2 V");
         }
     }
 

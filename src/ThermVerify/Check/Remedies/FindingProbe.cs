@@ -45,7 +45,7 @@ internal sealed class FindingProbe(string findingId, double celsius, PrechargeCa
             },
             "reservoir-recovery" => Math.Abs(e.Dc.Base.AveragePinVolts[0][0] - e.Dc.Base.StaticPinVolts[0]),
             "dc-loading" => Math.Abs(p.Simulated.DcLoadingVolts),
-            "buffer-static" => Math.Abs(p.Simulated.BufferVolts),
+            "buffer-static" or "amplifier-static" => Math.Abs(p.Simulated.BufferVolts),
             "self-heating" => Math.Abs(p.Simulated.SelfHeatingVolts),
             "converter" => ConverterShift(e, p),
             // In range or not: the search holds the excess at zero, so any excess reads as beyond every target.
@@ -85,6 +85,6 @@ internal sealed class FindingProbe(string findingId, double celsius, PrechargeCa
 
     /// <summary>Whether a finding has a probe at all (the buffer's loop, headroom and recovery are searched by their own analyses).</summary>
     public static bool Supports(string findingId) =>
-        findingId is FindingRules.OverBudgetId or "settling" or "reservoir-recovery" or "dc-loading" or "buffer-static" or "self-heating" or "converter"
+        findingId is FindingRules.OverBudgetId or "settling" or "reservoir-recovery" or "dc-loading" or "buffer-static" or "amplifier-static" or "self-heating" or "converter"
             or "buffer-noise" or Noise.NoiseFindingRules.NoiseId or Noise.NoiseFindingRules.RampLagId or GainRangeRule.Id or ChargeInjectionRule.Id;
 }

@@ -17,6 +17,13 @@ internal static class Knobs
         ["adc.pin_leakage"] = "choose a converter with negligible pin leakage",
         ["protection.clamp_leakage"] = "use clamp diodes with negligible reverse leakage (or none)",
         ["divider.fixed_tempco"] = "use a fixed resistor with a negligible tempco",
+        ["bridge.fixed_tempco"] = "use a bridge resistor (the sensor's half) with a negligible tempco",
+        ["bridge.opposite_high_tempco"] = "use an opposite-half high resistor with a negligible tempco",
+        ["bridge.opposite_low_tempco"] = "use an opposite-half low resistor with a negligible tempco",
+        ["amplifier.offset_voltage"] = "trim (or calibrate) the amplifier's offset out",
+        ["amplifier.offset_drift"] = "use an amplifier with negligible offset drift",
+        ["amplifier.gain_error"] = "calibrate the amplifier's gain error out in firmware",
+        ["amplifier.bias_current"] = "use an amplifier with negligible bias current",
         ["current_source.current_tempco"] = "use a current source with a negligible tempco",
         ["current_source.reference_resistor_tempco"] = "use a reference resistor with a negligible tempco",
         ["wiring.current_mismatch"] = "match the two currents (or calibrate their mismatch out)",
@@ -102,6 +109,33 @@ internal static class Knobs
 
     public static readonly Knob FixedTempco = Magnitude("divider.fixed_tempco", "ppm/K", d => d.VoltageDivider.FixedTempcoPerKelvin,
         (d, v) => d with { Divider = d.VoltageDivider with { FixedTempcoPerKelvin = v } }, "use a fixed resistor with a tempco of at most");
+
+    public static readonly Knob BridgeFixedTempco = Magnitude("bridge.fixed_tempco", "ppm/K", d => d.VoltageDivider.FixedTempcoPerKelvin,
+        (d, v) => d with { Divider = d.VoltageDivider with { FixedTempcoPerKelvin = v } }, "use a bridge resistor (the sensor's half) with a tempco of at most");
+
+    public static readonly Knob BridgeHighTempco = Magnitude("bridge.opposite_high_tempco", "ppm/K", d => d.Bridge!.HighTempcoPerKelvin,
+        (d, v) => d with { Bridge = d.Bridge! with { HighTempcoPerKelvin = v } }, "use an opposite-half high resistor with a tempco of at most");
+
+    public static readonly Knob BridgeLowTempco = Magnitude("bridge.opposite_low_tempco", "ppm/K", d => d.Bridge!.LowTempcoPerKelvin,
+        (d, v) => d with { Bridge = d.Bridge! with { LowTempcoPerKelvin = v } }, "use an opposite-half low resistor with a tempco of at most");
+
+    public static readonly Knob AmplifierOffset = Magnitude("amplifier.offset_voltage", "V", d => d.Amplifier!.OffsetVolts,
+        (d, v) => d with { Amplifier = d.Amplifier! with { OffsetVolts = v } }, "use an amplifier with an input offset of at most");
+
+    public static readonly Knob AmplifierDrift = Magnitude("amplifier.offset_drift", "V/K", d => d.Amplifier!.OffsetDriftVoltsPerKelvin,
+        (d, v) => d with { Amplifier = d.Amplifier! with { OffsetDriftVoltsPerKelvin = v } }, "use an amplifier with an offset drift of at most");
+
+    public static readonly Knob AmplifierGainError = Magnitude("amplifier.gain_error", "fraction", d => d.Amplifier!.GainError,
+        (d, v) => d with { Amplifier = d.Amplifier! with { GainError = v } }, "use an amplifier with a gain error of at most");
+
+    /// <summary>The CMRR's search ends at 160 dB, beyond what a monolithic in-amp reaches at DC (common practice, no source).</summary>
+    public static readonly Knob AmplifierCmrr = new("amplifier.cmrr", "dB", Better.Higher,
+        d => d.Amplifier!.CommonModeFraction == 0 ? null : -20 * Math.Log10(Math.Abs(d.Amplifier.CommonModeFraction)),
+        (d, v) => d with { Amplifier = d.Amplifier! with { CommonModeFraction = (d.Amplifier.CommonModeFraction < 0 ? -1 : 1) * Math.Pow(10, -v / 20) } },
+        _ => 160, "use an amplifier with a CMRR of at least");
+
+    public static readonly Knob AmplifierBias = Magnitude("amplifier.bias_current", "A", d => d.Amplifier!.BiasCurrentAmperes,
+        (d, v) => d with { Amplifier = d.Amplifier! with { BiasCurrentAmperes = v } }, "use an amplifier with an input bias current of at most");
 
     public static readonly Knob CurrentTempco = Magnitude("current_source.current_tempco", "ppm/K", d => d.CurrentSource!.CurrentTempcoPerKelvin,
         (d, v) => d with { CurrentSource = d.CurrentSource! with { CurrentTempcoPerKelvin = v } }, "use a current source with a tempco of at most");
@@ -238,7 +272,7 @@ internal static class Knobs
         // A netlist's own parts are not knobs yet: its shape (a reservoir, an added follower) is the user's drawing.
         var netlist = design.Netlist is not null;
         // Nor behind a bridge, which the converter reads differentially (a follower would follow one output only); the
-        // bridge's tempcos are not knobs yet (the divider's knob names the divider's key).
+        // bridge's tempcos have knobs of their own (named by the bridge's keys).
         var bridge = design.Bridge is not null;
         Knob[] buffer = buffered ? [BufferGainBandwidth] : design.CurrentSource is null && !netlist && !bridge ? [AddBuffer] : [];
         switch (findingId)
@@ -253,6 +287,10 @@ internal static class Knobs
                 {
                     (PinLeakage, design.Adc.PinLeakageAmperes != 0 ? Math.Abs(worst.Estimates.LeakageVolts) : -1),
                     (FixedTempco, !bridge && design.Divider?.FixedTempcoPerKelvin is not (null or 0) ? Math.Abs(worst.Estimates.FixedDriftVolts) : -1),
+                    // The three share the bridge's drift estimate: their order among themselves is the order written.
+                    (BridgeFixedTempco, bridge && design.Divider?.FixedTempcoPerKelvin is not (null or 0) ? Math.Abs(worst.Estimates.FixedDriftVolts) : -1),
+                    (BridgeHighTempco, design.Bridge is { HighTempcoPerKelvin: not 0 } ? Math.Abs(worst.Estimates.FixedDriftVolts) : -1),
+                    (BridgeLowTempco, design.Bridge is { LowTempcoPerKelvin: not 0 } ? Math.Abs(worst.Estimates.FixedDriftVolts) : -1),
                     (ReferenceResistorTempco, design.CurrentSource?.ReferenceResistorTempcoPerKelvin is not (null or 0) ? Math.Abs(worst.Estimates.ExcitationVolts) : -1),
                     (CurrentTempco, design.CurrentSource is { ReferenceResistorOhms: null, CurrentTempcoPerKelvin: not 0 } ? Math.Abs(worst.Estimates.ExcitationVolts) : -1),
                     (CurrentMismatch, design.Wiring is { Wires: 3, CurrentMismatch: not 0 } ? Math.Abs(worst.Estimates.LeadVolts) : -1),
@@ -276,6 +314,14 @@ internal static class Knobs
                 return Ordered([(BufferOffset, Present(design.Buffer!.OffsetVolts, s.OffsetVolts)),
                     (BufferDrift, Present(design.Buffer.OffsetDriftVoltsPerKelvin, s.DriftVolts)),
                     (BufferBias, Present(design.Buffer.BiasCurrentAmperes, s.BiasVolts))]);
+            }
+            case "amplifier-static" when design.Amplifier is { } a:
+            {
+                var x = worst.IdealVolts;
+                var drift = a.OffsetDriftVoltsPerKelvin * ((design.Check.BoardCelsius ?? worst.Celsius) - 25);
+                return Ordered([(AmplifierOffset, Present(a.OffsetVolts, a.Gain * a.OffsetVolts)), (AmplifierDrift, Present(a.OffsetDriftVoltsPerKelvin, a.Gain * drift)),
+                    (AmplifierGainError, Present(a.GainError, a.GainError * x)), (AmplifierBias, Present(a.BiasCurrentAmperes, worst.Estimates.BiasCurrentVolts)),
+                    (AmplifierCmrr, Present(a.CommonModeFraction, a.Gain * a.CommonModeFraction * worst.IdealVolts))]);
             }
             case "converter":
             {
