@@ -152,17 +152,7 @@ public class AmplifierTests
             ("amplifier.cmrr", "\"66 dB\""), ("amplifier.bias_current", "\"+3 nA\""), ("bridge.opposite_low_tempco", "\"30 ppm/K\""),
             ("filter.series_resistor", "\"1 kohm\""), ("filter.reservoir_capacitor", "\"100 nF\""), ("adc.pin_leakage", "\"2 nA\""), ("check.step", "\"5 K\""));
         string[] nodes = [FrontEndNodes.Divider, FrontEndNodes.BridgeNegative, FrontEndNodes.AmplifierOutput, FrontEndNodes.Pin];
-        var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToArray();
-        var circuit = FrontEndCircuit.Dc(design, null);
-        var ours = ((ICheckEngine)BuiltInEngine.Instance).TemperatureSweep(circuit, temperatures, nodes);
-        var theirs = ((ICheckEngine)new NgspiceEngine()).TemperatureSweep(circuit, temperatures, nodes);
-        var worst = 0.0;
-        for (var n = 0; n < nodes.Length; n++)
-            for (var i = 0; i < temperatures.Length; i++)
-            {
-                worst = Math.Max(worst, Math.Abs(theirs[n][i] - ours[n][i]));
-                Tolerance.AssertClose(theirs[n][i], ours[n][i], 0, 1e-6, $"v({nodes[n]}) at {temperatures[i]} °C");
-            }
+        var worst = SweepCrossCheck.AssertAgrees(design, nodes);
         Console.WriteLine($"amplifier sweep: largest difference from ngspice {worst:G3} V");
     }
 }

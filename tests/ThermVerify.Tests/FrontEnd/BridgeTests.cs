@@ -164,17 +164,7 @@ public class BridgeTests
             ("bridge.opposite_low", "\"953 ohm\""), ("bridge.opposite_low_tempco", "\"60 ppm/K\""), ("adc.pin_leakage", "\"2 nA\""),
             ("filter.series_resistor", "\"1 kohm\""), ("filter.reservoir_capacitor", "\"100 nF\""), ("check.step", "\"5 K\""));
         string[] nodes = [FrontEndNodes.Excitation, FrontEndNodes.Divider, FrontEndNodes.BridgeNegative, FrontEndNodes.Pin];
-        var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToArray();
-        var circuit = FrontEndCircuit.Dc(design, null);
-        var ours = ((ICheckEngine)BuiltInEngine.Instance).TemperatureSweep(circuit, temperatures, nodes);
-        var theirs = ((ICheckEngine)new NgspiceEngine()).TemperatureSweep(circuit, temperatures, nodes);
-        var worst = 0.0;
-        for (var n = 0; n < nodes.Length; n++)
-            for (var i = 0; i < temperatures.Length; i++)
-            {
-                worst = Math.Max(worst, Math.Abs(theirs[n][i] - ours[n][i]));
-                Tolerance.AssertClose(theirs[n][i], ours[n][i], 0, 1e-6, $"v({nodes[n]}) at {temperatures[i]} °C");
-            }
+        var worst = SweepCrossCheck.AssertAgrees(design, nodes);
         Console.WriteLine($"bridge sweep: largest difference from ngspice {worst:G3} V");
     }
 }

@@ -108,14 +108,7 @@ public class ReferenceResistorTests
         var design = CurrentDesigns.Ratiometric(("current_source.current_tempco", "\"-30 ppm/K\""), ("current_source.output_resistance", "\"2 Mohm\""),
             ("current_source.reference_resistor_tempco", "\"+10 ppm/K\""), ("current_source.reference_input_resistance", "\"5 Mohm\""),
             ("adc.pin_leakage", "\"1 nA\""), ("filter.series_resistor", "\"1 kohm\""));
-        var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToArray();
-        string[] nodes = [FrontEndNodes.Excitation, FrontEndNodes.Divider, FrontEndCircuit.PinNode(design)];
-        var circuit = FrontEndCircuit.Dc(design, null);
-        var ours = ((ICheckEngine)BuiltInEngine.Instance).TemperatureSweep(circuit, temperatures, nodes);
-        var theirs = ((ICheckEngine)new NgspiceEngine()).TemperatureSweep(circuit, temperatures, nodes);
-        for (var n = 0; n < nodes.Length; n++)
-            for (var i = 0; i < temperatures.Length; i++)
-                Tolerance.AssertClose(theirs[n][i], ours[n][i], 0, 1e-6, $"v({nodes[n]}) at {temperatures[i]} °C");
+        SweepCrossCheck.AssertAgrees(design, [FrontEndNodes.Excitation, FrontEndNodes.Divider, FrontEndCircuit.PinNode(design)]);
         // The deck writer's own deck runs in ngspice and prints the same pin voltage.
         var deck = FrontEndDecks.Write(design, DeckAnalysis.Dc);
         Assert.Contains("Iexc", deck);

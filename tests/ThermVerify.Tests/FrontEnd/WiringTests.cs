@@ -142,20 +142,8 @@ public class WiringTests
         var design = CurrentDesigns.Ratiometric(("wiring.wires", wires.ToString(System.Globalization.CultureInfo.InvariantCulture)),
             ("wiring.lead_resistance", "\"3 ohm\""), ("current_source.current_tempco", "\"-30 ppm/K\""), ("current_source.output_resistance", "\"2 Mohm\""),
             ("adc.pin_leakage", "\"1 nA\""));
-        AssertSweepAgreesWithNgspice(design, [FrontEndNodes.Excitation, FrontEndNodes.Divider, FrontEndNodes.SensorTop, FrontEndNodes.SensorBottom,
+        SweepCrossCheck.AssertAgrees(design, [FrontEndNodes.Excitation, FrontEndNodes.Divider, FrontEndNodes.SensorTop, FrontEndNodes.SensorBottom,
             wires == 3 ? FrontEndNodes.Compensation : FrontEndNodes.SenseNegative], $"{wires} wires");
-    }
-
-    /// <summary>The DC temperature sweep of the design's circuit in both engines, node by node, within 1 µV.</summary>
-    private static void AssertSweepAgreesWithNgspice(FrontEndDesign design, string[] nodes, string what)
-    {
-        var temperatures = SensorTabulation.Grid(design.Check.Range, design.Check.StepKelvin).ToArray();
-        var circuit = FrontEndCircuit.Dc(design, null);
-        var ours = ((ICheckEngine)BuiltInEngine.Instance).TemperatureSweep(circuit, temperatures, nodes);
-        var theirs = ((ICheckEngine)new NgspiceEngine()).TemperatureSweep(circuit, temperatures, nodes);
-        for (var n = 0; n < nodes.Length; n++)
-            for (var i = 0; i < temperatures.Length; i++)
-                Tolerance.AssertClose(theirs[n][i], ours[n][i], 0, 1e-6, $"v({nodes[n]}) at {temperatures[i]} °C, {what}");
     }
 
     /// <summary>
@@ -212,6 +200,6 @@ public class WiringTests
     {
         var design = Check.TestDesign.Make(("divider.sensor_side", "\"high\""), ("wiring.wires", "2"), ("wiring.lead_resistance", "\"15 ohm\""),
             ("divider.fixed_tempco", "\"+50 ppm/K\""));
-        AssertSweepAgreesWithNgspice(design, [FrontEndNodes.Divider, FrontEndNodes.SensorTop, FrontEndNodes.SensorBottom], "divider with leads");
+        SweepCrossCheck.AssertAgrees(design, [FrontEndNodes.Divider, FrontEndNodes.SensorTop, FrontEndNodes.SensorBottom], "divider with leads");
     }
 }
