@@ -28,7 +28,7 @@ public static class RunStamp
     {
         options ??= new MonteCarloOptions();
         return RunProvenance.Of(RunProvenance.BuiltInEngine, null, design.Source, Setting("units", options.Units), Setting("seed", options.Seed),
-            new RunSetting("unit-settling", options.SimulateSettling ? "simulated" : "nominal"), Conversions());
+            new RunSetting("unit-settling", design.Adc.Kind == ConverterKind.DeltaSigma ? "static" : options.SimulateSettling ? "simulated" : "nominal"), Conversions());
     }
 
     public static RunProvenance WorstCase(FrontEndDesign design) =>

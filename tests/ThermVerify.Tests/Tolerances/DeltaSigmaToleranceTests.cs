@@ -1,0 +1,77 @@
+using ThermVerify.Tests.Ngspice;
+using ThermVerify.Tolerances;
+
+namespace ThermVerify.Tests.Tolerances;
+
+/// <summary>
+/// worstcase and montecarlo on a delta-sigma design (netlists/stability-chamber-pt100-pga.toml: a Pt100 in a current
+/// loop with a ratiometric reference resistor, 24 bits behind a gain of 8): the units go through the one tolerance
+/// machinery and are read through the converter's static transfer.
+/// </summary>
+public class DeltaSigmaToleranceTests
+{
+    // IEC 60751 Callendar–Van Dusen coefficients for t ≥ 0 °C: R(t) = R0·(1 + A·t + B·t²) (published standard, from memory).
+    private const double R0 = 100, A = 3.9083e-3, B = -5.775e-7;
+
+    private static double Ohms(double celsius) => R0 * (1 + A * celsius + B * celsius * celsius);
+
+    // Its inverse for t ≥ 0 °C, the quadratic's root.
+    private static double Celsius(double ohms) => (-A + Math.Sqrt(A * A - 4 * B * (1 - ohms / R0))) / (2 * B);
+
+    /// <summary>
+    /// The ratiometric code is 2^N·G·R_s/R_ref (common practice): a reference resistor off by δ reads the sensor as
+    /// R_s/(1 + δ), and a gain stage off by ε reads it as R_s·(1 + ε); the firmware reads the code with the nominal
+    /// R_ref and G and the IEC 60751 inverse. The effect of the full tolerance a (a central difference at ±a, as
+    /// worstcase defines it) is then [T(R_s·f(+a)) − T(R_s·f(−a))]/2, computed here by hand with Callendar–Van Dusen.
+    /// </summary>
+    [Theory]
+    [InlineData("current_source.reference_resistor_tolerance", 2e-4, true)]
+    [InlineData("adc.pga_gain_error", 5e-4, false)]
+    public void A_sensitivity_of_the_delta_sigma_example_matches_callendar_van_dusen_through_the_ratiometric_code(string key, double a, bool divides)
+    {
+        var design = ExampleDesigns.Load("stability-chamber-pt100-pga.toml");
+        var result = WorstCase.Run(design, new WorstCaseOptions { Threads = 2, MaximumEnumeratedParameters = 0 });
+        var sensitivity = result.Sensitivities.Single(s => s.Parameter.Key == key);
+        Assert.Equal(a, sensitivity.Parameter.HalfWidth, 12);
+        foreach (var celsius in new[] { 0.0, 30.0, 60.0 })
+        {
+            var k = result.Points.ToList().FindIndex(p => Math.Abs(p.Celsius - celsius) < 1e-9);
+            double Read(double deviation) => Celsius(divides ? Ohms(celsius) / (1 + deviation) : Ohms(celsius) * (1 + deviation));
+            var expected = (Read(a) - Read(-a)) / 2;
+            Tolerance.AssertClose(expected, sensitivity.KelvinPerUnit[k] * a, rel: 2e-3, abs: 2e-5, what: $"{key} at {celsius} °C");
+        }
+        // Not a zero that cannot fail: the effect is tens of mK and more.
+        Assert.True(Math.Abs(sensitivity.KelvinPerUnit[^1] * a) > 0.05);
+    }
+
+    [Fact]
+    public void The_delta_sigma_units_include_the_buffered_inputs_current_through_the_source()
+    {
+        // The nominal unit (every bound at zero) still carries the buffer's 1 nA through the 1 kΩ filter resistor and the
+        // sensor's side of the loop: the pin reads about 1 nA·(1 kΩ + R_s) low, i.e. −1 nA·(1 kΩ + R_s)/(I·dR/dT) in K
+        // (closed form of the loaded pin, common practice). Self-heating (P = I²R/δ, IEC 60751 term) raises it by a few mK.
+        var design = ExampleDesigns.Load("stability-chamber-pt100-pga.toml");
+        var evaluator = new UnitEvaluator(design, threads: 1);
+        var nominal = evaluator.Evaluate(new double[evaluator.Set.Count]);
+        var k = Array.FindIndex(evaluator.Temperatures, t => Math.Abs(t - 30) < 1e-9);
+        var slope = 250e-6 * R0 * (A + 2 * B * 30);
+        var load = -1e-9 * (1000 + Ohms(30)) / slope;
+        var heat = 250e-6 * 250e-6 * Ohms(30) / 3e-3;
+        Tolerance.AssertClose(load + heat, nominal.UnquantisedErrorKelvin[k], rel: 0.05, abs: 3e-4, what: "nominal unit at 30 °C");
+    }
+
+    [Fact]
+    public void Montecarlo_of_the_delta_sigma_example_is_reproducible_from_its_seed_on_any_thread_count()
+    {
+        var design = ExampleDesigns.Load("stability-chamber-pt100-pga.toml");
+        MonteCarloResult Run(int threads) => MonteCarlo.Run(design, new MonteCarloOptions { Units = 40, Seed = 5, Threads = threads });
+        var one = Run(1);
+        var two = Run(2);
+        Assert.Equal(one.WorstErrorKelvin, two.WorstErrorKelvin);
+        Assert.Equal(one.UnitsWithinBudget, two.UnitsWithinBudget);
+        // The units differ from each other: the draw reached them.
+        Assert.True(one.WorstErrorKelvin.Distinct().Count() > 30);
+        var other = MonteCarlo.Run(design, new MonteCarloOptions { Units = 40, Seed = 6, Threads = 2 });
+        Assert.NotEqual(one.WorstErrorKelvin, other.WorstErrorKelvin);
+    }
+}
