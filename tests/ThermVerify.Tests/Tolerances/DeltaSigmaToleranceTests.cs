@@ -61,6 +61,29 @@ public class DeltaSigmaToleranceTests
     }
 
     [Fact]
+    public void An_unbuffered_units_pin_carries_the_switched_capacitor_resistor_through_its_source()
+    {
+        // R_eq = 1/(f_mod·C) from the pin to ground (Johns & Martin, Analog Integrated Circuit Design, switched-capacitor
+        // resistor, from memory) pulls the pin's Thévenin source V_th, R_s to V_th·R_eq/(R_s + R_eq): a shift of
+        // −V_th·R_s/(R_s + R_eq), here held against the unit's simulated levels at every temperature.
+        var design = ThermVerify.Tests.Design.DeltaSigmaDesigns.Make();
+        var evaluator = new UnitEvaluator(design, threads: 1);
+        var unit = BuiltUnit.Build(design, evaluator.Model.Sensor, evaluator.Set, new double[evaluator.Set.Count]).Design;
+        var cases = ThermVerify.FrontEnd.PrechargeCases.For(unit, evaluator.Model.Adc.ReferenceVolts);
+        var dc = ThermVerify.FrontEnd.DcCorners.Run(unit, cases, evaluator.Temperatures);
+        var loaded = DeltaSigmaUnit.WithInputLoad(dc, unit, evaluator.Temperatures);
+        var req = 1 / (256e3 * 8e-12);
+        var model = new ThermVerify.FrontEnd.ClosedFormModel(unit);
+        for (var i = 0; i < evaluator.Temperatures.Length; i++)
+        {
+            var rs = ThermVerify.FrontEnd.DeltaSigma.InputLoading.SourceOhms(unit, model.At(evaluator.Temperatures[i]));
+            var expected = -dc.Base.StaticPinVolts[i] * rs / (rs + req);
+            Tolerance.AssertClose(expected, loaded.Base.StaticPinVolts[i] - dc.Base.StaticPinVolts[i], rel: 1e-6, abs: 1e-12, what: $"at {evaluator.Temperatures[i]} °C");
+        }
+        Assert.True(Math.Abs(loaded.Base.StaticPinVolts[0] - dc.Base.StaticPinVolts[0]) > 1e-6);
+    }
+
+    [Fact]
     public void Montecarlo_of_the_delta_sigma_example_is_reproducible_from_its_seed_on_any_thread_count()
     {
         var design = ExampleDesigns.Load("stability-chamber-pt100-pga.toml");
