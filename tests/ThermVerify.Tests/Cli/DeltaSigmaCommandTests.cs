@@ -24,11 +24,22 @@ public class DeltaSigmaCommandTests
     [InlineData("montecarlo", "-n", "20", "--seed", "3")]
     public void Worstcase_and_montecarlo_run_a_delta_sigma_design_and_say_its_units_are_static_readings(string command, params string[] more)
     {
-        // They refused it before (exit code 2); now the units go through the tolerance machinery, read statically.
-        var run = CliRunner.Run([command, Example("kiln-bank-pt100-deltasigma.toml"), .. more]);
-        Assert.True(run.ExitCode is ExitCodes.Success or ExitCodes.CheckFailed, run.Error);
-        Assert.Contains("delta-sigma: each unit is read through the converter's static transfer", run.Output);
-        Assert.DoesNotContain("refused rather than treated as the other kind", run.Error);
+        // They refused it before (exit code 2); now the units go through the tolerance machinery, read statically, and
+        // the terminal, the report page and the run's settings say so.
+        var folder = Directory.CreateTempSubdirectory("tv-ds-tol-").FullName;
+        try
+        {
+            var run = CliRunner.Run([command, Example("kiln-bank-pt100-deltasigma.toml"), .. more, "--report", Path.Combine(folder, "report")]);
+            Assert.True(run.ExitCode is ExitCodes.Success or ExitCodes.CheckFailed, run.Error);
+            Assert.Contains("delta-sigma: each unit is read through the converter's static transfer", run.Output);
+            Assert.Contains("unit-settling static", run.Output);
+            Assert.DoesNotContain("refused rather than treated as the other kind", run.Error);
+            Assert.Contains("Delta-sigma: each unit is read through the converter's static transfer", File.ReadAllText(Path.Combine(folder, "report", "report.md")));
+        }
+        finally
+        {
+            Directory.Delete(folder, recursive: true);
+        }
     }
 
     [Fact]
