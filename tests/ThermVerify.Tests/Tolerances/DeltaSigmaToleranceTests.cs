@@ -45,19 +45,22 @@ public class DeltaSigmaToleranceTests
     }
 
     [Fact]
-    public void The_delta_sigma_units_include_the_buffered_inputs_current_through_the_source()
+    public void The_buffered_inputs_current_spreads_and_loads_each_unit_through_its_source()
     {
-        // The nominal unit (every bound at zero) still carries the buffer's 1 nA through the 1 kΩ filter resistor and the
-        // sensor's side of the loop: the pin reads about 1 nA·(1 kΩ + R_s) low, i.e. −1 nA·(1 kΩ + R_s)/(I·dR/dT) in K
-        // (closed form of the loaded pin, common practice). Self-heating (P = I²R/δ, IEC 60751 term) raises it by a few mK.
+        // adc.input_current = "1 nA" is a bound: spread over ±1 nA, the nominal unit has none. A unit with +1 nA into the
+        // pin pulls it down by I·R_th, R_th ≈ 1 kΩ filter + the sensor and its two 1.5 Ω leads (the 50 MΩ source and the
+        // reference resistor's branch are open to it): −1 nA·R_th/(I_exc·dR/dT) in K, Callendar–Van Dusen slope (closed
+        // form of the loaded pin, common practice; IEC 60751, from memory).
         var design = ExampleDesigns.Load("stability-chamber-pt100-pga.toml");
-        var evaluator = new UnitEvaluator(design, threads: 1);
-        var nominal = evaluator.Evaluate(new double[evaluator.Set.Count]);
-        var k = Array.FindIndex(evaluator.Temperatures, t => Math.Abs(t - 30) < 1e-9);
-        var slope = 250e-6 * R0 * (A + 2 * B * 30);
-        var load = -1e-9 * (1000 + Ohms(30)) / slope;
-        var heat = 250e-6 * 250e-6 * Ohms(30) / 3e-3;
-        Tolerance.AssertClose(load + heat, nominal.UnquantisedErrorKelvin[k], rel: 0.05, abs: 3e-4, what: "nominal unit at 30 °C");
+        var result = WorstCase.Run(design, new WorstCaseOptions { Threads = 2, MaximumEnumeratedParameters = 0 });
+        var sensitivity = result.Sensitivities.Single(s => s.Parameter.Key == "adc.input_current");
+        Tolerance.AssertClose(1e-9, sensitivity.Parameter.HalfWidth, rel: 1e-12);
+        foreach (var celsius in new[] { 0.0, 30.0, 60.0 })
+        {
+            var k = result.Points.ToList().FindIndex(p => Math.Abs(p.Celsius - celsius) < 1e-9);
+            var expected = -1e-9 * (1000 + 1.5 + Ohms(celsius) + 1.5) / (250e-6 * R0 * (A + 2 * B * celsius));
+            Tolerance.AssertClose(expected, sensitivity.KelvinPerUnit[k] * 1e-9, rel: 5e-3, abs: 1e-6, what: $"input current at {celsius} °C");
+        }
     }
 
     [Fact]
