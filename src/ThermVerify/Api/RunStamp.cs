@@ -28,11 +28,13 @@ public static class RunStamp
     {
         options ??= new MonteCarloOptions();
         return RunProvenance.Of(RunProvenance.BuiltInEngine, null, design.Source, Setting("units", options.Units), Setting("seed", options.Seed),
-            new RunSetting("unit-settling", options.SimulateSettling ? "simulated" : "nominal"), Conversions());
+            new RunSetting("unit-settling", design.Adc.Kind == ConverterKind.DeltaSigma ? "static" : options.SimulateSettling ? "simulated" : "nominal"), Conversions());
     }
 
-    public static RunProvenance WorstCase(FrontEndDesign design) =>
-        RunProvenance.Of(RunProvenance.BuiltInEngine, null, design.Source, Conversions());
+    /// <summary>A delta-sigma design's units are static readings (no sampling transient per unit): the setting says so.</summary>
+    public static RunProvenance WorstCase(FrontEndDesign design) => design.Adc.Kind == ConverterKind.DeltaSigma
+        ? RunProvenance.Of(RunProvenance.BuiltInEngine, null, design.Source, new RunSetting("unit-settling", "static"), Conversions())
+        : RunProvenance.Of(RunProvenance.BuiltInEngine, null, design.Source, Conversions());
 
     public static RunProvenance ChooseFixed(FrontEndDesign design, FixedResistorSearchOptions? options = null)
     {

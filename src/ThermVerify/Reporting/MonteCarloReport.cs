@@ -31,7 +31,9 @@ public static class MonteCarloReport
         [
             new("yield", "Yield",
             [
-                I($"{r.Units} units built with seed {r.Seed} (tolerances {distribution}); each verified over the check grid as check does (its own DC sweep, its sampling transient rerun at its worst temperature, quantisation and the firmware's reading)."),
+                design.Adc.Kind == ConverterKind.DeltaSigma
+                    ? I($"{r.Units} units built with seed {r.Seed} (tolerances {distribution}); each verified over the check grid (its own DC sweep, quantisation and the firmware's reading). {Sentence(DeltaSigmaUnit.StaticReadingNote)}")
+                    : I($"{r.Units} units built with seed {r.Seed} (tolerances {distribution}); each verified over the check grid as check does (its own DC sweep, its sampling transient rerun at its worst temperature, quantisation and the firmware's reading)."),
                 I($"Yield {yield} (binomial standard error √(y(1 − y)/N)). Largest self-heating in any unit: {r.MaximumSelfHeatingKelvin * 1e3:0.###} mK."),
             ], []),
             new("envelope", "Error envelope", ["Reported minus true, in K, at selected temperatures; --json holds every temperature."], [EnvelopeTable(r)]),
@@ -65,4 +67,7 @@ public static class MonteCarloReport
         ])]);
 
     private static string I(FormattableString s) => FormattableString.Invariant(s);
+
+    /// <summary>The terminal's note as a sentence of the page.</summary>
+    internal static string Sentence(string note) => char.ToUpperInvariant(note[0]) + note[1..] + ".";
 }

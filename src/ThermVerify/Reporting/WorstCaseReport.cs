@@ -28,6 +28,7 @@ public static class WorstCaseReport
             new("band", "Worst-case band",
             [
                 I($"{r.Parameters.Count} tolerances, {r.CornersEvaluated} corners verified in full. {enumeration}"),
+                .. (design.Adc.Kind == ConverterKind.DeltaSigma ? [MonteCarloReport.Sentence(DeltaSigmaUnit.StaticReadingNote)] : Array.Empty<string>()),
                 "Reported minus true, in K: the two corners' errors, the nominal unit, the linear sum Σ|sᵢ·aᵢ|, the root sum of squares √Σ(sᵢ·aᵢ)² and the standard deviation √Σ(sᵢ·σᵢ)²; --json holds every temperature.",
             ], [BandTable(r)]),
             new("sensitivities", "Sensitivities", [I($"The error each tolerance causes at its full value at {worst.Celsius:0.##} °C (central difference at ±a), largest first.")], [SensitivityTable(r)]),

@@ -75,6 +75,9 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
                 ? n with { PinLeakageAmperes = n.PinLeakageAmperes * (1 + Dev(ToleranceKind.Leakage)), PinLeakageSigned = true }
                 : null,
             GainStage = stage,
+            DeltaSigma = nominal.Adc.DeltaSigma is { } ds
+                ? ds with { InputCurrentAmperes = Bound(ToleranceKind.DeltaSigmaInputCurrent, ds.InputCurrentAmperes), InputCurrentSigned = true }
+                : null,
         };
         var buffer = nominal.Buffer is { } b
             ? b with

@@ -12,7 +12,6 @@ internal static class MonteCarlo
 {
     public static MonteCarloResult Run(FrontEndDesign design, MonteCarloOptions? options = null)
     {
-        ConverterSupport.RequireSuccessiveApproximation(design, "montecarlo");
         options ??= new MonteCarloOptions();
         if (options.Units < 2)
             throw new ArgumentOutOfRangeException(nameof(options), options.Units, "A Monte Carlo run needs at least 2 units.");

@@ -67,4 +67,6 @@ public enum ToleranceKind
     NetlistPartValue,
     /// <summary>A netlist resistor's tempco, spread over ±|tempco|; the element is <see cref="ToleranceParameter.Element"/>.</summary>
     NetlistPartTempco,
+    /// <summary>A delta-sigma converter's input buffer current (adc.input_current), spread over ±|current| when written as a bound.</summary>
+    DeltaSigmaInputCurrent,
 }

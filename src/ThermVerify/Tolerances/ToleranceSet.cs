@@ -105,6 +105,8 @@ internal sealed class ToleranceSet
             Add(ToleranceKind.GainStageGain, "adc.pga_gain_error", stage.GainError, "", stage.GainErrorSigned);
             Add(ToleranceKind.GainStageInputCurrent, "adc.pga_input_current", stage.InputCurrentAmperes, "A", stage.InputCurrentSigned);
         }
+        if (adc.DeltaSigma is { InputBuffered: true } deltaSigma)
+            Add(ToleranceKind.DeltaSigmaInputCurrent, "adc.input_current", deltaSigma.InputCurrentAmperes, "A", deltaSigma.InputCurrentSigned);
         if (design.Buffer is { } buffer)
         {
             Add(ToleranceKind.BufferOffset, "buffer.offset_voltage", buffer.OffsetVolts, "V", buffer.OffsetSigned);

@@ -34,13 +34,23 @@ internal sealed class UnitEvaluator
         Cases = PrechargeCases.For(design, Model.Adc.ReferenceVolts);
         NominalUnitDesign = BuiltUnit.Build(design, Model.Sensor, Set, new double[Set.Count]).Design;
         var indices = SettlingGrid.Indices(Temperatures.Length, maximumSamplingPoints ?? new CheckOptions().MaximumSamplingPoints);
-        var dc = DcCorners.Run(NominalUnitDesign, Cases, Temperatures);
-        nominalOffsets = SamplingOffsets.Run(NominalUnitDesign, Cases, Temperatures, indices, dc.Base, SettleVolts, threads, cancel, BuiltInEngine.Instance);
+        IsDeltaSigma = DeltaSigmaUnit.Applies(design);
+        var points = maximumSamplingPoints ?? new CheckOptions().MaximumSamplingPoints;
+        // A delta-sigma converter has no acquisition window: its units are read as the settled filter output (DeltaSigmaUnit).
+        nominalOffsets = IsDeltaSigma
+            ? SamplingOffsets.None(Cases, Temperatures.Length)
+            : SamplingOffsets.Run(NominalUnitDesign, Cases, Temperatures, indices, DcCorners.Run(NominalUnitDesign, Cases, Temperatures).Base, SettleVolts,
+                threads, cancel, BuiltInEngine.Instance);
         // The noise of a reading and the lag on the declared ramp count in every unit's budget as they do in the check;
         // they are the nominal design's (a unit's parts move its noise by their tolerances' fraction of it).
-        NoiseMarginsKelvin = [.. Check.Noise.ReadingNoiseAnalysis.Over(design, Model, Temperatures,
-            maximumSamplingPoints ?? new CheckOptions().MaximumSamplingPoints, BuiltInEngine.Instance).Select(r => r.CoveredKelvin + r.RampLagKelvin)];
+        var noise = IsDeltaSigma
+            ? Check.DeltaSigma.DeltaSigmaCheck.NoiseOver(design, Model, Temperatures, points)
+            : Check.Noise.ReadingNoiseAnalysis.Over(design, Model, Temperatures, points, BuiltInEngine.Instance);
+        NoiseMarginsKelvin = [.. noise.Select(r => r.CoveredKelvin + r.RampLagKelvin)];
     }
+
+    /// <summary>A delta-sigma design: every unit is its static reading, never a sampling transient (<see cref="DeltaSigmaUnit"/>).</summary>
+    public bool IsDeltaSigma { get; }
 
     /// <summary>At each temperature, the nominal design's noise at its coverage plus its lag on the declared ramp.</summary>
     public double[] NoiseMarginsKelvin { get; }
@@ -63,12 +73,17 @@ internal sealed class UnitEvaluator
         [.. Cases.Select((c, i) => (c.Volts, nominalOffsets.FirstVolts[i], nominalOffsets.SteadyVolts[i]))];
 
     /// <param name="deviations">One deviation per parameter of <see cref="Set"/>, in its own unit.</param>
-    /// <param name="simulateSettling">Rerun the sampling transient with this unit's parts at its worst temperature.</param>
+    /// <param name="simulateSettling">Rerun the sampling transient with this unit's parts at its worst temperature (never for a delta-sigma design: its static reading).</param>
     public UnitOutcome Evaluate(ReadOnlySpan<double> deviations, bool simulateSettling = true)
     {
         var unit = BuiltUnit.Build(Design, Model.Sensor, Set, deviations);
         var n = Temperatures.Length;
         var dc = DcCorners.Run(unit.Design, Cases, Temperatures);
+        if (IsDeltaSigma)
+        {
+            dc = DeltaSigmaUnit.WithInputLoad(dc, unit.Design, Temperatures);
+            simulateSettling = false;
+        }
         var inputs = ErrorModel.Inputs(unit.Design, unit.Sensor, Temperatures, dc, nominalOffsets.FirstVolts, nominalOffsets.SteadyVolts, unit.Converter);
         var error = new double[n];
         var unquantised = new double[n];

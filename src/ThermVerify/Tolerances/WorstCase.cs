@@ -71,7 +71,6 @@ internal static class WorstCase
 {
     public static WorstCaseResult Run(FrontEndDesign design, WorstCaseOptions? options = null)
     {
-        ConverterSupport.RequireSuccessiveApproximation(design, "worstcase");
         options ??= new WorstCaseOptions();
         var evaluator = new UnitEvaluator(design, options.Threads, options.Cancel);
         var set = evaluator.Set;

@@ -2,15 +2,13 @@ using ThermVerify.Cli;
 
 namespace ThermVerify.Tests.Cli;
 
-/// <summary>The command line with a delta-sigma design: check runs it; the analyses that do not model it refuse it with exit code 2.</summary>
+/// <summary>The command line with a delta-sigma design: check, worstcase and montecarlo run it; the analyses that do not model it refuse it with exit code 2.</summary>
 public class DeltaSigmaCommandTests
 {
     private static string Example(string name) =>
         Path.Combine(AppContext.BaseDirectory, "..", "..", "..", "..", "..", "netlists", name);
 
     [Theory]
-    [InlineData("worstcase")]
-    [InlineData("montecarlo")]
     [InlineData("table")]
     public void An_analysis_built_on_an_acquisition_window_refuses_a_delta_sigma_design_with_exit_code_2(string command)
     {
@@ -19,6 +17,29 @@ public class DeltaSigmaCommandTests
         Assert.Contains("delta-sigma", run.Error);
         Assert.Contains("refused rather than treated as the other kind", run.Error);
         Assert.DoesNotContain("internal error", run.Error);
+    }
+
+    [Theory]
+    [InlineData("worstcase")]
+    [InlineData("montecarlo", "-n", "20", "--seed", "3")]
+    public void Worstcase_and_montecarlo_run_a_delta_sigma_design_and_say_its_units_are_static_readings(string command, params string[] more)
+    {
+        // They refused it before (exit code 2); now the units go through the tolerance machinery, read statically, and
+        // the terminal, the report page and the run's settings say so.
+        var folder = Directory.CreateTempSubdirectory("tv-ds-tol-").FullName;
+        try
+        {
+            var run = CliRunner.Run([command, Example("kiln-bank-pt100-deltasigma.toml"), .. more, "--report", Path.Combine(folder, "report")]);
+            Assert.True(run.ExitCode is ExitCodes.Success or ExitCodes.CheckFailed, run.Error);
+            Assert.Contains("delta-sigma: each unit is read through the converter's static transfer", run.Output);
+            Assert.Contains("unit-settling static", run.Output);
+            Assert.DoesNotContain("refused rather than treated as the other kind", run.Error);
+            Assert.Contains("Delta-sigma: each unit is read through the converter's static transfer", File.ReadAllText(Path.Combine(folder, "report", "report.md")));
+        }
+        finally
+        {
+            Directory.Delete(folder, recursive: true);
+        }
     }
 
     [Fact]

@@ -54,6 +54,13 @@ internal static class DeltaSigmaCheck
             : result;
     }
 
+    /// <summary>The reading's noise at every temperature, as the check counts it (the tolerance analyses count the nominal design's the same way).</summary>
+    public static Noise.ReadingNoise[] NoiseOver(FrontEndDesign design, ClosedFormModel model, double[] temperatures, int maximumPoints)
+    {
+        var filter = SincFilter.Of(design.Adc.DeltaSigma!);
+        return NoiseGrid(design, model, temperatures, DeltaSigmaNoise.Grid(filter), filter, maximumPoints);
+    }
+
     /// <summary>The reading's noise at every temperature: analysed on the sampling grid, the filtered front end's variance interpolated between.</summary>
     private static Noise.ReadingNoise[] NoiseGrid(FrontEndDesign design, ClosedFormModel model, double[] temperatures, (double[] Hertz, double[] FilterPower) grid,
         SincFilter filter, int maximumPoints)

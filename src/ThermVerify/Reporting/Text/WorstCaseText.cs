@@ -16,6 +16,7 @@ public static class WorstCaseText
         text.AppendLine(Invariant($"{(r.WithinBudget ? "PASS" : "FAIL")} {design.Name}: worst case {Kelvin(worst.LowKelvin)} .. {Kelvin(worst.HighKelvin)} K at {worst.Celsius:0.##} °C (budget ±{worst.BudgetKelvin:0.###} K)"));
         ProvenanceText.Append(text, provenance);
         text.AppendLine(Invariant($"{r.Parameters.Count} tolerances, {r.CornersEvaluated} corners verified in full"));
+        if (design.Adc.Kind == ConverterKind.DeltaSigma) text.AppendLine(DeltaSigmaUnit.StaticReadingNote);
         text.AppendLine(Invariant($"noise: each corner's error leaves room for the design's noise at its coverage and ramp lag, up to ±{r.Points.Max(p => p.NoiseKelvin):0.###} K (as check counts it)"));
         if (r.Enumeration is { } e)
             text.AppendLine(e.LargestShortfallKelvin <= 1e-9
