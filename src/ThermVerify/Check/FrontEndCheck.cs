@@ -67,8 +67,7 @@ internal static class FrontEndCheck
         }
         catch (FirmwareInputException e)
         {
-            omitted = design.Bridge is not null ? "not computed yet for a bridge"
-                : e.Message;
+            omitted = e.Message;
             return null;
         }
     }

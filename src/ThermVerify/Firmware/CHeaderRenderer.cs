@@ -20,7 +20,8 @@ public static class CHeaderRenderer
         content.Validated();
         var (p, m, t) = (content.Prefix, content.Model, content.Table);
         var P = p.ToUpperInvariant();
-        var codeType = m.Adc.MaxCode <= ushort.MaxValue ? "uint16_t" : "uint32_t";
+        // Signed codes (a differential input) need a signed type; the unsigned ones keep theirs.
+        var codeType = m.Adc.Bipolar ? (m.Adc.MaxCode <= short.MaxValue ? "int16_t" : "int32_t") : m.Adc.MaxCode <= ushort.MaxValue ? "uint16_t" : "uint32_t";
         var valueType = t.FitsInt16 ? "int16_t" : "int32_t";
         var sb = new StringBuilder();
         void Line(FormattableString s) => sb.Append(s.ToString(CultureInfo.InvariantCulture)).Append('\n');
@@ -34,6 +35,11 @@ public static class CHeaderRenderer
             var (ta, tb, tc) = NetlistTransfer.Of(netlist).Coefficients;
             Line($" * Netlist: {Ascii(netlist.File)}, sensor {Ascii(netlist.SensorElements[0])}, converter at node {Ascii(netlist.PinNode)}; its ideal transfer");
             Line($" *          v = (a*R + b)/(c*R + 1), a = {ta:G9}, b = {tb:G9} V, c = {tc:G9} 1/ohm (R the sensor's resistance)");
+        }
+        else if (m.Bridge is { } bridge)
+        {
+            Line($" * Bridge:  sensor on the {(m.Side == SensorSide.Low ? "low side (to ground)" : "high side (to the excitation)")} of its half, fixed resistor {m.FixedOhms:G6} ohm, excitation {m.ExcitationVolts:G6} V;");
+            Line($" *          opposite half {bridge.HighOhms:G6} ohm over {bridge.LowOhms:G6} ohm; the code reads V_d = V+ - V-");
         }
         else if (m.ExcitationAmperes is { } amps)
             Line($" * Current source: {amps:G6} A through the sensor, node = I*R_s; reference resistor (or V_ref/I) {m.FixedOhms:G6} ohm");

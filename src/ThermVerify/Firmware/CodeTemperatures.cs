@@ -31,7 +31,7 @@ internal static class CodeTemperatures
     }
 
     /// <summary>
-    /// The codes whose true temperature lies inside the model's range. Codes 0 and full scale are never in the span:
+    /// The codes whose true temperature lies inside the model's range. The lowest code (0, or −2^(N−1) for signed codes) and full scale are never in the span:
     /// they also collect every voltage beyond the converter's ends, so they do not name one temperature.
     /// </summary>
     public static CodeSpan Span(FirmwareModel model)
@@ -39,14 +39,14 @@ internal static class CodeTemperatures
         model.Validated();
         var atMin = model.Adc.CodeReadAs(model.NodeVolts(model.Range.MinCelsius));
         var atMax = model.Adc.CodeReadAs(model.NodeVolts(model.Range.MaxCelsius));
-        var first = Math.Max(1, (int)Math.Ceiling(Math.Min(atMin, atMax)));
+        var first = Math.Max(model.Adc.MinCode + 1, (int)Math.Ceiling(Math.Min(atMin, atMax)));
         var last = Math.Min(model.Adc.MaxCode - 1, (int)Math.Floor(Math.Max(atMin, atMax)));
         // The ideal codes come from the forward model; rounding in the inverse can put an end code a hair outside.
         while (first <= last && !InRange(model, first)) first++;
         while (last >= first && !InRange(model, last)) last--;
         if (last - first < 1)
             throw new FirmwareInputException(FormattableString.Invariant(
-                $"The range {model.Range} covers fewer than two ADC codes (ideal codes {atMin:0.##} to {atMax:0.##} of 0…{model.Adc.MaxCode}); ") +
+                $"The range {model.Range} covers fewer than two ADC codes (ideal codes {atMin:0.##} to {atMax:0.##} of {model.Adc.MinCode}…{model.Adc.MaxCode}); ") +
                 "widen the range, use more ADC bits or choose a fixed resistor closer to the sensor's resistance.");
         return new CodeSpan(first, last, TrueCelsius(model, last) > TrueCelsius(model, first));
     }

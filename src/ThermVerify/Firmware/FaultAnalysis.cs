@@ -16,6 +16,7 @@ internal static class FaultAnalysis
         tolerances.Validated();
         if (model.Netlist is { } netlist) return NetlistFaultAnalysis.Thresholds(model, netlist, tolerances);
         if (model.ExcitationAmperes is { } amps) return CurrentThresholds(model, amps, tolerances);
+        if (model.Bridge is { } bridge) return BridgeFaultAnalysis.Thresholds(model, bridge, tolerances);
         var corners = Corners(model, tolerances).ToArray();
 
         // The high rail reads Vexc/Q at each corner; the low rail is 0 V, code 0, whatever the tolerances.

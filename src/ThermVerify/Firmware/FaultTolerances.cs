@@ -4,12 +4,15 @@ namespace ThermVerify.Firmware;
 /// Worst-case spreads for fault thresholds, each a ± fraction (0.01 = ±1 %).
 /// When <paramref name="ExcitationTracksReference"/> is true the divider and the ADC share one reference
 /// (a ratiometric front end), so their errors cancel in the code and only the fixed resistor's tolerance counts.
+/// A bridge adds its opposite half's two resistors (<paramref name="OppositeHighFraction"/>, <paramref name="OppositeLowFraction"/>).
 /// </summary>
 internal sealed record FaultTolerances(
     double ExcitationFraction = 0,
     double ReferenceFraction = 0,
     double FixedResistorFraction = 0,
-    bool ExcitationTracksReference = false)
+    bool ExcitationTracksReference = false,
+    double OppositeHighFraction = 0,
+    double OppositeLowFraction = 0)
 {
     public static readonly FaultTolerances None = new();
 
@@ -18,6 +21,8 @@ internal sealed record FaultTolerances(
         Check(ExcitationFraction, "excitation");
         Check(ReferenceFraction, "ADC reference");
         Check(FixedResistorFraction, "fixed resistor");
+        Check(OppositeHighFraction, "bridge's opposite high resistor");
+        Check(OppositeLowFraction, "bridge's opposite low resistor");
         return this;
     }
 

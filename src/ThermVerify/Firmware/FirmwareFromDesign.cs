@@ -16,10 +16,8 @@ internal static class FirmwareFromDesign
     public static FirmwareModel Model(FrontEndDesign design, bool correctForLoading)
     {
         ConverterSupport.RequireSuccessiveApproximation(design, "the firmware table");
-        if (design.Bridge is not null)
-            throw new FirmwareInputException(
-                "Firmware tables are made for a divider, a current-excited sensor or a netlist; this design is a bridge, whose table (through the bridge equation, docs/design-file.md) " +
-                "is not made yet. Run check, worstcase or montecarlo on it instead.");
+        if (design.Bridge is { } bridge)
+            return BridgeModel(design, bridge, correctForLoading);
         if (design.CurrentSource is { } source)
             return CurrentModel(design, source, correctForLoading);
         var closedForm = new ClosedFormModel(design);
@@ -58,6 +56,28 @@ internal static class FirmwareFromDesign
         }.Validated();
     }
 
+    /// <summary>
+    /// A bridge: the code stands for V_d (signed codes on a differential input), inverted through the bridge equation
+    /// with the nominal halves. An amplifier between the bridge and the converter and the loading correction are refused.
+    /// </summary>
+    private static FirmwareModel BridgeModel(FrontEndDesign design, BridgeSpec bridge, bool correctForLoading)
+    {
+        if (design.Amplifier is not null)
+            throw new FirmwareInputException(
+                "Firmware tables of a bridge are made for the converter reading the bridge directly; this design has an [amplifier] between them, whose table " +
+                "(its gain and reference through the bridge equation) is not made yet. Run check, worstcase or montecarlo on it instead.");
+        if (correctForLoading)
+            throw new FirmwareInputException(
+                "The loading correction is made for a divider; this design is a bridge, whose correction is not made yet. " +
+                "Make the table without it (leave out --corrected); check shows the DC loading the table then leaves.");
+        var closedForm = new ClosedFormModel(design);
+        var half = design.Divider ?? throw new FirmwareInputException("The bridge has no sensor half ([bridge] sensor_side, fixed_resistor, excitation); give them.");
+        return new FirmwareModel(closedForm.Sensor, half.SensorSide, half.FixedResistorOhms, half.ExcitationVolts, closedForm.Adc, design.Check.Range)
+        {
+            Bridge = bridge,
+        }.Validated();
+    }
+
     private static FirmwareModel DividerModel(FrontEndDesign design, ClosedFormModel closedForm)
     {
         var divider = design.Divider ?? throw new FirmwareInputException(
@@ -74,7 +94,9 @@ internal static class FirmwareFromDesign
         ExcitationFraction: design.Divider?.ExcitationTolerance ?? 0,
         ReferenceFraction: design.Adc.ReferenceTolerance + ReferenceDriftFraction(design),
         FixedResistorFraction: design.Divider?.FixedTolerance ?? 0,
-        ExcitationTracksReference: design.Adc.IsRatiometric);
+        ExcitationTracksReference: design.Adc.IsRatiometric,
+        OppositeHighFraction: design.Bridge?.HighTolerance ?? 0,
+        OppositeLowFraction: design.Bridge?.LowTolerance ?? 0);
 
     /// <summary>
     /// The largest relative drift of a fixed reference from 25 °C where it sits: at the board temperature, or over the

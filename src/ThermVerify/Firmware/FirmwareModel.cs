@@ -38,16 +38,25 @@ public sealed record FirmwareModel(
     /// </summary>
     internal NetlistSpec? Netlist { get; init; }
 
-    /// <summary>The unloaded node voltage for a sensor resistance: the divider's output, I·R_s, or a netlist's ideal transfer.</summary>
+    /// <summary>
+    /// A bridge ([bridge]): <see cref="Side"/>, <see cref="FixedOhms"/> and <see cref="ExcitationVolts"/> are the sensor's
+    /// half and this is the opposite half at its nominal values; the node is V_d = V+ − V− (<see cref="BridgeFormula"/>),
+    /// which a differential converter reads as a signed code.
+    /// </summary>
+    internal BridgeSpec? Bridge { get; init; }
+
+    /// <summary>The unloaded node voltage for a sensor resistance: the divider's output, I·R_s, a bridge's V_d or a netlist's ideal transfer.</summary>
     public double UnloadedVolts(double sensorOhms) =>
         Netlist is { } n ? NetlistTransfer.Of(n).OutputVolts(sensorOhms)
         : ExcitationAmperes is { } amps ? amps * sensorOhms
+        : Bridge is { } b ? BridgeFormula.OutputVolts(Side, ExcitationVolts, FixedOhms, b, sensorOhms)
         : DividerFormula.OutputVolts(Side, ExcitationVolts, sensorOhms, FixedOhms);
 
-    /// <summary>The sensor resistance behind an unloaded node voltage: the divider's inverse, V/I, or the netlist's (NaN where none gives it).</summary>
+    /// <summary>The sensor resistance behind an unloaded node voltage: the divider's inverse, V/I, the bridge's or the netlist's (NaN where none gives it).</summary>
     public double SensorOhmsAt(double unloadedVolts) =>
         Netlist is { } n ? NetlistTransfer.Of(n).SensorOhms(unloadedVolts)
         : ExcitationAmperes is { } amps ? unloadedVolts / amps
+        : Bridge is { } b ? BridgeFormula.SensorOhms(Side, ExcitationVolts, FixedOhms, b, unloadedVolts)
         : DividerFormula.SensorOhms(Side, ExcitationVolts, unloadedVolts, FixedOhms);
 
     /// <summary>Throws <see cref="FirmwareInputException"/> naming the first parameter that cannot make a table.</summary>
@@ -60,6 +69,8 @@ public sealed record FirmwareModel(
             throw new FirmwareInputException(Invariant($"The fixed resistor is {FixedOhms} Ω; give a positive finite resistance."));
         if (Netlist is null && !(double.IsFinite(ExcitationVolts) && ExcitationVolts > 0))
             throw new FirmwareInputException(Invariant($"The excitation is {ExcitationVolts} V; give a positive finite voltage."));
+        if (Bridge is { } b && !(double.IsFinite(b.HighOhms) && b.HighOhms > 0 && double.IsFinite(b.LowOhms) && b.LowOhms > 0))
+            throw new FirmwareInputException(Invariant($"The bridge's opposite half is {b.HighOhms} Ω over {b.LowOhms} Ω; give positive finite resistances."));
         if (Adc.Bits is < 1 or > 24)
             throw new FirmwareInputException(Invariant($"The ADC has {Adc.Bits} bits; firmware tables support 1 to 24 bits."));
         if (!(double.IsFinite(Adc.ReferenceVolts) && Adc.ReferenceVolts > 0))

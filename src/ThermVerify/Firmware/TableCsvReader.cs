@@ -42,8 +42,8 @@ internal static class TableCsvReader
             if (fields.Length != 2)
                 throw new TableFormatException(sourceName, line, $"expected 2 fields 'code,temperature', found {fields.Length}: '{content}'. Remove extra columns or use '.' as the decimal point.");
             var codeText = fields[0].Trim();
-            if (!int.TryParse(codeText, NumberStyles.Integer, CultureInfo.InvariantCulture, out var code) || code < 0)
-                throw new TableFormatException(sourceName, line, $"the code '{codeText}' is not a non-negative whole number.");
+            if (!int.TryParse(codeText, NumberStyles.Integer, CultureInfo.InvariantCulture, out var code))
+                throw new TableFormatException(sourceName, line, $"the code '{codeText}' is not a whole number.");
             var celsius = ReadTemperature(fields[1].Trim(), unit, sourceName, line);
             if (seen.TryGetValue(code, out var first))
                 throw new TableFormatException(sourceName, line, $"code {code} appears again (first on line {first}); each code may have one temperature.");

@@ -26,6 +26,8 @@ internal static class TableVerifier
         foreach (var row in rows)
             if (row.Code > model.Adc.MaxCode)
                 throw new FirmwareInputException($"Line {row.Line}: code {row.Code} is above the {model.Adc.Bits}-bit converter's full scale {model.Adc.MaxCode}; check the ADC resolution.");
+            else if (row.Code < model.Adc.MinCode)
+                throw new FirmwareInputException($"Line {row.Line}: code {row.Code} is below the converter's lowest code {model.Adc.MinCode}; {(model.Adc.Bipolar ? "check the ADC resolution" : "an unsigned converter reads no negative codes: check adc.input")}.");
 
         var truth = Truth(model, rows);
         var disagreements = rows.Select((r, i) => new RowDisagreement(r, truth[i]))

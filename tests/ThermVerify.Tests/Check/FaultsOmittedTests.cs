@@ -9,7 +9,6 @@ namespace ThermVerify.Tests.Check;
 public class FaultsOmittedTests
 {
     [Theory]
-    [InlineData("fermenter-pt1000-bridge.toml", "not computed yet for a bridge")]
     [InlineData("kiln-bank-pt100-deltasigma.toml", "not computed yet for a delta-sigma converter")]
     public void A_design_without_fault_thresholds_says_why(string example, string reason)
     {
@@ -24,7 +23,9 @@ public class FaultsOmittedTests
     [InlineData("oven-pt1000.toml")]
     [InlineData("mash-tun-pt100-current.toml")]
     [InlineData("attic-fan-leaky-pin-netlist.toml")]
-    public void A_divider_current_source_or_netlist_design_has_its_thresholds_and_no_reason(string example)
+    [InlineData("fermenter-pt1000-bridge.toml")]
+    [InlineData("brine-chiller-bridge-differential.toml")]
+    public void A_divider_current_source_netlist_or_bridge_design_has_its_thresholds_and_no_reason(string example)
     {
         var design = DesignLoader.Load(Path.Combine(Repository.Netlists, example));
         var result = FrontEndCheck.Run(design, new CheckOptions { ComputeRemedies = false });
