@@ -31,5 +31,6 @@ public class FaultsOmittedTests
         var result = FrontEndCheck.Run(design, new CheckOptions { ComputeRemedies = false });
         Assert.NotNull(result.Faults);
         Assert.Null(result.FaultsOmitted);
+        Assert.Contains($"a code below {result.Faults.FaultBelowCode} or above {result.Faults.FaultAboveCode} is a fault", CheckSummaryText.Render(result, RunStamp.Check(design)));
     }
 }

@@ -93,4 +93,11 @@ public sealed class UserGuideTests : IDisposable
         DocBlocks.AssertCurrent(Repository.PathOf("docs", "design-file.md"), "design-file-errors",
             Shown(["validate", "typo.toml"], error: true) + Shown(["validate", "unit.toml"], error: true));
     }
+
+    [Fact]
+    public void The_firmware_tables_page_shows_a_differential_bridge_table_with_its_signed_fault_thresholds()
+    {
+        DocBlocks.AssertCurrent(Repository.PathOf("docs", "firmware-tables.md"), "bridge-table",
+            Shown(["table", Copy("brine-chiller-bridge-differential.toml")]));
+    }
 }
