@@ -1,4 +1,5 @@
 using System.Globalization;
+using ThermVerify.Api;
 using ThermVerify.Design;
 using ThermVerify.Firmware;
 using ThermVerify.Sensors;
@@ -52,7 +53,33 @@ public class CHeaderCompileTests
         }
     }
 
-    private static string CompileAndRun(string header, int maxCode)
+    [GccFact]
+    public void A_differential_bridge_header_with_signed_codes_matches_the_CSharp_port_for_every_code()
+    {
+        // Signed codes −2^15 … 2^15 − 1 (two's complement, the differential input's convention): the C routine takes an
+        // int16_t code, negative codes index and interpolate as the C# port does, and the fault flag agrees.
+        var model = Verifier.Table(DesignLoader.Load(Path.Combine(Repository.Netlists, "brine-chiller-bridge-differential.toml"))).Model;
+        var faults = FaultAnalysis.Thresholds(model, new FaultTolerances(FixedResistorFraction: 0.0005, ExcitationTracksReference: true,
+            OppositeHighFraction: 0.0005, OppositeLowFraction: 0.0005));
+        foreach (var table in new[] { TableBuilder.EveryCode(model, FixedPointScale.CentiKelvin), TableBuilder.WithinBound(model, FixedPointScale.CentiKelvin, 0.05) })
+        {
+            var header = CHeaderRenderer.Render(new FirmwareHeaderContent("Test bridge", "tv_test", model, table,
+                TableErrorAnalysis.Evaluate(model, table), faults), TestRun.Provenance);
+            Assert.Contains("tv_test_temperature(int16_t code)", header);
+            var lines = CompileAndRun(header, model.Adc.MaxCode, model.Adc.MinCode).Split('\n', StringSplitOptions.RemoveEmptyEntries);
+            Assert.Equal(model.Adc.MaxCode - model.Adc.MinCode + 1, lines.Length);
+            foreach (var line in lines)
+            {
+                var parts = line.Split(' ');
+                var code = int.Parse(parts[0], CultureInfo.InvariantCulture);
+                Assert.True(table.Evaluate(code) == int.Parse(parts[1], CultureInfo.InvariantCulture),
+                    $"code {code}: C gives {parts[1]}, C# gives {table.Evaluate(code)}");
+                Assert.True(faults.IsFault(code) == (parts[2] == "1"), $"code {code}: fault flag differs");
+            }
+        }
+    }
+
+    private static string CompileAndRun(string header, int maxCode, int minCode = 0)
     {
         var folder = Directory.CreateTempSubdirectory("thermverify-c-");
         try
@@ -64,7 +91,7 @@ public class CHeaderCompileTests
                 int main(void)
                 {
                     long code;
-                    for (code = 0; code <= {{maxCode}}L; code++)
+                    for (code = {{minCode}}L; code <= {{maxCode}}L; code++)
                         printf("%ld %ld %d\n", code, (long)tv_test_temperature(code), tv_test_is_fault(code));
                     return 0;
                 }
