@@ -10,6 +10,8 @@ namespace ThermVerify.Firmware;
 /// V− = E·R_low/(R_high + R_low) from the intact opposite half. With the sensor low an open sensor or a shorted fixed
 /// resistor reads high, a shorted sensor or an open fixed resistor low; the other way round with the sensor high. On
 /// unsigned codes the negative V_d is the bottom code; on signed codes (a differential input) it reads as itself. The
+/// opposite half's arms, open or shorted, put V− at 0 V or at E with a healthy sensor anywhere in the range (V_d = V+ or
+/// V+ − E); one that reads among the healthy codes is refused by name, as for a netlist's fixed resistor. The
 /// tolerance corners are every sign of the excitation and the reference (none where they are one, ratiometric), the
 /// fixed resistor and the opposite half's two resistors; the thresholds sit midway, as for the divider (<see cref="FaultAnalysis"/>).
 /// </summary>
@@ -19,6 +21,7 @@ internal static class BridgeFaultAnalysis
     {
         var (e, r) = t.ExcitationTracksReference ? (0.0, 0.0) : (t.ExcitationFraction, t.ReferenceFraction);
         var (high, low, valid) = (new List<int>(), new List<int>(), new List<int>());
+        var (oppositeAtGround, oppositeAtExcitation) = (new List<int>(), new List<int>());
         var sensorEnds = new[] { model.Sensor.ResistanceOhms(model.Range.MinCelsius), model.Sensor.ResistanceOhms(model.Range.MaxCelsius) };
         for (var mask = 0; mask < 32; mask++)
         {
@@ -37,19 +40,41 @@ internal static class BridgeFaultAnalysis
             high.Add(Code(excitation - negative));
             low.Add(Code(-negative));
             valid.AddRange(sensorEnds.Select(ohms => Code(BridgeFormula.OutputVolts(model.Side, excitation, fixedOhms, opposite, ohms))));
+            // An opposite arm open or shorted puts V− at 0 V or at E, with a healthy sensor anywhere in the range: V_d = V+ or V+ − E.
+            foreach (var ohms in sensorEnds)
+            {
+                var plus = DividerFormula.OutputVolts(model.Side, excitation, ohms, fixedOhms);
+                oppositeAtGround.Add(Code(plus));
+                oppositeAtExcitation.Add(Code(plus - excitation));
+            }
         }
 
         var (lowestValid, highestValid) = (valid.Min(), valid.Max());
         var (highMin, highMax, lowMin, lowMax) = (high.Min(), high.Max(), low.Min(), low.Max());
         var sensorLow = model.Side == SensorSide.Low;
         FaultCode Rail(FaultKind kind, bool atExcitation) => atExcitation ? new(kind, true, highMin, highMax) : new(kind, false, lowMin, lowMax);
-        FaultCode[] faults =
+        List<FaultCode> faults =
         [
             Rail(FaultKind.SensorOpen, sensorLow),
             Rail(FaultKind.SensorShorted, !sensorLow),
             Rail(FaultKind.FixedOpen, !sensorLow),
             Rail(FaultKind.FixedShorted, sensorLow),
         ];
+        // The opposite half's faults: its high arm open or its low arm shorted leave V− at 0 V, the other two at E.
+        foreach (var (kind, codes) in new[]
+                 {
+                     (FaultKind.OppositeHighOpen, oppositeAtGround), (FaultKind.OppositeHighShorted, oppositeAtExcitation),
+                     (FaultKind.OppositeLowOpen, oppositeAtExcitation), (FaultKind.OppositeLowShorted, oppositeAtGround),
+                 })
+        {
+            var (lo, hi) = (codes.Min(), codes.Max());
+            // A fault that can read like a healthy sensor cannot be told from one by thresholds: said, not left out.
+            if (lo <= highestValid && hi >= lowestValid)
+                throw new FirmwareInputException(string.Create(CultureInfo.InvariantCulture,
+                    $"With the bridge's opposite {(kind is FaultKind.OppositeHighOpen or FaultKind.OppositeHighShorted ? "high" : "low")} resistor {(kind is FaultKind.OppositeHighOpen or FaultKind.OppositeLowOpen ? "open" : "shorted")} the converter reads codes {lo} to {hi}, among the codes a healthy sensor in {model.Range} reads ({lowestValid} to {highestValid}): no threshold tells that fault from a reading. Move the bridge's balance closer to the range, so that V_d stays well below V+."));
+            faults.Add(new FaultCode(kind, lo > highestValid, lo, hi));
+        }
+        (lowMax, highMin) = (faults.Where(f => !f.HighRail).Max(f => f.MaxCode), faults.Where(f => f.HighRail).Min(f => f.MinCode));
         if (lowestValid - lowMax < 2 || highMin - highestValid < 2)
             throw new FirmwareInputException(string.Create(CultureInfo.InvariantCulture,
                 $"A healthy sensor in {model.Range} reads codes {lowestValid} to {highestValid}, too close to the fault codes {lowMax} and {highMin} (V+ at ground or at the excitation, through the bridge equation) to leave a threshold with margin between them; narrow the range, tighten the tolerances or move the bridge's balance."));

@@ -52,7 +52,7 @@ public static class CHeaderRenderer
         Line($" * Table:   {(t.IsDense ? "one value per code, read by index" : $"{t.Codes.Count} breakpoints, linear interpolation between them")}");
         Line($" * Error:   table minus true temperature from {content.Error.MinErrorKelvin:+0.0000;-0.0000} K (code {content.Error.MinErrorCode}) to {content.Error.MaxErrorKelvin:+0.0000;-0.0000} K (code {content.Error.MaxErrorCode});");
         Line($" *          the converter's own quantisation is up to +/-{content.Error.HalfCodeKelvin:0.0000} K (code {content.Error.HalfCodeAtCode}).");
-        Line($" * Faults:  a code below {P}_FAULT_BELOW_CODE or above {P}_FAULT_ABOVE_CODE is an open or shorted sensor{(m.Netlist is null ? " or fixed resistor" : m.Netlist.FixedElement is { } f ? " or " + Ascii(f) : "")}.");
+        Line($" * Faults:  a code below {P}_FAULT_BELOW_CODE or above {P}_FAULT_ABOVE_CODE is an open or shorted sensor{(m.Bridge is not null ? ", fixed resistor or opposite-half resistor" : m.Netlist is null ? " or fixed resistor" : m.Netlist.FixedElement is { } f ? " or " + Ascii(f) : "")}.");
         Line($" * Made by: thermverify {Ascii(provenance.ToolVersion)} ({Ascii(provenance.EngineText)}; {Ascii(provenance.SettingsText)})");
         Line($" * Design:  {Ascii(provenance.DesignText())}");
         Line($" * Caution: simulation does not replace measurement on hardware; a safety function needs independent protection.");

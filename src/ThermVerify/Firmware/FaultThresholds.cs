@@ -1,9 +1,9 @@
 namespace ThermVerify.Firmware;
 
-/// <summary>Which part failed and how.</summary>
-public enum FaultKind { SensorOpen, SensorShorted, FixedOpen, FixedShorted }
+/// <summary>Which part failed and how; the Opposite kinds are a bridge's opposite half (from the excitation to its midpoint, and from there to ground).</summary>
+public enum FaultKind { SensorOpen, SensorShorted, FixedOpen, FixedShorted, OppositeHighOpen, OppositeHighShorted, OppositeLowOpen, OppositeLowShorted }
 
-/// <summary>The codes one fault can read, over the tolerance corners. An open or shorted part drives the node to a rail.</summary>
+/// <summary>The codes one fault can read, over the tolerance corners. An open or shorted part drives the node to a rail (<paramref name="HighRail"/>: above the healthy codes).</summary>
 public sealed record FaultCode(FaultKind Kind, bool HighRail, int MinCode, int MaxCode);
 
 /// <summary>

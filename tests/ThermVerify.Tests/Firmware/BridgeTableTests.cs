@@ -89,8 +89,15 @@ public class BridgeTableTests
         Assert.Equal(0, f.For(FaultKind.FixedOpen).MaxCode);
         Assert.Equal(lowest, f.LowestValidCode);
         Assert.Equal(highest, f.HighestValidCode);
+        // The opposite high arm open (or its low arm shorted) leaves V− at 0 V: V_d = V+ = E·R_s/(R_s + R_f), lowest at
+        // 0 °C with R_f at +0.1 %, about 10900, nearer the healthy codes than the open sensor; the other two put V− at E: V_d < 0, code 0.
+        var oppositeMin = (int)Round(65536 * Pt1000(0) / (Pt1000(0) + 4990 * (1 + tol)));
+        Assert.Equal(oppositeMin, f.For(FaultKind.OppositeHighOpen).MinCode);
+        Assert.Equal(oppositeMin, f.For(FaultKind.OppositeLowShorted).MinCode);
+        Assert.Equal(0, f.For(FaultKind.OppositeLowOpen).MaxCode);
+        Assert.Equal(0, f.For(FaultKind.OppositeHighShorted).MaxCode);
         Assert.Equal((lowest + 1) / 2, f.FaultBelowCode);
-        Assert.Equal(highest + (openMin - highest) / 2, f.FaultAboveCode);
+        Assert.Equal(highest + (oppositeMin - highest) / 2, f.FaultAboveCode);
     }
 
     [Fact]
@@ -111,6 +118,10 @@ public class BridgeTableTests
         Assert.Equal(32767, f.For(FaultKind.SensorOpen).MinCode);
         Assert.Equal(lowest, f.LowestValidCode);
         Assert.Equal(shortedMax + (lowest - shortedMax + 1) / 2, f.FaultBelowCode);
+        // An opposite arm that puts V− at E: V_d = V+ − E ≈ −3.0 V, beyond −full scale, the bottom code; at 0 V: V_d = V+,
+        // lowest at −40 °C with R_f at +0.05 %, about 5090.
+        Assert.Equal(-32768, f.For(FaultKind.OppositeLowOpen).MaxCode);
+        Assert.Equal((int)Round(65536 * Pt1000(-40) / (Pt1000(-40) + 10000 * (1 + tol))), f.For(FaultKind.OppositeHighOpen).MinCode);
         Assert.True(f.IsFault(-5958) && f.IsFault(32767) && !f.IsFault(0) && !f.IsFault(-800));
     }
 

@@ -11,6 +11,10 @@ internal static class FaultText
         FaultKind.SensorShorted => "sensor shorted",
         FaultKind.FixedOpen => "fixed resistor open",
         FaultKind.FixedShorted => "fixed resistor shorted",
+        FaultKind.OppositeHighOpen => "opposite high resistor open",
+        FaultKind.OppositeHighShorted => "opposite high resistor shorted",
+        FaultKind.OppositeLowOpen => "opposite low resistor open",
+        FaultKind.OppositeLowShorted => "opposite low resistor shorted",
         _ => kind.ToString(),
     };
 
