@@ -10,6 +10,7 @@ public class FaultsOmittedTests
 {
     [Theory]
     [InlineData("kiln-bank-pt100-deltasigma.toml", "not computed yet for a delta-sigma converter")]
+    [InlineData("autoclave-pt100-bridge-inamp.toml", "not computed yet for a bridge behind an amplifier")]
     public void A_design_without_fault_thresholds_says_why(string example, string reason)
     {
         var design = DesignLoader.Load(Path.Combine(Repository.Netlists, example));

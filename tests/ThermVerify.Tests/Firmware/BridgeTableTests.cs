@@ -144,6 +144,9 @@ public class BridgeTableTests
     {
         var e = Assert.Throws<FirmwareInputException>(() => Verifier.Table(Example("autoclave-pt100-bridge-inamp.toml")));
         Assert.Contains("[amplifier]", e.Message);
+        var cli = ThermVerify.Tests.Cli.CliRunner.Run("table", Path.Combine(Repository.Netlists, "autoclave-pt100-bridge-inamp.toml"));
+        Assert.Equal(ThermVerify.Cli.ExitCodes.BadInput, cli.ExitCode);
+        Assert.Contains("[amplifier]", cli.Error);
     }
 
     [Fact]
