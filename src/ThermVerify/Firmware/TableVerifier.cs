@@ -150,7 +150,7 @@ internal static class TableVerifier
             var residual = MaxResidual(model.WithOtherSide(), rows);
             if (residual <= budget)
                 yield return new TableCause(TableCauseKind.SensorOnOtherSide, Invariant(
-                    $"The table matches the sensor on the {model.WithOtherSide().Side.ToString().ToLowerInvariant()} side of the divider, not the {model.Side.ToString().ToLowerInvariant()} side (worst row then {residual:0.###} K off)."),
+                    $"The table matches the sensor on the {model.WithOtherSide().Side.ToString().ToLowerInvariant()} side of {(model.Bridge is null ? "the divider" : "the bridge's sensor half")}, not the {model.Side.ToString().ToLowerInvariant()} side (worst row then {residual:0.###} K off)."),
                     null, residual, []);
         }
     }
