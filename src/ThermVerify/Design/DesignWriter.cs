@@ -106,27 +106,28 @@ internal static partial class DesignWriter
     private static void WriteDivider(Writer w, DividerSpec d)
     {
         w.Section("divider");
-        w.Text("sensor_side", d.SensorSide == SensorSide.High ? "high" : "low");
-        w.Value("fixed_resistor", d.FixedResistorOhms, UnitKind.Ohm);
-        w.Value("fixed_tolerance", d.FixedTolerance, UnitKind.Percent);
-        w.Value("fixed_tempco", d.FixedTempcoPerKelvin, UnitKind.PpmPerKelvin, d.FixedTempcoSigned);
-        w.Value("excitation", d.ExcitationVolts, UnitKind.Volt);
-        w.Value("excitation_tolerance", d.ExcitationTolerance, UnitKind.Percent);
+        WriteSensorHalf(w, d);
         if (d.SwitchOnLeadSeconds is { } lead)
             w.Value("switch_on_lead", lead, UnitKind.Second);
         if (d.ReadingIntervalSeconds is { } interval)
             w.Value("reading_interval", interval, UnitKind.Second);
     }
 
-    private static void WriteBridge(Writer w, DividerSpec d, BridgeSpec b)
+    /// <summary>The sensor's half, which a divider and a bridge write with the same keys.</summary>
+    private static void WriteSensorHalf(Writer w, DividerSpec d)
     {
-        w.Section("bridge");
         w.Text("sensor_side", d.SensorSide == SensorSide.High ? "high" : "low");
         w.Value("fixed_resistor", d.FixedResistorOhms, UnitKind.Ohm);
         w.Value("fixed_tolerance", d.FixedTolerance, UnitKind.Percent);
         w.Value("fixed_tempco", d.FixedTempcoPerKelvin, UnitKind.PpmPerKelvin, d.FixedTempcoSigned);
         w.Value("excitation", d.ExcitationVolts, UnitKind.Volt);
         w.Value("excitation_tolerance", d.ExcitationTolerance, UnitKind.Percent);
+    }
+
+    private static void WriteBridge(Writer w, DividerSpec d, BridgeSpec b)
+    {
+        w.Section("bridge");
+        WriteSensorHalf(w, d);
         w.Value("opposite_high", b.HighOhms, UnitKind.Ohm);
         w.Value("opposite_high_tolerance", b.HighTolerance, UnitKind.Percent);
         w.Value("opposite_high_tempco", b.HighTempcoPerKelvin, UnitKind.PpmPerKelvin, b.HighTempcoSigned);
