@@ -45,9 +45,7 @@ internal static class FirmwareFromDesign
     private static FirmwareModel CurrentModel(FrontEndDesign design, CurrentSourceSpec source, bool correctForLoading)
     {
         if (correctForLoading)
-            throw new FirmwareInputException(
-                "The loading correction is made for a divider; this design excites its sensor with a current source, whose correction is not made yet. " +
-                "Make the table without it (leave out --corrected); check shows the DC loading the table then leaves.");
+            throw NoLoadingCorrection("excites its sensor with a current source");
         var closedForm = new ClosedFormModel(design);
         var fixedOhms = source.ReferenceResistorOhms ?? design.NominalReferenceVolts / source.CurrentAmperes;
         return new FirmwareModel(closedForm.Sensor, SensorSide.Low, fixedOhms, source.CurrentAmperes * fixedOhms, closedForm.Adc, design.Check.Range)
@@ -55,6 +53,10 @@ internal static class FirmwareFromDesign
             ExcitationAmperes = source.CurrentAmperes,
         }.Validated();
     }
+
+    private static FirmwareInputException NoLoadingCorrection(string whatTheDesignIs) => new(
+        $"The loading correction is made for a divider; this design {whatTheDesignIs}, whose correction is not made yet. " +
+        "Make the table without it (leave out --corrected); check shows the DC loading the table then leaves.");
 
     /// <summary>
     /// A bridge: the code stands for V_d (signed codes on a differential input), inverted through the bridge equation
@@ -67,9 +69,7 @@ internal static class FirmwareFromDesign
                 "Firmware tables of a bridge are made for the converter reading the bridge directly; this design has an [amplifier] between them, whose table " +
                 "(its gain and reference through the bridge equation) is not made yet. Run check, worstcase or montecarlo on it instead.");
         if (correctForLoading)
-            throw new FirmwareInputException(
-                "The loading correction is made for a divider; this design is a bridge, whose correction is not made yet. " +
-                "Make the table without it (leave out --corrected); check shows the DC loading the table then leaves.");
+            throw NoLoadingCorrection("is a bridge");
         var closedForm = new ClosedFormModel(design);
         var half = design.Divider ?? throw new FirmwareInputException("The bridge has no sensor half ([bridge] sensor_side, fixed_resistor, excitation); give them.");
         return new FirmwareModel(closedForm.Sensor, half.SensorSide, half.FixedResistorOhms, half.ExcitationVolts, closedForm.Adc, design.Check.Range)
