@@ -247,6 +247,11 @@ internal static class DifferentialCase
                 return $"ngspice's switch in {(analysis == DifferentialAnalysis.Ac ? "AC" : "noise")}: it linearises every switch at its off " +
                        $"conductance; with the closed switches open in the small-signal system the engines agree to {view:G2}";
         }
+        if (analysis is DifferentialAnalysis.Ac or DifferentialAnalysis.Noise && SlewTanhView.Applies(rc.Circuit)
+            && InTanhView(rc, analysis, plot) is var tanh && tanh <= Limits[analysis])
+            return $"the op-amp's input stage in {(analysis == DifferentialAnalysis.Ac ? "AC" : "noise")}: the engine's is linear outside " +
+                   $"transients, ngspice's twin linearises its slew tanh at g_m·sech²(x₀); with that slope in the engine they agree to {tanh:G2}" +
+                   (NgspiceSwitchView.Applies(rc.Circuit) ? " (the closed switches open as ngspice has them)" : "");
         if (analysis is DifferentialAnalysis.Ac or DifferentialAnalysis.Noise && AboutNgspicesOperatingPoint(rc, analysis, plot) is { } about
             && about <= Limits[analysis])
             return $"linearised about another DC solution: started at ngspice's operating point (which solves the engine's equations too), " +
@@ -298,6 +303,25 @@ internal static class DifferentialCase
             }
         }
         return null;
+    }
+
+    /// <summary>The AC or noise metric of the engine with its op-amps at their tanh's slope (<see cref="SlewTanhView"/>), in ngspice's switch view if it applies.</summary>
+    private static double InTanhView(RandomCircuit rc, DifferentialAnalysis analysis, NgspicePlot plot)
+    {
+        var circuit = SlewTanhView.For(rc.Circuit);
+        var frequencies = plot["frequency"].Real;
+        var switches = NgspiceSwitchView.Applies(circuit);
+        if (analysis == DifferentialAnalysis.Ac)
+        {
+            IReadOnlyList<Complex[]> ours = switches
+                ? NgspiceSwitchView.Ac(circuit, rc.Nodes, frequencies)
+                : AcAnalysis.Run(circuit, FrequencySweep.At(frequencies)) is var ac ? rc.Nodes.Select(ac.Voltage).ToArray() : null!;
+            return AcMetric(ours, rc.Nodes.Select(n => plot[n].Complex!).ToList());
+        }
+        var density = switches
+            ? NgspiceSwitchView.NoiseDensity(circuit, rc.NoiseOutput, frequencies)
+            : NoiseAnalysis.Run(circuit, rc.NoiseOutput, FrequencySweep.At(frequencies)).OutputDensity;
+        return NoiseMetric(density, plot["onoise_spectrum"].Real);
     }
 
     /// <summary>

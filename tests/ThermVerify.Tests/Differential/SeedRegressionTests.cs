@@ -126,6 +126,27 @@ public class SeedRegressionTests
     }
 
     /// <summary>
+    /// Seed 1075 (a follower U1 with a finite slew rate, a closed switch): AC 0.11 dB apart, of which the switch view
+    /// leaves 2e-6 dB on the follower's output, a constant ratio of 2.3e-7 above its pole. That is 1 − sech²(x₀), with
+    /// x₀ = 2π·GBW·v_d0/SR = 21.57 /V × −22.3 µV at the operating point (v_d0 from the deck's own .op: inp_os − n9,
+    /// −1.80046845 V − −1.80044619 V): ngspice's twin linearises the slew tanh, the engine's input stage is linear outside
+    /// transients (OpAmpStamp). With the engine's g_m at that slope the two agree to 1e-9 dB.
+    /// </summary>
+    [NgspiceFact]
+    public void An_op_amps_slew_tanh_explains_the_small_signal_difference_of_seed_1075()
+    {
+        var rc = RandomCircuitGenerator.Generate(1075, CircuitClass.Nonlinear, 15)!;
+        var c = DifferentialCase.Run(rc, new HashSet<DifferentialAnalysis> { DifferentialAnalysis.Ac }).Comparisons.Single();
+        Assert.True(c.Difference > DifferentialCase.Limits[DifferentialAnalysis.Ac]);
+        Assert.StartsWith("the op-amp's input stage in AC", c.Explanation);
+        // The factor itself, by hand from the deck's numbers (tanh'(x) = sech²(x) = 1 − tanh²(x)).
+        var amp = rc.Circuit.Elements.OfType<ThermVerify.Circuits.OpAmp>().Single();
+        var scaled = SlewTanhView.For(rc.Circuit).Elements.OfType<ThermVerify.Circuits.OpAmp>().Single();
+        var x = 21.570090256940798 * (-1.8004684511927331 - -1.8004461905392968);
+        Assert.Equal(1 - Math.Pow(Math.Tanh(x), 2), scaled.OpenLoopGain / amp.OpenLoopGain, 1e-9);
+    }
+
+    /// <summary>
     /// Seed 515 (a follower, three switches and a diode) once kept the large run busy for hours: at t = 4.5 ms a
     /// rejected step of 2.3e-18 s was cut, rounded back to the same step on a time of that size (its resolution is
     /// 8.7e-19 s), rejected again, and so on forever, above the 1e-18 s minimum and out of reach of the time guard. The
