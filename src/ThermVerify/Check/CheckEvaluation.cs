@@ -68,7 +68,8 @@ internal sealed class CheckEvaluation
         cases ??= PrechargeCases.For(design, model.Adc.ReferenceVolts);
         var settleVolts = design.Check.SettleLimitLsb * model.Adc.LsbVolts;
         var indices = SettlingGrid.Indices(temperatures.Count, options.MaximumSamplingPoints);
-        var dc = DcCorners.Run(design, cases, temperatures, options.Engine);
+        // A delta-sigma input's average load moves the pin at every temperature (SAR converters' sampling is in the offsets).
+        var dc = FrontEnd.DeltaSigma.AverageInputLoad.Added(DcCorners.Run(design, cases, temperatures, options.Engine), design, temperatures);
         // Sampling offsets (sample minus the level it starts from) of the design with its bounds at zero: the bounds
         // move the levels, which the corners carry, and a larger bound can only move them further.
         var sampled = StaticBounds.Zeroed(design);

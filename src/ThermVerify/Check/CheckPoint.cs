@@ -87,8 +87,14 @@ public sealed record EffectEstimates(
     /// <summary>The insulation resistance pulling the sensor's node towards its potential (protection.insulation_resistance).</summary>
     public double InsulationVolts { get; init; }
 
-    /// <summary>DC loading: leakage, the fixed resistor's drift, a current excitation's own error and its leads, the protection parts.</summary>
-    public double LoadingVolts => FixedDriftVolts + LeakageVolts + ExcitationVolts + LeadVolts + ClampVolts + InsulationVolts;
+    /// <summary>
+    /// A delta-sigma converter's input, its average load through the resistance the pin sees: −V·R_s/(R_s + R_eq) with
+    /// R_eq = 1/(f_mod·C) unbuffered (Johns &amp; Martin), −I_in·R_s buffered (Ohm's law); zero for other converters.
+    /// </summary>
+    public double InputLoadVolts { get; init; }
+
+    /// <summary>DC loading: leakage, the fixed resistor's drift, a current excitation's own error and its leads, the protection parts, a delta-sigma input's load.</summary>
+    public double LoadingVolts => FixedDriftVolts + LeakageVolts + ExcitationVolts + LeadVolts + ClampVolts + InsulationVolts + InputLoadVolts;
 
     /// <summary>The buffer: offset with its drift, and the bias current through the divider.</summary>
     public double BufferVolts => BufferOffsetVolts + BiasCurrentVolts;

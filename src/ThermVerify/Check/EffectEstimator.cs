@@ -53,6 +53,7 @@ internal static class EffectEstimator
                 ExcitationVolts = excitation, LeadVolts = leads,
                 ClampVolts = ProtectionEstimate.ClampVolts(design, point, staticPinVolts, source),
                 InsulationVolts = ProtectionEstimate.InsulationVolts(design, point),
+                InputLoadVolts = DeltaSigmaInputLoadVolts(design, point, source),
             };
         if (prechargeVolts is not { } pre) return Make(0, 0);
 
@@ -89,6 +90,18 @@ internal static class EffectEstimator
         var bare = Read(0, false);
         var leaking = Read(drawn, false);
         return (leaking - bare, bare - point.IdealVolts, Read(drawn, true) - leaking);
+    }
+
+    /// <summary>
+    /// A delta-sigma converter's input through the resistance the pin sees: unbuffered, R_eq = 1/(f_mod·C) to ground
+    /// divides the pin, −V·R_s/(R_s + R_eq) (Johns &amp; Martin); buffered, its input current, −I_in·R_s (Ohm's law).
+    /// </summary>
+    private static double DeltaSigmaInputLoadVolts(FrontEndDesign design, ClosedFormPoint point, double sourceOhms)
+    {
+        if (design.Adc.DeltaSigma is not { } d) return 0;
+        if (d.InputBuffered) return -d.InputCurrentAmperes * sourceOhms;
+        var req = FrontEnd.DeltaSigma.InputLoading.EquivalentOhms(d);
+        return -point.IdealVolts / design.Adc.ProgrammableGain * sourceOhms / (sourceOhms + req);
     }
 
     /// <summary>2 wires to a divider's sensor: the divider with R_s + 2·R_L against R_s, times the buffer's gain.</summary>

@@ -178,6 +178,11 @@ internal static class FindingRules
                       I($"(the divider with R_s + 2·R_L) {Volts(p.Estimates.LeadVolts)}"));
         if (design.Protection is { } protection)
             parts.AddRange(ProtectionWords.Loading(design, protection, p));
+        if (design.Adc.DeltaSigma is { } d)
+            parts.Add(d.InputBuffered
+                ? I($"the converter's input buffer drawing {Amps(d.InputCurrentAmperes)} through the {Ohms(p.Estimates.SourceOhms)} the pin sees (Ohm's law) {Volts(p.Estimates.InputLoadVolts)}")
+                : I($"the converter's unbuffered input, on average R_eq = 1/(f_mod·C) = {Ohms(FrontEnd.DeltaSigma.InputLoading.EquivalentOhms(d))} to ground behind ") +
+                  I($"the {Ohms(p.Estimates.SourceOhms)} the pin sees (−V·R_s/(R_s + R_eq), Johns & Martin) {Volts(p.Estimates.InputLoadVolts)}"));
         return string.Join(", and ", parts) + CornerNote(p);
     }
 

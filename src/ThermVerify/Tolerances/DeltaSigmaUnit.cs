@@ -23,18 +23,7 @@ internal static class DeltaSigmaUnit
 
     public static bool Applies(FrontEndDesign design) => design.Adc.Kind == ConverterKind.DeltaSigma;
 
-    /// <summary>The unit's DC levels with the input's average load: each level moved by the load's simulated shift of the pin.</summary>
-    public static DcCorners WithInputLoad(DcCorners dc, FrontEndDesign unit, IReadOnlyList<double> temperatures)
-    {
-        var pin = FrontEndCircuit.PinNode(unit);
-        var shift = temperatures.Select(t =>
-            OperatingPoint.Solve(InputLoading.Average(unit, t)).Voltage(pin) - OperatingPoint.Solve(FrontEndCircuit.Dc(unit, null, t)).Voltage(pin)).ToArray();
-        DcLevels Loaded(DcLevels l) => l with
-        {
-            StaticPinVolts = [.. l.StaticPinVolts.Select((v, i) => v + shift[i])],
-            AveragePinVolts = [.. l.AveragePinVolts.Select(a => a.Select((v, i) => v + shift[i]).ToArray())],
-        };
-        var loaded = Loaded(dc.Base);
-        return dc with { Base = loaded, Corners = [.. dc.Corners.Select(c => ReferenceEquals(c, dc.Base) ? loaded : Loaded(c))] };
-    }
+    /// <summary>The unit's DC levels with the input's average load (<see cref="AverageInputLoad"/>, as the check reads them).</summary>
+    public static DcCorners WithInputLoad(DcCorners dc, FrontEndDesign unit, IReadOnlyList<double> temperatures) =>
+        AverageInputLoad.Added(dc, unit, temperatures);
 }

@@ -106,7 +106,8 @@ internal static class DeltaSigmaFindings
               I($"(Johns & Martin) behind R_s = {Show(w.SourceOhms, UnitKind.Ohm)}; the switched run takes {Show(w.ErrorVolts, UnitKind.Volt)}, ") +
               I($"the average resistor {Show(w.AverageVolts - w.UnloadedVolts, UnitKind.Volt)}, the closed form −V·R_s/(R_s + R_eq) {Show(w.ClosedFormVolts - w.UnloadedVolts, UnitKind.Volt)}");
         return new Finding(InputLoadingId, over.Any(l => K(l) > design.Check.BudgetAt(l.Celsius)) ? Severity.Fail : Severity.Warn,
-            "the converter's input loads the source by more than ½ LSB", over[0].Celsius, over[^1].Celsius, w.Celsius, w.ErrorVolts, w.ErrorVolts / lsb, K(w),
+            "the converter's input loads the source by more than ½ LSB", over[0].Celsius, over[^1].Celsius, w.Celsius, w.ErrorVolts, w.ErrorVolts / lsb,
+            w.ErrorVolts / model.At(w.Celsius).VoltsPerKelvin, // signed, as the other findings show their size in K
             cause, w.ClosedFormVolts - w.UnloadedVolts, w.ErrorVolts, []);
     }
 
@@ -127,7 +128,7 @@ internal static class DeltaSigmaFindings
                     I($"the pin's RC transient through {FilterWords(d)}, which alone settles in {s.FilterSettlingConversions} conversions; ") + discard;
         return new Finding(ChannelSwitchId, kelvin > design.Check.BudgetAt(s.Celsius) ? Severity.Fail : Severity.Warn,
             s.Start == ChannelStart.SwitchOn ? "the first reading used after the excitation is switched on is more than ½ LSB off" : "the first reading used after a channel switch is more than ½ LSB off", s.Celsius, s.Celsius, s.Celsius,
-            s.FirstUsedErrorVolts, s.FirstUsedErrorVolts / lsb, kelvin, cause, null, s.FirstUsedErrorVolts, []);
+            s.FirstUsedErrorVolts, s.FirstUsedErrorVolts / lsb, s.FirstUsedErrorVolts / model.At(s.Celsius).VoltsPerKelvin, cause, null, s.FirstUsedErrorVolts, []);
     }
 
     private static Finding? InterferenceFinding(FrontEndDesign design, DeltaSigmaReport report, double lsb)
