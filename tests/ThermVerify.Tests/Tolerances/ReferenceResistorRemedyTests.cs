@@ -76,6 +76,19 @@ public class ReferenceResistorRemedyTests
     }
 
     [Fact]
+    public void Check_names_the_tempco_that_keeps_the_pin_within_half_an_LSB()
+    {
+        // In check the tempco is a bound: R_ref·(1 + α·15 K) reads the pin I·R_s·α·15/(1 + α·15) low against the reference
+        // I·R_ref, which the dc-loading finding holds to ½ LSB = I·R_ref/2^17 (Ohm's law): α ≤ R_ref/(2^17·15·R_s(200 °C)).
+        var design = Hostile("1 %", "100 ppm/K", "0.5 K");
+        var finding = Assert.Single(ThermVerify.Check.FrontEndCheck.Run(design, new() { MaximumSamplingPoints = 3 }).Findings, f => f.Id == "dc-loading");
+        var remedy = Assert.Single(finding.Remedies, r => r.Key == "current_source.reference_resistor_tempco");
+        var x = 2000.0 / 131072 / CurrentDesigns.Ohms(200);
+        var limit = x / (1 - x) / 15;
+        Assert.InRange(remedy.Value!.Value, 0.98 * limit, limit * 1.0001);
+    }
+
+    [Fact]
     public void Neither_alone_is_combined_and_no_room_at_all_is_said()
     {
         // 0.1 % (0.48 K at 200 °C) and 100 ppm/K (0.72 K) against 0.7 K: each alone leaves the other over it.
