@@ -67,11 +67,15 @@ public static class Verifier
         return (BaselineFigures.From(result, RunStamp.Check(design, checkOptions)), result);
     }
 
-    /// <summary>Extreme values over the tolerance box (each corner verified in full) and root-sum-square.</summary>
+    /// <summary>
+    /// Extreme values over the tolerance box (each corner verified in full) and root-sum-square; when it fails, the
+    /// reference resistor's tolerance or tempco a ratiometric current source needs, proven by the worst case of the changed design.
+    /// </summary>
     public static WorstCaseResult WorstCase(FrontEndDesign design, WorstCaseOptions? options = null)
     {
         using var scope = Work.Scope(options?.Cancel ?? CancellationToken.None);
-        return Tolerances.WorstCase.Run(design, options);
+        options ??= new WorstCaseOptions();
+        return ReferenceResistorRemedies.Attach(design, Tolerances.WorstCase.Run(design, options), options);
     }
 
     /// <summary>Units built with random parts within their tolerances, each verified: envelope, yield, contributors.</summary>

@@ -67,8 +67,7 @@ internal static class FrontEndCheck
         }
         catch (FirmwareInputException e)
         {
-            // The amplifier's refusal is written for the table command; the check says it in its own words.
-            omitted = design.Amplifier is not null ? "not computed yet for a bridge behind an amplifier" : e.Message;
+            omitted = e.Message;
             return null;
         }
     }

@@ -14,6 +14,8 @@ namespace ThermVerify.Firmware;
 /// V+ − E); one that reads among the healthy codes is refused by name, as for a netlist's fixed resistor. The
 /// tolerance corners are every sign of the excitation and the reference (none where they are one, ratiometric), the
 /// fixed resistor and the opposite half's two resistors; the thresholds sit midway, as for the divider (<see cref="FaultAnalysis"/>).
+/// Behind an amplifier V_d reaches the converter as its output (<see cref="FirmwareAmplifier"/>), at every sign of its
+/// gain error and input-referred offset, clipped to its output range: an open sensor then reads the output's top.
 /// </summary>
 internal static class BridgeFaultAnalysis
 {
@@ -23,7 +25,8 @@ internal static class BridgeFaultAnalysis
         var (high, low, valid) = (new List<int>(), new List<int>(), new List<int>());
         var (oppositeAtGround, oppositeAtExcitation) = (new List<int>(), new List<int>());
         var sensorEnds = new[] { model.Sensor.ResistanceOhms(model.Range.MinCelsius), model.Sensor.ResistanceOhms(model.Range.MaxCelsius) };
-        for (var mask = 0; mask < 32; mask++)
+        // Two more corners behind an amplifier: its gain error and its input-referred offset, each at either sign.
+        for (var mask = 0; mask < (model.Amplifier is null ? 32 : 128); mask++)
         {
             double Sign(int bit) => ((mask >> bit) & 1) == 1 ? 1 : -1;
             var excitation = model.ExcitationVolts * (1 + Sign(0) * e);
@@ -36,7 +39,9 @@ internal static class BridgeFaultAnalysis
             };
             var negative = BridgeFormula.NegativeVolts(excitation, opposite.HighOhms, opposite.LowOhms);
             // Beyond the converter's ends every voltage reads the end code; the clamp keeps the division finite.
-            int Code(double volts) => model.Adc.Quantise(Math.Clamp(volts / lsb, model.Adc.MinCode - 1.0, model.Adc.MaxCode + 1.0));
+            // V_d reaches the converter through the amplifier where there is one (at this corner, its output clipped to its range).
+            double Out(double volts) => model.Amplifier is { } a ? a.CornerOutputVolts(volts, Sign(5), Sign(6)) : volts;
+            int Code(double volts) => model.Adc.Quantise(Math.Clamp(Out(volts) / lsb, model.Adc.MinCode - 1.0, model.Adc.MaxCode + 1.0));
             high.Add(Code(excitation - negative));
             low.Add(Code(-negative));
             valid.AddRange(sensorEnds.Select(ohms => Code(BridgeFormula.OutputVolts(model.Side, excitation, fixedOhms, opposite, ohms))));

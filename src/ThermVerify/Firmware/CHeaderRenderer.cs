@@ -39,7 +39,9 @@ public static class CHeaderRenderer
         else if (m.Bridge is { } bridge)
         {
             Line($" * Bridge:  sensor on the {(m.Side == SensorSide.Low ? "low side (to ground)" : "high side (to the excitation)")} of its half, fixed resistor {m.FixedOhms:G6} ohm, excitation {m.ExcitationVolts:G6} V;");
-            Line($" *          opposite half {bridge.HighOhms:G6} ohm over {bridge.LowOhms:G6} ohm; the code reads V_d = V+ - V-");
+            Line($" *          opposite half {bridge.HighOhms:G6} ohm over {bridge.LowOhms:G6} ohm; the code reads V_d = V+ - V-{(m.Amplifier is null ? "" : " through the amplifier")}");
+            if (m.Amplifier is { } amp)
+                Line($" * Amplifier: output = {amp.Gain:G6} * (V_d + {amp.InputOffsetVolts:G6} V), the gain and offset the design declares (bounds are not in the table)");
         }
         else if (m.ExcitationAmperes is { } amps)
             Line($" * Current source: {amps:G6} A through the sensor, node = I*R_s; reference resistor (or V_ref/I) {m.FixedOhms:G6} ohm");

@@ -59,15 +59,12 @@ internal static class FirmwareFromDesign
         "Make the table without it (leave out --corrected); check shows the DC loading the table then leaves.");
 
     /// <summary>
-    /// A bridge: the code stands for V_d (signed codes on a differential input), inverted through the bridge equation
-    /// with the nominal halves. An amplifier between the bridge and the converter and the loading correction are refused.
+    /// A bridge: the code stands for V_d (signed codes on a differential input), or for an amplifier's output
+    /// G′·(V_d + V_os′) with the gain and the offset the designer declares (<see cref="FirmwareAmplifier"/>), inverted
+    /// through the bridge equation with the nominal halves. The loading correction is refused.
     /// </summary>
     private static FirmwareModel BridgeModel(FrontEndDesign design, BridgeSpec bridge, bool correctForLoading)
     {
-        if (design.Amplifier is not null)
-            throw new FirmwareInputException(
-                "Firmware tables of a bridge are made for the converter reading the bridge directly; this design has an [amplifier] between them, whose table " +
-                "(its gain and reference through the bridge equation) is not made yet. Run check, worstcase or montecarlo on it instead.");
         if (correctForLoading)
             throw NoLoadingCorrection("is a bridge");
         var closedForm = new ClosedFormModel(design);
@@ -75,6 +72,7 @@ internal static class FirmwareFromDesign
         return new FirmwareModel(closedForm.Sensor, half.SensorSide, half.FixedResistorOhms, half.ExcitationVolts, closedForm.Adc, design.Check.Range)
         {
             Bridge = bridge,
+            Amplifier = design.Amplifier is { } a ? FirmwareAmplifier.Of(a, design, half.ExcitationVolts) : null,
         }.Validated();
     }
 

@@ -45,19 +45,27 @@ public sealed record FirmwareModel(
     /// </summary>
     internal BridgeSpec? Bridge { get; init; }
 
+    /// <summary>
+    /// An amplifier between the bridge and the converter ([amplifier]), as the firmware takes it: the code reads its
+    /// output G′·(V_d + V_os′) (<see cref="FirmwareAmplifier"/>); null: the converter reads V_d itself.
+    /// </summary>
+    internal FirmwareAmplifier? Amplifier { get; init; }
+
     /// <summary>The unloaded node voltage for a sensor resistance: the divider's output, I·R_s, a bridge's V_d or a netlist's ideal transfer.</summary>
     public double UnloadedVolts(double sensorOhms) =>
         Netlist is { } n ? NetlistTransfer.Of(n).OutputVolts(sensorOhms)
         : ExcitationAmperes is { } amps ? amps * sensorOhms
-        : Bridge is { } b ? BridgeFormula.OutputVolts(Side, ExcitationVolts, FixedOhms, b, sensorOhms)
+        : Bridge is { } b ? Amplified(BridgeFormula.OutputVolts(Side, ExcitationVolts, FixedOhms, b, sensorOhms))
         : DividerFormula.OutputVolts(Side, ExcitationVolts, sensorOhms, FixedOhms);
 
     /// <summary>The sensor resistance behind an unloaded node voltage: the divider's inverse, V/I, the bridge's or the netlist's (NaN where none gives it).</summary>
     public double SensorOhmsAt(double unloadedVolts) =>
         Netlist is { } n ? NetlistTransfer.Of(n).SensorOhms(unloadedVolts)
         : ExcitationAmperes is { } amps ? unloadedVolts / amps
-        : Bridge is { } b ? BridgeFormula.SensorOhms(Side, ExcitationVolts, FixedOhms, b, unloadedVolts)
+        : Bridge is { } b ? BridgeFormula.SensorOhms(Side, ExcitationVolts, FixedOhms, b, Amplifier is { } a ? a.DifferentialVolts(unloadedVolts) : unloadedVolts)
         : DividerFormula.SensorOhms(Side, ExcitationVolts, unloadedVolts, FixedOhms);
+
+    private double Amplified(double differentialVolts) => Amplifier is { } a ? a.OutputVolts(differentialVolts) : differentialVolts;
 
     /// <summary>Throws <see cref="FirmwareInputException"/> naming the first parameter that cannot make a table.</summary>
     public FirmwareModel Validated()
@@ -71,6 +79,8 @@ public sealed record FirmwareModel(
             throw new FirmwareInputException(Invariant($"The excitation is {ExcitationVolts} V; give a positive finite voltage."));
         if (Bridge is { } b && !(double.IsFinite(b.HighOhms) && b.HighOhms > 0 && double.IsFinite(b.LowOhms) && b.LowOhms > 0))
             throw new FirmwareInputException(Invariant($"The bridge's opposite half is {b.HighOhms} Ω over {b.LowOhms} Ω; give positive finite resistances."));
+        if (Amplifier is { } amp && !(double.IsFinite(amp.Gain) && amp.Gain > 0))
+            throw new FirmwareInputException(Invariant($"The amplifier's gain is {amp.Gain}; give a positive finite gain."));
         if (Adc.Bits is < 1 or > 24)
             throw new FirmwareInputException(Invariant($"The ADC has {Adc.Bits} bits; firmware tables support 1 to 24 bits."));
         if (!(double.IsFinite(Adc.ReferenceVolts) && Adc.ReferenceVolts > 0))

@@ -43,6 +43,7 @@ public static class FixedResistorJson
                 withinBudget = slopeOnly ? (bool?)null : c.WithinBudget,
                 marginKelvin = slopeOnly ? null : N(c.MarginKelvin),
                 present = c.IsPresent,
+                oppositeLowOhms = c.OppositeLowOhms,
             }),
         }, Options);
     }

@@ -34,7 +34,8 @@ public static class FixedResistorReport
             new("candidates", "Ranked candidates",
             [
                 $"{ranked.Count} values of {options.Series.Name} (IEC 60063) tried as the {FixedResistorSearch.PartName(design)}, ranked by {Describe(options.Objective)}; the first {Math.Min(Math.Max(1, top), ranked.Count)} below, --json holds them all." +
-                (slopeOnly ? "" : " Each figure comes from a full check of that candidate (settling by transient on a 9-point grid) with the self-heating added; neighbours can swap places by a fraction of an LSB, so read the ranking together with the resolution."),
+                (slopeOnly ? "" : " Each figure comes from a full check of that candidate (settling by transient on a 9-point grid) with the self-heating added; neighbours can swap places by a fraction of an LSB, so read the ranking together with the resolution.") +
+                (design.Bridge is null ? "" : " The bridge keeps its balance: each candidate has the opposite half's high resistor as declared and its low resistor re-balanced to null at the same sensor resistance (--json: oppositeLowOhms)."),
             ], [new ReportTable(["rank", "R_fixed", "worst error (K)", "at (°C)", "worst K/LSB", "|dV/dT| (mV/K)", "self-heating (mK)", "budget"], [.. rows])]),
         ];
         return new AnalysisReport($"thermverify choose-fixed: {design.Name}", design.Description, verdict, null,

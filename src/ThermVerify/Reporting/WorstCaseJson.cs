@@ -54,6 +54,12 @@ public static class WorstCaseJson
                 unit = s.Parameter.Unit,
                 kelvinPerUnit = s.KelvinPerUnit,
             }),
+            remedyNote = r.RemedyNote,
+            remedies = r.Remedies.Select(m => new
+            {
+                key = m.Key, action = m.Action, value = N(m.Value), unit = m.Unit, method = m.Method, proof = m.Proof,
+                together = m.Together.Select(t => new { key = t.Key, action = t.Action, value = N(t.Value), unit = t.Unit, method = t.Method }),
+            }),
         }, Options);
     }
 }

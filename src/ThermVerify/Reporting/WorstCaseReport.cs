@@ -33,6 +33,7 @@ public static class WorstCaseReport
             ], [BandTable(r)]),
             new("sensitivities", "Sensitivities", [I($"The error each tolerance causes at its full value at {worst.Celsius:0.##} °C (central difference at ±a), largest first.")], [SensitivityTable(r)]),
             new("tolerances", "Tolerances", ["Every nonzero tolerance of the design (docs/tolerances.md)."], [Table(r.Parameters)]),
+            .. Remedies(r),
         ];
         return new AnalysisReport($"thermverify worstcase: {design.Name}", design.Description, verdict, r.WithinBudget,
             [.. ReportFormat.Settings(design, model.Sensor.Description, model.Adc)], designFile, [WorstCasePlot.Render(r, design.Name)], sections,
@@ -46,6 +47,15 @@ public static class WorstCaseReport
             [I($"{p.Celsius:0.##}"), p.BudgetKelvin.ToString("0.###", CultureInfo.InvariantCulture), Kelvin(p.NominalKelvin), Kelvin(p.LowKelvin), Kelvin(p.HighKelvin),
              ReportFormat.N(p.LinearSumKelvin, "0.000"), ReportFormat.N(p.RssKelvin, "0.000"), ReportFormat.N(p.SigmaKelvin, "0.000"), p.WithinBudget ? "within" : "over"]);
         return new ReportTable(["T (°C)", "budget", "nominal", "low corner", "high corner", "Σ|s·a|", "RSS", "σ", "verdict"], [.. rows]);
+    }
+
+    /// <summary>The proven remedies (the reference resistor's tolerance or tempco), each with its method and proof; none when none was searched.</summary>
+    private static IEnumerable<ReportSection> Remedies(WorstCaseResult r)
+    {
+        if (r.Remedies.Count == 0 && r.RemedyNote is null) return [];
+        string[] paragraphs = [.. r.RemedyNote is { } note ? [note] : Array.Empty<string>(),
+            .. r.Remedies.SelectMany(m => new[] { ReportFormat.RemedyLine(m), m.Method + ".", m.Proof + "." })];
+        return [new ReportSection("remedies", "Remedies", paragraphs, [])];
     }
 
     private static ReportTable SensitivityTable(WorstCaseResult r)

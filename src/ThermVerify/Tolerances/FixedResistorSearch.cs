@@ -52,6 +52,9 @@ public sealed record FixedResistorCandidate(
 
     /// <summary>The design's own fixed resistor, ranked among the series values (and added to them when it is not one).</summary>
     public bool IsPresent { get; init; }
+
+    /// <summary>A bridge's opposite low resistor re-balanced for this candidate (<see cref="BridgeHalfChoice"/>); null for every other design.</summary>
+    public double? OppositeLowOhms { get; init; }
 }
 
 /// <summary>
@@ -69,10 +72,6 @@ internal static class FixedResistorSearch
     {
         ConverterSupport.RequireSuccessiveApproximation(design, "the fixed-resistor choice");
         options ??= new FixedResistorSearchOptions();
-        if (design.Bridge is not null)
-            throw new DesignException(design.Name, 1, 1, "bridge",
-                "choose-fixed chooses a divider's fixed resistor, and this design is a bridge, whose two halves it does not choose yet",
-                "Run check, worstcase or montecarlo on it.");
         var (present, withFixed) = FixedOf(design);
         var sensor = design.Sensor.Build();
         var range = design.Check.Range;
@@ -138,6 +137,7 @@ internal static class FixedResistorSearch
     /// </summary>
     public static (double PresentOhms, Func<double, FrontEndDesign> WithFixed) FixedOf(FrontEndDesign design)
     {
+        if (design.Bridge is { } bridge) return BridgeHalfChoice.FixedOf(design, bridge);
         if (design.Netlist is { } netlist)
         {
             var name = netlist.FixedElement ?? throw new DesignException(design.Name, 1, 1, "netlist.fixed",
@@ -162,6 +162,7 @@ internal static class FixedResistorSearch
     /// <summary>What the search chooses, in words.</summary>
     internal static string PartName(FrontEndDesign design) =>
         design.Netlist?.FixedElement is { } name ? $"netlist resistor {name}"
+        : design.Bridge is not null ? "bridge's sensor-half fixed resistor (the opposite low resistor re-balanced)"
         : design.CurrentSource is null ? "fixed resistor" : "reference resistor";
 
     private static FixedResistorCandidate Evaluate(FrontEndDesign candidate, double ohms, FixedResistorObjective objective, double slopeAt,
@@ -170,7 +171,7 @@ internal static class FixedResistorSearch
         var model = new ClosedFormModel(candidate);
         var slope = Math.Abs(model.At(slopeAt).VoltsPerKelvin);
         if (objective == FixedResistorObjective.SlopeAt)
-            return new FixedResistorCandidate(ohms, double.NaN, double.NaN, double.NaN, slope, double.NaN, false);
+            return new FixedResistorCandidate(ohms, double.NaN, double.NaN, double.NaN, slope, double.NaN, false) { OppositeLowOhms = candidate.Bridge?.LowOhms };
 
         var check = FrontEndCheck.Run(candidate, new CheckOptions
         {
@@ -185,10 +186,10 @@ internal static class FixedResistorSearch
         // A current source must also hold its current and the amplified signal stay in range (a larger reference resistor
         // raises the source's output): a candidate that breaks either is over, whatever its errors.
         var within = Enumerable.Range(0, errors.Length).All(i => double.IsFinite(errors[i]) && Math.Abs(errors[i]) <= points[i].BudgetKelvin)
-                     && !check.Findings.Any(f => f.Id is ComplianceRule.Id or GainRangeRule.Id);
+                     && !check.Findings.Any(f => f.Id is ComplianceRule.Id or GainRangeRule.Id or AmplifierRangeRule.CommonModeId or AmplifierRangeRule.OutputId);
         var margin = Enumerable.Range(0, errors.Length).Min(i => double.IsFinite(errors[i]) ? points[i].BudgetKelvin - Math.Abs(errors[i]) : double.NegativeInfinity);
         return new FixedResistorCandidate(ohms, errors[worst], points[worst].Celsius,
-            points.Max(p => p.KelvinPerLsb), slope, rise.DefaultIfEmpty(0).Max(), within) { MarginKelvin = margin };
+            points.Max(p => p.KelvinPerLsb), slope, rise.DefaultIfEmpty(0).Max(), within) { MarginKelvin = margin, OppositeLowOhms = candidate.Bridge?.LowOhms };
     }
 
     private static bool SameValue(double a, double b) => Math.Abs(a / b - 1) < 1e-9;

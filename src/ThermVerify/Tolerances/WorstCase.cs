@@ -58,6 +58,15 @@ public sealed record WorstCaseResult(
 {
     public bool WithinBudget => Points.All(p => p.WithinBudget);
 
+    /// <summary>
+    /// Proven changes that bring the worst case within budget (today: a ratiometric reference resistor's tolerance or
+    /// tempco, <see cref="ReferenceResistorRemedies"/>), each with the worst case of the changed design as its proof.
+    /// </summary>
+    public IReadOnlyList<Check.Remedy> Remedies { get; init; } = [];
+
+    /// <summary>Why the remedies are a combination, or why there are none where one was searched; null otherwise.</summary>
+    public string? RemedyNote { get; init; }
+
     public WorstCasePoint Worst => Points.MaxBy(p => Math.Max(Math.Abs(p.HighKelvin), Math.Abs(p.LowKelvin)) is var k && double.IsFinite(k) ? k : double.PositiveInfinity)!;
 }
 

@@ -15,4 +15,15 @@ public class ToleranceDocsTests
         var printed = run.Output.Replace(Repository.Netlists + Path.DirectorySeparatorChar, "");
         DocBlocks.AssertCurrent(Repository.PathOf("docs", "tolerances.md"), "tolerances-deltasigma-worstcase", $"$ thermverify worstcase {example}\n{printed}");
     }
+
+    [Fact]
+    public void Choose_fixed_on_a_bridge()
+    {
+        var example = "fermenter-pt1000-bridge.toml";
+        var run = CliRunner.Run("choose-fixed", Path.Combine(Repository.Netlists, example), "--series", "E24", "--threads", "1");
+        Assert.Equal(0, run.ExitCode);
+        var printed = run.Output.Replace(Repository.Netlists + Path.DirectorySeparatorChar, "");
+        DocBlocks.AssertCurrent(Repository.PathOf("docs", "tolerances.md"), "tolerances-bridge-choose-fixed",
+            $"$ thermverify choose-fixed {example} --series E24\n{printed}");
+    }
 }

@@ -100,4 +100,11 @@ public sealed class UserGuideTests : IDisposable
         DocBlocks.AssertCurrent(Repository.PathOf("docs", "firmware-tables.md"), "bridge-table",
             Shown(["table", Copy("brine-chiller-bridge-differential.toml")]));
     }
+
+    [Fact]
+    public void The_firmware_tables_page_shows_a_bridge_table_through_an_amplifier()
+    {
+        DocBlocks.AssertCurrent(Repository.PathOf("docs", "firmware-tables.md"), "bridge-amplifier-table",
+            Shown(["table", Copy("autoclave-pt100-bridge-inamp.toml")]));
+    }
 }

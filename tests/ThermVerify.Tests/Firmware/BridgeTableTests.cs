@@ -140,16 +140,6 @@ public class BridgeTableTests
     }
 
     [Fact]
-    public void A_bridge_behind_an_amplifier_is_refused_by_name()
-    {
-        var e = Assert.Throws<FirmwareInputException>(() => Verifier.Table(Example("autoclave-pt100-bridge-inamp.toml")));
-        Assert.Contains("[amplifier]", e.Message);
-        var cli = ThermVerify.Tests.Cli.CliRunner.Run("table", Path.Combine(Repository.Netlists, "autoclave-pt100-bridge-inamp.toml"));
-        Assert.Equal(ThermVerify.Cli.ExitCodes.BadInput, cli.ExitCode);
-        Assert.Contains("[amplifier]", cli.Error);
-    }
-
-    [Fact]
     public void The_header_of_a_differential_bridge_takes_signed_codes()
     {
         var run = Verifier.Table(Example("brine-chiller-bridge-differential.toml"));

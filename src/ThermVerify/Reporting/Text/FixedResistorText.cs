@@ -19,16 +19,22 @@ public static class FixedResistorText
         var presentApart = seriesValues < ranked.Count ? " and the present value" : "";
         text.AppendLine(Invariant($"{design.Name}: {seriesValues} {series} candidates{presentApart}, ranked by {FixedResistorReport.Describe(goal)}; {FixedResistorSearch.PartName(design)} now {Ohms(FixedResistorSearch.PresentOhms(design))}"));
         ProvenanceText.Append(text, provenance);
-        var table = new TextTable("rank", design.CurrentSource is null ? "R_fixed" : "R_ref", "worst error (K)", "at (°C)", "worst K/LSB", "|dV/dT| (mV/K)", "self-heating (mK)", "margin (K)", "budget");
+        // A bridge's candidates carry the opposite low resistor that keeps the balance (BridgeHalfChoice).
+        var bridge = design.Bridge is not null;
+        string[] headers = ["rank", design.CurrentSource is null ? "R_fixed" : "R_ref", .. bridge ? ["R_low (opposite)"] : Array.Empty<string>(),
+            "worst error (K)", "at (°C)", "worst K/LSB", "|dV/dT| (mV/K)", "self-heating (mK)", "margin (K)", "budget"];
+        var table = new TextTable(headers);
         var shown = Math.Max(1, top);
         // The design's own resistor is always listed, below the top ones when it ranks lower, so its gain can be judged.
         var presentRank = ranked.Select((c, i) => (c, i)).Where(x => x.c.IsPresent).Select(x => x.i).DefaultIfEmpty(-1).First();
         var rows = ranked.Select((c, i) => (c, i)).Where(x => x.i < shown || x.i == presentRank);
         foreach (var (c, i) in rows)
-            table.AddRow(Integer(i + 1), Ohms(c.Ohms) + (c.IsPresent ? " (now)" : ""), Format(c.WorstErrorKelvin, "0.000"), Format(c.WorstErrorCelsius, "0.##"),
+            table.AddRow([Integer(i + 1), Ohms(c.Ohms) + (c.IsPresent ? " (now)" : ""),
+                .. bridge ? [c.OppositeLowOhms is { } low ? EngineeringFormat.Format(low, UnitKind.Ohm, 4) : "-"] : Array.Empty<string>(),
+                Format(c.WorstErrorKelvin, "0.000"), Format(c.WorstErrorCelsius, "0.##"),
                 Format(c.WorstKelvinPerLsb, "0.0000"), Format(c.SlopeVoltsPerKelvin * 1e3, "0.000"), Format(c.MaximumSelfHeatingKelvin * 1e3, "0.0"),
                 goal == FixedResistorObjective.SlopeAt ? "-" : Format(c.MarginKelvin, "+0.000;-0.000"),
-                goal == FixedResistorObjective.SlopeAt ? "-" : c.WithinBudget ? "within" : "over");
+                goal == FixedResistorObjective.SlopeAt ? "-" : c.WithinBudget ? "within" : "over"]);
         text.Append(table);
         if (presentRank > 0 && goal == FixedResistorObjective.WorstError)
         {

@@ -40,6 +40,13 @@ public static class WorstCaseText
         foreach (var s in r.Sensitivities.OrderByDescending(s => Math.Abs(s.KelvinPerUnit[index] * s.Parameter.HalfWidth)))
             sensitivities.AddRow(s.Parameter.Key, ToleranceText.HalfWidth(s.Parameter), Kelvin(s.KelvinPerUnit[index] * s.Parameter.HalfWidth));
         text.Append(sensitivities);
+        if (r.RemedyNote is { } note) text.AppendLine($"remedies: {note}");
+        foreach (var remedy in r.Remedies)
+        {
+            text.AppendLine($"remedy: {ReportFormat.RemedyLine(remedy)}");
+            text.AppendLine($"  ({remedy.Method})");
+            text.AppendLine($"  ({remedy.Proof})");
+        }
         return text.ToString();
     }
 
