@@ -17,6 +17,10 @@ internal static partial class DesignWriter
             w.Names("excitation", n.Excitation);
         if (n.FixedElement is { } fixedElement)
             w.Text("fixed", fixedElement);
+        if (n.SwitchOnLeadSeconds is { } lead)
+            w.Value("switch_on_lead", lead, UnitKind.Second);
+        if (n.ReadingIntervalSeconds is { } interval)
+            w.Value("reading_interval", interval, UnitKind.Second);
         foreach (var part in n.Parts)
         {
             w.Entry("netlist.part");

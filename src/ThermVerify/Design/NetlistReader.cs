@@ -7,7 +7,7 @@ namespace ThermVerify.Design;
 /// <summary>Reads [netlist]: the netlist file (read strictly here, at load), and the names the check needs from it.</summary>
 internal static class NetlistReader
 {
-    private static readonly string[] Keys = ["file", "sensor", "pin", "reference", "excitation", "fixed", "part"];
+    private static readonly string[] Keys = ["file", "sensor", "pin", "reference", "excitation", "fixed", "switch_on_lead", "reading_interval", "part"];
     private static readonly string[] PartKeys = ["name", "tolerance", "tempco"];
 
     /// <summary>
@@ -25,11 +25,6 @@ internal static class NetlistReader
         var (fullPath, text) = s.ReadFile("file", file);
         var parsed = NetlistParser.Parse(text, file, s.KeyPath("file"), (included, at, errors, _) => Include(s, included, at, errors));
         CheckReserved(parsed, s.KeyPath("file"));
-        if (parsed.Elements.FirstOrDefault(e => e.Pulse is not null) is { } pulsed)
-            throw new DesignException(pulsed.At.FileName, pulsed.At.Line, pulsed.At.Column, s.KeyPath("file"),
-                $"the PULSE of {pulsed.Name} is read, but a switched source is not checked yet (in the card '{NetlistErrors.Quote(pulsed.At.Card)}')",
-                "Give the source its DC value while it measures; the check does not yet follow a netlist's switched excitation.");
-
         var sensors = s.Strings("sensor") ?? throw s.Missing("sensor", "Name the sensor's resistor in the netlist: sensor = \"Rntc\".");
         if (sensors.Count != 1)
             throw s.ErrorAtValue("sensor", sensors.Count == 0 ? "no sensor element" : "more than one sensor element is not supported yet",
@@ -47,6 +42,7 @@ internal static class NetlistReader
         foreach (var name in excitation)
             if (Element(s, "excitation", name, parsed).Kind is not ('V' or 'I'))
                 throw s.ErrorAtValue("excitation", $"{name} is not a source", "Name the V or I elements that excite the sensor.");
+        var (lead, interval) = Switching(s, parsed, excitation);
         var fixedElement = s.String("fixed") is { } written ? FixedOf(s, written, parsed, sensors) : null;
         var parts = s.Sections("part").Select(p => Part(p, parsed, sensors)).ToList();
         foreach (var group in parts.GroupBy(p => p.Name, StringComparer.OrdinalIgnoreCase).Where(g => g.Count() > 1))
@@ -62,8 +58,48 @@ internal static class NetlistReader
             Excitation = [.. excitation.Select(n => parsed.Find(n)!.Name)],
             Parts = parts,
             FixedElement = fixedElement,
+            SwitchOnLeadSeconds = lead,
+            ReadingIntervalSeconds = interval,
             Parsed = parsed,
         };
+    }
+
+    /// <summary>
+    /// The switched excitation: `switch_on_lead` (and `reading_interval`), and the sources written with a PULSE, which
+    /// must be excitation sources of a design that gives the lead (the pulse says how the source switches, the lead when
+    /// the converter samples after it).
+    /// </summary>
+    private static (double? Lead, double? Interval) Switching(TomlSection s, ParsedNetlist parsed, IReadOnlyList<string> excitation)
+    {
+        var lead = s.Quantity("switch_on_lead", Bound.Positive, UnitKind.Second)?.Value;
+        var interval = s.Quantity("reading_interval", Bound.Positive, UnitKind.Second)?.Value;
+        if (lead is not null && excitation.Count == 0)
+            throw s.ErrorAtKey("switch_on_lead", "switch_on_lead without an excitation source",
+                "Name the sources the firmware switches on to measure: excitation = [\"Vgpio\"].");
+        if (interval is not null && lead is null)
+            throw s.ErrorAtKey("reading_interval", "reading_interval without switch_on_lead",
+                "reading_interval describes a switched excitation: add switch_on_lead = \"10 ms\", or remove reading_interval.");
+        if (lead is { } l && interval is { } i && i <= l)
+            throw s.ErrorAtValue("reading_interval", "the reading interval is not longer than the switch-on lead",
+                "The excitation is on for switch_on_lead plus one conversion in every reading_interval; make the interval longer.");
+        foreach (var pulsed in parsed.Elements.Where(e => e.Pulse is not null))
+        {
+            var at = pulsed.At;
+            if (!excitation.Contains(pulsed.Name, StringComparer.OrdinalIgnoreCase))
+                throw new DesignException(at.FileName, at.Line, at.Column, s.KeyPath("excitation"),
+                    $"{pulsed.Name} is written with a PULSE but is not an excitation source (in the card '{NetlistErrors.Quote(at.Card)}')",
+                    $"Only the excitation may be switched: add \"{pulsed.Name}\" to excitation in [netlist], or give the source its DC value.");
+            if (lead is null)
+                throw new DesignException(at.FileName, at.Line, at.Column, s.KeyPath("switch_on_lead"),
+                    $"the PULSE of {pulsed.Name} switches the excitation, but [netlist] does not say when the converter samples after it (in the card '{NetlistErrors.Quote(at.Card)}')",
+                    "Add switch_on_lead = \"10 ms\" to [netlist]: how long after the pulse's delay TD the first acquisition window opens.");
+            var p = pulsed.Pulse!;
+            if (p.RiseSeconds > lead)
+                throw new DesignException(at.FileName, at.Line, at.Column, s.KeyPath("switch_on_lead"),
+                    $"the PULSE of {pulsed.Name} is still rising when the acquisition window opens (TR {p.RiseSeconds:G4} s, switch_on_lead {lead:G4} s)",
+                    "Make switch_on_lead at least the pulse's rise time TR: the check compares the sample with the source at its pulsed level.");
+        }
+        return (lead, interval);
     }
 
     private static NetlistPartSpec Part(TomlSection p, ParsedNetlist parsed, IReadOnlyList<string> sensors)
@@ -122,13 +158,17 @@ internal static class NetlistReader
     /// <summary>The voltage the first DC source that drives <paramref name="node"/> from ground holds it at; null when none does.</summary>
     internal static double? ReferenceSourceVolts(ParsedNetlist parsed, string node)
     {
-        foreach (var e in parsed.Elements.Where(e => e.Kind == 'V' && e.Pulse is null))
+        foreach (var e in parsed.Elements.Where(e => e.Kind == 'V'))
         {
-            if (e.Nodes[0] == node && e.Nodes[1] == "0") return e.Value;
-            if (e.Nodes[1] == node && e.Nodes[0] == "0") return -e.Value;
+            var volts = MeasuringVolts(e);
+            if (e.Nodes[0] == node && e.Nodes[1] == "0") return volts;
+            if (e.Nodes[1] == node && e.Nodes[0] == "0") return -volts;
         }
         return null;
     }
+
+    /// <summary>A source's value while the check measures: a PULSE's pulsed level (the switched excitation is on), else its DC value.</summary>
+    internal static double MeasuringVolts(NetlistElement e) => e.Pulse?.Pulsed ?? e.Value;
 
     private static void CheckReserved(ParsedNetlist parsed, string keyPath)
     {

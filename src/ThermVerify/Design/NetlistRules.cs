@@ -1,3 +1,5 @@
+using ThermVerify.Design.Netlists;
+
 namespace ThermVerify.Design;
 
 /// <summary>
@@ -23,5 +25,16 @@ internal static class NetlistRules
         if (!design.Adc.IsRatiometric && netlist.ReferenceNode is not null)
             throw section.ErrorAtValue("reference", "a reference node with a converter whose reference is a fixed voltage",
                 "Remove reference here, or write reference = \"ratiometric\" in [adc].");
+        if (netlist.SwitchOnLeadSeconds is { } lead)
+            foreach (var pulsed in netlist.Parsed.Elements.Where(e => e.Pulse is not null))
+            {
+                // The first acquisition window closes lead + t_acq after the switch-on; the pulse must still be on then.
+                var p = pulsed.Pulse!;
+                var sample = lead + design.Adc.AcquisitionTimeSeconds;
+                if (p.RiseSeconds + p.WidthSeconds < sample)
+                    throw new DesignException(pulsed.At.FileName, pulsed.At.Line, pulsed.At.Column, section.KeyPath("switch_on_lead"),
+                        $"the PULSE of {pulsed.Name} ends before the first sample (TR + PW = {p.RiseSeconds + p.WidthSeconds:G4} s, switch_on_lead + acquisition = {sample:G4} s; in the card '{NetlistErrors.Quote(pulsed.At.Card)}')",
+                        "Make the pulse's width PW cover switch_on_lead and one acquisition window, or shorten switch_on_lead.");
+            }
     }
 }

@@ -43,6 +43,16 @@ public sealed record NetlistSpec
     /// </summary>
     public double? ReferenceVolts { get; init; }
 
+    /// <summary>
+    /// Our key `switch_on_lead`: the excitation is switched on only to measure, this long before the first acquisition
+    /// window opens (from the excitation's switch-on: a PULSE's delay TD, or t = 0 for a DC source, which steps from 0);
+    /// null when the excitation is on all the time.
+    /// </summary>
+    public double? SwitchOnLeadSeconds { get; init; }
+
+    /// <summary>Our key `reading_interval`: the time between readings of a switched excitation (the sensor's duty cycle for self-heating).</summary>
+    public double? ReadingIntervalSeconds { get; init; }
+
     /// <summary>The netlist as read: flat, its parameters evaluated.</summary>
     internal ParsedNetlist Parsed { get; init; } = new("", []);
 
@@ -51,6 +61,7 @@ public sealed record NetlistSpec
         other is not null && File == other.File && FullPath == other.FullPath && PinNode == other.PinNode && ReferenceNode == other.ReferenceNode
         && Nullable.Equals(ReferenceVolts, other.ReferenceVolts) && SensorElements.SequenceEqual(other.SensorElements)
         && Excitation.SequenceEqual(other.Excitation) && Parts.SequenceEqual(other.Parts) && FixedElement == other.FixedElement
+        && Nullable.Equals(SwitchOnLeadSeconds, other.SwitchOnLeadSeconds) && Nullable.Equals(ReadingIntervalSeconds, other.ReadingIntervalSeconds)
         && Parsed.Elements.Count == other.Parsed.Elements.Count;
 
     public override int GetHashCode() => HashCode.Combine(File, PinNode, ReferenceNode, Parts.Count);
@@ -64,10 +75,17 @@ public sealed record NetlistSpec
     {
         var parsed = Parsed with
         {
-            Elements = [.. Parsed.Elements.Select(e => fractions.TryGetValue(e.Name, out var f) ? e with { Value = e.Value * (1 + f) } : e)],
+            Elements = [.. Parsed.Elements.Select(e => fractions.TryGetValue(e.Name, out var f) ? Scaled(e, 1 + f) : e)],
         };
         return this with { Parsed = parsed, ReferenceVolts = ReferenceNode is { } node ? NetlistReader.ReferenceSourceVolts(parsed, node) : null };
     }
+
+    /// <summary>An element's value times <paramref name="factor"/>; a PULSE's levels with it (the source's tolerance holds while it is off and on).</summary>
+    private static NetlistElement Scaled(NetlistElement e, double factor) => e with
+    {
+        Value = e.Value * factor,
+        Pulse = e.Pulse is { } p ? p with { Initial = p.Initial * factor, Pulsed = p.Pulsed * factor } : null,
+    };
 
     /// <summary>The netlist with one element at another value (a candidate of `choose-fixed`).</summary>
     internal NetlistSpec WithValue(string element, double value)

@@ -91,7 +91,44 @@ internal static class NetlistCircuit
         }
     }
 
-    private static Waveform Waveform(NetlistElement e) => e.Pulse is { } p
-        ? new PulseWaveform(p.Initial, p.Pulsed, p.DelaySeconds, p.RiseSeconds, p.FallSeconds, p.WidthSeconds, p.PeriodSeconds)
-        : new DcWaveform(e.Value);
+    /// <summary>
+    /// A source while the check measures: at its DC value, or at a PULSE's pulsed level (a switched excitation that is
+    /// on; its switch-on is followed by <see cref="SwitchedOn"/>).
+    /// </summary>
+    private static Waveform Waveform(NetlistElement e) => new DcWaveform(NetlistReader.MeasuringVolts(e));
+
+    /// <summary>When a DC excitation source steps on (from 0): short against any time constant of the front end, as the built-in shape's GPIO.</summary>
+    public const double DcSwitchOnSeconds = 1e-9;
+
+    /// <summary>A pulse width that outlasts any run, as a number a deck can carry (a PULSE written without PW stays on).</summary>
+    private const double Forever = 1e30;
+
+    private static double Finite(double seconds) => double.IsFinite(seconds) ? seconds : Forever;
+
+    /// <summary>
+    /// The circuit with the netlist's excitation switched on over time (<c>switch_on_lead</c>): a source written with a
+    /// PULSE follows its pulse as parsed (its first level before the delay TD, then the rise to its pulsed level); a DC
+    /// excitation source steps from 0 to its value <see cref="DcSwitchOnSeconds"/> after t = 0, so the operating point
+    /// is the one with it off. Returns the switch-on instant, the latest of the sources' (the lead counts from there).
+    /// </summary>
+    public static (Circuit Circuit, double SwitchOnSeconds) SwitchedOn(Circuit circuit, NetlistSpec netlist)
+    {
+        var switchOn = 0.0;
+        foreach (var name in netlist.Excitation)
+        {
+            var e = netlist.Parsed.Find(name)!;
+            var (wave, at) = e.Pulse is { } p
+                ? (new PulseWaveform(p.Initial, p.Pulsed, p.DelaySeconds, p.RiseSeconds, p.FallSeconds, Finite(p.WidthSeconds), p.PeriodSeconds), p.DelaySeconds)
+                : (new PulseWaveform(0, e.Value, DcSwitchOnSeconds, 0, 0, Forever, 0), DcSwitchOnSeconds);
+            // The netlist is the design's own (a built unit's carries its scaled levels), as is the circuit.
+            circuit = circuit[e.Name] switch
+            {
+                VoltageSource v => circuit.Replace(v with { Waveform = wave }),
+                CurrentSource i => circuit.Replace(i with { Waveform = wave }),
+                var other => throw new InvalidOperationException($"excitation {other.Name} is not a source"),
+            };
+            switchOn = Math.Max(switchOn, at);
+        }
+        return (circuit, switchOn);
+    }
 }

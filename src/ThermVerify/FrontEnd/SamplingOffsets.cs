@@ -43,7 +43,7 @@ internal sealed record SamplingOffsets(
         DcLevels dc, double settleVolts, ICheckEngine engine)
     {
         var first = cases.Select(c => temperatures.Select((t, i) =>
-            (design.Divider?.SwitchOnLeadSeconds is null
+            (!SwitchOnSettling.Applies(design)
                 ? SamplingRun.FirstSampleVolts(design, t, c.Volts, settleVolts, engine)
                 : SwitchOnSettling.FirstSampleVolts(design, t, c.Volts, settleVolts, engine)) - dc.StaticSampleLevel(design, i)).ToArray()).ToArray();
         return new(cases, [.. Enumerable.Range(0, temperatures.Count)], [], first, [.. cases.Select(_ => new double[temperatures.Count])]);
@@ -70,14 +70,14 @@ internal sealed record SamplingOffsets(
         var t = temperatures[index];
         double firstSample;
         if (firstOnly)
-            firstSample = design.Divider?.SwitchOnLeadSeconds is null
+            firstSample = !SwitchOnSettling.Applies(design)
                 ? SamplingRun.FirstSampleVolts(design, t, pre, settleVolts, engine)
                 : SwitchOnSettling.FirstSampleVolts(design, t, pre, settleVolts, engine);
         else
         {
             var run = SamplingRun.Run(design, t, pre, settleVolts, cancel: cancel, engine: engine);
             outcomes.Add(run);
-            firstSample = design.Divider?.SwitchOnLeadSeconds is null ? run.FirstVolts : SwitchOnSettling.FirstSampleVolts(design, t, pre, settleVolts, engine);
+            firstSample = !SwitchOnSettling.Applies(design) ? run.FirstVolts : SwitchOnSettling.FirstSampleVolts(design, t, pre, settleVolts, engine);
             steady[precharge][index] = run.SteadyVolts - dc.AverageSampleLevel(design, precharge, index);
         }
         first[precharge][index] = firstSample - dc.StaticSampleLevel(design, index);
@@ -88,7 +88,7 @@ internal sealed record SamplingOffsets(
     private static double[] FirstSamples(FrontEndDesign design, double? pre, IReadOnlyList<double> temperatures, int[] indices,
         SamplingOutcome[] sampling, double settleVolts, int threads, CancellationToken cancel, ICheckEngine engine)
     {
-        if (design.Divider?.SwitchOnLeadSeconds is null) return [.. sampling.Select(s => s.FirstVolts)];
+        if (!SwitchOnSettling.Applies(design)) return [.. sampling.Select(s => s.FirstVolts)];
         var switchOn = new double[indices.Length];
         Parallel.For(0, indices.Length, new ParallelOptions { MaxDegreeOfParallelism = threads, CancellationToken = cancel },
             g => switchOn[g] = SwitchOnSettling.FirstSampleVolts(design, temperatures[indices[g]], pre, settleVolts, engine));

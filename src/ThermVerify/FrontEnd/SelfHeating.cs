@@ -22,9 +22,10 @@ internal static class SelfHeating
     /// <summary>Fraction of the time the divider is excited: 1 unless the design switches it.</summary>
     public static double DutyCycle(FrontEndDesign design)
     {
-        var d = design.Divider;
-        if (d?.SwitchOnLeadSeconds is not { } lead || d.ReadingIntervalSeconds is not { } interval) return 1;
-        return Math.Min(1, (lead + 1 / design.Adc.SampleRateHertz) / interval);
+        var lead = SwitchOnSettling.LeadSeconds(design);
+        var interval = design.Divider?.ReadingIntervalSeconds ?? design.Netlist?.ReadingIntervalSeconds;
+        if (lead is null || interval is null) return 1;
+        return Math.Min(1, (lead.Value + 1 / design.Adc.SampleRateHertz) / interval.Value);
     }
 
     /// <summary>Sensor power at each temperature from the divider voltages of a simulated DC sweep.</summary>

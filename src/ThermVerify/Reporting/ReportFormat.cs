@@ -156,7 +156,8 @@ internal static class ReportFormat
     {
         if (d.Netlist is { } n)
             return ("netlist", $"{n.File} ({n.Parsed.Elements.Count} elements): sensor {string.Join(", ", n.SensorElements)}, converter at node {n.PinNode}" +
-                               (n.Excitation.Count > 0 ? $", excitation {string.Join(", ", n.Excitation)}" : ""));
+                               (n.Excitation.Count > 0 ? $", excitation {string.Join(", ", n.Excitation)}" : "") +
+                               (n.SwitchOnLeadSeconds is { } lead ? $", switched on {V(lead, UnitKind.Second)} before the first sample" : ""));
         if (d is { Divider: { } half, Bridge: { } bridge })
             return ("bridge", $"sensor on the {(half.SensorSide == Design.SensorSide.High ? "high" : "low")} side, fixed {V(half.FixedResistorOhms, UnitKind.Ohm)}, " +
                               $"opposite half {V(bridge.HighOhms, UnitKind.Ohm)} over {V(bridge.LowOhms, UnitKind.Ohm)}, excitation {V(half.ExcitationVolts, UnitKind.Volt)}" +

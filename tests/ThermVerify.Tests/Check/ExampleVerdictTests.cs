@@ -30,6 +30,7 @@ public class ExampleVerdictTests
     [InlineData("table-sensor-freezer.toml", true, null)]
     [InlineData("cold-storage-logger-buffered.toml", true, null)]
     [InlineData("soil-probe-switched.toml", true, null)]
+    [InlineData("soil-probe-switched-netlist.toml", true, null)]
     [InlineData("dosing-pump-ntc-rc.toml", true, null)]
     [InlineData("attic-fan-leaky-pin.toml", false, "dc-loading")]
     [InlineData("attic-fan-leaky-pin-netlist.toml", false, "dc-loading")]

@@ -1,0 +1,107 @@
+using ThermVerify.Design;
+using ThermVerify.FrontEnd;
+using ThermVerify.Ngspice;
+using ThermVerify.Tests.Design;
+using ThermVerify.Tests.Ngspice;
+
+namespace ThermVerify.Tests.FrontEnd;
+
+/// <summary>
+/// A netlist's switched excitation (`switch_on_lead`, a PULSE source or a DC source stepping on): the first sample after
+/// switch-on against first-order RC charging and charge sharing in closed form, in both engines.
+/// </summary>
+public sealed class NetlistSwitchOnTests : IDisposable
+{
+    private readonly DirectoryInfo folder = Directory.CreateTempSubdirectory("tv-netlist-switch-on-");
+
+    public void Dispose() => folder.Delete(recursive: true);
+
+    private const double Volts = 3.3, Ohms = 10e3, Farads = 100e-9, SampleFarads = 5e-12, SwitchOhms = 1e3, AcquisitionSeconds = 2e-6;
+
+    /// <summary>The divider of NetlistDesignTests without its series resistor: 10 k over 10 k into 100 nF at the pin.</summary>
+    private FrontEndDesign Load(string source, double leadSeconds)
+    {
+        File.WriteAllText(Path.Combine(folder.FullName, "front.cir"), $"""
+            * switched divider
+            {source}
+            Rtop exc pin 10k
+            Rntc pin 0 10k
+            Cres pin 0 100n
+            .end
+            """);
+        var lines = (string[])NetlistDesignTests.Lines.Clone();
+        lines[10] = $"excitation = [\"Vexc\"]\nswitch_on_lead = \"{leadSeconds * 1e3} ms\"";
+        var path = Path.Combine(folder.FullName, "design.toml");
+        File.WriteAllText(path, string.Join("\n", lines) + "\n");
+        return DesignLoader.Load(path);
+    }
+
+    /// <summary>
+    /// The sample at the end of the first acquisition window, the sampling capacitor empty, with the sensor at 25 °C
+    /// (R25 = 10 kΩ). First-order charging (common practice): the pin charges towards the Thevenin voltage V/2 through
+    /// R/2 with τ = (R/2)·C, so when the window opens it is V/2·(1 − e^(−L/τ)). In the window the pin and the sampling
+    /// capacitor (through the switch's resistance) are a linear system of two states, x' = A·x + b, solved exactly:
+    /// x(t) = x∞ + e^(A·t)·(x(0) − x∞), with e^(A·t) by Sylvester's formula for the 2×2 matrix's two real eigenvalues
+    /// (textbook linear algebra, from memory).
+    /// </summary>
+    private static double ClosedForm(double leadSeconds)
+    {
+        var thevenin = Volts / 2;
+        var atWindow = thevenin * (1 - Math.Exp(-leadSeconds / (Ohms / 2 * Farads)));
+        double a11 = -2 / (Ohms * Farads) - 1 / (SwitchOhms * Farads), a12 = 1 / (SwitchOhms * Farads);
+        double a21 = 1 / (SwitchOhms * SampleFarads), a22 = -1 / (SwitchOhms * SampleFarads);
+        var (trace, det) = (a11 + a22, a11 * a22 - a12 * a21);
+        var root = Math.Sqrt(trace * trace / 4 - det);
+        var (l1, l2) = (trace / 2 + root, trace / 2 - root);
+        // Both states end at V/2 (no current flows then); the sampling capacitor starts empty.
+        var (d1, d2) = (atWindow - thevenin, 0 - thevenin);
+        var (e1, e2) = (Math.Exp(l1 * AcquisitionSeconds), Math.Exp(l2 * AcquisitionSeconds));
+        // Row 2 of e^(At) = [e1·(A − l2·I) − e2·(A − l1·I)] / (l1 − l2), applied to the start's distance from the end.
+        var row21 = (e1 - e2) * a21 / (l1 - l2);
+        var row22 = (e1 * (a22 - l2) - e2 * (a22 - l1)) / (l1 - l2);
+        return thevenin + row21 * d1 + row22 * d2;
+    }
+
+    public static TheoryData<string, double> Sources => new()
+    {
+        { "Vexc exc 0 PULSE(0 3.3 0 0 0 10m 0)", 1e-3 },
+        { "Vexc exc 0 PULSE(0 3.3 500u 0 0 10m 0)", 1e-3 },
+        { "Vexc exc 0 PULSE(0 3.3 0 0 0 10m 0)", 0.3e-3 },
+        { "Vexc exc 0 DC 3.3", 1e-3 },
+    };
+
+    [Theory]
+    [MemberData(nameof(Sources))]
+    public void The_first_sample_follows_first_order_charging_from_the_switch_on(string source, double leadSeconds)
+    {
+        var design = Load(source, leadSeconds);
+        var lsb = AdcTransfer.Of(design).LsbVolts;
+        // The lead counts from the switch-on: a PULSE's TD, or the DC source's step 1 ns after t = 0.
+        var expected = ClosedForm(leadSeconds);
+        // Precharged to 0 V, or holding the last sample: the operating point before the switch-on holds every node,
+        // the sampling capacitor's included, at 0 V, so the two agree.
+        foreach (var precharge in new double?[] { 0, null })
+        {
+            var sample = SwitchOnSettling.FirstSampleVolts(design, 25, precharge, 0.01 * lsb);
+            Tolerance.AssertClose(sample, expected, 0, 2e-6, $"{source}, lead {leadSeconds} s, precharge {precharge}");
+            // And it is far from settled: the check sees the switch-on, not the DC level.
+            Assert.True(Volts / 2 - sample > 10 * lsb);
+        }
+    }
+
+    [NgspiceTheory]
+    [MemberData(nameof(Sources))]
+    public void Ngspice_gives_the_same_first_sample(string source, double leadSeconds)
+    {
+        var design = Load(source, leadSeconds);
+        var lsb = AdcTransfer.Of(design).LsbVolts;
+        using var engine = new NgspiceEngine();
+        // Holding the last sample: ngspice stops with "timestep too small" where the sampling switch closes on a
+        // precharged capacitor after a long run (a limit of its step control, see EngineCrossCheckTests).
+        var theirs = SwitchOnSettling.FirstSampleVolts(design, 25, null, 0.01 * lsb, engine);
+        var ours = SwitchOnSettling.FirstSampleVolts(design, 25, null, 0.01 * lsb);
+        // ngspice (an outside engine) reads the deck written from the parsed PULSE; its edges are 1 ps, ours ideal.
+        Tolerance.AssertClose(theirs, ours, 0, 0.01 * lsb, source);
+        Tolerance.AssertClose(theirs, ClosedForm(leadSeconds), 0, 0.01 * lsb, $"{source} against the closed form");
+    }
+}
