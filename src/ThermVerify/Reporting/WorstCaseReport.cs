@@ -33,7 +33,7 @@ public static class WorstCaseReport
             ], [BandTable(r)]),
             new("sensitivities", "Sensitivities", [I($"The error each tolerance causes at its full value at {worst.Celsius:0.##} °C (central difference at ±a), largest first.")], [SensitivityTable(r)]),
             new("tolerances", "Tolerances", ["Every nonzero tolerance of the design (docs/tolerances.md)."], [Table(r.Parameters)]),
-            .. Remedies(r),
+            .. RemedySections(r),
         ];
         return new AnalysisReport($"thermverify worstcase: {design.Name}", design.Description, verdict, r.WithinBudget,
             [.. ReportFormat.Settings(design, model.Sensor.Description, model.Adc)], designFile, [WorstCasePlot.Render(r, design.Name)], sections,
@@ -50,7 +50,7 @@ public static class WorstCaseReport
     }
 
     /// <summary>The proven remedies (the reference resistor's tolerance or tempco), each with its method and proof; none when none was searched.</summary>
-    private static IEnumerable<ReportSection> Remedies(WorstCaseResult r)
+    private static IEnumerable<ReportSection> RemedySections(WorstCaseResult r)
     {
         if (r.Remedies.Count == 0 && r.RemedyNote is null) return [];
         string[] paragraphs = [.. r.RemedyNote is { } note ? [note] : Array.Empty<string>(),
