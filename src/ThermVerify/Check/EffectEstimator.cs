@@ -104,12 +104,19 @@ internal static class EffectEstimator
         return -point.IdealVolts / design.Adc.ProgrammableGain * sourceOhms / (sourceOhms + req);
     }
 
-    /// <summary>2 wires to a divider's sensor: the divider with R_s + 2·R_L against R_s, times the buffer's gain.</summary>
+    /// <summary>
+    /// 2 wires to a divider's sensor: the divider with R_s + 2·R_L against R_s, times the buffer's gain; 3 wires in a
+    /// bridge: a lead in each arm (<see cref="BridgeArmLeads"/>) against none, times the amplifier's gain.
+    /// </summary>
     private static double DividerLeadVolts(FrontEndDesign design, DividerSpec divider, ClosedFormPoint point)
     {
         if (design.Wiring is not { } w) return 0;
-        var leads = 2 * w.LeadOhmsAt(w.LeadCelsius ?? design.Check.BoardCelsius ?? point.Celsius);
+        var at = w.LeadCelsius ?? design.Check.BoardCelsius ?? point.Celsius;
+        var leads = 2 * w.LeadOhmsAt(at);
         double Out(double sensorOhms) => DividerFormula.OutputVolts(divider.SensorSide, divider.ExcitationVolts, sensorOhms, divider.FixedResistorOhms);
+        if (w.Wires == 3)
+            return design.StageGain * (BridgeArmLeads.PositiveVolts(divider.SensorSide, divider.ExcitationVolts, point.SensorOhms, divider.FixedResistorOhms,
+                (w with { LeadOhms = Math.Max(w.LeadOhms, 1e-3) }).LeadOhmsAt(at), w.LeadMismatch) - Out(point.SensorOhms));
         return design.StageGain * (Out(point.SensorOhms + leads) - Out(point.SensorOhms));
     }
 

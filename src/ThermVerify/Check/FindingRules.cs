@@ -173,6 +173,10 @@ internal static class FindingRules
                       I($"counts: {Volts(p.Simulated.DcLoadingVolts - p.Estimates.LoadingVolts)} beyond the estimate"));
         if (design.CurrentSource is { } source)
             parts.Add(CurrentWords.Loading(design, source, p));
+        else if (design.Wiring is { Wires: 3 } armLeads)
+            parts.Add(I($"the 3 leads of {Ohms(armLeads.LeadOhms)} each at {(armLeads.LeadCelsius ?? design.Check.BoardCelsius ?? p.Celsius):0.##} °C in the bridge's arms ") +
+                      I($"(one beside the sensor{(armLeads.LeadMismatch == 0 ? "" : " " + Bounded(I($"{Math.Abs(armLeads.LeadMismatch) * 100:0.###} %"), armLeads.LeadMismatchSigned, armLeads.LeadMismatch) + " longer")}, one beside the fixed resistor, one in the sense line: ") +
+                      I($"the divider with R_s + R_L·(1 + m) and R_f + R_L; the mismatch term E·m·R_L·R_f/(R_s + R_f)²) {Volts(p.Estimates.LeadVolts)}"));
         else if (design.Wiring is { } wiring)
             parts.Add(I($"the 2 leads of {Ohms(wiring.LeadOhms)} each at {(wiring.LeadCelsius ?? design.Check.BoardCelsius ?? p.Celsius):0.##} °C in the sensor's arm ") +
                       I($"(the divider with R_s + 2·R_L) {Volts(p.Estimates.LeadVolts)}"));

@@ -30,7 +30,7 @@ internal static partial class DesignWriter
         if (design.CurrentSource is { } source)
             WriteCurrentSource(w, source);
         if (design.Wiring is { } wiring)
-            WriteWiring(w, wiring);
+            WriteWiring(w, wiring, design.Bridge is not null);
         if (design.Buffer is not null)
             WriteBuffer(w, design.Buffer);
         if (design.Netlist is { } netlist)
@@ -190,7 +190,7 @@ internal static partial class DesignWriter
         }
     }
 
-    private static void WriteWiring(Writer w, WiringSpec x)
+    private static void WriteWiring(Writer w, WiringSpec x, bool bridge)
     {
         w.Section("wiring");
         w.Integer("wires", x.Wires);
@@ -198,8 +198,11 @@ internal static partial class DesignWriter
         w.Value("lead_tempco", x.LeadTempcoPerKelvin, UnitKind.PpmPerKelvin);
         if (x.LeadCelsius is { } t)
             w.Value("lead_temperature", t, UnitKind.Celsius);
-        if (x.Wires == 3)
+        // 3 wires: a current source's second current, or the leads in a bridge's arms.
+        if (x.Wires == 3 && !bridge)
             w.Value("current_mismatch", x.CurrentMismatch, UnitKind.Percent, x.CurrentMismatchSigned);
+        if (x.Wires == 3 && bridge)
+            w.Value("lead_mismatch", x.LeadMismatch, UnitKind.Percent, x.LeadMismatchSigned);
     }
 
     private static void WriteBuffer(Writer w, BufferSpec b)

@@ -38,8 +38,10 @@ internal static class ExcitationRules
             throw root.ErrorAtKey("current_source", "both [divider] and [current_source]",
                 "A sensor is excited one way: keep [divider] (a voltage and a fixed resistor) or [current_source] (a current through the sensor).");
         if (design.Wiring is { Wires: not 2 } && design.CurrentSource is null)
-            throw root.Section("wiring")!.ErrorAtValue("wires", "a divider's sensor is wired with 2 wires",
-                "Write wires = 2 (both leads in the sensor's arm of the divider), or excite the sensor with a [current_source] for 3 or 4 wires.");
+            BridgeWiringRules.Check(root, design);
+        if (design.Wiring is { LeadMismatch: not 0 } && (design.Bridge is null || design.Wiring.Wires != 3))
+            throw root.Section("wiring")!.ErrorAtKey("lead_mismatch", "lead_mismatch is the mismatch of the leads in a bridge's arms (3 wires in a [bridge])",
+                "Remove it; with a [current_source] the 3-wire mismatch is current_mismatch (the two currents).");
         if (design.Amplifier is not null && design.Bridge is null)
             throw root.ErrorAtKey("amplifier", "an amplifier is modelled between a bridge's two outputs, and this design has no bridge",
                 "Describe the front end as a [bridge], or use [buffer] for an op-amp stage behind a divider.");

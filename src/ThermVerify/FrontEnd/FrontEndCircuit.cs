@@ -141,7 +141,10 @@ internal static class FrontEndCircuit
             var fixedNodes = high ? (Divider, Circuit.Ground) : (Excitation, Divider);
             elements.Add(new VoltageSource("Vexc", Excitation, Circuit.Ground, new DcWaveform(divider.ExcitationVolts)));
             var (top, bottom) = high ? (Excitation, Divider) : (Divider, Circuit.Ground);
-            if (design.Wiring is { LeadOhms: > 0 } wiring)
+            if (design.Wiring is { Wires: 3 } armLeads)
+                // 3 wires in a bridge: a lead in each arm and one in the sense line (its own closed form and circuit).
+                BridgeArmLeads.Add(elements, design, armLeads, board);
+            else if (design.Wiring is { LeadOhms: > 0 } wiring)
             {
                 // Two wires: both leads in the sensor's arm, R_s + 2·R_L at the leads' own temperature.
                 elements.Add(new SensorResistor(SensorElement, SensorTop, SensorBottom, design.Sensor.Build()));
@@ -150,7 +153,8 @@ internal static class FrontEndCircuit
             }
             else
                 elements.Add(new SensorResistor(SensorElement, top, bottom, design.Sensor.Build()));
-            elements.Add(FixedResistor(FixedElement, fixedNodes.Item1, fixedNodes.Item2, divider.FixedResistorOhms, divider.FixedTempcoPerKelvin, board));
+            if (design.Wiring is not { Wires: 3 })
+                elements.Add(FixedResistor(FixedElement, fixedNodes.Item1, fixedNodes.Item2, divider.FixedResistorOhms, divider.FixedTempcoPerKelvin, board));
             if (design.Bridge is { } bridge)
             {
                 // The bridge's opposite half across the same excitation: its midpoint is the converter's negative input,
@@ -189,8 +193,9 @@ internal static class FrontEndCircuit
         ProtectionCircuit.Add(elements, design, pin);
         // With nothing else at the pin, the series resistor alone would leave it floating in the DC circuit: the
         // converter's input is there, with its sampling switch open (the sampling circuit's off resistance).
-        // So would an amplifier's output with nothing behind it.
-        if ((pin == Pin || design.Amplifier is not null) && elements.Count(e => e.Nodes.Contains(pin)) == 1)
+        // So would an amplifier's output with nothing behind it, and the sense lead of a 3-wire bridge.
+        if ((pin == Pin || design.Amplifier is not null || design.Wiring is { Wires: 3 } && design.CurrentSource is null)
+            && elements.Count(e => e.Nodes.Contains(pin)) == 1)
             elements.Add(new Resistor("Rinput", pin, Circuit.Ground, SwitchOffOhms));
         return elements;
     }

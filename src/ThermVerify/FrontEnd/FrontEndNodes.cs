@@ -60,6 +60,9 @@ internal static class FrontEndNodes
     /// <summary>The potential the insulation leaks to, when it is not ground.</summary>
     public const string InsulationPotential = "ins";
 
+    /// <summary>3 wires in a bridge: the fixed resistor's end of the adjacent arm's lead (<see cref="BridgeArmLeads"/>).</summary>
+    public const string AdjacentLead = "adj";
+
     /// <summary>The programmable-gain stage's output, which the sampling switch of a converter behind it takes its charge from.</summary>
     public const string GainStageOutput = "pga";
 

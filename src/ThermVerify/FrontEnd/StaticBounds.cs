@@ -51,7 +51,10 @@ internal static class StaticBounds
             Add("protection.clamp_leakage", protection.ClampLeakageAmperes, protection.ClampLeakageSigned,
                 (x, v) => x with { Protection = x.Protection! with { ClampLeakageAmperes = v } });
         if (d.Wiring is { Wires: 3 } wiring)
+        {
             Add("wiring.current_mismatch", wiring.CurrentMismatch, wiring.CurrentMismatchSigned, (x, v) => x with { Wiring = x.Wiring! with { CurrentMismatch = v } });
+            Add("wiring.lead_mismatch", wiring.LeadMismatch, wiring.LeadMismatchSigned, (x, v) => x with { Wiring = x.Wiring! with { LeadMismatch = v } });
+        }
         if (d.Amplifier is { } amplifier)
         {
             AmplifierSpec With(FrontEndDesign x) => x.Amplifier!;

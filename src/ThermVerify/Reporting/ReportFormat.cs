@@ -163,7 +163,7 @@ internal static class ReportFormat
                               $"opposite half {V(bridge.HighOhms, UnitKind.Ohm)} over {V(bridge.LowOhms, UnitKind.Ohm)}, excitation {V(half.ExcitationVolts, UnitKind.Volt)}" +
                               (d.Amplifier is null ? ", read differentially" : "") +
                               (d.Amplifier is { } amp ? $", through an amplifier of gain {amp.Gain.ToString("0.###", System.Globalization.CultureInfo.InvariantCulture)}" : "") +
-                              (d.Wiring is { } bridgeLeads ? $", 2 wires of {V(bridgeLeads.LeadOhms, UnitKind.Ohm)}" : ""));
+                              (d.Wiring is { } bridgeLeads ? $", {bridgeLeads.Wires} wires of {V(bridgeLeads.LeadOhms, UnitKind.Ohm)}{(bridgeLeads.Wires == 3 ? " in the bridge's arms" : "")}" : ""));
         if (d.Divider is { } divider)
             return ("divider", $"sensor on the {(divider.SensorSide == Design.SensorSide.High ? "high" : "low")} side, fixed {V(divider.FixedResistorOhms, UnitKind.Ohm)}, excitation {V(divider.ExcitationVolts, UnitKind.Volt)}" +
                                (d.Wiring is { } leads ? $", 2 wires of {V(leads.LeadOhms, UnitKind.Ohm)}" : ""));

@@ -105,7 +105,11 @@ internal sealed record BuiltUnit(FrontEndDesign Design, ISensorModel Sensor, Con
             }
             : null;
         var wiring = nominal.Wiring is { } w
-            ? w with { CurrentMismatch = Bound(ToleranceKind.CurrentMismatch, w.CurrentMismatch), CurrentMismatchSigned = true }
+            ? w with
+            {
+                CurrentMismatch = Bound(ToleranceKind.CurrentMismatch, w.CurrentMismatch), CurrentMismatchSigned = true,
+                LeadMismatch = Bound(ToleranceKind.LeadMismatch, w.LeadMismatch), LeadMismatchSigned = true,
+            }
             : null;
         var protection = nominal.Protection is { } pr
             ? pr with { ClampLeakageAmperes = Bound(ToleranceKind.ClampLeakage, pr.ClampLeakageAmperes), ClampLeakageSigned = true }

@@ -69,4 +69,6 @@ public enum ToleranceKind
     NetlistPartTempco,
     /// <summary>A delta-sigma converter's input buffer current (adc.input_current), spread over ±|current| when written as a bound.</summary>
     DeltaSigmaInputCurrent,
+    /// <summary>3 wires in a bridge: the sensor arm's lead against the adjacent arm's, spread over ±|mismatch|.</summary>
+    LeadMismatch,
 }

@@ -90,7 +90,10 @@ internal sealed class ToleranceSet
                 source.ReferenceResistorTempcoSigned);
         }
         if (design.Wiring is { Wires: 3 } wiring)
+        {
             Add(ToleranceKind.CurrentMismatch, "wiring.current_mismatch", wiring.CurrentMismatch, "", wiring.CurrentMismatchSigned);
+            Add(ToleranceKind.LeadMismatch, "wiring.lead_mismatch", wiring.LeadMismatch, "", wiring.LeadMismatchSigned);
+        }
         var adc = design.Adc;
         if (!adc.IsRatiometric)
         {

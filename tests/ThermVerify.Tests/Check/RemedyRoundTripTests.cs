@@ -134,6 +134,7 @@ public class RemedyRoundTripTests
         "current_source.current_tempco" => d.CurrentSource!.CurrentTempcoPerKelvin,
         "current_source.reference_resistor_tempco" => d.CurrentSource!.ReferenceResistorTempcoPerKelvin,
         "wiring.current_mismatch" => d.Wiring!.CurrentMismatch,
+        "wiring.lead_mismatch" => d.Wiring!.LeadMismatch,
         "wiring.lead_resistance" => d.Wiring!.LeadOhms,
         "protection.clamp_leakage" => d.Protection!.ClampLeakageAmperes,
         "protection.insulation_resistance" => d.Protection!.InsulationOhms,

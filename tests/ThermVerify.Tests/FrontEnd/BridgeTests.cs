@@ -145,14 +145,15 @@ public class BridgeTests
     }
 
     [Fact]
-    public void Choose_fixed_refuses_a_bridge_with_exit_2_and_table_makes_one()
+    public void Choose_fixed_and_table_take_a_bridge()
     {
         var path = Path.Combine(Repository.Netlists, "fermenter-pt1000-bridge.toml");
         var table = CliRunner.Run("table", path);
         Assert.Equal(ExitCodes.Success, table.ExitCode);
-        var chosen = CliRunner.Run("choose-fixed", path);
-        Assert.Equal(ExitCodes.BadInput, chosen.ExitCode);
-        Assert.Contains("this design is a bridge", chosen.Error);
+        // The sensor half's fixed resistor, with the opposite low resistor re-balanced (BridgeFixedChoiceTests holds the figures).
+        var chosen = CliRunner.Run("choose-fixed", path, "--series", "E12");
+        Assert.Equal(ExitCodes.Success, chosen.ExitCode);
+        Assert.Contains("R_low (opposite)", chosen.Output);
     }
 
     /// <summary>ngspice, the trade's reference engine, on the bridge the check sweeps: every node within 1 µV.</summary>

@@ -27,6 +27,7 @@ internal static class Knobs
         ["current_source.current_tempco"] = "use a current source with a negligible tempco",
         ["current_source.reference_resistor_tempco"] = "use a reference resistor with a negligible tempco",
         ["wiring.current_mismatch"] = "match the two currents (or calibrate their mismatch out)",
+        ["wiring.lead_mismatch"] = "match the bridge arms' leads (or calibrate their mismatch out)",
         ["wiring.lead_resistance"] = "use leads of negligible resistance (or measure them and correct in firmware)",
         ["buffer.offset_voltage"] = "trim (or calibrate) the op-amp's offset out",
         ["buffer.offset_drift"] = "use an op-amp with negligible offset drift (chopper-stabilised)",
@@ -142,6 +143,9 @@ internal static class Knobs
 
     public static readonly Knob CurrentMismatch = Magnitude("wiring.current_mismatch", "fraction", d => d.Wiring!.CurrentMismatch,
         (d, v) => d with { Wiring = d.Wiring! with { CurrentMismatch = v } }, "match the two currents of the 3-wire connection to within");
+
+    public static readonly Knob LeadMismatch = Magnitude("wiring.lead_mismatch", "fraction", d => d.Wiring!.LeadMismatch,
+        (d, v) => d with { Wiring = d.Wiring! with { LeadMismatch = v } }, "match the leads in the bridge's two arms to within");
 
     public static readonly Knob ReferenceResistorTempco = Magnitude("current_source.reference_resistor_tempco", "ppm/K",
         d => d.CurrentSource!.ReferenceResistorTempcoPerKelvin,
@@ -294,6 +298,7 @@ internal static class Knobs
                     (ReferenceResistorTempco, design.CurrentSource?.ReferenceResistorTempcoPerKelvin is not (null or 0) ? Math.Abs(worst.Estimates.ExcitationVolts) : -1),
                     (CurrentTempco, design.CurrentSource is { ReferenceResistorOhms: null, CurrentTempcoPerKelvin: not 0 } ? Math.Abs(worst.Estimates.ExcitationVolts) : -1),
                     (CurrentMismatch, design.Wiring is { Wires: 3, CurrentMismatch: not 0 } ? Math.Abs(worst.Estimates.LeadVolts) : -1),
+                    (LeadMismatch, design.Wiring is { Wires: 3, LeadMismatch: not 0 } ? Math.Abs(worst.Estimates.LeadVolts) : -1),
                     (LeadResistance, design.Wiring is { LeadOhms: > 0 } ? Math.Abs(worst.Estimates.LeadVolts) : -1),
                     (Wires, design.Wiring is { Wires: 2, LeadOhms: > 0 } && design.CurrentSource is not null ? Math.Abs(worst.Estimates.LeadVolts) : -1),
                     (GainStageInputCurrent, design.Adc.GainStage is { InputCurrentAmperes: not 0 } g
