@@ -9,7 +9,6 @@ namespace ThermVerify.Tests.Check;
 public class FaultsOmittedTests
 {
     [Theory]
-    [InlineData("kiln-bank-pt100-deltasigma.toml", "not computed yet for a delta-sigma converter")]
     [InlineData("autoclave-pt100-bridge-inamp.toml", "not computed yet for a bridge behind an amplifier")]
     public void A_design_without_fault_thresholds_says_why(string example, string reason)
     {
@@ -26,6 +25,8 @@ public class FaultsOmittedTests
     [InlineData("attic-fan-leaky-pin-netlist.toml")]
     [InlineData("fermenter-pt1000-bridge.toml")]
     [InlineData("brine-chiller-bridge-differential.toml")]
+    [InlineData("kiln-bank-pt100-deltasigma.toml")]
+    [InlineData("stability-chamber-pt100-pga.toml")]
     public void A_divider_current_source_netlist_or_bridge_design_has_its_thresholds_and_no_reason(string example)
     {
         var design = DesignLoader.Load(Path.Combine(Repository.Netlists, example));
