@@ -28,7 +28,9 @@ public static class RunStamp
     {
         options ??= new MonteCarloOptions();
         return RunProvenance.Of(RunProvenance.BuiltInEngine, null, design.Source, Setting("units", options.Units), Setting("seed", options.Seed),
-            new RunSetting("unit-settling", design.Adc.Kind == ConverterKind.DeltaSigma ? "static" : options.SimulateSettling ? "simulated" : "nominal"), Conversions());
+            new RunSetting("unit-settling", design.Adc.Kind == ConverterKind.DeltaSigma
+                ? options.SimulateSettling ? "channel-switch" : "static"
+                : options.SimulateSettling ? "simulated" : "nominal"), Conversions());
     }
 
     /// <summary>A delta-sigma design's units are static readings (no sampling transient per unit): the setting says so.</summary>

@@ -58,7 +58,7 @@ internal static class FrontEndCheck
     /// where the firmware model is not made for the design's shape yet or the tolerances leave no room between a fault
     /// and a healthy reading (the table command explains that case in full).
     /// </summary>
-    private static FaultThresholds? FaultThresholdsOrNull(FrontEndDesign design, out string? omitted)
+    internal static FaultThresholds? FaultThresholdsOrNull(FrontEndDesign design, out string? omitted)
     {
         omitted = null;
         try

@@ -63,7 +63,7 @@ internal static class AdcReader
                     : null);
             var deltaSigma = DeltaSigmaReader.Read(s);
             // The acquisition window of a successive-approximation converter does not exist here: its fields are 0 and
-            // every analysis built on them refuses this converter (ConverterSupport); the sample rate is the data rate.
+            // every analysis built on them branches to the delta-sigma one before using them; the sample rate is the data rate.
             return Common(s) with
             {
                 DeltaSigma = deltaSigma,

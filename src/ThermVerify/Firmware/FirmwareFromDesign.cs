@@ -15,7 +15,9 @@ internal static class FirmwareFromDesign
     /// </summary>
     public static FirmwareModel Model(FrontEndDesign design, bool correctForLoading)
     {
-        ConverterSupport.RequireSuccessiveApproximation(design, "the firmware table");
+        // A delta-sigma converter's code is its static transfer, the same AdcTransfer; only its loading differs.
+        if (correctForLoading && design.Adc.Kind == ConverterKind.DeltaSigma)
+            return DeltaSigmaFirmware.Corrected(design, Model(design, correctForLoading: false));
         if (design.Bridge is { } bridge)
             return BridgeModel(design, bridge, correctForLoading);
         if (design.CurrentSource is { } source)
@@ -111,7 +113,7 @@ internal static class FirmwareFromDesign
         return Math.Abs(design.Adc.ReferenceTempcoPerKelvin) * farthest;
     }
 
-    private static double Interpolate((double Unloaded, double Offset)[] points, double volts)
+    internal static double Interpolate((double Unloaded, double Offset)[] points, double volts)
     {
         if (volts <= points[0].Unloaded) return points[0].Offset;
         if (volts >= points[^1].Unloaded) return points[^1].Offset;

@@ -51,8 +51,9 @@ internal static class FrontEndDecks
 
     public static string Write(FrontEndDesign design, DeckAnalysis analysis, DeckOptions? options = null)
     {
-        ConverterSupport.RequireSuccessiveApproximation(design, "the SPICE deck");
         options ??= new DeckOptions();
+        if (design.Adc.Kind == ConverterKind.DeltaSigma && analysis is DeckAnalysis.Dc or DeckAnalysis.Tran)
+            return DeltaSigma.DeltaSigmaDecks.Write(design, analysis, options);
         var model = new ClosedFormModel(design);
         var precharge = PrechargeCases.For(design, model.Adc.ReferenceVolts)[0].Volts;
         var celsius = options.TemperatureCelsius ?? (design.Check.Range.MinCelsius + design.Check.Range.MaxCelsius) / 2;

@@ -29,6 +29,9 @@ public static class MonteCarloJson
                 largestNoiseKelvin = r.LargestNoiseKelvin,
             },
             maximumSelfHeatingKelvin = r.MaximumSelfHeatingKelvin,
+            channelSwitch = r.ChannelSwitch is { } s
+                ? new { celsius = s.Celsius, budgetKelvin = s.BudgetKelvin, nominalKelvin = s.NominalKelvin, worstKelvin = s.WorstKelvin, unitsOver = s.UnitsOver }
+                : null,
             percentiles = r.Percentiles,
             envelope = r.Envelope.Select(e => new
             {

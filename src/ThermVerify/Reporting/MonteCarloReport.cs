@@ -32,7 +32,7 @@ public static class MonteCarloReport
             new("yield", "Yield",
             [
                 design.Adc.Kind == ConverterKind.DeltaSigma
-                    ? I($"{r.Units} units built with seed {r.Seed} (tolerances {distribution}); each verified over the check grid (its own DC sweep, quantisation and the firmware's reading). {Sentence(DeltaSigmaUnit.StaticReadingNote)}")
+                    ? I($"{r.Units} units built with seed {r.Seed} (tolerances {distribution}); each verified over the check grid (its own DC sweep, quantisation and the firmware's reading). {Sentence(r.ChannelSwitch is { } s ? DeltaSigmaUnit.SwitchNote(s) : DeltaSigmaUnit.StaticReadingNote)}")
                     : I($"{r.Units} units built with seed {r.Seed} (tolerances {distribution}); each verified over the check grid as check does (its own DC sweep, its sampling transient rerun at its worst temperature, quantisation and the firmware's reading)."),
                 I($"Yield {yield} (binomial standard error √(y(1 − y)/N)). Largest self-heating in any unit: {r.MaximumSelfHeatingKelvin * 1e3:0.###} mK."),
             ], []),

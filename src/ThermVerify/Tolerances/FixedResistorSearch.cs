@@ -70,7 +70,6 @@ internal static class FixedResistorSearch
 
     public static IReadOnlyList<FixedResistorCandidate> Run(FrontEndDesign design, FixedResistorSearchOptions? options = null)
     {
-        ConverterSupport.RequireSuccessiveApproximation(design, "the fixed-resistor choice");
         options ??= new FixedResistorSearchOptions();
         var (present, withFixed) = FixedOf(design);
         var sensor = design.Sensor.Build();
@@ -186,7 +185,8 @@ internal static class FixedResistorSearch
         // A current source must also hold its current and the amplified signal stay in range (a larger reference resistor
         // raises the source's output): a candidate that breaks either is over, whatever its errors.
         var within = Enumerable.Range(0, errors.Length).All(i => double.IsFinite(errors[i]) && Math.Abs(errors[i]) <= points[i].BudgetKelvin)
-                     && !check.Findings.Any(f => f.Id is ComplianceRule.Id or GainRangeRule.Id or AmplifierRangeRule.CommonModeId or AmplifierRangeRule.OutputId);
+                     && !check.Findings.Any(f => f.Id is ComplianceRule.Id or GainRangeRule.Id or AmplifierRangeRule.CommonModeId or AmplifierRangeRule.OutputId)
+                     && !DeltaSigmaChoice.Fails(check);
         var margin = Enumerable.Range(0, errors.Length).Min(i => double.IsFinite(errors[i]) ? points[i].BudgetKelvin - Math.Abs(errors[i]) : double.NegativeInfinity);
         return new FixedResistorCandidate(ohms, errors[worst], points[worst].Celsius,
             points.Max(p => p.KelvinPerLsb), slope, rise.DefaultIfEmpty(0).Max(), within) { MarginKelvin = margin, OppositeLowOhms = candidate.Bridge?.LowOhms };

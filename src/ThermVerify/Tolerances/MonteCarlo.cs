@@ -46,6 +46,11 @@ internal static class MonteCarlo
             outcomes.Max(o => o.SelfHeatingKelvin.DefaultIfEmpty(0).Max()), [.. outcomes.Select(o => o.WithinBudget)])
         {
             LargestNoiseKelvin = evaluator.NoiseMarginsKelvin.DefaultIfEmpty(0).Max(),
+            ChannelSwitch = nominal.ChannelSwitchKelvin is { } k
+                ? new UnitChannelSwitch(evaluator.SwitchCelsius, evaluator.Design.Check.BudgetAt(evaluator.SwitchCelsius), k,
+                    outcomes.Max(o => o.ChannelSwitchKelvin!.Value),
+                    outcomes.Count(o => o.ChannelSwitchKelvin > evaluator.Design.Check.BudgetAt(evaluator.SwitchCelsius)), n)
+                : null,
         };
     }
 

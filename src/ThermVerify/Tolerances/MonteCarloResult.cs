@@ -43,6 +43,9 @@ public sealed record MonteCarloResult(
     /// </summary>
     public double LargestNoiseKelvin { get; init; }
 
+    /// <summary>A delta-sigma design with each unit's channel switch simulated (DeltaSigmaUnit); null otherwise.</summary>
+    public UnitChannelSwitch? ChannelSwitch { get; init; }
+
     /// <summary>Fraction of units within the budget at every temperature.</summary>
     public double Yield => (double)UnitsWithinBudget / Units;
 

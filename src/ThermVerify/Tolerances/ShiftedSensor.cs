@@ -10,7 +10,24 @@ internal sealed class ShiftedSensor(ISensorModel nominal, RtdToleranceClass tole
 {
     public string Description => FormattableString.Invariant($"{nominal.Description}, {fraction:+0.###;-0.###} of {toleranceClass}");
 
-    public TemperatureRange ValidRange => nominal.ValidRange;
+    /// <summary>
+    /// The true temperatures whose shifted temperature lies in the nominal model's range: t + f·(a + b·|t|) = end, solved
+    /// with |t| taken at the end's sign (a model built on the unit reads its own range ends, which must not step past the
+    /// nominal curve's).
+    /// </summary>
+    public TemperatureRange ValidRange
+    {
+        get
+        {
+            var range = nominal.ValidRange;
+            double Inverse(double end)
+            {
+                var sign = end >= 0 ? 1 : -1;
+                return (end - fraction * toleranceClass.ConstantKelvin) / (1 + fraction * toleranceClass.PerKelvinOfTemperature * sign);
+            }
+            return new TemperatureRange(Inverse(range.MinCelsius), Inverse(range.MaxCelsius));
+        }
+    }
 
     public double ResistanceOhms(double temperatureCelsius) => nominal.ResistanceOhms(Shifted(temperatureCelsius));
 

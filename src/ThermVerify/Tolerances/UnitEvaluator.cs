@@ -47,9 +47,15 @@ internal sealed class UnitEvaluator
             ? Check.DeltaSigma.DeltaSigmaCheck.NoiseOver(design, Model, Temperatures, points)
             : Check.Noise.ReadingNoiseAnalysis.Over(design, Model, Temperatures, points, BuiltInEngine.Instance);
         NoiseMarginsKelvin = [.. noise.Select(r => r.CoveredKelvin + r.RampLagKelvin)];
+        switchCelsius = new Lazy<double>(() => DeltaSigmaUnit.SwitchCelsius(NominalUnitDesign, Model));
     }
 
-    /// <summary>A delta-sigma design: every unit is its static reading, never a sampling transient (<see cref="DeltaSigmaUnit"/>).</summary>
+    private readonly Lazy<double> switchCelsius;
+
+    /// <summary>A delta-sigma design: the temperature each unit's channel switch is simulated at (<see cref="DeltaSigmaUnit.SwitchCelsius"/>).</summary>
+    public double SwitchCelsius => switchCelsius.Value;
+
+    /// <summary>A delta-sigma design: every unit is its static reading, never a sampling transient, with its channel switch beside it (<see cref="DeltaSigmaUnit"/>).</summary>
     public bool IsDeltaSigma { get; }
 
     /// <summary>At each temperature, the nominal design's noise at its coverage plus its lag on the declared ramp.</summary>
@@ -73,15 +79,18 @@ internal sealed class UnitEvaluator
         [.. Cases.Select((c, i) => (c.Volts, nominalOffsets.FirstVolts[i], nominalOffsets.SteadyVolts[i]))];
 
     /// <param name="deviations">One deviation per parameter of <see cref="Set"/>, in its own unit.</param>
-    /// <param name="simulateSettling">Rerun the sampling transient with this unit's parts at its worst temperature (never for a delta-sigma design: its static reading).</param>
+    /// <param name="simulateSettling">Rerun the sampling transient with this unit's parts at its worst temperature; for a delta-sigma design its channel switch at <see cref="SwitchCelsius"/> (DeltaSigmaUnit).</param>
     public UnitOutcome Evaluate(ReadOnlySpan<double> deviations, bool simulateSettling = true)
     {
         var unit = BuiltUnit.Build(Design, Model.Sensor, Set, deviations);
         var n = Temperatures.Length;
         var dc = DcCorners.Run(unit.Design, Cases, Temperatures);
+        double? channelSwitch = null;
         if (IsDeltaSigma)
         {
             dc = DeltaSigmaUnit.WithInputLoad(dc, unit.Design, Temperatures);
+            // No acquisition window: the unit's own settling is its channel switch through the digital filter.
+            if (simulateSettling) channelSwitch = DeltaSigmaUnit.SwitchKelvin(unit.Design, SwitchCelsius, Model);
             simulateSettling = false;
         }
         var inputs = ErrorModel.Inputs(unit.Design, unit.Sensor, Temperatures, dc, nominalOffsets.FirstVolts, nominalOffsets.SteadyVolts, unit.Converter);
@@ -111,6 +120,11 @@ internal sealed class UnitEvaluator
         var within = true;
         for (var i = 0; i < n; i++)
             within &= double.IsFinite(error[i]) && Math.Abs(error[i]) + NoiseMarginsKelvin[i] <= Budgets[i];
-        return new UnitOutcome(error, unquantised, rise, worst, within, simulatedAt);
+        if (channelSwitch is { } k)
+        {
+            within &= k <= Design.Check.BudgetAt(SwitchCelsius);
+            simulatedAt = SwitchCelsius;
+        }
+        return new UnitOutcome(error, unquantised, rise, worst, within, simulatedAt) { ChannelSwitchKelvin = channelSwitch };
     }
 }

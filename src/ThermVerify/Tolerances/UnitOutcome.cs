@@ -14,4 +14,7 @@ internal sealed record UnitOutcome(
     double? SettlingSimulatedCelsius)
 {
     public double WorstErrorKelvin => ErrorKelvin[WorstIndex];
+
+    /// <summary>A delta-sigma unit's first reading used after a channel switch, in K at <see cref="SettlingSimulatedCelsius"/>; null when not simulated.</summary>
+    public double? ChannelSwitchKelvin { get; init; }
 }

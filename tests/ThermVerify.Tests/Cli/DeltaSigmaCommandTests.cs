@@ -8,15 +8,20 @@ public class DeltaSigmaCommandTests
     private static string Example(string name) =>
         Path.Combine(AppContext.BaseDirectory, "..", "..", "..", "..", "..", "netlists", name);
 
-    [Theory]
-    [InlineData("table")]
-    public void An_analysis_built_on_an_acquisition_window_refuses_a_delta_sigma_design_with_exit_code_2(string command)
+    [Fact]
+    public void Table_deck_and_choose_fixed_take_a_delta_sigma_design()
     {
-        var run = CliRunner.Run(command, Example("kiln-bank-pt100-deltasigma.toml"));
-        Assert.Equal(ExitCodes.BadInput, run.ExitCode);
-        Assert.Contains("delta-sigma", run.Error);
-        Assert.Contains("refused rather than treated as the other kind", run.Error);
-        Assert.DoesNotContain("internal error", run.Error);
+        // They refused it before (exit code 2): the table inverts the converter's static transfer, the deck writes the
+        // channel-switch transient, choose-fixed checks each candidate with the delta-sigma check.
+        var table = CliRunner.Run("table", Example("kiln-bank-pt100-deltasigma.toml"), "--bound", "0.01 K");
+        Assert.Equal(ExitCodes.Success, table.ExitCode);
+        Assert.Contains("fault thresholds: code <", table.Output);
+        var deck = CliRunner.Run("deck", Example("kiln-bank-pt100-deltasigma.toml"), "--analysis", "tran", "--conversions", "2");
+        Assert.Equal(ExitCodes.Success, deck.ExitCode);
+        Assert.Contains(".meas tran last_sample_2 find v(ds_in)", deck.Output);
+        var buffered = CliRunner.Run("deck", Example("stability-chamber-pt100-pga.toml"), "--analysis", "tran");
+        Assert.Equal(ExitCodes.BadInput, buffered.ExitCode);
+        Assert.Contains("single pole", buffered.Error);
     }
 
     [Theory]
@@ -32,7 +37,9 @@ public class DeltaSigmaCommandTests
             var run = CliRunner.Run([command, Example("kiln-bank-pt100-deltasigma.toml"), .. more, "--report", Path.Combine(folder, "report")]);
             Assert.True(run.ExitCode is ExitCodes.Success or ExitCodes.CheckFailed, run.Error);
             Assert.Contains("delta-sigma: each unit is read through the converter's static transfer", run.Output);
-            Assert.Contains("unit-settling static", run.Output);
+            // worstcase reads its corners statically; montecarlo simulates each unit's channel switch as well.
+            Assert.Contains(command == "worstcase" ? "unit-settling static" : "unit-settling channel-switch", run.Output);
+            if (command == "montecarlo") Assert.Contains("its first reading used after a channel switch is simulated with its own parts", run.Output);
             Assert.DoesNotContain("refused rather than treated as the other kind", run.Error);
             Assert.Contains("Delta-sigma: each unit is read through the converter's static transfer", File.ReadAllText(Path.Combine(folder, "report", "report.md")));
         }

@@ -129,25 +129,4 @@ public class DeltaSigmaKeysTests
         var unknown = Assert.Throws<DesignException>(() => Parse(DeltaSigmaDesigns.WithNoiseTable(DeltaSigmaDesigns.TwoRows.Replace("gain = 4\nnoise", "gian = 4\nnoise"))));
         Assert.Contains("Did you mean \"gain\"", unknown.Message);
     }
-
-    [Fact]
-    public void Analyses_that_model_only_a_successive_approximation_converter_refuse_a_delta_sigma_one()
-    {
-        // Refused with the analysis named, never treated as the other kind; the command line maps this to exit code 2.
-        // (worstcase and montecarlo take a delta-sigma design: tests/ThermVerify.Tests/Tolerances/DeltaSigmaToleranceTests.cs.)
-        var design = DeltaSigmaDesigns.Make();
-        Action[] analyses =
-        [
-            () => FixedResistorSearch.Run(design),
-            () => FirmwareFromDesign.Model(design, correctForLoading: false),
-            () => FrontEndDecks.Write(design, DeckAnalysis.Dc),
-        ];
-        foreach (var run in analyses)
-        {
-            var e = Assert.Throws<ConverterUnsupportedException>(run);
-            Assert.Contains("delta-sigma", e.Message);
-            Assert.Contains("refused rather than treated as the other kind", e.Message);
-            Assert.Equal(ThermVerify.Api.FailureKind.BadInput, ThermVerify.Api.Failure.KindOf(e));
-        }
-    }
 }

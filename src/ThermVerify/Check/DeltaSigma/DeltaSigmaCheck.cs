@@ -45,7 +45,9 @@ internal static class DeltaSigmaCheck
             new SamplingWaveform(worst.Celsius, null, 0, []))
         {
             PrechargeCases = [],
-            FaultsOmitted = "not computed yet for a delta-sigma converter",
+            // The converter's static transfer is the firmware's code (Firmware/DeltaSigmaFirmware): the thresholds as for any converter.
+            Faults = FrontEndCheck.FaultThresholdsOrNull(design, out var omitted),
+            FaultsOmitted = omitted,
             Noise = DeltaSigmaNoise.Summary(design, model, reportNoise, filter),
             DeltaSigma = report,
         };

@@ -50,7 +50,7 @@ internal static class ChannelSettling
     }
 
     /// <summary>The readings to follow: the filter's settling, the analog transient's 20 time constants and the discarded ones, with two more.</summary>
-    private static int ReadingsToFollow(FrontEndDesign design, DeltaSigmaSpec d, SincFilter filter, InputLoad load)
+    internal static int ReadingsToFollow(FrontEndDesign design, DeltaSigmaSpec d, SincFilter filter, InputLoad load)
     {
         var tau = AnalogTimeConstant(design, d, load);
         var analog = (int)Math.Ceiling(20 * tau * filter.DataRateHertz);
@@ -102,12 +102,7 @@ internal static class ChannelSettling
         double? otherVolts, double lsb, double leadSeconds)
     {
         var period = 1 / d.ModulatorRateHertz;
-        var circuit = Delayed(InputLoading.Switched(design, celsius), period + leadSeconds);
-        if (otherVolts is { } v)
-            circuit = circuit
-                .Add(new VoltageSource(HoldSource, HoldNode, Circuit.Ground, new DcWaveform(v)))
-                .Add(new TimedSwitch(HoldSwitch, HoldNode, FrontEndCircuit.PinNode(design), 1e-3, FrontEndCircuit.SwitchOffOhms,
-                    new PeriodicSchedule(0, period, period / 2, 1)));
+        var circuit = SwitchCircuit(design, celsius, otherVolts, leadSeconds);
         var stop = period * (count + 2) + leadSeconds;
         var run = engine.StartTransient(circuit, new TransientOptions { StopTimeSeconds = stop, MaxStepSeconds = period / 20 });
         // Exact propagation reads each sample in a few matrix products; a time-stepped run is bounded like any sampling run.
@@ -117,7 +112,7 @@ internal static class ChannelSettling
         var steadyRun = 0;
         for (long n = 0; n < count; n++)
         {
-            var sample = run.VoltageAt(leadSeconds + period * (n + 1.5), InputLoading.InputNode);
+            var sample = run.VoltageAt(SampleSeconds(d, n, leadSeconds), InputLoading.InputNode);
             values.Add(sample);
             // Once a few hundred samples in a row sit on the steady state, the rest are the steady state.
             steadyRun = Math.Abs(sample - load.SwitchedVolts) <= SteadyLsb * lsb ? steadyRun + 1 : 0;
@@ -125,6 +120,27 @@ internal static class ChannelSettling
         }
         return [.. values];
     }
+
+    /// <summary>
+    /// The circuit of a switch: the design's DC circuit at <paramref name="celsius"/> with the unbuffered input joined at
+    /// <paramref name="leadSeconds"/> + T; with <paramref name="otherVolts"/> (a shared filter) the pin held at the other
+    /// channel's voltage through 1 mΩ until T/2. Modulator sample n is v(<see cref="InputLoading.InputNode"/>) at
+    /// <see cref="SampleSeconds"/>(n), as the input capacitor leaves the pin. The `deck` command writes this same circuit.
+    /// </summary>
+    public static Circuit SwitchCircuit(FrontEndDesign design, double celsius, double? otherVolts, double leadSeconds)
+    {
+        var period = 1 / design.Adc.DeltaSigma!.ModulatorRateHertz;
+        var circuit = Delayed(InputLoading.Switched(design, celsius), period + leadSeconds);
+        return otherVolts is { } v
+            ? circuit
+                .Add(new VoltageSource(HoldSource, HoldNode, Circuit.Ground, new DcWaveform(v)))
+                .Add(new TimedSwitch(HoldSwitch, HoldNode, FrontEndCircuit.PinNode(design), 1e-3, FrontEndCircuit.SwitchOffOhms,
+                    new PeriodicSchedule(0, period, period / 2, 1)))
+            : circuit;
+    }
+
+    /// <summary>When modulator sample n (0: the first charging phase) leaves the pin: lead + (n + 1.5)·T.</summary>
+    public static double SampleSeconds(DeltaSigmaSpec d, long n, double leadSeconds = 0) => leadSeconds + (n + 1.5) / d.ModulatorRateHertz;
 
     /// <summary>How long the excitation is on before the converter starts (the divider's switch_on_lead); 0 when not switched.</summary>
     public static double SwitchOnLeadSeconds(FrontEndDesign design) => design.Divider?.SwitchOnLeadSeconds ?? 0;

@@ -55,11 +55,13 @@ internal static class InputLoading
     }
 
     /// <summary>The design's DC circuit with the input's average load: R_eq to ground (unbuffered) or the buffer's input current.</summary>
-    public static Circuit Average(FrontEndDesign design, double celsius)
+    public static Circuit Average(FrontEndDesign design, double celsius) => WithAverageLoad(design, FrontEndCircuit.Dc(design, null, celsius));
+
+    /// <summary>A DC circuit of the design (at one temperature or swept) with the input's average load at the pin.</summary>
+    public static Circuit WithAverageLoad(FrontEndDesign design, Circuit dc)
     {
         var d = Spec(design);
         var pin = FrontEndCircuit.PinNode(design);
-        var dc = FrontEndCircuit.Dc(design, null, celsius);
         return d.InputBuffered
             ? dc.Add(new CurrentSource(BufferCurrent, pin, Circuit.Ground, new DcWaveform(d.InputCurrentAmperes)))
             : dc.Add(new Resistor(AverageResistor, pin, Circuit.Ground, EquivalentOhms(d)));

@@ -16,7 +16,7 @@ public static class MonteCarloText
         text.AppendLine(Invariant($"{design.Name}: {r.Units} units, seed {r.Seed}, tolerances {distribution}"));
         ProvenanceText.Append(text, provenance);
         text.AppendLine(Invariant($"yield: {100 * r.Yield:0.00} % within budget ({r.UnitsWithinBudget} of {r.Units}; ±{100 * r.YieldStandardError:0.00} % standard error)"));
-        if (design.Adc.Kind == ConverterKind.DeltaSigma) text.AppendLine(DeltaSigmaUnit.StaticReadingNote);
+        if (design.Adc.Kind == ConverterKind.DeltaSigma) text.AppendLine(r.ChannelSwitch is { } s ? DeltaSigmaUnit.SwitchNote(s) : DeltaSigmaUnit.StaticReadingNote);
         text.AppendLine(Invariant($"noise: each unit's error leaves room for the design's noise at its coverage and ramp lag, up to ±{r.LargestNoiseKelvin:0.###} K (as check counts it)"));
         text.AppendLine(Invariant($"largest self-heating in any unit: {r.MaximumSelfHeatingKelvin * 1e3:0.###} mK"));
         text.AppendLine();
