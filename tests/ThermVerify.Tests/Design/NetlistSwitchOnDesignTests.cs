@@ -59,3 +59,43 @@ public sealed class NetlistSwitchOnDesignTests : IDisposable
         Assert.Contains(words, e.Message);
     }
 }
+
+/// <summary>negative_pin: the node a differential input's negative side reads, read against the netlist and [adc] input.</summary>
+public sealed class NetlistNegativePinDesignTests : IDisposable
+{
+    private readonly DirectoryInfo folder = Directory.CreateTempSubdirectory("tv-netlist-negative-pin-");
+
+    public void Dispose() => folder.Delete(recursive: true);
+
+    private FrontEndDesign Load(string pinLine, string input)
+    {
+        File.WriteAllText(Path.Combine(folder.FullName, "front.cir"), NetlistDesignTests.Netlist.Replace("Cs pin 0 100n", "Cs pin 0 100n\nRa exc ref 10k\nRb ref 0 10k"));
+        var lines = (string[])NetlistDesignTests.Lines.Clone();
+        lines[8] = pinLine;
+        lines[17] = "reference = \"ratiometric\"" + input;
+        var path = Path.Combine(folder.FullName, "design.toml");
+        File.WriteAllText(path, string.Join("\n", lines) + "\n");
+        return DesignLoader.Load(path);
+    }
+
+    [Fact]
+    public void The_negative_pin_is_read_and_written_back()
+    {
+        var design = Load("pin = \"pin\"\nnegative_pin = \"REF\"", "\ninput = \"differential\"");
+        Assert.Equal("ref", design.Netlist!.NegativePinNode);
+        Assert.Contains("negative_pin = \"ref\"", DesignWriter.ToToml(design));
+        Assert.Equal(design.Netlist, Load("pin = \"pin\"\nnegative_pin = \"ref\"", "\ninput = \"differential\"").Netlist);
+    }
+
+    [Theory]
+    [InlineData("pin = \"pin\"\nnegative_pin = \"rfe\"", "\ninput = \"differential\"", 10, "Did you mean ref")]
+    [InlineData("pin = \"pin\"\nnegative_pin = \"pin\"", "\ninput = \"differential\"", 10, "the same node as pin")]
+    [InlineData("pin = \"pin\"\nnegative_pin = \"ref\"", "", 10, "single-ended")]
+    [InlineData("pin = \"pin\"", "\ninput = \"pseudo-differential\"", 9, "needs the node its negative input reads")]
+    public void A_negative_pin_that_does_not_fit_is_refused_at_its_key(string pinLine, string input, int line, string words)
+    {
+        var e = Assert.Throws<DesignException>(() => Load(pinLine, input));
+        Assert.Equal(line, e.Line);
+        Assert.Contains(words, e.Message);
+    }
+}
