@@ -41,11 +41,12 @@ internal static class FindingRules
                  "cannot refill it (average current of a capacitor switched at f_s: R_eq = 1/(f_s·C_sh), Johns & Martin)",
             p => p.Estimates.AverageSamplingVolts);
         Add("settling", null, p => p.Simulated.SettlingVolts, p => p.Contributions.SettlingKelvin,
-            p => (design.Filter.ReservoirCapacitorFarads > 0
+            p => SwitchOnWords.Applies(design, p) ? SwitchOnWords.Cause(design, p) : (FrontEndCircuit.ReservoirFarads(design) > 0
                     ? "the sampling capacitor shares its charge with the reservoir (ΔV·C_sh/(C_sh + C_ext), from the "
                     : "the acquisition is too short for the source resistance to charge the sampling capacitor (ΔV·e^(−t/τ), from the ")
                  + (p.FirstConversion ? "settled pin" : "pin with the average sampling current") + I($"; precharge {p.Precharge.Name}, {p.SampleKind} conversion)"),
-            p => p.FirstConversion ? p.Estimates.FirstConversionVolts : p.Estimates.SteadySettlingVolts);
+            p => SwitchOnWords.Applies(design, p) ? SwitchOnWords.EstimateVolts(design, p)
+                : p.FirstConversion ? p.Estimates.FirstConversionVolts : p.Estimates.SteadySettlingVolts);
         if (design.Amplifier is not null)
             Add("amplifier-static", "the amplifier's offset, drift, gain error, common mode and bias currents shift the pin by more than ½ LSB",
                 p => p.Simulated.BufferVolts, p => p.Contributions.BufferKelvin, p => AmplifierWords.Cause(design, p), p => p.Estimates.BufferVolts);
@@ -68,7 +69,7 @@ internal static class FindingRules
             var w = span.Worst;
             var size = volts(w);
             findings.Add(new Finding(id, span.Severity,
-                title ?? (w.FirstConversion ? "the first conversion after a precharge does not settle" : "the sampled value does not settle"),
+                title ?? (SwitchOnWords.Applies(design, w) ? SwitchOnWords.Title : w.FirstConversion ? "the first conversion after a precharge does not settle" : "the sampled value does not settle"),
                 span.From, span.To, w.Celsius, size, size / lsb, kelvin(w), cause(w), estimate(w), simulated ? size : null, []));
         }
     }

@@ -11,6 +11,8 @@ internal static partial class DesignWriter
         w.Text("file", n.File);
         w.Names("sensor", n.SensorElements);
         w.Text("pin", n.PinNode);
+        if (n.NegativePinNode is { } negative)
+            w.Text("negative_pin", negative);
         if (n.ReferenceNode is { } reference)
             w.Text("reference", reference);
         if (n.Excitation.Count > 0)

@@ -23,9 +23,9 @@ internal static class ExcitationRules
 
     public static void Check(TomlSection root, FrontEndDesign design)
     {
-        if (design.Adc.Input != AdcInput.SingleEnded && design.Bridge is null)
+        if (design.Adc.Input != AdcInput.SingleEnded && design.Bridge is null && design.Netlist is null)
             throw root.Section("adc")!.ErrorAtValue("input", "a differential input reads a bridge's two outputs, and this design has no bridge",
-                "Write input = \"single-ended\" (or remove it), or describe the front end as a [bridge].");
+                "Write input = \"single-ended\" (or remove it), or describe the front end as a [bridge] (or a [netlist] with negative_pin).");
         if (design.Netlist is not null)
         {
             NetlistRules.Check(root, design);

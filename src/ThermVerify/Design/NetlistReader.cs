@@ -7,7 +7,7 @@ namespace ThermVerify.Design;
 /// <summary>Reads [netlist]: the netlist file (read strictly here, at load), and the names the check needs from it.</summary>
 internal static class NetlistReader
 {
-    private static readonly string[] Keys = ["file", "sensor", "pin", "reference", "excitation", "fixed", "switch_on_lead", "reading_interval", "part"];
+    private static readonly string[] Keys = ["file", "sensor", "pin", "negative_pin", "reference", "excitation", "fixed", "switch_on_lead", "reading_interval", "part"];
     private static readonly string[] PartKeys = ["name", "tolerance", "tempco"];
 
     /// <summary>
@@ -15,8 +15,9 @@ internal static class NetlistReader
     /// leakage and capacitance; FrontEnd/FrontEndNodes): a netlist may not use them, so that nothing it holds can be
     /// confused with the converter's input.
     /// </summary>
-    internal static readonly string[] ReservedNodes = ["hold", "pre"];
-    internal static readonly string[] ReservedElements = ["Vprecharge", "Rsampling", "Csample", "Ssample", "Sprecharge", "Cpin", "Ileak", "Rinput", "Vac", "Epga", "Ipga", "Iinject"];
+    internal static readonly string[] ReservedNodes = ["hold", "pre", "holdn", "pren", "holdd"];
+    internal static readonly string[] ReservedElements = ["Vprecharge", "Rsampling", "Csample", "Ssample", "Sprecharge", "Cpin", "Ileak", "Rinput", "Vac", "Epga", "Ipga", "Iinject",
+        "Csamplen", "Ssamplen", "Sprechargen", "Vprechargen", "Cpinn", "Ileakn"];
 
     public static NetlistSpec Read(TomlSection s)
     {
@@ -37,6 +38,9 @@ internal static class NetlistReader
                     "The sensor is the resistor whose value the sensor model sets; name an R element.");
         }
         var pin = NodeOf(s, "pin", parsed, required: true)!;
+        var negativePin = NodeOf(s, "negative_pin", parsed, required: false);
+        if (negativePin == pin)
+            throw s.ErrorAtValue("negative_pin", "the negative input is the same node as pin", "Name the node the converter's negative input reads, another than pin.");
         var reference = NodeOf(s, "reference", parsed, required: false);
         var excitation = s.Strings("excitation") ?? [];
         foreach (var name in excitation)
@@ -53,6 +57,7 @@ internal static class NetlistReader
             FullPath = fullPath,
             SensorElements = [.. sensors.Select(n => parsed.Find(n)!.Name)],
             PinNode = pin,
+            NegativePinNode = negativePin,
             ReferenceNode = reference,
             ReferenceVolts = reference is null ? null : ReferenceVolts(s, reference, parsed),
             Excitation = [.. excitation.Select(n => parsed.Find(n)!.Name)],

@@ -25,6 +25,12 @@ internal static class NetlistRules
         if (!design.Adc.IsRatiometric && netlist.ReferenceNode is not null)
             throw section.ErrorAtValue("reference", "a reference node with a converter whose reference is a fixed voltage",
                 "Remove reference here, or write reference = \"ratiometric\" in [adc].");
+        if (design.Adc.Input != AdcInput.SingleEnded && netlist.NegativePinNode is null)
+            throw section.ErrorAtKey("pin", $"a {(design.Adc.Input == AdcInput.Differential ? "differential" : "pseudo-differential")} input with a netlist needs the node its negative input reads",
+                "Add negative_pin = \"NODE\" to [netlist] (the node the converter's negative input reads), or write input = \"single-ended\" in [adc].");
+        if (design.Adc.Input == AdcInput.SingleEnded && netlist.NegativePinNode is not null)
+            throw section.ErrorAtValue("negative_pin", "a negative input node with a single-ended converter",
+                "Write input = \"differential\" (or \"pseudo-differential\") in [adc], or remove negative_pin.");
         if (netlist.SwitchOnLeadSeconds is { } lead)
             foreach (var pulsed in netlist.Parsed.Elements.Where(e => e.Pulse is not null))
             {

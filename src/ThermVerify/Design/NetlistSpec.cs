@@ -25,6 +25,11 @@ public sealed record NetlistSpec
     public required IReadOnlyList<string> SensorElements { get; init; }
     /// <summary>The converter's input node (lower case, as the netlist's nodes are read).</summary>
     public required string PinNode { get; init; }
+    /// <summary>
+    /// Our key `negative_pin`: the node the converter's negative input reads (a differential or pseudo-differential
+    /// input, [adc] input), lower case; null for a single-ended input (against ground).
+    /// </summary>
+    public string? NegativePinNode { get; init; }
     /// <summary>The node whose voltage is the converter's reference (a ratiometric converter); null with a fixed reference.</summary>
     public string? ReferenceNode { get; init; }
     /// <summary>The sources that excite the sensor (V or I elements).</summary>
@@ -58,7 +63,7 @@ public sealed record NetlistSpec
 
     /// <summary>Equal when they name the same file, the same elements and nodes and the same parts (the lists by their items).</summary>
     public bool Equals(NetlistSpec? other) =>
-        other is not null && File == other.File && FullPath == other.FullPath && PinNode == other.PinNode && ReferenceNode == other.ReferenceNode
+        other is not null && File == other.File && FullPath == other.FullPath && PinNode == other.PinNode && NegativePinNode == other.NegativePinNode && ReferenceNode == other.ReferenceNode
         && Nullable.Equals(ReferenceVolts, other.ReferenceVolts) && SensorElements.SequenceEqual(other.SensorElements)
         && Excitation.SequenceEqual(other.Excitation) && Parts.SequenceEqual(other.Parts) && FixedElement == other.FixedElement
         && Nullable.Equals(SwitchOnLeadSeconds, other.SwitchOnLeadSeconds) && Nullable.Equals(ReadingIntervalSeconds, other.ReadingIntervalSeconds)
@@ -96,6 +101,12 @@ public sealed record NetlistSpec
         };
         return this with { Parsed = parsed, ReferenceVolts = ReferenceNode is { } node ? NetlistReader.ReferenceSourceVolts(parsed, node) : null };
     }
+
+    /// <summary>The netlist with one [[netlist.part]] entry changed (a remedy's tempco).</summary>
+    internal NetlistSpec WithPart(string element, Func<NetlistPartSpec, NetlistPartSpec> change) => this with
+    {
+        Parts = [.. Parts.Select(p => p.Name.Equals(element, StringComparison.OrdinalIgnoreCase) ? change(p) : p)],
+    };
 
     /// <summary>The part entry of an element, if the design gives one.</summary>
     public NetlistPartSpec? Part(string element) =>

@@ -43,7 +43,7 @@ internal static class NetlistFaultAnalysis
             foreach (var sign in new[] { -1, 1 })
             {
                 var lsb = reference * (1 + sign * referenceSpread) / (1 << bits);
-                int Code(double volts) => model.Adc.Quantise(Math.Clamp(volts / lsb, -1, model.Adc.MaxCode + 1.0));
+                int Code(double volts) => model.Adc.Quantise(Math.Clamp(volts / lsb, model.Adc.MinCode - 1.0, model.Adc.MaxCode + 1.0));
                 shorted.Add(Code(transfer.OutputVolts(0)));
                 open.Add(Code(c != 0 ? a / c : a * double.PositiveInfinity));
                 foreach (var r in sensorEnds)
@@ -87,11 +87,13 @@ internal static class NetlistFaultAnalysis
     /// <summary>The fixed resistor's open and short, as its resistance scaled far up or down (the pin's voltage is bilinear in it, so this is its limit to a few parts in 10⁹).</summary>
     private const double OpenFactor = 1e9, ShortFactor = 1e-9;
 
-    /// <summary>The ideal netlist's pin voltage with the fixed resistor scaled by <paramref name="factor"/> and the sensor at <paramref name="sensorOhms"/>.</summary>
+    /// <summary>The ideal netlist's pin voltage (a differential input's two pins' difference) with the fixed resistor scaled by <paramref name="factor"/> and the sensor at <paramref name="sensorOhms"/>.</summary>
     private static double FixedFaultVolts(NetlistSpec netlist, string fixedName, double sensorOhms, double factor)
     {
         var circuit = NetlistCircuit.Ideal(netlist, sensorOhms);
         var resistor = (Resistor)circuit[fixedName];
-        return OperatingPoint.Solve(circuit.Replace(resistor with { ResistanceOhms = resistor.ResistanceOhms * factor })).Voltage(netlist.PinNode);
+        var solved = OperatingPoint.Solve(circuit.Replace(resistor with { ResistanceOhms = resistor.ResistanceOhms * factor }));
+        // A differential input converts the difference of its two pins.
+        return solved.Voltage(netlist.PinNode) - (netlist.NegativePinNode is { } negative ? solved.Voltage(negative) : 0);
     }
 }

@@ -109,13 +109,19 @@ internal sealed record DcLevels(
         var sensor = netlist.Parsed.Find(netlist.SensorElements[0])!;
         // Ground is no vector of a sweep (ngspice has none for it): a sensor terminal on it reads 0.
         var nodes = sensor.Nodes.Where(n => n != Circuit.Ground).Append(pinNode).ToList();
+        // A differential input: its negative node too, from the same sweep (the pin's stays last).
+        if (netlist.NegativePinNode is { } negativeNode)
+            nodes.Insert(0, negativeNode);
         var swept = Sweep(engine, design, null, temperatures, nodes);
         double[] At(string node) => node == Circuit.Ground ? new double[temperatures.Count] : swept[nodes.IndexOf(node)];
         var v = new[] { At(sensor.Nodes[0]), At(sensor.Nodes[1]), swept[^1] };
         var average = cases.Select(c => UsesAverageSamplingCurrent(design, c.Volts)
             ? Sweep(engine, design, c.Volts, temperatures, [pinNode])[0]
             : v[2]).ToArray();
-        return new DcLevels([.. v[0].Select((x, i) => x - v[1][i])], null, v[2], average);
+        return new DcLevels([.. v[0].Select((x, i) => x - v[1][i])], null, v[2], average)
+        {
+            NegativeInputVolts = netlist.NegativePinNode is { } n ? At(n) : null,
+        };
     }
 
     /// <summary>

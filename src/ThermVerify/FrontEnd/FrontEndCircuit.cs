@@ -73,7 +73,7 @@ internal static class FrontEndCircuit
             // The negative input samples the bridge's second output at the same instants, onto its own capacitor
             // through its own switch, precharged as the positive input is: the converter converts v(hold) − v(holdn).
             elements.Add(new Capacitor("Csamplen", HoldNegative, Circuit.Ground, negative.SamplingCapacitanceFarads));
-            elements.Add(new TimedSwitch(NegativeSamplingSwitch, BridgeNegative, HoldNegative, Math.Max(negative.SwitchResistanceOhms, MinimumSwitchOhms), SwitchOffOhms,
+            elements.Add(new TimedSwitch(NegativeSamplingSwitch, NegativeNode(design), HoldNegative, Math.Max(negative.SwitchResistanceOhms, MinimumSwitchOhms), SwitchOffOhms,
                 new PeriodicSchedule(period - adc.AcquisitionTimeSeconds, period, adc.AcquisitionTimeSeconds, conversions)));
             // Its own fixed level where the design gives one, else the positive input's precharge.
             var negativeLevel = negative.PrechargeVolts is null ? prechargeVolts is null ? null : Precharge : NegativePrecharge;
@@ -181,11 +181,11 @@ internal static class FrontEndCircuit
         {
             // The negative input's own pin: its capacitance and leakage at the bridge's second output.
             if (negativeInput.PinCapacitanceFarads > 0)
-                elements.Add(new Capacitor("Cpinn", BridgeNegative, Circuit.Ground, negativeInput.PinCapacitanceFarads));
+                elements.Add(new Capacitor("Cpinn", NegativeNode(design), Circuit.Ground, negativeInput.PinCapacitanceFarads));
             if (negativeInput.PinLeakageAmperes != 0)
                 elements.Add(board is { } b
-                    ? new CurrentSource("Ileakn", BridgeNegative, Circuit.Ground, new DcWaveform(design.Adc.NegativeLeakageAmperesAt(b)))
-                    : new LeakageCurrentSource("Ileakn", BridgeNegative, Circuit.Ground, design.Adc.NegativeLeakageAmperesAt(25), design.Adc.LeakageDoublingKelvin));
+                    ? new CurrentSource("Ileakn", NegativeNode(design), Circuit.Ground, new DcWaveform(design.Adc.NegativeLeakageAmperesAt(b)))
+                    : new LeakageCurrentSource("Ileakn", NegativeNode(design), Circuit.Ground, design.Adc.NegativeLeakageAmperesAt(25), design.Adc.LeakageDoublingKelvin));
         }
         // The gain stage's input current, positive into its input (pulling the pin down, as the pin leakage).
         if (design.Adc.GainStage is { InputCurrentAmperes: not 0 } stage)
@@ -216,6 +216,9 @@ internal static class FrontEndCircuit
     public static string AmplifierNode(FrontEndDesign design) =>
         design.Amplifier is not null ? AmplifierOutput
         : design.Buffer is null ? Divider : design.Buffer.IsolationResistorOhms > 0 ? BufferStage.AmplifierOutput : BufferOutput;
+
+    /// <summary>The node a differential input's negative side reads: a netlist's negative_pin, else the bridge's second output.</summary>
+    public static string NegativeNode(FrontEndDesign design) => design.Netlist?.NegativePinNode ?? BridgeNegative;
 
     /// <summary>The ADC pin: its own node behind a series resistor, else the drive node itself.</summary>
     public static string PinNode(FrontEndDesign design) =>

@@ -23,6 +23,8 @@ internal sealed class NetlistTransfer
 
     private readonly Bilinear volts;
     private readonly Bilinear ohms;
+    /// <summary>The positive pin alone (the same as <see cref="volts"/> for a single-ended input), for the common mode.</summary>
+    private readonly Bilinear pinVolts;
 
     private readonly NetlistSpec netlist;
 
@@ -36,18 +38,26 @@ internal sealed class NetlistTransfer
         var probe = NetlistCircuit.Ideal(netlist, nominal)
             .Add(new Circuits.CurrentSource("Iprobe", Circuits.Circuit.Ground, netlist.PinNode, new Circuits.DcWaveform(TestAmperes)));
         var probed = DcSweep.Element(probe, sensor, at);
-        var v = open.Voltage(netlist.PinNode);
+        var pin = open.Voltage(netlist.PinNode);
+        // A differential input converts v(pin) − v(negative_pin): both share the determinant, so the difference is
+        // bilinear in R as each node voltage is.
+        var v = netlist.NegativePinNode is { } negative
+            ? [.. pin.Select((x, i) => x - open.Voltage(negative)[i])]
+            : pin;
         var p = probed.Voltage(netlist.PinNode);
         // A pin the sensor does not move (a sensor on another branch, a pin tied to a source) reads no temperature.
         if (!(Math.Abs(v[2] - v[0]) > 1e-9 * Math.Max(v.Max(Math.Abs), 1e-12)))
         {
             var card = netlist.Parsed.Find(sensor)!.At;
             throw new DesignException(card.FileName, card.Line, card.Column, "netlist.sensor",
-                $"the voltage at node {netlist.PinNode} does not change with the sensor {sensor} (in the ideal netlist: nominal parts, no converter, diodes open)",
+                $"the voltage at node {netlist.PinNode}{(netlist.NegativePinNode is { } n ? $" against node {n}" : "")} does not change with the sensor {sensor} (in the ideal netlist: nominal parts, no converter, diodes open)",
                 "Name the node the sensor's signal reaches as pin, or check the netlist's connections.");
         }
         volts = Bilinear.Through(at, v, "pin voltage");
-        ohms = Bilinear.Through(at, [.. p.Select((x, i) => (x - v[i]) / TestAmperes)], "resistance at the pin");
+        pinVolts = netlist.NegativePinNode is null ? volts
+            : Math.Abs(pin[2] - pin[0]) > 1e-12 * Math.Max(pin.Max(Math.Abs), 1e-12) ? Bilinear.Through(at, pin, "positive pin's voltage")
+            : new Bilinear(0, pin[1], 0);
+        ohms = Bilinear.Through(at, [.. p.Select((x, i) => (x - pin[i]) / TestAmperes)], "resistance at the pin");
     }
 
     public static NetlistTransfer Of(NetlistSpec netlist) => Cache.GetValue(netlist, n => new NetlistTransfer(n));
@@ -61,6 +71,13 @@ internal sealed class NetlistTransfer
         var r = volts.Inverse(pinVolts);
         return r > 0 && double.IsFinite(r) ? r : double.NaN;
     }
+
+    /// <summary>
+    /// The ideal common mode of a differential input, (v(pin) + v(negative_pin))/2 = v(pin) − v_d/2; the pin's voltage
+    /// for a single-ended input.
+    /// </summary>
+    public double CommonModeVolts(double sensorOhms) =>
+        netlist.NegativePinNode is null ? pinVolts.At(sensorOhms) : pinVolts.At(sensorOhms) - volts.At(sensorOhms) / 2;
 
     /// <summary>dv/dR = (a − b·c)/(c·R + 1)².</summary>
     public double SlopeVoltsPerOhm(double sensorOhms) => volts.Slope(sensorOhms);
@@ -82,7 +99,8 @@ internal sealed class NetlistTransfer
             var r = (Circuits.Resistor)circuit[part.Name];
             circuit = circuit.Replace(r with { ResistanceOhms = r.ResistanceOhms * (1 + part.TempcoPerKelvin * (partsCelsius - Circuits.Spice.SpiceDeckWriter.NominalCelsius)) });
         }
-        return OperatingPoint.Solve(circuit).Voltage(netlist.PinNode) - OutputVolts(sensorOhms);
+        var solved = OperatingPoint.Solve(circuit);
+        return solved.Voltage(netlist.PinNode) - (netlist.NegativePinNode is { } negative ? solved.Voltage(negative) : 0) - OutputVolts(sensorOhms);
     }
 
     /// <summary>The coefficients (a, b, c) of the pin voltage, for docs and tests.</summary>

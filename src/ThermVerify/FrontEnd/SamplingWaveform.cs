@@ -45,7 +45,7 @@ public sealed record SamplingWaveform(double Celsius, double? PrechargeVolts, do
                 // A differential input: both traces are differences, the inputs' and the two sampling capacitors'.
                 if (SamplingRun.SamplesNegativeInput(design))
                 {
-                    pinVolts[j] -= run.VoltageAt(times[j], FrontEndNodes.BridgeNegative);
+                    pinVolts[j] -= run.VoltageAt(times[j], FrontEndCircuit.NegativeNode(design));
                     holdVolts[j] -= run.VoltageAt(times[j], FrontEndNodes.HoldNegative);
                 }
             }

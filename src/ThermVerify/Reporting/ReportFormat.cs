@@ -156,6 +156,7 @@ internal static class ReportFormat
     {
         if (d.Netlist is { } n)
             return ("netlist", $"{n.File} ({n.Parsed.Elements.Count} elements): sensor {string.Join(", ", n.SensorElements)}, converter at node {n.PinNode}" +
+                               (n.NegativePinNode is { } negative ? $" against node {negative}" : "") +
                                (n.Excitation.Count > 0 ? $", excitation {string.Join(", ", n.Excitation)}" : "") +
                                (n.SwitchOnLeadSeconds is { } lead ? $", switched on {V(lead, UnitKind.Second)} before the first sample" : ""));
         if (d is { Divider: { } half, Bridge: { } bridge })

@@ -26,6 +26,7 @@ public class ExampleVerdictTests
     [InlineData("greenhouse-pt1000-4wire.toml", true, null)]
     [InlineData("fermenter-pt1000-bridge.toml", true, null)]
     [InlineData("brine-chiller-bridge-differential.toml", true, null)]
+    [InlineData("brine-chiller-bridge-netlist.toml", true, null)]
     [InlineData("autoclave-pt100-bridge-inamp.toml", true, null)]
     [InlineData("table-sensor-freezer.toml", true, null)]
     [InlineData("cold-storage-logger-buffered.toml", true, null)]

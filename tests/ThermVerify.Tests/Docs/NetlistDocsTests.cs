@@ -32,4 +32,21 @@ public sealed class NetlistDocsTests : IDisposable
         File.WriteAllText(cir, File.ReadAllText(cir).Replace(".end", ".control\nshell rm -rf ~\n.endc\n.end"));
         DocBlocks.AssertCurrent(Page, "netlists-walkthrough-refused", Shown(["check", "boiler-flue-protected.toml"], error: true));
     }
+
+    /// <summary>The switched excitation: the soil probe's netlist, and its check with the lead cut to 2 ms (an excerpt: the verdict and the settling finding).</summary>
+    [Fact]
+    public void The_switched_excitation_section_shows_the_pulse_and_a_short_lead_failing()
+    {
+        Copy("soil-probe-switched.cir");
+        File.WriteAllText(Path.Combine(folder.FullName, "soil-probe-short-lead.toml"),
+            File.ReadAllText(Path.Combine(Repository.Netlists, "soil-probe-switched-netlist.toml")).Replace("switch_on_lead = \"10 ms\"", "switch_on_lead = \"2 ms\""));
+        DocBlocks.AssertCurrent(Page, "netlists-switched-cir", File.ReadAllText(Path.Combine(Repository.Netlists, "soil-probe-switched.cir")));
+        var lines = Shown(["check", "soil-probe-short-lead.toml", "--no-remedies"]).Split('\n');
+        var settling = Array.FindIndex(lines, l => l.Contains("settling: "));
+        string[] excerpt =
+        [
+            lines[0], .. lines.Where(l => l.StartsWith("  netlist ") || l.StartsWith("FAIL:")), "...", .. lines[settling..(settling + 3)], "...",
+        ];
+        DocBlocks.AssertCurrent(Page, "netlists-switched-check", string.Join('\n', excerpt) + "\n");
+    }
 }

@@ -33,6 +33,29 @@ public class NetlistTransferTests
         Tolerance.AssertClose(slope, transfer.SlopeVoltsPerOhm(sensorOhms), 1e-9);
     }
 
+    private static readonly NetlistSpec Brine = DesignLoader.Load(Path.Combine(Repository.Netlists, "brine-chiller-bridge-netlist.toml")).Netlist!;
+
+    /// <summary>
+    /// A differential input (negative_pin): the transfer is the Wheatstone bridge's output v(outp) − v(outn) worked by
+    /// hand (two dividers across one excitation, textbook circuit analysis), its inverse and slope with it, and the
+    /// common mode half the sum of the two outputs; the resistance the pin sees is the positive pin's own.
+    /// </summary>
+    [Theory]
+    [InlineData(400.0)]
+    [InlineData(1_000.0)]
+    [InlineData(1_150.0)]
+    public void A_differential_transfer_is_the_bridge_worked_by_hand(double sensorOhms)
+    {
+        const double rail = 3.3, top = 10e3, high = 10e3, low = 1e3;
+        var transfer = NetlistTransfer.Of(Brine);
+        var (positive, negative) = (rail * sensorOhms / (sensorOhms + top), rail * low / (high + low));
+        Tolerance.AssertClose(positive - negative, transfer.OutputVolts(sensorOhms), 1e-12, 1e-15);
+        Tolerance.AssertClose(sensorOhms, transfer.SensorOhms(positive - negative), 1e-9);
+        Tolerance.AssertClose(rail * top / Math.Pow(sensorOhms + top, 2), transfer.SlopeVoltsPerOhm(sensorOhms), 1e-9);
+        Tolerance.AssertClose((positive + negative) / 2, transfer.CommonModeVolts(sensorOhms), 1e-12);
+        Tolerance.AssertClose(Parallel(top, sensorOhms), transfer.TheveninOhms(sensorOhms), 1e-12);
+    }
+
     [Fact]
     public void A_pin_the_sensor_does_not_reach_is_refused_at_the_sensor_card()
     {

@@ -44,7 +44,7 @@ internal static class SamplingNoiseCircuit
         // The negative input acquires at the same time through its own switch; a unity VCVS forms the difference the
         // converter keeps (the 1 Ω it drives gives the node its second connection; an ideal source's output takes its
         // noise current without a voltage).
-        elements.Add(new Resistor(NegativeSwitchResistor, FrontEndNodes.BridgeNegative, FrontEndNodes.HoldNegative, Math.Max(negative.SwitchResistanceOhms, MinimumSwitchOhms)));
+        elements.Add(new Resistor(NegativeSwitchResistor, FrontEndCircuit.NegativeNode(design), FrontEndNodes.HoldNegative, Math.Max(negative.SwitchResistanceOhms, MinimumSwitchOhms)));
         elements.Add(new Capacitor("Csamplen", FrontEndNodes.HoldNegative, Circuit.Ground, negative.SamplingCapacitanceFarads));
         elements.Add(new Vcvs("Esampled", DifferentialHold, Circuit.Ground, FrontEndNodes.Hold, FrontEndNodes.HoldNegative, 1));
         elements.Add(new Resistor("Rsampled", DifferentialHold, Circuit.Ground, 1));
