@@ -23,7 +23,7 @@ internal static class NetlistImport
         var resistors = netlist.Elements.Where(e => e.Kind == 'R').ToList();
         if (resistors.Count == 0)
             throw new DesignException(fileName, 1, 1, "", "the netlist has no resistor, so no sensor", "A thermistor or RTD front end has the sensor as a resistor (R element).");
-        var named = resistors.Where(r => SensorWords.Any(w => r.Name.Contains(w, StringComparison.OrdinalIgnoreCase))).ToList();
+        var named = resistors.Where(r => SensorWords.Any(w => r.Name.Contains(w, StringComparison.OrdinalIgnoreCase)) || PlatinumName(r.Name)).ToList();
         var sensor = named.FirstOrDefault() ?? resistors[0];
         var sensorWhy = named.Count switch
         {
@@ -33,7 +33,9 @@ internal static class NetlistImport
         };
         var (pin, pinWhy) = Pin(netlist, sensor);
         var sources = netlist.Elements.Where(e => e.Kind is 'V' or 'I').ToList();
-        var reference = netlist.Elements.FirstOrDefault(e => e.Kind == 'V' && e.Pulse is null && e.Nodes[1] == "0" && e.Nodes[0] != "0");
+        // A switched source drives the reference as well when the converter is ratiometric to the divider's supply.
+        var reference = netlist.Elements.FirstOrDefault(e => e.Kind == 'V' && e.Nodes[1] == "0" && e.Nodes[0] != "0");
+        var pulsed = sources.Where(e => e.Pulse is not null).ToList();
 
         var b = new StringBuilder();
         b.AppendLine($"# Starting design written by thermverify import from {fileName} (\"{netlist.Title}\").");
@@ -54,6 +56,14 @@ internal static class NetlistImport
             Commented(b, $"reference = \"{reference.Nodes[0]}\"", $"CONFIRM: the node {reference.Name} drives from ground, for a ratiometric converter");
         if (sources.Count > 0)
             Commented(b, $"excitation = [{string.Join(", ", sources.Select(s => $"\"{s.Name}\""))}]", $"CONFIRM: the netlist's sources");
+        if (pulsed.Count > 0 && pulsed[0].Pulse is { } pulse)
+        {
+            // The loader needs the lead of a PULSE excitation: half the pulse's width is inside it wherever the netlist
+            // puts the window; its period, when it repeats, is how often a reading is taken.
+            Commented(b, $"switch_on_lead = \"{Number(pulse.WidthSeconds / 2)} s\"", $"CONFIRM: when the first window opens after {pulsed[0].Name} switches on (half its pulse width here)");
+            if (pulse.PeriodSeconds > pulse.WidthSeconds / 2)
+                Commented(b, $"reading_interval = \"{Number(pulse.PeriodSeconds)} s\"", $"CONFIRM: {pulsed[0].Name}'s period, one reading each");
+        }
         if (FixedArm(netlist, sensor) is { } arm)
             Commented(b, $"fixed = \"{arm.Resistor.Name}\"", $"CONFIRM: it joins {sensor.Name} to {arm.Source.Name}, the divider's other arm (choose-fixed replaces it)");
         b.AppendLine();
@@ -70,6 +80,10 @@ internal static class NetlistImport
         b.AppendLine("budget = \"1 K\"");
         return b.ToString();
     }
+
+    /// <summary>A platinum RTD's usual names: "Rpt", "RPT1", "Rpt100" (the letters pt after the R, then digits or nothing).</summary>
+    private static bool PlatinumName(string name) =>
+        System.Text.RegularExpressions.Regex.IsMatch(name, "^r_?pt[0-9]*$", System.Text.RegularExpressions.RegexOptions.IgnoreCase);
 
     /// <summary>A node whose name reads as the converter's input; else where a capacitor to ground sits last; else the sensor's node.</summary>
     private static (string Node, string Why) Pin(ParsedNetlist netlist, NetlistElement sensor)
