@@ -33,10 +33,15 @@ internal static class SensorTransfer
         ? c.CurrentAmperes
         : DividerFormula.SlopeVoltsPerOhm(design.VoltageDivider.SensorSide, design.VoltageDivider.ExcitationVolts, sensorOhms, design.VoltageDivider.FixedResistorOhms);
 
-    /// <summary>The resistance the sensor's node sees (nominal parts at 25 °C; with leads, two of them in series with the sensor).</summary>
+    /// <summary>
+    /// The resistance the sensor's node sees (nominal parts at 25 °C; with leads, two of them in series with the sensor;
+    /// 3 wires in a bridge's arms: (R_s + R_L) ∥ (R_f + R_L) through the sense lead's R_L).
+    /// </summary>
     public static double TheveninOhms(FrontEndDesign design, double sensorOhms) => design.Netlist is { } n
         ? NetlistTransfer.Of(n).TheveninOhms(sensorOhms)
         : design.CurrentSource is { } c
         ? CurrentFormula.TheveninOhms(c, sensorOhms + 2 * (design.Wiring?.LeadOhms ?? 0), 25)
+        : design is { Bridge: not null, Wiring: { Wires: 3 } arms }
+        ? DividerFormula.TheveninOhms(sensorOhms + arms.LeadOhms, design.VoltageDivider.FixedResistorOhms + arms.LeadOhms) + arms.LeadOhms
         : DividerFormula.TheveninOhms(sensorOhms, design.VoltageDivider.FixedResistorOhms);
 }

@@ -119,6 +119,25 @@ public class BridgeWiringTests
         Assert.DoesNotContain(FrontEndCheck.Run(changed, Options).Findings, f => f.Id == "dc-loading");
     }
 
+    [Fact]
+    public void Pin_leakage_crosses_the_sense_lead_and_the_half_in_parallel()
+    {
+        // +50 nA out of the pin (drawn from V+): Ohm's law through R_L3 + (R_s + R_L1) ∥ (R_f + R_L2), matched 20 Ω leads
+        // at the board's 25 °C; the closed form of the check and the simulation both read it.
+        var design = ThreeWire("20 ohm", "0 %", ("adc.pin_leakage", "\"+50 nA\""), ("check.board_temperature", "\"25 degC\""),
+            ("adc.pin_leakage_temperature", "\"25 degC\""));
+        foreach (var p in FrontEndCheck.Run(design, Options).Points)
+        {
+            var rs = CurrentDesigns.Ohms(p.Celsius, 1000);
+            var thevenin = 20 + (rs + 20) * (1289.86 + 20) / (rs + 20 + 1289.86 + 20);
+            Tolerance.AssertClose(thevenin, p.Estimates.SourceOhms, 1e-9, 0, $"R_th at {p.Celsius} °C");
+            Tolerance.AssertClose(-50e-9 * thevenin, p.Estimates.LeakageVolts, 1e-6, 1e-12, $"leakage closed form at {p.Celsius} °C");
+            // Superposition: the leads' own term (matched, R_f ≠ R_s) and the leakage's, simulated.
+            var leads = Plus(rs, 1289.86, 20, 20) - Plus(rs, 1289.86, 0, 0);
+            Tolerance.AssertClose(leads - 50e-9 * thevenin, p.Simulated.DcLoadingVolts, 1e-6, 2e-9, $"simulated at {p.Celsius} °C");
+        }
+    }
+
     /// <summary>ngspice, the trade's reference engine, on the 3-wire bridge the check sweeps, with the sensor on either side.</summary>
     [NgspiceTheory]
     [InlineData("low")]
