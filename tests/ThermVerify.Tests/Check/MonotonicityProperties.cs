@@ -59,11 +59,18 @@ public class MonotonicityProperties
         foreach (var factor in new[] { 2.0, 5.0 })
         {
             var after = FrontEndCheck.Run(scale(design, factor), Options);
-            Assert.True(Key(after.Worst.ErrorKelvin) >= Key(before.Worst.ErrorKelvin),
-                $"{example}: {error} × {factor} makes the worst error {after.Worst.ErrorKelvin:+0.000;-0.000} K from {before.Worst.ErrorKelvin:+0.000;-0.000} K");
+            // The check's corners move every bound together (all up, all down). A bound whose first-order effect cancels
+            // (a ratiometric current's tempco: I·R_s over I·R_ref) keeps a second-order one of either sign, through a
+            // fixed offset read over the reference it scales (1 nA into a delta-sigma input: 3e-5 K for twice the stability chamber's current tempco), so that
+            // much may go either way; anything larger is a real loss of pessimism.
+            Assert.True(Key(after.Worst.ErrorKelvin) >= Key(before.Worst.ErrorKelvin) - SecondOrderKelvin,
+                $"{example}: {error} × {factor} makes the worst error {after.Worst.ErrorKelvin:+0.000000;-0.000000} K from {before.Worst.ErrorKelvin:+0.000000;-0.000000} K");
             Assert.False(!before.Passed && after.Passed, $"{example}: {error} × {factor} turns a FAIL into a PASS");
         }
     }
+
+    /// <summary>What a cancelled bound's second-order effect may take off the worst error (0.2 mK).</summary>
+    private const double SecondOrderKelvin = 2e-4;
 
     private static double Key(double kelvin) => double.IsFinite(kelvin) ? Math.Abs(kelvin) : double.PositiveInfinity;
 }
