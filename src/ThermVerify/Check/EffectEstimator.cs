@@ -39,7 +39,12 @@ internal static class EffectEstimator
             }
         }
         else if (design.Netlist is { } netlist)
+        {
             drift = NetlistTransfer.Of(netlist).PartDriftVolts(point.SensorOhms, design.Check.BoardCelsius ?? point.Celsius);
+            // The negative input's leakage pulls its node down through the resistance it sees (Ohm's law): read as a rise.
+            if (adc.NegativeInput is not null && netlist.NegativePinNode is not null)
+                leakage += adc.NegativeLeakageAmperesAt(design.Check.BoardCelsius ?? point.Celsius) * NetlistTransfer.Of(netlist).NegativeTheveninOhms(point.SensorOhms);
+        }
         else
             (leakage, excitation, leads) = CurrentLoading(design, point);
         var (offset, bias) = design.Amplifier is not null ? AmplifierErrors(design, point)

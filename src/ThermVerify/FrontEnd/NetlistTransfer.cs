@@ -86,6 +86,18 @@ internal sealed class NetlistTransfer
     public double TheveninOhms(double sensorOhms) => ohms.At(sensorOhms);
 
     /// <summary>
+    /// The resistance the negative pin sees in the ideal netlist (a differential input), from a test current into that
+    /// node (the circuit is linear); zero for a single-ended input.
+    /// </summary>
+    public double NegativeTheveninOhms(double sensorOhms)
+    {
+        if (netlist.NegativePinNode is not { } negative) return 0;
+        var ideal = NetlistCircuit.Ideal(netlist, sensorOhms);
+        var probed = ideal.Add(new Circuits.CurrentSource("Iprobe", Circuits.Circuit.Ground, negative, new Circuits.DcWaveform(TestAmperes)));
+        return (OperatingPoint.Solve(probed).Voltage(negative) - OperatingPoint.Solve(ideal).Voltage(negative)) / TestAmperes;
+    }
+
+    /// <summary>
     /// What the parts' tempcos ([[netlist.part]]) move the ideal pin voltage by at <paramref name="partsCelsius"/>: the
     /// ideal netlist solved with each such resistor at R·(1 + tc·(T − 25 °C)), against it at nominal values.
     /// </summary>
