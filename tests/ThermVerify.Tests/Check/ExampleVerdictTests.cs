@@ -25,6 +25,7 @@ public class ExampleVerdictTests
     [InlineData("mash-tun-pt100-current.toml", true, null)]
     [InlineData("greenhouse-pt1000-4wire.toml", true, null)]
     [InlineData("fermenter-pt1000-bridge.toml", true, null)]
+    [InlineData("cheese-vat-pt1000-bridge-3wire.toml", true, null)]
     [InlineData("brine-chiller-bridge-differential.toml", true, null)]
     [InlineData("brine-chiller-bridge-netlist.toml", true, null)]
     [InlineData("autoclave-pt100-bridge-inamp.toml", true, null)]
