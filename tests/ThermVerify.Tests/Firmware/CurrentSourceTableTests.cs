@@ -12,12 +12,6 @@ namespace ThermVerify.Tests.Firmware;
 /// </summary>
 public class CurrentSourceTableTests
 {
-    private static double InverseIec60751(double ohms, double r0 = 100)
-    {
-        const double a = 3.9083e-3, b = -5.775e-7;
-        return (-a + Math.Sqrt(a * a - 4 * b * (1 - ohms / r0))) / (2 * b);
-    }
-
     private static FrontEndDesign Example(string name) => DesignLoader.Load(Path.Combine(Repository.Netlists, name));
 
     [Fact]
@@ -29,7 +23,7 @@ public class CurrentSourceTableTests
         for (var k = 0; k < run.Table.Codes.Count; k++)
         {
             var code = run.Table.Codes[k];
-            var expected = InverseIec60751(3900.0 * code / 65536);
+            var expected = Iec60751ByHand.Celsius(3900.0 * code / 65536);
             // The table's unit is 0.01 K: each entry is the true temperature rounded to it.
             Tolerance.AssertClose(expected, scale.ToCelsius(run.Table.Values[k]), 0, 0.5 * scale.UnitKelvin + 1e-9, $"code {code}");
         }
@@ -42,7 +36,7 @@ public class CurrentSourceTableTests
     {
         var run = Verifier.Table(CurrentDesigns.Pt100(("check.range", "\"0 degC .. 200 degC\"")));
         foreach (var (code, value) in run.Table.Codes.Zip(run.Table.Values).Where((_, i) => i % 97 == 0))
-            Tolerance.AssertClose(InverseIec60751(code * 2.5 / 65536 / 1e-3), run.Table.Scale.ToCelsius(value), 0,
+            Tolerance.AssertClose(Iec60751ByHand.Celsius(code * 2.5 / 65536 / 1e-3), run.Table.Scale.ToCelsius(value), 0,
                 0.5 * run.Table.Scale.UnitKelvin + 1e-9, $"code {code}");
     }
 

@@ -13,12 +13,6 @@ namespace ThermVerify.Tests.Firmware;
 /// </summary>
 public class DeltaSigmaTableTests
 {
-    private static double InverseIec60751(double ohms, double r0 = 100)
-    {
-        const double a = 3.9083e-3, b = -5.775e-7;
-        return (-a + Math.Sqrt(a * a - 4 * b * (1 - ohms / r0))) / (2 * b);
-    }
-
     private static FrontEndDesign Example(string name) => DesignLoader.Load(Path.Combine(Repository.Netlists, name));
 
     [Theory]
@@ -31,7 +25,7 @@ public class DeltaSigmaTableTests
         const double bound = 0.01;
         var run = Verifier.Table(Example(file), new TableRequest { BoundKelvin = bound });
         var scale = run.Table.Scale;
-        double Expected(int code) => InverseIec60751(rRef * code / (gain * (1 << 24)));
+        double Expected(int code) => Iec60751ByHand.Celsius(rRef * code / (gain * (1 << 24)));
         Assert.Equal(first, run.Table.Span.FirstCode);
         Assert.True(run.Table.Codes.Count is > 2 and < 100, $"{run.Table.Codes.Count} breakpoints");
         for (var k = 0; k < run.Table.Codes.Count; k++)
