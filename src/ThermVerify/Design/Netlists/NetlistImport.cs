@@ -33,7 +33,8 @@ internal static class NetlistImport
         };
         var (pin, pinWhy) = Pin(netlist, sensor);
         var sources = netlist.Elements.Where(e => e.Kind is 'V' or 'I').ToList();
-        var reference = netlist.Elements.FirstOrDefault(e => e.Kind == 'V' && e.Pulse is null && e.Nodes[1] == "0" && e.Nodes[0] != "0");
+        var reference = netlist.Elements.FirstOrDefault(e => e.Kind == 'V' && e.Nodes[1] == "0" && e.Nodes[0] != "0");
+        var pulsed = sources.FirstOrDefault(e => e.Pulse is not null);
 
         var b = new StringBuilder();
         b.AppendLine($"# Starting design written by thermverify import from {fileName} (\"{netlist.Title}\").");
@@ -54,6 +55,9 @@ internal static class NetlistImport
             Commented(b, $"reference = \"{reference.Nodes[0]}\"", $"CONFIRM: the node {reference.Name} drives from ground, for a ratiometric converter");
         if (sources.Count > 0)
             Commented(b, $"excitation = [{string.Join(", ", sources.Select(s => $"\"{s.Name}\""))}]", $"CONFIRM: the netlist's sources");
+        if (pulsed?.Pulse is { } pulse)
+            Commented(b, $"switch_on_lead = \"{Number(pulse.RiseSeconds + Math.Min(pulse.WidthSeconds, 1) / 2)} s\"",
+                $"FILL IN: the PULSE of {pulsed.Name} switches the excitation; how long after its TD the first acquisition window opens");
         if (FixedArm(netlist, sensor) is { } arm)
             Commented(b, $"fixed = \"{arm.Resistor.Name}\"", $"CONFIRM: it joins {sensor.Name} to {arm.Source.Name}, the divider's other arm (choose-fixed replaces it)");
         b.AppendLine();
