@@ -39,7 +39,13 @@ internal static class EffectEstimator
             }
         }
         else if (design.Netlist is { } netlist)
+        {
             drift = NetlistTransfer.Of(netlist).PartDriftVolts(point.SensorOhms, design.Check.BoardCelsius ?? point.Celsius);
+            // A differential input: both pins' leakage through the netlist's transresistances (NetlistTransfer).
+            if (netlist.NegativePinNode is not null && adc.NegativeInput is not null)
+                leakage = NetlistTransfer.Of(netlist).LeakageVolts(point.SensorOhms, PinCurrentAmps(design, point.Celsius),
+                    adc.NegativeLeakageAmperesAt(design.Check.BoardCelsius ?? point.Celsius));
+        }
         else
             (leakage, excitation, leads) = CurrentLoading(design, point);
         var (offset, bias) = design.Amplifier is not null ? AmplifierErrors(design, point)

@@ -103,6 +103,21 @@ internal sealed class NetlistTransfer
         return solved.Voltage(netlist.PinNode) - (netlist.NegativePinNode is { } negative ? solved.Voltage(negative) : 0) - OutputVolts(sensorOhms);
     }
 
+    /// <summary>
+    /// What leakage currents out of the pin and out of the negative input's node (a differential input) move the ideal
+    /// transfer by: the ideal netlist solved with both currents drawn to ground, against it without them (superposition
+    /// in the linear circuit, so each current acts through both pins, the transresistances between them included).
+    /// </summary>
+    public double LeakageVolts(double sensorOhms, double pinAmperes, double negativeAmperes)
+    {
+        var circuit = NetlistCircuit.Ideal(netlist, sensorOhms)
+            .Add(new Circuits.CurrentSource("Ileak", netlist.PinNode, Circuits.Circuit.Ground, new Circuits.DcWaveform(pinAmperes)));
+        if (netlist.NegativePinNode is { } negative)
+            circuit = circuit.Add(new Circuits.CurrentSource("Ileakn", negative, Circuits.Circuit.Ground, new Circuits.DcWaveform(negativeAmperes)));
+        var solved = OperatingPoint.Solve(circuit);
+        return solved.Voltage(netlist.PinNode) - (netlist.NegativePinNode is { } n ? solved.Voltage(n) : 0) - OutputVolts(sensorOhms);
+    }
+
     /// <summary>The coefficients (a, b, c) of the pin voltage, for docs and tests.</summary>
     public (double A, double B, double C) Coefficients => (volts.A, volts.B, volts.C);
 
