@@ -41,9 +41,10 @@ internal static class EffectEstimator
         else if (design.Netlist is { } netlist)
         {
             drift = NetlistTransfer.Of(netlist).PartDriftVolts(point.SensorOhms, design.Check.BoardCelsius ?? point.Celsius);
-            // The negative input's leakage pulls its node down through the resistance it sees (Ohm's law): read as a rise.
-            if (adc.NegativeInput is not null && netlist.NegativePinNode is not null)
-                leakage += adc.NegativeLeakageAmperesAt(design.Check.BoardCelsius ?? point.Celsius) * NetlistTransfer.Of(netlist).NegativeTheveninOhms(point.SensorOhms);
+            // A differential input: both pins' leakage through the netlist's transresistances (NetlistTransfer).
+            if (netlist.NegativePinNode is not null && adc.NegativeInput is not null)
+                leakage = NetlistTransfer.Of(netlist).LeakageVolts(point.SensorOhms, PinCurrentAmps(design, point.Celsius),
+                    adc.NegativeLeakageAmperesAt(design.Check.BoardCelsius ?? point.Celsius));
         }
         else
             (leakage, excitation, leads) = CurrentLoading(design, point);

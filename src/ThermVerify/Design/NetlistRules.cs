@@ -31,6 +31,10 @@ internal static class NetlistRules
         if (design.Adc.Input == AdcInput.SingleEnded && netlist.NegativePinNode is not null)
             throw section.ErrorAtValue("negative_pin", "a negative input node with a single-ended converter",
                 "Write input = \"differential\" (or \"pseudo-differential\") in [adc], or remove negative_pin.");
+        // The delta-sigma converter's channel settling takes its switch-on from a divider (ChannelSettling): not a netlist's yet.
+        if (netlist.SwitchOnLeadSeconds is not null && design.Adc.DeltaSigma is not null)
+            throw section.ErrorAtKey("switch_on_lead", "a switched netlist excitation read by a delta-sigma converter is not checked yet",
+                "Remove switch_on_lead (and give the PULSE source its DC value), or check the front end with a successive-approximation converter.");
         if (netlist.SwitchOnLeadSeconds is { } lead)
             foreach (var pulsed in netlist.Parsed.Elements.Where(e => e.Pulse is not null))
             {

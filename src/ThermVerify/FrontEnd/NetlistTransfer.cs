@@ -86,18 +86,6 @@ internal sealed class NetlistTransfer
     public double TheveninOhms(double sensorOhms) => ohms.At(sensorOhms);
 
     /// <summary>
-    /// The resistance the negative pin sees in the ideal netlist (a differential input), from a test current into that
-    /// node (the circuit is linear); zero for a single-ended input.
-    /// </summary>
-    public double NegativeTheveninOhms(double sensorOhms)
-    {
-        if (netlist.NegativePinNode is not { } negative) return 0;
-        var ideal = NetlistCircuit.Ideal(netlist, sensorOhms);
-        var probed = ideal.Add(new Circuits.CurrentSource("Iprobe", Circuits.Circuit.Ground, negative, new Circuits.DcWaveform(TestAmperes)));
-        return (OperatingPoint.Solve(probed).Voltage(negative) - OperatingPoint.Solve(ideal).Voltage(negative)) / TestAmperes;
-    }
-
-    /// <summary>
     /// What the parts' tempcos ([[netlist.part]]) move the ideal pin voltage by at <paramref name="partsCelsius"/>: the
     /// ideal netlist solved with each such resistor at R·(1 + tc·(T − 25 °C)), against it at nominal values.
     /// </summary>
@@ -113,6 +101,21 @@ internal sealed class NetlistTransfer
         }
         var solved = OperatingPoint.Solve(circuit);
         return solved.Voltage(netlist.PinNode) - (netlist.NegativePinNode is { } negative ? solved.Voltage(negative) : 0) - OutputVolts(sensorOhms);
+    }
+
+    /// <summary>
+    /// What leakage currents out of the pin and out of the negative input's node (a differential input) move the ideal
+    /// transfer by: the ideal netlist solved with both currents drawn to ground, against it without them (superposition
+    /// in the linear circuit, so each current acts through both pins, the transresistances between them included).
+    /// </summary>
+    public double LeakageVolts(double sensorOhms, double pinAmperes, double negativeAmperes)
+    {
+        var circuit = NetlistCircuit.Ideal(netlist, sensorOhms)
+            .Add(new Circuits.CurrentSource("Ileak", netlist.PinNode, Circuits.Circuit.Ground, new Circuits.DcWaveform(pinAmperes)));
+        if (netlist.NegativePinNode is { } negative)
+            circuit = circuit.Add(new Circuits.CurrentSource("Ileakn", negative, Circuits.Circuit.Ground, new Circuits.DcWaveform(negativeAmperes)));
+        var solved = OperatingPoint.Solve(circuit);
+        return solved.Voltage(netlist.PinNode) - (netlist.NegativePinNode is { } n ? solved.Voltage(n) : 0) - OutputVolts(sensorOhms);
     }
 
     /// <summary>The coefficients (a, b, c) of the pin voltage, for docs and tests.</summary>

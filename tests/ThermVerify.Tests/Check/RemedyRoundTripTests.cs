@@ -149,6 +149,10 @@ public class RemedyRoundTripTests
         "buffer.output_swing" => d.Buffer?.OutputSwingVolts,
         "noise.readings_averaged" => d.Noise.ReadingsAveraged,
         "adc.noise" => ThermVerify.Check.Noise.ReadingNoiseAnalysis.ConverterVolts(d, new ThermVerify.FrontEnd.ClosedFormModel(d).Adc.LsbVolts),
+        "netlist.switch_on_lead" => d.Netlist!.SwitchOnLeadSeconds,
+        _ when key.StartsWith("netlist.part.", StringComparison.Ordinal) && key.EndsWith(".tempco", StringComparison.Ordinal) =>
+            d.Netlist!.Part(key["netlist.part.".Length..^".tempco".Length])!.TempcoPerKelvin,
+        _ when key.StartsWith("netlist.fixed", StringComparison.Ordinal) => d.Netlist!.Parsed.Find(d.Netlist.FixedElement!)!.Value,
         _ => throw new InvalidOperationException($"a remedy for {key}: add it to this test"),
     };
 
@@ -156,8 +160,20 @@ public class RemedyRoundTripTests
     private static FrontEndDesign Written(FrontEndDesign design, IEnumerable<Remedy> changes)
     {
         var text = DesignWriter.ToToml(design);
-        foreach (var change in changes)
+        // A netlist's fixed resistor is changed in the netlist, which the design file does not hold: applied after loading.
+        var fixedValue = changes.FirstOrDefault(c => c.Key.StartsWith("netlist.fixed", StringComparison.Ordinal))?.Value;
+        foreach (var change in changes.Where(c => !c.Key.StartsWith("netlist.fixed", StringComparison.Ordinal)))
         {
+            if (change.Key.StartsWith("netlist.part.", StringComparison.Ordinal))
+            {
+                // A [[netlist.part]] entry, found by its name: its tempco line.
+                var name = change.Key["netlist.part.".Length..change.Key.LastIndexOf('.')];
+                var entry = text.IndexOf($"[[netlist.part]]\nname = \"{name}\"\n", StringComparison.Ordinal);
+                var tempco = new Regex("^tempco = .*$", RegexOptions.Multiline);
+                var at = tempco.Match(text, entry);
+                text = text[..at.Index] + $"tempco = {Toml(change)}" + text[(at.Index + at.Length)..];
+                continue;
+            }
             var dot = change.Key.IndexOf('.');
             var (section, key) = (change.Key[..dot], change.Key[(dot + 1)..]);
             var value = Toml(change);
@@ -176,7 +192,8 @@ public class RemedyRoundTripTests
             var edited = line.IsMatch(body) ? line.Replace(body, $"{key} = {value}") : $"{key} = {value}\n" + body;
             text = text[..start] + edited + text[(start + body.Length)..];
         }
-        return DesignLoader.Parse(text, "remedied.toml", ExampleDesigns.Folder());
+        var loaded = DesignLoader.Parse(text, "remedied.toml", ExampleDesigns.Folder());
+        return fixedValue is { } v ? loaded with { Netlist = loaded.Netlist!.WithValue(loaded.Netlist.FixedElement!, v) } : loaded;
     }
 
     private static string Toml(Remedy r)

@@ -40,6 +40,22 @@ public sealed class NetlistSwitchOnDesignTests : IDisposable
         Assert.Equal(5e-3, Load("excitation = [\"Vexc\"]\nswitch_on_lead = \"5 ms\"", "Vexc exc 0 DC 3.3").Netlist!.SwitchOnLeadSeconds);
     }
 
+    /// <summary>A delta-sigma converter's channel settling does not follow a netlist's switch-on yet: refused, not ignored.</summary>
+    [Fact]
+    public void A_switched_netlist_read_by_a_delta_sigma_converter_is_refused()
+    {
+        File.WriteAllText(Path.Combine(folder.FullName, "front.cir"), NetlistDesignTests.Netlist);
+        var lines = NetlistDesignTests.Lines.Take(16).ToList();
+        lines[10] = "excitation = [\"Vexc\"]\nswitch_on_lead = \"5 ms\"";
+        lines.AddRange(["kind = \"delta-sigma\"", "bits = 24", "reference = \"ratiometric\"", "modulator_rate = \"256 kHz\"", "data_rate = \"20 Hz\"",
+            "input = \"buffered\"", "filter = \"sinc3\"", .. NetlistDesignTests.Lines.Skip(22)]);
+        var path = Path.Combine(folder.FullName, "design.toml");
+        File.WriteAllText(path, string.Join("\n", lines) + "\n");
+        var e = Assert.Throws<DesignException>(() => DesignLoader.Load(path));
+        Assert.Equal(("netlist.switch_on_lead", 12), (e.KeyPath, e.Line));
+        Assert.Contains("delta-sigma", e.Message);
+    }
+
     [Theory]
     // A PULSE needs the lead that says when the converter samples after it: refused at the card, under the key to add.
     [InlineData("excitation = [\"Vexc\"]", Pulsed, "front.cir", 2, "netlist.switch_on_lead", "does not say when the converter samples")]

@@ -36,6 +36,29 @@ public class DifferentialTests(ITestOutputHelper output)
     }
 
     /// <summary>
+    /// Current-controlled sources (F, H) in random linear circuits: 40 seeds of their own (the fast subset's circuits stay
+    /// as they are), each sensing a voltage source of the circuit, against ngspice as every random circuit is. Linear
+    /// only for now: in a nonlinear circuit (seed 9) an F in the feedback of two clamped op-amps left one point of the
+    /// source sweep 0.12 V from ngspice's, unexplained (neither engine's point solves the other's equations there; the
+    /// op-amps' models differ by design, docs/engine.md), which is not yet looked into.
+    /// </summary>
+    [NgspiceFact]
+    public void Random_circuits_with_current_controlled_sources_agree_with_ngspice()
+    {
+        var cases = new List<CaseResult>();
+        for (var seed = 1; seed <= CurrentControlledCount; seed++)
+            if (RandomCircuitGenerator.Generate(seed, CircuitClass.Linear, 10, currentControlled: true) is { } rc)
+                cases.Add(DifferentialCase.Run(rc));
+        var report = new DifferentialReport(cases);
+        output.WriteLine(report.Render(DifferentialCase.Limits));
+        Assert.True(cases.Count(c => c.Circuit.Circuit.Elements.Any(e => e is ThermVerify.Circuits.Cccs or ThermVerify.Circuits.Ccvs)) >= CurrentControlledCount / 2,
+            "most circuits carry a current-controlled source");
+        Judge(report);
+    }
+
+    private const int CurrentControlledCount = 40;
+
+    /// <summary>
     /// The large run, on request only: <c>THERMVERIFY_DIFFERENTIAL=3000 dotnet test tests/ThermVerify.Tests --filter
     /// FullyQualifiedName~Large_run</c>, optionally <c>THERMVERIFY_DIFFERENTIAL_FIRST</c> (first seed, default 1) and
     /// <c>THERMVERIFY_DIFFERENTIAL_REPORT</c> (a file for the report, which docs/engine.md quotes, and beside it the same

@@ -10,9 +10,11 @@ namespace ThermVerify.Tests.Differential;
 /// IEC 60751 RTD) and pin leakage sources. Values are log-uniform over the ranges front ends use. Every node gets a
 /// DC path to ground when it is made, voltage-defined branches never close a loop, and the result must pass the
 /// engine's own topology check. The same seed always gives the same circuit (System.Random with a seed is
-/// deterministic within a .NET version).
+/// deterministic within a .NET version). With <c>currentControlled</c> it adds, after everything else (so that the
+/// circuits of every seed without it stay as they were), one to three current-controlled sources (SPICE's F and H)
+/// sensing the current of a voltage source of the circuit.
 /// </summary>
-internal sealed class RandomCircuitGenerator(int seed, CircuitClass circuitClass, int maxNodes = 15)
+internal sealed class RandomCircuitGenerator(int seed, CircuitClass circuitClass, int maxNodes = 15, bool currentControlled = false)
 {
     private readonly Random random = new(seed);
     private readonly List<Element> elements = [];
@@ -22,11 +24,11 @@ internal sealed class RandomCircuitGenerator(int seed, CircuitClass circuitClass
 
     private bool Nonlinear => circuitClass == CircuitClass.Nonlinear;
 
-    public static RandomCircuit? Generate(int seed, CircuitClass circuitClass, int maxNodes = 15)
+    public static RandomCircuit? Generate(int seed, CircuitClass circuitClass, int maxNodes = 15, bool currentControlled = false)
     {
         for (var attempt = 0; attempt < 20; attempt++)
         {
-            var generator = new RandomCircuitGenerator(seed * 97 + attempt, circuitClass, maxNodes);
+            var generator = new RandomCircuitGenerator(seed * 97 + attempt, circuitClass, maxNodes, currentControlled);
             if (generator.TryBuild(seed) is { } circuit)
                 return circuit;
         }
@@ -53,6 +55,8 @@ internal sealed class RandomCircuitGenerator(int seed, CircuitClass circuitClass
             var anode = Pick(nodes);
             AddDiode(anode, RandomNodeOrGround(except: anode));
         }
+        if (currentControlled)
+            AddCurrentControlled();
         FixSingleConnections();
 
         var circuit = new Circuit(elements, temperatureCelsius: Math.Round(Uniform(-20, 80)));
@@ -178,6 +182,34 @@ internal sealed class RandomCircuitGenerator(int seed, CircuitClass circuitClass
     {
         var (cp, cn) = ControlPair();
         elements.Add(new Vccs(Name('G'), a, b, cp, cn, Math.Sign(Uniform(-1, 1)) * LogUniform(1e-5, 1e-2)));
+    }
+
+    /// <summary>
+    /// One to three F or H elements on random nodes, each sensing a voltage source of the circuit (one is added to
+    /// ground where there is none); an H is a voltage-defined branch, so it is placed only where it closes no loop of them.
+    /// </summary>
+    private void AddCurrentControlled()
+    {
+        if (!elements.OfType<VoltageSource>().Any())
+        {
+            var node = nodes.FirstOrDefault(n => CanTieVoltage(n, Circuit.Ground));
+            if (node is null) return;
+            AddSource(node, Circuit.Ground, preferVoltage: true);
+        }
+        var count = random.Next(1, 4);
+        for (var k = 0; k < count; k++)
+        {
+            var sensed = Pick(elements.OfType<VoltageSource>().Select(v => v.Name).ToList());
+            var a = Pick(nodes);
+            var b = RandomNodeOrGround(except: a);
+            if (random.NextDouble() < 0.5 && CanTieVoltage(a, b))
+            {
+                TieVoltage(a, b);
+                elements.Add(new Ccvs(Name('H'), a, b, sensed, Math.Sign(Uniform(-1, 1)) * LogUniform(10, 1e4)));
+            }
+            else
+                elements.Add(new Cccs(Name('F'), a, b, sensed, Math.Sign(Uniform(-1, 1)) * LogUniform(0.1, 10)));
+        }
     }
 
     private void AddSwitch(string a, string b)

@@ -127,4 +127,20 @@ public sealed class NetlistSwitchOnTests : IDisposable
         // 10 ms (12 time constants) passes: the example itself.
         Assert.True(FrontEndCheck.Run(DesignLoader.Load(Path.Combine(Repository.Netlists, "soil-probe-switched-netlist.toml")), new CheckOptions { ComputeRemedies = false }).Passed);
     }
+
+    /// <summary>
+    /// The switch-on deck carries the PULSE re-written from its parsed numbers (a parameter evaluated), never the card's
+    /// text (docs/netlists.md, the deck's safety).
+    /// </summary>
+    [Fact]
+    public void The_switch_on_deck_writes_the_pulse_from_its_parsed_numbers()
+    {
+        var design = Load(".param td = {250u * 2}\nVexc exc 0 PULSE(0 {3.3} {td} 0 0 10m 0)", 1e-3);
+        var (circuit, options) = SwitchOnSettling.Setup(design, 25, null, 1e-6);
+        var deck = ThermVerify.Circuits.Spice.SpiceDeckWriter.Write(circuit, new ThermVerify.Circuits.Spice.TransientSweep(options.StopTimeSeconds, options.MaxStepSeconds));
+        var line = Assert.Single(deck.Split('\n'), l => l.StartsWith("Vexc ", StringComparison.Ordinal));
+        Assert.Equal("Vexc exc 0 PULSE(0 3.3 0.0005 1e-12 1e-12 0.01 0)", line);
+        Assert.DoesNotContain("{", deck);
+        Assert.DoesNotContain("td", deck.Split('\n').Where(l => !l.StartsWith('*')).SelectMany(l => l.Split(' ')));
+    }
 }

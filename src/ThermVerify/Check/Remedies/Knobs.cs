@@ -273,7 +273,7 @@ internal static class Knobs
     {
         var buffered = design.Buffer is not null;
         // A buffer behind a current-excited sensor is not modelled, so none is offered there.
-        // A netlist's own parts are not knobs yet: its shape (a reservoir, an added follower) is the user's drawing.
+        // A netlist's shape (a reservoir, an added follower) is the user's drawing; its parts' knobs are NetlistKnobs'.
         var netlist = design.Netlist is not null;
         // Nor behind a bridge, which the converter reads differentially (a follower would follow one output only); the
         // bridge's tempcos have knobs of their own (named by the bridge's keys).

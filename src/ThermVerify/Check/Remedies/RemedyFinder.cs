@@ -65,7 +65,7 @@ internal sealed class RemedyFinder
     }
 
     private IReadOnlyList<Knob> KnobsFor(Finding finding, CheckPoint worst) =>
-        finding.Id == FindingRules.OverBudgetId ? OverBudgetKnobs(worst) : Knobs.For(finding.Id, Design, worst);
+        finding.Id == FindingRules.OverBudgetId ? OverBudgetKnobs(worst) : [.. Knobs.For(finding.Id, Design, worst), .. NetlistKnobs.For(finding.Id, Design, worst)];
 
     /// <summary>One change tried for a finding: the value and what the check of the changed design found.</summary>
     private sealed record Attempt(Knob Knob, double Value, CheckResult? Check);
@@ -264,7 +264,7 @@ internal sealed class RemedyFinder
             knobs.AddRange(Knobs.For(Noise.NoiseFindingRules.RampLagId, Design, worst));
         foreach (var (_, id, kelvin) in FindingRules.ByContribution(worst.Contributions))
             if (kelvin != 0 && (!double.IsFinite(worst.ErrorKelvin) || Math.Abs(worst.ErrorKelvin - kelvin) + noise <= worst.BudgetKelvin))
-                knobs.AddRange(Knobs.For(id, Design, worst));
+                knobs.AddRange([.. Knobs.For(id, Design, worst), .. NetlistKnobs.For(id, Design, worst)]);
         return [.. knobs.DistinctBy(k => k.Key)];
     }
 

@@ -33,9 +33,8 @@ internal static class NetlistImport
         };
         var (pin, pinWhy) = Pin(netlist, sensor);
         var sources = netlist.Elements.Where(e => e.Kind is 'V' or 'I').ToList();
-        // A switched source drives the reference as well when the converter is ratiometric to the divider's supply.
         var reference = netlist.Elements.FirstOrDefault(e => e.Kind == 'V' && e.Nodes[1] == "0" && e.Nodes[0] != "0");
-        var pulsed = sources.Where(e => e.Pulse is not null).ToList();
+        var pulsed = sources.FirstOrDefault(e => e.Pulse is not null);
 
         var b = new StringBuilder();
         b.AppendLine($"# Starting design written by thermverify import from {fileName} (\"{netlist.Title}\").");
@@ -56,14 +55,9 @@ internal static class NetlistImport
             Commented(b, $"reference = \"{reference.Nodes[0]}\"", $"CONFIRM: the node {reference.Name} drives from ground, for a ratiometric converter");
         if (sources.Count > 0)
             Commented(b, $"excitation = [{string.Join(", ", sources.Select(s => $"\"{s.Name}\""))}]", $"CONFIRM: the netlist's sources");
-        if (pulsed.Count > 0 && pulsed[0].Pulse is { } pulse)
-        {
-            // The loader needs the lead of a PULSE excitation: half the pulse's width is inside it wherever the netlist
-            // puts the window; its period, when it repeats, is how often a reading is taken.
-            Commented(b, $"switch_on_lead = \"{Number(pulse.WidthSeconds / 2)} s\"", $"CONFIRM: when the first window opens after {pulsed[0].Name} switches on (half its pulse width here)");
-            if (pulse.PeriodSeconds > pulse.WidthSeconds / 2)
-                Commented(b, $"reading_interval = \"{Number(pulse.PeriodSeconds)} s\"", $"CONFIRM: {pulsed[0].Name}'s period, one reading each");
-        }
+        if (pulsed?.Pulse is { } pulse)
+            Commented(b, $"switch_on_lead = \"{Number(pulse.RiseSeconds + Math.Min(pulse.WidthSeconds, 1) / 2)} s\"",
+                $"FILL IN: the PULSE of {pulsed.Name} switches the excitation; how long after its TD the first acquisition window opens");
         if (FixedArm(netlist, sensor) is { } arm)
             Commented(b, $"fixed = \"{arm.Resistor.Name}\"", $"CONFIRM: it joins {sensor.Name} to {arm.Source.Name}, the divider's other arm (choose-fixed replaces it)");
         b.AppendLine();
