@@ -67,7 +67,12 @@ public class DeltaSigmaCommandTests
             var run = CliRunner.Run("check", Example("kiln-bank-pt100-deltasigma.toml"), "--no-remedies", "--report", Path.Combine(folder, "report"),
                 "--json", Path.Combine(folder, "check.json"));
             Assert.Equal(ExitCodes.CheckFailed, run.ExitCode);
-            Assert.Contains("Readings after a channel switch", File.ReadAllText(Path.Combine(folder, "report", "report.html")));
+            var html = File.ReadAllText(Path.Combine(folder, "report", "report.html"));
+            Assert.Contains("Readings after a channel switch", html);
+            // The sampling figure shows the channel switch (no acquisition window to draw): the pin's samples and the readings.
+            Assert.Contains("samples of the pin", html);
+            Assert.Contains("filter readings", File.ReadAllText(Path.Combine(folder, "report", "plots", "sampling.svg")));
+            Assert.Contains("\"pinSamples\"", File.ReadAllText(Path.Combine(folder, "check.json")));
             Assert.Contains("\"deltaSigma\"", File.ReadAllText(Path.Combine(folder, "check.json")));
             var baseline = CliRunner.Run("baseline", Example("kiln-bank-pt100-deltasigma.toml"), "--out", Path.Combine(folder, "baseline.json"));
             Assert.Equal(ExitCodes.Success, baseline.ExitCode);
