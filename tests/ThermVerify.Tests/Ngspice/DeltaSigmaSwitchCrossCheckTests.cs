@@ -48,7 +48,7 @@ public class DeltaSigmaSwitchCrossCheckTests(ITestOutputHelper output)
         // ngspice opens a switch at the first time point past the control's threshold, inside its 1 ps edge, so the
         // instant itself is not comparable; T/1000 before it the input capacitor is on the pin in both engines (its
         // switch's τ is T/200, so it follows the pin) and the pin has moved by a few nV at most.
-        var before = period / 1000;
+        var before = ChannelSettling.SampleSeconds(d, 0) - DeltaSigmaDecks.MeasureSeconds(d, 0);
         var count = ends[^1] + 1;
         var atEdge = new double[count];
         var ours = new double[count];
@@ -85,6 +85,25 @@ public class DeltaSigmaSwitchCrossCheckTests(ITestOutputHelper output)
             Tolerance.AssertClose(ourReadings[k].Value, theirReadings[k].Value, 0, 0.01 * lsb, $"{file}: reading {k + 1} against ngspice");
         // The transient is not flat: the first reading is far from the last (the check's channel-switch finding).
         Assert.True(Math.Abs(ourReadings[0].Value - ourReadings[^1].Value) > 1000 * lsb);
+    }
+
+    [NgspiceFact]
+    public void The_switch_deck_prints_the_last_sample_of_each_reading_as_the_built_in_engine_has_it()
+    {
+        // A small shared-filter design (1 kHz sinc3 from 256 kHz: three readings are 1,536 modulator periods): what
+        // `ngspice -b` prints (7 significant digits) against the built-in engine's run of the same circuit at the same times.
+        var design = ThermVerify.Tests.Design.DeltaSigmaDesigns.Make(("adc.data_rate", "\"1 kHz\""), ("adc.channel_filter", "\"shared\""),
+            ("filter.series_resistor", "\"1 kohm\""), ("filter.reservoir_capacitor", "\"10 nF\""));
+        const int readings = 3;
+        var d = design.Adc.DeltaSigma!;
+        var celsius = (design.Check.Range.MinCelsius + design.Check.Range.MaxCelsius) / 2;
+        var printed = BatchOutput.Run(FrontEndDecks.Write(design, DeckAnalysis.Tran, new DeckOptions { Conversions = readings }));
+        var ends = DeltaSigmaDecks.ReadingEnds(d, SincFilter.Of(d), readings);
+        var run = ((ICheckEngine)BuiltInEngine.Instance).StartTransient(ChannelSettling.SwitchCircuit(design, celsius, DeltaSigmaDecks.OtherChannelVolts(design, celsius), 0),
+            new ThermVerify.Simulation.TransientOptions { StopTimeSeconds = ChannelSettling.SampleSeconds(d, ends[^1]) + 1 / d.ModulatorRateHertz });
+        for (var k = 0; k < readings; k++)
+            Tolerance.AssertClose(run.VoltageAt(DeltaSigmaDecks.MeasureSeconds(d, ends[k]), InputLoading.InputNode), printed.Measure($"last_sample_{k + 1}"),
+                5e-7, 1e-9, $"last sample of reading {k + 1}");
     }
 
     [NgspiceTheory]

@@ -57,11 +57,15 @@ internal static class DeltaSigmaDecks
                    (other is null || d.FilterReset ? "" : "; samples before the switch count as the other channel's voltage");
         return SpiceDeckWriter.Write(circuit, sweep,
             FrontEndDecks.Header(design, circuit, what,
-                I($"prints last_sample_k for k = 1 … {options.Conversions}: the modulator's last sample in reading k (n_k = {string.Join(", ", ends.Take(3))}, …)")),
+                I($"prints last_sample_k for k = 1 … {options.Conversions}: the modulator's last sample in reading k (n_k = {string.Join(", ", ends.Take(3))}, …), ") +
+                "read T/1000 before the input switch opens (SPICE opens a switch at the first time point past its threshold, so the instant itself is not sharp; the capacitor follows the pin there)"),
             options.PrintFigures
-                ? [.. ends.Select((n, k) => new MeasureAt(I($"last_sample_{k + 1}"), InputLoading.InputNode, ChannelSettling.SampleSeconds(d, n)))]
+                ? [.. ends.Select((n, k) => new MeasureAt(I($"last_sample_{k + 1}"), InputLoading.InputNode, MeasureSeconds(d, n)))]
                 : []);
     }
+
+    /// <summary>Where the deck reads modulator sample n: T/1000 before its switch opens, where both engines agree (docs/methods.md, section 15).</summary>
+    public static double MeasureSeconds(DeltaSigmaSpec d, long n) => ChannelSettling.SampleSeconds(d, n) - 1e-3 / d.ModulatorRateHertz;
 
     /// <summary>
     /// The other channel's voltage a shared filter holds at the switch: the farther of 0 V and full scale from this
