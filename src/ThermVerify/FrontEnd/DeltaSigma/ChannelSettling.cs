@@ -92,14 +92,7 @@ internal static class ChannelSettling
         var period = 1 / d.ModulatorRateHertz;
         if (d.InputBuffered)
         {
-            // The buffer's current pulls the reservoir from the unloaded to the loaded level: single pole.
-            var tau = AnalogTimeConstant(design, d, load);
-            return (n, other) =>
-            {
-                var from = start == ChannelStart.OwnFilter ? load.UnloadedVolts : other;
-                var t = (n + 0.5) * period + (start == ChannelStart.SwitchOn ? SwitchOnLeadSeconds(design) : 0);
-                return load.SwitchedVolts + (from - load.SwitchedVolts) * (tau > 0 ? Math.Exp(-t / tau) : 0);
-            };
+            return (n, other) => BufferedSample(design, d, load, start, other, n);
         }
         var cache = new Dictionary<double, double[]>();
         var lead = start == ChannelStart.SwitchOn ? SwitchOnLeadSeconds(design) : 0;
@@ -110,6 +103,19 @@ internal static class ChannelSettling
                 cache[key] = values = Simulate(design, d, celsius, load, count, engine, start == ChannelStart.OwnFilter ? null : other, lsb, lead);
             return n < values.Length ? values[n] : load.SwitchedVolts;
         };
+    }
+
+    /// <summary>
+    /// A buffered input's modulator sample n, at (n + ½)·T (plus the switch-on lead): the buffer's current pulls the
+    /// reservoir from where it starts (its unloaded level with its own filter, the other channel's with a shared one, 0 V
+    /// at switch-on) to the loaded level, a single pole of <see cref="AnalogTimeConstant"/> (elementary).
+    /// </summary>
+    internal static double BufferedSample(FrontEndDesign design, DeltaSigmaSpec d, InputLoad load, ChannelStart start, double other, long n)
+    {
+        var tau = AnalogTimeConstant(design, d, load);
+        var from = start == ChannelStart.OwnFilter ? load.UnloadedVolts : other;
+        var t = (n + 0.5) / d.ModulatorRateHertz + (start == ChannelStart.SwitchOn ? SwitchOnLeadSeconds(design) : 0);
+        return load.SwitchedVolts + (from - load.SwitchedVolts) * (tau > 0 ? Math.Exp(-t / tau) : 0);
     }
 
     /// <summary>

@@ -36,12 +36,8 @@ internal static class DeltaSigmaDecks
     /// <summary>The transient after a channel switch, covering <see cref="DeckOptions.Conversions"/> readings.</summary>
     private static string Transient(FrontEndDesign design, DeltaSigmaSpec d, DeckOptions options)
     {
-        if (d.InputBuffered)
-            throw new ConverterUnsupportedException(
-                $"{design.Name}: a buffered delta-sigma input draws only its input current, and its settling after a channel switch is the single pole " +
-                "I·R_s with τ = R_s·C in closed form (docs/methods.md), with no switched circuit to simulate; there is no transient deck for it. " +
-                "Write the dc, ac or noise deck, or describe the input as unbuffered with its sampling_capacitance.");
         var celsius = options.TemperatureCelsius ?? (design.Check.Range.MinCelsius + design.Check.Range.MaxCelsius) / 2;
+        if (d.InputBuffered) return BufferedSwitchDeck.Write(design, d, celsius, options);
         var other = OtherChannelVolts(design, celsius);
         var circuit = ChannelSettling.SwitchCircuit(design, celsius, other, 0);
         var filter = SincFilter.Of(d);
