@@ -21,7 +21,7 @@ internal static class DeckCommand
         var output = new Option<FileInfo?>("--out", "-o") { Description = "write the deck to this file instead of standard output" };
         var force = new Option<bool>("--force") { Description = "replace an existing --out file" };
         var temperature = new Option<double?>("--temperature") { Description = "circuit temperature in °C for tran, ac and noise (default: middle of the check range)" };
-        var conversions = new Option<int>("--conversions") { Description = "conversions the sampling transient covers", DefaultValueFactory = _ => 16 };
+        var conversions = new Option<int>("--conversions") { Description = "conversions the sampling transient covers (a delta-sigma converter: readings after a channel switch)", DefaultValueFactory = _ => 16 };
         conversions.Validators.Add(r =>
         {
             if (r.GetValueOrDefault<int>() is < 1 or > 1_000_000) r.AddError("--conversions must be between 1 and 1000000");

@@ -1,8 +1,8 @@
 namespace ThermVerify.Design;
 
 /// <summary>
-/// An analysis was asked of a converter it does not model (the transient deck of a buffered delta-sigma input, whose
-/// settling is a closed-form single pole with no switched circuit). Refused rather than treated as another case: the
-/// message names the analysis, the converter and what to run instead. Bad input (exit code 2).
+/// An analysis was asked of a converter it does not model; refused rather than treated as the other kind, with the
+/// analysis, the converter and what to run instead in the message. Bad input (exit code 2). Every analysis handles
+/// both kinds of converter at present, so none raises it; it stays for embedding programs that catch it.
 /// </summary>
 public sealed class ConverterUnsupportedException(string message) : Exception(message);

@@ -36,6 +36,7 @@ internal static class DeltaSigmaJson
             settledSeconds = r.ChannelSwitch.SettledSeconds,
             readingsDiscarded = r.ChannelSwitch.ReadingsDiscarded,
             firstUsedErrorVolts = r.ChannelSwitch.FirstUsedErrorVolts,
+            pinSamples = new { seconds = r.ChannelSwitch.Trace.Seconds, volts = r.ChannelSwitch.Trace.Volts },
             readings = r.ChannelSwitch.Readings.Select((x, i) => new { number = x.Number, seconds = x.Seconds, volts = x.Value, errorVolts = r.ChannelSwitch.ErrorVolts[i] }),
         },
         rejection = r.Rejection.Select(x => new

@@ -75,4 +75,16 @@ public class DeltaSigmaTableTests
             Assert.True(Math.Abs(expected) > 50 * plain.Adc.LsbVolts, "the load is tens of LSB");
         }
     }
+
+    [Fact]
+    public void Verify_table_passes_the_kilns_table_and_catches_one_made_for_the_wrong_gain()
+    {
+        var design = Example("kiln-bank-pt100-deltasigma.toml");
+        var csv = TableCsvRenderer.Render(Verifier.Table(design, new TableRequest { BoundKelvin = 0.01 }).Table, breakpointsOnly: true);
+        Assert.True(Verifier.VerifyTable(design, csv, "table.csv").Passes);
+        // A table made for a gain of 2 takes every code for half the resistance the design means (R_ref·code/(2·2^24)): hundreds of K off.
+        var doubled = design with { Adc = design.Adc with { DeltaSigma = design.Adc.DeltaSigma! with { Gain = 2 }, GainStage = new GainStageSpec(2) } };
+        var wrong = TableCsvRenderer.Render(Verifier.Table(doubled, new TableRequest { BoundKelvin = 0.01 }).Table, breakpointsOnly: true);
+        Assert.False(Verifier.VerifyTable(design, wrong, "wrong.csv").Passes);
+    }
 }

@@ -22,6 +22,22 @@ public class PartModelTests
         Tolerance.AssertClose(Cvd(-0.3 - 0.005 * 0), new ShiftedSensor(new PlatinumRtd(100), RtdToleranceClass.B, -1).ResistanceOhms(0), 1e-12);
     }
 
+    [Theory]
+    [InlineData(1)]
+    [InlineData(-1)]
+    public void A_shifted_RTDs_valid_range_ends_where_the_shifted_curve_reaches_the_standards_ends(double fraction)
+    {
+        // Class B at f: t + f·(0.3 + 0.005·|t|) is the nominal curve's −200 °C and 850 °C (IEC 60751's range) at the
+        // unit's range ends, t = (850 − 0.3f)/(1 + 0.005f) and (−200 − 0.3f)/(1 − 0.005f) (solved by hand); a model built
+        // on the unit may read its ends without leaving the nominal curve's range.
+        var unit = new ShiftedSensor(new PlatinumRtd(100), RtdToleranceClass.B, fraction);
+        Tolerance.AssertClose((850 - 0.3 * fraction) / (1 + 0.005 * fraction), unit.ValidRange.MaxCelsius, 1e-12);
+        Tolerance.AssertClose((-200 - 0.3 * fraction) / (1 - 0.005 * fraction), unit.ValidRange.MinCelsius, 1e-12);
+        var nominal = new PlatinumRtd(100);
+        Tolerance.AssertClose(nominal.ResistanceOhms(850), unit.ResistanceOhms(unit.ValidRange.MaxCelsius), 1e-12);
+        Tolerance.AssertClose(nominal.ResistanceOhms(-200), unit.ResistanceOhms(unit.ValidRange.MinCelsius), 1e-12);
+    }
+
     /// <summary>
     /// IEEE Std 1241 static errors: transitions scaled by (1 + gain error) and shifted by the offset; the INL bow is
     /// zero at both ends of the scale and equal to the INL at mid-scale (end-point definition).

@@ -46,7 +46,25 @@ internal static class ChannelSettling
             var result = Judge(readings, final, lsb, d.ReadingsDiscarded, other, celsius, filter, start);
             if (worst is null || Math.Abs(result.FirstUsedErrorVolts) > Math.Abs(worst.FirstUsedErrorVolts)) worst = result;
         }
-        return worst!;
+        return worst! with { Trace = Trace(d, worst.Readings, n => samples(n, worst.OtherChannelVolts)) };
+    }
+
+    /// <summary>Points of the pin's trace a report draws: the modulator samples up to the last reading, at most this many.</summary>
+    public const int TracePoints = 600;
+
+    /// <summary>
+    /// The modulator's samples from the switch to the last reading followed, decimated evenly to at most
+    /// <see cref="TracePoints"/> (every sample while there are fewer), for the report's plot of the switch. Sample n is
+    /// placed at (n + 1)/f_mod, the readings' clock (<see cref="FilterReading.Seconds"/>: reading k at its last sample's).
+    /// </summary>
+    private static SettlingTrace Trace(DeltaSigmaSpec d, IReadOnlyList<FilterReading> readings, Func<long, double> sample)
+    {
+        var last = (long)Math.Round(readings[^1].Seconds * d.ModulatorRateHertz) - 1;
+        var step = Math.Max(1, (last + 1 + TracePoints - 1) / TracePoints);
+        var indices = new List<long>();
+        for (long n = 0; n <= last; n += step) indices.Add(n);
+        if (indices[^1] != last) indices.Add(last);
+        return new SettlingTrace([.. indices.Select(n => (n + 1) / d.ModulatorRateHertz)], [.. indices.Select(sample)]);
     }
 
     /// <summary>The readings to follow: the filter's settling, the analog transient's 20 time constants and the discarded ones, with two more.</summary>
@@ -74,14 +92,7 @@ internal static class ChannelSettling
         var period = 1 / d.ModulatorRateHertz;
         if (d.InputBuffered)
         {
-            // The buffer's current pulls the reservoir from the unloaded to the loaded level: single pole.
-            var tau = AnalogTimeConstant(design, d, load);
-            return (n, other) =>
-            {
-                var from = start == ChannelStart.OwnFilter ? load.UnloadedVolts : other;
-                var t = (n + 0.5) * period + (start == ChannelStart.SwitchOn ? SwitchOnLeadSeconds(design) : 0);
-                return load.SwitchedVolts + (from - load.SwitchedVolts) * (tau > 0 ? Math.Exp(-t / tau) : 0);
-            };
+            return (n, other) => BufferedSample(design, d, load, start, other, n);
         }
         var cache = new Dictionary<double, double[]>();
         var lead = start == ChannelStart.SwitchOn ? SwitchOnLeadSeconds(design) : 0;
@@ -92,6 +103,19 @@ internal static class ChannelSettling
                 cache[key] = values = Simulate(design, d, celsius, load, count, engine, start == ChannelStart.OwnFilter ? null : other, lsb, lead);
             return n < values.Length ? values[n] : load.SwitchedVolts;
         };
+    }
+
+    /// <summary>
+    /// A buffered input's modulator sample n, at (n + ½)·T (plus the switch-on lead): the buffer's current pulls the
+    /// reservoir from where it starts (its unloaded level with its own filter, the other channel's with a shared one, 0 V
+    /// at switch-on) to the loaded level, a single pole of <see cref="AnalogTimeConstant"/> (elementary).
+    /// </summary>
+    internal static double BufferedSample(FrontEndDesign design, DeltaSigmaSpec d, InputLoad load, ChannelStart start, double other, long n)
+    {
+        var tau = AnalogTimeConstant(design, d, load);
+        var from = start == ChannelStart.OwnFilter ? load.UnloadedVolts : other;
+        var t = (n + 0.5) / d.ModulatorRateHertz + (start == ChannelStart.SwitchOn ? SwitchOnLeadSeconds(design) : 0);
+        return load.SwitchedVolts + (from - load.SwitchedVolts) * (tau > 0 ? Math.Exp(-t / tau) : 0);
     }
 
     /// <summary>
@@ -195,4 +219,10 @@ public sealed record ChannelSettlingResult(double Celsius, ChannelStart Start, d
 {
     /// <summary>Whether the first reading used is more than ½ LSB from the settled one.</summary>
     public bool FirstUsedOff => Math.Abs(FirstUsedErrorVolts) > LsbVolts / 2;
+
+    /// <summary>The modulator's samples of the pin from the switch to the last reading (decimated), for the report's plot; empty when not recorded.</summary>
+    public SettlingTrace Trace { get; init; } = new([], []);
 }
+
+/// <summary>Modulator samples after a switch: when each was taken (seconds on the readings' clock) and its voltage as the input capacitor left the pin.</summary>
+public sealed record SettlingTrace(double[] Seconds, double[] Volts);

@@ -36,12 +36,8 @@ internal static class DeltaSigmaDecks
     /// <summary>The transient after a channel switch, covering <see cref="DeckOptions.Conversions"/> readings.</summary>
     private static string Transient(FrontEndDesign design, DeltaSigmaSpec d, DeckOptions options)
     {
-        if (d.InputBuffered)
-            throw new ConverterUnsupportedException(
-                $"{design.Name}: a buffered delta-sigma input draws only its input current, and its settling after a channel switch is the single pole " +
-                "I·R_s with τ = R_s·C in closed form (docs/methods.md), with no switched circuit to simulate; there is no transient deck for it. " +
-                "Write the dc, ac or noise deck, or describe the input as unbuffered with its sampling_capacitance.");
         var celsius = options.TemperatureCelsius ?? (design.Check.Range.MinCelsius + design.Check.Range.MaxCelsius) / 2;
+        if (d.InputBuffered) return BufferedSwitchDeck.Write(design, d, celsius, options);
         var other = OtherChannelVolts(design, celsius);
         var circuit = ChannelSettling.SwitchCircuit(design, celsius, other, 0);
         var filter = SincFilter.Of(d);
@@ -57,11 +53,15 @@ internal static class DeltaSigmaDecks
                    (other is null || d.FilterReset ? "" : "; samples before the switch count as the other channel's voltage");
         return SpiceDeckWriter.Write(circuit, sweep,
             FrontEndDecks.Header(design, circuit, what,
-                I($"prints last_sample_k for k = 1 … {options.Conversions}: the modulator's last sample in reading k (n_k = {string.Join(", ", ends.Take(3))}, …)")),
+                I($"prints last_sample_k for k = 1 … {options.Conversions}: the modulator's last sample in reading k (n_k = {string.Join(", ", ends.Take(3))}, …), ") +
+                "read T/1000 before the input switch opens (SPICE opens a switch at the first time point past its threshold, so the instant itself is not sharp; the capacitor follows the pin there)"),
             options.PrintFigures
-                ? [.. ends.Select((n, k) => new MeasureAt(I($"last_sample_{k + 1}"), InputLoading.InputNode, ChannelSettling.SampleSeconds(d, n)))]
+                ? [.. ends.Select((n, k) => new MeasureAt(I($"last_sample_{k + 1}"), InputLoading.InputNode, MeasureSeconds(d, n)))]
                 : []);
     }
+
+    /// <summary>Where the deck reads modulator sample n: T/1000 before its switch opens, where both engines agree (docs/methods.md, section 15).</summary>
+    public static double MeasureSeconds(DeltaSigmaSpec d, long n) => ChannelSettling.SampleSeconds(d, n) - 1e-3 / d.ModulatorRateHertz;
 
     /// <summary>
     /// The other channel's voltage a shared filter holds at the switch: the farther of 0 V and full scale from this

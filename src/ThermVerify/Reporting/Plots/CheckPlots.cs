@@ -11,7 +11,8 @@ internal static class CheckPlots
         [
             TransferPlot.Render(result),
             ErrorPlot.Render(result),
-            WaveformPlot.Render(result, result.Waveform),
+            // A delta-sigma converter has no acquisition window: its channel switch takes the sampling figure's place.
+            result.DeltaSigma is { } ds ? ChannelSwitchPlot.Render(result, ds.ChannelSwitch) : WaveformPlot.Render(result, result.Waveform),
             SensitivityPlot.Render(result),
             .. BufferPlots.Render(result.Buffer),
         ];

@@ -118,3 +118,28 @@ public class SwitchOnSettlingTests
         Assert.True(r.ReadingsToDiscard > 0);
     }
 }
+
+/// <summary>The trace of the pin a channel switch records for the report's figure.</summary>
+public class ChannelSettlingTraceTests
+{
+    [Fact]
+    public void The_trace_is_the_modulator_samples_decimated_and_ends_at_the_last_reading()
+    {
+        // The buffered single pole: sample n is the loaded level plus (unloaded − loaded)·e^(−(n + 0.5)·T/τ), τ = R_s·C
+        // (elementary); the trace holds it at (n + 1)·T on the readings' clock, at most 600 points up to the last reading.
+        var design = DeltaSigmaDesigns.Make(("adc.input", "\"buffered\""), ("adc.sampling_capacitance", null), ("adc.input_current", "\"+50 nA\""),
+            ("adc.filter", "\"sinc1\""), ("adc.data_rate", "\"1 kHz\""), ("filter.series_resistor", "\"10 kohm\""), ("filter.reservoir_capacitor", "\"100 nF\""));
+        var r = ChannelSettling.At(design, 25, BuiltInEngine.Instance);
+        var load = InputLoading.At(design, 25, BuiltInEngine.Instance);
+        var t = 1 / 256e3;
+        var tau = 15e3 * 100e-9;
+        Assert.InRange(r.Trace.Seconds.Length, 2, ChannelSettling.TracePoints + 1);
+        Assert.Equal(r.Readings[^1].Seconds, r.Trace.Seconds[^1], 12);
+        for (var i = 0; i < r.Trace.Seconds.Length; i++)
+        {
+            var n = Math.Round(r.Trace.Seconds[i] / t) - 1;
+            var expected = load.SwitchedVolts + (load.UnloadedVolts - load.SwitchedVolts) * Math.Exp(-(n + 0.5) * t / tau);
+            Tolerance.AssertClose(expected, r.Trace.Volts[i], 1e-12, 1e-15, $"sample {n}");
+        }
+    }
+}
