@@ -108,6 +108,32 @@ public class DeltaSigmaSwitchCrossCheckTests(ITestOutputHelper output)
 
     [NgspiceTheory]
     [MemberData(nameof(ExampleDesigns.DeltaSigma), MemberType = typeof(ExampleDesigns))]
+    public void The_ac_and_noise_decks_of_a_delta_sigma_design_print_the_response_and_the_noise_density(string file)
+    {
+        // The noise a delta-sigma reading starts from is the density at the pin of this circuit (DeltaSigmaNoise); what
+        // `ngspice -b` prints of the decks against the built-in AC and noise analyses, within the limits of every deck
+        // (0.01 dB, 0.1°, 1 %; RunnableDeckTests).
+        var design = ExampleDesigns.Load(file);
+        var celsius = (design.Check.Range.MinCelsius + design.Check.Range.MaxCelsius) / 2;
+        var pin = FrontEndCircuit.PinNode(design);
+        var ac = BatchOutput.Run(FrontEndDecks.Write(design, DeckAnalysis.Ac));
+        var frequencies = ac.Column("frequency").ToArray();
+        var response = ThermVerify.Simulation.AcAnalysis.Run(FrontEndDecks.AcCircuit(design, celsius), ThermVerify.Simulation.FrequencySweep.At(frequencies)).Voltage(pin);
+        for (var k = 0; k < frequencies.Length; k++)
+        {
+            Tolerance.AssertClose(20 * Math.Log10(response[k].Magnitude), ac.Column($"vdb({pin})")[k], 0, 0.01, $"{file}: dB at {frequencies[k]:G4} Hz");
+            Tolerance.AssertClose(response[k].Phase, ac.Column($"vp({pin})")[k], 0, 0.1 * Math.PI / 180, $"{file}: phase at {frequencies[k]:G4} Hz");
+        }
+        var noise = BatchOutput.Run(FrontEndDecks.Write(design, DeckAnalysis.Noise));
+        var noiseFrequencies = noise.Column("frequency").ToArray();
+        var density = ThermVerify.Simulation.NoiseAnalysis.Run(FrontEndDecks.AcCircuit(design, celsius), pin, ThermVerify.Simulation.FrequencySweep.At(noiseFrequencies)).OutputDensity;
+        Assert.True(noiseFrequencies.Length > 20);
+        for (var k = 0; k < noiseFrequencies.Length; k++)
+            Tolerance.AssertClose(density[k], noise.Column("onoise_spectrum")[k], 0.01, 0, $"{file}: noise at {noiseFrequencies[k]:G4} Hz");
+    }
+
+    [NgspiceTheory]
+    [MemberData(nameof(ExampleDesigns.DeltaSigma), MemberType = typeof(ExampleDesigns))]
     public void The_sweep_deck_prints_the_pin_with_the_inputs_average_load(string file)
     {
         // The deck's sweep against the built-in operating point of the check's circuit with the load (InputLoading.Average)
