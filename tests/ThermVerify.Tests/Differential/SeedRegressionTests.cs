@@ -126,6 +126,21 @@ public class SeedRegressionTests
     }
 
     /// <summary>
+    /// Seed 134 (linear: four nodes, two switches, S2 closed at t = 0): AC 38 dB apart, ngspice's switch in AC. The
+    /// switch view once opened S2 by adding 1/R_off − 1/R_on to slots holding 1/R_on, which left 1/R_off (7.3e-12 S)
+    /// with the slots' rounding (about 5e-17 S): 2.5e-6 dB on the node S2 feeds, above the limit, so the disagreement
+    /// stayed unexplained. A linear circuit's view now stamps the switch off as it is; the engines then agree to 1e-14 dB.
+    /// </summary>
+    [NgspiceFact]
+    public void A_linear_circuits_switch_view_stamps_the_open_switch_without_cancellation()
+    {
+        var rc = RandomCircuitGenerator.Generate(134, CircuitClass.Linear, 15)!;
+        var c = DifferentialCase.Run(rc, new HashSet<DifferentialAnalysis> { DifferentialAnalysis.Ac }).Comparisons.Single();
+        Assert.True(c.Difference > 1);
+        Assert.StartsWith("ngspice's switch in AC", c.Explanation);
+    }
+
+    /// <summary>
     /// Seed 1075 (a follower U1 with a finite slew rate, a closed switch): AC 0.11 dB apart, of which the switch view
     /// leaves 2e-6 dB on the follower's output, a constant ratio of 2.3e-7 above its pole. That is 1 − sech²(x₀), with
     /// x₀ = 2π·GBW·v_d0/SR = 21.57 /V × −22.3 µV at the operating point (v_d0 from the deck's own .op: inp_os − n9,
