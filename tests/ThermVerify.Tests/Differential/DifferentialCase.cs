@@ -308,6 +308,20 @@ internal static class DifferentialCase
     /// <summary>The AC or noise metric of the engine with its op-amps at their tanh's slope (<see cref="SlewTanhView"/>), in ngspice's switch view if it applies.</summary>
     private static double InTanhView(RandomCircuit rc, DifferentialAnalysis analysis, NgspicePlot plot)
     {
+        try
+        {
+            return TanhViewMetric(rc, analysis, plot);
+        }
+        catch (Exception e) when (e is SimulationException or CircuitException or ArgumentException or InvalidOperationException)
+        {
+            // The view could not be analysed (a saturated stage, an ill-conditioned view): it explains nothing, and it
+            // must never turn into a failure of the engine's own analysis.
+            return double.PositiveInfinity;
+        }
+    }
+
+    private static double TanhViewMetric(RandomCircuit rc, DifferentialAnalysis analysis, NgspicePlot plot)
+    {
         var circuit = SlewTanhView.For(rc.Circuit);
         var frequencies = plot["frequency"].Real;
         var switches = NgspiceSwitchView.Applies(circuit);

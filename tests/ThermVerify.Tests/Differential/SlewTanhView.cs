@@ -25,7 +25,8 @@ internal static class SlewTanhView
         {
             var vd = point.Voltage(amp.NonInverting) - point.Voltage(amp.Inverting) + amp.InputOffsetVolts;
             var x = 2 * Math.PI * amp.GainBandwidthHertz * vd / amp.SlewRateVoltsPerSecond;
-            var slope = 1 - Math.Tanh(x) * Math.Tanh(x);
+            // Deep in saturation sech² underflows; the smallest positive slope keeps the macro-model valid (ngspice's is as good as zero).
+            var slope = Math.Max(1 - Math.Tanh(x) * Math.Tanh(x), 1e-300);
             scaled = scaled.Replace(amp with { OpenLoopGain = amp.OpenLoopGain * slope, GainBandwidthHertz = amp.GainBandwidthHertz * slope });
         }
         return scaled;
