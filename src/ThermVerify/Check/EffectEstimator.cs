@@ -102,13 +102,10 @@ internal static class EffectEstimator
     /// A delta-sigma converter's input through the resistance the pin sees: unbuffered, R_eq = 1/(f_mod·C) to ground
     /// divides the pin, −V·R_s/(R_s + R_eq) (Johns &amp; Martin); buffered, its input current, −I_in·R_s (Ohm's law).
     /// </summary>
-    private static double DeltaSigmaInputLoadVolts(FrontEndDesign design, ClosedFormPoint point, double sourceOhms)
-    {
-        if (design.Adc.DeltaSigma is not { } d) return 0;
-        if (d.InputBuffered) return -d.InputCurrentAmperes * sourceOhms;
-        var req = FrontEnd.DeltaSigma.InputLoading.EquivalentOhms(d);
-        return -point.IdealVolts / design.Adc.ProgrammableGain * sourceOhms / (sourceOhms + req);
-    }
+    private static double DeltaSigmaInputLoadVolts(FrontEndDesign design, ClosedFormPoint point, double sourceOhms) =>
+        design.Adc.DeltaSigma is { } d
+            ? FrontEnd.DeltaSigma.InputLoading.ClosedFormShiftVolts(d, point.IdealVolts / design.Adc.ProgrammableGain, sourceOhms)
+            : 0;
 
     /// <summary>
     /// 2 wires to a divider's sensor: the divider with R_s + 2·R_L against R_s, times the buffer's gain; 3 wires in a

@@ -9,7 +9,7 @@ namespace ThermVerify.Tolerances;
 /// A unit read by a delta-sigma converter: its static reading, the settled output of the digital filter. The unit's
 /// DC levels (its own circuit, swept as for any unit) carry the input's average load as the check's input-loading
 /// analysis computes it: an unbuffered input as R_eq = 1/(f_mod·C) from the pin to ground, a buffered one as its input
-/// current (InputLoading.Average), each simulated on the unit's own circuit at every temperature, and its shift of the
+/// current (AverageInputLoad, as the check reads them), each simulated on the unit's own circuit at every temperature, and its shift of the
 /// pin added to the unit's levels (superposition, exact for the linear DC circuit). In `montecarlo` (unless
 /// --no-unit-settling) each unit's first reading used after a channel switch (and after the excitation's switch-on
 /// where the divider is switched) is simulated with its own parts through the digital filter, as `check` simulates the
@@ -54,9 +54,6 @@ internal static class DeltaSigmaUnit
         Check.DeltaSigma.DeltaSigmaFindings.Starts(unit)
             .Max(s => Math.Abs(ChannelSettling.At(unit, celsius, BuiltInEngine.Instance, s).FirstUsedErrorVolts / model.At(celsius).VoltsPerKelvin));
 
-    /// <summary>The unit's DC levels with the input's average load (<see cref="AverageInputLoad"/>, as the check reads them).</summary>
-    public static DcCorners WithInputLoad(DcCorners dc, FrontEndDesign unit, IReadOnlyList<double> temperatures) =>
-        AverageInputLoad.Added(dc, unit, temperatures);
 }
 
 /// <summary>

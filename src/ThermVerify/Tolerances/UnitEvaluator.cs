@@ -1,6 +1,7 @@
 using ThermVerify.Check;
 using ThermVerify.Design;
 using ThermVerify.FrontEnd;
+using ThermVerify.FrontEnd.DeltaSigma;
 using ThermVerify.Sensors;
 
 namespace ThermVerify.Tolerances;
@@ -88,7 +89,7 @@ internal sealed class UnitEvaluator
         double? channelSwitch = null;
         if (IsDeltaSigma)
         {
-            dc = DeltaSigmaUnit.WithInputLoad(dc, unit.Design, Temperatures);
+            dc = AverageInputLoad.Added(dc, unit.Design, Temperatures);
             // No acquisition window: the unit's own settling is its channel switch through the digital filter.
             if (simulateSettling) channelSwitch = DeltaSigmaUnit.SwitchKelvin(unit.Design, SwitchCelsius, Model);
             simulateSettling = false;

@@ -74,7 +74,7 @@ public class DeltaSigmaToleranceTests
         var unit = BuiltUnit.Build(design, evaluator.Model.Sensor, evaluator.Set, new double[evaluator.Set.Count]).Design;
         var cases = ThermVerify.FrontEnd.PrechargeCases.For(unit, evaluator.Model.Adc.ReferenceVolts);
         var dc = ThermVerify.FrontEnd.DcCorners.Run(unit, cases, evaluator.Temperatures);
-        var loaded = DeltaSigmaUnit.WithInputLoad(dc, unit, evaluator.Temperatures);
+        var loaded = ThermVerify.FrontEnd.DeltaSigma.AverageInputLoad.Added(dc, unit, evaluator.Temperatures);
         var req = 1 / (256e3 * 8e-12);
         var model = new ThermVerify.FrontEnd.ClosedFormModel(unit);
         for (var i = 0; i < evaluator.Temperatures.Length; i++)

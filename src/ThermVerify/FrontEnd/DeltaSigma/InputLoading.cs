@@ -32,6 +32,13 @@ internal static class InputLoading
     /// <summary>R_eq = 1/(f_mod·C): the average resistance of the unbuffered input.</summary>
     public static double EquivalentOhms(DeltaSigmaSpec d) => 1 / (d.ModulatorRateHertz * d.SamplingCapacitanceFarads);
 
+    /// <summary>
+    /// The closed form of the load's shift of the pin: buffered, −I·R_s (Ohm's law); unbuffered, R_eq divides the pin's
+    /// Thévenin source, −V·R_s/(R_s + R_eq) (Johns &amp; Martin).
+    /// </summary>
+    public static double ClosedFormShiftVolts(DeltaSigmaSpec d, double unloadedVolts, double sourceOhms) =>
+        d.InputBuffered ? -d.InputCurrentAmperes * sourceOhms : -unloadedVolts * sourceOhms / (sourceOhms + EquivalentOhms(d));
+
     /// <summary>The resistance the pin is driven through: the sensor side's Thévenin resistance (or a buffer's isolation resistor) and the filter's series resistor.</summary>
     public static double SourceOhms(FrontEndDesign design, ClosedFormPoint point) =>
         (design.Buffer is { } b ? b.IsolationResistorOhms : point.TheveninOhms) + design.Filter.SeriesResistorOhms;
@@ -76,12 +83,12 @@ internal static class InputLoading
         var unloaded = OperatingPoint.Solve(FrontEndCircuit.Dc(design, null, celsius)).Voltage(pin);
         var average = OperatingPoint.Solve(Average(design, celsius)).Voltage(pin);
         var source = SourceOhms(design, point);
+        var closedForm = unloaded + ClosedFormShiftVolts(d, unloaded, source);
         if (d.InputBuffered)
-            return new InputLoad(celsius, true, unloaded, average, average, unloaded - d.InputCurrentAmperes * source, double.PositiveInfinity, source);
-        var req = EquivalentOhms(d);
+            return new InputLoad(celsius, true, unloaded, average, average, closedForm, double.PositiveInfinity, source);
         var run = engine.StartTransient(Switched(design, celsius), new TransientOptions { StopTimeSeconds = 1 / d.ModulatorRateHertz });
         var switched = run.TryPeriodicSteadyState(InputSwitch, InputNode, out var steady) ? steady : SteppedSteadyState(design, celsius, engine);
-        return new InputLoad(celsius, false, unloaded, switched, average, unloaded * req / (source + req), req, source);
+        return new InputLoad(celsius, false, unloaded, switched, average, closedForm, EquivalentOhms(d), source);
     }
 
     /// <summary>
