@@ -43,6 +43,8 @@ public static class CheckJson
             sample = "the worst reading over the precharge cases, the first conversion (from the settled pin) and the steady state, and the INL sign",
             contributions = "walked from the closed form to the code one cause at a time, each step through the exact inverse; they add up to the error",
         },
+        // The tolerances of nominal-valued parts: this verdict is of the unit with each at nominal (worstcase and montecarlo spread them).
+        nominalParts = Tolerances.NominalValuedTolerances.Of(r.Design).Select(p => new { key = p.Key, halfWidth = p.HalfWidth, unit = p.Unit }),
         precharge = new
         {
             mode = ReportFormat.PrechargeText(r.Design.Adc.Precharge),

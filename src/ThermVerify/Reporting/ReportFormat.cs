@@ -90,6 +90,19 @@ internal static class ReportFormat
           $"{(ds.FilterReset ? " reset on a channel change" : " not reset on a channel change")}, {ds.ReadingsDiscarded} reading(s) discarded"
         : $"{V(d.Adc.SampleRateHertz, UnitKind.Hertz)}, acquisition {V(d.Adc.AcquisitionTimeSeconds, UnitKind.Second)}";
 
+    /// <summary>
+    /// The declared tolerances of nominal-valued parts, which `check` leaves at nominal and `worstcase` and `montecarlo`
+    /// spread; null when the design declares none. Said in every check's header so that a PASS is not read as covering them.
+    /// </summary>
+    public static string? NominalPartsLine(Design.FrontEndDesign d)
+    {
+        var tolerances = Tolerances.NominalValuedTolerances.Of(d);
+        if (tolerances.Count == 0) return null;
+        var items = tolerances.Select(p => p.Kind == Tolerances.ToleranceKind.RtdClass && d.Sensor is Design.RtdSensorSpec { ToleranceClass: { } c }
+            ? $"sensor.class {c}" : $"{p.Key} ±{Text.ToleranceText.HalfWidth(p)}");
+        return $"parts at their nominal values in this verdict; `thermverify worstcase` and `montecarlo` spread {string.Join(", ", items)}";
+    }
+
     /// <summary>The precharge setting and the cases it covers, for headers.</summary>
     public static string PrechargeLine(CheckResult r) =>
         r.PrechargeCases.Count == 1
@@ -188,7 +201,8 @@ internal static class ReportFormat
           $": full scale at the pin {V(adc.ReferenceVolts, UnitKind.Volt)}";
 
     public static IEnumerable<(string Label, string Value)> Settings(CheckResult result) =>
-        Settings(result.Design, result.SensorDescription, result.Adc).Append(("precharge", PrechargeLine(result)));
+        Settings(result.Design, result.SensorDescription, result.Adc).Append(("precharge", PrechargeLine(result)))
+            .Concat(NominalPartsLine(result.Design) is { } parts ? [("nominal", parts)] : []);
 
     /// <summary>The design in a few lines, for any report on it: sensor, divider, buffer, filter, ADC and the check's range and budget.</summary>
     public static IEnumerable<(string Label, string Value)> Settings(Design.FrontEndDesign d, string sensorDescription, AdcTransfer adc)

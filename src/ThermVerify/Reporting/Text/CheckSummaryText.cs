@@ -28,6 +28,7 @@ public static class CheckSummaryText
         if (d.Adc.DeltaSigma is null) text.AppendLine($"  precharge {ReportFormat.PrechargeLine(result)}");
         text.AppendLine($"  check    {V(d.Check.Range.MinCelsius, UnitKind.Celsius)} to {V(d.Check.Range.MaxCelsius, UnitKind.Celsius)} in {V(d.Check.StepKelvin, UnitKind.Kelvin)} steps, budget {V(d.Check.BudgetKelvin, UnitKind.Kelvin)}" +
                         string.Concat(d.Check.Regions.Select(r => $" ({r.Range}: {V(r.BudgetKelvin, UnitKind.Kelvin)})")));
+        if (ReportFormat.NominalPartsLine(d) is { } parts) text.AppendLine($"  nominal  {parts}");
         ProvenanceText.Append(text, provenance);
         text.AppendLine();
 
