@@ -10,10 +10,11 @@ namespace ThermVerify.FrontEnd.DeltaSigma;
 /// palindromic (each moving sum's is) and so equals its reverse Σ_j h_j·X^(ℓ−1−j). The filter's structure gives P(X)
 /// in a few matrix products: N moving sums of M and a mean of L outputs M apart are
 /// P(X) = [B_M(X)/M]^N · B_L(X^M)/L with the geometric sums B_n(Y) = Σ_(a&lt;n) Y^a, each by doubling
-/// (B_2m = B_m + Y^m·B_m, B_(m+1) = B_m + Y^m). One reading to the next is one product with X^(M·L). Readings whose
+/// (B_2m = B_m + Y^m·B_m, B_(m+1) = B_m + Y^m). One reading to the next is one product with X^(M·L). A reading whose
 /// window reaches before n₀ (a filter without reset still holding the other channel, or the schedules still starting)
-/// are summed tap by tap over the samples the recurrence gives there. The cost is a few dozen products of (r+1)×(r+1)
-/// matrices instead of a matrix-vector product per modulator sample.
+/// takes the recurrence's part through the filter's integrator-comb form (<see cref="PartialWindows"/>) and the early
+/// samples and the history tap by tap. The cost is a few dozen products of small matrices instead of a matrix-vector
+/// product per modulator sample.
 /// </summary>
 internal static class RecurrenceReadings
 {
@@ -28,21 +29,18 @@ internal static class RecurrenceReadings
         var k = 1 + (reset ? filter.SettlingConversions - 1 : 0);
         long End(long reading) => reading * perReading - 1;
 
-        // Windows reaching before n₀, tap by tap.
+        // Windows reaching before n₀: the recurrence's part through the integrator-comb form, the early samples and the history tap by tap.
         var partial = 0;
         while (partial < count && End(k + partial) - (taps - 1) < n0) partial++;
         if (partial > 0)
         {
-            var s = samples.Stepped((int)Math.Min(int.MaxValue, End(k + partial - 1) + 1));
+            var fromRecurrence = PartialWindows(filter, samples, [.. Enumerable.Range(0, partial).Select(i => End(k + i) - n0)]);
             for (var i = 0; i < partial; i++, k++)
             {
                 var end = End(k);
-                var sum = 0.0;
-                for (var j = 0; j < taps; j++)
-                {
-                    var n = end - j;
-                    sum += h[j] * (n >= 0 ? s[n] : reset ? 0 : history);
-                }
+                var sum = fromRecurrence[i];
+                for (var m = Math.Max(0, end - (taps - 1)); m < n0 && m <= end; m++) sum += h[(int)(end - m)] * samples.EarlyVolts[m];
+                if (!reset) sum += history * (1 - filter.StepAt(end));
                 list.Add(new FilterReading(list.Count + 1, (end + 1) / filter.ModulatorRateHertz, sum));
             }
         }
@@ -63,6 +61,74 @@ internal static class RecurrenceReadings
             state = Apply(perReadingPower, state, q);
         }
         return list;
+    }
+
+    /// <summary>
+    /// Σ_(i=0..p) h_(p−i)·s_(n₀+i) for each p (a window that starts before the recurrence does), from the filter as
+    /// integrators and combs (Hogenauer, "An economical class of digital filters for decimation and interpolation", IEEE
+    /// Trans. ASSP 29(2), 1981, from memory): H(z) = G(z)/(1 − z⁻¹)^N with the comb G(z) = (1 − z^−M)^(N−1)·(1 − z^−ML)/(M^N·L),
+    /// so the output at p is Σ_l g_l·I_(p−d_l) over the comb's terms g_l·z^(−d_l), I the N-fold running sum of the input
+    /// (zero before it starts). The input u_i = X^i·ẑ and its running sums c_1 … c_N advance together by one block
+    /// matrix T (u ← X·u, c_k ← c_1 + … + c_k + X·u), so I at the points p − d_l, all M apart, takes T^b and T^M once
+    /// and a product each.
+    /// </summary>
+    private static double[] PartialWindows(SincFilter filter, LinearSampleSequence samples, long[] ends)
+    {
+        var q = samples.StateCount + 1;
+        var n = filter.Order;
+        var m = (long)filter.Decimation;
+        var comb = Comb(filter);
+        var size = (n + 1) * q;
+        var x = Augmented(samples);
+        var t = new double[size * size];
+        for (var block = 0; block <= n; block++)
+        {
+            for (var i = 0; i < q; i++)
+                for (var j = 0; j < q; j++)
+                    t[(block * q + i) * size + j] = x[i * q + j];
+            for (var c = 1; c <= block; c++)
+                for (var i = 0; i < q; i++)
+                    t[(block * q + i) * size + c * q + i] = 1;
+        }
+        double[] z = [.. samples.State, 1];
+        var state = new double[size];
+        for (var block = 0; block <= n; block++) Array.Copy(z, 0, state, block * q, q);
+
+        // Every point p − d_l is b + a·M (the ends and the comb's delays are M apart): I at a = 0, 1, … in turn.
+        var points = ends.SelectMany(p => comb.Select(g => p - g.Delay)).Where(p => p >= 0).ToArray();
+        var values = new Dictionary<long, double>();
+        if (points.Length > 0)
+        {
+            var b = points.Min() % m;
+            var perDecimation = Power(t, m, size);
+            state = Apply(Power(t, b, size), state, size);
+            double[] row = [.. samples.Row, samples.Constant];
+            for (long p = b; p <= points.Max(); p += m)
+            {
+                var value = 0.0;
+                for (var i = 0; i < q; i++) value += row[i] * state[n * q + i];
+                values[p] = value;
+                if (p + m <= points.Max()) state = Apply(perDecimation, state, size);
+            }
+        }
+        return [.. ends.Select(p => comb.Sum(g => p - g.Delay >= 0 ? g.Coefficient * values[p - g.Delay] : 0))];
+    }
+
+    /// <summary>The comb G(z) = (1 − z^−M)^(N−1)·(1 − z^−ML)/(M^N·L) as its terms (coefficient, delay in samples).</summary>
+    private static (double Coefficient, long Delay)[] Comb(SincFilter filter)
+    {
+        long m = filter.Decimation;
+        var terms = new Dictionary<long, double> { [0] = 1 };
+        void Times(long delay)
+        {
+            var next = new Dictionary<long, double>(terms);
+            foreach (var (d, c) in terms) next[d + delay] = next.GetValueOrDefault(d + delay) - c;
+            terms = next;
+        }
+        for (var stage = 1; stage < filter.Order; stage++) Times(m);
+        Times(m * filter.AverageLength);
+        var scale = Math.Pow(m, filter.Order) * filter.AverageLength;
+        return [.. terms.Where(e => e.Value != 0).Select(e => (e.Value / scale, e.Key))];
     }
 
     /// <summary>
