@@ -1,3 +1,4 @@
+using System.Diagnostics.CodeAnalysis;
 using System.Numerics;
 using ThermVerify.Circuits;
 using ThermVerify.Simulation;
@@ -134,6 +135,9 @@ public sealed class BuiltInEngine : ICheckEngine
             var resume = Math.Min(v.ToSeconds, Math.Max(stepped!.TimeSeconds, v.AtSeconds) + stretch);
             return resume;
         }
+
+        public bool TryLinearSamples(string samplingSwitch, string node, [NotNullWhen(true)] out LinearSampleSequence? sequence) =>
+            exact.TryLinearSamples(samplingSwitch, node, out sequence);
 
         public bool TryPeriodicSteadyState(string samplingSwitch, string node, out double volts)
         {

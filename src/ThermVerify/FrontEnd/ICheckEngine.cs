@@ -1,6 +1,8 @@
+using System.Diagnostics.CodeAnalysis;
 using System.Numerics;
 using ThermVerify.Circuits;
 using ThermVerify.Simulation;
+using ThermVerify.Simulation.Switched;
 
 namespace ThermVerify.FrontEnd;
 
@@ -49,6 +51,17 @@ internal interface ISampledTransient
     bool TryPeriodicSteadyState(string samplingSwitch, string node, out double volts)
     {
         volts = double.NaN;
+        return false;
+    }
+
+    /// <summary>
+    /// The node read each time <paramref name="samplingSwitch"/> opens, as a linear recurrence the engine has composed
+    /// (exact propagation: <see cref="LinearSampleSequence"/>), so that any number of conversions follows without
+    /// stepping them; false where the engine can only run conversion after conversion.
+    /// </summary>
+    bool TryLinearSamples(string samplingSwitch, string node, [NotNullWhen(true)] out LinearSampleSequence? sequence)
+    {
+        sequence = null;
         return false;
     }
 }

@@ -1,7 +1,9 @@
 using System.Collections.Concurrent;
+using System.Diagnostics.CodeAnalysis;
 using System.Numerics;
 using ThermVerify.Circuits;
 using ThermVerify.Simulation;
+using ThermVerify.Simulation.Switched;
 
 namespace ThermVerify.FrontEnd;
 
@@ -86,6 +88,15 @@ internal sealed class MemoizingEngine(ICheckEngine inner) : ICheckEngine
         {
             volts = Read(double.NaN, node, samplingSwitch, out var found);
             return found;
+        }
+
+        /// <summary>A pure function of the circuit: composed once per run by a run of its own and kept (the sequence is never changed).</summary>
+        public bool TryLinearSamples(string samplingSwitch, string node, [NotNullWhen(true)] out LinearSampleSequence? sequence)
+        {
+            var key = (new SmallSignalKey(circuit, "linear samples " + samplingSwitch + " " + node, 0, 0, 0, []), options);
+            sequence = owner.Remember<LinearSampleSequence?[]>(key, () =>
+                [owner.Inner.StartTransient(circuit, options).TryLinearSamples(samplingSwitch, node, out var s) ? s : null], v => v)[0];
+            return sequence is not null;
         }
 
         private double Read(double time, string node, string? samplingSwitch, out bool found)

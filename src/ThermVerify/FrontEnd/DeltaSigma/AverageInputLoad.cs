@@ -6,8 +6,8 @@ namespace ThermVerify.FrontEnd.DeltaSigma;
 /// <summary>
 /// A delta-sigma converter's DC levels with its input's average load: an unbuffered input as R_eq = 1/(f_mod·C) from
 /// the pin to ground, a buffered one as its input current (<see cref="InputLoading.Average"/>), simulated on the
-/// design's own circuit at every temperature and its shift of the pin added to every level (superposition, exact for
-/// the linear DC circuit). The check and every unit of the tolerance analyses read their levels through it, so the
+/// design's own circuit over the temperatures (a DC sweep with and without the load) and its shift of the pin added to
+/// every level (superposition, exact for the linear DC circuit). The check and every unit of the tolerance analyses read their levels through it, so the
 /// reported error carries the load that the input-loading finding shows, at every temperature.
 /// </summary>
 internal static class AverageInputLoad
@@ -18,9 +18,7 @@ internal static class AverageInputLoad
     public static DcCorners Added(DcCorners dc, FrontEndDesign design, IReadOnlyList<double> temperatures)
     {
         if (!Applies(design)) return dc;
-        var pin = FrontEndCircuit.PinNode(design);
-        var shift = temperatures.Select(t =>
-            OperatingPoint.Solve(InputLoading.Average(design, t)).Voltage(pin) - OperatingPoint.Solve(FrontEndCircuit.Dc(design, null, t)).Voltage(pin)).ToArray();
+        var shift = ShiftVolts(design, temperatures);
         DcLevels Loaded(DcLevels l) => l with
         {
             StaticPinVolts = [.. l.StaticPinVolts.Select((v, i) => v + shift[i])],
@@ -28,5 +26,22 @@ internal static class AverageInputLoad
         };
         var loaded = Loaded(dc.Base);
         return dc with { Base = loaded, Corners = [.. dc.Corners.Select(c => ReferenceEquals(c, dc.Base) ? loaded : Loaded(c))] };
+    }
+
+    /// <summary>
+    /// The load's shift of the pin at every temperature: the design's swept DC circuit with and without the load, two
+    /// sweeps (one factorisation pattern each, as every DC level is swept). A buffer whose offset drift a sweep cannot
+    /// follow (<see cref="BufferStage.DriftFollowsSweep"/>) is solved at each temperature on a circuit built for it.
+    /// </summary>
+    internal static double[] ShiftVolts(FrontEndDesign design, IReadOnlyList<double> temperatures)
+    {
+        var pin = FrontEndCircuit.PinNode(design);
+        if (BufferStage.DriftFollowsSweep(design))
+            return [.. temperatures.Select(t =>
+                OperatingPoint.Solve(InputLoading.Average(design, t)).Voltage(pin) - OperatingPoint.Solve(FrontEndCircuit.Dc(design, null, t)).Voltage(pin))];
+        var dc = FrontEndCircuit.Dc(design, null);
+        var unloaded = DcSweep.Temperature(dc, temperatures).Voltage(pin);
+        var loaded = DcSweep.Temperature(InputLoading.WithAverageLoad(design, dc), temperatures).Voltage(pin);
+        return [.. loaded.Select((v, i) => v - unloaded[i])];
     }
 }

@@ -1,6 +1,7 @@
 using ThermVerify.Circuits;
 using ThermVerify.Design;
 using ThermVerify.Simulation;
+using ThermVerify.Simulation.Switched;
 
 namespace ThermVerify.FrontEnd.DeltaSigma;
 
@@ -10,10 +11,13 @@ namespace ThermVerify.FrontEnd.DeltaSigma;
 /// while another channel was read its reservoir rested at the unloaded voltage, and the unbuffered input, joined at
 /// the switch, pulls it down to the loaded level with the time constant (R_s ∥ R_eq)·C. The modulator takes C·V of
 /// the input capacitor at the end of each charging phase: the switched transient of <see cref="InputLoading"/> read
-/// there, sample by sample, from the engine (exact propagation in the built-in one). The filter's memory holds the
+/// there. The built-in engine composes those samples as a linear recurrence (exact propagation: one period's map), and
+/// the filter's readings follow from its powers and geometric sums (<see cref="RecurrenceReadings"/>); an engine that
+/// cannot is read sample by sample and the readings summed tap by tap (<see cref="SincFilter.Readings"/>), the cross-check
+/// of the recurrence. The filter's memory holds the
 /// other channel's input unless it is reset (<see cref="SincFilter.Readings"/>); the other channel is taken at 0 V
 /// and at full scale, and the worse is reported. A buffered input draws only its current: the reservoir moves by
-/// I·R_s with τ = R_s·C (single pole, elementary). Every reading is compared with the settled reading, the filter's
+/// I·R_s with τ = R_s·C (single pole, elementary), a recurrence of one state. Every reading is compared with the settled reading, the filter's
 /// output of the periodic steady state.
 /// </summary>
 internal static class ChannelSettling
@@ -37,16 +41,62 @@ internal static class ChannelSettling
         var lsb = fullScale / Math.Pow(2, design.Adc.Bits);
         var final = load.SwitchedVolts; // the filter passes DC with gain 1: the settled reading is the steady sample
         var count = ReadingsToFollow(design, d, filter, load);
-        var samples = Samples(design, d, celsius, load, count * filter.SamplesPerReading + filter.ImpulseResponse.Count, engine, start, lsb);
+        var sequences = new Dictionary<double, LinearSampleSequence?>();
+        Func<long, double, double>? samples = null; // sample by sample, where the engine composes no recurrence
         ChannelSettlingResult? worst = null;
+        Func<IReadOnlyList<long>, double[]>? worstTrace = null;
         // Switched on, the front end starts from 0 V and the filter from nothing: one case.
         foreach (var other in start == ChannelStart.SwitchOn ? [0.0] : new[] { 0.0, fullScale })
         {
-            var readings = filter.Readings(n => samples(n, other), _ => other, count, d.FilterReset);
+            // The own filter's reservoir starts unloaded whatever the other channel was: one run serves both levels.
+            var key = start == ChannelStart.OwnFilter ? 0 : other;
+            if (!sequences.TryGetValue(key, out var sequence))
+                sequences[key] = sequence = Recurrence(design, d, celsius, load, engine, start, other);
+            IReadOnlyList<FilterReading> readings;
+            Func<IReadOnlyList<long>, double[]> trace;
+            if (sequence is not null)
+            {
+                readings = RecurrenceReadings.Of(filter, sequence, other, count, d.FilterReset);
+                trace = indices => RecurrenceReadings.SamplesAt(sequence, indices);
+            }
+            else
+            {
+                samples ??= Samples(design, d, celsius, load, count * filter.SamplesPerReading + filter.ImpulseResponse.Count, engine, start, lsb);
+                var level = other;
+                readings = filter.Readings(n => samples(n, level), _ => level, count, d.FilterReset);
+                trace = indices => [.. indices.Select(n => samples(n, level))];
+            }
             var result = Judge(readings, final, lsb, d.ReadingsDiscarded, other, celsius, filter, start);
-            if (worst is null || Math.Abs(result.FirstUsedErrorVolts) > Math.Abs(worst.FirstUsedErrorVolts)) worst = result;
+            if (worst is null || Math.Abs(result.FirstUsedErrorVolts) > Math.Abs(worst.FirstUsedErrorVolts)) (worst, worstTrace) = (result, trace);
         }
-        return worst! with { Trace = Trace(d, worst.Readings, n => samples(n, worst.OtherChannelVolts)) };
+        return worst! with { Trace = Trace(d, worst.Readings, worstTrace!) };
+    }
+
+    /// <summary>
+    /// The modulator's samples after the switch as a linear recurrence (<see cref="RecurrenceReadings"/> filters it
+    /// without following it sample by sample): a buffered input's single pole, or what the engine composes of the
+    /// switched circuit (exact propagation of a linear front end); null where the engine can only step the samples.
+    /// </summary>
+    internal static LinearSampleSequence? Recurrence(FrontEndDesign design, DeltaSigmaSpec d, double celsius, InputLoad load, ICheckEngine engine,
+        ChannelStart start, double other)
+    {
+        if (d.InputBuffered) return BufferedRecurrence(design, d, load, start, other);
+        var period = 1 / d.ModulatorRateHertz;
+        var lead = start == ChannelStart.SwitchOn ? SwitchOnLeadSeconds(design) : 0;
+        var circuit = SwitchCircuit(design, celsius, start == ChannelStart.OwnFilter ? null : other, lead);
+        var run = engine.StartTransient(circuit, new TransientOptions { StopTimeSeconds = period * 2 + lead, MaxStepSeconds = period / 20 });
+        return run.TryLinearSamples(InputLoading.InputSwitch, InputLoading.InputNode, out var sequence) ? sequence : null;
+    }
+
+    /// <summary>
+    /// <see cref="BufferedSample"/> as a recurrence of one state: s_0 = V_∞ + (V_0 − V_∞)·e^(−(T/2 + lead)/τ), then
+    /// s_(n+1) = ρ·s_n + (1 − ρ)·V_∞ with ρ = e^(−T/τ) (ρ = 0 without a time constant).
+    /// </summary>
+    internal static LinearSampleSequence BufferedRecurrence(FrontEndDesign design, DeltaSigmaSpec d, InputLoad load, ChannelStart start, double other)
+    {
+        var tau = AnalogTimeConstant(design, d, load);
+        var rho = tau > 0 ? Math.Exp(-1 / (d.ModulatorRateHertz * tau)) : 0;
+        return new LinearSampleSequence([], 1, [rho], [(1 - rho) * load.SwitchedVolts], [BufferedSample(design, d, load, start, other, 0)], [1], 0);
     }
 
     /// <summary>Points of the pin's trace a report draws: the modulator samples up to the last reading, at most this many.</summary>
@@ -57,14 +107,14 @@ internal static class ChannelSettling
     /// <see cref="TracePoints"/> (every sample while there are fewer), for the report's plot of the switch. Sample n is
     /// placed at (n + 1)/f_mod, the readings' clock (<see cref="FilterReading.Seconds"/>: reading k at its last sample's).
     /// </summary>
-    private static SettlingTrace Trace(DeltaSigmaSpec d, IReadOnlyList<FilterReading> readings, Func<long, double> sample)
+    private static SettlingTrace Trace(DeltaSigmaSpec d, IReadOnlyList<FilterReading> readings, Func<IReadOnlyList<long>, double[]> samples)
     {
         var last = (long)Math.Round(readings[^1].Seconds * d.ModulatorRateHertz) - 1;
         var step = Math.Max(1, (last + 1 + TracePoints - 1) / TracePoints);
         var indices = new List<long>();
         for (long n = 0; n <= last; n += step) indices.Add(n);
         if (indices[^1] != last) indices.Add(last);
-        return new SettlingTrace([.. indices.Select(n => (n + 1) / d.ModulatorRateHertz)], [.. indices.Select(sample)]);
+        return new SettlingTrace([.. indices.Select(n => (n + 1) / d.ModulatorRateHertz)], samples(indices));
     }
 
     /// <summary>The readings to follow: the filter's settling, the analog transient's 20 time constants and the discarded ones, with two more.</summary>

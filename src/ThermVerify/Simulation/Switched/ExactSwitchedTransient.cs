@@ -165,6 +165,97 @@ internal sealed class ExactSwitchedTransient
     }
 
     /// <summary>
+    /// The node read as <paramref name="samplingSwitch"/> opens, conversion after conversion, as a linear recurrence
+    /// (<see cref="LinearSampleSequence"/>): the conversions in periods whose pattern may still change read one by one,
+    /// then the state at the start of the first period from which every period is alike, that period's map and the
+    /// read as an affine function of the period's starting state (the intervals up to the opening composed). False
+    /// where intervals must be checked (an op-amp's linear region holds only period by period) and for a switch that
+    /// stops (its reads end).
+    /// </summary>
+    public bool TryLinearSamples(string samplingSwitch, string node, [NotNullWhen(true)] out LinearSampleSequence? sequence)
+    {
+        sequence = null;
+        var unknown = UnknownOf(node);
+        var sw = assembly.Switches.FirstOrDefault(s => s.Name == samplingSwitch);
+        if (maps.HasChecks || sw is null || ((PeriodicSchedule)sw.Schedule).Count is not null)
+            return false;
+        var (first, phase) = Opening(samplingSwitch, 0);
+        var regular = first;
+        for (var change = timeline.NextChange(regular); change != long.MaxValue; change = timeline.NextChange(regular))
+            regular = change;
+        var early = new double[regular - first];
+        var cursor = Cursor();
+        for (var n = 0; n < early.Length; n++)
+            early[n] = cursor.ReadAt(first + n, phase, unknown);
+
+        // The state at the start of the first regular period: every interval map of the periods before it, as the cursor applies them.
+        var r = coordinates.StateCount;
+        var z = (double[])initialState.Clone();
+        var next = new double[r];
+        for (long k = 0; k < regular; k++)
+        {
+            var pattern = timeline.Pattern(k);
+            for (var i = 0; i < timeline.IntervalCount; i++)
+            {
+                maps.FullMap(pattern[i], i).Apply(z, next);
+                (z, next) = (next, z);
+            }
+        }
+
+        // The read: the intervals from the period's start to the opening (the last one partly, as the cursor steps it), then the output.
+        var regularPattern = timeline.Pattern(regular);
+        var psi = new double[r * r];
+        var g = new double[r];
+        for (var i = 0; i < r; i++) psi[i * r + i] = 1;
+        var snap = timeline.SnapSeconds;
+        var last = timeline.IntervalEndingAt(phase);
+        for (var i = 0; i <= last; i++)
+        {
+            var (start, duration) = (timeline.Starts[i], timeline.Durations[i]);
+            if (i == last && phase < start + duration - snap && phase - start <= snap)
+                break;
+            var map = i == last && phase < start + duration - snap
+                ? maps.PartialMap(regularPattern[i], phase - start)
+                : maps.FullMap(regularPattern[i], i);
+            (psi, g) = Compose(map, psi, g, r);
+        }
+        var (output, constant) = maps.ModelOf(regularPattern[last]).OutputRow(unknown);
+        var row = new double[r];
+        for (var k = 0; k < r; k++)
+        {
+            constant += output[k] * g[k];
+            for (var i = 0; i < r; i++)
+                row[k] += output[i] * psi[i * r + k];
+        }
+
+        var periodMap = maps.PeriodMapOf(regularPattern);
+        sequence = new LinearSampleSequence(early, r, periodMap.Phi.ToRowMajorArray(), periodMap.Offset.ToArray(), z, row, constant);
+        return true;
+    }
+
+    /// <summary>The affine map (Ψ, g) followed by an interval's: (Φ·Ψ, Φ·g + γ).</summary>
+    private static (double[] Psi, double[] G) Compose(IntervalMap map, double[] psi, double[] g, int r)
+    {
+        var phi = map.Phi;
+        var gamma = map.Gamma;
+        var composed = new double[r * r];
+        var offset = new double[r];
+        for (var i = 0; i < r; i++)
+        {
+            var sum = gamma[i];
+            for (var k = 0; k < r; k++)
+            {
+                sum += phi[i * r + k] * g[k];
+                var v = 0.0;
+                for (var j = 0; j < r; j++) v += phi[i * r + j] * psi[j * r + k];
+                composed[i * r + k] = v;
+            }
+            offset[i] = sum;
+        }
+        return (composed, offset);
+    }
+
+    /// <summary>
     /// A reader of node voltages at rising times, one cursor for the whole run: what a caller that reads sample after
     /// sample needs (<see cref="VoltagesAt"/> starts from t = 0 on every call).
     /// </summary>
