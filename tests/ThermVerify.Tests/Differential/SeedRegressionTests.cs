@@ -82,6 +82,36 @@ public class SeedRegressionTests
         Assert.False(DifferentialCase.Run(rc).Stable);
     }
 
+    /// <summary>
+    /// Seed 141 (15 nodes, two clamped op-amps, four diodes, E2 straight across D4): the engine found no operating point
+    /// where ngspice did. D4 sits in parallel with E2's voltage-defined branch, so its current circulates through E2 and
+    /// cannot move a node voltage: every DC solution of the circuit is one of the circuit without D4. That circuit has
+    /// (at least) two: the engine's Newton finds n2 = 2.26 V with U2 linear, where E2 holds D4 forward by 395 V, a
+    /// current of e^(395 V/n·V_T) ≈ e^9500 A that no double holds (so Newton, walking D4 up by pnjlim, cannot get there);
+    /// ngspice's has U2 saturated and D4 reverse-biased by 638 V, and solves the engine's equations too (Newton started
+    /// there stays). Like every other circuit, it is screened by its combinations of switch states and op-amp regions,
+    /// each solved on its own: unstable with its switches open and U1 saturated, it is left out.
+    /// </summary>
+    [NgspiceFact]
+    public void Seed_141_has_an_unrepresentable_solution_where_Newton_goes_and_is_left_out_as_unstable()
+    {
+        var rc = RandomCircuitGenerator.Generate(141, CircuitClass.Nonlinear, 15)!;
+        Assert.Throws<ThermVerify.Simulation.ConvergenceException>(() => ThermVerify.Simulation.OperatingPoint.Solve(rc.Circuit));
+        var withoutD4 = ThermVerify.Simulation.OperatingPoint.Solve(new ThermVerify.Circuits.Circuit(
+            rc.Circuit.Elements.Where(e => e.Name != "D4"), rc.Circuit.TemperatureCelsius));
+        var d4 = rc.Circuit.Elements.OfType<ThermVerify.Circuits.Diode>().Single(d => d.Name == "D4");
+        var forward = withoutD4.Voltage(d4.Anode) - withoutD4.Voltage(d4.Cathode);
+        var nvt = d4.EmissionCoefficient * ThermVerify.Quantities.PhysicalConstants.BoltzmannJoulesPerKelvin
+            * ThermVerify.Quantities.PhysicalConstants.ToKelvin(rc.Circuit.TemperatureCelsius) / ThermVerify.Quantities.PhysicalConstants.ElementaryChargeCoulombs;
+        Assert.True(forward / nvt > Math.Log(double.MaxValue), $"D4 forward by {forward} V");
+        var op = DifferentialNgspice.Run(ThermVerify.Circuits.Spice.SpiceDeckWriter.Write(NgspiceTwin.For(rc.Circuit),
+            new ThermVerify.Circuits.Spice.OperatingPointAnalysis())).Plot("op");
+        Assert.True(op[d4.Anode].Real[0] - op[d4.Cathode].Real[0] < -600, "ngspice's D4 is reverse-biased by hundreds of volts");
+        Assert.True(OtherSolution.Distance(rc, op, 0, _ => { }) <= 1e-8 * rc.Nodes.Max(n => Math.Abs(op[n].Real[0])));
+        Assert.StartsWith("unstable with every switch open; saturated U1", StabilityScreen.FirstUnstableCombination(rc.Circuit, rc.Seed));
+        Assert.False(DifferentialCase.Run(rc).Stable);
+    }
+
     /// <summary>The screen's combinations: a follower with a rail and a switch is stable in each; a switch that closes
     /// a positive-feedback path through a VCVS (gain 2, RC) makes one combination unstable, which is named.</summary>
     [Fact]
