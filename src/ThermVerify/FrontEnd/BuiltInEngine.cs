@@ -27,11 +27,17 @@ public sealed class BuiltInEngine : ICheckEngine
         return [.. nodes.Select(result.Voltage)];
     }
 
-    ISampledTransient ICheckEngine.StartTransient(Circuit circuit, TransientOptions options) =>
-        ExactSwitchedTransient.TryStart(circuit, out var exact, out _,
-            options.AccuracyVolts is { } accuracy ? new ExactSwitchedOptions { LinearityToleranceVolts = accuracy } : null)
+    ISampledTransient ICheckEngine.StartTransient(Circuit circuit, TransientOptions options)
+    {
+        var exactOptions = options.AccuracyVolts is { } accuracy ? new ExactSwitchedOptions { LinearityToleranceVolts = accuracy } : null;
+        // Sources that change over time (a netlist's PULSE excitation switching on) keep the whole run from exact
+        // propagation; where they have settled before the end, only the stretch up to their last corner is stepped.
+        if (SettledSourcesTransient.TryStart(circuit, options, exactOptions) is { } settled)
+            return settled;
+        return ExactSwitchedTransient.TryStart(circuit, out var exact, out _, exactOptions)
             ? new Exact(exact, () => new Stepped(new TransientSimulation(circuit, options)))
             : new Stepped(new TransientSimulation(circuit, options));
+    }
 
     (double[] FrequenciesHertz, Complex[][] Volts) ICheckEngine.AcSweep(Circuit circuit, double startHertz, double stopHertz, int pointsPerDecade,
         IReadOnlyList<string> nodes)

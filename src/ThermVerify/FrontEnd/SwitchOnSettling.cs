@@ -13,7 +13,8 @@ namespace ThermVerify.FrontEnd;
 /// built-in engine propagates the run exactly (no time step) when the front end is linear; any engine can run it.
 /// The tolerances are those of every sampling run (<see cref="SamplingRun.Setup"/>).
 /// A netlist's excitation switches as its sources say (<see cref="NetlistCircuit.SwitchedOn"/>: a PULSE as written,
-/// a DC source stepping from 0), and the lead counts from that switch-on; a pulse's ramp is time-stepped.
+/// a DC source stepping from 0), and the lead counts from that switch-on; the built-in engine steps it up to the
+/// pulse's last corner and propagates the rest exactly (<see cref="SettledSourcesTransient"/>), ngspice steps it all.
 /// </summary>
 internal static class SwitchOnSettling
 {
@@ -74,7 +75,8 @@ internal static class SwitchOnSettling
         return (circuit, options with
         {
             StopTimeSeconds = sampleAt,
-            // A netlist's switch-on is time-stepped in every engine (its sources change over time): steps of a 500th of the
+            // A netlist's switch-on is time-stepped (by ngspice all of it, by the built-in engine up to the pulse's last
+            // corner, SettledSourcesTransient; its sources change over time): steps of a 500th of the
             // lead keep ngspice's trapezoidal charging within a few µV of the closed form (1 ms into 100 nF: 2 µV at 2 µs
             // steps and 5 µs, 70 µV at 20 µs; NetlistSwitchOnTests).
             MaxStepSeconds = design.Netlist is null
