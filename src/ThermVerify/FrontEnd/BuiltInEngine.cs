@@ -72,19 +72,22 @@ public sealed class BuiltInEngine : ICheckEngine
         }
 
         public double[] Solution() => simulation.CaptureState().Solution;
+
+        /// <summary>Continues from another engine's solution (see <see cref="TransientSimulation.RestartAt"/>).</summary>
+        public void RestartAt(double timeSeconds, double[] solution) => simulation.RestartAt(timeSeconds, solution);
     }
 
     /// <summary>
-    /// Exact propagation, with time stepping where an op-amp leaves its linear region: the time-stepping run (from
-    /// t = 0, the same operating point) is carried past the instant the exact run failed at, and exact propagation
-    /// continues from its state there. A further failure on the same interval doubles the stretch stepped (see
-    /// <see cref="ResumeAfter"/>), so a slow recovery (an amplifier leaving its rail) costs a few attempts, and a run whose op-amp
-    /// leaves its region in every period is time stepping with a failed exact interval between steps. Reads rise, so
-    /// the stepped run only ever catches up.
+    /// Exact propagation, with time stepping where an op-amp leaves its linear region: the time-stepping run restarts
+    /// from the exact solution at the start of the interval that failed (as from a breakpoint), is carried past the
+    /// instant the exact run failed at, and exact propagation continues from its state there. So only the nonlinear
+    /// stretches are stepped, not the linear ones between them. A further failure on the same interval doubles the
+    /// stretch stepped (see <see cref="ResumeAfter"/>), so a slow recovery (an amplifier leaving its rail) costs a few
+    /// attempts. Reads rise, so the stepped run only ever moves forward.
     /// </summary>
     private sealed class Exact(ExactSwitchedTransient exact, Func<Stepped> fallBack) : ISampledTransient
     {
-        private Func<double, string, (double Volts, LinearityViolation? Violation)>? read = exact.TryReader();
+        private ExactReader? reader = exact.Follow();
         private Stepped? stepped;
         private double resumeSeconds = double.NaN;
         private double stretch, failedIntervalEnd = double.NaN;
@@ -93,26 +96,26 @@ public sealed class BuiltInEngine : ICheckEngine
         {
             while (true)
             {
-                if (read is not null && TryExact(timeSeconds, node, out var volts))
+                if (reader is not null && TryExact(timeSeconds, node, out var volts))
                     return volts;
                 if (timeSeconds <= resumeSeconds)
                     return stepped!.VoltageAt(timeSeconds, node);
                 stepped!.AdvanceTo(resumeSeconds);
-                read = exact.TryReaderFrom(resumeSeconds, stepped.Solution());
+                reader = exact.FollowFrom(resumeSeconds, stepped.Solution());
             }
         }
 
         /// <summary>
         /// The exact read, true while the op-amp stays linear. Leaving the region is reported, not raised (an exception
         /// cost more than the step it reported); a configuration exact propagation cannot model at all, met only as the
-        /// run reaches it, still raises, and then the rest of the run is stepped.
+        /// run reaches it, still raises, and then the rest of the run is stepped (from t = 0: its state is not known).
         /// </summary>
         private bool TryExact(double timeSeconds, string node, out double volts)
         {
             LinearityViolation? violation;
             try
             {
-                (volts, violation) = read!(timeSeconds, node);
+                (volts, violation) = reader!.Read(timeSeconds, node);
                 if (violation is null)
                     return true;
             }
@@ -121,7 +124,9 @@ public sealed class BuiltInEngine : ICheckEngine
                 (volts, violation) = (double.NaN, null);
             }
             stepped ??= fallBack();
-            read = null;
+            if (violation is not null && violation.FromSeconds > stepped.TimeSeconds + StopQueue.Epsilon(violation.FromSeconds))
+                stepped.RestartAt(violation.FromSeconds, reader!.SolutionWhereStopped());
+            reader = null;
             resumeSeconds = violation is null ? double.PositiveInfinity : ResumeAfter(violation);
             return false;
         }

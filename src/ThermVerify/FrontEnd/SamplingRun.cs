@@ -134,13 +134,10 @@ internal static class SamplingRun
     }
 
     /// <summary>
-    /// How far a buffer's op-amp may depart from linear and still be propagated exactly, referred to its input:
-    /// 0.01 LSB at the pin, divided by the buffer's gain. A departure δ at the input of the slew stage (or at the
-    /// clamp's output) disturbs a single-pole loop's output by at most about δ (the loop feeds the error back at the
-    /// loop's own rate), and that disturbance then decays with the loop's time constant, far shorter than an
-    /// acquisition; so the sample moves by less than 0.01 LSB, the accuracy every check figure is held to. A fixed
-    /// 1 µV (a thousandth of an LSB at 12 bits) sent the buffered logger's follower, kicked 5 mV on every acquisition
-    /// by the other channel's precharge, to time stepping in every period.
+    /// How far a buffer's op-amp may depart from linear and still be propagated exactly: 0.01 LSB at the pin, divided by
+    /// the buffer's gain, the accuracy every check figure is held to. Exact propagation carries the slewing stage's
+    /// residual to first order and holds its effect on every node within half of this where a value is read
+    /// (docs/engine.md), and holds the output clamp's departure to it.
     /// </summary>
     internal static double LinearityToleranceFor(FrontEndDesign design) =>
         0.01 * AdcTransfer.Of(design).LsbVolts / Math.Max(1, Math.Abs(design.StageGain));

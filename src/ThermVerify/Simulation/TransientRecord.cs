@@ -72,6 +72,22 @@ internal sealed class TransientRecord(int width)
         Count = 1;
     }
 
+    /// <summary>Drops every point and starts again from one (a run restarted from another engine's solution).</summary>
+    public void StartAgain(double time, double[] solution, double[] slope)
+    {
+        if (handedOut)
+        {
+            Times = new double[256];
+            Values = new double[256 * Width];
+            Slopes = new double[256 * Width];
+            Formulas = new StepFormula[256];
+            Probes = new bool[256];
+            handedOut = false;
+        }
+        Count = 0;
+        Add(time, solution, slope, StepFormula.BackwardEuler);
+    }
+
     private bool handedOut;
 
     /// <summary>A result now holds the arrays: they must not be overwritten.</summary>

@@ -122,6 +122,41 @@ internal sealed class TransientSimulation
         ProposedStepSeconds = proposedStep,
     };
 
+    /// <summary>
+    /// Continues the run from a solution of the same circuit at a later time, obtained elsewhere (exact propagation up
+    /// to an interval its op-amp leaves its linear region on), as from a breakpoint: the integrated states are taken
+    /// from <paramref name="solution"/>, their history starts anew and the next steps are the probe and backward Euler
+    /// steps that follow any breakpoint, so nothing of the skipped stretch is needed. The hybrid transient then steps only
+    /// the nonlinear stretch instead of everything since its last stepped one.
+    /// </summary>
+    /// <param name="solution">Every unknown at <paramref name="timeSeconds"/> (ground excluded or zero).</param>
+    public void RestartAt(double timeSeconds, ReadOnlySpan<double> solution)
+    {
+        if (!(timeSeconds > TimeSeconds) || !double.IsFinite(timeSeconds))
+            throw new ArgumentOutOfRangeException(nameof(timeSeconds), timeSeconds, $"A run restarts after its present time ({TimeSeconds:G9} s).");
+        if (solution.Length < system.Size)
+            throw new ArgumentException($"The solution has {solution.Length} values; the circuit has {system.Size} unknowns.", nameof(solution));
+        solution[..system.Size].CopyTo(c.Solution);
+        c.Solution[system.Size] = 0;
+        // Derivatives stored as zero, as at the start of a run: the probe and backward-Euler steps after a breakpoint
+        // use only the state values.
+        c.Mode = AnalysisMode.Dc;
+        c.TimeSeconds = timeSeconds;
+        c.StepSeconds = 0;
+        foreach (var s in system.Reactive)
+            s.Accept(c);
+        (c.State, c.PreviousState) = (c.PreviousState, c.State);
+        Array.Copy(c.Solution, accepted, accepted.Length);
+        Array.Copy(c.Solution, older, older.Length);
+        Array.Clear(slope);
+        TimeSeconds = timeSeconds;
+        collectedUntil = Math.Max(collectedUntil, timeSeconds);
+        stops.Reach(timeSeconds);
+        ringing.Reset();
+        history.Push(timeSeconds, c.PreviousState, isBreakpoint: true);
+        record.StartAgain(timeSeconds, accepted, slope);
+    }
+
     private double FirstTry(double span, double stop)
     {
         if (options.FixedStepSeconds is { } fixedStep)

@@ -76,6 +76,9 @@ internal sealed class OpAmpStamp : Stamp
 
     public override bool HasChecks => double.IsFinite(amp.CommonModeLowVolts) || double.IsFinite(amp.CommonModeHighVolts);
 
+    /// <summary>The input stage's transconductance in its linear region, A0/R_p.</summary>
+    public double LinearTransconductance => gm;
+
     /// <summary>Small-signal transconductance of the input stage at the last load.</summary>
     public double Transconductance => lastTransconductance;
 

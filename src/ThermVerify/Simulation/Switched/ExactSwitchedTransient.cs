@@ -32,6 +32,7 @@ internal sealed class ExactSwitchedTransient
     private readonly double[] initialState;
     private readonly SwitchedMaps maps;
     private double[]? steadyState;
+    private double[]? steadyDeviation;
 
     private ExactSwitchedTransient(Circuit circuit, ExactSwitchedOptions options)
     {
@@ -93,11 +94,21 @@ internal sealed class ExactSwitchedTransient
 
     /// <summary>The node's voltage at each time (rising, from 0: the operating point), from the start of the run.</summary>
     /// <exception cref="NotLinearException">An op-amp leaves its linear region before the last time.</exception>
-    public double[] VoltagesAt(IReadOnlyList<double> timesSeconds, string node)
+    public double[] VoltagesAt(IReadOnlyList<double> timesSeconds, string node) => ReadAll(timesSeconds, node).Volts;
+
+    /// <summary>
+    /// As <see cref="VoltagesAt"/>, with the slew residuals' first-order deviation at each time (see
+    /// <see cref="TimelineCursor.LastDeviation"/>): what the linear model's values leave out of the macro-model's.
+    /// </summary>
+    public (double[] Volts, double[] Deviations) VoltagesAndDeviationsAt(IReadOnlyList<double> timesSeconds, string node) =>
+        ReadAll(timesSeconds, node);
+
+    private (double[] Volts, double[] Deviations) ReadAll(IReadOnlyList<double> timesSeconds, string node)
     {
         var unknown = UnknownOf(node);
         var cursor = Cursor();
         var result = new double[timesSeconds.Count];
+        var deviations = new double[timesSeconds.Count];
         var previous = 0.0;
         for (var i = 0; i < result.Length; i++)
         {
@@ -112,8 +123,9 @@ internal sealed class ExactSwitchedTransient
             }
             var (period, phase) = PeriodAndPhase(t);
             result[i] = cursor.ReadAt(period, phase, unknown);
+            deviations[i] = cursor.LastDeviation;
         }
-        return result;
+        return (result, deviations);
     }
 
     /// <summary>
@@ -265,20 +277,22 @@ internal sealed class ExactSwitchedTransient
     /// As <see cref="Reader"/>, but where an op-amp leaves its linear region the read gives the violation instead of
     /// raising <see cref="NotLinearException"/> (and the reader can go no further).
     /// </summary>
-    public Func<double, string, (double Volts, LinearityViolation? Violation)> TryReader()
+    public Func<double, string, (double Volts, LinearityViolation? Violation)> TryReader() => Follow().Read;
+
+    /// <summary>As <see cref="TryReader"/>, with the solution where the run stopped (see <see cref="ExactReader"/>).</summary>
+    public ExactReader Follow()
     {
         var cursor = Cursor(stopOnViolation: true);
-        return (t, node) =>
+        return new ExactReader(cursor, (t, node) =>
         {
             var unknown = UnknownOf(node);
             if (!double.IsFinite(t) || t < 0)
                 throw new ArgumentOutOfRangeException(nameof(t), t, "Read times must be finite and not negative.");
             if (t <= timeline.SnapSeconds)
-                return (unknown == system.Layout.Ground ? 0 : initialSolution[unknown], null);
+                return unknown == system.Layout.Ground ? 0 : initialSolution[unknown];
             var (period, phase) = PeriodAndPhase(t);
-            var volts = cursor.ReadAt(period, phase, unknown);
-            return (volts, cursor.Violation);
-        };
+            return cursor.ReadAt(period, phase, unknown);
+        });
     }
 
     private static Func<double, string, double> Throwing(Func<double, string, (double Volts, LinearityViolation? Violation)> read) =>
@@ -299,7 +313,11 @@ internal sealed class ExactSwitchedTransient
     public Func<double, string, double> ReaderFrom(double startSeconds, double[] solution) => Throwing(TryReaderFrom(startSeconds, solution));
 
     /// <summary>As <see cref="ReaderFrom"/>, giving a violation instead of raising it (see <see cref="TryReader"/>).</summary>
-    public Func<double, string, (double Volts, LinearityViolation? Violation)> TryReaderFrom(double startSeconds, double[] solution)
+    public Func<double, string, (double Volts, LinearityViolation? Violation)> TryReaderFrom(double startSeconds, double[] solution) =>
+        FollowFrom(startSeconds, solution).Read;
+
+    /// <summary>As <see cref="TryReaderFrom"/>, with the solution where the run stopped (see <see cref="ExactReader"/>).</summary>
+    public ExactReader FollowFrom(double startSeconds, double[] solution)
     {
         if (!(startSeconds > 0 && double.IsFinite(startSeconds)))
             throw new ArgumentOutOfRangeException(nameof(startSeconds), startSeconds, "A continued run starts at a positive, finite time.");
@@ -316,26 +334,33 @@ internal sealed class ExactSwitchedTransient
         if (elapsed <= timeline.SnapSeconds)
             elapsed = 0;
         var cursor = new TimelineCursor(maps, timeline, coordinates.StateOf(solution), regular: false, period, interval, elapsed) { StopOnViolation = true };
-        return (t, node) =>
+        return new ExactReader(cursor, (t, node) =>
         {
             if (!double.IsFinite(t) || t <= startSeconds)
                 throw new ArgumentOutOfRangeException(nameof(t), t, $"Read times must be finite and after the start of the continued run ({startSeconds:G9} s).");
             var (k, p) = PeriodAndPhase(t);
-            var volts = cursor.ReadAt(k, p, UnknownOf(node));
-            return (volts, cursor.Violation);
-        };
+            return cursor.ReadAt(k, p, UnknownOf(node));
+        });
     }
 
     private TimelineCursor SteadyStateCursor()
     {
         if (steadyState is null)
         {
-            var fixedPoint = maps.PeriodMapOf(timeline.RegularPattern()).FixedPoint();
+            var periodMap = maps.PeriodMapOf(timeline.RegularPattern());
+            var fixedPoint = periodMap.FixedPoint();
             if (maps.HasChecks)
-                new TimelineCursor(maps, timeline, fixedPoint, regular: true).StepWithin(timeline.PeriodSeconds);
+            {
+                // A period from the fixed point with nothing carried in gives the deviation a period adds; in the steady
+                // state the deviation is periodic too, (I − Φ)·d = that, and the period is checked again from there.
+                var once = new TimelineCursor(maps, timeline, fixedPoint, regular: true);
+                once.StepWithin(timeline.PeriodSeconds);
+                steadyDeviation = periodMap.Periodic(once.Deviation);
+                new TimelineCursor(maps, timeline, fixedPoint, regular: true, deviation: steadyDeviation).StepWithin(timeline.PeriodSeconds);
+            }
             steadyState = fixedPoint;
         }
-        return new TimelineCursor(maps, timeline, steadyState, regular: true);
+        return new TimelineCursor(maps, timeline, steadyState, regular: true, deviation: steadyDeviation);
     }
 
     private TimelineCursor Cursor(bool stopOnViolation = false) =>

@@ -57,6 +57,17 @@ internal sealed class LinearAssembly
         this.opAmps = [.. opAmps];
         Switches = [.. switchElements];
         Monitors = [.. opAmps.SelectMany(a => a.Monitors)];
+        var residuals = new List<SlewResidual>();
+        var first = 0;
+        foreach (var a in opAmps)
+        {
+            if (a.Residual is { } residual)
+                residuals.Add(residual with { Monitor = first + residual.Monitor });
+            first += a.Monitors.Count;
+        }
+        Residuals = residuals;
+        NodeNames = [.. system.Layout.UnknownNames.Take(system.Layout.NodeCount)];
+        ToleranceVolts = linearityToleranceVolts;
         scratch = new double[system.Layout.VectorLength];
     }
 
@@ -66,6 +77,23 @@ internal sealed class LinearAssembly
     public IReadOnlyList<TimedSwitch> Switches { get; }
 
     public IReadOnlyList<LinearMonitor> Monitors { get; }
+
+    /// <summary>The slew-limited op-amps' residuals, carried to first order on every checked interval.</summary>
+    public IReadOnlyList<SlewResidual> Residuals { get; }
+
+    /// <summary>The circuit's nodes, unknowns 0 … n − 1: where a residual's effect is judged.</summary>
+    public IReadOnlyList<string> NodeNames { get; }
+
+    /// <summary>How far the linear model may depart from the macro-model, in volts (see <see cref="ExactSwitchedOptions.LinearityToleranceVolts"/>).</summary>
+    public double ToleranceVolts { get; }
+
+    /// <summary>b for a unit current into <paramref name="unknown"/>'s row alone: the input through which a residual acts.</summary>
+    public double[] UnitInjection(int unknown)
+    {
+        var b = new double[Size];
+        b[unknown] = 1;
+        return b;
+    }
 
     /// <summary>C, row-major n×n.</summary>
     public double[] Reactive()

@@ -55,6 +55,16 @@ internal sealed class PeriodMap
         return system.LU().Solve(Offset).ToArray();
     }
 
+    /// <summary>
+    /// The periodic solution of d_{k+1} = Φ·d_k + <paramref name="added"/>: (I − Φ)⁻¹·added, for a deviation that every
+    /// period adds to and the period map carries (<see cref="IntervalMap"/>'s slew residuals in the steady state).
+    /// </summary>
+    public double[] Periodic(ReadOnlySpan<double> added)
+    {
+        var system = Matrix<double>.Build.DenseIdentity(r) - Phi;
+        return system.LU().Solve(Vector<double>.Build.Dense(added.ToArray())).ToArray();
+    }
+
     private Matrix<double> Augmented(IntervalMap interval)
     {
         var m = Matrix<double>.Build.DenseIdentity(r + 1);

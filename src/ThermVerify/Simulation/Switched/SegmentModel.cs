@@ -23,6 +23,31 @@ internal sealed class SegmentModel
 
     public Matrix<double> A { get; }
 
+    /// <summary>
+    /// For each slew residual (<see cref="LinearAssembly.Residuals"/>), the response to a unit current into its pole
+    /// node: the input column of z' and the unknowns' direct part (x = P·z + that·i).
+    /// </summary>
+    public (Vector<double> U, double[] Offset)[] Injections { get; private init; } = [];
+
+    /// <summary>The same model with the residuals' responses (<see cref="Injections"/>).</summary>
+    public SegmentModel WithInjections((Vector<double> U, double[] Offset)[] injections) => new(this) { Injections = injections };
+
+    private SegmentModel(SegmentModel other)
+    {
+        A = other.A;
+        U = other.U;
+        StateCount = other.StateCount;
+        UnknownCount = other.UnknownCount;
+        outputRows = other.outputRows;
+        outputOffsets = other.outputOffsets;
+    }
+
+    /// <summary>p of x = P·z + p.</summary>
+    public ReadOnlySpan<double> Offsets => outputOffsets;
+
+    /// <summary>Row <paramref name="unknown"/> of P.</summary>
+    public ReadOnlySpan<double> OutputRow(int unknown) => outputRows.AsSpan(unknown * StateCount, StateCount);
+
     public Vector<double> U { get; }
 
     public int StateCount { get; }
@@ -77,6 +102,22 @@ internal sealed class SegmentModel
     /// matrix exponential", IEEE Trans. Automatic Control 23(3), 1978, from memory): the exact step of z' = A·z + u
     /// over h, without A⁻¹, so a singular A is fine.
     /// </summary>
+    /// <summary>
+    /// The exact response over h of z' = A·z + u_e·i(s) to a current ramping linearly between the step's ends:
+    /// ∫₀ʰ e^(A(h−s)) u_e ds (weight of i at the start) and ∫₀ʰ e^(A(h−s)) u_e·s/h ds (weight of its change), both read off one
+    /// exponential of [[A, u_e, 0], [0, 0, 1/h], [0, 0, 0]]·h (Van Loan 1978, as <see cref="AugmentedExponential"/>).
+    /// </summary>
+    public (double[] Constant, double[] Ramp) RampResponse(Vector<double> input, double h)
+    {
+        var r = StateCount;
+        var augmented = Matrix<double>.Build.Dense(r + 2, r + 2);
+        augmented.SetSubMatrix(0, 0, A * h);
+        augmented.SetSubMatrix(0, r, (input * h).ToColumnMatrix());
+        augmented[r, r + 1] = 1;
+        var e = MatrixExponential.Exp(augmented);
+        return ([.. e.Column(r).SubVector(0, r)], [.. e.Column(r + 1).SubVector(0, r)]);
+    }
+
     public Matrix<double> AugmentedExponential(double h)
     {
         var r = StateCount;

@@ -24,6 +24,12 @@ internal sealed class SwitchedMaps(LinearAssembly assembly, StateCoordinates coo
         {
             var (g, b) = assembly.Assemble(mask);
             model = coordinates.Reduce(g, b, () => PeriodicTimeline.Describe(assembly.Switches, mask));
+            if (assembly.Residuals.Count > 0)
+                model = model.WithInjections([.. assembly.Residuals.Select(residual =>
+                {
+                    var response = coordinates.Reduce(g, assembly.UnitInjection(residual.Pole), () => PeriodicTimeline.Describe(assembly.Switches, mask));
+                    return (response.U, response.Offsets.ToArray());
+                })]);
             models[mask] = model;
         }
         return model;
@@ -33,7 +39,7 @@ internal sealed class SwitchedMaps(LinearAssembly assembly, StateCoordinates coo
     {
         if (!intervalMaps.TryGetValue((mask, interval), out var map))
         {
-            map = IntervalMap.Build(ModelOf(mask), timeline.Durations[interval], assembly.Monitors);
+            map = IntervalMap.Build(ModelOf(mask), timeline.Durations[interval], assembly);
             intervalMaps[(mask, interval)] = map;
         }
         return map;
@@ -45,7 +51,7 @@ internal sealed class SwitchedMaps(LinearAssembly assembly, StateCoordinates coo
         {
             if (partialMaps.Count >= PartialCacheLimit)
                 partialMaps.Clear();
-            map = IntervalMap.Build(ModelOf(mask), seconds, assembly.Monitors);
+            map = IntervalMap.Build(ModelOf(mask), seconds, assembly);
             partialMaps[(mask, seconds)] = map;
         }
         return map;

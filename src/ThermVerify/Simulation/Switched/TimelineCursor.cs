@@ -14,6 +14,7 @@ internal sealed class TimelineCursor
     private readonly bool regular;
     private double[] z;
     private double[] next;
+    private readonly double[] deviation;
     private long period;
     private int interval;
     private double elapsed;
@@ -25,8 +26,10 @@ internal sealed class TimelineCursor
     /// <param name="startPeriod">The period in which <paramref name="state"/> is (0: the start of the run).</param>
     /// <param name="startInterval">The interval of that period in which the state is.</param>
     /// <param name="startElapsed">How far into that interval the state is, in seconds.</param>
+    /// <param name="deviation">The slew residuals' first-order deviation of the state carried in (zero when omitted: a state
+    /// from the operating point or from time stepping).</param>
     public TimelineCursor(SwitchedMaps maps, PeriodicTimeline timeline, double[] state, bool regular, long startPeriod = 0,
-        int startInterval = 0, double startElapsed = 0)
+        int startInterval = 0, double startElapsed = 0, double[]? deviation = null)
     {
         ArgumentOutOfRangeException.ThrowIfNegative(startPeriod);
         interval = startInterval;
@@ -35,6 +38,7 @@ internal sealed class TimelineCursor
         this.timeline = timeline;
         this.regular = regular;
         z = (double[])state.Clone();
+        this.deviation = deviation is null ? new double[z.Length] : (double[])deviation.Clone();
         next = new double[z.Length];
         period = startPeriod;
         pattern = PatternOf(startPeriod);
@@ -52,6 +56,23 @@ internal sealed class TimelineCursor
     /// <summary>Where the cursor stopped (with <see cref="StopOnViolation"/>); it cannot move on from there.</summary>
     public LinearityViolation? Violation { get; private set; }
 
+    /// <summary>The slew residuals' first-order deviation of the state where the cursor stands (see <see cref="IntervalMap"/>).</summary>
+    public ReadOnlySpan<double> Deviation => deviation;
+
+    /// <summary>
+    /// Every unknown where the cursor stands (where it stopped on a violation: the start of the interval that failed),
+    /// read as the limit from the left like every value: at an edge, in the configuration of the interval that ends
+    /// there. That interval passed its check, so the values are within the linear region; the failing interval's
+    /// algebraic values after the jump may not be, and would start a Newton iteration far from its solution.
+    /// </summary>
+    public double[] Solution()
+    {
+        if (elapsed > 0)
+            return maps.ModelOf(pattern[interval]).Solution(z);
+        var mask = interval > 0 ? pattern[interval - 1] : previousPattern[timeline.IntervalCount - 1];
+        return maps.ModelOf(mask).Solution(z);
+    }
+
     /// <summary>The present period's pattern, recomputed only where the timeline says it may change.</summary>
     private void NewPeriod(long k)
     {
@@ -63,6 +84,20 @@ internal sealed class TimelineCursor
             return;
         pattern = timeline.Pattern(k);
         patternUntil = timeline.NextChange(k);
+    }
+
+    /// <summary>
+    /// The slew residuals' first-order deviation of the unknown last read (through the state; the residual current's
+    /// direct part at that instant is left out): the macro-model's value is the read value plus about this.
+    /// </summary>
+    public double LastDeviation { get; private set; }
+
+    private static double Dot(ReadOnlySpan<double> a, ReadOnlySpan<double> b)
+    {
+        var sum = 0.0;
+        for (var i = 0; i < a.Length; i++)
+            sum += a[i] * b[i];
+        return sum;
     }
 
     /// <summary>Moves to (period k, phase in (0, T]) and reads an unknown there (limit from the left).</summary>
@@ -85,7 +120,9 @@ internal sealed class TimelineCursor
             return double.NaN;
         // The cursor may have rolled over to the next period's start; the value belongs to the interval ending at the phase.
         var endPattern = period == k ? pattern : previousPattern;
-        return maps.ModelOf(endPattern[timeline.IntervalEndingAt(phase)]).Output(unknown, z);
+        var model = maps.ModelOf(endPattern[timeline.IntervalEndingAt(phase)]);
+        LastDeviation = unknown == model.UnknownCount ? 0 : Dot(model.OutputRow(unknown), deviation);
+        return model.Output(unknown, z);
     }
 
     /// <summary>Advances within the present period to a phase in (0, T]; reaching T moves to the next period's start.</summary>
@@ -147,7 +184,7 @@ internal sealed class TimelineCursor
         if (map.HasChecks)
         {
             var from = period * timeline.PeriodSeconds + timeline.Starts[interval] + elapsed;
-            if (map.Check(z, from, seconds) is { } violation)
+            if (map.Check(z, deviation, from, seconds) is { } violation)
             {
                 if (!StopOnViolation)
                     throw NotLinearException.Leaves(violation);
