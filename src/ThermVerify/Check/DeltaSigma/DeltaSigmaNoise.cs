@@ -36,8 +36,8 @@ internal static class DeltaSigmaNoise
     }
 
     /// <summary>
-    /// The frequencies the filtered noise is summed over, and |H|² there (the same at every temperature). Each |H| is a
-    /// sum over the whole impulse response, so a filter's grid is made once and kept with it (filters are shared per
+    /// The frequencies the filtered noise is summed over, and |H|² there (the same at every temperature), from the
+    /// filter's stages (<see cref="SincFilter.PowerAt"/>); a filter's grid is made once and kept with it (filters are shared per
     /// spec: <see cref="SincFilter.Of"/>; a remedy's check and every Monte Carlo run ask for the same grid). The arrays
     /// are only read.
     /// </summary>
@@ -46,7 +46,7 @@ internal static class DeltaSigmaNoise
         {
             var step = f.DataRateHertz / GridPerDataRate;
             var hertz = Enumerable.Range(1, GridPerDataRate * DataRates).Select(k => k * step).ToArray();
-            return new GridValues(hertz, [.. hertz.Select(h => Math.Pow(f.Magnitude(h), 2))]);
+            return new GridValues(hertz, f.PowerAt(hertz));
         }).Tuple;
 
     private sealed record GridValues(double[] Hertz, double[] FilterPower)
