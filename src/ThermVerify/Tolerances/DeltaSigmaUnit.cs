@@ -52,7 +52,7 @@ internal static class DeltaSigmaUnit
     /// </summary>
     public static double SwitchKelvin(FrontEndDesign unit, double celsius, ClosedFormModel model) =>
         Check.DeltaSigma.DeltaSigmaFindings.Starts(unit)
-            .Max(s => Math.Abs(ChannelSettling.At(unit, celsius, BuiltInEngine.Instance, s).FirstUsedErrorVolts / model.At(celsius).VoltsPerKelvin));
+            .Max(s => Math.Abs(ChannelSettling.At(unit, celsius, BuiltInEngine.Instance, s, trace: false).FirstUsedErrorVolts / model.At(celsius).VoltsPerKelvin));
 
 }
 

@@ -35,13 +35,26 @@ internal static class DeltaSigmaNoise
             I($"{DesignDefaults.ConverterNoiseLsb:0.###} LSB rms assumed (the design declares no noise table and no adc.noise)"), true);
     }
 
-    /// <summary>The frequencies the filtered noise is summed over, and |H|² there (the same at every temperature).</summary>
-    public static (double[] Hertz, double[] FilterPower) Grid(SincFilter filter)
+    /// <summary>
+    /// The frequencies the filtered noise is summed over, and |H|² there (the same at every temperature), from the
+    /// filter's stages (<see cref="SincFilter.PowerAt"/>); a filter's grid is made once and kept with it (filters are shared per
+    /// spec: <see cref="SincFilter.Of"/>; a remedy's check and every Monte Carlo run ask for the same grid). The arrays
+    /// are only read.
+    /// </summary>
+    public static (double[] Hertz, double[] FilterPower) Grid(SincFilter filter) =>
+        Grids.GetValue(filter, f =>
+        {
+            var step = f.DataRateHertz / GridPerDataRate;
+            var hertz = Enumerable.Range(1, GridPerDataRate * DataRates).Select(k => k * step).ToArray();
+            return new GridValues(hertz, f.PowerAt(hertz));
+        }).Tuple;
+
+    private sealed record GridValues(double[] Hertz, double[] FilterPower)
     {
-        var step = filter.DataRateHertz / GridPerDataRate;
-        var hertz = Enumerable.Range(1, GridPerDataRate * DataRates).Select(k => k * step).ToArray();
-        return (hertz, [.. hertz.Select(f => Math.Pow(filter.Magnitude(f), 2))]);
+        public (double[] Hertz, double[] FilterPower) Tuple => (Hertz, FilterPower);
     }
+
+    private static readonly System.Runtime.CompilerServices.ConditionalWeakTable<SincFilter, GridValues> Grids = new();
 
     /// <summary>The front end's filtered rms noise at the pin at one temperature: ∫ S·|H|² df by the trapezoid rule from 0 (S(0) taken as S at the first point).</summary>
     public static double AnalogRmsVolts(FrontEndDesign design, double celsius, (double[] Hertz, double[] FilterPower) grid)

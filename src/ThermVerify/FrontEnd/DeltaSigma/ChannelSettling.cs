@@ -32,7 +32,9 @@ internal static class ChannelSettling
     /// <summary>At most this many readings are followed after a switch.</summary>
     public const int MaximumReadings = 64;
 
-    public static ChannelSettlingResult At(FrontEndDesign design, double celsius, ICheckEngine engine, ChannelStart start = ChannelStart.OwnFilter)
+    /// <param name="trace">Record the pin's trace for a report's figure (a Monte Carlo unit needs only its readings).</param>
+    public static ChannelSettlingResult At(FrontEndDesign design, double celsius, ICheckEngine engine, ChannelStart start = ChannelStart.OwnFilter,
+        bool trace = true)
     {
         var d = design.Adc.DeltaSigma ?? throw new ArgumentException($"{design.Name} has no delta-sigma converter.", nameof(design));
         var filter = SincFilter.Of(d);
@@ -53,23 +55,23 @@ internal static class ChannelSettling
             if (!sequences.TryGetValue(key, out var sequence))
                 sequences[key] = sequence = Recurrence(design, d, celsius, load, engine, start, other);
             IReadOnlyList<FilterReading> readings;
-            Func<IReadOnlyList<long>, double[]> trace;
+            Func<IReadOnlyList<long>, double[]> traced;
             if (sequence is not null)
             {
                 readings = RecurrenceReadings.Of(filter, sequence, other, count, d.FilterReset);
-                trace = indices => RecurrenceReadings.SamplesAt(sequence, indices);
+                traced = indices => RecurrenceReadings.SamplesAt(sequence, indices);
             }
             else
             {
                 samples ??= Samples(design, d, celsius, load, count * filter.SamplesPerReading + filter.ImpulseResponse.Count, engine, start, lsb);
                 var level = other;
                 readings = filter.Readings(n => samples(n, level), _ => level, count, d.FilterReset);
-                trace = indices => [.. indices.Select(n => samples(n, level))];
+                traced = indices => [.. indices.Select(n => samples(n, level))];
             }
             var result = Judge(readings, final, lsb, d.ReadingsDiscarded, other, celsius, filter, start);
-            if (worst is null || Math.Abs(result.FirstUsedErrorVolts) > Math.Abs(worst.FirstUsedErrorVolts)) (worst, worstTrace) = (result, trace);
+            if (worst is null || Math.Abs(result.FirstUsedErrorVolts) > Math.Abs(worst.FirstUsedErrorVolts)) (worst, worstTrace) = (result, traced);
         }
-        return worst! with { Trace = Trace(d, worst.Readings, worstTrace!) };
+        return trace ? worst! with { Trace = Trace(d, worst.Readings, worstTrace!) } : worst!;
     }
 
     /// <summary>
@@ -204,13 +206,16 @@ internal static class ChannelSettling
     public static Circuit SwitchCircuit(FrontEndDesign design, double celsius, double? otherVolts, double leadSeconds)
     {
         var period = 1 / design.Adc.DeltaSigma!.ModulatorRateHertz;
-        var circuit = Delayed(InputLoading.Switched(design, celsius), period + leadSeconds);
-        return otherVolts is { } v
-            ? circuit
-                .Add(new VoltageSource(HoldSource, HoldNode, Circuit.Ground, new DcWaveform(v)))
-                .Add(new TimedSwitch(HoldSwitch, HoldNode, FrontEndCircuit.PinNode(design), 1e-3, FrontEndCircuit.SwitchOffOhms,
-                    new PeriodicSchedule(0, period, period / 2, 1)))
-            : circuit;
+        Element[] hold = otherVolts is { } v
+            ?
+            [
+                new VoltageSource(HoldSource, HoldNode, Circuit.Ground, new DcWaveform(v)),
+                new TimedSwitch(HoldSwitch, HoldNode, FrontEndCircuit.PinNode(design), 1e-3, FrontEndCircuit.SwitchOffOhms,
+                    new PeriodicSchedule(0, period, period / 2, 1)),
+            ]
+            : [];
+        // The input's switches start one modulator period late, so the state at t = 0 is the pin without the input.
+        return InputLoading.Switched(design, celsius, null, period + leadSeconds, hold);
     }
 
     /// <summary>When modulator sample n (0: the first charging phase) leaves the pin: lead + (n + 1.5)·T.</summary>
@@ -218,18 +223,6 @@ internal static class ChannelSettling
 
     /// <summary>How long the excitation is on before the converter starts (the divider's switch_on_lead); 0 when not switched.</summary>
     public static double SwitchOnLeadSeconds(FrontEndDesign design) => design.Divider?.SwitchOnLeadSeconds ?? 0;
-
-    /// <summary>The input's switches starting one modulator period late, so the state at t = 0 is the pin without the input.</summary>
-    private static Circuit Delayed(Circuit circuit, double delaySeconds)
-    {
-        foreach (var name in new[] { InputLoading.InputSwitch, InputLoading.EmptySwitch })
-        {
-            var s = (TimedSwitch)circuit[name];
-            var p = (PeriodicSchedule)s.Schedule;
-            circuit = circuit.Replace(s with { Schedule = p with { DelaySeconds = p.DelaySeconds + delaySeconds } });
-        }
-        return circuit;
-    }
 
     private static ChannelSettlingResult Judge(IReadOnlyList<FilterReading> readings, double final, double lsb, int discarded, double other,
         double celsius, SincFilter filter, ChannelStart start)

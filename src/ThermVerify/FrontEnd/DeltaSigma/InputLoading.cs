@@ -46,19 +46,27 @@ internal static class InputLoading
     /// <summary>The switch-on resistance of the input: C charges within a small part of its half period.</summary>
     public static double SwitchOhms(DeltaSigmaSpec d) => 1 / (2 * d.ModulatorRateHertz * TimeConstantsPerHalfPeriod * d.SamplingCapacitanceFarads);
 
-    /// <summary>The design's DC circuit with the unbuffered input's two switches and capacitor (periodic, one modulator period).</summary>
-    public static Circuit Switched(FrontEndDesign design, double celsius, int? periods = null)
+    /// <summary>
+    /// The design's DC circuit with the unbuffered input's two switches and capacitor (periodic, one modulator period),
+    /// their schedules starting <paramref name="delaySeconds"/> late, and any <paramref name="more"/> elements after them
+    /// (the circuit made once, not element by element: a Monte Carlo unit builds it for every channel switch).
+    /// </summary>
+    public static Circuit Switched(FrontEndDesign design, double celsius, int? periods = null, double delaySeconds = 0, IEnumerable<Element>? more = null)
     {
         var d = Spec(design);
         if (d.InputBuffered) throw new ArgumentException("A buffered input draws no switched current.", nameof(design));
         var period = 1 / d.ModulatorRateHertz;
         var on = SwitchOhms(d);
-        return FrontEndCircuit.Dc(design, null, celsius)
-            .Add(new TimedSwitch(InputSwitch, FrontEndCircuit.PinNode(design), InputNode, on, FrontEndCircuit.SwitchOffOhms,
-                new PeriodicSchedule(0, period, period / 2, periods)))
-            .Add(new TimedSwitch(EmptySwitch, InputNode, Circuit.Ground, on, FrontEndCircuit.SwitchOffOhms,
-                new PeriodicSchedule(period / 2, period, period / 2, periods)))
-            .Add(new Capacitor(InputCapacitor, InputNode, Circuit.Ground, d.SamplingCapacitanceFarads));
+        var dc = FrontEndCircuit.Dc(design, null, celsius);
+        Element[] input =
+        [
+            new TimedSwitch(InputSwitch, FrontEndCircuit.PinNode(design), InputNode, on, FrontEndCircuit.SwitchOffOhms,
+                new PeriodicSchedule(delaySeconds, period, period / 2, periods)),
+            new TimedSwitch(EmptySwitch, InputNode, Circuit.Ground, on, FrontEndCircuit.SwitchOffOhms,
+                new PeriodicSchedule(period / 2 + delaySeconds, period, period / 2, periods)),
+            new Capacitor(InputCapacitor, InputNode, Circuit.Ground, d.SamplingCapacitanceFarads),
+        ];
+        return new Circuit([.. dc.Elements, .. input, .. more ?? []], dc.TemperatureCelsius);
     }
 
     /// <summary>The design's DC circuit with the input's average load: R_eq to ground (unbuffered) or the buffer's input current.</summary>

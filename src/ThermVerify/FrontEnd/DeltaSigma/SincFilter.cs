@@ -106,6 +106,40 @@ internal sealed class SincFilter
 
     public double Magnitude(double hertz) => Response(hertz).Magnitude;
 
+    /// <summary>
+    /// |H(f)|² at many frequencies (the noise integral's grid), from the filter's stages rather than its whole impulse
+    /// response: a cascade's response is the product of its stages' (the convolution theorem), so H(f) = A_M(f)^N·A_L(f)
+    /// with A_M = (1/M)·Σ_(a&lt;M) e^(−jωa) and the mean A_L = (1/L)·Σ_(l&lt;L) e^(−jωlM), each summed phasor by phasor
+    /// as <see cref="Response"/> sums h: M + L terms a frequency instead of N(M − 1) + (L − 1)M + 1.
+    /// </summary>
+    public double[] PowerAt(IReadOnlyList<double> hertz)
+    {
+        var power = new double[hertz.Count];
+        for (var i = 0; i < power.Length; i++)
+        {
+            var w = 2 * Math.PI * hertz[i] / ModulatorRateHertz;
+            var box = Phasors(w, Decimation, 1) / Decimation;
+            var mean = Phasors(w, AverageLength, Decimation) / AverageLength;
+            power[i] = Math.Pow(box.Magnitude, 2 * Order) * Math.Pow(mean.Magnitude, 2);
+        }
+        return power;
+    }
+
+    /// <summary>Σ_(a&lt;count) e^(−jω·a·spacing), by a rotating phasor renormalised now and then (as <see cref="Response"/>).</summary>
+    private static Complex Phasors(double w, int count, int spacing)
+    {
+        var step = Complex.FromPolarCoordinates(1, -w * spacing);
+        var phasor = Complex.One;
+        var sum = Complex.Zero;
+        for (var a = 0; a < count; a++)
+        {
+            sum += phasor;
+            phasor *= step;
+            if ((a & 1023) == 1023) phasor = Complex.FromPolarCoordinates(1, -w * spacing * (a + 1));
+        }
+        return sum;
+    }
+
     /// <summary>The rejection at a frequency in dB (positive: attenuated); infinite at an exact zero of the response.</summary>
     public double RejectionDecibels(double hertz) => -20 * Math.Log10(Magnitude(hertz));
 

@@ -92,6 +92,24 @@ public class ChannelSettlingRecurrenceTests
     }
 
     [Fact]
+    public void The_run_wide_memo_gives_the_same_recurrence_and_readings()
+    {
+        // The check's engine keeps each circuit's composed recurrence for the run (MemoizingEngine): the first and a
+        // repeated channel switch through it read exactly what the built-in engine gives directly.
+        var design = ExampleDesigns.Load("kiln-bank-pt100-deltasigma.toml");
+        var start = ThermVerify.Check.DeltaSigma.DeltaSigmaFindings.Start(design.Adc.DeltaSigma!);
+        var memo = MemoizingEngine.Wrap(BuiltInEngine.Instance);
+        var direct = ChannelSettling.At(design, 150, BuiltInEngine.Instance, start);
+        var load = InputLoading.At(design, 150, BuiltInEngine.Instance);
+        Assert.NotNull(ChannelSettling.Recurrence(design, design.Adc.DeltaSigma!, 150, load, memo, start, 0));
+        foreach (var run in new[] { ChannelSettling.At(design, 150, memo, start), ChannelSettling.At(design, 150, memo, start) })
+        {
+            Assert.Equal(direct.Readings.Select(r => r.Value), run.Readings.Select(r => r.Value));
+            Assert.Equal(direct.Trace.Volts, run.Trace.Volts);
+        }
+    }
+
+    [Fact]
     public void A_buffered_inputs_readings_are_its_single_pole_convolved_with_the_filter()
     {
         // The stability chamber: buffered, no reset, sinc3 of 12,800. Reference: BufferedSample (the closed form) at every

@@ -12,6 +12,24 @@ public class SincFilterTests
 {
     private const double Fmod = 256e3;
 
+    [Theory]
+    [InlineData(1, 1)]
+    [InlineData(3, 1)]
+    [InlineData(4, 3)]
+    public void The_power_from_the_stages_is_the_impulse_responses_and_the_closed_form(int order, int average)
+    {
+        // |H|² on the noise grid from the stages' phasor sums, against the sum over h (Response) and Hogenauer's closed form.
+        var filter = new SincFilter(order, 512, average, Fmod);
+        double[] hertz = [.. Enumerable.Range(1, 640).Select(k => k * filter.DataRateHertz / 32)];
+        var power = filter.PowerAt(hertz);
+        for (var i = 0; i < hertz.Length; i++)
+        {
+            // |H| within 1e-10 of itself and 1e-14 (the sum over h rounds to about 1e-16 of its Σh = 1 near a zero).
+            Tolerance.AssertClose(filter.Magnitude(hertz[i]), Math.Sqrt(power[i]), 1e-10, 1e-14, $"{hertz[i]} Hz against h");
+            Tolerance.AssertClose(ClosedForm(hertz[i], order, 512, average), Math.Sqrt(power[i]), 1e-10, 1e-14, $"{hertz[i]} Hz against the closed form");
+        }
+    }
+
     /// <summary>The closed form of the sinc^N magnitude, with the averaging stage's own sinc1 of L outputs M apart.</summary>
     private static double ClosedForm(double f, int n, int m, int l = 1)
     {
