@@ -262,6 +262,14 @@ internal static class DifferentialCase
                    (NgspiceSwitchView.Applies(rc.Circuit) ? " with the closed switches open as ngspice has them" : "");
         if (analysis is DifferentialAnalysis.Ac or DifferentialAnalysis.Noise && NgspiceOperatingPointOffCurrentLaw(rc) is { } offPoint)
             return $"linearised about ngspice's operating point, which {offPoint}";
+        if (analysis == DifferentialAnalysis.Ac && ExactAcDistance(rc, plot) is var (exactAc, ngspiceFromExact, zero, disagreeing) && exactAc <= Limits[analysis]
+            && (zero == disagreeing || ngspiceFromExact > exactAc))
+            return zero == disagreeing
+                ? $"nothing to compare: at every frequency where the engines disagree ({zero}) the exact response of the engine's own equations " +
+                  "(rational arithmetic) is zero at every node, and both engines show rounding"
+                : $"ngspice's rounding on an ill-conditioned circuit: at the {disagreeing} frequencies where the engines disagree, the exact solution " +
+                  $"of the engine's own small-signal equations (rational arithmetic; both engines' models are the same here) is within {exactAc:G2} dB of the engine's result and {ngspiceFromExact:G2} dB of ngspice's{(zero > 0 ? $" (at {zero} of them the exact response is zero at every node)" : "")}" +
+                  $"{(NgspiceSwitchView.Applies(rc.Circuit) ? ", with the closed switches open as ngspice has them" : "")}";
         if (analysis is DifferentialAnalysis.OperatingPoint or DifferentialAnalysis.SourceSweep or DifferentialAnalysis.TemperatureSweep
             && OtherSolutionDistance(rc, analysis, plot) is { } other && other <= Limits[analysis])
             return $"multiple DC solutions: Newton from ngspice's point stays there (to {other:G2}), so it solves the engine's equations too";
@@ -339,6 +347,72 @@ internal static class DifferentialCase
             ? NgspiceSwitchView.NoiseDensity(circuit, rc.NoiseOutput, frequencies)
             : NoiseAnalysis.Run(circuit, rc.NoiseOutput, FrequencySweep.At(frequencies)).OutputDensity;
         return NoiseMetric(density, plot["onoise_spectrum"].Real);
+    }
+
+    /// <summary>
+    /// The engine's AC against the exact solution of its own small-signal equations (<see cref="ExactAcSolution"/>; in
+    /// ngspice's switch view where that applies) at each frequency where the engines disagree beyond the limit: the
+    /// largest difference in dB over the nodes compared there (and ngspice's, from the same exact solution), the number of those frequencies whose exact response is
+    /// zero at every node (where only rounding is compared), and the number of disagreeing frequencies. Null if the
+    /// engine's AC or the view cannot be had, or if the exact solution is zero at a node where the engine's is not while
+    /// other nodes respond. The engine's operating point must agree with ngspice's (else the linearisation differs), and
+    /// the circuit must have no element whose small-signal model differs between the engines by construction, so that
+    /// both solve the same equations: no diode (ngspice approximates a junction's conductance below −3·n·V_T) and no
+    /// slewing op-amp (ngspice's twin linearises its tanh, <see cref="SlewTanhView"/>). Without that condition the
+    /// engine's being exact would not say that ngspice's rounding is the difference (seeds 355, 1303, 1755 are such).
+    /// </summary>
+    internal static (double Decibels, double NgspiceDecibels, int Zero, int Frequencies)? ExactAcDistance(RandomCircuit rc, NgspicePlot plot)
+    {
+        if (rc.Circuit.Elements.Any(e => e is Diode || e is OpAmp a && double.IsFinite(a.SlewRateVoltsPerSecond)))
+            return null;
+        try
+        {
+            var op = Ngspice(rc, DifferentialAnalysis.OperatingPoint);
+            var own = OperatingPoint.Solve(rc.Circuit);
+            if (ScaledDifference(rc.Nodes.Select(n => (new[] { own.Voltage(n) }, op[n].Real))) > Limits[DifferentialAnalysis.OperatingPoint])
+                return null;
+            var (system, conductances) = NgspiceSwitchView.Applies(rc.Circuit)
+                ? NgspiceSwitchView.AcSystem(rc.Circuit)
+                : (new SmallSignalSystem(rc.Circuit, "AC"), (double[]?)null);
+            conductances ??= system.Conductances;
+            var frequencies = plot["frequency"].Real;
+            var theirs = rc.Nodes.Select(n => plot[n].Complex!).ToList();
+            var rhs = system.NewVector();
+            foreach (var s in system.System.Stamps)
+                s.LoadAcExcitation(rhs);
+            var x = system.NewVector();
+            var (worst, worstTheirs, zero, count) = (0.0, 0.0, 0, 0);
+            for (var k = 0; k < frequencies.Length; k++)
+            {
+                system.Factor(frequencies[k], conductances);
+                system.Solve(rhs, x);
+                var ours = rc.Nodes.Select(n => new[] { x[system.System.Layout.IndexOfNode(n)] }).ToList();
+                var at = theirs.Select(v => new[] { v[k] }).ToList();
+                if (AcMetric(ours, at) <= Limits[DifferentialAnalysis.Ac])
+                    continue;
+                count++;
+                var exact = ExactAcSolution.NodeVoltages(system, conductances, rc.Nodes, frequencies[k]);
+                if (exact.All(v => v == Complex.Zero))
+                {
+                    zero++;
+                    continue;
+                }
+                var largest = at.Max(v => v[0].Magnitude);
+                for (var i = 0; i < exact.Length; i++)
+                    if (at[i][0].Magnitude > 1e-3 * largest)
+                    {
+                        if (exact[i] == Complex.Zero)
+                            return null;
+                        worst = Math.Max(worst, Math.Abs(20 * Math.Log10(ours[i][0].Magnitude / exact[i].Magnitude)));
+                        worstTheirs = Math.Max(worstTheirs, Math.Abs(20 * Math.Log10(at[i][0].Magnitude / exact[i].Magnitude)));
+                    }
+            }
+            return count == 0 ? null : (worst, worstTheirs, zero, count);
+        }
+        catch (Exception e) when (e is SimulationException or CircuitException or NgspiceException or KeyNotFoundException or InvalidOperationException)
+        {
+            return null;
+        }
     }
 
     /// <summary>

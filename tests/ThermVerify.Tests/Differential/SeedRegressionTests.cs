@@ -171,6 +171,41 @@ public class SeedRegressionTests
     }
 
     /// <summary>
+    /// AC disagreements of linear circuits that are rounding, shown against the exact solution of the engine's own
+    /// small-signal equations in rational arithmetic (ExactAcSolution). Seed 1326 (3 nodes: V1 holds n2, E1's output
+    /// takes I1's AC current): the response is exactly zero at every node, ngspice shows 1e-18 V, the engine 1e-53 V,
+    /// 746 dB apart. Seed 1306 (three switches, a VCVS): 66 dB on a node of ngspice's switch view, where the engine is
+    /// within 5e-9 dB of the exact solution and ngspice 2.4e-4 dB from it. Seed 1494 likewise (5.5e-12 against 1.8e-5 dB).
+    /// </summary>
+    [NgspiceTheory]
+    [InlineData(1326, "nothing to compare")]
+    [InlineData(1306, "ngspice's rounding on an ill-conditioned circuit")]
+    [InlineData(1494, "ngspice's rounding on an ill-conditioned circuit")]
+    public void A_linear_circuits_AC_rounding_is_shown_by_the_exact_solution(int seed, string explanation)
+    {
+        var rc = RandomCircuitGenerator.Generate(seed, CircuitClass.Linear, 15)!;
+        var c = DifferentialCase.Run(rc, new HashSet<DifferentialAnalysis> { DifferentialAnalysis.Ac }).Comparisons.Single();
+        Assert.True(c.Difference > 1, $"{c.Difference}");
+        Assert.StartsWith(explanation, c.Explanation);
+    }
+
+    /// <summary>The exact AC solution by hand: an RC low-pass driven by a 1 V AC source, at its corner 1/(2πRC),
+    /// is (1 − j)/2 (elementary circuit theory), and the engine's own equations solved exactly give it to rounding.</summary>
+    [Fact]
+    public void The_exact_AC_solution_of_an_RC_low_pass_at_its_corner_is_one_minus_j_over_two()
+    {
+        var circuit = new ThermVerify.Circuits.Circuit([
+            new ThermVerify.Circuits.VoltageSource("V1", "in", "0", new ThermVerify.Circuits.DcWaveform(0)) { AcMagnitude = 1 },
+            new ThermVerify.Circuits.Resistor("R1", "in", "out", 1e3),
+            new ThermVerify.Circuits.Capacitor("C1", "out", "0", 1e-6),
+        ]);
+        var system = new ThermVerify.Simulation.Mna.SmallSignalSystem(circuit, "AC");
+        var v = ExactAcSolution.NodeVoltages(system, system.Conductances, ["out"], 1 / (2 * Math.PI * 1e3 * 1e-6))[0];
+        Assert.Equal(0.5, v.Real, 1e-12);
+        Assert.Equal(-0.5, v.Imaginary, 1e-12);
+    }
+
+    /// <summary>
     /// Seed 1075 (a follower U1 with a finite slew rate, a closed switch): AC 0.11 dB apart, of which the switch view
     /// leaves 2e-6 dB on the follower's output, a constant ratio of 2.3e-7 above its pole. That is 1 − sech²(x₀), with
     /// x₀ = 2π·GBW·v_d0/SR = 21.57 /V × −22.3 µV at the operating point (v_d0 from the deck's own .op: inp_os − n9,
