@@ -299,6 +299,9 @@ internal static class DifferentialCase
             && TransientDifference(rc, plot, until: edge) is { } before && before <= Limits[analysis])
             return $"ngspice stepped across the switch edge at {edge:G6} s (its next point is {next - edge:G2} s later, where its switch " +
                    $"flips); before that edge the engines agree to {before:G2}";
+        if (analysis == DifferentialAnalysis.Transient && FromEnginesOperatingPoint(rc) is var (fromOurs, startApart) && fromOurs <= Limits[analysis])
+            return $"the transients start from two DC solutions: ngspice's operating point solves the engine's equations too (Newton from it stays), " +
+                   $"and with ngspice started at the engine's (.nodeset; its first point then {startApart:G2} of the scale from the engine's) the engines agree to {fromOurs:G2}";
         if (analysis == DifferentialAnalysis.Transient)
         {
             // A tighter ngspice run as the reference: if the engine at its defaults agrees with it, the disagreement was
@@ -453,6 +456,37 @@ internal static class DifferentialCase
             ? NgspiceSwitchView.NoiseDensity(rc.Circuit, rc.NoiseOutput, frequencies, Start)
             : NoiseAnalysis.Run(rc.Circuit, rc.NoiseOutput, FrequencySweep.At(frequencies), start: Start).OutputDensity;
         return NoiseMetric(density, plot["onoise_spectrum"].Real);
+    }
+
+    /// <summary>
+    /// Where the engines' operating points differ and ngspice's is another solution of the engine's equations
+    /// (<see cref="OtherSolutionDistance"/>), each transient starts from its engine's own: ngspice's transient rerun with
+    /// <c>.nodeset</c> at the engine's operating point (every circuit node), against the engine's transient, and how far
+    /// ngspice's first point then is from the engine's operating point (both over the scale); null when the operating
+    /// points agree, ngspice's is not shown to be another solution, or ngspice cannot run the deck. Seeds 993, 1417,
+    /// 1565, 1761 (and more): a latch or a diode loop settles in one state in one engine and another in the other.
+    /// </summary>
+    private static (double Difference, double StartApart)? FromEnginesOperatingPoint(RandomCircuit rc)
+    {
+        try
+        {
+            var op = Ngspice(rc, DifferentialAnalysis.OperatingPoint);
+            var own = OperatingPoint.Solve(rc.Circuit);
+            if (ScaledDifference(rc.Nodes.Select(n => (new[] { own.Voltage(n) }, op[n].Real))) <= Limits[DifferentialAnalysis.OperatingPoint]
+                || OtherSolutionDistance(rc, DifferentialAnalysis.OperatingPoint, op) is not { } other || other > Limits[DifferentialAnalysis.OperatingPoint])
+                return null;
+            var stop = rc.TransientStopSeconds;
+            var deck = SpiceDeckWriter.Write(NgspiceTwin.For(rc.Circuit), new TransientSweep(stop, stop / 100));
+            var nodeset = ".nodeset " + string.Join(" ", rc.Nodes.Select(n => $"v({n})={own.Voltage(n):R}"));
+            var end = deck.LastIndexOf(".end", StringComparison.Ordinal);
+            var plot = DifferentialNgspice.Run(deck[..end] + nodeset + "\n" + deck[end..]).Plot("tran");
+            var start = ScaledDifference(rc.Nodes.Select(n => (new[] { own.Voltage(n) }, new[] { plot[n].Real[0] })));
+            return TransientDifference(rc, plot) is { } d ? (d, start) : null;
+        }
+        catch (Exception e) when (e is SimulationException or CircuitException or NgspiceException or KeyNotFoundException)
+        {
+            return null;
+        }
     }
 
     /// <summary>The worst <see cref="OtherSolution.Distance"/> over the points where the engines disagree, or null.</summary>
