@@ -262,6 +262,14 @@ internal static class DifferentialCase
                    (NgspiceSwitchView.Applies(rc.Circuit) ? " with the closed switches open as ngspice has them" : "");
         if (analysis is DifferentialAnalysis.Ac or DifferentialAnalysis.Noise && NgspiceOperatingPointOffCurrentLaw(rc) is { } offPoint)
             return $"linearised about ngspice's operating point, which {offPoint}";
+        if (analysis == DifferentialAnalysis.Ac && ExactAcDistance(rc, plot) is var (exactAc, ngspiceFromExact, zero, disagreeing) && exactAc <= Limits[analysis]
+            && (zero == disagreeing || ngspiceFromExact > exactAc))
+            return zero == disagreeing
+                ? $"nothing to compare: at every frequency where the engines disagree ({zero}) the exact response of the engine's own equations " +
+                  "(rational arithmetic) is zero at every node, and both engines show rounding"
+                : $"ngspice's rounding on an ill-conditioned circuit: at the {disagreeing} frequencies where the engines disagree, the exact solution " +
+                  $"of the engine's own small-signal equations (rational arithmetic; both engines' models are the same here) is within {exactAc:G2} dB of the engine's result and {ngspiceFromExact:G2} dB of ngspice's{(zero > 0 ? $" (at {zero} of them the exact response is zero at every node)" : "")}" +
+                  $"{(NgspiceSwitchView.Applies(rc.Circuit) ? ", with the closed switches open as ngspice has them" : "")}";
         if (analysis is DifferentialAnalysis.OperatingPoint or DifferentialAnalysis.SourceSweep or DifferentialAnalysis.TemperatureSweep
             && OtherSolutionDistance(rc, analysis, plot) is { } other && other <= Limits[analysis])
             return $"multiple DC solutions: Newton from ngspice's point stays there (to {other:G2}), so it solves the engine's equations too";
@@ -279,6 +287,10 @@ internal static class DifferentialCase
             && ExactDistance(rc, analysis, plot) is { } exact && exact <= Limits[analysis] / 10)
             return $"the engine solves its own equations exactly: their exact solution (rational arithmetic) is {exact:G2} of the scale " +
                    $"from the engine's result, where the engines are {d:G2} apart (an ill-conditioned circuit; ngspice's elimination does not scale its rows)";
+        if (analysis == DifferentialAnalysis.Transient && rc.Nodes.Max(n => plot[n].Real.Max(Math.Abs)) is var theirsLargest && theirsLargest < TransientVoltageTolerance
+            && LargestTransientVolts(rc) is var oursLargest && oursLargest < TransientVoltageTolerance)
+            return $"nothing to compare: every node of both engines stays within {TransientVoltageTolerance:G2} V of 0 V (at most {Math.Max(theirsLargest, oursLargest):G2} V; " +
+                   "ngspice's voltage tolerance in the transient decks), so the relative measure divides rounding by rounding";
         if (analysis == DifferentialAnalysis.Transient && rc.Circuit.Elements.Any(e => e is TimedSwitch)
             && rc.FastestTimeConstantSeconds < 100 * SwitchControl.EdgeSeconds)
             return $"switching faster than ngspice's switch can place its edge: the fastest time constant ({rc.FastestTimeConstantSeconds:G2} s, in one " +
@@ -287,6 +299,9 @@ internal static class DifferentialCase
             && TransientDifference(rc, plot, until: edge) is { } before && before <= Limits[analysis])
             return $"ngspice stepped across the switch edge at {edge:G6} s (its next point is {next - edge:G2} s later, where its switch " +
                    $"flips); before that edge the engines agree to {before:G2}";
+        if (analysis == DifferentialAnalysis.Transient && FromEnginesOperatingPoint(rc) is var (fromOurs, startApart) && fromOurs <= Limits[analysis])
+            return $"the transients start from two DC solutions: ngspice's operating point solves the engine's equations too (Newton from it stays), " +
+                   $"and with ngspice started at the engine's (.nodeset; its first point then {startApart:G2} of the scale from the engine's) the engines agree to {fromOurs:G2}";
         if (analysis == DifferentialAnalysis.Transient)
         {
             // A tighter ngspice run as the reference: if the engine at its defaults agrees with it, the disagreement was
@@ -342,6 +357,72 @@ internal static class DifferentialCase
     }
 
     /// <summary>
+    /// The engine's AC against the exact solution of its own small-signal equations (<see cref="ExactAcSolution"/>; in
+    /// ngspice's switch view where that applies) at each frequency where the engines disagree beyond the limit: the
+    /// largest difference in dB over the nodes compared there (and ngspice's, from the same exact solution), the number of those frequencies whose exact response is
+    /// zero at every node (where only rounding is compared), and the number of disagreeing frequencies. Null if the
+    /// engine's AC or the view cannot be had, or if the exact solution is zero at a node where the engine's is not while
+    /// other nodes respond. The engine's operating point must agree with ngspice's (else the linearisation differs), and
+    /// the circuit must have no element whose small-signal model differs between the engines by construction, so that
+    /// both solve the same equations: no diode (ngspice approximates a junction's conductance below −3·n·V_T) and no
+    /// slewing op-amp (ngspice's twin linearises its tanh, <see cref="SlewTanhView"/>). Without that condition the
+    /// engine's being exact would not say that ngspice's rounding is the difference (seeds 355, 1303, 1755 are such).
+    /// </summary>
+    internal static (double Decibels, double NgspiceDecibels, int Zero, int Frequencies)? ExactAcDistance(RandomCircuit rc, NgspicePlot plot)
+    {
+        if (rc.Circuit.Elements.Any(e => e is Diode || e is OpAmp a && double.IsFinite(a.SlewRateVoltsPerSecond)))
+            return null;
+        try
+        {
+            var op = Ngspice(rc, DifferentialAnalysis.OperatingPoint);
+            var own = OperatingPoint.Solve(rc.Circuit);
+            if (ScaledDifference(rc.Nodes.Select(n => (new[] { own.Voltage(n) }, op[n].Real))) > Limits[DifferentialAnalysis.OperatingPoint])
+                return null;
+            var (system, conductances) = NgspiceSwitchView.Applies(rc.Circuit)
+                ? NgspiceSwitchView.AcSystem(rc.Circuit)
+                : (new SmallSignalSystem(rc.Circuit, "AC"), (double[]?)null);
+            conductances ??= system.Conductances;
+            var frequencies = plot["frequency"].Real;
+            var theirs = rc.Nodes.Select(n => plot[n].Complex!).ToList();
+            var rhs = system.NewVector();
+            foreach (var s in system.System.Stamps)
+                s.LoadAcExcitation(rhs);
+            var x = system.NewVector();
+            var (worst, worstTheirs, zero, count) = (0.0, 0.0, 0, 0);
+            for (var k = 0; k < frequencies.Length; k++)
+            {
+                system.Factor(frequencies[k], conductances);
+                system.Solve(rhs, x);
+                var ours = rc.Nodes.Select(n => new[] { x[system.System.Layout.IndexOfNode(n)] }).ToList();
+                var at = theirs.Select(v => new[] { v[k] }).ToList();
+                if (AcMetric(ours, at) <= Limits[DifferentialAnalysis.Ac])
+                    continue;
+                count++;
+                var exact = ExactAcSolution.NodeVoltages(system, conductances, rc.Nodes, frequencies[k]);
+                if (exact.All(v => v == Complex.Zero))
+                {
+                    zero++;
+                    continue;
+                }
+                var largest = at.Max(v => v[0].Magnitude);
+                for (var i = 0; i < exact.Length; i++)
+                    if (at[i][0].Magnitude > 1e-3 * largest)
+                    {
+                        if (exact[i] == Complex.Zero)
+                            return null;
+                        worst = Math.Max(worst, Math.Abs(20 * Math.Log10(ours[i][0].Magnitude / exact[i].Magnitude)));
+                        worstTheirs = Math.Max(worstTheirs, Math.Abs(20 * Math.Log10(at[i][0].Magnitude / exact[i].Magnitude)));
+                    }
+            }
+            return count == 0 ? null : (worst, worstTheirs, zero, count);
+        }
+        catch (Exception e) when (e is SimulationException or CircuitException or NgspiceException or KeyNotFoundException or InvalidOperationException)
+        {
+            return null;
+        }
+    }
+
+    /// <summary>
     /// Where the two operating points differ and ngspice's solves the engine's equations too (<see cref="OtherSolution"/>):
     /// the AC or noise metric of the engine linearised about ngspice's point (in ngspice's switch view if it applies),
     /// else null.
@@ -377,12 +458,57 @@ internal static class DifferentialCase
         return NoiseMetric(density, plot["onoise_spectrum"].Real);
     }
 
+    /// <summary>
+    /// Where the engines' operating points differ and ngspice's is another solution of the engine's equations
+    /// (<see cref="OtherSolutionDistance"/>), each transient starts from its engine's own: ngspice's transient rerun with
+    /// <c>.nodeset</c> at the engine's operating point (every circuit node), against the engine's transient, and how far
+    /// ngspice's first point then is from the engine's operating point (both over the scale); null when the operating
+    /// points agree, ngspice's is not shown to be another solution, or ngspice cannot run the deck. Seeds 993, 1417,
+    /// 1565, 1761 (and more): a latch or a diode loop settles in one state in one engine and another in the other.
+    /// </summary>
+    private static (double Difference, double StartApart)? FromEnginesOperatingPoint(RandomCircuit rc)
+    {
+        try
+        {
+            var op = Ngspice(rc, DifferentialAnalysis.OperatingPoint);
+            var own = OperatingPoint.Solve(rc.Circuit);
+            if (ScaledDifference(rc.Nodes.Select(n => (new[] { own.Voltage(n) }, op[n].Real))) <= Limits[DifferentialAnalysis.OperatingPoint]
+                || OtherSolutionDistance(rc, DifferentialAnalysis.OperatingPoint, op) is not { } other || other > Limits[DifferentialAnalysis.OperatingPoint])
+                return null;
+            var stop = rc.TransientStopSeconds;
+            var deck = SpiceDeckWriter.Write(NgspiceTwin.For(rc.Circuit), new TransientSweep(stop, stop / 100));
+            var nodeset = ".nodeset " + string.Join(" ", rc.Nodes.Select(n => $"v({n})={own.Voltage(n):R}"));
+            var end = deck.LastIndexOf(".end", StringComparison.Ordinal);
+            var plot = DifferentialNgspice.Run(deck[..end] + nodeset + "\n" + deck[end..]).Plot("tran");
+            var start = ScaledDifference(rc.Nodes.Select(n => (new[] { own.Voltage(n) }, new[] { plot[n].Real[0] })));
+            return TransientDifference(rc, plot) is { } d ? (d, start) : null;
+        }
+        catch (Exception e) when (e is SimulationException or CircuitException or NgspiceException or KeyNotFoundException)
+        {
+            return null;
+        }
+    }
+
     /// <summary>The worst <see cref="OtherSolution.Distance"/> over the points where the engines disagree, or null.</summary>
     private static double? OtherSolutionDistance(RandomCircuit rc, DifferentialAnalysis analysis, NgspicePlot plot) =>
         WorstOverDisagreeingPoints(rc, analysis, plot, (p, _, set, _) => OtherSolution.Distance(rc, plot, p, set));
 
     /// <summary>ngspice's vntol in the differential decks (<c>.options vntol=1e-12</c>).</summary>
     private const double VoltageTolerance = 1e-12;
+
+    /// <summary>ngspice's vntol in the transient decks (<c>.options vntol=1e-9</c>, the deck writer's default): below it
+    /// ngspice does not resolve a node voltage.</summary>
+    private const double TransientVoltageTolerance = 1e-9;
+
+    /// <summary>The largest node voltage magnitude of the engine's transient (at its own points).</summary>
+    internal static double LargestTransientVolts(RandomCircuit rc)
+    {
+        var stop = rc.TransientStopSeconds;
+        var simulation = new TransientSimulation(rc.Circuit, new TransientOptions { StopTimeSeconds = stop, MaxStepSeconds = stop / 100 });
+        simulation.AdvanceTo(stop);
+        var result = simulation.Result;
+        return rc.Nodes.Max(n => result.Voltage(n).Max(Math.Abs));
+    }
 
     /// <summary>The largest node voltage magnitude of either engine over a DC analysis.</summary>
     private static double LargestNodeVolts(RandomCircuit rc, DifferentialAnalysis analysis, NgspicePlot plot)
@@ -660,8 +786,9 @@ internal static class DifferentialCase
         // Points inside ngspice's 1 ps control ramp of a switch edge are not compared: there its switch is in either state.
         var compared = Enumerable.Range(0, time.Length)
             .Where(i => time[i] < (until ?? double.PositiveInfinity) && !edges.Any(e => Math.Abs(time[i] - e) <= SwitchControl.EdgeSeconds)).ToArray();
+        var corners = SourceCorners(rc.Circuit, stop);
         return ScaledDifference(rc.Nodes.Select(n => (
-            compared.Select(i => Ours(result, n, Math.Min(time[i], result.EndTimeSeconds), plot[n].Real[i], edges, rc.FastestTimeConstantSeconds)).ToArray(),
+            compared.Select(i => Ours(result, n, Math.Min(time[i], result.EndTimeSeconds), plot[n].Real[i], edges, rc.FastestTimeConstantSeconds, corners)).ToArray(),
             compared.Select(i => plot[n].Real[i]).ToArray())));
     }
 
@@ -672,9 +799,22 @@ internal static class DifferentialCase
     /// (50 fastest time constants, at least 1 ps), the engine's values up to a picosecond earlier or later count too,
     /// whichever is nearest ngspice's: the comparison then shows the engines, not where ngspice put the edge.
     /// </summary>
-    private static double Ours(TransientResult result, string node, double t, double theirs, List<double> edges, double fastest)
+    /// <remarks>
+    /// A source's corner (a PWL or pulse breakpoint) can make a node voltage jump as well: an inductor fed by a current
+    /// source whose slope changes there has v = L·di/dt on one side and another value on the other. ngspice reports
+    /// both sides at the corner's own time (seed 630: 5078.4 V, then 0 V, at 8.10301e-10 s, and 0 V a femtosecond later),
+    /// the engine's interpolant over its first step after the corner values between them (4891 V at the corner, 3621 V
+    /// a femtosecond later, −9e-10 V by 0.1 ps); so at ngspice's points within 0.1 ps of a corner the engine's value a
+    /// femtosecond before the corner and 0.1 ps after it count too.
+    /// </remarks>
+    private static double Ours(TransientResult result, string node, double t, double theirs, List<double> edges, double fastest, List<double> corners)
     {
         var value = result.VoltageAt(node, t);
+        foreach (var corner in corners)
+            if (Math.Abs(t - corner) <= CornerSeconds)
+                foreach (var near in new[] { corner - 1e-15, corner + CornerSeconds })
+                    if (near >= result.StartTimeSeconds && near <= result.EndTimeSeconds && Math.Abs(result.VoltageAt(node, near) - theirs) < Math.Abs(value - theirs))
+                        value = result.VoltageAt(node, near);
         var ramp = SwitchControl.EdgeSeconds;
         var window = Math.Max(ramp, 50 * fastest);
         foreach (var edge in edges)
@@ -704,6 +844,18 @@ internal static class DifferentialCase
                 return (edge, next);
         }
         return null;
+    }
+
+    /// <summary>How near a source's corner an ngspice point is taken as at the corner: the engine's first step after a
+    /// corner is a few femtoseconds, over which its interpolant ramps from one side of a jump to the other.</summary>
+    private const double CornerSeconds = 1e-13;
+
+    private static List<double> SourceCorners(Circuit circuit, double stop)
+    {
+        var corners = new List<double>();
+        foreach (var e in circuit.Elements)
+            (e switch { VoltageSource v => v.Waveform, CurrentSource c => c.Waveform, _ => null })?.CollectBreakpoints(0, stop, corners);
+        return corners;
     }
 
     private static List<double> SwitchEdges(Circuit circuit, double stop)

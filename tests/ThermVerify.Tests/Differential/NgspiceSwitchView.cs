@@ -22,9 +22,7 @@ internal static class NgspiceSwitchView
     /// ngspice's operating point (<see cref="OtherSolution.Seed"/>).</param>
     public static Complex[][] Ac(Circuit circuit, IReadOnlyList<string> nodes, double[] frequencies, Action<BoundSystem>? start = null)
     {
-        circuit = OpenedWhereLinear(circuit, start);
-        var system = new SmallSignalSystem(circuit, "AC (ngspice's switch view)", start);
-        var conductances = OpenSwitches(system, circuit);
+        var (system, conductances) = AcSystem(circuit, start);
         var rhs = system.NewVector();
         foreach (var s in system.System.Stamps)
             s.LoadAcExcitation(rhs);
@@ -38,6 +36,14 @@ internal static class NgspiceSwitchView
                 result[i][k] = x[system.System.Layout.IndexOfNode(nodes[i])];
         }
         return result;
+    }
+
+    /// <summary>The small-signal system of the view and its conductances (every switch closed at t = 0 at its off value).</summary>
+    public static (SmallSignalSystem System, double[] Conductances) AcSystem(Circuit circuit, Action<BoundSystem>? start = null)
+    {
+        circuit = OpenedWhereLinear(circuit, start);
+        var system = new SmallSignalSystem(circuit, "AC (ngspice's switch view)", start);
+        return (system, OpenSwitches(system, circuit));
     }
 
     public static double[] NoiseDensity(Circuit circuit, string output, double[] frequencies, Action<BoundSystem>? start = null)

@@ -171,6 +171,81 @@ public class SeedRegressionTests
     }
 
     /// <summary>
+    /// AC disagreements of linear circuits that are rounding, shown against the exact solution of the engine's own
+    /// small-signal equations in rational arithmetic (ExactAcSolution). Seed 1326 (3 nodes: V1 holds n2, E1's output
+    /// takes I1's AC current): the response is exactly zero at every node, ngspice shows 1e-18 V, the engine 1e-53 V,
+    /// 746 dB apart. Seed 1306 (three switches, a VCVS): 66 dB on a node of ngspice's switch view, where the engine is
+    /// within 5e-9 dB of the exact solution and ngspice 2.4e-4 dB from it. Seed 1494 likewise (5.5e-12 against 1.8e-5 dB).
+    /// </summary>
+    [NgspiceTheory]
+    [InlineData(1326, "nothing to compare")]
+    [InlineData(1306, "ngspice's rounding on an ill-conditioned circuit")]
+    [InlineData(1494, "ngspice's rounding on an ill-conditioned circuit")]
+    public void A_linear_circuits_AC_rounding_is_shown_by_the_exact_solution(int seed, string explanation)
+    {
+        var rc = RandomCircuitGenerator.Generate(seed, CircuitClass.Linear, 15)!;
+        var c = DifferentialCase.Run(rc, new HashSet<DifferentialAnalysis> { DifferentialAnalysis.Ac }).Comparisons.Single();
+        Assert.True(c.Difference > 1, $"{c.Difference}");
+        Assert.StartsWith(explanation, c.Explanation);
+    }
+
+    /// <summary>The exact AC solution by hand: an RC low-pass driven by a 1 V AC source, at its corner 1/(2πRC),
+    /// is (1 − j)/2 (elementary circuit theory), and the engine's own equations solved exactly give it to rounding.</summary>
+    [Fact]
+    public void The_exact_AC_solution_of_an_RC_low_pass_at_its_corner_is_one_minus_j_over_two()
+    {
+        var circuit = new ThermVerify.Circuits.Circuit([
+            new ThermVerify.Circuits.VoltageSource("V1", "in", "0", new ThermVerify.Circuits.DcWaveform(0)) { AcMagnitude = 1 },
+            new ThermVerify.Circuits.Resistor("R1", "in", "out", 1e3),
+            new ThermVerify.Circuits.Capacitor("C1", "out", "0", 1e-6),
+        ]);
+        var system = new ThermVerify.Simulation.Mna.SmallSignalSystem(circuit, "AC");
+        var v = ExactAcSolution.NodeVoltages(system, system.Conductances, ["out"], 1 / (2 * Math.PI * 1e3 * 1e-6))[0];
+        Assert.Equal(0.5, v.Real, 1e-12);
+        Assert.Equal(-0.5, v.Imaginary, 1e-12);
+    }
+
+    /// <summary>
+    /// Transient disagreements of 0.96 and 0.72 of the scale that are no difference of the engines. Seed 630 (L2 fed by
+    /// a PWL current source alone): v(n3) = −L2·dI1/dt jumps from 5078.4 V to 0 V at the ramp's last corner, 8.10301e-10 s;
+    /// ngspice reports both sides at that instant, the engine's interpolant values between them over its first
+    /// (femtosecond) step after the corner, so the comparison takes the engine's values on either side there; they agree
+    /// to 1e-9 of the scale. The closed form of the jump (elementary: v = L·di/dt) is checked from the PWL's numbers.
+    /// Seed 830: every node of both engines stays below ngspice's vntol (1e-9 V) in the transient deck.
+    /// </summary>
+    [NgspiceFact]
+    public void A_jump_at_a_source_corner_and_a_transient_of_rounding_are_no_disagreement()
+    {
+        var rc = RandomCircuitGenerator.Generate(630, CircuitClass.Linear, 15)!;
+        var c = DifferentialCase.Run(rc, new HashSet<DifferentialAnalysis> { DifferentialAnalysis.Transient }).Comparisons.Single();
+        Assert.True(c.Difference <= DifferentialCase.Limits[DifferentialAnalysis.Transient], $"{c.Difference}");
+        // The ramp before the corner: I1 from 1.53999e-5 A at 7.94638e-10 s to −5.62466e-6 A at 8.10301e-10 s through 3.7833 mH.
+        var ramp = -0.003783338099254502 * (-5.62466e-6 - 1.53999e-5) / (8.10301e-10 - 7.94638e-10);
+        Assert.Equal(5078.4, ramp, 0.5);
+        var flat = RandomCircuitGenerator.Generate(830, CircuitClass.Linear, 15)!;
+        var d = DifferentialCase.Run(flat, new HashSet<DifferentialAnalysis> { DifferentialAnalysis.Transient }).Comparisons.Single();
+        Assert.StartsWith("nothing to compare", d.Explanation);
+    }
+
+    /// <summary>
+    /// Transients 0.88 and 1.0 of the scale apart whose operating points are two DC solutions (seeds 993 and 603: ngspice's
+    /// solves the engine's equations too, Newton started there stays): each engine's transient starts from its own. With
+    /// ngspice started at the engine's operating point (.nodeset on every circuit node) its first point is the engine's
+    /// to 1e-11 of the scale, and the transients agree to 6e-12 and 4e-9.
+    /// </summary>
+    [NgspiceTheory]
+    [InlineData(993)]
+    [InlineData(603)]
+    public void Transients_from_two_DC_solutions_agree_once_ngspice_starts_at_the_engines(int seed)
+    {
+        var rc = RandomCircuitGenerator.Generate(seed, CircuitClass.Nonlinear, 15)!;
+        var c = DifferentialCase.Run(rc, new HashSet<DifferentialAnalysis> { DifferentialAnalysis.OperatingPoint, DifferentialAnalysis.Transient }).Comparisons;
+        Assert.StartsWith("multiple DC solutions", c[0].Explanation);
+        Assert.True(c[1].Difference > 0.5, $"{c[1].Difference}");
+        Assert.StartsWith("the transients start from two DC solutions", c[1].Explanation);
+    }
+
+    /// <summary>
     /// Seed 1075 (a follower U1 with a finite slew rate, a closed switch): AC 0.11 dB apart, of which the switch view
     /// leaves 2e-6 dB on the follower's output, a constant ratio of 2.3e-7 above its pole. That is 1 − sech²(x₀), with
     /// x₀ = 2π·GBW·v_d0/SR = 21.57 /V × −22.3 µV at the operating point (v_d0 from the deck's own .op: inp_os − n9,
