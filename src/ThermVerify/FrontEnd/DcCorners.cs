@@ -25,9 +25,23 @@ internal sealed record DcCorners(DcLevels Base, IReadOnlyList<DcLevels> Corners,
         var signs = shifted.Select(s => temperatures.Select((_, i) => s.StaticRatio(i) >= baseLevels.StaticRatio(i) ? 1.0 : -1.0).ToArray()).ToArray();
         DcLevels Corner(double direction)
         {
-            double[] Add(Func<DcLevels, double[]> array) =>
-                [.. temperatures.Select((_, i) => array(baseLevels)[i] + direction * Enumerable.Range(0, bounds.Count)
-                    .Sum(b => signs[b][i] * (array(shifted[b])[i] - array(baseLevels)[i])))];
+            // Plain loops (the same sums in the same order as before): this runs for every Monte Carlo unit.
+            double[] Add(Func<DcLevels, double[]> array)
+            {
+                var baseArray = array(baseLevels);
+                var shiftedArrays = new double[bounds.Count][];
+                for (var b = 0; b < bounds.Count; b++)
+                    shiftedArrays[b] = array(shifted[b]);
+                var result = new double[temperatures.Count];
+                for (var i = 0; i < result.Length; i++)
+                {
+                    var sum = 0.0;
+                    for (var b = 0; b < bounds.Count; b++)
+                        sum += signs[b][i] * (shiftedArrays[b][i] - baseArray[i]);
+                    result[i] = baseArray[i] + direction * sum;
+                }
+                return result;
+            }
             return new DcLevels(baseLevels.DividerVolts,
                 baseLevels.AfterBufferVolts is null ? null : Add(l => l.AfterBufferVolts!),
                 Add(l => l.StaticPinVolts),

@@ -97,6 +97,33 @@ public sealed class CancellationTests : IDisposable
         AssertNothingWritten();
     }
 
+    /// <summary>
+    /// The other long searches: `choose-fixed` (182 E96 candidates, each a full check; the buffered cable probe's take
+    /// seconds each) and `worstcase` (a thousand corner units on the buffered logger), interrupted once or pressed
+    /// again and again, on one thread and on two: each stops with 130 and writes nothing (issue 17 item 5). The
+    /// cancellation reaches inside each candidate through the run's token and the solvers' checks (Limits/Work).
+    /// </summary>
+    [Theory]
+    [InlineData("choose-fixed", "buffered-cable-probe.toml", "1", 1)]
+    [InlineData("choose-fixed", "buffered-cable-probe.toml", "2", 20)]
+    [InlineData("worstcase", "cold-storage-logger-buffered.toml", "1", 1)]
+    [InlineData("worstcase", "cold-storage-logger-buffered.toml", "2", 20)]
+    public async Task Interrupting_a_search_stops_it_and_writes_nothing(string command, string example, string threads, int presses)
+    {
+        if (!OperatingSystem.IsLinux()) return;
+        using var process = Start(command, Example(example), "--threads", threads, "--progress",
+            "--json", Path.Combine(folder.FullName, "out.json"));
+        _ = process.StandardOutput.ReadToEndAsync();
+        // The first progress line: at least one candidate or unit is done and the next ones are running.
+        var before = await WaitFor(process, line => line.StartsWith("candidates:", StringComparison.Ordinal) || line.StartsWith("units:", StringComparison.Ordinal));
+        for (var k = 0; k < presses && !process.HasExited; k++)
+            Signal(process, "INT");
+        var (code, error) = await Finish(process, before);
+        Assert.Equal(ExitCodes.Cancelled, code);
+        Assert.Contains("cancelled; no output file was written", error);
+        AssertNothingWritten();
+    }
+
     [Fact]
     public async Task A_time_limit_stops_the_run_with_exit_3_and_writes_nothing()
     {

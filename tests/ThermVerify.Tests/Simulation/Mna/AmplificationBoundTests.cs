@@ -72,6 +72,18 @@ public class AmplificationBoundTests(ITestOutputHelper output)
         }
     }
 
+    /// <summary>The equilibration's power of two read off the exponent field: the same as ILogB and ScaleB give (.NET's Math), normal, subnormal and extreme magnitudes alike.</summary>
+    [Fact]
+    public void The_equilibration_scale_is_the_power_of_two_ilogb_and_scaleb_give()
+    {
+        var random = new Random(3);
+        var values = Enumerable.Range(0, 20000).Select(_ => Math.Pow(2, random.NextDouble() * 2140 - 1074) * (1 + random.NextDouble()))
+            .Concat([double.Epsilon, 1e-310, double.MaxValue, 1, 0.5, 2, Math.ScaleB(1, 1021), Math.ScaleB(1, 1022), Math.ScaleB(1, -1022)])
+            .Where(v => v > 0 && double.IsFinite(v));
+        foreach (var m in values)
+            Assert.Equal(Math.ScaleB(1.0, -(Math.ILogB(m) + 1)), DenseLu<double>.PowerOfTwoBelowInverse(m));
+    }
+
     /// <summary>The island of ConditioningTests tied by 1e14 Ω: amplification above 1e12, so the bound cannot settle it.</summary>
     [Fact]
     public void An_ill_conditioned_island_is_not_settled_by_the_bound()
