@@ -231,7 +231,7 @@ internal sealed class ExactSwitchedTransient
                 : maps.FullMap(regularPattern[i], i);
             (psi, g) = Compose(map, psi, g, r);
         }
-        var (output, constant) = maps.ModelOf(regularPattern[last]).OutputRow(unknown);
+        var (output, constant) = maps.ModelOf(regularPattern[last]).OutputAffine(unknown);
         var row = new double[r];
         for (var k = 0; k < r; k++)
         {

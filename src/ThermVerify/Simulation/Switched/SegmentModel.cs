@@ -68,7 +68,7 @@ internal sealed class SegmentModel
     }
 
     /// <summary>x[unknown] as a row over z and a constant (P[unknown, ·], p[unknown]); zeros for the ground index.</summary>
-    public (double[] Row, double Constant) OutputRow(int unknown) =>
+    public (double[] Row, double Constant) OutputAffine(int unknown) =>
         unknown == UnknownCount ? (new double[StateCount], 0) : (outputRows.AsSpan(unknown * StateCount, StateCount).ToArray(), outputOffsets[unknown]);
 
     /// <summary>The whole solution vector x = P·z + p.</summary>
