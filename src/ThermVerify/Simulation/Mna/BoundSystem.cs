@@ -13,6 +13,7 @@ namespace ThermVerify.Simulation.Mna;
 internal sealed class BoundSystem
 {
     private readonly Stamp[] loaders;
+    private readonly Stamp[] nonlinear;
     private readonly Stamp[] temperatureStamps;
     private readonly double[] fixedBase;
     private readonly double[] baseMatrix;
@@ -41,6 +42,7 @@ internal sealed class BoundSystem
         StateOwners = bind.StateOwners;
         Context = new LoadContext(Layout, bind.StateCount);
         loaders = [.. Stamps.Where(s => s.HasLoad)];
+        nonlinear = [.. Stamps.Where(s => s.IsNonlinear)];
         Reactive = [.. Stamps.Where(s => s.IsReactive)];
         temperatureStamps = [.. Stamps.Where(s => s.DependsOnTemperature)];
         IsNonlinear = Stamps.Any(s => s.IsNonlinear);
@@ -163,6 +165,15 @@ internal sealed class BoundSystem
 
     /// <summary>Linear solves so far (Newton iterations, aids included): what a sweep's start and aids cost.</summary>
     public long Solves { get; private set; }
+
+    /// <summary>Whether every nonlinear stamp's last linearisation holds exactly up to <paramref name="next"/> (<see cref="Stamp.LinearisationExact"/>).</summary>
+    public bool LinearisationExact(double[] next)
+    {
+        foreach (var s in nonlinear)
+            if (!s.LinearisationExact(Context, next))
+                return false;
+        return true;
+    }
 
     /// <summary>Makes the last solved iterate the present one.</summary>
     public void AdoptNext() => (Context.Solution, next) = (next, Context.Solution);

@@ -59,6 +59,14 @@ internal static class Newton
             if (!AllFinite(next, system.Size, out worstUnknown))
                 return false;
             var limited = system.Context.Limited;
+            if (!limited && system.LinearisationExact(next))
+            {
+                // The linearised equations were the nonlinear ones between the two iterates: next solves them (an
+                // op-amp in its linear region), and a further iteration would only reproduce it.
+                system.AdoptNext();
+                system.NoteLostDigits();
+                return true;
+            }
             var ratio = WorstRatio(system, settings, next, noise, out worstUnknown);
             if (!limited && ratio > 1 && noise is null)
             {

@@ -22,6 +22,13 @@ internal abstract class Stamp(Element element)
     /// <summary>The stamp's load depends on the iterate: Newton iterations are needed.</summary>
     public virtual bool IsNonlinear => false;
 
+    /// <summary>
+    /// Whether the last <see cref="Load"/>'s linearisation is the element itself, to far below any tolerance, everywhere
+    /// between the iterate it was made at and <paramref name="next"/>: then the solve that gave <paramref name="next"/>
+    /// solved the nonlinear equations too, and Newton needs no iteration to confirm it. False unless a stamp can show it.
+    /// </summary>
+    public virtual bool LinearisationExact(LoadContext context, double[] next) => false;
+
     /// <summary>The stamp keeps integrated states and wants <see cref="Accept"/> after each converged point.</summary>
     public virtual bool IsReactive => false;
 
