@@ -89,7 +89,7 @@ internal sealed class UnitEvaluator
         double? channelSwitch = null;
         if (IsDeltaSigma)
         {
-            dc = AverageInputLoad.Added(dc, unit.Design, Temperatures);
+            dc = AverageInputLoad.Added(dc, unit.Design, Temperatures, builtInLevels: true);
             // No acquisition window: the unit's own settling is its channel switch through the digital filter.
             if (simulateSettling) channelSwitch = DeltaSigmaUnit.SwitchKelvin(unit.Design, SwitchCelsius, Model);
             simulateSettling = false;

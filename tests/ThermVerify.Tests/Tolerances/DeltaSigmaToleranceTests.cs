@@ -86,6 +86,30 @@ public class DeltaSigmaToleranceTests
         Assert.True(Math.Abs(loaded.Base.StaticPinVolts[0] - dc.Base.StaticPinVolts[0]) > 1e-6);
     }
 
+    [Theory]
+    [InlineData("kiln-bank-pt100-deltasigma.toml")]
+    [InlineData("stability-chamber-pt100-pga.toml")]
+    public void A_units_load_from_its_own_unloaded_sweep_is_the_load_swept_anew(string example)
+    {
+        // A Monte Carlo unit's base levels are the built-in engine's sweep of its DC circuit, so the average load's
+        // shift takes its unloaded pin from them instead of sweeping it again: the levels must be exactly those of the
+        // two sweeps, for drawn units of both examples.
+        var design = ExampleDesigns.Load(example);
+        var evaluator = new UnitEvaluator(design, threads: 1);
+        var random = new UnitRandom(3, 0);
+        for (var u = 0; u < 3; u++)
+        {
+            var unit = BuiltUnit.Build(design, evaluator.Model.Sensor, evaluator.Set, evaluator.Set.Sample(ref random)).Design;
+            Assert.Empty(ThermVerify.FrontEnd.StaticBounds.InCircuit(unit)); // so the reuse is taken, not the second sweep
+            var dc = ThermVerify.FrontEnd.DcCorners.Run(unit, evaluator.Cases, evaluator.Temperatures);
+            var reused = ThermVerify.FrontEnd.DeltaSigma.AverageInputLoad.Added(dc, unit, evaluator.Temperatures, builtInLevels: true);
+            var swept = ThermVerify.FrontEnd.DeltaSigma.AverageInputLoad.Added(dc, unit, evaluator.Temperatures);
+            Assert.Equal(swept.Base.StaticPinVolts, reused.Base.StaticPinVolts);
+            for (var c = 0; c < swept.Corners.Count; c++)
+                Assert.Equal(swept.Corners[c].StaticPinVolts, reused.Corners[c].StaticPinVolts);
+        }
+    }
+
     [Fact]
     public void Montecarlo_of_the_delta_sigma_example_is_reproducible_from_its_seed_on_any_thread_count()
     {

@@ -15,10 +15,18 @@ internal static class AverageInputLoad
     public static bool Applies(FrontEndDesign design) => design.Adc.Kind == ConverterKind.DeltaSigma;
 
     /// <summary>The levels moved by the load's simulated shift of the pin (the levels as they are for any other converter).</summary>
-    public static DcCorners Added(DcCorners dc, FrontEndDesign design, IReadOnlyList<double> temperatures)
+    /// <param name="builtInLevels">
+    /// True where <paramref name="dc"/> is the built-in engine's sweep of the design's DC circuit: its base's static pin
+    /// voltage is then the unloaded sweep this would run again (a Monte Carlo unit's, whose circuit holds no bound), so one
+    /// sweep is saved. False for levels
+    /// another engine may have swept (the check's), whose pin must not be mixed with the built-in engine's loaded one.
+    /// </param>
+    public static DcCorners Added(DcCorners dc, FrontEndDesign design, IReadOnlyList<double> temperatures, bool builtInLevels = false)
     {
         if (!Applies(design)) return dc;
-        var shift = ShiftVolts(design, temperatures);
+        // The base levels are swept on the design with its bounds at zero: the same circuit only where it has none in it.
+        var unloaded = builtInLevels && StaticBounds.InCircuit(design).Count == 0 ? dc.Base.StaticPinVolts : null;
+        var shift = ShiftVolts(design, temperatures, unloaded);
         DcLevels Loaded(DcLevels l) => l with
         {
             StaticPinVolts = [.. l.StaticPinVolts.Select((v, i) => v + shift[i])],
@@ -33,14 +41,15 @@ internal static class AverageInputLoad
     /// sweeps (one factorisation pattern each, as every DC level is swept). A buffer whose offset drift a sweep cannot
     /// follow (<see cref="BufferStage.DriftFollowsSweep"/>) is solved at each temperature on a circuit built for it.
     /// </summary>
-    internal static double[] ShiftVolts(FrontEndDesign design, IReadOnlyList<double> temperatures)
+    /// <param name="unloadedPinVolts">The unloaded sweep's pin voltage where the caller has it from the built-in engine.</param>
+    internal static double[] ShiftVolts(FrontEndDesign design, IReadOnlyList<double> temperatures, IReadOnlyList<double>? unloadedPinVolts = null)
     {
         var pin = FrontEndCircuit.PinNode(design);
         if (BufferStage.DriftFollowsSweep(design))
             return [.. temperatures.Select(t =>
                 OperatingPoint.Solve(InputLoading.Average(design, t)).Voltage(pin) - OperatingPoint.Solve(FrontEndCircuit.Dc(design, null, t)).Voltage(pin))];
         var dc = FrontEndCircuit.Dc(design, null);
-        var unloaded = DcSweep.Temperature(dc, temperatures).Voltage(pin);
+        var unloaded = unloadedPinVolts ?? DcSweep.Temperature(dc, temperatures).Voltage(pin);
         var loaded = DcSweep.Temperature(InputLoading.WithAverageLoad(design, dc), temperatures).Voltage(pin);
         return [.. loaded.Select((v, i) => v - unloaded[i])];
     }
