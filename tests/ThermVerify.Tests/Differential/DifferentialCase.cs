@@ -366,7 +366,7 @@ internal static class DifferentialCase
     /// the circuit must have no element whose small-signal model differs between the engines by construction, so that
     /// both solve the same equations: no diode (ngspice approximates a junction's conductance below −3·n·V_T) and no
     /// slewing op-amp (ngspice's twin linearises its tanh, <see cref="SlewTanhView"/>). Without that condition the
-    /// engine's being exact would not say that ngspice's rounding is the difference (seeds 355, 1303, 1755 are such).
+    /// engine's being exact would not say that ngspice's rounding is the difference (seed 1755 is such).
     /// </summary>
     internal static (double Decibels, double NgspiceDecibels, int Zero, int Frequencies)? ExactAcDistance(RandomCircuit rc, NgspicePlot plot)
     {
