@@ -55,7 +55,7 @@ internal sealed record CaseResult(RandomCircuit Circuit, bool? Stable, IReadOnly
 /// divided by the scale.</item>
 /// </list>
 /// </summary>
-internal static class DifferentialCase
+internal static partial class DifferentialCase
 {
     /// <summary>p99 limits of the agreement where both engines complete (issue 15's acceptance figures; the transient
     /// one is ours: a few times both engines' own error at reltol 1e-6).</summary>
@@ -283,6 +283,10 @@ internal static class DifferentialCase
         if (analysis is DifferentialAnalysis.SourceSweep or DifferentialAnalysis.TemperatureSweep
             && NgspiceAloneDistance(rc, analysis, plot) is { } alone && alone <= Limits[analysis])
             return $"ngspice's sweep drifts from its own answer: each disagreeing point run alone in ngspice agrees with the engine to {alone:G2}";
+        if (analysis is DifferentialAnalysis.SourceSweep or DifferentialAnalysis.TemperatureSweep
+            && NgspiceAloneOrGminDistance(rc, analysis, plot) is { } mixed && mixed <= Limits[analysis])
+            return $"ngspice's sweep: at each disagreeing point either ngspice run alone agrees with the engine, or the engine with " +
+                   $"{NgspiceGminSiemens:G2} S (ngspice's gmin) from every node to ground agrees with ngspice's sweep (to {mixed:G2})";
         if (analysis is DifferentialAnalysis.OperatingPoint or DifferentialAnalysis.SourceSweep or DifferentialAnalysis.TemperatureSweep
             && ExactDistance(rc, analysis, plot) is { } exact && exact <= Limits[analysis] / 10)
             return $"the engine solves its own equations exactly: their exact solution (rational arithmetic) is {exact:G2} of the scale " +
@@ -357,72 +361,6 @@ internal static class DifferentialCase
     }
 
     /// <summary>
-    /// The engine's AC against the exact solution of its own small-signal equations (<see cref="ExactAcSolution"/>; in
-    /// ngspice's switch view where that applies) at each frequency where the engines disagree beyond the limit: the
-    /// largest difference in dB over the nodes compared there (and ngspice's, from the same exact solution), the number of those frequencies whose exact response is
-    /// zero at every node (where only rounding is compared), and the number of disagreeing frequencies. Null if the
-    /// engine's AC or the view cannot be had, or if the exact solution is zero at a node where the engine's is not while
-    /// other nodes respond. The engine's operating point must agree with ngspice's (else the linearisation differs), and
-    /// the circuit must have no element whose small-signal model differs between the engines by construction, so that
-    /// both solve the same equations: no diode (ngspice approximates a junction's conductance below −3·n·V_T) and no
-    /// slewing op-amp (ngspice's twin linearises its tanh, <see cref="SlewTanhView"/>). Without that condition the
-    /// engine's being exact would not say that ngspice's rounding is the difference (seed 1755 is such).
-    /// </summary>
-    internal static (double Decibels, double NgspiceDecibels, int Zero, int Frequencies)? ExactAcDistance(RandomCircuit rc, NgspicePlot plot)
-    {
-        if (rc.Circuit.Elements.Any(e => e is Diode || e is OpAmp a && double.IsFinite(a.SlewRateVoltsPerSecond)))
-            return null;
-        try
-        {
-            var op = Ngspice(rc, DifferentialAnalysis.OperatingPoint);
-            var own = OperatingPoint.Solve(rc.Circuit);
-            if (ScaledDifference(rc.Nodes.Select(n => (new[] { own.Voltage(n) }, op[n].Real))) > Limits[DifferentialAnalysis.OperatingPoint])
-                return null;
-            var (system, conductances) = NgspiceSwitchView.Applies(rc.Circuit)
-                ? NgspiceSwitchView.AcSystem(rc.Circuit)
-                : (new SmallSignalSystem(rc.Circuit, "AC"), (double[]?)null);
-            conductances ??= system.Conductances;
-            var frequencies = plot["frequency"].Real;
-            var theirs = rc.Nodes.Select(n => plot[n].Complex!).ToList();
-            var rhs = system.NewVector();
-            foreach (var s in system.System.Stamps)
-                s.LoadAcExcitation(rhs);
-            var x = system.NewVector();
-            var (worst, worstTheirs, zero, count) = (0.0, 0.0, 0, 0);
-            for (var k = 0; k < frequencies.Length; k++)
-            {
-                system.Factor(frequencies[k], conductances);
-                system.Solve(rhs, x);
-                var ours = rc.Nodes.Select(n => new[] { x[system.System.Layout.IndexOfNode(n)] }).ToList();
-                var at = theirs.Select(v => new[] { v[k] }).ToList();
-                if (AcMetric(ours, at) <= Limits[DifferentialAnalysis.Ac])
-                    continue;
-                count++;
-                var exact = ExactAcSolution.NodeVoltages(system, conductances, rc.Nodes, frequencies[k]);
-                if (exact.All(v => v == Complex.Zero))
-                {
-                    zero++;
-                    continue;
-                }
-                var largest = at.Max(v => v[0].Magnitude);
-                for (var i = 0; i < exact.Length; i++)
-                    if (at[i][0].Magnitude > 1e-3 * largest)
-                    {
-                        if (exact[i] == Complex.Zero)
-                            return null;
-                        worst = Math.Max(worst, Math.Abs(20 * Math.Log10(ours[i][0].Magnitude / exact[i].Magnitude)));
-                        worstTheirs = Math.Max(worstTheirs, Math.Abs(20 * Math.Log10(at[i][0].Magnitude / exact[i].Magnitude)));
-                    }
-            }
-            return count == 0 ? null : (worst, worstTheirs, zero, count);
-        }
-        catch (Exception e) when (e is SimulationException or CircuitException or NgspiceException or KeyNotFoundException or InvalidOperationException)
-        {
-            return null;
-        }
-    }
-
-    /// <summary>
     /// Where the two operating points differ and ngspice's solves the engine's equations too (<see cref="OtherSolution"/>):
     /// the AC or noise metric of the engine linearised about ngspice's point (in ngspice's switch view if it applies),
     /// else null.
@@ -458,57 +396,12 @@ internal static class DifferentialCase
         return NoiseMetric(density, plot["onoise_spectrum"].Real);
     }
 
-    /// <summary>
-    /// Where the engines' operating points differ and ngspice's is another solution of the engine's equations
-    /// (<see cref="OtherSolutionDistance"/>), each transient starts from its engine's own: ngspice's transient rerun with
-    /// <c>.nodeset</c> at the engine's operating point (every circuit node), against the engine's transient, and how far
-    /// ngspice's first point then is from the engine's operating point (both over the scale); null when the operating
-    /// points agree, ngspice's is not shown to be another solution, or ngspice cannot run the deck. Seeds 993, 1417,
-    /// 1565, 1761 (and more): a latch or a diode loop settles in one state in one engine and another in the other.
-    /// </summary>
-    private static (double Difference, double StartApart)? FromEnginesOperatingPoint(RandomCircuit rc)
-    {
-        try
-        {
-            var op = Ngspice(rc, DifferentialAnalysis.OperatingPoint);
-            var own = OperatingPoint.Solve(rc.Circuit);
-            if (ScaledDifference(rc.Nodes.Select(n => (new[] { own.Voltage(n) }, op[n].Real))) <= Limits[DifferentialAnalysis.OperatingPoint]
-                || OtherSolutionDistance(rc, DifferentialAnalysis.OperatingPoint, op) is not { } other || other > Limits[DifferentialAnalysis.OperatingPoint])
-                return null;
-            var stop = rc.TransientStopSeconds;
-            var deck = SpiceDeckWriter.Write(NgspiceTwin.For(rc.Circuit), new TransientSweep(stop, stop / 100));
-            var nodeset = ".nodeset " + string.Join(" ", rc.Nodes.Select(n => $"v({n})={own.Voltage(n):R}"));
-            var end = deck.LastIndexOf(".end", StringComparison.Ordinal);
-            var plot = DifferentialNgspice.Run(deck[..end] + nodeset + "\n" + deck[end..]).Plot("tran");
-            var start = ScaledDifference(rc.Nodes.Select(n => (new[] { own.Voltage(n) }, new[] { plot[n].Real[0] })));
-            return TransientDifference(rc, plot) is { } d ? (d, start) : null;
-        }
-        catch (Exception e) when (e is SimulationException or CircuitException or NgspiceException or KeyNotFoundException)
-        {
-            return null;
-        }
-    }
-
     /// <summary>The worst <see cref="OtherSolution.Distance"/> over the points where the engines disagree, or null.</summary>
     private static double? OtherSolutionDistance(RandomCircuit rc, DifferentialAnalysis analysis, NgspicePlot plot) =>
         WorstOverDisagreeingPoints(rc, analysis, plot, (p, _, set, _) => OtherSolution.Distance(rc, plot, p, set));
 
     /// <summary>ngspice's vntol in the differential decks (<c>.options vntol=1e-12</c>).</summary>
     private const double VoltageTolerance = 1e-12;
-
-    /// <summary>ngspice's vntol in the transient decks (<c>.options vntol=1e-9</c>, the deck writer's default): below it
-    /// ngspice does not resolve a node voltage.</summary>
-    private const double TransientVoltageTolerance = 1e-9;
-
-    /// <summary>The largest node voltage magnitude of the engine's transient (at its own points).</summary>
-    internal static double LargestTransientVolts(RandomCircuit rc)
-    {
-        var stop = rc.TransientStopSeconds;
-        var simulation = new TransientSimulation(rc.Circuit, new TransientOptions { StopTimeSeconds = stop, MaxStepSeconds = stop / 100 });
-        simulation.AdvanceTo(stop);
-        var result = simulation.Result;
-        return rc.Nodes.Max(n => result.Voltage(n).Max(Math.Abs));
-    }
 
     /// <summary>The largest node voltage magnitude of either engine over a DC analysis.</summary>
     private static double LargestNodeVolts(RandomCircuit rc, DifferentialAnalysis analysis, NgspicePlot plot)
