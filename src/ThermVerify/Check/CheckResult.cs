@@ -20,6 +20,13 @@ public sealed record CheckOptions
     /// </summary>
     public bool ComputeRemedies { get; init; } = true;
 
+    /// <summary>
+    /// Record the sampling waveform at the worst point for the report's figure (<see cref="CheckResult.Waveform"/>).
+    /// Remedy proofs and search candidates, whose results no report draws, turn it off: on an op-amp buffer near its
+    /// rail the 483 reads of the recording cost more than the rest of the check.
+    /// </summary>
+    public bool RecordWaveform { get; init; } = true;
+
     public CancellationToken Cancel { get; init; }
 
     /// <summary>The engine that runs the temperature sweeps and sampling transients (remedy searches included).</summary>
@@ -34,7 +41,8 @@ public sealed record CheckOptions
 
 /// <summary>
 /// Everything `check` found: every point of the sweep, the sampling runs, the findings and the verdict, and the
-/// sampling waveform at the worst point (recorded by the check's own engine, so reports draw it without simulating).
+/// sampling waveform at the worst point (recorded by the check's own engine, so reports draw it without simulating;
+/// without conversions when <see cref="CheckOptions.RecordWaveform"/> is off or the converter is a delta-sigma one).
 /// </summary>
 public sealed record CheckResult(
     FrontEndDesign Design,

@@ -38,7 +38,9 @@ internal static class FrontEndCheck
         IReadOnlyList<Finding> ordered = FindingRules.OverBudget(evaluation.Model, points, findings) is { } budget ? [budget, .. findings] : findings;
 
         var worst = points[ErrorModel.WorstIndex([.. points.Select(p => p.ErrorKelvin)])];
-        var waveform = SamplingWaveform.Record(design, worst.Celsius, worst.PrechargeVolts, evaluation.SettleVolts, options.Engine);
+        var waveform = options.RecordWaveform
+            ? SamplingWaveform.Record(design, worst.Celsius, worst.PrechargeVolts, evaluation.SettleVolts, options.Engine)
+            : new SamplingWaveform(worst.Celsius, worst.PrechargeVolts, design.Adc.AcquisitionTimeSeconds, []);
         var result = new CheckResult(design, evaluation.Model.Sensor.Description, evaluation.Model.Adc, points, evaluation.Offsets.Outcomes,
             ordered, waveform)
         {

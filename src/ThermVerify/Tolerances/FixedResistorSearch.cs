@@ -174,7 +174,7 @@ internal static class FixedResistorSearch
 
         var check = FrontEndCheck.Run(candidate, new CheckOptions
         {
-            MaximumSamplingPoints = SamplingPointsPerCandidate, Threads = 1, ComputeRemedies = false, Cancel = cancel,
+            MaximumSamplingPoints = SamplingPointsPerCandidate, Threads = 1, ComputeRemedies = false, RecordWaveform = false, Cancel = cancel,
         });
         var points = check.Points;
         // The check's error includes the sensor's self-heating (one error model); the rise is shown beside it.

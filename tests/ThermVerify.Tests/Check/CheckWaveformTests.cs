@@ -33,4 +33,24 @@ public class CheckWaveformTests
             Assert.All(trace.HoldVolts, v => Assert.True(double.IsFinite(v)));
         }
     }
+
+    /// <summary>
+    /// Remedy proofs and search candidates skip the recording: the verdict, every point and every finding are those of
+    /// the recorded check (the recording only reads the run again), and the waveform has no conversions.
+    /// </summary>
+    [Theory]
+    [InlineData("buffered-cable-probe.toml")]
+    [InlineData("cold-storage-logger.toml")]
+    public void A_check_without_the_recording_has_the_same_points_and_findings(string example)
+    {
+        var design = ExampleDesigns.Load(example);
+        var options = new CheckOptions { ComputeRemedies = false, MaximumSamplingPoints = 3 };
+        var recorded = FrontEndCheck.Run(design, options);
+        var bare = FrontEndCheck.Run(design, options with { RecordWaveform = false });
+        Assert.Empty(bare.Waveform.Conversions);
+        Assert.NotEmpty(recorded.Waveform.Conversions);
+        Assert.Equal(recorded.Passed, bare.Passed);
+        Assert.Equal(recorded.Points.Select(p => (p.Code, p.ErrorKelvin, p.SampleVolts)), bare.Points.Select(p => (p.Code, p.ErrorKelvin, p.SampleVolts)));
+        Assert.Equal(recorded.Findings.Select(f => (f.Id, f.Severity, f.Title)), bare.Findings.Select(f => (f.Id, f.Severity, f.Title)));
+    }
 }

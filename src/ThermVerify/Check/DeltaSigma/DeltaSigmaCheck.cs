@@ -52,7 +52,7 @@ internal static class DeltaSigmaCheck
             DeltaSigma = report,
         };
         return options.ComputeRemedies
-            ? DeltaSigmaFindings.AttachRemedies(result, options.Engine, changed => Run(changed, options with { ComputeRemedies = false, Progress = null, RemedyProgress = null }))
+            ? DeltaSigmaFindings.AttachRemedies(result, options.Engine, changed => Run(changed, options with { ComputeRemedies = false, RecordWaveform = false, Progress = null, RemedyProgress = null }))
             : result;
     }
 

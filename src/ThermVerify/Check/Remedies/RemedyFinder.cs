@@ -33,7 +33,7 @@ internal sealed class RemedyFinder
     {
         this.original = original;
         // The checks a search makes are its own business: they report no progress of the check they serve.
-        this.options = options with { ComputeRemedies = false, Progress = null, RemedyProgress = null };
+        this.options = options with { ComputeRemedies = false, RecordWaveform = false, Progress = null, RemedyProgress = null };
     }
 
     private FrontEndDesign Design => original.Design;
