@@ -54,12 +54,7 @@ internal sealed class TransientRecord(int width)
         if (handedOut)
         {
             var (time, values, slopes) = (Times[last], Values.AsSpan(last * Width, Width).ToArray(), Slopes.AsSpan(last * Width, Width).ToArray());
-            Times = new double[256];
-            Values = new double[256 * Width];
-            Slopes = new double[256 * Width];
-            Formulas = new StepFormula[256];
-            Probes = new bool[256];
-            handedOut = false;
+            FreshArrays();
             Count = 0;
             Add(time, values, slopes, StepFormula.BackwardEuler);
             return;
@@ -76,19 +71,23 @@ internal sealed class TransientRecord(int width)
     public void StartAgain(double time, double[] solution, double[] slope)
     {
         if (handedOut)
-        {
-            Times = new double[256];
-            Values = new double[256 * Width];
-            Slopes = new double[256 * Width];
-            Formulas = new StepFormula[256];
-            Probes = new bool[256];
-            handedOut = false;
-        }
+            FreshArrays();
         Count = 0;
         Add(time, solution, slope, StepFormula.BackwardEuler);
     }
 
     private bool handedOut;
+
+    /// <summary>New arrays for the points to come: a result holds the old ones.</summary>
+    private void FreshArrays()
+    {
+        Times = new double[256];
+        Values = new double[256 * Width];
+        Slopes = new double[256 * Width];
+        Formulas = new StepFormula[256];
+        Probes = new bool[256];
+        handedOut = false;
+    }
 
     /// <summary>A result now holds the arrays: they must not be overwritten.</summary>
     public void HandOut() => handedOut = true;
