@@ -24,7 +24,7 @@ public class DeltaSigmaUnitBenchmarks
     [GlobalSetup]
     public void Setup()
     {
-        var design = DesignLoader.Load(Path.Combine(RepositoryRoot(), "netlists", Example + ".toml"));
+        var design = Repository.Load(Example + ".toml");
         evaluator = new UnitEvaluator(design, 1);
         var random = new UnitRandom(1, 0);
         deviations = evaluator.Set.Sample(ref random);
@@ -36,12 +36,4 @@ public class DeltaSigmaUnitBenchmarks
 
     [Benchmark]
     public double WithChannelSwitch() => evaluator.Evaluate(deviations).ChannelSwitchKelvin!.Value;
-
-    private static string RepositoryRoot()
-    {
-        for (var dir = new DirectoryInfo(AppContext.BaseDirectory); dir is not null; dir = dir.Parent)
-            if (File.Exists(Path.Combine(dir.FullName, "Directory.Build.props")) && Directory.Exists(Path.Combine(dir.FullName, "netlists")))
-                return dir.FullName;
-        throw new DirectoryNotFoundException("netlists/ not found above the benchmark binaries");
-    }
 }

@@ -32,7 +32,7 @@ public class EngineComparisonBenchmarks
     [GlobalSetup]
     public void Setup()
     {
-        var design = DesignLoader.Load(Path.Combine(NetlistsFolder(), "cold-storage-logger.toml"));
+        var design = ThermVerify.Benchmarks.Repository.Load("cold-storage-logger.toml");
         temperatures = [.. Enumerable.Range(0, SweepPoints).Select(i => -40 + 0.1 * i)];
         dcCircuit = FrontEndCircuit.Dc(design, null);
         dcDeck = SpiceDeckWriter.Write(dcCircuit, DcTemperatureSweep.From(temperatures));
@@ -72,12 +72,4 @@ public class EngineComparisonBenchmarks
 
     [Benchmark]
     public double Sampling_ngspice_process() => NgspiceProcess.Run(samplingDeck).Plot("tran")[FrontEndNodes.Hold].Real[^1];
-
-    private static string NetlistsFolder()
-    {
-        for (var dir = new DirectoryInfo(AppContext.BaseDirectory); dir is not null; dir = dir.Parent)
-            if (Directory.Exists(Path.Combine(dir.FullName, "netlists")) && File.Exists(Path.Combine(dir.FullName, "Directory.Build.props")))
-                return Path.Combine(dir.FullName, "netlists");
-        throw new DirectoryNotFoundException("netlists/ not found above the benchmark binaries");
-    }
 }

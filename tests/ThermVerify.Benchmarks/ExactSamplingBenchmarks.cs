@@ -83,19 +83,11 @@ public class ExactSamplingBenchmarks
 
     private static Case Load(string file)
     {
-        var design = DesignLoader.Load(Path.Combine(NetlistsFolder(), file));
+        var design = Repository.Load(file);
         var lsb = new ClosedFormModel(design).Adc.LsbVolts;
         // 4,096 conversions in the circuit, so that the 4,096th can be read; the first 64 are the same either way.
         var (circuit, options) = SamplingRun.Setup(design, Celsius, 0.0, design.Check.SettleLimitLsb * lsb, 4096);
         options = options with { StopTimeSeconds = Conversions / design.Adc.SampleRateHertz };
         return new Case(circuit, options, [.. Enumerable.Range(0, Conversions).Select(k => FrontEndCircuit.SampleTimeSeconds(design, k))]);
-    }
-
-    private static string NetlistsFolder()
-    {
-        for (var dir = new DirectoryInfo(AppContext.BaseDirectory); dir is not null; dir = dir.Parent)
-            if (Directory.Exists(Path.Combine(dir.FullName, "netlists")) && File.Exists(Path.Combine(dir.FullName, "Directory.Build.props")))
-                return Path.Combine(dir.FullName, "netlists");
-        throw new DirectoryNotFoundException("netlists/ not found above the benchmark binaries");
     }
 }

@@ -24,7 +24,7 @@ public class ExampleUnitBenchmarks
     [GlobalSetup]
     public void Setup()
     {
-        evaluator = new UnitEvaluator(DesignLoader.Load(Path.Combine(Repository.Netlists, Example + ".toml")), 1);
+        evaluator = new UnitEvaluator(Repository.Load(Example + ".toml"), 1);
         var random = new UnitRandom(1, 0);
         deviations = evaluator.Set.Sample(ref random);
         evaluator.Evaluate(deviations); // what a run computes once, from the nominal unit, before its units

@@ -20,7 +20,7 @@ public class MonteCarloBenchmarks
     [GlobalSetup]
     public void Setup()
     {
-        design = DesignLoader.Load(Path.Combine(RepositoryRoot(), "netlists", "oven-pt1000.toml"));
+        design = Repository.Load("oven-pt1000.toml");
         evaluator = new UnitEvaluator(design, 1);
         var random = new UnitRandom(1, 0);
         deviations = evaluator.Set.Sample(ref random);
@@ -35,12 +35,4 @@ public class MonteCarloBenchmarks
     [Benchmark]
     public double ThousandUnitsTwoThreads() =>
         MonteCarlo.Run(evaluator, new MonteCarloOptions { Units = 1000, Threads = 2 }).Yield;
-
-    private static string RepositoryRoot()
-    {
-        for (var dir = new DirectoryInfo(AppContext.BaseDirectory); dir is not null; dir = dir.Parent)
-            if (File.Exists(Path.Combine(dir.FullName, "Directory.Build.props")) && Directory.Exists(Path.Combine(dir.FullName, "netlists")))
-                return dir.FullName;
-        throw new DirectoryNotFoundException("netlists/ not found above the benchmark binaries");
-    }
 }

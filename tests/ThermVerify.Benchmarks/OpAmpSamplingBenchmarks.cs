@@ -22,12 +22,12 @@ public class OpAmpSamplingBenchmarks
     [GlobalSetup]
     public void Setup()
     {
-        buffered = Load("cold-storage-logger-buffered.toml");
-        var bare = Load("cold-storage-logger-bare-opamp.toml");
+        buffered = Repository.Load("cold-storage-logger-buffered.toml");
+        var bare = Repository.Load("cold-storage-logger-bare-opamp.toml");
         slow = bare with { Buffer = bare.Buffer! with { SlewRateVoltsPerSecond = 1e3 } };
         bufferedUnit = Unit(buffered);
         bareUnit = Unit(bare);
-        cableUnit = Unit(Load("buffered-cable-probe.toml"));
+        cableUnit = Unit(Repository.Load("buffered-cable-probe.toml"));
     }
 
     [Benchmark]
@@ -56,13 +56,5 @@ public class OpAmpSamplingBenchmarks
         var evaluator = new UnitEvaluator(design, 1);
         var random = new UnitRandom(1, 0);
         return (evaluator, evaluator.Set.Sample(ref random));
-    }
-
-    private static FrontEndDesign Load(string file)
-    {
-        for (var dir = new DirectoryInfo(AppContext.BaseDirectory); dir is not null; dir = dir.Parent)
-            if (File.Exists(Path.Combine(dir.FullName, "Directory.Build.props")) && Directory.Exists(Path.Combine(dir.FullName, "netlists")))
-                return DesignLoader.Load(Path.Combine(dir.FullName, "netlists", file));
-        throw new DirectoryNotFoundException("netlists/ not found above the benchmark binaries");
     }
 }

@@ -1,3 +1,5 @@
+using ThermVerify.Design;
+
 namespace ThermVerify.Benchmarks;
 
 /// <summary>The repository's bundled examples, found above the benchmark binaries.</summary>
@@ -12,6 +14,9 @@ internal static class Repository
                 return Path.Combine(dir.FullName, "netlists");
         throw new DirectoryNotFoundException("netlists/ not found above the benchmark binaries");
     }
+
+    /// <summary>A bundled design by its file name ("oven-pt1000.toml").</summary>
+    public static FrontEndDesign Load(string file) => DesignLoader.Load(Path.Combine(Netlists, file));
 
     /// <summary>Every bundled design, by name without ".toml".</summary>
     public static IEnumerable<string> Examples() =>

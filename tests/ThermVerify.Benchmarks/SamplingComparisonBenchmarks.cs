@@ -32,7 +32,7 @@ public class SamplingComparisonBenchmarks
     [GlobalSetup]
     public void Setup()
     {
-        var design = DesignLoader.Load(Path.Combine(Repository.Netlists, Example + ".toml"));
+        var design = Repository.Load(Example + ".toml");
         var lsb = new ClosedFormModel(design).Adc.LsbVolts;
         (circuit, options) = SamplingRun.Setup(design, 25, 0.0, design.Check.SettleLimitLsb * lsb, Conversions);
         sampleTimes = [.. Enumerable.Range(0, Conversions).Select(k => FrontEndCircuit.SampleTimeSeconds(design, k))];

@@ -28,11 +28,11 @@ public class UnitSpeedBenchmarks
     [GlobalSetup]
     public void Setup()
     {
-        var soil = Load("soil-probe-switched-netlist.toml");
+        var soil = Repository.Load("soil-probe-switched-netlist.toml");
         (switchOnCircuit, switchOnOptions) = SwitchOnSettling.Setup(soil, -10, null, 1e-6);
         (soilUnits, soilDeviations) = Units(soil);
-        (ovenUnits, ovenDeviations) = Units(Load("oven-pt1000.toml"));
-        var autoclave = Load("autoclave-pt100-bridge-inamp.toml");
+        (ovenUnits, ovenDeviations) = Units(Repository.Load("oven-pt1000.toml"));
+        var autoclave = Repository.Load("autoclave-pt100-bridge-inamp.toml");
         autoclaveDc = FrontEndCircuit.Dc(autoclave, null);
         var (lo, hi) = (autoclave.Check.Range.MinCelsius, autoclave.Check.Range.MaxCelsius);
         autoclaveTemperatures = [.. Enumerable.Range(0, 151).Select(i => lo + i * (hi - lo) / 150)];
@@ -65,12 +65,4 @@ public class UnitSpeedBenchmarks
 
     [Benchmark]
     public int AutoclaveDcSweep() => DcSweep.Temperature(autoclaveDc, autoclaveTemperatures).Count;
-
-    private static FrontEndDesign Load(string name)
-    {
-        for (var dir = new DirectoryInfo(AppContext.BaseDirectory); dir is not null; dir = dir.Parent)
-            if (File.Exists(Path.Combine(dir.FullName, "Directory.Build.props")) && Directory.Exists(Path.Combine(dir.FullName, "netlists")))
-                return DesignLoader.Load(Path.Combine(dir.FullName, "netlists", name));
-        throw new DirectoryNotFoundException("netlists/ not found above the benchmark binaries");
-    }
 }
